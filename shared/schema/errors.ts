@@ -1,0 +1,21 @@
+// The one error shape of the API and the live channel (SPEC §7).
+import { z } from 'zod';
+
+export const errorCodeSchema = z.enum([
+  'bad_request',
+  'validation_failed',
+  'unauthenticated',
+  'forbidden',
+  'not_found',
+  'conflict',
+  'unprocessable',
+  'payload_too_large',
+  'rate_limited',
+  'internal',
+]);
+export type ErrorCode = z.infer<typeof errorCodeSchema>;
+
+export const apiErrorSchema = z.object({
+  error: z.object({ code: errorCodeSchema, message: z.string(), details: z.unknown().optional() }),
+});
+export type ApiErrorBody = z.infer<typeof apiErrorSchema>;

@@ -1,0 +1,116 @@
+// Result shapes produced by the engine (SPEC §5, §6) and carried by the API, the live channel and the
+// calculation package. They are computed by our own code, so they are plain types, not zod schemas.
+import { z } from 'zod';
+
+export const analysisOptionsSchema = z
+  .object({
+    combination: z.enum(['6.10', '6.10ab']),
+    annex: z.enum(['UK', 'EN']),
+    imposedReduction: z.boolean(),
+    selfWeight: z.boolean(),
+  })
+  .strict();
+export type AnalysisOptions = z.infer<typeof analysisOptionsSchema>;
+export type Annex = AnalysisOptions['annex'];
+
+export const DEFAULT_ANALYSIS_OPTIONS: AnalysisOptions = {
+  combination: '6.10ab',
+  annex: 'UK',
+  imposedReduction: true,
+  selfWeight: true,
+};
+
+export type BucklingCurve = 'a0' | 'a' | 'b' | 'c' | 'd';
+export type SectionClass = 1 | 2 | 3 | 4;
+export type GoverningMode = 'cross-section' | 'flexural-y' | 'flexural-z';
+
+/** One line of working: what the UI and the PDF print, in the engine's own units. */
+export interface CalcStep {
+  symbol: string;
+  value: number | string;
+  unit: string;
+  /** Clause, table or equation reference, e.g. "EN 1993-1-1 eq. 6.49". */
+  clause: string;
+  description?: string;
+}
+
+/** checkCompression result: N, mm, N/mm² (SPEC §6). */
+export interface CompressionResult {
+  fy: number;
+  epsilon: number;
+  sectionClass: SectionClass;
+  /** Element that sets the class, e.g. "flange outstand", "web", "wall", "tube". */
+  classGoverningElement: string;
+  A: number;
+  Aeff: number;
+  NcRd: number;
+  NcrY: number;
+  NcrZ: number;
+  lambdaBarY: number;
+  lambdaBarZ: number;
+  curveY: BucklingCurve;
+  curveZ: BucklingCurve;
+  chiY: number;
+  chiZ: number;
+  NbRdY: number;
+  NbRdZ: number;
+  NbRd: number;
+  utilisation: number;
+  governing: GoverningMode;
+  steps: CalcStep[];
+}
+
+export interface Issue {
+  nodeId?: string;
+  message: string;
+}
+
+/** One piece of a lift between consecutive cut elevations (m, kN). */
+export interface PieceCheck {
+  from: number;
+  to: number;
+  NEd: number;
+  NEdY: number;
+  NEdZ: number;
+  LcrY: number;
+  LcrZ: number;
+  kY: number;
+  kZ: number;
+  utilisation: number;
+  check: CompressionResult;
+}
+
+export interface LiftResult {
+  liftId: string;
+  bottom: number;
+  top: number;
+  section: string;
+  grade: string;
+  utilisation: number;
+  governing: GoverningMode;
+  pieces: PieceCheck[];
+}
+
+/** Load take-down at each point where load enters the column (m, kN), top to bottom. */
+export interface TakeDownRow {
+  nodeId: string;
+  elevation: number;
+  /** Characteristic loads entering here (including load nodes attached here). */
+  Gk: number;
+  Qk: number;
+  category: string;
+  /** Totals just below this point, before self-weight of the column below. */
+  sumGk: number;
+  sumQkByCategory: Record<string, number>;
+  /** Design axial force just below this point, with the combination that governs. */
+  NEd: number;
+  combination: string;
+}
+
+export interface StackResult {
+  errors: Issue[];
+  warnings: Issue[];
+  lifts: LiftResult[];
+  governingLiftId: string | null;
+  takeDown: TakeDownRow[];
+}

@@ -1,0 +1,95 @@
+// The stack document (SPEC §4): the contract between the editor, the server and the engine.
+// Units: metres and kilonewtons. Positions are for drawing only; the analysis never reads them.
+import { z } from 'zod';
+
+/** Largest elevation or load we accept: a guard against absurd input, not a design limit. */
+export const MAX_ELEVATION_M = 1000;
+export const MAX_LOAD_KN = 1e6;
+export const MAX_DIMENSION_MM = 5000;
+
+const finite = z.number().refine(Number.isFinite, 'must be a finite number');
+const elevation = finite.min(-MAX_ELEVATION_M).max(MAX_ELEVATION_M);
+const load = finite.min(0, 'must not be negative').max(MAX_LOAD_KN);
+const mm = finite.positive('must be greater than zero').max(MAX_DIMENSION_MM);
+
+export const fixitySchema = z.enum(['pinned', 'partial', 'fixed']);
+export const categorySchema = z.enum(['A', 'B', 'C', 'D', 'E', 'H']);
+export const gradeSchema = z.enum(['S235', 'S275', 'S355', 'S420', 'S460']);
+export const axesSchema = z.enum(['both', 'y', 'z']);
+
+export const sectionDimsSchema = z.discriminatedUnion('shape', [
+  z.object({ shape: z.literal('I'), make: z.enum(['rolled', 'welded']), h: mm, b: mm, tw: mm, tf: mm, r: finite.min(0).max(MAX_DIMENSION_MM) }).strict(),
+  z.object({ shape: z.literal('RHS'), make: z.enum(['hot-finished', 'cold-formed']), h: mm, b: mm, t: mm }).strict(),
+  z.object({ shape: z.literal('CHS'), make: z.enum(['hot-finished', 'cold-formed']), d: mm, t: mm }).strict(),
+]);
+
+const sectionRef = z.union([z.string().trim().min(1).max(80), sectionDimsSchema]);
+const kFactor = finite.positive().max(10);
+
+export const supportDataSchema = z.object({ elevation, fixity: fixitySchema }).strict();
+export const liftDataSchema = z
+  .object({ section: sectionRef, grade: gradeSchema, kY: kFactor.optional(), kZ: kFactor.optional(), note: z.string().max(500).optional() })
+  .strict();
+export const spliceDataSchema = z.object({ elevation }).strict();
+export const restraintDataSchema = z
+  .object({
+    elevation,
+    levelId: z.string().min(1).max(64).optional(),
+    axes: axesSchema,
+    fixity: fixitySchema,
+    Gk: load,
+    Qk: load,
+    category: categorySchema,
+  })
+  .strict();
+export const capDataSchema = z
+  .object({ elevation, fixity: z.union([fixitySchema, z.literal('free')]), Gk: load, Qk: load, category: categorySchema })
+  .strict();
+export const loadDataSchema = z.object({ label: z.string().max(120), Gk: load, Qk: load, category: categorySchema }).strict();
+
+export const nodeIdSchema = z.string().min(1).max(64).regex(/^[A-Za-z0-9_.:-]+$/, 'may hold only letters, digits and _ . : -');
+const positionSchema = z.object({ x: finite.min(-1e6).max(1e6), y: finite.min(-1e6).max(1e6) }).strict();
+const nodeBase = { id: nodeIdSchema, position: positionSchema.optional() };
+
+export const stackNodeSchema = z.discriminatedUnion('kind', [
+  z.object({ ...nodeBase, kind: z.literal('support'), data: supportDataSchema }).strict(),
+  z.object({ ...nodeBase, kind: z.literal('lift'), data: liftDataSchema }).strict(),
+  z.object({ ...nodeBase, kind: z.literal('splice'), data: spliceDataSchema }).strict(),
+  z.object({ ...nodeBase, kind: z.literal('restraint'), data: restraintDataSchema }).strict(),
+  z.object({ ...nodeBase, kind: z.literal('cap'), data: capDataSchema }).strict(),
+  z.object({ ...nodeBase, kind: z.literal('load'), data: loadDataSchema }).strict(),
+]);
+
+export const stackEdgeSchema = z.object({ id: nodeIdSchema, source: nodeIdSchema, target: nodeIdSchema }).strict();
+
+/** Shape of a document. Its meaning (one chain, rising elevations…) is checked by validateStack in the engine. */
+export const stackDocumentSchema = z
+  .object({ nodes: z.array(stackNodeSchema).max(2000), edges: z.array(stackEdgeSchema).max(4000) })
+  .strict();
+
+export type Fixity = z.infer<typeof fixitySchema>;
+export type Category = z.infer<typeof categorySchema>;
+export type Grade = z.infer<typeof gradeSchema>;
+export type Axes = z.infer<typeof axesSchema>;
+export type SectionDims = z.infer<typeof sectionDimsSchema>;
+export type SupportData = z.infer<typeof supportDataSchema>;
+export type LiftData = z.infer<typeof liftDataSchema>;
+export type SpliceData = z.infer<typeof spliceDataSchema>;
+export type RestraintData = z.infer<typeof restraintDataSchema>;
+export type CapData = z.infer<typeof capDataSchema>;
+export type LoadData = z.infer<typeof loadDataSchema>;
+export type StackNode = z.infer<typeof stackNodeSchema>;
+export type StackEdge = z.infer<typeof stackEdgeSchema>;
+export type StackDocument = z.infer<typeof stackDocumentSchema>;
+export type NodeKind = StackNode['kind'];
+export type NodeOf<K extends NodeKind> = Extract<StackNode, { kind: K }>;
+
+/** Schema of each kind's data, for validating a partial update (SPEC §7 updateNode). */
+export const nodeDataSchemas = {
+  support: supportDataSchema,
+  lift: liftDataSchema,
+  splice: spliceDataSchema,
+  restraint: restraintDataSchema,
+  cap: capDataSchema,
+  load: loadDataSchema,
+} as const;

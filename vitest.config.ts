@@ -1,0 +1,32 @@
+import { defineConfig, mergeConfig } from 'vitest/config';
+import viteConfig from './vite.config.ts';
+
+export default mergeConfig(
+  viteConfig,
+  defineConfig({
+    test: {
+      projects: [
+        { extends: true, test: { name: 'engine', environment: 'node', include: ['tests/engine/**/*.test.ts'] } },
+        {
+          extends: true,
+          test: { name: 'server', environment: 'node', include: ['tests/server/**/*.test.ts'], testTimeout: 30_000, hookTimeout: 30_000 },
+        },
+        {
+          extends: true,
+          test: { name: 'client', environment: 'happy-dom', include: ['tests/client/**/*.test.ts'], setupFiles: ['tests/client/setup.ts'] },
+        },
+        {
+          extends: true,
+          test: {
+            name: 'e2e',
+            environment: 'node',
+            include: ['tests/e2e/**/*.e2e.ts'],
+            testTimeout: 60_000,
+            hookTimeout: 120_000,
+            fileParallelism: false,
+          },
+        },
+      ],
+    },
+  }),
+);
