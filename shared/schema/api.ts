@@ -1,0 +1,130 @@
+// Request and response bodies of the REST API (SPEC §7). Both ends use these; nothing is redeclared.
+import { z } from 'zod';
+import { stackDocumentSchema, gradeSchema, fixitySchema, sectionDimsSchema } from './stack.ts';
+import { opsSchema } from './ops.ts';
+import { analysisOptionsSchema, type AnalysisOptions, type StackResult } from './results.ts';
+
+export const roleSchema = z.enum(['viewer', 'engineer', 'lead']);
+export type Role = z.infer<typeof roleSchema>;
+/** Roles in increasing order of rights. */
+export const ROLE_RANK: Record<Role, number> = { viewer: 1, engineer: 2, lead: 3 };
+
+export const emailSchema = z
+  .string()
+  .trim()
+  .max(254)
+  .email('must be an e-mail address')
+  .transform((s) => s.toLowerCase());
+export const passwordSchema = z.string().min(10, 'must be at least 10 characters').max(200);
+export const idParamSchema = z.coerce.number().int().positive().max(Number.MAX_SAFE_INTEGER);
+
+export const registerBodySchema = z
+  .object({ email: emailSchema, password: passwordSchema, name: z.string().trim().min(1).max(100) })
+  .strict();
+export const loginBodySchema = z.object({ email: emailSchema, password: z.string().min(1).max(200) }).strict();
+
+export interface User {
+  id: number;
+  email: string;
+  name: string;
+  isAdmin: boolean;
+}
+export interface AuthResponse {
+  token: string;
+  user: User;
+}
+
+const name = z.string().trim().min(1).max(120);
+
+export const createBuildingBodySchema = z
+  .object({ name, reference: z.string().trim().max(60).optional(), options: analysisOptionsSchema.partial().optional() })
+  .strict();
+export const updateBuildingBodySchema = z
+  .object({ name: name.optional(), reference: z.string().trim().max(60).optional(), options: analysisOptionsSchema.partial().optional() })
+  .strict();
+
+export interface BuildingSummary {
+  id: number;
+  name: string;
+  reference: string;
+  role: Role;
+  stackCount: number;
+  /** Highest governing utilisation of any stack, null when none has results. */
+  worstUtilisation: number | null;
+  updatedAt: string;
+}
+export interface Building extends BuildingSummary {
+  options: AnalysisOptions;
+}
+
+export const addMemberBodySchema = z.object({ email: emailSchema, role: roleSchema }).strict();
+export const updateMemberBodySchema = z.object({ role: roleSchema }).strict();
+export interface Member {
+  userId: number | null;
+  email: string;
+  name: string | null;
+  role: Role;
+  /** true while the address has no account yet (invitation sent). */
+  pending: boolean;
+}
+
+export const createLevelBodySchema = z
+  .object({ name: z.string().trim().min(1).max(60), elevation: z.number().finite().min(-1000).max(1000) })
+  .strict();
+export const updateLevelBodySchema = createLevelBodySchema.partial().strict();
+export interface Level {
+  id: string;
+  name: string;
+  elevation: number;
+}
+
+export const stackTemplateSchema = z
+  .object({
+    storeys: z.number().int().min(1).max(120),
+    storeyHeight: z.number().finite().min(1).max(20),
+    baseElevation: z.number().finite().min(-100).max(100).default(0),
+    spliceEvery: z.number().int().min(1).max(10).default(2),
+    /** Section per lift, bottom first; the last one repeats for the remaining lifts. */
+    sections: z.array(z.string().trim().min(1).max(80)).min(1).max(120),
+    grade: gradeSchema.default('S355'),
+    baseFixity: fixitySchema.default('pinned'),
+    /** Characteristic floor loads per level (kN) for the template's restraints. */
+    Gk: z.number().finite().min(0).max(1e5).default(0),
+    Qk: z.number().finite().min(0).max(1e5).default(0),
+  })
+  .strict();
+export type StackTemplate = z.infer<typeof stackTemplateSchema>;
+
+export const createStackBodySchema = z
+  .object({ name: z.string().trim().min(1).max(40), doc: stackDocumentSchema.optional(), template: stackTemplateSchema.optional() })
+  .strict()
+  .refine((b) => !(b.doc && b.template), 'give either doc or template, not both');
+export const putStackBodySchema = z
+  .object({ doc: stackDocumentSchema, baseVersion: z.number().int().min(0) })
+  .strict();
+export const patchStackBodySchema = z.object({ name: z.string().trim().min(1).max(40) }).strict();
+export const applyOpsBodySchema = z.object({ ops: opsSchema, baseVersion: z.number().int().min(0) }).strict();
+
+export interface StackSummary {
+  id: number;
+  buildingId: number;
+  name: string;
+  version: number;
+  liftCount: number;
+  governingLiftId: string | null;
+  governingSection: string | null;
+  utilisation: number | null;
+  status: 'passes' | 'fails' | 'errors';
+  updatedAt: string;
+}
+export interface StackDetail {
+  id: number;
+  buildingId: number;
+  name: string;
+  doc: z.infer<typeof stackDocumentSchema>;
+  version: number;
+  results: StackResult;
+}
+
+export const companySectionSchema = z.object({ designation: z.string().trim().min(1).max(80), dims: sectionDimsSchema }).strict();
+export type CompanySection = z.infer<typeof companySectionSchema>;

@@ -1,0 +1,6 @@
+export * from './stack.ts';
+export * from './ops.ts';
+export * from './errors.ts';
+export * from './results.ts';
+export * from './api.ts';
+export * from './socket.ts';

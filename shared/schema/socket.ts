@@ -1,0 +1,57 @@
+// Live channel events (SPEC §7): payload schemas and the typed Socket.IO event maps.
+import { z } from 'zod';
+import { opsSchema, type Op } from './ops.ts';
+import type { StackDocument } from './stack.ts';
+import type { StackResult } from './results.ts';
+import type { ApiErrorBody } from './errors.ts';
+
+const stackId = z.number().int().positive();
+
+export const stackJoinSchema = z.object({ stackId }).strict();
+export const stackLeaveSchema = z.object({ stackId }).strict();
+export const stackEditSchema = z.object({ stackId, baseVersion: z.number().int().min(0), ops: opsSchema }).strict();
+export const stackSelectSchema = z.object({ stackId, nodeIds: z.array(z.string().max(64)).max(200) }).strict();
+export const buildingJoinSchema = z.object({ buildingId: z.number().int().positive() }).strict();
+
+export interface PresenceUser {
+  userId: number;
+  name: string;
+  /** Node ids this person has selected. */
+  selection: string[];
+}
+
+export interface StackJoinAck {
+  doc: StackDocument;
+  version: number;
+  results: StackResult;
+}
+export interface StackChanged {
+  stackId: number;
+  version: number;
+  ops: Op[];
+  results: StackResult;
+  by: { userId: number; name: string };
+}
+export interface BuildingStackChanged {
+  buildingId: number;
+  stackId: number;
+  version: number;
+  utilisation: number | null;
+  governingLiftId: string | null;
+  status: 'passes' | 'fails' | 'errors';
+}
+
+export type Ack<T> = (res: { ok: true; data: T } | ({ ok: false } & ApiErrorBody)) => void;
+
+export interface ClientToServerEvents {
+  'stack:join': (payload: z.infer<typeof stackJoinSchema>, ack: Ack<StackJoinAck>) => void;
+  'stack:leave': (payload: z.infer<typeof stackLeaveSchema>, ack?: Ack<null>) => void;
+  'stack:edit': (payload: z.infer<typeof stackEditSchema>, ack: Ack<{ version: number }>) => void;
+  'stack:select': (payload: z.infer<typeof stackSelectSchema>, ack?: Ack<null>) => void;
+  'building:join': (payload: z.infer<typeof buildingJoinSchema>, ack: Ack<null>) => void;
+}
+export interface ServerToClientEvents {
+  'stack:changed': (payload: StackChanged) => void;
+  presence: (payload: { stackId: number; users: PresenceUser[] }) => void;
+  'building:stack-changed': (payload: BuildingStackChanged) => void;
+}
