@@ -62,7 +62,15 @@ export interface CompressionResult {
 
 export interface Issue {
   nodeId?: string;
+  /** Set when the problem is an edge (a dangling or disallowed connection). */
+  edgeId?: string;
   message: string;
+}
+
+/** validateStack: errors stop the analysis; warnings accompany the results. */
+export interface StackValidation {
+  errors: Issue[];
+  warnings: Issue[];
 }
 
 /** One piece of a lift between consecutive cut elevations (m, kN). */
@@ -113,4 +121,23 @@ export interface StackResult {
   lifts: LiftResult[];
   governingLiftId: string | null;
   takeDown: TakeDownRow[];
+}
+
+export type StackStatus = 'passes' | 'fails' | 'errors';
+
+/** One stack of the building overview (analyseBuilding). */
+export interface BuildingStackResult<Id extends string | number = string | number> {
+  id: Id;
+  name: string;
+  governingLiftId: string | null;
+  /** Utilisation of the governing lift; null when the stack has errors. */
+  utilisation: number | null;
+  status: StackStatus;
+  result: StackResult;
+}
+
+export interface BuildingResult<Id extends string | number = string | number> {
+  stacks: BuildingStackResult<Id>[];
+  /** The stack with the highest utilisation (first on a tie); null when no stack has results. */
+  worstStackId: Id | null;
 }
