@@ -1,0 +1,59 @@
+// Design axial force from characteristic loads (EN 1990 6.4.3.2, Table A1.2(B); SPEC §5.2–5.3).
+import type { AnalysisOptions } from '../../schema/results.ts';
+import type { Category } from '../../schema/stack.ts';
+import { CATEGORIES, GAMMA_G, GAMMA_Q, isReducibleCategory, psi0, xi } from './combinationFactors.ts';
+import { alphaN } from './imposedReduction.ts';
+
+export type CategoryValues = Partial<Record<Category, number>>;
+
+/** Characteristic loads carried by the column at one section (kN) and the storeys loaded above it. */
+export interface AxialState {
+  sumGk: number;
+  sumQk: CategoryValues;
+  /** Per category: the number of levels above the section that carry imposed load of it. */
+  loadedLevels: CategoryValues;
+}
+
+export interface DesignForce {
+  NEd: number;
+  /** The expression that governs, e.g. "6.10b, leading A". */
+  combination: string;
+  leading: Category | null;
+}
+
+type Options = Pick<AnalysisOptions, 'combination' | 'annex' | 'imposedReduction'>;
+
+/** Q_L*: the leading action, reduced by αn only for categories A–D (EN 1991-1-1 6.3.1.2(11), 6.2.2(2)). */
+function leadingValue(state: AxialState, category: Category, options: Options): number {
+  const Q = state.sumQk[category] ?? 0;
+  if (!options.imposedReduction || !isReducibleCategory(category)) return Q;
+  return alphaN(state.loadedLevels[category] ?? 0, options.annex, category) * Q;
+}
+
+/** max over the leading action L of permanent + γQ·Q_L* + Σ(i≠L) γQ·ψ0,i·Q_i. */
+function withLeading(permanent: number, state: AxialState, options: Options): { value: number; leading: Category | null } {
+  const present = CATEGORIES.filter((c) => (state.sumQk[c] ?? 0) > 0);
+  let best = { value: permanent, leading: null as Category | null };
+  for (const L of present) {
+    let value = permanent + GAMMA_Q * leadingValue(state, L, options);
+    for (const i of present) if (i !== L) value += GAMMA_Q * psi0(i, options.annex) * (state.sumQk[i] ?? 0);
+    if (best.leading === null || value > best.value) best = { value, leading: L };
+  }
+  return best;
+}
+
+export function designAxialForce(state: AxialState, options: Options): DesignForce {
+  const permanent = GAMMA_G * state.sumGk;
+  if (options.combination === '6.10') {
+    // EN 1990 eq. 6.10
+    const { value, leading } = withLeading(permanent, state, options);
+    return { NEd: value, leading, combination: leading ? `6.10, leading ${leading}` : '6.10, permanent only' };
+  }
+  // EN 1990 eq. 6.10a: every variable action at its combination value ψ0·Qk
+  let a = permanent;
+  for (const c of CATEGORIES) a += GAMMA_Q * psi0(c, options.annex) * (state.sumQk[c] ?? 0);
+  // EN 1990 eq. 6.10b: ξ·γG·Gk with a leading variable action
+  const b = withLeading(xi(options.annex) * permanent, state, options);
+  if (a >= b.value) return { NEd: a, leading: null, combination: '6.10a' };
+  return { NEd: b.value, leading: b.leading, combination: b.leading ? `6.10b, leading ${b.leading}` : '6.10b' };
+}

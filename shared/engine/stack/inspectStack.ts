@@ -1,0 +1,71 @@
+// Reads a stack document into the model the analysis works on, collecting every problem on the way.
+import type { Issue } from '../../schema/results.ts';
+import type { LiftData, StackDocument } from '../../schema/stack.ts';
+import { readAttachments, type ModelRestraint } from './attachments.ts';
+import type { AnalysisContext } from './context.ts';
+import { schemaIssues } from './schemaIssues.ts';
+import { segmentsAbout, type Segment } from './segments.ts';
+import { walkStackChain } from './stackChain.ts';
+import { buildStackGraph } from './stackGraph.ts';
+import type { LoadEntry } from './takeDown.ts';
+
+export interface ModelLift {
+  id: string;
+  /** L1, L2, … from the bottom. */
+  name: string;
+  bottom: number;
+  top: number;
+  data: LiftData;
+}
+
+export interface StackModel {
+  lifts: ModelLift[];
+  restraints: ModelRestraint[];
+  /** Where load enters the column, top to bottom. */
+  entries: LoadEntry[];
+  segments: { y: Segment[]; z: Segment[] };
+}
+
+export const BRACED_FRAME_WARNING: Issue = {
+  message:
+    'The analysis assumes a braced (non-sway) frame and axial load only: sway, frame moments and eccentric connections are not included',
+};
+
+export interface Inspection {
+  model: StackModel | null;
+  errors: Issue[];
+  warnings: Issue[];
+}
+
+export function inspectStack(doc: StackDocument, context: AnalysisContext = {}): Inspection {
+  const warnings: Issue[] = [BRACED_FRAME_WARNING];
+  const shape = schemaIssues(doc);
+  if (shape.length) return { model: null, errors: shape, warnings };
+
+  const { graph, issues: graphErrors } = buildStackGraph(doc);
+  const { chain, issues: chainErrors } = walkStackChain(graph);
+  const attached = readAttachments(graph, chain, context);
+  const errors = [...graphErrors, ...chainErrors, ...attached.errors];
+  warnings.push(...attached.warnings);
+  if (!chain.complete || !chain.support || !chain.cap || errors.length) return { model: null, errors, warnings };
+
+  const { support, cap } = chain;
+  const ends = {
+    support: { nodeId: support.id, elevation: support.data.elevation, fixity: support.data.fixity },
+    cap: { nodeId: cap.id, elevation: cap.data.elevation, fixity: cap.data.fixity },
+  };
+  const { restraints, entries } = attached.attachments;
+  const y = segmentsAbout('y', ends, restraints);
+  const z = segmentsAbout('z', ends, restraints);
+  errors.push(...y.errors, ...z.errors);
+  if (errors.length) return { model: null, errors, warnings };
+
+  const lifts = chain.lifts.map(({ node, name, below, above }) => ({
+    id: node.id,
+    name,
+    bottom: below.data.elevation,
+    top: above ? above.data.elevation : below.data.elevation,
+    data: node.data,
+  }));
+  return { model: { lifts, restraints, entries, segments: { y: y.segments, z: z.segments } }, errors, warnings };
+}
