@@ -1,0 +1,35 @@
+// Static migration list: works the same under tsx, Vitest and a bundled build (STACK.md).
+import type { Knex } from 'knex';
+import * as addUsers from './202512010900_add_users.ts';
+import * as addBuildings from './202512010901_add_buildings.ts';
+import * as addMemberships from './202512010902_add_memberships.ts';
+import * as addInvitations from './202512010903_add_invitations.ts';
+import * as addLevels from './202512010904_add_levels.ts';
+import * as addStacks from './202512010905_add_stacks.ts';
+import * as addStackOps from './202512010906_add_stack_ops.ts';
+import * as addAuditLog from './202512010907_add_audit_log.ts';
+import * as addOutbox from './202512010908_add_outbox.ts';
+import * as addMailLog from './202512010909_add_mail_log.ts';
+
+const migrations: Record<string, Knex.Migration> = {
+  '202512010900_add_users': addUsers,
+  '202512010901_add_buildings': addBuildings,
+  '202512010902_add_memberships': addMemberships,
+  '202512010903_add_invitations': addInvitations,
+  '202512010904_add_levels': addLevels,
+  '202512010905_add_stacks': addStacks,
+  '202512010906_add_stack_ops': addStackOps,
+  '202512010907_add_audit_log': addAuditLog,
+  '202512010908_add_outbox': addOutbox,
+  '202512010909_add_mail_log': addMailLog,
+};
+
+export const migrationSource: Knex.MigrationSource<string> = {
+  getMigrations: async () => Object.keys(migrations).sort(),
+  getMigrationName: (name) => name,
+  getMigration: async (name) => {
+    const migration = migrations[name];
+    if (!migration) throw new Error(`Unknown migration ${name}`);
+    return migration;
+  },
+};

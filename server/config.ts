@@ -1,0 +1,93 @@
+// Server configuration, read once from the environment with safe defaults (issue 2).
+import { randomBytes } from 'node:crypto';
+import { chmodSync, existsSync, mkdirSync, readFileSync, writeFileSync } from 'node:fs';
+import { resolve } from 'node:path';
+import { fileURLToPath } from 'node:url';
+import { z } from 'zod';
+
+export interface Config {
+  port: number;
+  dataDir: string;
+  databaseUrl: string | null;
+  jwtSecret: string;
+  smtpUrl: string | null;
+  mailFrom: string;
+  logLevel: string;
+  bcryptRounds: number;
+  /** Login attempts allowed per IP address in each window. */
+  loginRateLimit: { windowMs: number; max: number };
+  /** Express 'trust proxy' setting; null leaves it off. */
+  trustProxy: string | number | boolean | null;
+  production: boolean;
+  version: string;
+  /** Built client served by the API process. */
+  distDir: string;
+}
+
+const intFromEnv = (fallback: number, min: number, max: number) =>
+  z.coerce.number().int().min(min).max(max).default(fallback);
+
+const envSchema = z.object({
+  PORT: intFromEnv(3000, 0, 65535),
+  DATA_DIR: z.string().min(1).default('./data'),
+  DATABASE_URL: z.string().min(1).optional(),
+  JWT_SECRET: z.string().min(16, 'JWT_SECRET must be at least 16 characters').optional(),
+  SMTP_URL: z.string().min(1).optional(),
+  MAIL_FROM: z.string().min(3).default('Stanchion <no-reply@stanchion.test>'),
+  LOG_LEVEL: z.enum(['fatal', 'error', 'warn', 'info', 'debug', 'trace', 'silent']).default('info'),
+  // bcrypt cost 10 in production; tests lower it to 4 to stay fast.
+  BCRYPT_ROUNDS: intFromEnv(10, 4, 15),
+  LOGIN_RATE_LIMIT: intFromEnv(20, 1, 100_000),
+  LOGIN_RATE_WINDOW_MS: intFromEnv(60_000, 1000, 86_400_000),
+  TRUST_PROXY: z.string().optional(),
+  NODE_ENV: z.string().optional(),
+});
+
+export type ConfigOverrides = Partial<Omit<Config, 'jwtSecret'>> & { jwtSecret?: string };
+
+/** Reads the secret from DATA_DIR, generating it once (mode 600) when neither env nor file has one. */
+export function loadOrCreateJwtSecret(dataDir: string): string {
+  const file = resolve(dataDir, 'jwt-secret');
+  if (existsSync(file)) return readFileSync(file, 'utf8').trim();
+  mkdirSync(dataDir, { recursive: true });
+  const secret = randomBytes(48).toString('base64url');
+  writeFileSync(file, secret, { mode: 0o600, flag: 'wx' });
+  chmodSync(file, 0o600);
+  return secret;
+}
+
+function parseTrustProxy(value: string | undefined): Config['trustProxy'] {
+  if (value === undefined || value === '') return null;
+  if (value === 'true') return true;
+  if (value === 'false') return false;
+  const n = Number(value);
+  return Number.isInteger(n) ? n : value;
+}
+
+export function loadConfig(env: NodeJS.ProcessEnv = process.env, overrides: ConfigOverrides = {}): Config {
+  const e = envSchema.parse(env);
+  const dataDir = resolve(overrides.dataDir ?? e.DATA_DIR);
+  const version = overrides.version ?? readVersion();
+  const { jwtSecret, ...rest } = overrides;
+  return {
+    port: e.PORT,
+    databaseUrl: e.DATABASE_URL ?? null,
+    smtpUrl: e.SMTP_URL ?? null,
+    mailFrom: e.MAIL_FROM,
+    logLevel: e.LOG_LEVEL,
+    bcryptRounds: e.BCRYPT_ROUNDS,
+    loginRateLimit: { windowMs: e.LOGIN_RATE_WINDOW_MS, max: e.LOGIN_RATE_LIMIT },
+    trustProxy: parseTrustProxy(e.TRUST_PROXY),
+    production: e.NODE_ENV === 'production',
+    distDir: fileURLToPath(new URL('../dist', import.meta.url)),
+    ...rest,
+    dataDir,
+    version,
+    jwtSecret: jwtSecret ?? e.JWT_SECRET ?? loadOrCreateJwtSecret(dataDir),
+  };
+}
+
+function readVersion(): string {
+  const pkg = z.object({ version: z.string() }).safeParse(JSON.parse(readFileSync(fileURLToPath(new URL('../package.json', import.meta.url)), 'utf8')));
+  return pkg.success ? pkg.data.version : '0.0.0';
+}

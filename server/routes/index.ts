@@ -1,0 +1,16 @@
+// Every API route on one router mounted at /api, so the role-matrix test can list them all.
+import { Router } from 'express';
+import type { ServerContext } from '../context.ts';
+import { registerAuthRoutes } from './auth.ts';
+import { registerBuildingRoutes } from './buildings.ts';
+import { registerDevRoutes } from './dev.ts';
+import { registerHealthRoutes } from './health.ts';
+
+export function createApiRouter(ctx: ServerContext): Router {
+  const router = Router();
+  registerHealthRoutes(router, ctx);
+  registerAuthRoutes(router, ctx);
+  registerBuildingRoutes(router, ctx);
+  registerDevRoutes(router, ctx);
+  return router;
+}

@@ -1,0 +1,71 @@
+// Starts one server process: configuration, database, migrations, mail, the app, an HTTP listener.
+// Tests and server/index.ts both use it; the realtime module attaches Socket.IO to httpServer.
+import { createServer, type Server } from 'node:http';
+import type { AddressInfo } from 'node:net';
+import type { Express } from 'express';
+import { createApp } from './app.ts';
+import { loadConfig, type ConfigOverrides } from './config.ts';
+import type { ServerContext } from './context.ts';
+import { createDb, migrate } from './db.ts';
+import { createMailer } from './mail/mailer.ts';
+import { nullBroadcaster } from './services/broadcast.ts';
+
+export interface StartOptions {
+  port?: number;
+  dataDir?: string;
+  databaseUrl?: string;
+  /** Seed the demo scenario when the database has no users. */
+  seed?: boolean;
+  smtpUrl?: string;
+  logLevel?: string;
+  /** Anything else in the configuration (tests lower bcrypt rounds and the login rate limit). */
+  config?: ConfigOverrides;
+  env?: NodeJS.ProcessEnv;
+}
+
+export interface RunningServer {
+  url: string;
+  port: number;
+  app: Express;
+  httpServer: Server;
+  ctx: ServerContext;
+  close(): Promise<void>;
+}
+
+export async function startServer(opts: StartOptions = {}): Promise<RunningServer> {
+  const overrides: ConfigOverrides = { ...opts.config };
+  if (opts.port !== undefined) overrides.port = opts.port;
+  if (opts.dataDir !== undefined) overrides.dataDir = opts.dataDir;
+  if (opts.databaseUrl !== undefined) overrides.databaseUrl = opts.databaseUrl;
+  if (opts.smtpUrl !== undefined) overrides.smtpUrl = opts.smtpUrl;
+  if (opts.logLevel !== undefined) overrides.logLevel = opts.logLevel;
+  const config = loadConfig(opts.env ?? process.env, overrides);
+
+  const db = createDb(config);
+  await migrate(db);
+  if (opts.seed) {
+    const { seedDemoIfEmpty } = await import('../seeds/demo.ts');
+    await seedDemoIfEmpty(db, config.bcryptRounds);
+  }
+  const mailer = await createMailer(config, db);
+  const ctx: ServerContext = { db, config, mailer, broadcaster: nullBroadcaster };
+  const app = createApp(ctx);
+  const httpServer = createServer(app);
+  await new Promise<void>((resolve, reject) => {
+    httpServer.once('error', reject);
+    httpServer.listen(config.port, () => resolve());
+  });
+  const { port } = httpServer.address() as AddressInfo;
+
+  let closing: Promise<void> | null = null;
+  const close = () => {
+    closing ??= (async () => {
+      httpServer.closeAllConnections();
+      await new Promise<void>((resolve) => httpServer.close(() => resolve()));
+      await mailer.close();
+      await db.destroy();
+    })();
+    return closing;
+  };
+  return { url: `http://127.0.0.1:${port}`, port, app, httpServer, ctx, close };
+}

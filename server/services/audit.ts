@@ -1,0 +1,24 @@
+// One audit row for every write: who, when, what, which version (issue 5).
+import type { Knex } from 'knex';
+import { now } from '../db.ts';
+
+export interface AuditEntry {
+  userId: number | null;
+  buildingId?: number | null;
+  stackId?: number | null;
+  action: string;
+  detail?: Record<string, unknown>;
+  version?: number | null;
+}
+
+export async function recordAudit(db: Knex, entry: AuditEntry): Promise<void> {
+  await db('audit_log').insert({
+    user_id: entry.userId,
+    building_id: entry.buildingId ?? null,
+    stack_id: entry.stackId ?? null,
+    action: entry.action,
+    detail: JSON.stringify(entry.detail ?? {}),
+    version: entry.version ?? null,
+    created_at: now(),
+  });
+}

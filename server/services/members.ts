@@ -1,0 +1,96 @@
+// Building membership: the lead adds people by e-mail; unknown addresses get an invitation that
+// becomes a membership when the account is registered (issue 5).
+import type { Knex } from 'knex';
+import { ROLE_RANK, type Member, type Role, type User } from '../../shared/schema/api.ts';
+import { conflict, notFound, unprocessable } from '../errors.ts';
+import { now } from '../db.ts';
+import type { Mailer } from '../mail/mailer.ts';
+import { invitationMessage } from '../mail/messages.ts';
+import { recordAudit } from './audit.ts';
+
+export async function acceptInvitations(trx: Knex, userId: number, email: string): Promise<void> {
+  const invitations = await trx('invitations').where({ email }).select<{ id: number; building_id: number; role: Role }[]>('id', 'building_id', 'role');
+  for (const inv of invitations) {
+    await trx('memberships').insert({ building_id: inv.building_id, user_id: userId, role: inv.role, created_at: now() });
+    await recordAudit(trx, { userId, buildingId: inv.building_id, action: 'member.accept', detail: { email, role: inv.role } });
+  }
+  await trx('invitations').where({ email }).delete();
+}
+
+export async function listMembers(db: Knex, buildingId: number): Promise<Member[]> {
+  const members = await db('memberships as m')
+    .join('users as u', 'u.id', 'm.user_id')
+    .where('m.building_id', buildingId)
+    .orderBy('u.email')
+    .select<{ user_id: number; email: string; name: string; role: Role }[]>('m.user_id', 'u.email', 'u.name', 'm.role');
+  const invited = await db('invitations').where({ building_id: buildingId }).orderBy('email').select<{ email: string; role: Role }[]>('email', 'role');
+  return [
+    ...members.map((m) => ({ userId: m.user_id, email: m.email, name: m.name, role: m.role, pending: false })),
+    ...invited.map((i) => ({ userId: null, email: i.email, name: null, role: i.role, pending: true })),
+  ];
+}
+
+/** Adds an account as a member, or invites an address with no account (and e-mails it after commit). */
+export async function addMember(db: Knex, mailer: Mailer, buildingId: number, email: string, role: Role, by: User): Promise<Member> {
+  const outcome = await db.transaction(async (trx) => {
+    const building = await trx('buildings').where({ id: buildingId }).first<{ name: string } | undefined>('name');
+    if (!building) throw notFound('Building');
+    const user = await trx('users').where({ email }).first<{ id: number; name: string } | undefined>('id', 'name');
+    if (user) {
+      const existing = await trx('memberships').where({ building_id: buildingId, user_id: user.id }).first('id');
+      if (existing) throw conflict(`${email} is already a member of this building`);
+      await trx('memberships').insert({ building_id: buildingId, user_id: user.id, role, created_at: now() });
+      await recordAudit(trx, { userId: by.id, buildingId, action: 'member.add', detail: { email, role } });
+      return { member: { userId: user.id, email, name: user.name, role, pending: false }, buildingName: building.name, invite: false };
+    }
+    await trx('invitations').where({ building_id: buildingId, email }).delete();
+    await trx('invitations').insert({ building_id: buildingId, email, role, invited_by: by.id, created_at: now() });
+    await recordAudit(trx, { userId: by.id, buildingId, action: 'member.invite', detail: { email, role } });
+    return { member: { userId: null, email, name: null, role, pending: true }, buildingName: building.name, invite: true };
+  });
+  if (outcome.invite) await mailer.sendMail(invitationMessage({ to: email, buildingName: outcome.buildingName, inviterName: by.name, role }));
+  return outcome.member;
+}
+
+async function assertLeadRemains(trx: Knex, buildingId: number, userId: number, newRole: Role | null): Promise<void> {
+  const current = await trx('memberships').where({ building_id: buildingId, user_id: userId }).first<{ role: Role } | undefined>('role');
+  if (!current) throw notFound('Member');
+  if (current.role !== 'lead' || (newRole && ROLE_RANK[newRole] >= ROLE_RANK.lead)) return;
+  const leads = await trx('memberships').where({ building_id: buildingId, role: 'lead' }).count<{ n: number | string }[]>({ n: '*' });
+  if (Number(leads[0].n) <= 1) throw unprocessable('A building must keep at least one lead');
+}
+
+export async function updateMemberRole(db: Knex, buildingId: number, userId: number, role: Role, by: User): Promise<Member> {
+  return db.transaction(async (trx) => {
+    await assertLeadRemains(trx, buildingId, userId, role);
+    await trx('memberships').where({ building_id: buildingId, user_id: userId }).update({ role });
+    await recordAudit(trx, { userId: by.id, buildingId, action: 'member.role', detail: { memberId: userId, role } });
+    const u = await trx('users').where({ id: userId }).first<{ email: string; name: string }>('email', 'name');
+    return { userId, email: u.email, name: u.name, role, pending: false };
+  });
+}
+
+export async function removeMember(db: Knex, buildingId: number, userId: number, by: User): Promise<void> {
+  await db.transaction(async (trx) => {
+    await assertLeadRemains(trx, buildingId, userId, null);
+    await trx('memberships').where({ building_id: buildingId, user_id: userId }).delete();
+    await recordAudit(trx, { userId: by.id, buildingId, action: 'member.remove', detail: { memberId: userId } });
+  });
+}
+
+export async function cancelInvitation(db: Knex, buildingId: number, email: string, by: User): Promise<void> {
+  await db.transaction(async (trx) => {
+    const n = await trx('invitations').where({ building_id: buildingId, email }).delete();
+    if (n === 0) throw notFound('Invitation');
+    await recordAudit(trx, { userId: by.id, buildingId, action: 'member.uninvite', detail: { email } });
+  });
+}
+
+export async function updateInvitationRole(db: Knex, buildingId: number, email: string, role: Role, by: User): Promise<Member> {
+  return db.transaction(async (trx) => {
+    const n = await trx('invitations').where({ building_id: buildingId, email }).update({ role });
+    if (n === 0) throw notFound('Invitation');
+    await recordAudit(trx, { userId: by.id, buildingId, action: 'member.invite-role', detail: { email, role } });
+    return { userId: null, email, name: null, role, pending: true };
+  });
+}

@@ -1,0 +1,90 @@
+// Test harness: a real server on an ephemeral port with a fresh SQLite file in a temp DATA_DIR.
+import { mkdtempSync, rmSync } from 'node:fs';
+import { tmpdir } from 'node:os';
+import { join } from 'node:path';
+import type { AuthResponse, Building, Role } from '../../shared/schema/api.ts';
+import { startServer, type RunningServer, type StartOptions } from '../../server/server.ts';
+
+export interface TestServer extends RunningServer {
+  dataDir: string;
+  /** fetch against the server with JSON in and out. */
+  api(method: string, path: string, opts?: { token?: string | null; body?: unknown; raw?: string; headers?: Record<string, string> }): Promise<ApiReply>;
+}
+
+export interface ApiReply {
+  status: number;
+  body: unknown;
+  headers: Headers;
+}
+
+export const TEST_PASSWORD = 'correct horse battery';
+
+export async function startTestServer(opts: Omit<StartOptions, 'dataDir' | 'port'> = {}): Promise<TestServer> {
+  const dataDir = mkdtempSync(join(tmpdir(), 'stanchion-test-'));
+  const server = await startServer({
+    port: 0,
+    dataDir,
+    logLevel: 'silent',
+    env: {},
+    ...opts,
+    config: { bcryptRounds: 4, ...opts.config },
+  });
+  const api: TestServer['api'] = async (method, path, o = {}) => {
+    const headers: Record<string, string> = { ...o.headers };
+    if (o.token) headers.Authorization = `Bearer ${o.token}`;
+    let body: string | undefined;
+    if (o.raw !== undefined) body = o.raw;
+    else if (o.body !== undefined) body = JSON.stringify(o.body);
+    if (body !== undefined) headers['Content-Type'] ??= 'application/json';
+    const res = await fetch(`${server.url}/api${path}`, { method, headers, body });
+    const text = await res.text();
+    let parsed: unknown = text;
+    try {
+      parsed = text ? JSON.parse(text) : undefined;
+    } catch {
+      // Non-JSON replies stay as text so a test can assert on them.
+    }
+    return { status: res.status, body: parsed, headers: res.headers };
+  };
+  return {
+    ...server,
+    dataDir,
+    api,
+    async close() {
+      await server.close();
+      rmSync(dataDir, { recursive: true, force: true });
+    },
+  };
+}
+
+let counter = 0;
+/** Registers a fresh account and returns its token and user. */
+export async function registerUser(s: TestServer, label = 'user'): Promise<AuthResponse> {
+  counter += 1;
+  const email = `${label}-${counter}-${Date.now()}@example.test`;
+  const r = await s.api('POST', '/auth/register', { body: { email, password: TEST_PASSWORD, name: `${label} ${counter}` } });
+  if (r.status !== 201) throw new Error(`register failed: ${r.status} ${JSON.stringify(r.body)}`);
+  return r.body as AuthResponse;
+}
+
+export async function makeAdmin(s: TestServer, userId: number): Promise<void> {
+  await s.ctx.db('users').where({ id: userId }).update({ is_admin: true });
+}
+
+export async function createBuilding(s: TestServer, token: string, name = 'Test building'): Promise<Building> {
+  const r = await s.api('POST', '/buildings', { token, body: { name } });
+  if (r.status !== 201) throw new Error(`create building failed: ${r.status} ${JSON.stringify(r.body)}`);
+  return r.body as Building;
+}
+
+export async function addMember(s: TestServer, leadToken: string, buildingId: number, email: string, role: Role): Promise<void> {
+  const r = await s.api('POST', `/buildings/${buildingId}/members`, { token: leadToken, body: { email, role } });
+  if (r.status !== 201) throw new Error(`add member failed: ${r.status} ${JSON.stringify(r.body)}`);
+}
+
+/** The error shape of SPEC §7: { error: { code, message, details? } }. */
+export function errorCode(body: unknown): string | undefined {
+  if (typeof body !== 'object' || body === null || !('error' in body)) return undefined;
+  const e = (body as { error: { code?: unknown; message?: unknown } }).error;
+  return typeof e.code === 'string' && typeof e.message === 'string' ? e.code : undefined;
+}
