@@ -1,0 +1,20 @@
+// How figures read on screen: elevations to the millimetre with a sign, utilisation to two places,
+// dates in ISO 8601.
+
+/** "+3.500" (m). */
+export function formatElevation(metres: number): string {
+  const text = Math.abs(metres).toFixed(3);
+  return metres < 0 && text !== '0.000' ? `−${text}` : `+${text}`;
+}
+
+/** "0.87"; a dash when there is no result. */
+export function formatUtilisation(u: number | null): string {
+  return u === null ? '—' : u.toFixed(2);
+}
+
+/** "2026-03-14 09:05" in UTC, from any date string the API sends. */
+export function formatIsoDate(value: string): string {
+  const d = new Date(value);
+  if (Number.isNaN(d.getTime())) return value;
+  return `${d.toISOString().slice(0, 10)} ${d.toISOString().slice(11, 16)}`;
+}

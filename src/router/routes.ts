@@ -1,0 +1,35 @@
+// Every page is its own chunk (route-level code splitting) so the first download stays small.
+import type { RouteRecordRaw } from 'vue-router';
+
+declare module 'vue-router' {
+  interface RouteMeta {
+    /** Reachable without signing in. */
+    public?: boolean;
+    /** Only for visitors who are not signed in (sign-in, register). */
+    guestOnly?: boolean;
+  }
+}
+
+export const routes: RouteRecordRaw[] = [
+  {
+    path: '/',
+    component: () => import('@/layouts/AuthLayout.vue'),
+    meta: { public: true, guestOnly: true },
+    children: [
+      { path: 'sign-in', name: 'sign-in', component: () => import('@/pages/SignInPage.vue'), meta: { public: true, guestOnly: true } },
+      { path: 'register', name: 'register', component: () => import('@/pages/RegisterPage.vue'), meta: { public: true, guestOnly: true } },
+    ],
+  },
+  {
+    path: '/',
+    component: () => import('@/layouts/MainLayout.vue'),
+    children: [
+      { path: '', redirect: { name: 'buildings' } },
+      { path: 'buildings', name: 'buildings', component: () => import('@/pages/BuildingsPage.vue') },
+      { path: 'buildings/:id', name: 'building', component: () => import('@/pages/BuildingPage.vue') },
+      { path: 'buildings/:id/revisions', name: 'revisions', component: () => import('@/pages/RevisionsPage.vue') },
+      { path: '/stacks/:id', name: 'stack', component: () => import('@/pages/StackPage.vue') },
+    ],
+  },
+  { path: '/:pathMatch(.*)*', name: 'not-found', component: () => import('@/pages/NotFoundPage.vue'), meta: { public: true } },
+];
