@@ -1,0 +1,59 @@
+// The live channel (SPEC §7, shared/schema/socket.ts): a typed Socket.IO client and promise wrappers
+// around the acknowledged events, so the store never handles raw ack shapes.
+import { io, type Socket } from 'socket.io-client';
+import type { ClientToServerEvents, ServerToClientEvents, StackJoinAck } from '@shared/schema/socket.ts';
+import type { ErrorCode } from '@shared/schema/errors.ts';
+import type { Op } from '@shared/schema/ops.ts';
+
+export type LiveSocket = Socket<ServerToClientEvents, ClientToServerEvents>;
+
+/** How long an acknowledged event may wait before it is treated as lost. */
+export const ACK_TIMEOUT_MS = 15_000;
+
+export class LiveError extends Error {
+  constructor(
+    readonly code: ErrorCode | 'timeout',
+    message: string,
+  ) {
+    super(message);
+    this.name = 'LiveError';
+  }
+}
+
+/** Connects to the same origin (path /socket.io) unless a URL is given (tests, a separate API host). */
+export function connectLive(token: string, url?: string): LiveSocket {
+  const options = { auth: { token }, path: '/socket.io', transports: ['websocket', 'polling'] };
+  return url ? io(url, options) : io(options);
+}
+
+type AckResult<T> = { ok: true; data: T } | { ok: false; error: { code: ErrorCode; message: string } };
+
+function settle<T>(resolve: (v: T) => void, reject: (e: LiveError) => void) {
+  let done = false;
+  const timer = setTimeout(() => {
+    done = true;
+    reject(new LiveError('timeout', 'The server did not answer in time'));
+  }, ACK_TIMEOUT_MS);
+  return (res: AckResult<T>) => {
+    if (done) return;
+    clearTimeout(timer);
+    if (res.ok) resolve(res.data);
+    else reject(new LiveError(res.error.code, res.error.message));
+  };
+}
+
+export function joinStack(socket: LiveSocket, stackId: number): Promise<StackJoinAck> {
+  return new Promise((resolve, reject) => socket.emit('stack:join', { stackId }, settle(resolve, reject)));
+}
+
+export function sendEdit(socket: LiveSocket, stackId: number, baseVersion: number, ops: Op[]): Promise<{ version: number }> {
+  return new Promise((resolve, reject) => socket.emit('stack:edit', { stackId, baseVersion, ops }, settle(resolve, reject)));
+}
+
+export function selectNodes(socket: LiveSocket, stackId: number, nodeIds: string[]): void {
+  socket.emit('stack:select', { stackId, nodeIds: nodeIds.slice(0, 200) });
+}
+
+export function leaveStack(socket: LiveSocket, stackId: number): void {
+  socket.emit('stack:leave', { stackId });
+}
