@@ -1,0 +1,79 @@
+import { describe, expect, it } from 'vitest';
+import { mount } from '@vue/test-utils';
+import type { StackSummary } from '@shared/schema/api.ts';
+import StacksTable from '@/components/building/StacksTable.vue';
+
+// Invented demo stacks. The colour bands (≤ 0.85 comfortable, ≤ 1.00 close, > 1.00 over) are our own
+// scale: common practice, no source.
+const base = { buildingId: 7, version: 3, updatedAt: '2026-03-14T09:05:00.000Z' };
+const stacks: StackSummary[] = [
+  { ...base, id: 1, name: 'A/1', liftCount: 2, governingLiftId: 'L1', governingSection: 'UKC 254x254x89', utilisation: 0.62, status: 'passes' },
+  { ...base, id: 2, name: 'B/2', liftCount: 3, governingLiftId: 'L2', governingSection: 'UKC 203x203x46', utilisation: 0.92, status: 'passes' },
+  { ...base, id: 3, name: 'C/3', liftCount: 2, governingLiftId: 'L1', governingSection: 'HE 200 A', utilisation: 1.14, status: 'fails' },
+  { ...base, id: 4, name: 'D/4', liftCount: 1, governingLiftId: null, governingSection: null, utilisation: null, status: 'errors' },
+];
+
+function rowOf(wrapper: ReturnType<typeof mount>, name: string) {
+  const row = wrapper.findAll('tbody tr').find((r) => r.find('[data-test="name"]').text() === name);
+  if (!row) throw new Error(`No row for ${name}`);
+  return row;
+}
+
+/** QLinearProgress draws its fill with transform: scale3d(value, 1, 1). */
+function barFill(row: ReturnType<typeof rowOf>): string {
+  const style = row.find('.q-linear-progress__model').attributes('style') ?? '';
+  return style.match(/scale3d\(([^,]+),/)?.[1] ?? 'none';
+}
+
+describe('stacks table', () => {
+  it('shows utilisation as a number to two places and a bar in its colour band', () => {
+    const wrapper = mount(StacksTable, { props: { stacks, canEdit: false } });
+    const comfortable = rowOf(wrapper, 'A/1').find('[data-test="utilisation"]');
+    expect(comfortable.text()).toBe('0.62');
+    expect(comfortable.find('[data-band]').attributes('data-band')).toBe('ok');
+    expect(barFill(rowOf(wrapper, 'A/1'))).toBe('0.62');
+
+    expect(rowOf(wrapper, 'B/2').find('[data-band]').attributes('data-band')).toBe('near');
+    expect(rowOf(wrapper, 'B/2').find('.q-linear-progress').classes().join(' ')).toContain('text-warning');
+  });
+
+  it('caps the bar at full length for a failing stack but prints the real utilisation', () => {
+    const wrapper = mount(StacksTable, { props: { stacks, canEdit: false } });
+    const row = rowOf(wrapper, 'C/3');
+    expect(row.find('[data-test="utilisation"]').text()).toBe('1.14');
+    expect(row.find('[data-band]').attributes('data-band')).toBe('over');
+    expect(barFill(row)).toBe('1');
+    expect(row.find('[data-test="status"]').text()).toContain('Fails');
+  });
+
+  it('names the governing lift and its section, and the status of each stack', () => {
+    const wrapper = mount(StacksTable, { props: { stacks, canEdit: false } });
+    const governing = rowOf(wrapper, 'B/2').find('[data-test="governing"]');
+    expect(governing.text()).toContain('UKC 203x203x46');
+    expect(governing.text()).toContain('lift L2');
+    expect(rowOf(wrapper, 'A/1').find('[data-test="status"]').text()).toContain('Passes');
+  });
+
+  it('shows a stack with errors as such, with no utilisation and no bar', () => {
+    const wrapper = mount(StacksTable, { props: { stacks, canEdit: false } });
+    const row = rowOf(wrapper, 'D/4');
+    expect(row.find('[data-test="status"]').text()).toContain('Has errors');
+    expect(row.find('[data-test="utilisation"]').text()).toBe('—');
+    expect(row.find('.q-linear-progress').exists()).toBe(false);
+    expect(row.find('[data-test="governing"]').text()).toBe('—');
+  });
+
+  it('offers rename and delete only to those who may edit', () => {
+    const viewer = mount(StacksTable, { props: { stacks, canEdit: false } });
+    expect(viewer.find('[data-test="rename"]').exists()).toBe(false);
+    expect(viewer.find('[data-test="delete"]').exists()).toBe(false);
+    const engineer = mount(StacksTable, { props: { stacks, canEdit: true } });
+    expect(engineer.findAll('[data-test="delete"]')).toHaveLength(stacks.length);
+  });
+
+  it('lists grid references in natural order', () => {
+    const mixed = [10, 2, 1].map((n, i) => ({ ...stacks[0], id: 10 + i, name: `C/${n}` }));
+    const wrapper = mount(StacksTable, { props: { stacks: mixed, canEdit: false } });
+    expect(wrapper.findAll('[data-test="name"]').map((c) => c.text())).toEqual(['C/1', 'C/2', 'C/10']);
+  });
+});
