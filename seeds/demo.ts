@@ -1,7 +1,9 @@
 // The invented demo scenario, seeded on an empty database: four accounts, one building, its levels
 // and a few stacks with real documents so the first screen shows real results.
 import type { Knex } from 'knex';
+import type { StackTemplate, User } from '../shared/schema/api.ts';
 import { now } from '../server/db.ts';
+import { createStack } from '../server/services/stacks.ts';
 import { registerUser } from '../server/services/users.ts';
 
 export const DEMO_PASSWORD = 'stanchion-demo';
@@ -13,17 +15,31 @@ export const DEMO_USERS = {
 } as const;
 
 export const DEMO_BUILDING = { name: 'Demo office block', reference: 'DEMO-001' };
-/** Ground plus seven suspended floors and a roof, 3.6 m apart above a 4.2 m ground storey (invented). */
-export const DEMO_LEVELS: { name: string; elevation: number }[] = [
-  { name: 'Ground', elevation: 0 },
-  { name: 'Level 1', elevation: 4.2 },
-  { name: 'Level 2', elevation: 7.8 },
-  { name: 'Level 3', elevation: 11.4 },
-  { name: 'Level 4', elevation: 15.0 },
-  { name: 'Level 5', elevation: 18.6 },
-  { name: 'Level 6', elevation: 22.2 },
-  { name: 'Roof', elevation: 25.8 },
+/** Ground, six suspended floors and a roof, 3.8 m apart (invented). */
+export const DEMO_STOREY_HEIGHT = 3.8;
+export const DEMO_LEVELS: { name: string; elevation: number }[] = ['Ground', 'Level 1', 'Level 2', 'Level 3', 'Level 4', 'Level 5', 'Level 6', 'Roof'].map(
+  (name, i) => ({ name, elevation: Math.round(i * DEMO_STOREY_HEIGHT * 1000) / 1000 }),
+);
+
+/** Invented stacks: an internal, an edge and a corner column, with floor loads per level in kN. */
+export const DEMO_STACKS: { name: string; template: StackTemplate }[] = [
+  {
+    name: 'C/4',
+    template: demoTemplate({ Gk: 240, Qk: 120, sections: ['UKC 305x305x118', 'UKC 254x254x89', 'UKC 203x203x60', 'UKC 203x203x46'] }),
+  },
+  {
+    name: 'B/2',
+    template: demoTemplate({ Gk: 160, Qk: 80, sections: ['UKC 254x254x89', 'UKC 254x254x73', 'UKC 203x203x46'] }),
+  },
+  {
+    name: 'A/1',
+    template: demoTemplate({ Gk: 80, Qk: 35, spliceEvery: 3, sections: ['UKC 203x203x46', 'UKC 152x152x37'] }),
+  },
 ];
+
+function demoTemplate(p: Pick<StackTemplate, 'Gk' | 'Qk' | 'sections'> & { spliceEvery?: number }): StackTemplate {
+  return { storeys: 7, storeyHeight: DEMO_STOREY_HEIGHT, baseElevation: 0, spliceEvery: 2, grade: 'S355', baseFixity: 'pinned', ...p };
+}
 
 export async function seedDemoIfEmpty(db: Knex, bcryptRounds: number): Promise<boolean> {
   const any = await db('users').first('id');
@@ -33,12 +49,12 @@ export async function seedDemoIfEmpty(db: Knex, bcryptRounds: number): Promise<b
 }
 
 export async function seedDemo(db: Knex, bcryptRounds: number): Promise<{ buildingId: number }> {
-  const users: Record<keyof typeof DEMO_USERS, number> = { admin: 0, lead: 0, engineer: 0, viewer: 0 };
+  const accounts: Partial<Record<keyof typeof DEMO_USERS, User>> = {};
   for (const key of Object.keys(DEMO_USERS) as (keyof typeof DEMO_USERS)[]) {
-    const u = DEMO_USERS[key];
-    const created = await registerUser(db, { ...u, password: DEMO_PASSWORD }, bcryptRounds);
-    users[key] = created.id;
+    accounts[key] = await registerUser(db, { ...DEMO_USERS[key], password: DEMO_PASSWORD }, bcryptRounds);
   }
+  const lead = accounts.lead as User;
+  const users = { lead: lead.id, engineer: accounts.engineer?.id, viewer: accounts.viewer?.id };
   const [building] = await db('buildings')
     .insert({ ...DEMO_BUILDING, options: JSON.stringify({}), created_by: users.lead, created_at: now(), updated_at: now() })
     .returning<{ id: number }[]>('id');
@@ -48,5 +64,6 @@ export async function seedDemo(db: Knex, bcryptRounds: number): Promise<{ buildi
   for (const level of DEMO_LEVELS) {
     await db('levels').insert({ building_id: building.id, ...level, created_at: now() });
   }
+  for (const stack of DEMO_STACKS) await createStack(db, building.id, stack, lead);
   return { buildingId: building.id };
 }

@@ -5,12 +5,18 @@ import { registerAuthRoutes } from './auth.ts';
 import { registerBuildingRoutes } from './buildings.ts';
 import { registerDevRoutes } from './dev.ts';
 import { registerHealthRoutes } from './health.ts';
+import { registerLevelRoutes } from './levels.ts';
+import { registerSectionRoutes } from './sections.ts';
+import { registerStackRoutes } from './stacks.ts';
 
 export function createApiRouter(ctx: ServerContext): Router {
   const router = Router();
   registerHealthRoutes(router, ctx);
   registerAuthRoutes(router, ctx);
   registerBuildingRoutes(router, ctx);
+  registerLevelRoutes(router, ctx);
+  registerStackRoutes(router, ctx);
+  registerSectionRoutes(router, ctx);
   registerDevRoutes(router, ctx);
   return router;
 }

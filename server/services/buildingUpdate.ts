@@ -1,20 +1,36 @@
-// Renaming a building or changing its analysis options; new options re-analyse every stack in the
-// same transaction, so no stack ever shows results computed with the old options.
+// Renaming a building or changing its analysis options. New options re-analyse every stack in the
+// same transaction, so no stack shows results computed with the old options; each re-analysed stack
+// gets a new version with an empty ops list, which live rooms apply like any other change.
 import type { Building, User } from '../../shared/schema/api.ts';
 import type { ServerContext } from '../context.ts';
 import { now } from '../db.ts';
+import { analysisInputs } from './analysis.ts';
 import { recordAudit } from './audit.ts';
 import { getBuilding, parseOptions, type BuildingInput } from './buildings.ts';
+import { broadcastChange, commitDoc, type CommittedChange } from './stackOps.ts';
+import { parseDoc, type StackRow } from './stackRows.ts';
 
 export async function updateBuilding(ctx: ServerContext, id: number, input: Partial<BuildingInput>, user: User): Promise<Building> {
-  await ctx.db.transaction(async (trx) => {
+  const changes = await ctx.db.transaction(async (trx) => {
     const row = await trx('buildings').where({ id }).first<{ options: string }>('options');
     const patch: Record<string, string> = { updated_at: now() };
     if (input.name !== undefined) patch.name = input.name;
     if (input.reference !== undefined) patch.reference = input.reference;
-    if (input.options !== undefined) patch.options = JSON.stringify({ ...parseOptions(row.options), ...input.options });
+    const before = parseOptions(row.options);
+    const after = { ...before, ...input.options };
+    const optionsChanged = JSON.stringify(before) !== JSON.stringify(after);
+    if (optionsChanged) patch.options = JSON.stringify(after);
     await trx('buildings').where({ id }).update(patch);
     await recordAudit(trx, { userId: user.id, buildingId: id, action: 'building.update', detail: { ...input } });
+    const changes: CommittedChange[] = [];
+    if (!optionsChanged) return changes;
+    const inputs = await analysisInputs(trx, id);
+    for (const stack of await trx<StackRow>('stacks').where({ building_id: id })) {
+      const change = { doc: parseDoc(stack.doc), ops: [], touched: new Set<string>(), userId: user.id, action: 'building.reanalyse' };
+      changes.push(await commitDoc(trx, stack, change, inputs));
+    }
+    return changes;
   });
+  for (const c of changes) broadcastChange(ctx, c, { userId: user.id, name: user.name });
   return getBuilding(ctx.db, id, 'lead');
 }

@@ -1,0 +1,62 @@
+// Runs the engine for a stored stack with its building's options and levels, and summarises the
+// result for lists (so listing never recomputes).
+import type { Knex } from 'knex';
+import { analyseStack } from '../../shared/engine/index.ts';
+import type { AnalysisOptions, StackResult } from '../../shared/schema/results.ts';
+import type { StackDocument } from '../../shared/schema/stack.ts';
+import { getBuildingOptions } from './buildings.ts';
+
+export interface AnalysisInputs {
+  options: AnalysisOptions;
+  /** levelId (as a string) → elevation, m */
+  levels: Map<string, number>;
+}
+
+export async function analysisInputs(db: Knex, buildingId: number): Promise<AnalysisInputs> {
+  const options = await getBuildingOptions(db, buildingId);
+  const rows = await db('levels').where({ building_id: buildingId }).select<{ id: number; elevation: number }[]>('id', 'elevation');
+  return { options, levels: new Map(rows.map((r) => [String(r.id), Number(r.elevation)])) };
+}
+
+export function analyse(doc: StackDocument, inputs: AnalysisInputs): StackResult {
+  return analyseStack(doc, inputs.options, { levels: inputs.levels });
+}
+
+export type StackStatus = 'passes' | 'fails' | 'errors';
+
+export interface ResultSummary {
+  utilisation: number | null;
+  status: StackStatus;
+  governingLiftId: string | null;
+  governingSection: string | null;
+  liftCount: number;
+}
+
+export function summariseResult(doc: StackDocument, results: StackResult): ResultSummary {
+  const governing = results.lifts.find((l) => l.liftId === results.governingLiftId) ?? null;
+  const utilisation = results.errors.length === 0 && governing ? governing.utilisation : null;
+  let status: StackStatus = 'passes';
+  if (results.errors.length > 0 || utilisation === null) status = 'errors';
+  // EN 1993-1-1 6.3.1.1(1): the design force must not exceed the resistance, i.e. utilisation ≤ 1.0.
+  else if (utilisation > 1) status = 'fails';
+  return {
+    utilisation,
+    status,
+    governingLiftId: governing?.liftId ?? null,
+    governingSection: governing?.section ?? null,
+    liftCount: doc.nodes.filter((n) => n.kind === 'lift').length,
+  };
+}
+
+/** Columns of the stacks table that hold the results of a version. */
+export function resultColumns(doc: StackDocument, results: StackResult) {
+  const s = summariseResult(doc, results);
+  return {
+    results: JSON.stringify(results),
+    utilisation: s.utilisation,
+    status: s.status,
+    governing_lift_id: s.governingLiftId,
+    governing_section: s.governingSection,
+    lift_count: s.liftCount,
+  };
+}

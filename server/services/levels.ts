@@ -1,0 +1,85 @@
+// Levels of a building (issue 5). Moving a level moves every restraint that refers to it and
+// re-analyses those stacks in the same transaction.
+import type { Knex } from 'knex';
+import type { Level, User } from '../../shared/schema/api.ts';
+import type { Op } from '../../shared/schema/ops.ts';
+import { applyOps as applyOpsToDoc, touchedIds } from '../../shared/ops/applyOps.ts';
+import type { ServerContext } from '../context.ts';
+import { now } from '../db.ts';
+import { conflict, notFound } from '../errors.ts';
+import { analysisInputs } from './analysis.ts';
+import { recordAudit } from './audit.ts';
+import { broadcastChange, commitDoc, type CommittedChange } from './stackOps.ts';
+import { parseDoc, type StackRow } from './stackRows.ts';
+
+interface LevelRow {
+  id: number;
+  building_id: number;
+  name: string;
+  elevation: number;
+}
+const toLevel = (r: LevelRow): Level => ({ id: String(r.id), name: r.name, elevation: Number(r.elevation) });
+
+export async function listLevels(db: Knex, buildingId: number): Promise<Level[]> {
+  const rows = await db<LevelRow>('levels').where({ building_id: buildingId }).orderBy('elevation').orderBy('id');
+  return rows.map(toLevel);
+}
+
+async function loadLevel(db: Knex, buildingId: number, levelId: number): Promise<LevelRow> {
+  const row = await db<LevelRow>('levels').where({ id: levelId, building_id: buildingId }).first();
+  if (!row) throw notFound('Level');
+  return row;
+}
+
+export async function createLevel(db: Knex, buildingId: number, input: { name: string; elevation: number }, user: User): Promise<Level> {
+  return db.transaction(async (trx) => {
+    const [row] = await trx('levels').insert({ building_id: buildingId, ...input, created_at: now() }).returning<{ id: number }[]>('id');
+    await recordAudit(trx, { userId: user.id, buildingId, action: 'level.create', detail: { levelId: row.id, ...input } });
+    return { id: String(row.id), ...input };
+  });
+}
+
+/** Stacks of the building with a restraint on this level, and the ids of those restraints. */
+async function stacksUsingLevel(db: Knex, buildingId: number, levelId: number): Promise<{ row: StackRow; restraintIds: string[] }[]> {
+  const rows = await db<StackRow>('stacks').where({ building_id: buildingId });
+  const key = String(levelId);
+  return rows
+    .map((row) => ({
+      row,
+      restraintIds: parseDoc(row.doc).nodes.filter((n) => n.kind === 'restraint' && n.data.levelId === key).map((n) => n.id),
+    }))
+    .filter((s) => s.restraintIds.length > 0);
+}
+
+export async function updateLevel(ctx: ServerContext, buildingId: number, levelId: number, input: { name?: string; elevation?: number }, user: User): Promise<Level> {
+  const { level, changes } = await ctx.db.transaction(async (trx) => {
+    const before = await loadLevel(trx, buildingId, levelId);
+    await trx('levels').where({ id: levelId }).update(input);
+    await recordAudit(trx, { userId: user.id, buildingId, action: 'level.update', detail: { levelId, from: toLevel(before), ...input } });
+    const changes: CommittedChange[] = [];
+    if (input.elevation !== undefined && input.elevation !== Number(before.elevation)) {
+      const inputs = await analysisInputs(trx, buildingId);
+      for (const { row, restraintIds } of await stacksUsingLevel(trx, buildingId, levelId)) {
+        const ops: Op[] = restraintIds.map((id) => ({ op: 'updateNode', id, data: { elevation: input.elevation } }));
+        const doc = parseDoc(row.doc);
+        changes.push(await commitDoc(trx, row, { doc: applyOpsToDoc(doc, ops), ops, touched: touchedIds(doc, ops), userId: user.id, action: 'level.move' }, inputs));
+      }
+    }
+    return { level: toLevel(await loadLevel(trx, buildingId, levelId)), changes };
+  });
+  for (const c of changes) broadcastChange(ctx, c, { userId: user.id, name: user.name });
+  return level;
+}
+
+export async function deleteLevel(db: Knex, buildingId: number, levelId: number, user: User): Promise<void> {
+  await db.transaction(async (trx) => {
+    const level = await loadLevel(trx, buildingId, levelId);
+    const users = await stacksUsingLevel(trx, buildingId, levelId);
+    if (users.length > 0) {
+      const names = users.map((s) => s.row.name);
+      throw conflict(`Level ${level.name} is used by restraints in ${names.join(', ')}; detach them first`, { stacks: users.map((s) => s.row.id) });
+    }
+    await trx('levels').where({ id: levelId }).delete();
+    await recordAudit(trx, { userId: user.id, buildingId, action: 'level.delete', detail: { levelId, name: level.name } });
+  });
+}

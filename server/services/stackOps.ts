@@ -1,0 +1,131 @@
+// The one service that changes a stack document (SPEC §7): the REST PUT and ops routes and the live
+// channel all come here. Each change is one transaction: check the base version, apply, analyse,
+// store the new version with its results, its ops and an audit row; broadcast after commit.
+import type { Knex } from 'knex';
+import type { User } from '../../shared/schema/api.ts';
+import type { Op } from '../../shared/schema/ops.ts';
+import type { StackResult } from '../../shared/schema/results.ts';
+import type { StackDocument } from '../../shared/schema/stack.ts';
+import { applyOps as applyOpsToDoc, OpError, touchedIds } from '../../shared/ops/applyOps.ts';
+import type { ServerContext } from '../context.ts';
+import { now } from '../db.ts';
+import { conflict, unprocessable } from '../errors.ts';
+import { analyse, analysisInputs, resultColumns, summariseResult, type AnalysisInputs, type ResultSummary } from './analysis.ts';
+import { recordAudit } from './audit.ts';
+import { touchBuilding } from './buildings.ts';
+import { diffDocs } from './docDiff.ts';
+import { assertUniqueIds, loadStackRow, parseDoc, type StackRow } from './stackRows.ts';
+
+export interface CommittedChange {
+  stackId: number;
+  buildingId: number;
+  version: number;
+  doc: StackDocument;
+  results: StackResult;
+  ops: Op[];
+  summary: ResultSummary;
+}
+
+/** Stores doc as the next version of row; refuses (409) when another writer got there first. */
+export async function commitDoc(
+  trx: Knex,
+  row: StackRow,
+  change: { doc: StackDocument; ops: Op[]; touched: Set<string>; userId: number | null; action: string },
+  inputs: AnalysisInputs,
+): Promise<CommittedChange> {
+  const results = analyse(change.doc, inputs);
+  const version = row.version + 1;
+  const updated = await trx('stacks')
+    .where({ id: row.id, version: row.version })
+    .update({ doc: JSON.stringify(change.doc), version, ...resultColumns(change.doc, results), updated_at: now() });
+  if (updated === 0) throw conflict('The stack was changed by someone else; reload and try again', { version: row.version });
+  await trx('stack_ops').insert({
+    stack_id: row.id,
+    version,
+    ops: JSON.stringify(change.ops),
+    touched: JSON.stringify([...change.touched]),
+    user_id: change.userId,
+    created_at: now(),
+  });
+  await recordAudit(trx, { userId: change.userId, buildingId: row.building_id, stackId: row.id, action: change.action, version, detail: { ops: change.ops.length } });
+  await touchBuilding(trx, row.building_id);
+  return { stackId: row.id, buildingId: row.building_id, version, doc: change.doc, results, ops: change.ops, summary: summariseResult(change.doc, results) };
+}
+
+async function assertNoOverlap(trx: Knex, row: StackRow, baseVersion: number, touched: Set<string>): Promise<void> {
+  if (baseVersion > row.version) throw conflict(`Version ${baseVersion} of this stack does not exist yet`, { version: row.version });
+  if (baseVersion === row.version) return;
+  const since = await trx('stack_ops').where('stack_id', row.id).andWhere('version', '>', baseVersion).select<{ touched: string }[]>('touched');
+  if (since.length < row.version - baseVersion) throw conflict('This edit is based on a version too old to merge; reload the stack', { version: row.version });
+  const clashes = new Set<string>();
+  for (const r of since) for (const id of JSON.parse(r.touched) as string[]) if (touched.has(id)) clashes.add(id);
+  if (clashes.size > 0) {
+    throw conflict(`Someone else has changed ${[...clashes].join(', ')} since version ${baseVersion}`, { version: row.version, ids: [...clashes] });
+  }
+}
+
+export interface OpsInput {
+  stackId: number;
+  baseVersion: number;
+  ops: Op[];
+  userId: number | null;
+}
+
+/** Applies ops made against baseVersion; merged when nobody has touched the same nodes or edges since. */
+export async function applyOps(db: Knex, input: OpsInput): Promise<CommittedChange> {
+  return db.transaction(async (trx) => {
+    const row = await loadStackRow(trx, input.stackId);
+    const doc = parseDoc(row.doc);
+    const touched = touchedIds(doc, input.ops);
+    await assertNoOverlap(trx, row, input.baseVersion, touched);
+    let next: StackDocument;
+    try {
+      next = applyOpsToDoc(doc, input.ops);
+    } catch (e) {
+      if (e instanceof OpError) throw unprocessable(e.message, { opIndex: e.opIndex, id: e.id });
+      throw e;
+    }
+    return commitDoc(trx, row, { doc: next, ops: input.ops, touched, userId: input.userId, action: 'stack.edit' }, await analysisInputs(trx, row.building_id));
+  });
+}
+
+/**
+ * Replaces the whole document (REST PUT). Only on the current version: a whole document cannot be
+ * merged. Recorded as the ops that turn the old document into the new one.
+ */
+export async function replaceDoc(db: Knex, input: { stackId: number; baseVersion: number; doc: StackDocument; userId: number | null }): Promise<CommittedChange | null> {
+  assertUniqueIds(input.doc);
+  return db.transaction(async (trx) => {
+    const row = await loadStackRow(trx, input.stackId);
+    if (input.baseVersion !== row.version) throw conflict(`The stack is at version ${row.version}, not ${input.baseVersion}; reload and try again`, { version: row.version });
+    const before = parseDoc(row.doc);
+    const ops = diffDocs(before, input.doc);
+    if (ops.length === 0) return null;
+    return commitDoc(trx, row, { doc: input.doc, ops, touched: touchedIds(before, ops), userId: input.userId, action: 'stack.replace' }, await analysisInputs(trx, row.building_id));
+  });
+}
+
+export function broadcastChange(ctx: ServerContext, c: CommittedChange, by: { userId: number; name: string }): void {
+  try {
+    ctx.broadcaster.stackChanged({ buildingId: c.buildingId, stackId: c.stackId, version: c.version, ops: c.ops, results: c.results, by });
+    ctx.broadcaster.buildingStackChanged({
+      buildingId: c.buildingId,
+      stackId: c.stackId,
+      version: c.version,
+      utilisation: c.summary.utilisation,
+      governingLiftId: c.summary.governingLiftId,
+      status: c.summary.status,
+    });
+  } catch (e) {
+    // The change is committed; a failed notification must not turn it into an error reply.
+    console.error(`broadcast of stack ${c.stackId} v${c.version} failed`, e);
+  }
+}
+
+/** applyOps then broadcast: what the REST ops route and the live channel call. */
+export async function editStack(ctx: ServerContext, input: Omit<OpsInput, 'userId'>, user: User): Promise<CommittedChange> {
+  const change = await applyOps(ctx.db, { ...input, userId: user.id });
+  broadcastChange(ctx, change, { userId: user.id, name: user.name });
+  return change;
+}
+

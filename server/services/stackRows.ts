@@ -1,0 +1,62 @@
+// Reading stack rows and turning them into API shapes.
+import type { Knex } from 'knex';
+import type { StackDetail, StackSummary } from '../../shared/schema/api.ts';
+import type { StackResult } from '../../shared/schema/results.ts';
+import { stackDocumentSchema, type StackDocument } from '../../shared/schema/stack.ts';
+import { isoTime } from '../db.ts';
+import { notFound, unprocessable } from '../errors.ts';
+import type { StackStatus } from './analysis.ts';
+
+export interface StackRow {
+  id: number;
+  building_id: number;
+  name: string;
+  doc: string;
+  version: number;
+  results: string;
+  utilisation: number | null;
+  status: StackStatus;
+  governing_lift_id: string | null;
+  governing_section: string | null;
+  lift_count: number;
+  updated_at: unknown;
+}
+
+export async function loadStackRow(db: Knex, id: number): Promise<StackRow> {
+  const row = await db<StackRow>('stacks').where({ id }).first();
+  if (!row) throw notFound('Stack');
+  return row;
+}
+
+/** Stored documents were validated on the way in; parsing again guards against a hand-edited database. */
+export const parseDoc = (text: string): StackDocument => stackDocumentSchema.parse(JSON.parse(text));
+// Results are written only by our engine; they are carried as they were stored.
+export const parseResults = (text: string): StackResult => JSON.parse(text) as StackResult;
+
+export function toSummary(row: StackRow): StackSummary {
+  return {
+    id: row.id,
+    buildingId: row.building_id,
+    name: row.name,
+    version: row.version,
+    liftCount: row.lift_count,
+    governingLiftId: row.governing_lift_id,
+    governingSection: row.governing_section,
+    utilisation: row.utilisation === null ? null : Number(row.utilisation),
+    status: row.status,
+    updatedAt: isoTime(row.updated_at),
+  };
+}
+
+export function toDetail(row: StackRow): StackDetail {
+  return { id: row.id, buildingId: row.building_id, name: row.name, doc: parseDoc(row.doc), version: row.version, results: parseResults(row.results) };
+}
+
+/** Ops address nodes and edges by id, so a document must not use one id twice. */
+export function assertUniqueIds(doc: StackDocument): void {
+  const seen = new Set<string>();
+  for (const item of [...doc.nodes, ...doc.edges]) {
+    if (seen.has(item.id)) throw unprocessable(`The id "${item.id}" is used more than once in the document`, { id: item.id });
+    seen.add(item.id);
+  }
+}

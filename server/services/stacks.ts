@@ -1,0 +1,60 @@
+// Stacks of a building: list, read, create (empty, from a document or from a template), rename,
+// delete (issue 5). Edits to the document go through stackOps.ts.
+import type { Knex } from 'knex';
+import type { StackDetail, StackSummary, StackTemplate, User } from '../../shared/schema/api.ts';
+import type { StackDocument } from '../../shared/schema/stack.ts';
+import { stackFromTemplate } from '../../shared/ops/stackFromTemplate.ts';
+import { now } from '../db.ts';
+import { analyse, analysisInputs, resultColumns } from './analysis.ts';
+import { recordAudit } from './audit.ts';
+import { touchBuilding } from './buildings.ts';
+import { listLevels } from './levels.ts';
+import { assertUniqueIds, loadStackRow, toDetail, toSummary, type StackRow } from './stackRows.ts';
+
+export async function listStacks(db: Knex, buildingId: number): Promise<StackSummary[]> {
+  const rows = await db<StackRow>('stacks').where({ building_id: buildingId }).orderBy('name').orderBy('id');
+  return rows.map(toSummary);
+}
+
+export async function getStack(db: Knex, id: number): Promise<StackDetail> {
+  return toDetail(await loadStackRow(db, id));
+}
+
+export interface NewStack {
+  name: string;
+  doc?: StackDocument;
+  template?: StackTemplate;
+}
+
+export async function createStack(db: Knex, buildingId: number, input: NewStack, user: User): Promise<StackSummary> {
+  const id = await db.transaction(async (trx) => {
+    const doc = input.template ? stackFromTemplate(input.template, await listLevels(trx, buildingId)) : (input.doc ?? { nodes: [], edges: [] });
+    assertUniqueIds(doc);
+    const results = analyse(doc, await analysisInputs(trx, buildingId));
+    const [row] = await trx('stacks')
+      .insert({ building_id: buildingId, name: input.name, doc: JSON.stringify(doc), version: 0, ...resultColumns(doc, results), created_at: now(), updated_at: now() })
+      .returning<{ id: number }[]>('id');
+    await recordAudit(trx, { userId: user.id, buildingId, stackId: row.id, action: 'stack.create', version: 0, detail: { name: input.name, from: input.template ? 'template' : input.doc ? 'document' : 'empty' } });
+    await touchBuilding(trx, buildingId);
+    return row.id;
+  });
+  return toSummary(await loadStackRow(db, id));
+}
+
+export async function renameStack(db: Knex, id: number, name: string, user: User): Promise<StackSummary> {
+  await db.transaction(async (trx) => {
+    const row = await loadStackRow(trx, id);
+    await trx('stacks').where({ id }).update({ name, updated_at: now() });
+    await recordAudit(trx, { userId: user.id, buildingId: row.building_id, stackId: id, action: 'stack.rename', version: row.version, detail: { from: row.name, to: name } });
+  });
+  return toSummary(await loadStackRow(db, id));
+}
+
+export async function deleteStack(db: Knex, id: number, user: User): Promise<void> {
+  await db.transaction(async (trx) => {
+    const row = await loadStackRow(trx, id);
+    await trx('stacks').where({ id }).delete();
+    await recordAudit(trx, { userId: user.id, buildingId: row.building_id, stackId: id, action: 'stack.delete', version: row.version, detail: { name: row.name } });
+    await touchBuilding(trx, row.building_id);
+  });
+}
