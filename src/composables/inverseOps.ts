@@ -54,3 +54,10 @@ export function inverseOps(before: StackDocument, ops: Op[], apply: (doc: StackD
   }
   return inverses.reverse().flat();
 }
+
+/** Ops that give a node new data with some keys removed, which a shallow-merge update cannot do. */
+export function replaceNodeOps(doc: StackDocument, id: string, data: StackNode['data']): Op[] {
+  const node = doc.nodes.find((n) => n.id === id);
+  if (!node) return [];
+  return [{ op: 'removeNode', id }, ...restoreNode({ ...node, data } as StackNode, doc.edges)];
+}

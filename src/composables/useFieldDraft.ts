@@ -1,0 +1,55 @@
+// A properties form's draft: what is typed into each field, checked against the node kind's zod schema
+// when the field is left, with a plain message when refused. Only valid, changed values are passed on.
+import { reactive, toValue, watch, type MaybeRefOrGetter } from 'vue';
+import type { z } from 'zod';
+import { fieldErrors, readNumber } from '@/components/common/formErrors.ts';
+import type { FieldSpec } from '@/components/stack/nodeFields.ts';
+
+export interface FieldDraftOptions {
+  value: MaybeRefOrGetter<Record<string, unknown>>;
+  schema: MaybeRefOrGetter<z.ZodType>;
+  fields: MaybeRefOrGetter<FieldSpec[]>;
+  onValid: (data: Record<string, unknown>) => void;
+}
+
+const shown = (v: unknown): string => (v === undefined || v === null ? '' : String(v));
+
+export function useFieldDraft(opts: FieldDraftOptions) {
+  const draft = reactive<Record<string, string>>({});
+  const errors = reactive<Record<string, string>>({});
+  /** Values passed on and not yet reflected back, so one change is never sent twice. */
+  const sent = new Map<string, unknown>();
+
+  // A change from elsewhere (a colleague, undo) replaces the draft, except a field still showing a refusal.
+  watch(
+    () => toValue(opts.value),
+    (value) => {
+      sent.clear();
+      for (const f of toValue(opts.fields)) if (!errors[f.key]) draft[f.key] = shown(value[f.key]);
+    },
+    { immediate: true, deep: true },
+  );
+
+  /** Checks one field; passes it on when valid and different, else shows why it was refused. */
+  function commit(key: string, typed: unknown): boolean {
+    const field = toValue(opts.fields).find((f) => f.key === key);
+    if (!field) return false;
+    const value = field.type === 'number' ? readNumber(typed as string) : typed;
+    draft[key] = shown(typed);
+    const current = toValue(opts.value);
+    const parsed = toValue(opts.schema).safeParse({ ...current, [key]: value });
+    if (!parsed.success) {
+      const messages = fieldErrors(parsed.error, Object.fromEntries(toValue(opts.fields).map((f) => [f.key, f])));
+      errors[key] = messages[key] ?? Object.values(messages)[0] ?? 'This value is not accepted';
+      return false;
+    }
+    delete errors[key];
+    if (current[key] !== value && sent.get(key) !== value) {
+      sent.set(key, value);
+      opts.onValid({ [key]: value });
+    }
+    return true;
+  }
+
+  return { draft, errors, commit };
+}
