@@ -9,6 +9,7 @@ import type { ServerContext } from './context.ts';
 import { createDb, migrate } from './db.ts';
 import { createMailer } from './mail/mailer.ts';
 import { nullBroadcaster } from './services/broadcast.ts';
+import { attachRealtime, type Realtime } from './realtime/index.ts';
 
 export interface StartOptions {
   port?: number;
@@ -29,6 +30,7 @@ export interface RunningServer {
   app: Express;
   httpServer: Server;
   ctx: ServerContext;
+  realtime: Realtime;
   close(): Promise<void>;
 }
 
@@ -51,6 +53,7 @@ export async function startServer(opts: StartOptions = {}): Promise<RunningServe
   const ctx: ServerContext = { db, config, mailer, broadcaster: nullBroadcaster };
   const app = createApp(ctx);
   const httpServer = createServer(app);
+  const realtime = attachRealtime(httpServer, ctx);
   await new Promise<void>((resolve, reject) => {
     httpServer.once('error', reject);
     httpServer.listen(config.port, () => resolve());
@@ -61,11 +64,12 @@ export async function startServer(opts: StartOptions = {}): Promise<RunningServe
   const close = () => {
     closing ??= (async () => {
       httpServer.closeAllConnections();
-      await new Promise<void>((resolve) => httpServer.close(() => resolve()));
+      // Closes the live channel's sockets and the HTTP listener.
+      await realtime.close();
       await mailer.close();
       await db.destroy();
     })();
     return closing;
   };
-  return { url: `http://127.0.0.1:${port}`, port, app, httpServer, ctx, close };
+  return { url: `http://127.0.0.1:${port}`, port, app, httpServer, ctx, realtime, close };
 }

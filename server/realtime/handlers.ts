@@ -1,0 +1,123 @@
+// Live-channel events (SPEC §7, issue 6). Every payload is parsed with zod and every event checks the
+// caller's role on the stack's building, exactly as the REST routes do.
+import type { ZodType } from 'zod';
+import type { Logger } from 'pino';
+import { ROLE_RANK, type Role } from '../../shared/schema/api.ts';
+import {
+  buildingJoinSchema,
+  stackEditSchema,
+  stackJoinSchema,
+  stackLeaveSchema,
+  stackSelectSchema,
+  type Ack,
+} from '../../shared/schema/socket.ts';
+import type { ServerContext } from '../context.ts';
+import { forbidden, notFound } from '../errors.ts';
+import { roleIn } from '../middleware/access.ts';
+import { editStack } from '../services/stackOps.ts';
+import { getStack } from '../services/stacks.ts';
+import { toErrorBody } from './errors.ts';
+import { broadcastPresence, buildingRoom, stackRoom } from './presence.ts';
+import type { LiveServer, LiveSocket } from './types.ts';
+
+/** The caller's role on a building, by the REST policy: non-members see nothing, admins may read. */
+async function accessTo(ctx: ServerContext, socket: LiveSocket, buildingId: number | null, what: string, minRole: Role): Promise<void> {
+  if (buildingId === null) throw notFound(what);
+  const user = socket.data.user;
+  const role = await roleIn(ctx.db, buildingId, user.id);
+  if (role === null) {
+    if (!user.isAdmin) throw notFound(what);
+    if (minRole !== 'viewer') throw forbidden('Site admins edit a building only as members of it');
+    return;
+  }
+  if (ROLE_RANK[role] < ROLE_RANK[minRole]) throw forbidden(`This needs the ${minRole} role on this building`);
+}
+
+async function buildingOfStack(ctx: ServerContext, stackId: number): Promise<number | null> {
+  const row = await ctx.db('stacks').where({ id: stackId }).first<{ building_id: number } | undefined>('building_id');
+  return row ? row.building_id : null;
+}
+
+async function buildingExists(ctx: ServerContext, buildingId: number): Promise<number | null> {
+  const row = await ctx.db('buildings').where({ id: buildingId }).first('id');
+  return row ? buildingId : null;
+}
+
+/**
+ * Wraps a handler: validates the payload, runs it, and answers through the acknowledgement with
+ * `{ ok: true, data }` or the error shape. A client that sends no acknowledgement is still served.
+ */
+function handle<S extends ZodType, T>(log: Logger, schema: S, run: (payload: ReturnType<S['parse']>) => Promise<T>) {
+  return async (raw: unknown, ack?: unknown): Promise<void> => {
+    const reply = typeof ack === 'function' ? (ack as Ack<T>) : () => undefined;
+    try {
+      reply({ ok: true, data: await run(schema.parse(raw) as ReturnType<S['parse']>) });
+    } catch (err) {
+      reply({ ok: false, ...toErrorBody(err, log) });
+    }
+  };
+}
+
+export function registerHandlers(ctx: ServerContext, io: LiveServer, socket: LiveSocket, log: Logger): void {
+  const user = socket.data.user;
+
+  socket.on(
+    'stack:join',
+    handle(log, stackJoinSchema, async ({ stackId }) => {
+      await accessTo(ctx, socket, await buildingOfStack(ctx, stackId), 'Stack', 'viewer');
+      const stack = await getStack(ctx.db, stackId);
+      await socket.join(stackRoom(stackId));
+      socket.data.selections = { ...socket.data.selections, [stackId]: socket.data.selections[stackId] ?? [] };
+      void broadcastPresence(io, stackId).catch((err: unknown) => log.warn({ err }, 'presence update failed'));
+      return { doc: stack.doc, version: stack.version, results: stack.results };
+    }),
+  );
+
+  socket.on(
+    'stack:leave',
+    handle(log, stackLeaveSchema, async ({ stackId }) => {
+      await socket.leave(stackRoom(stackId));
+      const { [stackId]: _left, ...rest } = socket.data.selections;
+      socket.data.selections = rest;
+      await broadcastPresence(io, stackId);
+      return null;
+    }),
+  );
+
+  socket.on(
+    'stack:edit',
+    handle(log, stackEditSchema, async ({ stackId, baseVersion, ops }) => {
+      // Checked on every edit, not only at join: a role can be lowered while the socket is open.
+      await accessTo(ctx, socket, await buildingOfStack(ctx, stackId), 'Stack', 'engineer');
+      const change = await editStack(ctx, { stackId, baseVersion, ops }, user);
+      return { version: change.version };
+    }),
+  );
+
+  socket.on(
+    'stack:select',
+    handle(log, stackSelectSchema, async ({ stackId, nodeIds }) => {
+      if (!socket.rooms.has(stackRoom(stackId))) throw forbidden('Join the stack before selecting in it');
+      socket.data.selections = { ...socket.data.selections, [stackId]: [...new Set(nodeIds)] };
+      await broadcastPresence(io, stackId);
+      return null;
+    }),
+  );
+
+  socket.on(
+    'building:join',
+    handle(log, buildingJoinSchema, async ({ buildingId }) => {
+      await accessTo(ctx, socket, await buildingExists(ctx, buildingId), 'Building', 'viewer');
+      await socket.join(buildingRoom(buildingId));
+      return null;
+    }),
+  );
+
+  socket.on('disconnecting', () => {
+    const stacks = [...socket.rooms].filter((r) => r.startsWith('stack:')).map((r) => Number(r.slice('stack:'.length)));
+    // Presence is recomputed once the socket has actually left its rooms.
+    socket.once('disconnect', () => {
+      for (const stackId of stacks) void broadcastPresence(io, stackId).catch((err: unknown) => log.warn({ err }, 'presence update failed'));
+    });
+  });
+}

@@ -1,0 +1,26 @@
+// Who is in a stack room and what each person has selected. Derived from the sockets themselves
+// (socket.data), which the Redis adapter can fetch across processes: no process holds presence alone.
+import type { Server } from 'socket.io';
+import type { PresenceUser } from '../../shared/schema/socket.ts';
+import type { LiveServer } from './types.ts';
+
+export const stackRoom = (stackId: number) => `stack:${stackId}`;
+export const buildingRoom = (buildingId: number) => `building:${buildingId}`;
+
+export async function presenceOf(io: LiveServer | Server, stackId: number): Promise<PresenceUser[]> {
+  const sockets = await (io as LiveServer).in(stackRoom(stackId)).fetchSockets();
+  const byUser = new Map<number, PresenceUser>();
+  for (const s of sockets) {
+    const user = s.data.user;
+    if (!user) continue;
+    const selection = s.data.selections?.[stackId] ?? [];
+    const known = byUser.get(user.id);
+    if (known) known.selection = [...new Set([...known.selection, ...selection])];
+    else byUser.set(user.id, { userId: user.id, name: user.name, selection: [...selection] });
+  }
+  return [...byUser.values()].sort((a, b) => a.name.localeCompare(b.name) || a.userId - b.userId);
+}
+
+export async function broadcastPresence(io: LiveServer, stackId: number): Promise<void> {
+  io.to(stackRoom(stackId)).emit('presence', { stackId, users: await presenceOf(io, stackId) });
+}

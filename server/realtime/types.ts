@@ -1,0 +1,15 @@
+import type { Server, Socket } from 'socket.io';
+import type { User } from '../../shared/schema/api.ts';
+import type { ClientToServerEvents, ServerToClientEvents } from '../../shared/schema/socket.ts';
+
+/** Per-connection state, kept on the socket so the Redis adapter can see it from any process. */
+export interface SocketData {
+  user: User;
+  /** Selected node ids per stack the socket has joined. */
+  selections: Record<number, string[]>;
+}
+
+// eslint-disable-next-line @typescript-eslint/no-empty-object-type
+export type InterServerEvents = {};
+export type LiveServer = Server<ClientToServerEvents, ServerToClientEvents, InterServerEvents, SocketData>;
+export type LiveSocket = Socket<ClientToServerEvents, ServerToClientEvents, InterServerEvents, SocketData>;
