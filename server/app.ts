@@ -15,7 +15,8 @@ export function createApp(ctx: ServerContext): Express {
   const app = express();
   app.disable('x-powered-by');
   if (ctx.config.trustProxy !== null) app.set('trust proxy', ctx.config.trustProxy);
-  app.use(helmet());
+  // No upgrade-insecure-requests: a team may serve Stanchion over plain HTTP on its own network.
+  app.use(helmet({ contentSecurityPolicy: { directives: { upgradeInsecureRequests: null } } }));
   app.use(pinoHttp({ level: ctx.config.logLevel, redact: ['req.headers.authorization'] }));
   app.use(express.json({ limit: JSON_BODY_LIMIT }));
 
