@@ -1,0 +1,15 @@
+export * from './errors.ts';
+export * from './constants.ts';
+export * from './imperfectionFactor.ts';
+export * from './reductionFactor.ts';
+export * from './sectionTypes.ts';
+export * from './sectionProperties.ts';
+export { cornerRadii } from './hollowSectionProperties.ts';
+export * from './validateDims.ts';
+export * from './yieldStrength.ts';
+export * from './classifySection.ts';
+export * from './effectiveArea.ts';
+export * from './bucklingCurve.ts';
+export { sectionData, gradeData, type SectionData, type GradeData } from './sectionData.ts';
+export * from './checkCompression.ts';
+export * from './stack/index.ts';
