@@ -27,7 +27,7 @@ function barFill(row: ReturnType<typeof rowOf>): string {
 
 describe('stacks table', () => {
   it('shows utilisation as a number to two places and a bar in its colour band', () => {
-    const wrapper = mount(StacksTable, { props: { stacks, canEdit: false } });
+    const wrapper = mount(StacksTable, { props: { stacks, canEdit: false, canDelete: false } });
     const comfortable = rowOf(wrapper, 'A/1').find('[data-test="utilisation"]');
     expect(comfortable.text()).toBe('0.62');
     expect(comfortable.find('[data-band]').attributes('data-band')).toBe('ok');
@@ -38,7 +38,7 @@ describe('stacks table', () => {
   });
 
   it('caps the bar at full length for a failing stack but prints the real utilisation', () => {
-    const wrapper = mount(StacksTable, { props: { stacks, canEdit: false } });
+    const wrapper = mount(StacksTable, { props: { stacks, canEdit: false, canDelete: false } });
     const row = rowOf(wrapper, 'C/3');
     expect(row.find('[data-test="utilisation"]').text()).toBe('1.14');
     expect(row.find('[data-band]').attributes('data-band')).toBe('over');
@@ -47,15 +47,15 @@ describe('stacks table', () => {
   });
 
   it('names the governing lift and its section, and the status of each stack', () => {
-    const wrapper = mount(StacksTable, { props: { stacks, canEdit: false } });
+    const wrapper = mount(StacksTable, { props: { stacks, canEdit: false, canDelete: false } });
     const governing = rowOf(wrapper, 'B/2').find('[data-test="governing"]');
     expect(governing.text()).toContain('UKC 203x203x46');
-    expect(governing.text()).toContain('lift L2');
+    expect(governing.text()).toContain('L2');
     expect(rowOf(wrapper, 'A/1').find('[data-test="status"]').text()).toContain('Passes');
   });
 
   it('shows a stack with errors as such, with no utilisation and no bar', () => {
-    const wrapper = mount(StacksTable, { props: { stacks, canEdit: false } });
+    const wrapper = mount(StacksTable, { props: { stacks, canEdit: false, canDelete: false } });
     const row = rowOf(wrapper, 'D/4');
     expect(row.find('[data-test="status"]').text()).toContain('Has errors');
     expect(row.find('[data-test="utilisation"]').text()).toBe('—');
@@ -63,17 +63,20 @@ describe('stacks table', () => {
     expect(row.find('[data-test="governing"]').text()).toBe('—');
   });
 
-  it('offers rename and delete only to those who may edit', () => {
-    const viewer = mount(StacksTable, { props: { stacks, canEdit: false } });
+  it('offers rename to engineers and delete to the lead only, and neither to a viewer', () => {
+    const viewer = mount(StacksTable, { props: { stacks, canEdit: false, canDelete: false } });
     expect(viewer.find('[data-test="rename"]').exists()).toBe(false);
     expect(viewer.find('[data-test="delete"]').exists()).toBe(false);
-    const engineer = mount(StacksTable, { props: { stacks, canEdit: true } });
-    expect(engineer.findAll('[data-test="delete"]')).toHaveLength(stacks.length);
+    const engineer = mount(StacksTable, { props: { stacks, canEdit: true, canDelete: false } });
+    expect(engineer.findAll('[data-test="rename"]')).toHaveLength(stacks.length);
+    expect(engineer.find('[data-test="delete"]').exists()).toBe(false);
+    const lead = mount(StacksTable, { props: { stacks, canEdit: true, canDelete: true } });
+    expect(lead.findAll('[data-test="delete"]')).toHaveLength(stacks.length);
   });
 
   it('lists grid references in natural order', () => {
     const mixed = [10, 2, 1].map((n, i) => ({ ...stacks[0], id: 10 + i, name: `C/${n}` }));
-    const wrapper = mount(StacksTable, { props: { stacks: mixed, canEdit: false } });
+    const wrapper = mount(StacksTable, { props: { stacks: mixed, canEdit: false, canDelete: false } });
     expect(wrapper.findAll('[data-test="name"]').map((c) => c.text())).toEqual(['C/1', 'C/2', 'C/10']);
   });
 });
