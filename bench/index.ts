@@ -1,0 +1,17 @@
+// npm run bench: every benchmark, each printing figures and ratios to a baseline measured in the same run.
+import { benchEngine } from './engine.ts';
+import { benchStack } from './stack.ts';
+import { benchRealtime } from './realtime.ts';
+
+const benches: [string, () => Promise<void>][] = [
+  ['member check (issue 3)', benchEngine],
+  ['stack analysis (issue 4)', benchStack],
+  ['live channel (issue 6)', benchRealtime],
+];
+
+const only = process.argv[2];
+for (const [name, run] of benches) {
+  if (only && !name.includes(only)) continue;
+  console.log(`\n== ${name}`);
+  await run();
+}
