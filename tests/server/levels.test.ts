@@ -1,0 +1,92 @@
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import type { Level, StackDetail, StackSummary } from '../../shared/schema/api.ts';
+import { createBuilding, errorCode, registerUser, startTestServer, type TestServer } from './helpers.ts';
+
+describe('levels', () => {
+  let s: TestServer;
+  let token: string;
+  let buildingId: number;
+  beforeAll(async () => {
+    s = await startTestServer();
+    token = (await registerUser(s, 'lead')).token;
+    buildingId = (await createBuilding(s, token)).id;
+  });
+  afterAll(async () => {
+    await s?.close();
+  });
+
+  const addLevel = async (name: string, elevation: number) =>
+    (await s.api('POST', `/buildings/${buildingId}/levels`, { token, body: { name, elevation } })).body as Level;
+
+  it('lists levels by elevation, with string ids', async () => {
+    await addLevel('Level 2', 7);
+    await addLevel('Ground', 0);
+    await addLevel('Level 1', 3.5);
+    const levels = (await s.api('GET', `/buildings/${buildingId}/levels`, { token })).body as Level[];
+    expect(levels.map((l) => [l.name, l.elevation])).toEqual([['Ground', 0], ['Level 1', 3.5], ['Level 2', 7]]);
+    expect(levels.every((l) => typeof l.id === 'string')).toBe(true);
+  });
+
+  it('renames a level', async () => {
+    const l = await addLevel('Mezzanine', 2);
+    const r = await s.api('PATCH', `/buildings/${buildingId}/levels/${l.id}`, { token, body: { name: 'Mezz' } });
+    expect(r.body).toEqual({ id: l.id, name: 'Mezz', elevation: 2 });
+  });
+
+  it('answers 404 for a level of another building', async () => {
+    const otherBuilding = await createBuilding(s, token, 'Other');
+    const foreign = (await s.api('POST', `/buildings/${otherBuilding.id}/levels`, { token, body: { name: 'X', elevation: 1 } })).body as Level;
+    const r = await s.api('PATCH', `/buildings/${buildingId}/levels/${foreign.id}`, { token, body: { name: 'Y' } });
+    expect(r.status).toBe(404);
+  });
+
+  it('moves a level: every stack with a restraint on it gets a new version, the restraint follows, results are recomputed; other stacks are untouched', async () => {
+    const b = await createBuilding(s, token, 'Move test');
+    const mk = async (name: string, elevation: number) =>
+      (await s.api('POST', `/buildings/${b.id}/levels`, { token, body: { name, elevation } })).body as Level;
+    await mk('Ground', 0);
+    const l1 = await mk('Level 1', 3.5);
+    await mk('Level 2', 7);
+    const template = { storeys: 3, storeyHeight: 3.5, spliceEvery: 3, sections: ['UKC 152x152x37'], Gk: 100, Qk: 50 };
+    const create = async (name: string, t: object) =>
+      ((await s.api('POST', `/buildings/${b.id}/stacks`, { token, body: { name, template: t } })).body as StackSummary).id;
+    const a = await create('A/1', template);
+    const c = await create('C/1', template);
+    // A stack whose floors are elsewhere does not use Level 1.
+    const other = await create('D/1', { ...template, storeyHeight: 3 });
+    const get = async (id: number) => (await s.api('GET', `/stacks/${id}`, { token })).body as StackDetail;
+    const [a0, c0, o0] = [await get(a), await get(c), await get(other)];
+    const restraint = a0.doc.nodes.find((n) => n.kind === 'restraint' && n.data.levelId === l1.id);
+    expect(restraint).toBeDefined();
+
+    const r = await s.api('PATCH', `/buildings/${b.id}/levels/${l1.id}`, { token, body: { elevation: 4.5 } });
+    expect(r.status).toBe(200);
+    const [a1, c1, o1] = [await get(a), await get(c), await get(other)];
+    for (const [before, after] of [[a0, a1], [c0, c1]]) {
+      expect(after.version).toBe(before.version + 1);
+      const moved = after.doc.nodes.find((n) => n.id === restraint?.id);
+      expect(moved?.kind === 'restraint' && moved.data.elevation).toBe(4.5);
+      // The bottom segment, which carries the largest force, grows from 3.5 m to 4.5 m between
+      // pinned ends (k = 1.0): a longer buckling length lowers χ (EN 1993-1-1 eq. 6.49), so the
+      // lift's utilisation must rise.
+      expect(after.results.lifts[0].utilisation).toBeGreaterThan(before.results.lifts[0].utilisation);
+      expect(after.results.lifts[0].pieces[0].LcrZ).toBeCloseTo(4.5, 6);
+    }
+    expect(o1.version).toBe(o0.version);
+    const ops = (await s.api('GET', `/stacks/${a}/ops?since=${a0.version}`, { token })).body as { ops: unknown[] }[];
+    expect(ops[0].ops).toEqual([{ op: 'updateNode', id: restraint?.id, data: { elevation: 4.5 } }]);
+  });
+
+  it('refuses to delete a level that a restraint uses (409) and deletes an unused one', async () => {
+    const b = await createBuilding(s, token, 'Delete test');
+    const used = (await s.api('POST', `/buildings/${b.id}/levels`, { token, body: { name: 'Level 1', elevation: 4 } })).body as Level;
+    const unused = (await s.api('POST', `/buildings/${b.id}/levels`, { token, body: { name: 'Spare', elevation: 50 } })).body as Level;
+    await s.api('POST', `/buildings/${b.id}/stacks`, { token, body: { name: 'B/2', template: { storeys: 2, storeyHeight: 4, sections: ['UKC 152x152x37'] } } });
+    const r = await s.api('DELETE', `/buildings/${b.id}/levels/${used.id}`, { token });
+    expect(r.status).toBe(409);
+    expect(errorCode(r.body)).toBe('conflict');
+    expect((await s.api('DELETE', `/buildings/${b.id}/levels/${unused.id}`, { token })).status).toBe(204);
+    const left = (await s.api('GET', `/buildings/${b.id}/levels`, { token })).body as Level[];
+    expect(left.map((l) => l.name)).toEqual(['Level 1']);
+  });
+});
