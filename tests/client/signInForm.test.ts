@@ -2,12 +2,12 @@ import { afterEach, beforeEach, describe, expect, it, vi } from 'vitest';
 import { flushPromises, mount } from '@vue/test-utils';
 import { createPinia, setActivePinia } from 'pinia';
 import { createMemoryHistory, createRouter, type Router } from 'vue-router';
-import { defineComponent } from 'vue';
+import { defineComponent, h } from 'vue';
 import SignInPage from '@/pages/SignInPage.vue';
 import { getToken } from '@/api/http.ts';
 import { mockFetch } from './fetchMock.ts';
 
-const Stub = defineComponent({ template: '<div />' });
+const Stub = defineComponent(() => () => h('div'));
 
 async function mountSignIn(redirect?: string): Promise<{ wrapper: ReturnType<typeof mount>; router: Router }> {
   const pinia = createPinia();
