@@ -10,6 +10,7 @@ import * as addStackOps from './202512010906_add_stack_ops.ts';
 import * as addAuditLog from './202512010907_add_audit_log.ts';
 import * as addOutbox from './202512010908_add_outbox.ts';
 import * as addMailLog from './202512010909_add_mail_log.ts';
+import * as addCompanySections from './202512011020_add_company_sections.ts';
 
 const migrations: Record<string, Knex.Migration> = {
   '202512010900_add_users': addUsers,
@@ -22,6 +23,7 @@ const migrations: Record<string, Knex.Migration> = {
   '202512010907_add_audit_log': addAuditLog,
   '202512010908_add_outbox': addOutbox,
   '202512010909_add_mail_log': addMailLog,
+  '202512011020_add_company_sections': addCompanySections,
 };
 
 export const migrationSource: Knex.MigrationSource<string> = {
