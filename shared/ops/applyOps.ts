@@ -45,9 +45,12 @@ function applyOne(nodes: Map<string, StackNode>, edges: Map<string, StackEdge>, 
       nodes.set(op.id, stackNodeSchema.parse({ ...n, data: parsed.data }));
       return;
     }
-    case 'moveNode':
-      nodes.set(op.id, { ...node(op.id), position: op.position });
+    case 'moveNode': {
+      const moved = stackNodeSchema.safeParse({ ...node(op.id), position: op.position });
+      if (!moved.success) throw new OpError(i, op.id, `position ${moved.error.issues[0].message}`);
+      nodes.set(op.id, moved.data);
       return;
+    }
     case 'removeNode':
       node(op.id);
       nodes.delete(op.id);

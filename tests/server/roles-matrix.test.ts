@@ -1,0 +1,139 @@
+// Every API route × every kind of caller → the expected status (SPEC §8, issue 5).
+// Policy (server/middleware/access.ts):
+// - anonymous callers get 401 on every route that needs an account;
+// - an outsider (signed in, not a member) gets 404 for a building and everything in it, so
+//   existence does not leak;
+// - a site admin who is not a member reads every building like a viewer but may not change it (403);
+//   the dev outbox is for site admins only (403 for everyone else);
+// - viewers read; engineers also edit stacks and levels; leads also manage members, delete stacks and
+//   change the building.
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import type { Express } from 'express';
+import type { AuthResponse, Level, StackSummary } from '../../shared/schema/api.ts';
+import { addMember, createBuilding, makeAdmin, registerUser, startTestServer, type TestServer } from './helpers.ts';
+
+const ACTORS = ['anonymous', 'outsider', 'viewer', 'engineer', 'lead', 'admin'] as const;
+type Actor = (typeof ACTORS)[number];
+
+interface Fixture {
+  buildingId: number;
+  levelId: string;
+  stackId: number;
+  version: number;
+  engineerId: number;
+  viewerId: number;
+  outboxId: number;
+}
+interface Case {
+  path: (f: Fixture) => string;
+  body?: (f: Fixture) => unknown;
+  expect: Record<Actor, number>;
+}
+
+const all = (status: number): Record<Actor, number> => ({ anonymous: status, outsider: status, viewer: status, engineer: status, lead: status, admin: status });
+const signedIn = (status: number) => ({ ...all(status), anonymous: 401 });
+const read = { anonymous: 401, outsider: 404, viewer: 200, engineer: 200, lead: 200, admin: 200 };
+const edit = (ok: number) => ({ anonymous: 401, outsider: 404, viewer: 403, engineer: ok, lead: ok, admin: 403 });
+const leadOnly = (ok: number) => ({ anonymous: 401, outsider: 404, viewer: 403, engineer: 403, lead: ok, admin: 403 });
+const adminOnly = { anonymous: 401, outsider: 403, viewer: 403, engineer: 403, lead: 403, admin: 200 };
+
+let unique = 0;
+const fresh = () => `matrix-${++unique}-${Date.now()}@example.test`;
+const template = { storeys: 2, storeyHeight: 3.5, sections: ['UKC 203x203x46'], Gk: 50, Qk: 20 };
+
+const MATRIX: Record<string, Case> = {
+  'GET /api/health': { path: () => '/health', expect: all(200) },
+  'POST /api/auth/register': { path: () => '/auth/register', body: () => ({ email: fresh(), password: 'long enough password', name: 'New' }), expect: all(201) },
+  'POST /api/auth/login': { path: () => '/auth/login', body: () => ({ email: 'matrix-lead@example.test', password: 'long enough password' }), expect: all(200) },
+  'GET /api/me': { path: () => '/me', expect: signedIn(200) },
+  'GET /api/buildings': { path: () => '/buildings', expect: signedIn(200) },
+  'POST /api/buildings': { path: () => '/buildings', body: () => ({ name: 'Another' }), expect: signedIn(201) },
+  'GET /api/buildings/:id': { path: (f) => `/buildings/${f.buildingId}`, expect: read },
+  'PATCH /api/buildings/:id': { path: (f) => `/buildings/${f.buildingId}`, body: () => ({ options: { annex: 'EN' } }), expect: leadOnly(200) },
+  'GET /api/buildings/:id/members': { path: (f) => `/buildings/${f.buildingId}/members`, expect: read },
+  'POST /api/buildings/:id/members': { path: (f) => `/buildings/${f.buildingId}/members`, body: () => ({ email: fresh(), role: 'viewer' }), expect: leadOnly(201) },
+  'PATCH /api/buildings/:id/members/:memberId': { path: (f) => `/buildings/${f.buildingId}/members/${f.engineerId}`, body: () => ({ role: 'viewer' }), expect: leadOnly(200) },
+  'DELETE /api/buildings/:id/members/:memberId': { path: (f) => `/buildings/${f.buildingId}/members/${f.viewerId}`, expect: leadOnly(204) },
+  'GET /api/buildings/:id/levels': { path: (f) => `/buildings/${f.buildingId}/levels`, expect: read },
+  'POST /api/buildings/:id/levels': { path: (f) => `/buildings/${f.buildingId}/levels`, body: () => ({ name: 'Level 9', elevation: 30 }), expect: edit(201) },
+  'PATCH /api/buildings/:id/levels/:levelId': { path: (f) => `/buildings/${f.buildingId}/levels/${f.levelId}`, body: () => ({ elevation: 41 }), expect: edit(200) },
+  'DELETE /api/buildings/:id/levels/:levelId': { path: (f) => `/buildings/${f.buildingId}/levels/${f.levelId}`, expect: edit(204) },
+  'GET /api/buildings/:id/stacks': { path: (f) => `/buildings/${f.buildingId}/stacks`, expect: read },
+  'POST /api/buildings/:id/stacks': { path: (f) => `/buildings/${f.buildingId}/stacks`, body: () => ({ name: 'N/1', template }), expect: edit(201) },
+  'GET /api/stacks/:id': { path: (f) => `/stacks/${f.stackId}`, expect: read },
+  'GET /api/stacks/:id/ops': { path: (f) => `/stacks/${f.stackId}/ops?since=0`, expect: read },
+  'PUT /api/stacks/:id': { path: (f) => `/stacks/${f.stackId}`, body: (f) => ({ doc: { nodes: [], edges: [] }, baseVersion: f.version }), expect: edit(200) },
+  'POST /api/stacks/:id/ops': {
+    path: (f) => `/stacks/${f.stackId}/ops`,
+    body: (f) => ({ baseVersion: f.version, ops: [{ op: 'moveNode', id: 'cap', position: { x: 1, y: 1 } }] }),
+    expect: edit(200),
+  },
+  'PATCH /api/stacks/:id': { path: (f) => `/stacks/${f.stackId}`, body: () => ({ name: 'Renamed' }), expect: edit(200) },
+  'DELETE /api/stacks/:id': { path: (f) => `/stacks/${f.stackId}`, expect: leadOnly(204) },
+  'GET /api/sections': { path: () => '/sections?q=UKC', expect: signedIn(200) },
+  'GET /api/dev/outbox': { path: () => '/dev/outbox', expect: adminOnly },
+  'GET /api/dev/outbox/:id/attachments/:n': { path: (f) => `/dev/outbox/${f.outboxId}/attachments/0`, expect: adminOnly },
+};
+
+interface RouteLayer {
+  route?: { path: string; methods: Record<string, boolean> };
+  handle: { stack?: RouteLayer[] };
+}
+
+/** METHOD /api/path of every route registered on the routers mounted under /api. */
+function registeredRoutes(app: Express): string[] {
+  const out: string[] = [];
+  for (const layer of app.router.stack as RouteLayer[]) {
+    for (const inner of layer.handle.stack ?? []) {
+      if (!inner.route) continue;
+      for (const [method, on] of Object.entries(inner.route.methods)) if (on && method !== '_all') out.push(`${method.toUpperCase()} /api${inner.route.path}`);
+    }
+  }
+  return out.sort();
+}
+
+describe('the role matrix', () => {
+  let s: TestServer;
+  const tokens = {} as Record<Exclude<Actor, 'anonymous'>, AuthResponse>;
+
+  beforeAll(async () => {
+    s = await startTestServer({ config: { loginRateLimit: { windowMs: 60_000, max: 10_000 } } });
+    for (const actor of ['outsider', 'viewer', 'engineer', 'admin'] as const) tokens[actor] = await registerUser(s, actor);
+    const r = await s.api('POST', '/auth/register', { body: { email: 'matrix-lead@example.test', password: 'long enough password', name: 'Lead' } });
+    tokens.lead = r.body as AuthResponse;
+    await makeAdmin(s, tokens.admin.user.id);
+    await s.ctx.mailer.sendMail({ to: 'x@example.test', subject: 'Attachment', text: 'x', attachments: [{ filename: 'a.txt', content: Buffer.from('abc') }] });
+  });
+  afterAll(async () => {
+    await s?.close();
+  });
+
+  /** A fresh building per request, so a delete or a role change never affects the next case. */
+  async function fixture(): Promise<Fixture> {
+    const lead = tokens.lead.token;
+    const b = await createBuilding(s, lead, 'Matrix');
+    await addMember(s, lead, b.id, tokens.viewer.user.email, 'viewer');
+    await addMember(s, lead, b.id, tokens.engineer.user.email, 'engineer');
+    const level = (await s.api('POST', `/buildings/${b.id}/levels`, { token: lead, body: { name: 'Spare', elevation: 40 } })).body as Level;
+    const stack = (await s.api('POST', `/buildings/${b.id}/stacks`, { token: lead, body: { name: 'M/1', template } })).body as StackSummary;
+    const outbox = await s.ctx.db('outbox').where({ subject: 'Attachment' }).first<{ id: number }>('id');
+    return { buildingId: b.id, levelId: level.id, stackId: stack.id, version: stack.version, engineerId: tokens.engineer.user.id, viewerId: tokens.viewer.user.id, outboxId: outbox.id };
+  }
+
+  it('covers every registered route, and every route in it exists', () => {
+    expect(registeredRoutes(s.app)).toEqual(Object.keys(MATRIX).sort());
+  });
+
+  for (const [route, c] of Object.entries(MATRIX)) {
+    it(`${route}: ${ACTORS.map((a) => `${a} ${c.expect[a]}`).join(', ')}`, async () => {
+      const got: Record<string, number> = {};
+      for (const actor of ACTORS) {
+        const f = await fixture();
+        const [method] = route.split(' ');
+        const token = actor === 'anonymous' ? null : tokens[actor].token;
+        got[actor] = (await s.api(method, c.path(f), { token, body: c.body?.(f) })).status;
+      }
+      expect(got).toEqual(c.expect);
+    });
+  }
+});
