@@ -67,8 +67,11 @@ export function searchSections(prefix: string, limit = 20): CatalogueEntry[] {
   const key = designationKey(prefix);
   const hits: CatalogueEntry[] = [];
   if (limit <= 0) return hits;
+  // "HEB 3" is the start of "HE 3xx B", which no plain prefix test can see
+  const euro = /^HE ?([ABM]) ?(\d*)$/.exec(key.replace(/^HE (\d*) ?([ABM])$/, 'HE $2 $1'));
   for (const [full, size, entry] of KEYS) {
-    if (full.startsWith(key) || size.startsWith(key)) {
+    const match = euro ? entry.series === `HE ${euro[1]}` && size.startsWith(euro[2]!) : full.startsWith(key) || size.startsWith(key);
+    if (match) {
       hits.push(entry);
       if (hits.length >= limit) break;
     }
