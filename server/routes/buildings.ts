@@ -5,7 +5,7 @@ import { addMemberBodySchema, createBuildingBodySchema, emailSchema, idParamSche
 import type { ServerContext } from '../context.ts';
 import { currentAccess, currentUser, requireAuth } from '../middleware/auth.ts';
 import { requireRole } from '../middleware/access.ts';
-import { parseBody } from '../middleware/validate.ts';
+import { parseBody, parsePatch } from '../middleware/validate.ts';
 import { createBuilding, getBuilding, listBuildings } from '../services/buildings.ts';
 import { updateBuilding } from '../services/buildingUpdate.ts';
 import { addMember, cancelInvitation, listMembers, removeMember, updateInvitationRole, updateMemberRole } from '../services/members.ts';
@@ -27,7 +27,7 @@ export function registerBuildingRoutes(router: Router, ctx: ServerContext): void
     res.json(await getBuilding(ctx.db, buildingId, role));
   });
   router.patch('/buildings/:id', auth, lead, async (req, res) => {
-    const body = parseBody(updateBuildingBodySchema, req);
+    const body = parsePatch(updateBuildingBodySchema, req);
     res.json(await updateBuilding(ctx, currentAccess(req).buildingId, body, currentUser(req)));
   });
 

@@ -4,7 +4,7 @@ import { createLevelBodySchema, updateLevelBodySchema } from '../../shared/schem
 import type { ServerContext } from '../context.ts';
 import { currentAccess, currentUser, requireAuth } from '../middleware/auth.ts';
 import { requireRole } from '../middleware/access.ts';
-import { idParam, parseBody } from '../middleware/validate.ts';
+import { idParam, parseBody, parsePatch } from '../middleware/validate.ts';
 import { createLevel, deleteLevel, listLevels, updateLevel } from '../services/levels.ts';
 
 export function registerLevelRoutes(router: Router, ctx: ServerContext): void {
@@ -20,7 +20,7 @@ export function registerLevelRoutes(router: Router, ctx: ServerContext): void {
     res.status(201).json(await createLevel(ctx.db, currentAccess(req).buildingId, body, currentUser(req)));
   });
   router.patch('/buildings/:id/levels/:levelId', auth, engineer, async (req, res) => {
-    const body = parseBody(updateLevelBodySchema, req);
+    const body = parsePatch(updateLevelBodySchema, req);
     res.json(await updateLevel(ctx, currentAccess(req).buildingId, idParam(req, 'levelId'), body, currentUser(req)));
   });
   router.delete('/buildings/:id/levels/:levelId', auth, engineer, async (req, res) => {

@@ -1,0 +1,228 @@
+// Every writing route answered with malformed input: always 4xx with the error shape, never 5xx,
+// and the database exactly as it was (issue 5 acceptance).
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import type { Level, StackDetail, StackSummary } from '../../shared/schema/api.ts';
+import { addMember, createBuilding, errorCode, registerUser, startTestServer, type TestServer } from './helpers.ts';
+
+const TABLES = ['users', 'buildings', 'memberships', 'invitations', 'levels', 'stacks', 'stack_ops', 'audit_log', 'outbox', 'mail_log'];
+const HUGE = JSON.stringify({ name: 'x'.repeat(1_200_000) });
+
+interface Req {
+  raw?: string;
+  body?: unknown;
+  path?: string;
+}
+
+describe('malformed input on every writing route', () => {
+  let s: TestServer;
+  let token: string;
+  let ids: { building: number; level: string; stack: number; member: number };
+  let doc: StackDetail['doc'];
+
+  beforeAll(async () => {
+    s = await startTestServer();
+    token = (await registerUser(s, 'lead')).token;
+    const other = await registerUser(s, 'member');
+    const b = await createBuilding(s, token);
+    await addMember(s, token, b.id, other.user.email, 'engineer');
+    const level = (await s.api('POST', `/buildings/${b.id}/levels`, { token, body: { name: 'L1', elevation: 3.5 } })).body as Level;
+    const stack = (await s.api('POST', `/buildings/${b.id}/stacks`, { token, body: { name: 'A/1', template: { storeys: 3, storeyHeight: 3.5, sections: ['UKC 203x203x46'] } } })).body as StackSummary;
+    doc = ((await s.api('GET', `/stacks/${stack.id}`, { token })).body as StackDetail).doc;
+    ids = { building: b.id, level: level.id, stack: stack.id, member: other.user.id };
+  });
+  afterAll(async () => {
+    await s?.close();
+  });
+
+  async function snapshot(): Promise<string> {
+    const parts: unknown[] = [];
+    for (const t of TABLES) parts.push(await s.ctx.db(t).select('*').orderBy('id'));
+    return JSON.stringify(parts);
+  }
+
+  /** Shared by every body route: JSON that does not parse, the wrong top-level shape, too big. */
+  const common: [string, Req][] = [
+    ['invalid JSON', { raw: '{"name": ' }],
+    ['a JSON array', { body: [{ name: 'x' }] }],
+    ['null', { raw: 'null' }],
+    ['an empty object', { body: {} }],
+    ['a body over 1 MB', { raw: HUGE }],
+  ];
+
+  const restraint = doc_restraint();
+  function doc_restraint() {
+    return (d: StackDetail['doc'], data: Record<string, unknown>) => ({
+      nodes: d.nodes.map((n) => (n.kind === 'restraint' ? { ...n, data: { ...n.data, ...data } } : n)),
+      edges: d.edges,
+    });
+  }
+
+  const routes: { name: string; method: string; path: () => string; cases: () => [string, Req][] }[] = [
+    {
+      name: 'POST /api/buildings',
+      method: 'POST',
+      path: () => '/buildings',
+      cases: () => [
+        ['a number for the name', { body: { name: 12 } }],
+        ['an unknown field', { body: { name: 'B', colour: 'red' } }],
+        ['an unknown option value', { body: { name: 'B', options: { combination: 'NaN' } } }],
+        ['a 100 000-character name', { body: { name: 'n'.repeat(100_000) } }],
+      ],
+    },
+    {
+      name: 'PATCH /api/buildings/:id',
+      method: 'PATCH',
+      path: () => `/buildings/${ids.building}`,
+      cases: () => [
+        ['options of the wrong type', { body: { options: { imposedReduction: 'yes' } } }],
+        ['an unknown field', { body: { owner: 1 } }],
+        ['a bad id', { path: '/buildings/abc', body: { name: 'x' } }],
+        ['an id of 1e308', { path: '/buildings/1e308', body: { name: 'x' } }],
+      ],
+    },
+    {
+      name: 'POST /api/buildings/:id/members',
+      method: 'POST',
+      path: () => `/buildings/${ids.building}/members`,
+      cases: () => [
+        ['a missing role', { body: { email: 'm@example.test' } }],
+        ['a made-up role', { body: { email: 'm@example.test', role: 'owner' } }],
+        ['not an e-mail address', { body: { email: 'not-an-address', role: 'viewer' } }],
+      ],
+    },
+    {
+      name: 'PATCH /api/buildings/:id/members/:memberId',
+      method: 'PATCH',
+      path: () => `/buildings/${ids.building}/members/${ids.member}`,
+      cases: () => [
+        ['a made-up role', { body: { role: 'admin' } }],
+        ['a negative member id', { path: `/buildings/${ids.building}/members/-4`, body: { role: 'viewer' } }],
+      ],
+    },
+    {
+      name: 'DELETE /api/buildings/:id/members/:memberId',
+      method: 'DELETE',
+      path: () => `/buildings/${ids.building}/members/${ids.member}`,
+      cases: () => [
+        ['NaN as the member id', { path: `/buildings/${ids.building}/members/NaN` }],
+        ['a member id of 1e308', { path: `/buildings/${ids.building}/members/1e308` }],
+      ],
+    },
+    {
+      name: 'POST /api/buildings/:id/levels',
+      method: 'POST',
+      path: () => `/buildings/${ids.building}/levels`,
+      cases: () => [
+        ['an elevation of 1e308', { body: { name: 'L', elevation: 1e308 } }],
+        ['NaN as a string', { body: { name: 'L', elevation: 'NaN' } }],
+        ['a missing elevation', { body: { name: 'L' } }],
+        ['an unknown field', { body: { name: 'L', elevation: 1, height: 3 } }],
+      ],
+    },
+    {
+      name: 'PATCH /api/buildings/:id/levels/:levelId',
+      method: 'PATCH',
+      path: () => `/buildings/${ids.building}/levels/${ids.level}`,
+      cases: () => [
+        ['an elevation of -1e308', { body: { elevation: -1e308 } }],
+        ['an elevation as a string', { body: { elevation: '4.5' } }],
+        ['a level id that is not a number', { path: `/buildings/${ids.building}/levels/x1`, body: { name: 'x' } }],
+      ],
+    },
+    {
+      name: 'DELETE /api/buildings/:id/levels/:levelId',
+      method: 'DELETE',
+      path: () => `/buildings/${ids.building}/levels/${ids.level}`,
+      cases: () => [['a level id of 0', { path: `/buildings/${ids.building}/levels/0` }]],
+    },
+    {
+      name: 'POST /api/buildings/:id/stacks',
+      method: 'POST',
+      path: () => `/buildings/${ids.building}/stacks`,
+      cases: () => [
+        ['a negative storey height', { body: { name: 'T', template: { storeys: 3, storeyHeight: -3.5, sections: ['UKC 203x203x46'] } } }],
+        ['a storey height of 1e308', { body: { name: 'T', template: { storeys: 3, storeyHeight: 1e308, sections: ['UKC 203x203x46'] } } }],
+        ['NaN as a string for storeys', { body: { name: 'T', template: { storeys: 'NaN', storeyHeight: 3, sections: ['UKC 203x203x46'] } } }],
+        ['a fractional storey count', { body: { name: 'T', template: { storeys: 2.5, storeyHeight: 3, sections: ['UKC 203x203x46'] } } }],
+        ['no sections', { body: { name: 'T', template: { storeys: 2, storeyHeight: 3, sections: [] } } }],
+        ['both a document and a template', { body: { name: 'T', doc, template: { storeys: 2, storeyHeight: 3, sections: ['UKC 203x203x46'] } } }],
+        ['a negative Gk in the document', { body: { name: 'T', doc: restraint(doc, { Gk: -10 }) } }],
+        ['an elevation of 1e308 in the document', { body: { name: 'T', doc: restraint(doc, { elevation: 1e308 }) } }],
+        ['a node of an unknown kind', { body: { name: 'T', doc: { nodes: [{ id: 'x', kind: 'beam', data: {} }], edges: [] } } }],
+      ],
+    },
+    {
+      name: 'PUT /api/stacks/:id',
+      method: 'PUT',
+      path: () => `/stacks/${ids.stack}`,
+      cases: () => [
+        ['a missing baseVersion', { body: { doc } }],
+        ['a negative baseVersion', { body: { doc, baseVersion: -1 } }],
+        ['a baseVersion of 1e308', { body: { doc, baseVersion: 1e308 } }],
+        ['NaN as a string for baseVersion', { body: { doc, baseVersion: 'NaN' } }],
+        ['Gk as a string', { body: { doc: restraint(doc, { Gk: '100' }), baseVersion: 0 } }],
+        ['an unknown field in node data', { body: { doc: restraint(doc, { colour: 'red' }), baseVersion: 0 } }],
+        ['a stale baseVersion', { body: { doc, baseVersion: 7 } }],
+        ['a stack id of -1', { path: '/stacks/-1', body: { doc, baseVersion: 0 } }],
+      ],
+    },
+    {
+      name: 'POST /api/stacks/:id/ops',
+      method: 'POST',
+      path: () => `/stacks/${ids.stack}/ops`,
+      cases: () => [
+        ['an empty ops list', { body: { baseVersion: 0, ops: [] } }],
+        ['an unknown op', { body: { baseVersion: 0, ops: [{ op: 'explode', id: 'cap' }] } }],
+        ['an update to a negative elevation far below the limit', { body: { baseVersion: 0, ops: [{ op: 'updateNode', id: 'cap', data: { elevation: -1e308 } }] } }],
+        ['NaN as a string in an update', { body: { baseVersion: 0, ops: [{ op: 'updateNode', id: 'cap', data: { Gk: 'NaN' } }] } }],
+        ['a position of 1e308', { body: { baseVersion: 0, ops: [{ op: 'moveNode', id: 'cap', position: { x: 1e308, y: 0 } }] } }],
+        ['an unknown node id', { body: { baseVersion: 0, ops: [{ op: 'removeNode', id: 'nope' }] } }],
+        ['a node id with spaces', { body: { baseVersion: 0, ops: [{ op: 'removeNode', id: 'a b' }] } }],
+        ['501 ops', { body: { baseVersion: 0, ops: Array.from({ length: 501 }, () => ({ op: 'moveNode', id: 'cap', position: { x: 0, y: 0 } })) } }],
+      ],
+    },
+    {
+      name: 'PATCH /api/stacks/:id',
+      method: 'PATCH',
+      path: () => `/stacks/${ids.stack}`,
+      cases: () => [
+        ['an empty name', { body: { name: '   ' } }],
+        ['a name that is an object', { body: { name: { first: 'A' } } }],
+      ],
+    },
+    {
+      name: 'DELETE /api/stacks/:id',
+      method: 'DELETE',
+      path: () => `/stacks/${ids.stack}`,
+      cases: () => [['a stack id that is not a number', { path: '/stacks/one' }]],
+    },
+    {
+      name: 'POST /api/auth/register',
+      method: 'POST',
+      path: () => '/auth/register',
+      cases: () => [['a password of 1e308', { body: { email: 'r@example.test', password: 1e308, name: 'R' } }]],
+    },
+  ];
+
+  for (const route of routes) {
+    it(`${route.name}: every malformed request gets a 4xx in the error shape and changes nothing`, async () => {
+      const before = await snapshot();
+      const withBody = route.method !== 'DELETE';
+      const cases = [...(withBody ? common : []), ...route.cases()];
+      const failures: string[] = [];
+      for (const [label, req] of cases) {
+        const r = await s.api(route.method, req.path ?? route.path(), { token, body: req.body, raw: req.raw });
+        const ok = r.status >= 400 && r.status < 500 && errorCode(r.body) !== undefined;
+        if (!ok) failures.push(`${label}: ${r.status} ${JSON.stringify(r.body).slice(0, 200)}`);
+      }
+      expect(failures).toEqual([]);
+      expect(await snapshot()).toBe(before);
+    });
+  }
+
+  it('still reads the stack afterwards (no malformed write left a broken document behind)', async () => {
+    const r = await s.api('GET', `/stacks/${ids.stack}`, { token });
+    expect(r.status).toBe(200);
+    expect((r.body as StackDetail).version).toBe(0);
+  });
+});
