@@ -31,6 +31,16 @@ export const liftDataSchema = z
   .object({ section: sectionRef, grade: gradeSchema, kY: kFactor.optional(), kZ: kFactor.optional(), note: z.string().max(500).optional() })
   .strict();
 export const spliceDataSchema = z.object({ elevation }).strict();
+/** Characteristic beam reaction on one face of the column (kN). */
+export const faceReactionSchema = z.object({ Gk: load, Qk: load }).strict();
+/**
+ * How the floor load at a restraint splits between the faces of the column, for the nominal moments of
+ * simple construction: y faces are the flanges (moment about y-y), z faces the web (moment about z-z).
+ * Optional, so older documents stay valid. The restraint's own Gk/Qk remain the total entering the column.
+ */
+export const restraintFacesSchema = z
+  .object({ yPlus: faceReactionSchema.optional(), yMinus: faceReactionSchema.optional(), zPlus: faceReactionSchema.optional(), zMinus: faceReactionSchema.optional() })
+  .strict();
 export const restraintDataSchema = z
   .object({
     elevation,
@@ -40,6 +50,7 @@ export const restraintDataSchema = z
     Gk: load,
     Qk: load,
     category: categorySchema,
+    faces: restraintFacesSchema.optional(),
   })
   .strict();
 export const capDataSchema = z
@@ -76,6 +87,9 @@ export type SupportData = z.infer<typeof supportDataSchema>;
 export type LiftData = z.infer<typeof liftDataSchema>;
 export type SpliceData = z.infer<typeof spliceDataSchema>;
 export type RestraintData = z.infer<typeof restraintDataSchema>;
+export type FaceReaction = z.infer<typeof faceReactionSchema>;
+export type RestraintFaces = z.infer<typeof restraintFacesSchema>;
+export type FaceName = keyof RestraintFaces;
 export type CapData = z.infer<typeof capDataSchema>;
 export type LoadData = z.infer<typeof loadDataSchema>;
 export type StackNode = z.infer<typeof stackNodeSchema>;
