@@ -60,6 +60,30 @@ export interface CompressionResult {
   steps: CalcStep[];
 }
 
+/**
+ * Combined check of a column in simple construction (N, mm): NEd/Nb,min,Rd + My,Ed/Mb,Rd + 1.5·Mz,Ed/Mz,Rd ≤ 1
+ * with the nominal moments from eccentric beam reactions (see shared/engine/simple).
+ */
+export interface CombinedCheck {
+  NEdY: number;
+  NEdZ: number;
+  /** Nominal moments at the end of the column length between floors, N·mm. */
+  MyEd: number;
+  MzEd: number;
+  NbRdY: number;
+  NbRdZ: number;
+  lambdaBarLT: number;
+  chiLT: number;
+  MbRd: number;
+  MzRd: number;
+  /** The three terms of the interaction. */
+  axialTerm: number;
+  majorTerm: number;
+  minorTerm: number;
+  utilisation: number;
+  steps: CalcStep[];
+}
+
 export interface Issue {
   nodeId?: string;
   /** Set when the problem is an edge (a dangling or disallowed connection). */
