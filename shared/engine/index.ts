@@ -13,3 +13,4 @@ export * from './bucklingCurve.ts';
 export { sectionData, gradeData, type SectionData, type GradeData } from './sectionData.ts';
 export * from './checkCompression.ts';
 export * from './stack/index.ts';
+export * from './sizing/index.ts';

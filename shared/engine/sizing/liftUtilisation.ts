@@ -1,0 +1,56 @@
+// Utilisation of one lift with a given section, the lifts above it fixed: the same rule as the
+// analysis (SPEC §5.6) with the working left out, so that sizing can try many sections quickly.
+import type { Grade, SectionDims } from '../../schema/stack.ts';
+import { checkCompression } from '../checkCompression.ts';
+import { designAxialForce } from '../stack/combination.ts';
+import { selfWeightPerMetre } from '../stack/takeDown.ts';
+import type { SizingModel } from './sizingModel.ts';
+
+export interface LiftTrial {
+  section: string | SectionDims;
+  grade: Grade;
+  /** kg/m */
+  massPerMetre: number;
+}
+
+/** Self-weight of a lift, kN: permanent load on everything below it (SPEC §5.1). */
+export function liftWeight(model: SizingModel, index: number, massPerMetre: number): number {
+  const lift = model.lifts[index];
+  return model.options.selfWeight ? selfWeightPerMetre(massPerMetre) * (lift.top - lift.bottom) : 0;
+}
+
+/**
+ * The lift's utilisation with `trial`, carrying `weightAbove` kN of self-weight of the lifts above.
+ * Stops at the first piece above `limit` and returns its utilisation (enough to refuse a candidate).
+ */
+export function liftUtilisation(model: SizingModel, index: number, trial: LiftTrial, weightAbove: number, limit = Infinity): number {
+  const { options } = model;
+  const lift = model.lifts[index];
+  const perMetre = options.selfWeight ? selfWeightPerMetre(trial.massPerMetre) : 0;
+  const NEd = lift.pieces.map((p) => {
+    const state = p.entries;
+    return designAxialForce({ sumGk: state.sumGk + perMetre * (lift.top - p.from) + weightAbove, sumQk: state.sumQk, loadedLevels: state.loadedLevels }, options).NEd;
+  });
+  // The buckling check about an axis takes the largest NEd of the lift within that axis's segment (SPEC §5.6)
+  const maxY: number[] = [];
+  const maxZ: number[] = [];
+  lift.pieces.forEach((p, k) => {
+    maxY[p.groupY] = Math.max(maxY[p.groupY] ?? 0, NEd[k]);
+    maxZ[p.groupZ] = Math.max(maxZ[p.groupZ] ?? 0, NEd[k]);
+  });
+  let worst = 0;
+  for (const [k, p] of lift.pieces.entries()) {
+    const NEdY = maxY[p.groupY];
+    const NEdZ = maxZ[p.groupZ];
+    // The member check works in N and mm
+    const check = checkCompression(
+      { section: trial.section, grade: trial.grade, LcrY: p.LcrY * 1000, LcrZ: p.LcrZ * 1000, NEd: Math.max(NEdY, NEdZ) * 1000, annex: options.annex },
+      { steps: false, extraSections: model.sections },
+    );
+    // SPEC §5.6: max(NEd/Nc,Rd, NEd,y/Nb,y,Rd, NEd,z/Nb,z,Rd) — EN 1993-1-1 eq. 6.9 and 6.46
+    const u = Math.max((NEd[k] * 1000) / check.NcRd, (NEdY * 1000) / check.NbRdY, (NEdZ * 1000) / check.NbRdZ);
+    if (u > worst) worst = u;
+    if (worst > limit) return worst;
+  }
+  return worst;
+}

@@ -1,0 +1,73 @@
+// The search. A lift's load depends only on the lifts above it (SPEC §5.1), and lighter lifts above
+// never raise it, so the lifts are sized from the top down, each taking the lightest candidate that
+// passes under the lifts already chosen above it. With "no upward increase" a lift may not be lighter
+// than the lift above it, which only raises its lower bound: the rule is met on the way down and
+// needs no second pass.
+//
+// Why the result is the lightest possible, lift by lift: take any assignment A that passes and keeps
+// the rules. At the top lift the search takes the lightest passing candidate, so it is no heavier than
+// A's. Going down, every lift above is no heavier than in A, so the load is no larger, so A's section
+// passes here too (utilisation never falls as NEd rises) and is no lighter than the lift above; the
+// search's pick is therefore no heavier than A's. The engine tests check this by brute force.
+import type { Grade } from '../../schema/stack.ts';
+import { isEngineError } from '../errors.ts';
+import { liftUtilisation, liftWeight } from './liftUtilisation.ts';
+import type { Candidate } from './sizingCandidates.ts';
+import type { SizingModel } from './sizingModel.ts';
+
+export type LiftPick = { kind: 'section'; candidate: Candidate; utilisation: number } | { kind: 'none' } | { kind: 'blocked' };
+
+export interface SizingRules {
+  grade: Grade;
+  target: number;
+  noUpwardIncrease: boolean;
+}
+
+/** One pick per lift, bottom first like model.lifts. */
+export function sizeLifts(model: SizingModel, candidates: readonly Candidate[], rules: SizingRules): LiftPick[] {
+  const picks: LiftPick[] = model.lifts.map(() => ({ kind: 'blocked' }));
+  let weightAbove = 0;
+  let lightest = 0;
+  for (let i = model.lifts.length - 1; i >= 0; i--) {
+    let pick: LiftPick = { kind: 'none' };
+    for (const candidate of candidates) {
+      if (rules.noUpwardIncrease && candidate.massPerMetre < lightest) continue;
+      const trial = { section: candidate.designation, grade: rules.grade, massPerMetre: candidate.massPerMetre };
+      const utilisation = liftUtilisation(model, i, trial, weightAbove, rules.target);
+      if (utilisation <= rules.target) {
+        pick = { kind: 'section', candidate, utilisation };
+        break;
+      }
+    }
+    picks[i] = pick;
+    // Below a lift with no passing section the load is unknown: those lifts stay blocked.
+    if (pick.kind !== 'section') break;
+    weightAbove += liftWeight(model, i, pick.candidate.massPerMetre);
+    lightest = pick.candidate.massPerMetre;
+  }
+  return picks;
+}
+
+export interface CurrentCheck {
+  utilisation: number | null;
+  /** Why the current section cannot be checked. */
+  message?: string;
+}
+
+/** Utilisation of every lift as it is now, bottom first. */
+export function currentUtilisations(model: SizingModel): CurrentCheck[] {
+  const result: CurrentCheck[] = new Array(model.lifts.length);
+  let weightAbove = 0;
+  for (let i = model.lifts.length - 1; i >= 0; i--) {
+    const lift = model.lifts[i];
+    try {
+      result[i] = { utilisation: liftUtilisation(model, i, { section: lift.data.section, grade: lift.data.grade, massPerMetre: lift.massPerMetre }, weightAbove) };
+    } catch (error) {
+      // As in the analysis: a section the rules cannot check is reported on its lift.
+      if (!isEngineError(error)) throw error;
+      result[i] = { utilisation: null, message: error.message };
+    }
+    weightAbove += liftWeight(model, i, lift.massPerMetre);
+  }
+  return result;
+}

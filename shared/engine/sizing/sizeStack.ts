@@ -1,0 +1,74 @@
+// Proposes, lift by lift, the lightest section of a series that passes (issue 11). Pure; nothing is
+// changed: the caller shows the preview and turns what the engineer accepts into updateNode ops.
+import { DEFAULT_ANALYSIS_OPTIONS, type AnalysisOptions } from '../../schema/results.ts';
+import type { LiftSizing, SizingRequest, StackSizing } from '../../schema/sizing.ts';
+import type { StackDocument } from '../../schema/stack.ts';
+import { designationKey } from '../../catalogue/index.ts';
+import { allLevelElevations, type AnalysisContext } from '../stack/context.ts';
+import { inspectStack } from '../stack/inspectStack.ts';
+import { checkableCandidates, sizingCandidates, type Candidate } from './sizingCandidates.ts';
+import { currentUtilisations, sizeLifts, type CurrentCheck, type LiftPick } from './sizeLifts.ts';
+import { sizingModel, type SizingModel } from './sizingModel.ts';
+import { liftMessage } from './sizingMessages.ts';
+
+function sizedCount(picks: readonly LiftPick[]): number {
+  return picks.filter((p) => p.kind === 'section').length;
+}
+
+/** kg: Σ mass per metre × length, each lift taking its pick where it has one. */
+function columnMass(model: SizingModel, picks?: readonly LiftPick[]): number {
+  return model.lifts.reduce((sum, lift, i) => {
+    const pick = picks?.[i];
+    const perMetre = pick?.kind === 'section' ? pick.candidate.massPerMetre : lift.massPerMetre;
+    return sum + perMetre * (lift.top - lift.bottom);
+  }, 0);
+}
+
+/**
+ * With "same serial size" every lift of the stack keeps one serial size, since every lift meets the
+ * next at a splice. Each serial size is sized on its own; the one that sizes the most lifts, then the
+ * lightest column, wins (the first in the table on a tie).
+ */
+function bestPicks(model: SizingModel, candidates: readonly Candidate[], request: SizingRequest): { picks: LiftPick[]; serial: string | null } {
+  if (!request.sameSerialSize) return { picks: sizeLifts(model, candidates, request), serial: null };
+  const serials = [...new Set(candidates.map((c) => c.serial))];
+  let best: { picks: LiftPick[]; serial: string | null } | null = null;
+  for (const serial of serials) {
+    const picks = sizeLifts(model, candidates.filter((c) => c.serial === serial), request);
+    if (!best || sizedCount(picks) > sizedCount(best.picks) || (sizedCount(picks) === sizedCount(best.picks) && columnMass(model, picks) < columnMass(model, best.picks))) {
+      best = { picks, serial };
+    }
+  }
+  return best ?? { picks: model.lifts.map(() => ({ kind: 'none' })), serial: null };
+}
+
+function liftRow(model: SizingModel, i: number, pick: LiftPick, now: CurrentCheck, request: SizingRequest): LiftSizing {
+  const lift = model.lifts[i];
+  const before = { section: lift.designation, grade: lift.data.grade, massPerMetre: lift.massPerMetre, utilisation: now.utilisation };
+  const row = { liftId: lift.id, name: lift.name, bottom: lift.bottom, top: lift.top, before };
+  if (pick.kind !== 'section') return { ...row, after: null, status: pick.kind, message: liftMessage(pick.kind, request) };
+  const { candidate, utilisation } = pick;
+  const same = designationKey(candidate.designation) === designationKey(lift.designation) && request.grade === lift.data.grade;
+  const after = { section: candidate.designation, grade: request.grade, massPerMetre: candidate.massPerMetre, utilisation };
+  return { ...row, after, status: same ? 'unchanged' : 'proposed', ...(now.message ? { message: now.message } : {}) };
+}
+
+export function sizeStack(doc: StackDocument, request: SizingRequest, options: Partial<AnalysisOptions> = {}, context: AnalysisContext = {}): StackSizing {
+  const settings: AnalysisOptions = { ...DEFAULT_ANALYSIS_OPTIONS, ...options };
+  const { model: stack, errors } = inspectStack(doc, context);
+  if (!stack) return { errors, lifts: [], serialSize: null, complete: false, massBefore: null, massAfter: null };
+
+  const model = sizingModel(stack, settings, allLevelElevations(context.levels), context.sections);
+  const candidates = checkableCandidates(sizingCandidates(request.series, request.allowed), request.grade, settings.annex);
+  const { picks, serial } = bestPicks(model, candidates, request);
+  const now = currentUtilisations(model);
+  const lifts = model.lifts.map((_, i) => liftRow(model, i, picks[i], now[i], request));
+  return {
+    errors: [],
+    lifts,
+    serialSize: serial,
+    complete: sizedCount(picks) === picks.length,
+    massBefore: columnMass(model),
+    massAfter: columnMass(model, picks),
+  };
+}
