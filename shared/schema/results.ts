@@ -108,7 +108,12 @@ export interface PieceCheck {
   LcrZ: number;
   kY: number;
   kZ: number;
+  /** max(NEd/Nc,Rd, NEd,y/Nb,y,Rd, NEd,z/Nb,z,Rd) (SPEC §5.6). */
   utilisation: number;
+  /** The term of `utilisation` that is largest. */
+  governing: GoverningMode;
+  /** The member check run with the larger of NEdY and NEdZ (N, mm), so its buckling terms are not
+   *  relaxed by 6.3.1.2(4) for a force smaller than the one they are checked against. */
   check: CompressionResult;
 }
 

@@ -3,7 +3,7 @@ import type { Issue } from '../../schema/results.ts';
 import type { Axes, Category, Fixity, NodeOf } from '../../schema/stack.ts';
 import { levelElevation, SAME_ELEVATION_M, type AnalysisContext } from './context.ts';
 import { formatElevation } from './formatElevation.ts';
-import type { StackChain } from './stackChain.ts';
+import type { ChainLift, StackChain } from './stackChain.ts';
 import { neighbours, type StackGraph } from './stackGraph.ts';
 import type { LoadEntry } from './takeDown.ts';
 
@@ -33,37 +33,41 @@ function restraintElevation(node: NodeOf<'restraint'>, context: AnalysisContext,
   return elevation;
 }
 
+function restraintName(elevation: number): string {
+  return `Restraint at ${formatElevation(elevation)}`;
+}
+
 function checkRestraint(
   node: NodeOf<'restraint'>,
   elevation: number,
   graph: StackGraph,
   chain: StackChain,
+  liftsById: ReadonlyMap<string, ChainLift>,
   errors: Issue[],
 ): ModelRestraint | null {
-  const name = `Restraint at ${formatElevation(elevation)}`;
   const lifts = neighbours(graph, node.id, 'out', ['lift']);
   if (lifts.length !== 1) {
     const problem = lifts.length === 0 ? 'is not attached to a lift' : 'is attached to more than one lift';
-    errors.push({ nodeId: node.id, message: `${name} ${problem}` });
+    errors.push({ nodeId: node.id, message: `${restraintName(elevation)} ${problem}` });
     return null;
   }
-  const lift = chain.lifts.find((l) => l.node.id === lifts[0].id);
+  const lift = liftsById.get(lifts[0].id);
   if (!lift || !lift.above) return null;
   const bottom = lift.below.data.elevation;
   const top = lift.above.data.elevation;
   if (elevation < bottom - SAME_ELEVATION_M || elevation > top + SAME_ELEVATION_M) {
     errors.push({
       nodeId: node.id,
-      message: `${name} is outside the lift it is attached to (lift ${lift.name} runs from ${formatElevation(bottom)} to ${formatElevation(top)})`,
+      message: `${restraintName(elevation)} is outside the lift it is attached to (lift ${lift.name} runs from ${formatElevation(bottom)} to ${formatElevation(top)})`,
     });
     return null;
   }
   if (chain.support && elevation <= chain.support.data.elevation + SAME_ELEVATION_M) {
-    errors.push({ nodeId: node.id, message: `${name} is at the support, which already restrains the column there` });
+    errors.push({ nodeId: node.id, message: `${restraintName(elevation)} is at the support, which already restrains the column there` });
     return null;
   }
   if (chain.cap && elevation >= chain.cap.data.elevation - SAME_ELEVATION_M) {
-    errors.push({ nodeId: node.id, message: `${name} is at the cap; put its loads on the cap instead` });
+    errors.push({ nodeId: node.id, message: `${restraintName(elevation)} is at the cap; put its loads on the cap instead` });
     return null;
   }
   return { id: node.id, elevation, axes: node.data.axes, fixity: node.data.fixity, liftId: lift.node.id };
@@ -79,12 +83,13 @@ export function readAttachments(graph: StackGraph, chain: StackChain, context: A
   const warnings: Issue[] = [];
   const restraints: ModelRestraint[] = [];
   const entries = new Map<string, LoadEntry>();
+  const liftsById = new Map(chain.lifts.map((l) => [l.node.id, l]));
   // Sorted so that sums, and so results, do not depend on the order of nodes in the document.
   const nodes = [...graph.nodes.values()].sort((a, b) => (a.id < b.id ? -1 : a.id > b.id ? 1 : 0));
   for (const node of nodes) {
     if (node.kind === 'restraint') {
       const elevation = restraintElevation(node, context, warnings);
-      const restraint = checkRestraint(node, elevation, graph, chain, errors);
+      const restraint = checkRestraint(node, elevation, graph, chain, liftsById, errors);
       if (!restraint) continue;
       restraints.push(restraint);
       const entry: LoadEntry = { nodeId: node.id, elevation, Gk: 0, Qk: {} };

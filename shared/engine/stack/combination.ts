@@ -32,14 +32,18 @@ function leadingValue(state: AxialState, category: Category, options: Options): 
 
 /** max over the leading action L of permanent + γQ·Q_L* + Σ(i≠L) γQ·ψ0,i·Q_i. */
 function withLeading(permanent: number, state: AxialState, options: Options): { value: number; leading: Category | null } {
-  const present = CATEGORIES.filter((c) => (state.sumQk[c] ?? 0) > 0);
-  let best = { value: permanent, leading: null as Category | null };
-  for (const L of present) {
-    let value = permanent + GAMMA_Q * leadingValue(state, L, options);
-    for (const i of present) if (i !== L) value += GAMMA_Q * psi0(i, options.annex) * (state.sumQk[i] ?? 0);
-    if (best.leading === null || value > best.value) best = { value, leading: L };
+  let value = permanent;
+  let leading: Category | null = null;
+  for (const L of CATEGORIES) {
+    if (!((state.sumQk[L] ?? 0) > 0)) continue;
+    let candidate = permanent + GAMMA_Q * leadingValue(state, L, options);
+    for (const i of CATEGORIES) if (i !== L) candidate += GAMMA_Q * psi0(i, options.annex) * (state.sumQk[i] ?? 0);
+    if (leading === null || candidate > value) {
+      value = candidate;
+      leading = L;
+    }
   }
-  return best;
+  return { value, leading };
 }
 
 export function designAxialForce(state: AxialState, options: Options): DesignForce {

@@ -3,6 +3,7 @@ import type { Issue } from '../../schema/results.ts';
 import type { LiftData, StackDocument } from '../../schema/stack.ts';
 import { readAttachments, type ModelRestraint } from './attachments.ts';
 import type { AnalysisContext } from './context.ts';
+import { isLiftSection, resolveLiftSection, type LiftSection } from './liftSections.ts';
 import { schemaIssues } from './schemaIssues.ts';
 import { segmentsAbout, type Segment } from './segments.ts';
 import { walkStackChain } from './stackChain.ts';
@@ -16,6 +17,7 @@ export interface ModelLift {
   bottom: number;
   top: number;
   data: LiftData;
+  section: LiftSection;
 }
 
 export interface StackModel {
@@ -60,12 +62,12 @@ export function inspectStack(doc: StackDocument, context: AnalysisContext = {}):
   errors.push(...y.errors, ...z.errors);
   if (errors.length) return { model: null, errors, warnings };
 
-  const lifts = chain.lifts.map(({ node, name, below, above }) => ({
-    id: node.id,
-    name,
-    bottom: below.data.elevation,
-    top: above ? above.data.elevation : below.data.elevation,
-    data: node.data,
-  }));
+  const lifts: ModelLift[] = [];
+  for (const { node, name, below, above } of chain.lifts) {
+    const section = resolveLiftSection(node.data, name, node.id, context.sections);
+    if (!isLiftSection(section)) errors.push(section);
+    else lifts.push({ id: node.id, name, bottom: below.data.elevation, top: above ? above.data.elevation : below.data.elevation, data: node.data, section });
+  }
+  if (errors.length) return { model: null, errors, warnings };
   return { model: { lifts, restraints, entries, segments: { y: y.segments, z: z.segments } }, errors, warnings };
 }

@@ -52,12 +52,11 @@ function walk(graph: StackGraph, support: NodeOf<'support'>, issues: Issue[]): {
   let current: ChainEnd = support;
   for (;;) {
     const upLifts = neighbours(graph, current.id, 'out', ['lift']) as NodeOf<'lift'>[];
-    const here = chainNodeName(current, names);
     if (upLifts.length === 0) {
-      issues.push({ nodeId: current.id, message: `${here} has no lift above it` });
+      issues.push({ nodeId: current.id, message: `${chainNodeName(current, names)} has no lift above it` });
       return { lifts, reachedCap: false, visited };
     }
-    if (upLifts.length > 1) issues.push({ nodeId: current.id, message: `${here} has more than one lift above it` });
+    if (upLifts.length > 1) issues.push({ nodeId: current.id, message: `${chainNodeName(current, names)} has more than one lift above it` });
     const lift = upLifts[0];
     if (visited.has(lift.id)) {
       issues.push({ nodeId: lift.id, message: `The chain loops back on itself at ${chainNodeName(lift, names)}` });
@@ -65,7 +64,7 @@ function walk(graph: StackGraph, support: NodeOf<'support'>, issues: Issue[]): {
     }
     visited.add(lift.id);
     names.set(lift.id, `L${lifts.length + 1}`);
-    const liftName = chainNodeName(lift, names);
+    const liftName = `Lift ${names.get(lift.id)}`;
     if (neighbours(graph, lift.id, 'in', ['support', 'splice']).length > 1) {
       issues.push({ nodeId: lift.id, message: `${liftName} has more than one node below it` });
     }

@@ -1,6 +1,6 @@
 // The document's nodes and edges as a graph, keeping only connections a stack allows (SPEC §4).
 import type { Issue } from '../../schema/results.ts';
-import type { NodeKind, StackDocument, StackNode } from '../../schema/stack.ts';
+import type { NodeKind, StackDocument, StackEdge, StackNode } from '../../schema/stack.ts';
 
 export interface StackGraph {
   nodes: ReadonlyMap<string, StackNode>;
@@ -35,37 +35,35 @@ function push(map: Map<string, string[]>, key: string, value: string): void {
   else map.set(key, [value]);
 }
 
-function edgeIssues(doc: StackDocument, nodes: ReadonlyMap<string, StackNode>, issues: Issue[]): StackDocument['edges'] {
-  const kept: StackDocument['edges'] = [];
+/** What is wrong with one connection, or null when the stack allows it. */
+function edgeProblem(edge: StackEdge, source: StackNode | undefined, target: StackNode | undefined): string | null {
+  if (!source) return `Connection ${edge.id} starts from a node ${edge.source} that does not exist`;
+  if (!target) return `Connection ${edge.id} points to a node ${edge.target} that does not exist`;
+  if (edge.source === edge.target) return `Connection ${edge.id} joins ${KIND_WORD[source.kind]} to itself`;
+  if (ALLOWED.has(`${source.kind}>${target.kind}`)) return null;
+  if (ALLOWED.has(`${target.kind}>${source.kind}`)) {
+    return `Connection ${edge.id} points from ${KIND_WORD[source.kind]} down to ${KIND_WORD[target.kind]}; connections point upward, toward what carries the load`;
+  }
+  return `Connection ${edge.id} joins ${KIND_WORD[source.kind]} to ${KIND_WORD[target.kind]}, which a stack does not allow`;
+}
+
+function edgeIssues(doc: StackDocument, nodes: ReadonlyMap<string, StackNode>, issues: Issue[]): StackEdge[] {
+  const kept: StackEdge[] = [];
   const edgeIds = new Set<string>();
   const pairs = new Map<string, string>();
   for (const edge of doc.edges) {
     const source = nodes.get(edge.source);
     const target = nodes.get(edge.target);
     const nodeId = source ? edge.source : target ? edge.target : undefined;
-    const report = (message: string): void => void issues.push({ nodeId, edgeId: edge.id, message });
-    if (edgeIds.has(edge.id)) report(`Two connections share the id ${edge.id}`);
+    if (edgeIds.has(edge.id)) issues.push({ nodeId, edgeId: edge.id, message: `Two connections share the id ${edge.id}` });
     edgeIds.add(edge.id);
-    if (!source) report(`Connection ${edge.id} starts from a node ${edge.source} that does not exist`);
-    if (!target) report(`Connection ${edge.id} points to a node ${edge.target} that does not exist`);
-    if (!source || !target) continue;
-    if (edge.source === edge.target) {
-      report(`Connection ${edge.id} joins ${KIND_WORD[source.kind]} to itself`);
-      continue;
-    }
-    if (!ALLOWED.has(`${source.kind}>${target.kind}`)) {
-      const reversed = ALLOWED.has(`${target.kind}>${source.kind}`);
-      report(
-        reversed
-          ? `Connection ${edge.id} points from ${KIND_WORD[source.kind]} down to ${KIND_WORD[target.kind]}; connections point upward, toward what carries the load`
-          : `Connection ${edge.id} joins ${KIND_WORD[source.kind]} to ${KIND_WORD[target.kind]}, which a stack does not allow`,
-      );
-      continue;
-    }
+    const problem = edgeProblem(edge, source, target);
+    if (!problem && !source) continue;
     const pair = `${edge.source}>${edge.target}`;
     const first = pairs.get(pair);
-    if (first !== undefined) {
-      report(`Connection ${edge.id} repeats connection ${first}`);
+    const message = problem ?? (first !== undefined ? `Connection ${edge.id} repeats connection ${first}` : null);
+    if (message) {
+      issues.push({ nodeId, edgeId: edge.id, message });
       continue;
     }
     pairs.set(pair, edge.id);

@@ -26,37 +26,58 @@ export function selfWeightPerMetre(massPerMetre: number): number {
   return (massPerMetre * 9.81) / 1000;
 }
 
+export interface AxialQuery {
+  elevation: number;
+  /** Include the entries at this elevation: the column just below a load point. */
+  includeEntriesAt: boolean;
+}
+
+function selfWeightAbove(weights: readonly ColumnWeight[], elevation: number): number {
+  let sum = 0;
+  for (const w of weights) if (w.top > elevation) sum += w.perMetre * (w.top - Math.max(elevation, w.bottom));
+  return sum;
+}
+
 /**
- * Loads in the column at an elevation: from every entry above it, and from the entries at it when
- * `includeEntriesAt` (the column just below a load point), plus the self-weight above the elevation.
+ * Loads in the column at each queried section: every entry above it (and at it, when asked), plus the
+ * self-weight above it. One sweep down the stack, so a whole stack costs O(entries + queries).
  */
-export function axialStateAt(
-  entries: readonly LoadEntry[],
-  weights: readonly ColumnWeight[],
-  elevation: number,
-  includeEntriesAt: boolean,
-): AxialState {
-  const threshold = includeEntriesAt ? elevation - SAME_ELEVATION_M : elevation + SAME_ELEVATION_M;
+export function axialStates(entries: readonly LoadEntry[], weights: readonly ColumnWeight[], queries: readonly AxialQuery[]): AxialState[] {
+  const down = [...entries].sort((a, b) => b.elevation - a.elevation);
+  const threshold = (q: AxialQuery): number => (q.includeEntriesAt ? q.elevation - SAME_ELEVATION_M : q.elevation + SAME_ELEVATION_M);
+  const order = queries.map((_, i) => i).sort((a, b) => threshold(queries[b]) - threshold(queries[a]));
+  const states: AxialState[] = new Array(queries.length);
   let sumGk = 0;
   const sumQk: CategoryValues = {};
   const loadedLevels: CategoryValues = {};
-  for (const entry of entries) {
-    if (entry.elevation < threshold) continue;
-    sumGk += entry.Gk;
-    for (const c of CATEGORIES) {
-      const Q = entry.Qk[c] ?? 0;
-      if (Q <= 0) continue;
-      sumQk[c] = (sumQk[c] ?? 0) + Q;
-      loadedLevels[c] = (loadedLevels[c] ?? 0) + 1;
+  let next = 0;
+  for (const qi of order) {
+    const limit = threshold(queries[qi]);
+    for (; next < down.length && down[next].elevation >= limit; next++) {
+      const entry = down[next];
+      sumGk += entry.Gk;
+      for (const c of CATEGORIES) {
+        const Q = entry.Qk[c] ?? 0;
+        if (Q <= 0) continue;
+        sumQk[c] = (sumQk[c] ?? 0) + Q;
+        loadedLevels[c] = (loadedLevels[c] ?? 0) + 1;
+      }
     }
+    const selfWeight = selfWeightAbove(weights, queries[qi].elevation);
+    states[qi] = { sumGk: sumGk + selfWeight, sumQk: { ...sumQk }, loadedLevels: { ...loadedLevels } };
   }
-  for (const w of weights) sumGk += w.perMetre * Math.max(0, w.top - Math.max(elevation, w.bottom));
-  return { sumGk, sumQk, loadedLevels };
+  return states;
+}
+
+/** Loads in the column at one elevation (see axialStates). */
+export function axialStateAt(entries: readonly LoadEntry[], weights: readonly ColumnWeight[], elevation: number, includeEntriesAt: boolean): AxialState {
+  return axialStates(entries, weights, [{ elevation, includeEntriesAt }])[0];
 }
 
 function categoriesOf(Qk: CategoryValues): string {
-  const present = CATEGORIES.filter((c: Category) => (Qk[c] ?? 0) > 0);
-  return present.length ? present.join('+') : '-';
+  let names = '';
+  for (const c of CATEGORIES) if ((Qk[c] ?? 0) > 0) names += names ? `+${c}` : c;
+  return names || '-';
 }
 
 /** One row per load entry, top to bottom: loads entering, totals and NEd just below the point. */
@@ -66,10 +87,16 @@ export function takeDownRows(
   options: Pick<AnalysisOptions, 'combination' | 'annex' | 'imposedReduction'>,
 ): TakeDownRow[] {
   const ordered = [...entries].sort((p, q) => q.elevation - p.elevation || (p.nodeId < q.nodeId ? -1 : 1));
-  return ordered.map((entry) => {
-    const state = axialStateAt(entries, weights, entry.elevation, true);
+  const states = axialStates(entries, weights, ordered.map((e) => ({ elevation: e.elevation, includeEntriesAt: true })));
+  return ordered.map((entry, i) => {
+    const state = states[i];
     const force = designAxialForce(state, options);
-    const Qk = CATEGORIES.reduce((sum, c) => sum + (entry.Qk[c] ?? 0), 0);
+    let Qk = 0;
+    const sumQkByCategory: Record<string, number> = {};
+    for (const c of CATEGORIES) {
+      Qk += entry.Qk[c] ?? 0;
+      if (state.sumQk[c] !== undefined) sumQkByCategory[c] = state.sumQk[c];
+    }
     return {
       nodeId: entry.nodeId,
       elevation: entry.elevation,
@@ -77,7 +104,7 @@ export function takeDownRows(
       Qk,
       category: categoriesOf(entry.Qk),
       sumGk: state.sumGk,
-      sumQkByCategory: { ...state.sumQk } as Record<string, number>,
+      sumQkByCategory,
       NEd: force.NEd,
       combination: force.combination,
     };

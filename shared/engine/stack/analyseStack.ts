@@ -1,0 +1,44 @@
+// Load take-down and member checks of one stack (SPEC §5). Pure and synchronous; never throws for
+// a bad document, which is reported through `errors` instead.
+import { DEFAULT_ANALYSIS_OPTIONS, type AnalysisOptions, type Issue, type LiftResult, type StackResult } from '../../schema/results.ts';
+import type { StackDocument } from '../../schema/stack.ts';
+import { isEngineError } from '../errors.ts';
+import { checkLift } from './checkLift.ts';
+import { allLevelElevations, type AnalysisContext } from './context.ts';
+import { inspectStack } from './inspectStack.ts';
+import { stackPieces } from './stackPieces.ts';
+import { selfWeightPerMetre, takeDownRows } from './takeDown.ts';
+
+function withErrors(errors: Issue[], warnings: Issue[]): StackResult {
+  return { errors, warnings, lifts: [], governingLiftId: null, takeDown: [] };
+}
+
+export function analyseStack(doc: StackDocument, options: Partial<AnalysisOptions> = {}, context: AnalysisContext = {}): StackResult {
+  const settings: AnalysisOptions = { ...DEFAULT_ANALYSIS_OPTIONS, ...options };
+  const { model, errors, warnings } = inspectStack(doc, context);
+  if (!model) return withErrors(errors, warnings);
+
+  // Self-weight is permanent load on the column below (SPEC §5.1)
+  const weights = model.lifts.map((l) => ({
+    bottom: l.bottom,
+    top: l.top,
+    perMetre: settings.selfWeight ? selfWeightPerMetre(l.section.massPerMetre) : 0,
+  }));
+  const pieces = stackPieces(model, weights, settings, allLevelElevations(context.levels));
+  const lifts: LiftResult[] = [];
+  const checkErrors: Issue[] = [];
+  for (const [i, lift] of model.lifts.entries()) {
+    try {
+      lifts.push(checkLift(lift, pieces[i], settings, context.sections));
+    } catch (error) {
+      if (!isEngineError(error)) throw error;
+      checkErrors.push({ nodeId: lift.id, message: `Lift ${lift.name}: ${error.message}` });
+    }
+  }
+  if (checkErrors.length) return withErrors(checkErrors, warnings);
+
+  // The governing lift is the most utilised, the lowest one on a tie (SPEC §5.6)
+  let governing: LiftResult | null = null;
+  for (const lift of lifts) if (!governing || lift.utilisation > governing.utilisation) governing = lift;
+  return { errors: [], warnings, lifts, governingLiftId: governing?.liftId ?? null, takeDown: takeDownRows(model.entries, weights, settings) };
+}

@@ -1,0 +1,54 @@
+// Checks every piece of one lift with the member check (SPEC §5.6) and keeps the lift's worst piece.
+import type { AnalysisOptions, GoverningMode, LiftResult, PieceCheck } from '../../schema/results.ts';
+import type { SectionDims } from '../../schema/stack.ts';
+import { checkCompression, type CompressionInput } from '../checkCompression.ts';
+import type { ModelLift } from './inspectStack.ts';
+import type { PieceSpan } from './stackPieces.ts';
+
+/** Per piece, the largest NEd of the lift's pieces in the same segment about one axis (SPEC §5.6). */
+function largestInSegment(pieces: readonly PieceSpan[], axis: 'segmentY' | 'segmentZ'): number[] {
+  return pieces.map((p) => pieces.reduce((max, q) => (q[axis] === p[axis] && q.NEd > max ? q.NEd : max), 0));
+}
+
+/** The member check's input in its own units: m → mm, kN → N. */
+function memberInput(lift: ModelLift, options: AnalysisOptions, LcrY: number, LcrZ: number, NEd: number): CompressionInput {
+  return { section: lift.data.section, grade: lift.data.grade, LcrY: LcrY * 1000, LcrZ: LcrZ * 1000, NEd: NEd * 1000, annex: options.annex };
+}
+
+function governingTerm(cross: number, y: number, z: number): { utilisation: number; governing: GoverningMode } {
+  if (y > cross && y >= z) return { utilisation: y, governing: 'flexural-y' };
+  if (z > cross && z > y) return { utilisation: z, governing: 'flexural-z' };
+  return { utilisation: cross, governing: 'cross-section' };
+}
+
+export function checkLift(lift: ModelLift, spans: readonly PieceSpan[], options: AnalysisOptions, sections?: ReadonlyMap<string, SectionDims>): LiftResult {
+  const NEdY = largestInSegment(spans, 'segmentY');
+  const NEdZ = largestInSegment(spans, 'segmentZ');
+  const pieces: PieceCheck[] = spans.map((span, i) => {
+    const { segmentY, segmentZ, NEd } = span;
+    const kY = lift.data.kY ?? segmentY.k;
+    const kZ = lift.data.kZ ?? segmentZ.k;
+    // Lcr = k·L over the whole segment, which may cross splices (SPEC §5.5)
+    const LcrY = kY * (segmentY.top - segmentY.bottom);
+    const LcrZ = kZ * (segmentZ.top - segmentZ.bottom);
+    const check = checkCompression(memberInput(lift, options, LcrY, LcrZ, Math.max(NEdY[i], NEdZ[i])), { steps: false, extraSections: sections });
+    // SPEC §5.6: max(NEd/Nc,Rd, NEd,y/Nb,y,Rd, NEd,z/Nb,z,Rd); the check is in N
+    const term = governingTerm((NEd * 1000) / check.NcRd, (NEdY[i] * 1000) / check.NbRdY, (NEdZ[i] * 1000) / check.NbRdZ);
+    const { utilisation, governing } = term;
+    return { from: span.from, to: span.to, NEd, NEdY: NEdY[i], NEdZ: NEdZ[i], LcrY, LcrZ, kY, kZ, utilisation, governing, check };
+  });
+
+  const worst = pieces.reduce((a, b) => (b.utilisation > a.utilisation ? b : a));
+  // The working is written out for the piece that governs the lift, the one the calculation sheet shows.
+  worst.check = checkCompression(memberInput(lift, options, worst.LcrY, worst.LcrZ, Math.max(worst.NEdY, worst.NEdZ)), { extraSections: sections });
+  return {
+    liftId: lift.id,
+    bottom: lift.bottom,
+    top: lift.top,
+    section: lift.section.designation,
+    grade: lift.data.grade,
+    utilisation: worst.utilisation,
+    governing: worst.governing,
+    pieces,
+  };
+}

@@ -1,0 +1,10 @@
+export { analyseStack } from './analyseStack.ts';
+export { analyseBuilding, type BuildingStack } from './analyseBuilding.ts';
+export { validateStack } from './validateStack.ts';
+export type { AnalysisContext, LevelElevations } from './context.ts';
+export { formatElevation } from './formatElevation.ts';
+export { bucklingLengthFactor } from './bucklingLengthFactor.ts';
+export { alphaN } from './imposedReduction.ts';
+export { GAMMA_G, GAMMA_Q, psi0, xi } from './combinationFactors.ts';
+export { designAxialForce, type AxialState, type DesignForce } from './combination.ts';
+export { selfWeightPerMetre } from './takeDown.ts';
