@@ -3,7 +3,7 @@
 import { spawn } from 'node:child_process';
 import { existsSync, readdirSync, statSync } from 'node:fs';
 import { join, resolve } from 'node:path';
-import { fileURLToPath } from 'node:url';
+import { fileURLToPath, pathToFileURL } from 'node:url';
 
 const root = fileURLToPath(new URL('..', import.meta.url));
 const CLIENT_SOURCES = ['src', 'shared', 'index.html', 'vite.config.ts', 'public'];
@@ -33,8 +33,11 @@ function buildClient(): Promise<void> {
   });
 }
 
-if (clientBuildNeeded(root)) {
-  console.log('Building the client (dist/ is missing or older than its sources)…');
-  await buildClient();
+// Run only as the entry point, so a test can import the helpers above.
+if (process.argv[1] && import.meta.url === pathToFileURL(resolve(process.argv[1])).href) {
+  if (clientBuildNeeded(root)) {
+    console.log('Building the client (dist/ is missing or older than its sources)…');
+    await buildClient();
+  }
+  await import('../server/index.ts');
 }
-await import('../server/index.ts');

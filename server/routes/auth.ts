@@ -27,7 +27,7 @@ export function registerAuthRoutes(router: Router, ctx: ServerContext): void {
 
   router.post('/auth/login', loginLimiter, async (req, res) => {
     const { email, password } = parseBody(loginBodySchema, req);
-    const user = await verifyLogin(ctx.db, email, password);
+    const user = await verifyLogin(ctx.db, email, password, ctx.config.bcryptRounds);
     const out: AuthResponse = { token: signToken(ctx.config.jwtSecret, user.id), user };
     res.json(out);
   });

@@ -54,13 +54,19 @@ export async function registerUser(db: Knex, input: NewUser, rounds: number): Pr
   });
 }
 
-// Compared against when the address is unknown, so both failures take the same time.
-const DUMMY_HASH = bcrypt.hashSync('no-such-account-placeholder', 4);
+// Compared against when the address is unknown, at the same cost as real hashes, so both failures
+// take the same time and the reply cannot tell an unknown address from a wrong password.
+const dummyHashes = new Map<number, string>();
+function dummyHash(rounds: number): string {
+  let hash = dummyHashes.get(rounds);
+  if (!hash) dummyHashes.set(rounds, (hash = bcrypt.hashSync('no-such-account-placeholder', rounds)));
+  return hash;
+}
 export const WRONG_CREDENTIALS = 'E-mail address or password is wrong';
 
-export async function verifyLogin(db: Knex, email: string, password: string): Promise<User> {
+export async function verifyLogin(db: Knex, email: string, password: string, rounds: number): Promise<User> {
   const row = await db<UserRow>('users').where({ email }).first();
-  const ok = await bcrypt.compare(password, row?.password_hash ?? DUMMY_HASH);
+  const ok = await bcrypt.compare(password, row?.password_hash ?? dummyHash(rounds));
   if (!row || !ok) throw unauthenticated(WRONG_CREDENTIALS);
   return toUser(row);
 }

@@ -1,6 +1,8 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { readFileSync, statSync } from 'node:fs';
-import { join } from 'node:path';
+import { mkdirSync, mkdtempSync, readFileSync, rmSync, statSync, utimesSync, writeFileSync } from 'node:fs';
+import { tmpdir } from 'node:os';
+import { dirname, join } from 'node:path';
+import { clientBuildNeeded } from '../../scripts/start.ts';
 import { errorCode, startTestServer, type TestServer } from './helpers.ts';
 
 describe('health and the app shell', () => {
@@ -43,5 +45,28 @@ describe('health and the app shell', () => {
     const wal = (await s.ctx.db.raw('PRAGMA journal_mode')) as { journal_mode: string }[];
     expect(fk[0].foreign_keys).toBe(1);
     expect(wal[0].journal_mode).toBe('wal');
+  });
+});
+
+describe('npm start decides when to rebuild the client', () => {
+  const root = mkdtempSync(join(tmpdir(), 'stanchion-start-'));
+  const touch = (path: string, when: Date) => {
+    mkdirSync(dirname(join(root, path)), { recursive: true });
+    writeFileSync(join(root, path), 'x');
+    utimesSync(join(root, path), when, when);
+  };
+  afterAll(() => rmSync(root, { recursive: true, force: true }));
+
+  it('builds when dist/index.html is missing, not when it is newer than every source, and again after a source changes', () => {
+    touch('src/main.ts', new Date('2025-01-01T00:00:00Z'));
+    touch('shared/engine/x.ts', new Date('2025-01-01T00:00:00Z'));
+    touch('index.html', new Date('2025-01-01T00:00:00Z'));
+    touch('vite.config.ts', new Date('2025-01-01T00:00:00Z'));
+    for (const dir of ['src', 'shared/engine', 'shared', '']) utimesSync(join(root, dir), new Date('2025-01-01T00:00:00Z'), new Date('2025-01-01T00:00:00Z'));
+    expect(clientBuildNeeded(root)).toBe(true);
+    touch('dist/index.html', new Date('2025-01-02T00:00:00Z'));
+    expect(clientBuildNeeded(root)).toBe(false);
+    touch('shared/engine/x.ts', new Date('2025-01-03T00:00:00Z'));
+    expect(clientBuildNeeded(root)).toBe(true);
   });
 });
