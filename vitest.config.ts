@@ -11,6 +11,23 @@ export default mergeConfig(
           extends: true,
           test: { name: 'server', environment: 'node', include: ['tests/server/**/*.test.ts'], testTimeout: 30_000, hookTimeout: 30_000 },
         },
+        // Issue 13: the same server tests on PostgreSQL and Redis, and the two-process suite; run by
+        // scripts/testScale.ts only when TEST_DATABASE_URL and TEST_REDIS_URL are set.
+        {
+          extends: true,
+          test: {
+            name: 'server-pg',
+            environment: 'node',
+            include: ['tests/server/**/*.test.ts'],
+            env: { STANCHION_TEST_ON_PG: '1' },
+            testTimeout: 30_000,
+            hookTimeout: 30_000,
+          },
+        },
+        {
+          extends: true,
+          test: { name: 'scale', environment: 'node', include: ['tests/scale/**/*.test.ts'], testTimeout: 60_000, hookTimeout: 60_000, fileParallelism: false },
+        },
         {
           extends: true,
           test: { name: 'client', environment: 'happy-dom', include: ['tests/client/**/*.test.ts'], setupFiles: ['tests/client/setup.ts'] },

@@ -9,6 +9,12 @@ export interface Config {
   port: number;
   dataDir: string;
   databaseUrl: string | null;
+  /** PostgreSQL schema to work in (created when missing); null uses the connection's default. */
+  databaseSchema: string | null;
+  /** Redis for Socket.IO's adapter, so several processes share live rooms (issue 13). */
+  redisUrl: string | null;
+  /** Prefix of every Redis key and channel this deployment uses. */
+  redisPrefix: string;
   jwtSecret: string;
   smtpUrl: string | null;
   mailFrom: string;
@@ -31,6 +37,9 @@ const envSchema = z.object({
   PORT: intFromEnv(3000, 0, 65535),
   DATA_DIR: z.string().min(1).default('./data'),
   DATABASE_URL: z.string().min(1).optional(),
+  DATABASE_SCHEMA: z.string().regex(/^[a-z_][a-z0-9_]{0,62}$/, 'DATABASE_SCHEMA must be a plain lower-case identifier').optional(),
+  REDIS_URL: z.string().min(1).optional(),
+  REDIS_PREFIX: z.string().min(1).max(100).default('stanchion'),
   JWT_SECRET: z.string().min(16, 'JWT_SECRET must be at least 16 characters').optional(),
   SMTP_URL: z.string().min(1).optional(),
   MAIL_FROM: z.string().min(3).default('Stanchion <no-reply@stanchion.test>'),
@@ -72,6 +81,9 @@ export function loadConfig(env: NodeJS.ProcessEnv = process.env, overrides: Conf
   return {
     port: e.PORT,
     databaseUrl: e.DATABASE_URL ?? null,
+    databaseSchema: e.DATABASE_SCHEMA ?? null,
+    redisUrl: e.REDIS_URL ?? null,
+    redisPrefix: e.REDIS_PREFIX,
     smtpUrl: e.SMTP_URL ?? null,
     mailFrom: e.MAIL_FROM,
     logLevel: e.LOG_LEVEL,

@@ -12,9 +12,14 @@ export function databaseKind(config: Pick<Config, 'databaseUrl'>): DatabaseKind 
   return config.databaseUrl ? 'postgres' : 'sqlite';
 }
 
-export function createDb(config: Pick<Config, 'databaseUrl' | 'dataDir'>): Knex {
+export function createDb(config: Pick<Config, 'databaseUrl' | 'dataDir'> & Partial<Pick<Config, 'databaseSchema'>>): Knex {
   if (config.databaseUrl) {
-    return knex({ client: 'pg', connection: config.databaseUrl, pool: { min: 0, max: 10 } });
+    return knex({
+      client: 'pg',
+      connection: config.databaseUrl,
+      ...(config.databaseSchema ? { searchPath: [config.databaseSchema] } : {}),
+      pool: { min: 0, max: 10 },
+    });
   }
   mkdirSync(config.dataDir, { recursive: true });
   return knex({
@@ -36,7 +41,18 @@ export function createDb(config: Pick<Config, 'databaseUrl' | 'dataDir'>): Knex 
 }
 
 export async function migrate(db: Knex): Promise<void> {
+  const schema = searchPathOf(db);
+  if (schema) await db.raw('CREATE SCHEMA IF NOT EXISTS ??', [schema]);
   await db.migrate.latest({ migrationSource });
+}
+
+export function isPostgres(db: Knex): boolean {
+  return db.client.config.client === 'pg';
+}
+
+function searchPathOf(db: Knex): string | null {
+  const path: unknown = db.client.config.searchPath;
+  return isPostgres(db) && Array.isArray(path) && typeof path[0] === 'string' ? path[0] : null;
 }
 
 export async function rollbackAll(db: Knex): Promise<void> {

@@ -53,7 +53,7 @@ export async function startServer(opts: StartOptions = {}): Promise<RunningServe
   const ctx: ServerContext = { db, config, mailer, broadcaster: nullBroadcaster };
   const app = createApp(ctx);
   const httpServer = createServer(app);
-  const realtime = attachRealtime(httpServer, ctx);
+  const realtime = await attachRealtime(httpServer, ctx);
   await new Promise<void>((resolve, reject) => {
     httpServer.once('error', reject);
     httpServer.listen(config.port, () => resolve());

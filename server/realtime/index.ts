@@ -2,7 +2,9 @@
 // and per building. With REDIS_URL (issue 13) rooms are shared by every server process.
 import type { Server as HttpServer } from 'node:http';
 import { Server } from 'socket.io';
-import { pino } from 'pino';
+import { createAdapter } from '@socket.io/redis-adapter';
+import { createClient } from 'redis';
+import { pino, type Logger } from 'pino';
 import type { ServerContext } from '../context.ts';
 import { HttpError } from '../errors.ts';
 import { verifyToken } from '../services/tokens.ts';
@@ -16,7 +18,19 @@ export interface Realtime {
   close(): Promise<void>;
 }
 
-export function attachRealtime(httpServer: HttpServer, ctx: ServerContext): Realtime {
+/** With REDIS_URL, rooms, presence and broadcasts are shared with every process on the same Redis. */
+async function useRedis(io: LiveServer, url: string, prefix: string, log: Logger): Promise<() => Promise<void>> {
+  const pub = createClient({ url });
+  const sub = pub.duplicate();
+  for (const c of [pub, sub]) c.on('error', (err: unknown) => log.error({ err }, 'redis connection error'));
+  await Promise.all([pub.connect(), sub.connect()]);
+  io.adapter(createAdapter(pub, sub, { key: `${prefix}#live`, requestsTimeout: 3000 }));
+  return async () => {
+    await Promise.allSettled([pub.quit(), sub.quit()]);
+  };
+}
+
+export async function attachRealtime(httpServer: HttpServer, ctx: ServerContext): Promise<Realtime> {
   const log = pino({ level: ctx.config.logLevel, name: 'live' });
   const io: LiveServer = new Server(httpServer, {
     serveClient: false,
@@ -41,11 +55,15 @@ export function attachRealtime(httpServer: HttpServer, ctx: ServerContext): Real
     }
   });
 
+  const closeRedis = ctx.config.redisUrl ? await useRedis(io, ctx.config.redisUrl, ctx.config.redisPrefix, log) : null;
   io.on('connection', (socket) => registerHandlers(ctx, io, socket, log));
   ctx.broadcaster = socketBroadcaster(io);
 
   return {
     io,
-    close: () => new Promise<void>((resolve) => void io.close(() => resolve())),
+    async close() {
+      await new Promise<void>((resolve) => void io.close(() => resolve()));
+      await closeRedis?.();
+    },
   };
 }

@@ -74,7 +74,7 @@ export interface OpsInput {
 /** Applies ops made against baseVersion; merged when nobody has touched the same nodes or edges since. */
 export async function applyOps(db: Knex, input: OpsInput): Promise<CommittedChange> {
   return db.transaction(async (trx) => {
-    const row = await loadStackRow(trx, input.stackId);
+    const row = await loadStackRow(trx, input.stackId, { lock: true });
     const doc = parseDoc(row.doc);
     const touched = touchedIds(doc, input.ops);
     await assertNoOverlap(trx, row, input.baseVersion, touched);
@@ -96,7 +96,7 @@ export async function applyOps(db: Knex, input: OpsInput): Promise<CommittedChan
 export async function replaceDoc(db: Knex, input: { stackId: number; baseVersion: number; doc: StackDocument; userId: number | null }): Promise<CommittedChange | null> {
   assertUniqueIds(input.doc);
   return db.transaction(async (trx) => {
-    const row = await loadStackRow(trx, input.stackId);
+    const row = await loadStackRow(trx, input.stackId, { lock: true });
     if (input.baseVersion !== row.version) throw conflict(`The stack is at version ${row.version}, not ${input.baseVersion}; reload and try again`, { version: row.version });
     const before = parseDoc(row.doc);
     const ops = diffDocs(before, input.doc);

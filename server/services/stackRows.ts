@@ -3,7 +3,7 @@ import type { Knex } from 'knex';
 import type { StackDetail, StackSummary } from '../../shared/schema/api.ts';
 import type { StackResult } from '../../shared/schema/results.ts';
 import { stackDocumentSchema, type StackDocument } from '../../shared/schema/stack.ts';
-import { isoTime } from '../db.ts';
+import { isoTime, isPostgres } from '../db.ts';
 import { notFound, unprocessable } from '../errors.ts';
 import type { StackStatus } from './analysis.ts';
 
@@ -22,8 +22,14 @@ export interface StackRow {
   updated_at: unknown;
 }
 
-export async function loadStackRow(db: Knex, id: number): Promise<StackRow> {
-  const row = await db<StackRow>('stacks').where({ id }).first();
+/**
+ * Reads a stack row. Inside a transaction on PostgreSQL the row is locked until commit, so writers on
+ * several processes queue instead of racing; SQLite has a single writer already.
+ */
+export async function loadStackRow(db: Knex, id: number, opts: { lock?: boolean } = {}): Promise<StackRow> {
+  const query = db<StackRow>('stacks').where({ id });
+  if (opts.lock && isPostgres(db)) query.forUpdate();
+  const row = await query.first();
   if (!row) throw notFound('Stack');
   return row;
 }

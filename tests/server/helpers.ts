@@ -2,8 +2,30 @@
 import { mkdtempSync, rmSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
+import { randomBytes } from 'node:crypto';
+import knex from 'knex';
 import type { AuthResponse, Building, Role } from '../../shared/schema/api.ts';
 import { startServer, type RunningServer, type StartOptions } from '../../server/server.ts';
+
+/**
+ * The scale-out run (issue 13) repeats every server test on PostgreSQL and Redis: vitest's 'server-pg'
+ * project sets STANCHION_TEST_ON_PG, and each test server then gets its own schema and key prefix.
+ */
+export const onPostgres = process.env.STANCHION_TEST_ON_PG === '1' && !!process.env.TEST_DATABASE_URL;
+
+export function scaleOutConfig(): { databaseUrl: string; databaseSchema: string; redisUrl: string | null; redisPrefix: string } {
+  const tag = `t_${Date.now().toString(36)}_${randomBytes(4).toString('hex')}`;
+  return { databaseUrl: process.env.TEST_DATABASE_URL!, databaseSchema: tag, redisUrl: process.env.TEST_REDIS_URL ?? null, redisPrefix: `stanchion-test:${tag}` };
+}
+
+export async function dropSchema(databaseUrl: string, schema: string): Promise<void> {
+  const db = knex({ client: 'pg', connection: databaseUrl, pool: { min: 0, max: 1 } });
+  try {
+    await db.raw('DROP SCHEMA IF EXISTS ?? CASCADE', [schema]);
+  } finally {
+    await db.destroy();
+  }
+}
 
 export interface TestServer extends RunningServer {
   dataDir: string;
@@ -21,13 +43,14 @@ export const TEST_PASSWORD = 'correct horse battery';
 
 export async function startTestServer(opts: Omit<StartOptions, 'dataDir' | 'port'> = {}): Promise<TestServer> {
   const dataDir = mkdtempSync(join(tmpdir(), 'stanchion-test-'));
+  const scale = onPostgres ? scaleOutConfig() : null;
   const server = await startServer({
     port: 0,
     dataDir,
     logLevel: 'silent',
     env: {},
     ...opts,
-    config: { bcryptRounds: 4, ...opts.config },
+    config: { bcryptRounds: 4, ...scale, ...opts.config },
   });
   const api: TestServer['api'] = async (method, path, o = {}) => {
     const headers: Record<string, string> = { ...o.headers };
@@ -53,6 +76,7 @@ export async function startTestServer(opts: Omit<StartOptions, 'dataDir' | 'port
     async close() {
       await server.close();
       rmSync(dataDir, { recursive: true, force: true });
+      if (scale) await dropSchema(scale.databaseUrl, scale.databaseSchema);
     },
   };
 }

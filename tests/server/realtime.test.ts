@@ -2,11 +2,11 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type { AuthResponse, StackSummary } from '../../shared/schema/api.ts';
 import type { Op } from '../../shared/schema/ops.ts';
-import type { StackChanged, StackJoinAck } from '../../shared/schema/socket.ts';
+import type { StackJoinAck } from '../../shared/schema/socket.ts';
 import type { StackDocument } from '../../shared/schema/stack.ts';
 import { applyOps } from '../../shared/ops/applyOps.ts';
 import { addMember, createBuilding, registerUser, startTestServer, type TestServer } from './helpers.ts';
-import { connect, next, request, type LiveClient } from './liveHelpers.ts';
+import { connect, Editor, next, prng, request, type LiveClient } from './liveHelpers.ts';
 
 let s: TestServer;
 let lead: AuthResponse;
@@ -169,81 +169,6 @@ describe('live channel: edits', () => {
     expect(byId.get(r2.id)?.data).toMatchObject({ Qk: 80 });
   });
 });
-
-/** A small deterministic PRNG (mulberry32) so a failing run can be repeated. */
-function prng(seed: number): () => number {
-  let a = seed >>> 0;
-  return () => {
-    a = (a + 0x6d2b79f5) >>> 0;
-    let t = a;
-    t = Math.imul(t ^ (t >>> 15), t | 1);
-    t ^= t + Math.imul(t ^ (t >>> 7), t | 61);
-    return ((t ^ (t >>> 14)) >>> 0) / 4294967296;
-  };
-}
-
-/** A simulated editor: keeps its own copy of the document from join + stack:changed, like the client does. */
-class Editor {
-  doc!: StackDocument;
-  version = 0;
-  acked: { version: number; ops: Op[] }[] = [];
-  conflicts = 0;
-  private added = 0;
-  constructor(
-    readonly name: string,
-    readonly socket: LiveClient,
-    readonly stackId: number,
-    readonly rand: () => number,
-  ) {
-    socket.on('stack:changed', (p: StackChanged) => {
-      if (p.stackId !== stackId || p.version <= this.version) return;
-      if (p.version !== this.version + 1) throw new Error(`${name} missed a version: had ${this.version}, got ${p.version}`);
-      this.doc = applyOps(this.doc, p.ops);
-      this.version = p.version;
-    });
-  }
-  async join(): Promise<void> {
-    const r = await request<StackJoinAck>(this.socket, 'stack:join', { stackId: this.stackId });
-    if (!r.ok) throw new Error(r.error.message);
-    if (r.data.version >= this.version) {
-      this.doc = r.data.doc;
-      this.version = r.data.version;
-    }
-  }
-  private pick<T>(xs: T[]): T {
-    return xs[Math.floor(this.rand() * xs.length)];
-  }
-  private randomOps(): Op[] {
-    const restraints = this.doc.nodes.filter((n) => n.kind === 'restraint');
-    const loads = this.doc.nodes.filter((n) => n.kind === 'load' && n.id.startsWith('ld-'));
-    const roll = this.rand();
-    if (roll < 0.35) return [{ op: 'updateNode', id: this.pick(restraints).id, data: { Gk: Math.round(50 + this.rand() * 200) } }];
-    if (roll < 0.6) {
-      const n = this.pick(this.doc.nodes);
-      return [{ op: 'moveNode', id: n.id, position: { x: Math.round(this.rand() * 400), y: Math.round(this.rand() * 400) } }];
-    }
-    if (roll < 0.85 || loads.length === 0) {
-      this.added += 1;
-      const id = `ld-${this.name}-${this.added}`;
-      const target = this.pick(restraints).id;
-      return [
-        { op: 'addNode', node: { id, kind: 'load', data: { label: `extra ${id}`, Gk: 10, Qk: 5, category: 'B' } } },
-        { op: 'addEdge', edge: { id: `e-${id}`, source: id, target } },
-      ];
-    }
-    return [{ op: 'removeNode', id: this.pick(loads).id }];
-  }
-  async edit(): Promise<void> {
-    const ops = this.randomOps();
-    const r = await request<{ version: number }>(this.socket, 'stack:edit', { stackId: this.stackId, baseVersion: this.version, ops });
-    if (r.ok) this.acked.push({ version: r.data.version, ops });
-    else if (r.error.code === 'conflict' || r.error.code === 'unprocessable') {
-      // As the client does: re-join to take the server's document, then carry on.
-      this.conflicts += 1;
-      await this.join();
-    } else throw new Error(`${this.name}: ${r.error.code} ${r.error.message}`);
-  }
-}
 
 describe('live channel: random concurrent edits', () => {
   for (const [clients, seed] of [
