@@ -44,11 +44,13 @@ export interface SectionData {
   props: SectionProperties;
   product: Product;
   grades: Record<Annex, Partial<Record<Grade, GradeData>>>;
+  /** For a building's own section: the dimensions object it was built from. */
+  own?: SectionDims;
 }
 
 const CATALOGUE_CACHE = new Map<string, SectionData>();
 const EXTRA_CACHE = new WeakMap<ReadonlyMap<string, SectionDims>, Map<string, SectionData>>();
-/** Sections given by dimensions are cached by their designation; bound the cache so it cannot grow without limit. */
+/** Sections given by dimensions are cached by their exact dimensions; the cache is bounded. */
 const MAX_CACHED_DIMS = 5000;
 const DIMS_CACHE = new Map<string, SectionData>();
 
@@ -56,28 +58,50 @@ function buildSectionData(designation: string, dims: SectionDims): SectionData {
   return { designation, dims, props: sectionProperties(dims), product: dims.make, grades: { UK: {}, EN: {} } };
 }
 
-/** Section data for a designation or dimensions, memoised. Throws EngineError for unknown or invalid sections. */
+/** Exact cache key of dimensions (the designation rounds them for display). */
+function dimsKey(d: SectionDims): string {
+  if (d.shape === 'I') return `I|${d.make}|${d.h}|${d.b}|${d.tw}|${d.tf}|${d.r}`;
+  if (d.shape === 'RHS') return `RHS|${d.make}|${d.h}|${d.b}|${d.t}`;
+  return `CHS|${d.make}|${d.d}|${d.t}`;
+}
+
+/**
+ * Section data for a designation or dimensions, memoised. A building's own sections are cached per
+ * map and re-read when the map now holds other dimensions under that name. Throws EngineError for
+ * unknown or invalid sections.
+ */
 export function sectionData(section: string | SectionDims, extra?: ReadonlyMap<string, SectionDims>): SectionData {
   if (typeof section !== 'string') {
     const { designation, dims } = resolveSection(section);
-    let data = DIMS_CACHE.get(designation);
+    const key = dimsKey(dims);
+    let data = DIMS_CACHE.get(key);
     if (!data) {
       if (DIMS_CACHE.size >= MAX_CACHED_DIMS) DIMS_CACHE.clear();
       data = buildSectionData(designation, dims);
-      DIMS_CACHE.set(designation, data);
+      DIMS_CACHE.set(key, data);
     }
     return data;
   }
-  let cache = CATALOGUE_CACHE;
   if (extra && extra.size > 0) {
-    cache = EXTRA_CACHE.get(extra) ?? new Map<string, SectionData>();
-    EXTRA_CACHE.set(extra, cache);
+    let cache = EXTRA_CACHE.get(extra);
+    if (!cache) {
+      cache = new Map<string, SectionData>();
+      EXTRA_CACHE.set(extra, cache);
+    }
+    const own = extra.get(section);
+    let data = cache.get(section);
+    if (!data || data.own !== own) {
+      const { designation, dims } = resolveSection(section, extra);
+      data = { ...buildSectionData(designation, dims), own };
+      cache.set(section, data);
+    }
+    return data;
   }
-  let data = cache.get(section);
+  let data = CATALOGUE_CACHE.get(section);
   if (!data) {
-    const { designation, dims } = resolveSection(section, extra);
+    const { designation, dims } = resolveSection(section);
     data = buildSectionData(designation, dims);
-    cache.set(section, data);
+    CATALOGUE_CACHE.set(section, data);
   }
   return data;
 }

@@ -8,7 +8,8 @@ export type Product = 'rolled' | 'welded' | 'hot-finished' | 'cold-formed';
 type Band = readonly [maxThickness: number, fy: Readonly<Partial<Record<Grade, number>>>];
 
 // EN 10025-2:2004 Table 7, minimum ReH by nominal thickness. S420 and S460 are not EN 10025-2
-// grades: their rows are the EN 10025-3 (N/NL) / EN 10025-4 (M/ML) values.
+// grades: their rows are the EN 10025-3 (N/NL) values, which above 63 mm are the lower of
+// EN 10025-3 and EN 10025-4 (M/ML), so either product is covered.
 const PLATES_AND_SECTIONS: readonly Band[] = [
   [16, { S235: 235, S275: 275, S355: 355, S420: 420, S460: 460 }],
   [40, { S235: 225, S275: 265, S355: 345, S420: 400, S460: 440 }],

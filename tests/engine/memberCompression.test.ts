@@ -229,3 +229,20 @@ describe('shared/engine/index.ts', () => {
     }
   });
 });
+
+describe('checkCompression: memoised section data stays correct', () => {
+  it("re-reads a building's own section when the map now holds other dimensions under that name", () => {
+    const sections = new Map<string, SectionDims>([['C1', { shape: 'I', make: 'welded', h: 400, b: 300, tw: 10, tf: 20, r: 0 }]]);
+    const input: CompressionInput = { section: 'C1', grade: 'S355', LcrY: 4000, LcrZ: 4000, NEd: 1e6 };
+    const before = checkCompression(input, { extraSections: sections });
+    sections.set('C1', { shape: 'I', make: 'welded', h: 400, b: 300, tw: 10, tf: 25, r: 0 });
+    const after = checkCompression(input, { extraSections: sections });
+    expect(after.A).toBeCloseTo(before.A + 2 * 300 * 5 - 10 * 10, 6);
+  });
+
+  it('keeps sections given by dimensions apart even when their designations round alike', () => {
+    const a = checkCompression({ section: { shape: 'CHS', make: 'hot-finished', d: 200, t: 8.001 }, grade: 'S355', LcrY: 3000, LcrZ: 3000, NEd: 1e5 });
+    const b = checkCompression({ section: { shape: 'CHS', make: 'hot-finished', d: 200, t: 8.004 }, grade: 'S355', LcrY: 3000, LcrZ: 3000, NEd: 1e5 });
+    expect(b.A).toBeGreaterThan(a.A);
+  });
+});
