@@ -2,11 +2,13 @@
 import { benchEngine } from './engine.ts';
 import { benchStack } from './stack.ts';
 import { benchRealtime } from './realtime.ts';
+import { benchSizing } from './sizing.ts';
 
 const benches: [string, () => Promise<void>][] = [
   ['member check (issue 3)', benchEngine],
   ['stack analysis (issue 4)', benchStack],
   ['live channel (issue 6)', benchRealtime],
+  ['sizing (issue 11)', benchSizing],
 ];
 
 const only = process.argv[2];

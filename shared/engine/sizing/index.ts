@@ -1,7 +1,7 @@
 export { sizeStack } from './sizeStack.ts';
 export { sizeBuilding, type BuildingSizing } from './sizeBuilding.ts';
 export { serialSize } from './serialSize.ts';
-export { sizingCandidates, checkableCandidates, type Candidate } from './sizingCandidates.ts';
+export { sizingCandidates, checkableCandidates, type Candidate, type GradedCandidate } from './sizingCandidates.ts';
 export { sizingModel, type SizingModel } from './sizingModel.ts';
-export { liftUtilisation, liftWeight } from './liftUtilisation.ts';
+export { liftUtilisation, liftWeight, liftForceFloor } from './liftUtilisation.ts';
 export { sizeLifts, currentUtilisations, type LiftPick, type SizingRules } from './sizeLifts.ts';

@@ -27,17 +27,18 @@ export function liftUtilisation(model: SizingModel, index: number, trial: LiftTr
   const { options } = model;
   const lift = model.lifts[index];
   const perMetre = options.selfWeight ? selfWeightPerMetre(trial.massPerMetre) : 0;
-  const NEd = lift.pieces.map((p) => {
-    const state = p.entries;
-    return designAxialForce({ sumGk: state.sumGk + perMetre * (lift.top - p.from) + weightAbove, sumQk: state.sumQk, loadedLevels: state.loadedLevels }, options).NEd;
-  });
+  const count = lift.pieces.length;
+  const NEd = new Array<number>(count);
   // The buckling check about an axis takes the largest NEd of the lift within that axis's segment (SPEC §5.6)
-  const maxY: number[] = [];
-  const maxZ: number[] = [];
-  lift.pieces.forEach((p, k) => {
-    maxY[p.groupY] = Math.max(maxY[p.groupY] ?? 0, NEd[k]);
-    maxZ[p.groupZ] = Math.max(maxZ[p.groupZ] ?? 0, NEd[k]);
-  });
+  const maxY = new Array<number>(count).fill(0);
+  const maxZ = new Array<number>(count).fill(0);
+  for (let k = 0; k < count; k++) {
+    const p = lift.pieces[k];
+    const state = p.entries;
+    NEd[k] = designAxialForce({ sumGk: state.sumGk + perMetre * (lift.top - p.from) + weightAbove, sumQk: state.sumQk, loadedLevels: state.loadedLevels }, options).NEd;
+    if (NEd[k] > maxY[p.groupY]) maxY[p.groupY] = NEd[k];
+    if (NEd[k] > maxZ[p.groupZ]) maxZ[p.groupZ] = NEd[k];
+  }
   let worst = 0;
   for (const [k, p] of lift.pieces.entries()) {
     const NEdY = maxY[p.groupY];
@@ -53,4 +54,19 @@ export function liftUtilisation(model: SizingModel, index: number, trial: LiftTr
     if (worst > limit) return worst;
   }
   return worst;
+}
+
+/**
+ * The largest design force in the lift without its own weight, kN. No section can do better than its
+ * cross-section resistance against it: NEd/Nc,Rd ≤ utilisation (EN 1993-1-1 eq. 6.9), which lets the
+ * search pass over sections that are plainly too small without a member check.
+ */
+export function liftForceFloor(model: SizingModel, index: number, weightAbove: number): number {
+  let floor = 0;
+  for (const p of model.lifts[index].pieces) {
+    const state = p.entries;
+    const NEd = designAxialForce({ sumGk: state.sumGk + weightAbove, sumQk: state.sumQk, loadedLevels: state.loadedLevels }, model.options).NEd;
+    if (NEd > floor) floor = NEd;
+  }
+  return floor;
 }

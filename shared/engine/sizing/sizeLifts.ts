@@ -11,11 +11,11 @@
 // search's pick is therefore no heavier than A's. The engine tests check this by brute force.
 import type { Grade } from '../../schema/stack.ts';
 import { isEngineError } from '../errors.ts';
-import { liftUtilisation, liftWeight } from './liftUtilisation.ts';
-import type { Candidate } from './sizingCandidates.ts';
+import { liftForceFloor, liftUtilisation, liftWeight } from './liftUtilisation.ts';
+import type { GradedCandidate } from './sizingCandidates.ts';
 import type { SizingModel } from './sizingModel.ts';
 
-export type LiftPick = { kind: 'section'; candidate: Candidate; utilisation: number } | { kind: 'none' } | { kind: 'blocked' };
+export type LiftPick = { kind: 'section'; candidate: GradedCandidate; utilisation: number } | { kind: 'none' } | { kind: 'blocked' };
 
 export interface SizingRules {
   grade: Grade;
@@ -24,14 +24,17 @@ export interface SizingRules {
 }
 
 /** One pick per lift, bottom first like model.lifts. */
-export function sizeLifts(model: SizingModel, candidates: readonly Candidate[], rules: SizingRules): LiftPick[] {
+export function sizeLifts(model: SizingModel, candidates: readonly GradedCandidate[], rules: SizingRules): LiftPick[] {
   const picks: LiftPick[] = model.lifts.map(() => ({ kind: 'blocked' }));
   let weightAbove = 0;
   let lightest = 0;
   for (let i = model.lifts.length - 1; i >= 0; i--) {
     let pick: LiftPick = { kind: 'none' };
+    // kN → N for the comparison with Aeff·fy
+    const floor = liftForceFloor(model, i, weightAbove) * 1000;
     for (const candidate of candidates) {
       if (rules.noUpwardIncrease && candidate.massPerMetre < lightest) continue;
+      if (floor > rules.target * candidate.squash) continue;
       const trial = { section: candidate.designation, grade: rules.grade, massPerMetre: candidate.massPerMetre };
       const utilisation = liftUtilisation(model, i, trial, weightAbove, rules.target);
       if (utilisation <= rules.target) {

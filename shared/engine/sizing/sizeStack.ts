@@ -3,10 +3,9 @@
 import { DEFAULT_ANALYSIS_OPTIONS, type AnalysisOptions } from '../../schema/results.ts';
 import type { LiftSizing, SizingRequest, StackSizing } from '../../schema/sizing.ts';
 import type { StackDocument } from '../../schema/stack.ts';
-import { designationKey } from '../../catalogue/index.ts';
 import { allLevelElevations, type AnalysisContext } from '../stack/context.ts';
 import { inspectStack } from '../stack/inspectStack.ts';
-import { checkableCandidates, sizingCandidates, type Candidate } from './sizingCandidates.ts';
+import { checkableCandidates, sizingCandidates, type GradedCandidate } from './sizingCandidates.ts';
 import { currentUtilisations, sizeLifts, type CurrentCheck, type LiftPick } from './sizeLifts.ts';
 import { sizingModel, type SizingModel } from './sizingModel.ts';
 import { liftMessage } from './sizingMessages.ts';
@@ -29,7 +28,7 @@ function columnMass(model: SizingModel, picks?: readonly LiftPick[]): number {
  * next at a splice. Each serial size is sized on its own; the one that sizes the most lifts, then the
  * lightest column, wins (the first in the table on a tie).
  */
-function bestPicks(model: SizingModel, candidates: readonly Candidate[], request: SizingRequest): { picks: LiftPick[]; serial: string | null } {
+function bestPicks(model: SizingModel, candidates: readonly GradedCandidate[], request: SizingRequest): { picks: LiftPick[]; serial: string | null } {
   if (!request.sameSerialSize) return { picks: sizeLifts(model, candidates, request), serial: null };
   const serials = [...new Set(candidates.map((c) => c.serial))];
   let best: { picks: LiftPick[]; serial: string | null } | null = null;
@@ -48,7 +47,8 @@ function liftRow(model: SizingModel, i: number, pick: LiftPick, now: CurrentChec
   const row = { liftId: lift.id, name: lift.name, bottom: lift.bottom, top: lift.top, before };
   if (pick.kind !== 'section') return { ...row, after: null, status: pick.kind, message: liftMessage(pick.kind, request) };
   const { candidate, utilisation } = pick;
-  const same = designationKey(candidate.designation) === designationKey(lift.designation) && request.grade === lift.data.grade;
+  // The analysis resolves catalogue sections to the catalogue's own spelling, so one comparison suffices.
+  const same = candidate.designation === lift.designation && request.grade === lift.data.grade;
   const after = { section: candidate.designation, grade: request.grade, massPerMetre: candidate.massPerMetre, utilisation };
   return { ...row, after, status: same ? 'unchanged' : 'proposed', ...(now.message ? { message: now.message } : {}) };
 }

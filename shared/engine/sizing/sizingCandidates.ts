@@ -15,6 +15,11 @@ export interface Candidate {
   massPerMetre: number;
 }
 
+/** A candidate in one grade: Aeff·fy (N), the cross-section resistance with γM0 = 1.0 (EN 1993-1-1 eq. 6.10/6.11). */
+export interface GradedCandidate extends Candidate {
+  squash: number;
+}
+
 const HE_SERIES: readonly Series[] = ['HE A', 'HE B', 'HE M'];
 const BY_SERIES = new Map<SizingSeries, readonly Candidate[]>();
 
@@ -46,14 +51,14 @@ export function sizingCandidates(series: SizingSeries, allowed?: readonly string
  * strength in the product standard at its thickness, no Table 6.2 row) cannot be shown to pass, so
  * it is never proposed.
  */
-export function checkableCandidates(candidates: readonly Candidate[], grade: Grade, annex: Annex): Candidate[] {
-  return candidates.filter((c) => {
+export function checkableCandidates(candidates: readonly Candidate[], grade: Grade, annex: Annex): GradedCandidate[] {
+  const graded: GradedCandidate[] = [];
+  for (const c of candidates) {
     try {
-      gradeData(sectionData(c.designation), grade, annex);
-      return true;
+      graded.push({ ...c, squash: gradeData(sectionData(c.designation), grade, annex).squash });
     } catch (error) {
-      if (isEngineError(error) && error.code === 'unsupported') return false;
-      throw error;
+      if (!isEngineError(error) || error.code !== 'unsupported') throw error;
     }
-  });
+  }
+  return graded;
 }

@@ -47,14 +47,15 @@ export function sizingModel(model: StackModel, options: AnalysisOptions, levelEl
   // Spans and segments exactly as the analysis cuts them; self-weight is added per candidate.
   const noWeight = model.lifts.map((l) => ({ bottom: l.bottom, top: l.top, perMetre: 0 }));
   const spans = stackPieces(model, noWeight, options, levelElevations);
+  const states = axialStates(model.entries, [], spans.flat().map((p) => ({ elevation: p.from, includeEntriesAt: false })));
+  let next = 0;
   const lifts = model.lifts.map((lift, i) => {
     const own = spans[i];
-    const states = axialStates(model.entries, [], own.map((p) => ({ elevation: p.from, includeEntriesAt: false })));
     const groupY = groupsOf(own.map((p) => p.segmentY));
     const groupZ = groupsOf(own.map((p) => p.segmentZ));
     const pieces = own.map((p, k) => ({
       from: p.from,
-      entries: states[k],
+      entries: states[next++],
       groupY: groupY[k],
       groupZ: groupZ[k],
       LcrY: (lift.data.kY ?? p.segmentY.k) * (p.segmentY.top - p.segmentY.bottom),
