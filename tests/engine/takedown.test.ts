@@ -90,4 +90,15 @@ describe('take-down', () => {
     const { model } = inspectStack(atLevel, { levels: { lv1: 4.25 } });
     expect(model!.entries.find((e) => e.nodeId === 'r1')!.elevation).toBe(4.25);
   });
+
+  it('never lets the design force drop going down when one more loaded storey lowers αn', () => {
+    // UK National Annex steps: αn = 0.6 for 10 storeys, 0.5 for 11. Eleven floors of 10 kN category A, no
+    // permanent load, eq. 6.10: below 10 floors 1.5·0.6·100 = 90; below 11 floors 1.5·0.5·110 = 82.5, less
+    // than the force above, so 90 is kept (common practice, no source).
+    const floors = Array.from({ length: 11 }, (_, i) => ({ elevation: i + 1, Qk: 10, category: 'A' as const }));
+    const tall = buildStack({ lifts: [{ top: 12 }], floors });
+    const rows = takeDownRows(entriesOf(tall), [], { combination: '6.10', annex: 'UK', imposedReduction: true });
+    expect(rows.at(-2)).toMatchObject({ nodeId: 'r2', NEd: expect.closeTo(90, 9), combination: '6.10, leading A' });
+    expect(rows.at(-1)).toMatchObject({ nodeId: 'r1', NEd: expect.closeTo(90, 9), combination: '6.10, leading A, held at the force above' });
+  });
 });

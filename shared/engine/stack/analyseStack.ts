@@ -7,7 +7,7 @@ import { checkLift } from './checkLift.ts';
 import { allLevelElevations, type AnalysisContext } from './context.ts';
 import { inspectStack } from './inspectStack.ts';
 import { stackPieces } from './stackPieces.ts';
-import { selfWeightPerMetre, takeDownRows } from './takeDown.ts';
+import { selfWeightPerMetre, takeDown } from './takeDown.ts';
 
 function withErrors(errors: Issue[], warnings: Issue[]): StackResult {
   return { errors, warnings, lifts: [], governingLiftId: null, takeDown: [] };
@@ -24,12 +24,16 @@ export function analyseStack(doc: StackDocument, options: Partial<AnalysisOption
     top: l.top,
     perMetre: settings.selfWeight ? selfWeightPerMetre(l.section.massPerMetre) : 0,
   }));
-  const pieces = stackPieces(model, weights, settings, allLevelElevations(context.levels));
+  const pieces = stackPieces(model, allLevelElevations(context.levels));
+  const { rows, sectionNEd } = takeDown(model.entries, weights, settings, pieces.flat().map((p) => p.from));
   const lifts: LiftResult[] = [];
   const checkErrors: Issue[] = [];
+  let first = 0;
   for (const [i, lift] of model.lifts.entries()) {
+    const NEd = sectionNEd.slice(first, first + pieces[i].length);
+    first += pieces[i].length;
     try {
-      lifts.push(checkLift(lift, pieces[i], settings, context.sections));
+      lifts.push(checkLift(lift, pieces[i], NEd, settings, context.sections));
     } catch (error) {
       if (!isEngineError(error)) throw error;
       checkErrors.push({ nodeId: lift.id, message: `Lift ${lift.name}: ${error.message}` });
@@ -40,5 +44,5 @@ export function analyseStack(doc: StackDocument, options: Partial<AnalysisOption
   // The governing lift is the most utilised, the lowest one on a tie (SPEC §5.6)
   let governing: LiftResult | null = null;
   for (const lift of lifts) if (!governing || lift.utilisation > governing.utilisation) governing = lift;
-  return { errors: [], warnings, lifts, governingLiftId: governing?.liftId ?? null, takeDown: takeDownRows(model.entries, weights, settings) };
+  return { errors: [], warnings, lifts, governingLiftId: governing?.liftId ?? null, takeDown: rows };
 }

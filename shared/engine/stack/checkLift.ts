@@ -6,8 +6,8 @@ import type { ModelLift } from './inspectStack.ts';
 import type { PieceSpan } from './stackPieces.ts';
 
 /** Per piece, the largest NEd of the lift's pieces in the same segment about one axis (SPEC §5.6). */
-function largestInSegment(pieces: readonly PieceSpan[], axis: 'segmentY' | 'segmentZ'): number[] {
-  return pieces.map((p) => pieces.reduce((max, q) => (q[axis] === p[axis] && q.NEd > max ? q.NEd : max), 0));
+function largestInSegment(pieces: readonly PieceSpan[], NEd: readonly number[], axis: 'segmentY' | 'segmentZ'): number[] {
+  return pieces.map((p) => pieces.reduce((max, q, j) => (q[axis] === p[axis] && NEd[j] > max ? NEd[j] : max), 0));
 }
 
 /** The member check's input in its own units: m → mm, kN → N. */
@@ -21,11 +21,19 @@ function governingTerm(cross: number, y: number, z: number): { utilisation: numb
   return { utilisation: cross, governing: 'cross-section' };
 }
 
-export function checkLift(lift: ModelLift, spans: readonly PieceSpan[], options: AnalysisOptions, sections?: ReadonlyMap<string, SectionDims>): LiftResult {
-  const NEdY = largestInSegment(spans, 'segmentY');
-  const NEdZ = largestInSegment(spans, 'segmentZ');
+/** `NEdAtBottom`: the design force at the bottom of each piece, kN. */
+export function checkLift(
+  lift: ModelLift,
+  spans: readonly PieceSpan[],
+  NEdAtBottom: readonly number[],
+  options: AnalysisOptions,
+  sections?: ReadonlyMap<string, SectionDims>,
+): LiftResult {
+  const NEdY = largestInSegment(spans, NEdAtBottom, 'segmentY');
+  const NEdZ = largestInSegment(spans, NEdAtBottom, 'segmentZ');
   const pieces: PieceCheck[] = spans.map((span, i) => {
-    const { segmentY, segmentZ, NEd } = span;
+    const { segmentY, segmentZ } = span;
+    const NEd = NEdAtBottom[i];
     const kY = lift.data.kY ?? segmentY.k;
     const kZ = lift.data.kZ ?? segmentZ.k;
     // Lcr = k·L over the whole segment, which may cross splices (SPEC §5.5)

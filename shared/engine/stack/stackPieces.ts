@@ -1,18 +1,13 @@
 // Pieces of every lift (SPEC §5.6): each lift cut at every restraint, splice and level elevation,
 // with the design force at each piece's bottom and the segment it lies in about each axis.
-import type { AnalysisOptions } from '../../schema/results.ts';
-import { designAxialForce } from './combination.ts';
 import { SAME_ELEVATION_M } from './context.ts';
 import { cutElevations } from './cutLift.ts';
 import type { StackModel } from './inspectStack.ts';
 import type { Segment } from './segments.ts';
-import { axialStates, type ColumnWeight } from './takeDown.ts';
 
 export interface PieceSpan {
   from: number;
   to: number;
-  /** Design axial force at the piece's bottom, kN. */
-  NEd: number;
   segmentY: Segment;
   segmentZ: Segment;
 }
@@ -27,22 +22,17 @@ function segmentsOf(pieces: readonly { from: number; to: number }[], segments: r
   });
 }
 
-export function stackPieces(
-  model: StackModel,
-  weights: readonly ColumnWeight[],
-  options: AnalysisOptions,
-  levelElevations: readonly number[],
-): PieceSpan[][] {
+/** Every lift's pieces, bottom to top. */
+export function stackPieces(model: StackModel, levelElevations: readonly number[]): PieceSpan[][] {
   const bottom = model.lifts[0].bottom;
   const top = model.lifts[model.lifts.length - 1].top;
   const inside = [...model.restraints.map((r) => r.elevation), ...model.lifts.map((l) => l.top), ...levelElevations];
   const cuts = cutElevations(bottom, top, inside);
   const spans = cuts.slice(1).map((to, i) => ({ from: cuts[i], to }));
-  const states = axialStates(model.entries, weights, spans.map((p) => ({ elevation: p.from, includeEntriesAt: false })));
   const segY = segmentsOf(spans, model.segments.y);
   const segZ = segmentsOf(spans, model.segments.z);
   // Fields written out: an object spread here costs more than the rest of the take-down.
-  const pieces = spans.map((span, i) => ({ from: span.from, to: span.to, NEd: designAxialForce(states[i], options).NEd, segmentY: segY[i], segmentZ: segZ[i] }));
+  const pieces = spans.map((span, i) => ({ from: span.from, to: span.to, segmentY: segY[i], segmentZ: segZ[i] }));
   // Lift ends are cuts, so the pieces of consecutive lifts are consecutive runs of the list.
   let next = 0;
   return model.lifts.map((lift) => {

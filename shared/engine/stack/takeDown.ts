@@ -3,7 +3,7 @@
 import type { AnalysisOptions, TakeDownRow } from '../../schema/results.ts';
 import type { Category } from '../../schema/stack.ts';
 import { CATEGORIES } from './combinationFactors.ts';
-import { designAxialForce, type AxialState, type CategoryValues } from './combination.ts';
+import { designAxialForce, type AxialState, type CategoryValues, type DesignForce } from './combination.ts';
 import { SAME_ELEVATION_M } from './context.ts';
 
 /** A point where load enters the column: a restraint or the cap, with the load nodes attached to it (kN). */
@@ -80,33 +80,66 @@ function categoriesOf(Qk: CategoryValues): string {
   return names || '-';
 }
 
-/** One row per load entry, top to bottom: loads entering, totals and NEd just below the point. */
-export function takeDownRows(
-  entries: readonly LoadEntry[],
-  weights: readonly ColumnWeight[],
-  options: Pick<AnalysisOptions, 'combination' | 'annex' | 'imposedReduction'>,
-): TakeDownRow[] {
+type CombinationOptions = Pick<AnalysisOptions, 'combination' | 'annex' | 'imposedReduction'>;
+
+/**
+ * Design forces at the queried sections, never less than at any section above. The force in a column
+ * below a floor is the force above plus what the floor adds, so where αn (EN 1991-1-1 6.3.1.2(11))
+ * would give less, because one more loaded storey lowers αn on the whole leading load, the force
+ * from above is kept (common practice, no source: the UK steps do this between 10 and 11 storeys).
+ */
+function designForces(states: readonly AxialState[], queries: readonly AxialQuery[], options: CombinationOptions): DesignForce[] {
+  const forces = states.map((state) => designAxialForce(state, options));
+  const depth = (q: AxialQuery): number => -q.elevation + (q.includeEntriesAt ? SAME_ELEVATION_M : -SAME_ELEVATION_M);
+  const order = queries.map((_, i) => i).sort((a, b) => depth(queries[a]) - depth(queries[b]));
+  let above: DesignForce | null = null;
+  for (const i of order) {
+    if (above && forces[i].NEd < above.NEd) forces[i] = { NEd: above.NEd, leading: above.leading, combination: `${above.combination}, held at the force above` };
+    above = forces[i];
+  }
+  return forces;
+}
+
+function takeDownRow(entry: LoadEntry, state: AxialState, force: DesignForce): TakeDownRow {
+  let Qk = 0;
+  const sumQkByCategory: Record<string, number> = {};
+  for (const c of CATEGORIES) {
+    Qk += entry.Qk[c] ?? 0;
+    if (state.sumQk[c] !== undefined) sumQkByCategory[c] = state.sumQk[c];
+  }
+  return {
+    nodeId: entry.nodeId,
+    elevation: entry.elevation,
+    Gk: entry.Gk,
+    Qk,
+    category: categoriesOf(entry.Qk),
+    sumGk: state.sumGk,
+    sumQkByCategory,
+    NEd: force.NEd,
+    combination: force.combination,
+  };
+}
+
+export interface TakeDown {
+  /** One row per load entry, top to bottom: loads entering, totals and NEd just below the point. */
+  rows: TakeDownRow[];
+  /** NEd just above each of `sections` (the bottoms of pieces), kN. */
+  sectionNEd: number[];
+}
+
+/** The take-down of a stack, and the design force at further sections, all from one sweep. */
+export function takeDown(entries: readonly LoadEntry[], weights: readonly ColumnWeight[], options: CombinationOptions, sections: readonly number[] = []): TakeDown {
   const ordered = [...entries].sort((p, q) => q.elevation - p.elevation || (p.nodeId < q.nodeId ? -1 : 1));
-  const states = axialStates(entries, weights, ordered.map((e) => ({ elevation: e.elevation, includeEntriesAt: true })));
-  return ordered.map((entry, i) => {
-    const state = states[i];
-    const force = designAxialForce(state, options);
-    let Qk = 0;
-    const sumQkByCategory: Record<string, number> = {};
-    for (const c of CATEGORIES) {
-      Qk += entry.Qk[c] ?? 0;
-      if (state.sumQk[c] !== undefined) sumQkByCategory[c] = state.sumQk[c];
-    }
-    return {
-      nodeId: entry.nodeId,
-      elevation: entry.elevation,
-      Gk: entry.Gk,
-      Qk,
-      category: categoriesOf(entry.Qk),
-      sumGk: state.sumGk,
-      sumQkByCategory,
-      NEd: force.NEd,
-      combination: force.combination,
-    };
-  });
+  const queries: AxialQuery[] = ordered.map((e) => ({ elevation: e.elevation, includeEntriesAt: true }));
+  for (const elevation of sections) queries.push({ elevation, includeEntriesAt: false });
+  const states = axialStates(entries, weights, queries);
+  const forces = designForces(states, queries, options);
+  return {
+    rows: ordered.map((entry, i) => takeDownRow(entry, states[i], forces[i])),
+    sectionNEd: forces.slice(ordered.length).map((f) => f.NEd),
+  };
+}
+
+export function takeDownRows(entries: readonly LoadEntry[], weights: readonly ColumnWeight[], options: CombinationOptions): TakeDownRow[] {
+  return takeDown(entries, weights, options).rows;
 }
