@@ -32,6 +32,10 @@ function pushAxisSteps(out: CalcStep[], axis: 'y' | 'z', Lcr: number, Ncr: numbe
   );
 }
 
+// EN 1993-1-1 6.1(1) Note 2B: recommended γM0 = γM1 = 1.0 (also the UK National Annex values)
+const GAMMA_M0_1: CalcStep = Object.freeze({ symbol: 'γM0', value: 1, unit: '', clause: 'EN 1993-1-1 6.1(1)' });
+const GAMMA_M1_1: CalcStep = Object.freeze({ symbol: 'γM1', value: 1, unit: '', clause: 'EN 1993-1-1 6.1(1)' });
+
 const GOVERNED_BY = { 'cross-section': 'governed by cross-section', 'flexural-y': 'governed by flexural-y', 'flexural-z': 'governed by flexural-z' } as const;
 
 /** The section working followed by the length- and load-dependent working of one check. */
@@ -39,8 +43,8 @@ export function memberSteps(g: GradeData, res: CompressionResult, input: MemberI
   const class4 = res.sectionClass === 4;
   const out = g.steps.slice();
   out.push(
-    { symbol: 'γM0', value: input.gammaM0, unit: '', clause: 'EN 1993-1-1 6.1(1)' },
-    { symbol: 'γM1', value: input.gammaM1, unit: '', clause: 'EN 1993-1-1 6.1(1)' },
+    input.gammaM0 === 1 ? GAMMA_M0_1 : { symbol: 'γM0', value: input.gammaM0, unit: '', clause: 'EN 1993-1-1 6.1(1)' },
+    input.gammaM1 === 1 ? GAMMA_M1_1 : { symbol: 'γM1', value: input.gammaM1, unit: '', clause: 'EN 1993-1-1 6.1(1)' },
     { symbol: 'Nc,Rd', value: res.NcRd, unit: 'N', clause: class4 ? 'EN 1993-1-1 eq. 6.11' : 'EN 1993-1-1 eq. 6.10' },
   );
   pushAxisSteps(out, 'y', input.LcrY, res.NcrY, res.lambdaBarY, g.alphaY, res.chiY, res.NbRdY, input.NEd, class4);

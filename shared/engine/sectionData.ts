@@ -135,7 +135,8 @@ export function gradeData(data: SectionData, grade: Grade, annex: Annex): GradeD
     piEIy: Math.PI * Math.PI * E_STEEL * data.props.Iy,
     piEIz: Math.PI * Math.PI * E_STEEL * data.props.Iz,
   };
-  const result: GradeData = Object.assign(partial, { steps: sectionSteps(data, partial) });
+  // The section working is shared by every result of this section: frozen so that no caller can alter it
+  const result: GradeData = Object.assign(partial, { steps: sectionSteps(data, partial).map((s) => Object.freeze(s)) });
   data.grades[annex][grade] = result;
   return result;
 }
