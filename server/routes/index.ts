@@ -4,7 +4,9 @@ import type { ServerContext } from '../context.ts';
 import { registerAuthRoutes } from './auth.ts';
 import { registerBuildingRoutes } from './buildings.ts';
 import { registerDevRoutes } from './dev.ts';
+import { registerExportRoutes } from './exports.ts';
 import { registerHealthRoutes } from './health.ts';
+import { registerImportRoutes } from './imports.ts';
 import { registerLevelRoutes } from './levels.ts';
 import { registerSectionRoutes } from './sections.ts';
 import { registerStackRoutes } from './stacks.ts';
@@ -17,6 +19,8 @@ export function createApiRouter(ctx: ServerContext): Router {
   registerLevelRoutes(router, ctx);
   registerStackRoutes(router, ctx);
   registerSectionRoutes(router, ctx);
+  registerImportRoutes(router, ctx);
+  registerExportRoutes(router, ctx);
   registerDevRoutes(router, ctx);
   return router;
 }

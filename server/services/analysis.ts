@@ -3,23 +3,26 @@
 import type { Knex } from 'knex';
 import { analyseStack } from '../../shared/engine/index.ts';
 import type { AnalysisOptions, StackResult } from '../../shared/schema/results.ts';
-import type { StackDocument } from '../../shared/schema/stack.ts';
+import type { SectionDims, StackDocument } from '../../shared/schema/stack.ts';
 import { getBuildingOptions } from './buildings.ts';
+import { companySectionMap } from './companySections.ts';
 
 export interface AnalysisInputs {
   options: AnalysisOptions;
   /** levelId (as a string) → elevation, m */
   levels: Map<string, number>;
+  /** The building's own sections by designation (issue 9). */
+  sections: Map<string, SectionDims>;
 }
 
 export async function analysisInputs(db: Knex, buildingId: number): Promise<AnalysisInputs> {
   const options = await getBuildingOptions(db, buildingId);
   const rows = await db('levels').where({ building_id: buildingId }).select<{ id: number; elevation: number }[]>('id', 'elevation');
-  return { options, levels: new Map(rows.map((r) => [String(r.id), Number(r.elevation)])) };
+  return { options, levels: new Map(rows.map((r) => [String(r.id), Number(r.elevation)])), sections: await companySectionMap(db, buildingId) };
 }
 
 export function analyse(doc: StackDocument, inputs: AnalysisInputs): StackResult {
-  return analyseStack(doc, inputs.options, { levels: inputs.levels });
+  return analyseStack(doc, inputs.options, { levels: inputs.levels, sections: inputs.sections });
 }
 
 export type StackStatus = 'passes' | 'fails' | 'errors';

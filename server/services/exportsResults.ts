@@ -1,0 +1,70 @@
+// Results as rows for download (issue 9): one row per lift, its governing piece's figures in kN and m,
+// read from the stored results of each stack's current version (never recomputed here).
+import type { Knex } from 'knex';
+import type { LiftResult, PieceCheck } from '../../shared/schema/results.ts';
+import { loadStackRow, parseResults, type StackRow } from './stackRows.ts';
+
+/** SPEC §9: every copy of the results carries this. */
+export const RESULTS_NOTE =
+  'Stanchion results are a design aid. The design must be checked by a competent engineer against the National Annex and the regulations in force where the building is. Braced (non-sway) frames only.';
+
+/** Header of each column, with its unit. */
+export const RESULT_COLUMNS = [
+  'stack', 'version', 'lift', 'bottom_m', 'top_m', 'section', 'grade', 'section_class',
+  'NEd_kN', 'Lcr_y_m', 'Lcr_z_m', 'Nc_Rd_kN', 'Nb_y_Rd_kN', 'Nb_z_Rd_kN', 'utilisation', 'governing_check', 'status', 'governing_lift', 'note',
+] as const;
+export type ResultColumn = (typeof RESULT_COLUMNS)[number];
+export type ResultRow = Partial<Record<ResultColumn, string | number>>;
+
+const round = (n: number, places: number): number => Number(n.toFixed(places));
+const kN = (newtons: number): number => round(newtons / 1000, 2);
+
+/** The piece that sets the lift's utilisation (the lowest one on a tie). */
+const governingPiece = (lift: LiftResult): PieceCheck | undefined =>
+  lift.pieces.reduce<PieceCheck | undefined>((worst, p) => (!worst || p.utilisation > worst.utilisation ? p : worst), undefined);
+
+export function stackResultRows(row: StackRow): ResultRow[] {
+  const results = parseResults(row.results);
+  const base = { stack: row.name, version: row.version };
+  if (results.errors.length > 0) {
+    return [{ ...base, status: 'errors', note: results.errors.map((e) => e.message).join('; ') }];
+  }
+  if (results.lifts.length === 0) return [{ ...base, status: 'errors', note: 'The stack has no lifts' }];
+  return results.lifts.map((lift) => {
+    const p = governingPiece(lift);
+    const c = p?.check;
+    return {
+      ...base,
+      lift: lift.liftId,
+      bottom_m: round(lift.bottom, 3),
+      top_m: round(lift.top, 3),
+      section: lift.section,
+      grade: lift.grade,
+      section_class: c?.sectionClass,
+      NEd_kN: p ? round(Math.max(p.NEdY, p.NEdZ), 2) : undefined,
+      Lcr_y_m: p ? round(p.LcrY, 3) : undefined,
+      Lcr_z_m: p ? round(p.LcrZ, 3) : undefined,
+      Nc_Rd_kN: c ? kN(c.NcRd) : undefined,
+      Nb_y_Rd_kN: c ? kN(c.NbRdY) : undefined,
+      Nb_z_Rd_kN: c ? kN(c.NbRdZ) : undefined,
+      utilisation: round(lift.utilisation, 3),
+      governing_check: lift.governing,
+      // EN 1993-1-1 6.3.1.1(1): NEd / Nb,Rd ≤ 1.0
+      status: lift.utilisation <= 1 ? 'passes' : 'fails',
+      governing_lift: lift.liftId === results.governingLiftId ? 'yes' : 'no',
+    };
+  });
+}
+
+const byName = (a: StackRow, b: StackRow) => a.name.localeCompare(b.name, 'en', { numeric: true, sensitivity: 'base' }) || a.id - b.id;
+
+export async function stackResults(db: Knex, stackId: number): Promise<{ name: string; rows: ResultRow[] }> {
+  const row = await loadStackRow(db, stackId);
+  return { name: row.name, rows: stackResultRows(row) };
+}
+
+export async function buildingResults(db: Knex, buildingId: number): Promise<{ name: string; rows: ResultRow[] }> {
+  const building = await db('buildings').where({ id: buildingId }).first<{ name: string }>('name');
+  const stacks = await db<StackRow>('stacks').where({ building_id: buildingId });
+  return { name: building.name, rows: stacks.sort(byName).flatMap(stackResultRows) };
+}

@@ -1,0 +1,139 @@
+// Reads an uploaded CSV file into rows keyed by column, or says by line what is wrong with it.
+// Everything a user can get wrong becomes a problem with a row number; nothing here throws for bad input.
+import { createHash } from 'node:crypto';
+import { CsvError, parse } from 'csv-parse/sync';
+import { MAX_IMPORT_ROWS, type ImportProblem } from '../../shared/schema/imports.ts';
+
+export interface CsvRow {
+  /** Line of the file the row ends on (the header is line 1). */
+  line: number;
+  cells: Record<string, string>;
+}
+
+export type CsvRead = { ok: true; rows: CsvRow[] } | { ok: false; problems: ImportProblem[] };
+
+export const fileHash = (buf: Buffer): string => createHash('sha256').update(buf).digest('hex');
+
+const lineOfOffset = (buf: Buffer, offset: number): number => {
+  let line = 1;
+  for (let i = 0; i < offset; i += 1) if (buf[i] === 0x0a) line += 1;
+  return line;
+};
+
+/** The text of the file, or the line where it stops being UTF-8 text. */
+function decodeText(buf: Buffer): { text: string } | { problem: ImportProblem } {
+  const nul = buf.indexOf(0);
+  if (nul >= 0) {
+    return { problem: { row: lineOfOffset(buf, nul), column: null, message: 'The file holds binary data, not text; save it as CSV (comma-separated values) and try again' } };
+  }
+  const decoder = new TextDecoder('utf-8', { fatal: true });
+  try {
+    return { text: decoder.decode(buf) };
+  } catch {
+    // Find the first line that is not UTF-8, so the message can point at it.
+    let start = 0;
+    let line = 1;
+    while (start < buf.length) {
+      const end = buf.indexOf(0x0a, start);
+      const stop = end < 0 ? buf.length : end;
+      try {
+        decoder.decode(buf.subarray(start, stop));
+      } catch {
+        return { problem: { row: line, column: null, message: 'This line is not UTF-8 text; save the file as CSV UTF-8 and try again' } };
+      }
+      start = stop + 1;
+      line += 1;
+    }
+    return { problem: { row: 1, column: null, message: 'The file is not UTF-8 text' } };
+  }
+}
+
+const OTHER_SEPARATORS: ReadonlyArray<readonly [string, string]> = [
+  [';', 'semicolons'],
+  ['\t', 'tabs'],
+  ['|', 'vertical bars'],
+];
+
+function headerProblems(header: string[], columns: readonly string[], required: readonly string[]): ImportProblem[] {
+  const expected = columns.join(',');
+  if (header.length === 1) {
+    for (const [sep, name] of OTHER_SEPARATORS) {
+      if (header[0]!.includes(sep)) return [{ row: 1, column: null, message: `The columns are separated by ${name}; separate them by commas: ${expected}` }];
+    }
+  }
+  const problems: ImportProblem[] = [];
+  const seen = new Set<string>();
+  for (const name of header) {
+    const known = columns.find((c) => c.toLowerCase() === name.toLowerCase());
+    if (!known) problems.push({ row: 1, column: name, message: `Unknown column "${name}"; the columns are ${expected}` });
+    else if (seen.has(known)) problems.push({ row: 1, column: known, message: `Column ${known} appears twice` });
+    else seen.add(known);
+  }
+  for (const name of required) if (!seen.has(name)) problems.push({ row: 1, column: name, message: `Column ${name} is missing; the columns are ${expected}` });
+  return problems;
+}
+
+/**
+ * Parses the file: UTF-8 text, comma-separated, a header row naming `columns` (any order, any case),
+ * at least the `required` ones, then at most MAX_IMPORT_ROWS data rows of the header's width.
+ */
+export function readCsv(buf: Buffer, columns: readonly string[], required: readonly string[] = columns): CsvRead {
+  const expected = columns.join(',');
+  const decoded = decodeText(buf);
+  if ('problem' in decoded) return { ok: false, problems: [decoded.problem] };
+  if (decoded.text.replace(/^\uFEFF/, '').trim() === '') {
+    return { ok: false, problems: [{ row: 1, column: null, message: `The file is empty; it needs a header row (${expected}) and one row per entry` }] };
+  }
+
+  let records: { info: { lines: number }; record: string[] }[];
+  try {
+    // With info: true each record comes as { info, record }; the typings only know plain rows.
+    records = parse(decoded.text, { bom: true, info: true, trim: true, skip_empty_lines: true, relax_column_count: true }) as unknown as typeof records;
+  } catch (e) {
+    if (e instanceof CsvError) {
+      const line = typeof (e as CsvError & { lines?: unknown }).lines === 'number' ? (e as CsvError & { lines: number }).lines : 1;
+      return { ok: false, problems: [{ row: line, column: null, message: `The file cannot be read as CSV here: ${e.message.replace(/^Invalid [^:]*: /, '')}` }] };
+    }
+    throw e;
+  }
+
+  const [head, ...data] = records;
+  const header = head!.record;
+  const problems = headerProblems(header, columns, required);
+  if (problems.length > 0) return { ok: false, problems };
+  if (data.length === 0) return { ok: false, problems: [{ row: 2, column: null, message: 'The file has a header but no rows' }] };
+  if (data.length > MAX_IMPORT_ROWS) {
+    return { ok: false, problems: [{ row: MAX_IMPORT_ROWS + 2, column: null, message: `The file has ${data.length} rows; at most ${MAX_IMPORT_ROWS} can be imported at once` }] };
+  }
+
+  const names = header.map((h) => columns.find((c) => c.toLowerCase() === h.toLowerCase())!);
+  const rows: CsvRow[] = [];
+  for (const { info, record } of data) {
+    if (record.length !== names.length) {
+      problems.push({ row: info.lines, column: null, message: `This row has ${record.length} values; the header has ${names.length}` });
+      continue;
+    }
+    const cells: Record<string, string> = {};
+    names.forEach((name, i) => (cells[name] = record[i]!));
+    rows.push({ line: info.lines, cells });
+  }
+  return problems.length > 0 ? { ok: false, problems } : { ok: true, rows };
+}
+
+const NUMBER = /^[+-]?(\d+(\.\d*)?|\.\d+)([eE][+-]?\d+)?$/;
+
+/** A number cell in [min, max], or the problem with it. */
+export function numberCell(row: CsvRow, column: string, unit: string, min: number, max: number, problems: ImportProblem[]): number | null {
+  const text = row.cells[column] ?? '';
+  const fail = (message: string) => {
+    problems.push({ row: row.line, column, message });
+    return null;
+  };
+  if (text === '') return fail(`${column} is empty`);
+  if (!NUMBER.test(text)) return fail(`"${text}" is not a number (use a point for decimals, e.g. 12.5)`);
+  const value = Number(text);
+  if (!Number.isFinite(value)) return fail(`"${text}" is not a finite number`);
+  if (value < min) return fail(min === 0 ? `${column} must not be negative` : `${column} must be at least ${min} ${unit}`);
+  if (value > max) return fail(`${column} must be at most ${max} ${unit}`);
+  return value;
+}
