@@ -71,6 +71,17 @@ const MATRIX: Record<string, Case> = {
   'PATCH /api/stacks/:id': { path: (f) => `/stacks/${f.stackId}`, body: () => ({ name: 'Renamed' }), expect: edit(200) },
   'DELETE /api/stacks/:id': { path: (f) => `/stacks/${f.stackId}`, expect: leadOnly(204) },
   'GET /api/sections': { path: () => '/sections?q=UKC', expect: signedIn(200) },
+  // Uploads take a multipart file; the JSON body sent here reaches the handler only to be refused (400).
+  'POST /api/buildings/:id/imports/loads': { path: (f) => `/buildings/${f.buildingId}/imports/loads`, body: () => ({}), expect: edit(400) },
+  'POST /api/buildings/:id/imports/loads/apply': { path: (f) => `/buildings/${f.buildingId}/imports/loads/apply`, body: () => ({}), expect: edit(400) },
+  'POST /api/buildings/:id/imports/sections': { path: (f) => `/buildings/${f.buildingId}/imports/sections`, body: () => ({}), expect: edit(400) },
+  'POST /api/buildings/:id/imports/sections/apply': { path: (f) => `/buildings/${f.buildingId}/imports/sections/apply`, body: () => ({}), expect: edit(400) },
+  'GET /api/buildings/:id/sections': { path: (f) => `/buildings/${f.buildingId}/sections`, expect: read },
+  'GET /api/buildings/:id/imports/loads/template.csv': { path: (f) => `/buildings/${f.buildingId}/imports/loads/template.csv`, expect: read },
+  'GET /api/buildings/:id/results.csv': { path: (f) => `/buildings/${f.buildingId}/results.csv`, expect: read },
+  'GET /api/buildings/:id/results.xlsx': { path: (f) => `/buildings/${f.buildingId}/results.xlsx`, expect: read },
+  'GET /api/stacks/:id/results.csv': { path: (f) => `/stacks/${f.stackId}/results.csv`, expect: read },
+  'GET /api/stacks/:id/results.xlsx': { path: (f) => `/stacks/${f.stackId}/results.xlsx`, expect: read },
   'GET /api/dev/outbox': { path: () => '/dev/outbox', expect: adminOnly },
   'GET /api/dev/outbox/:id/attachments/:n': { path: (f) => `/dev/outbox/${f.outboxId}/attachments/0`, expect: adminOnly },
 };
