@@ -101,4 +101,19 @@ describe('take-down', () => {
     expect(rows.at(-2)).toMatchObject({ nodeId: 'r2', NEd: expect.closeTo(90, 9), combination: '6.10, leading A' });
     expect(rows.at(-1)).toMatchObject({ nodeId: 'r1', NEd: expect.closeTo(90, 9), combination: '6.10, leading A, held at the force above' });
   });
+
+  it('lowers the force below a floor when imposed load is added to an unloaded floor, because αn counts loaded storeys', () => {
+    // EN 1991-1-1 6.3.1.2(11) with the UK National Annex steps, eq. 6.10, category A, no permanent load.
+    // Floors at +4.000 (100 kN) and +12.000 (100 kN); +8.000 unloaded: below +4.000, n = 2:
+    //   1.5·0.9·200 = 270. With 1 kN at +8.000, n = 3: 1.5·0.8·201 = 241.2 (the floors above give at most 150)
+    const floors = (middle: number) => [
+      { elevation: 4, Qk: 100 },
+      { elevation: 8, Qk: middle },
+      { elevation: 12, Qk: 100 },
+    ];
+    const opts = { combination: '6.10', annex: 'UK', imposedReduction: true } as const;
+    const bottom = (middle: number) => takeDownRows(entriesOf(buildStack({ lifts: [{ top: 16 }], floors: floors(middle) })), [], opts).at(-1)!.NEd;
+    expect(bottom(0)).toBeCloseTo(270, 9);
+    expect(bottom(1)).toBeCloseTo(241.2, 9);
+  });
 });
