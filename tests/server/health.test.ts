@@ -3,6 +3,8 @@ import { mkdirSync, mkdtempSync, readFileSync, rmSync, statSync, utimesSync, wri
 import { tmpdir } from 'node:os';
 import { dirname, join } from 'node:path';
 import { clientBuildNeeded } from '../../scripts/start.ts';
+import { DEMO_BUILDING, DEMO_PASSWORD, DEMO_STACKS, seedDemoIfEmpty } from '../../seeds/demo.ts';
+import type { AuthResponse, BuildingSummary, StackSummary } from '../../shared/schema/api.ts';
 import { errorCode, onPostgres, startTestServer, type TestServer } from './helpers.ts';
 
 describe('health and the app shell', () => {
@@ -68,5 +70,78 @@ describe('npm start decides when to rebuild the client', () => {
     expect(clientBuildNeeded(root)).toBe(false);
     touch('shared/engine/x.ts', new Date('2025-01-03T00:00:00Z'));
     expect(clientBuildNeeded(root)).toBe(true);
+  });
+});
+
+describe('serving the built client', () => {
+  let s: TestServer;
+  const dist = mkdtempSync(join(tmpdir(), 'stanchion-dist-'));
+  beforeAll(async () => {
+    mkdirSync(join(dist, 'assets'));
+    writeFileSync(join(dist, 'index.html'), '<!doctype html><title>client shell</title>');
+    writeFileSync(join(dist, 'assets', 'main-abc123.js'), 'console.log(1)');
+    s = await startTestServer({ config: { distDir: dist } });
+  });
+  afterAll(async () => {
+    await s?.close();
+    rmSync(dist, { recursive: true, force: true });
+  });
+
+  it('answers a client route with index.html, not cached', async () => {
+    const res = await fetch(`${s.url}/buildings/12/stacks/3`);
+    expect(res.status).toBe(200);
+    expect(await res.text()).toContain('client shell');
+    expect(res.headers.get('cache-control')).toBe('no-cache');
+  });
+
+  it('serves hashed assets with a one-year immutable cache', async () => {
+    const res = await fetch(`${s.url}/assets/main-abc123.js`);
+    expect(res.status).toBe(200);
+    expect(res.headers.get('cache-control')).toBe('public, max-age=31536000, immutable');
+  });
+
+  it('still answers unknown /api routes with JSON, never the client shell', async () => {
+    const r = await s.api('GET', '/buildings/1/nothing-here');
+    expect(r.status).toBe(404);
+    expect(errorCode(r.body)).toBe('not_found');
+  });
+});
+
+describe('first start with the demo seed', () => {
+  let s: TestServer;
+  beforeAll(async () => {
+    s = await startTestServer({ seed: true });
+  });
+  afterAll(async () => {
+    await s?.close();
+  });
+
+  it('lets each demo account sign in with the demo password and see the demo building with its role', async () => {
+    for (const [email, role] of [['lead@stanchion.test', 'lead'], ['engineer@stanchion.test', 'engineer'], ['viewer@stanchion.test', 'viewer'], ['admin@stanchion.test', 'viewer']]) {
+      const login = await s.api('POST', '/auth/login', { body: { email, password: DEMO_PASSWORD } });
+      expect(login.status).toBe(200);
+      const { token, user } = login.body as AuthResponse;
+      expect(user.isAdmin).toBe(email.startsWith('admin'));
+      const list = (await s.api('GET', '/buildings', { token })).body as BuildingSummary[];
+      expect(list.map((b) => [b.name, b.role])).toEqual([[DEMO_BUILDING.name, role]]);
+    }
+  });
+
+  it('seeds 6–10 levels and stacks whose documents analyse without errors and pass', async () => {
+    const { token } = (await s.api('POST', '/auth/login', { body: { email: 'lead@stanchion.test', password: DEMO_PASSWORD } })).body as AuthResponse;
+    const [building] = (await s.api('GET', '/buildings', { token })).body as BuildingSummary[];
+    const levels = (await s.api('GET', `/buildings/${building.id}/levels`, { token })).body as unknown[];
+    expect(levels.length).toBeGreaterThanOrEqual(6);
+    expect(levels.length).toBeLessThanOrEqual(10);
+    const stacks = (await s.api('GET', `/buildings/${building.id}/stacks`, { token })).body as StackSummary[];
+    expect(stacks.map((x) => x.name).sort()).toEqual(DEMO_STACKS.map((x) => x.name).sort());
+    for (const st of stacks) {
+      expect(st.status).toBe('passes');
+      expect(st.utilisation).toBeGreaterThan(0.2);
+    }
+  });
+
+  it('does not seed again on a second start', async () => {
+    expect(await seedDemoIfEmpty(s.ctx.db, 4)).toBe(false);
   });
 });
