@@ -10,8 +10,8 @@ export interface XY {
 }
 
 /** Pixels per metre of elevation. */
-export const PX_PER_METRE = 45;
-export const COLUMN_X = { chain: 0, restraint: 260, load: 500, unplaced: -260 } as const;
+export const PX_PER_METRE = 24;
+export const COLUMN_X = { chain: 0, restraint: 240, load: 470, unplaced: -240 } as const;
 /** Spacing for nodes that share a slot (several loads on one restraint, unconnected lifts). */
 const STACKED_GAP = 80;
 

@@ -31,6 +31,7 @@ export const GOVERNING_WORD: Record<GoverningMode, string> = {
   'cross-section': 'Cross-section resistance',
   'flexural-y': 'Flexural buckling about y-y',
   'flexural-z': 'Flexural buckling about z-z',
+  combined: 'Axial force with nominal moments (simple construction)',
 };
 
 const N_PER_KN = 1000;

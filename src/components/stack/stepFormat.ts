@@ -10,8 +10,18 @@ export function formatStepValue(step: CalcStep): { value: string; unit: string }
 
 function significant(v: number): string {
   if (!Number.isFinite(v)) return String(v);
-  if (Number.isInteger(v) && Math.abs(v) < 1e6) return String(v);
   const abs = Math.abs(v);
+  if (abs >= 1e6) return scientific(v);
+  if (Number.isInteger(v)) return String(v);
   const places = abs >= 1000 ? 0 : abs >= 100 ? 1 : abs >= 10 ? 2 : 3;
   return v.toFixed(places);
+}
+
+const SUPERSCRIPT: Record<string, string> = { '-': '⁻', 0: '⁰', 1: '¹', 2: '²', 3: '³', 4: '⁴', 5: '⁵', 6: '⁶', 7: '⁷', 8: '⁸', 9: '⁹' };
+
+/** "2.767×10⁸": second moments of area and critical forces read better this way. */
+function scientific(v: number): string {
+  const [mantissa, exponent] = v.toExponential(3).split('e');
+  const power = String(Number(exponent)).split('').map((c) => SUPERSCRIPT[c] ?? c).join('');
+  return `${mantissa}×10${power}`;
 }
