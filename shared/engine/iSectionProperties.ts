@@ -7,7 +7,9 @@ import { spandrel } from './spandrel.ts';
  * welded plates). The formulas are the exact sums of rectangles and spandrels, as used for the
  * EN 10365 / BS 4-1 property tables.
  */
-export function iSectionProperties({ make, h, b, tw, tf, r }: IDims): SectionProperties {
+export function iSectionProperties({ make, h, b, tw, tf, r: rootRadius }: IDims): SectionProperties {
+  // Welded sections: the fillet welds are ignored, as in Table 5.2 (weld size taken as 0)
+  const r = make === 'rolled' ? rootRadius : 0;
   const hw = h - 2 * tf;
   const f = spandrel(r);
   const filletY = h / 2 - tf - f.offset;
@@ -29,7 +31,7 @@ export function iSectionProperties({ make, h, b, tw, tf, r }: IDims): SectionPro
     WelZ: Iz / (b / 2),
     WplY,
     WplZ,
-    It: make === 'rolled' && r > 0 ? rolledTorsionConstant(h, b, tw, tf, r) : (2 * b * tf ** 3 + hw * tw ** 3) / 3,
+    It: r > 0 ? rolledTorsionConstant(h, b, tw, tf, r) : (2 * b * tf ** 3 + hw * tw ** 3) / 3,
     // Warping constant of a doubly symmetric I: Iz (h − tf)² / 4 (thin-walled theory)
     Iw: (Iz * (h - tf) ** 2) / 4,
     massPerMetre: A * 1e-6 * STEEL_DENSITY,

@@ -21,7 +21,8 @@ export function validateDims(input: unknown): SectionDims {
     throw new EngineError('invalid_input', `Section dimensions are not valid: ${why}.`);
   };
   if (dims.shape === 'I') {
-    const { h, b, tw, tf, r } = dims;
+    const { h, b, tw, tf } = dims;
+    const r = dims.make === 'rolled' ? dims.r : 0;
     if (h - 2 * tf - 2 * r <= 0) fail(`the flanges and root radii (2×${fmt(tf)} + 2×${fmt(r)} mm) leave no web in a depth of ${fmt(h)} mm`);
     if (tw + 2 * r >= b) fail(`the web and root radii (${fmt(tw)} + 2×${fmt(r)} mm) are as wide as the flange (${fmt(b)} mm)`);
   } else if (dims.shape === 'RHS') {

@@ -109,3 +109,11 @@ describe('sectionProperties refuses impossible dimensions', () => {
     });
   }
 });
+
+describe('welded I sections', () => {
+  it('ignore any root radius given: the plates alone make the section (Table 5.2, weld size 0)', () => {
+    const plain = sectionProperties({ shape: 'I', make: 'welded', h: 500, b: 400, tw: 10, tf: 20, r: 0 });
+    const withR = sectionProperties({ shape: 'I', make: 'welded', h: 500, b: 400, tw: 10, tf: 20, r: 12 });
+    expect(withR).toEqual(plain);
+  });
+});
