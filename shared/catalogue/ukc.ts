@@ -1,12 +1,21 @@
-// Universal columns (UKC), BS 4-1:2005 range plus the heavier 203 and 152 serial sizes marked "+"
-// in SCI P363 (steel building design: design data). Dimensions h, b, tw, tf, r in mm, typed from
-// memory of those tables; each row is checked by the mass test (computed vs designation ±2%).
-// The EN 10365 jumbo sizes above 356x406x634 are not included.
+// Universal columns (UKC), BS 4-1:2005 range plus the sizes marked "+" in SCI P363 (steel building
+// design: design data): the 356x406 sizes from 744 to 1299 kg/m (the EN 10365 HD 400 series) and
+// the heavier 203 and 152 serial sizes. Dimensions h, b, tw, tf, r in mm, typed from memory of
+// those tables; each row is checked by the mass test (computed vs designation ±2%).
+// Note: 356x406x900 and heavier have h/b > 1.2 with tf > 100 mm, for which EN 1993-1-1 Table 6.2
+// gives no buckling curve; the engine refuses them as unsupported.
 import type { CatalogueEntry } from './types.ts';
 import { rolledRows } from './rolledRows.ts';
 
 // serial size, kg/m, h, b, tw, tf, r
 export const UKC: readonly CatalogueEntry[] = rolledRows('UKC', [
+  ['356x406', 1299, 600.0, 476.0, 100.0, 140.0, 15.2],
+  ['356x406', 1202, 580.0, 471.0, 95.0, 130.0, 15.2],
+  ['356x406', 1086, 569.0, 454.0, 78.0, 125.0, 15.2],
+  ['356x406', 990, 550.0, 448.0, 71.9, 115.0, 15.2],
+  ['356x406', 900, 531.0, 442.0, 65.9, 106.0, 15.2],
+  ['356x406', 818, 514.0, 437.0, 60.5, 97.0, 15.2],
+  ['356x406', 744, 498.0, 432.0, 55.6, 88.9, 15.2],
   ['356x406', 634, 474.6, 424.0, 47.6, 77.0, 15.2],
   ['356x406', 551, 455.6, 418.5, 42.1, 67.5, 15.2],
   ['356x406', 467, 436.6, 412.2, 35.8, 58.0, 15.2],

@@ -246,3 +246,15 @@ describe('checkCompression: memoised section data stays correct', () => {
     expect(b.A).toBeGreaterThan(a.A);
   });
 });
+
+describe('checkCompression: the heaviest columns', () => {
+  it('UKC 356x406x818 (tf = 97 mm) takes the 80–100 mm yield strength and curves b/c', () => {
+    // EN 10025-2 Table 7: S355, 80 < t ≤ 100 → 315 N/mm²; Table 6.2: h/b = 514/437 = 1.18 ≤ 1.2, tf ≤ 100 → b, c
+    const r = checkCompression({ section: 'UKC 356x406x818', grade: 'S355', LcrY: 5000, LcrZ: 5000, NEd: 1e7 });
+    expect([r.fy, r.curveY, r.curveZ]).toEqual([315, 'b', 'c']);
+  });
+
+  it('UKC 356x406x900 is refused: h/b > 1.2 with tf > 100 mm has no row in Table 6.2', () => {
+    expect(() => checkCompression({ section: 'UKC 356x406x900', grade: 'S355', LcrY: 5000, LcrZ: 5000, NEd: 1e7 })).toThrow(/Table 6.2/);
+  });
+});
