@@ -13,6 +13,14 @@ export interface LiftTrial {
   massPerMetre: number;
 }
 
+/** What the lifts above pass down: their self-weight and the largest design force in them (kN). */
+export interface LoadFromAbove {
+  weight: number;
+  envelope: number;
+}
+
+export const NOTHING_ABOVE: LoadFromAbove = { weight: 0, envelope: 0 };
+
 /** Self-weight of a lift, kN: permanent load on everything below it (SPEC §5.1). */
 export function liftWeight(model: SizingModel, index: number, massPerMetre: number): number {
   const lift = model.lifts[index];
@@ -20,32 +28,50 @@ export function liftWeight(model: SizingModel, index: number, massPerMetre: numb
 }
 
 /**
- * The lift's utilisation with `trial`, carrying `weightAbove` kN of self-weight of the lifts above.
- * Stops at the first piece above `limit` and returns its utilisation (enough to refuse a candidate).
+ * NEd at the bottom of each piece, kN, as the analysis takes it down: never less than the force in
+ * any section above, so a step in αn (EN 1991-1-1 6.3.1.2(11)) does not lower it.
  */
-export function liftUtilisation(model: SizingModel, index: number, trial: LiftTrial, weightAbove: number, limit = Infinity): number {
+export function liftForces(model: SizingModel, index: number, massPerMetre: number, above: LoadFromAbove): number[] {
   const { options } = model;
   const lift = model.lifts[index];
-  const perMetre = options.selfWeight ? selfWeightPerMetre(trial.massPerMetre) : 0;
+  const perMetre = options.selfWeight ? selfWeightPerMetre(massPerMetre) : 0;
+  const forces = new Array<number>(lift.pieces.length);
+  let envelope = above.envelope;
+  for (let k = lift.pieces.length - 1; k >= 0; k--) {
+    const p = lift.pieces[k];
+    const state = p.entries;
+    const sumGk = state.sumGk + perMetre * (lift.top - p.from) + above.weight;
+    const NEd = designAxialForce({ sumGk, sumQk: state.sumQk, loadedLevels: state.loadedLevels }, options).NEd;
+    if (NEd > envelope) envelope = NEd;
+    forces[k] = envelope;
+  }
+  return forces;
+}
+
+/**
+ * The lift's utilisation with `trial` under the lifts above. Stops at the first piece above `limit`
+ * and returns its utilisation (enough to refuse a candidate).
+ */
+export function liftUtilisation(model: SizingModel, index: number, trial: LiftTrial, above: LoadFromAbove, limit = Infinity): number {
+  const lift = model.lifts[index];
   const count = lift.pieces.length;
-  const NEd = new Array<number>(count);
+  const NEd = liftForces(model, index, trial.massPerMetre, above);
   // The buckling check about an axis takes the largest NEd of the lift within that axis's segment (SPEC §5.6)
   const maxY = new Array<number>(count).fill(0);
   const maxZ = new Array<number>(count).fill(0);
   for (let k = 0; k < count; k++) {
     const p = lift.pieces[k];
-    const state = p.entries;
-    NEd[k] = designAxialForce({ sumGk: state.sumGk + perMetre * (lift.top - p.from) + weightAbove, sumQk: state.sumQk, loadedLevels: state.loadedLevels }, options).NEd;
     if (NEd[k] > maxY[p.groupY]) maxY[p.groupY] = NEd[k];
     if (NEd[k] > maxZ[p.groupZ]) maxZ[p.groupZ] = NEd[k];
   }
   let worst = 0;
-  for (const [k, p] of lift.pieces.entries()) {
+  for (let k = 0; k < count; k++) {
+    const p = lift.pieces[k];
     const NEdY = maxY[p.groupY];
     const NEdZ = maxZ[p.groupZ];
     // The member check works in N and mm
     const check = checkCompression(
-      { section: trial.section, grade: trial.grade, LcrY: p.LcrY * 1000, LcrZ: p.LcrZ * 1000, NEd: Math.max(NEdY, NEdZ) * 1000, annex: options.annex },
+      { section: trial.section, grade: trial.grade, LcrY: p.LcrY * 1000, LcrZ: p.LcrZ * 1000, NEd: Math.max(NEdY, NEdZ) * 1000, annex: model.options.annex },
       { steps: false, extraSections: model.sections },
     );
     // SPEC §5.6: max(NEd/Nc,Rd, NEd,y/Nb,y,Rd, NEd,z/Nb,z,Rd) — EN 1993-1-1 eq. 6.9 and 6.46
@@ -56,17 +82,18 @@ export function liftUtilisation(model: SizingModel, index: number, trial: LiftTr
   return worst;
 }
 
+/** What this lift and those above it pass on to the lift below. */
+export function passDown(model: SizingModel, index: number, massPerMetre: number, above: LoadFromAbove): LoadFromAbove {
+  const forces = liftForces(model, index, massPerMetre, above);
+  return { weight: above.weight + liftWeight(model, index, massPerMetre), envelope: forces.length ? Math.max(above.envelope, forces[0]) : above.envelope };
+}
+
 /**
  * The largest design force in the lift without its own weight, kN. No section can do better than its
  * cross-section resistance against it: NEd/Nc,Rd ≤ utilisation (EN 1993-1-1 eq. 6.9), which lets the
  * search pass over sections that are plainly too small without a member check.
  */
-export function liftForceFloor(model: SizingModel, index: number, weightAbove: number): number {
-  let floor = 0;
-  for (const p of model.lifts[index].pieces) {
-    const state = p.entries;
-    const NEd = designAxialForce({ sumGk: state.sumGk + weightAbove, sumQk: state.sumQk, loadedLevels: state.loadedLevels }, model.options).NEd;
-    if (NEd > floor) floor = NEd;
-  }
-  return floor;
+export function liftForceFloor(model: SizingModel, index: number, above: LoadFromAbove): number {
+  const forces = liftForces(model, index, 0, above);
+  return forces.length ? forces[0] : above.envelope;
 }

@@ -2,7 +2,8 @@
 // never raise it, so the lifts are sized from the top down, each taking the lightest candidate that
 // passes under the lifts already chosen above it. With "no upward increase" a lift may not be lighter
 // than the lift above it, which only raises its lower bound: the rule is met on the way down and
-// needs no second pass.
+// needs no second pass. (The force in each section is also never taken less than in the sections
+// above it, as in the analysis; that too only grows with heavier lifts above.)
 //
 // Why the result is the lightest possible, lift by lift: take any assignment A that passes and keeps
 // the rules. At the top lift the search takes the lightest passing candidate, so it is no heavier than
@@ -11,7 +12,7 @@
 // search's pick is therefore no heavier than A's. The engine tests check this by brute force.
 import type { Grade } from '../../schema/stack.ts';
 import { isEngineError } from '../errors.ts';
-import { liftForceFloor, liftUtilisation, liftWeight } from './liftUtilisation.ts';
+import { liftForceFloor, liftUtilisation, NOTHING_ABOVE, passDown } from './liftUtilisation.ts';
 import type { GradedCandidate } from './sizingCandidates.ts';
 import type { SizingModel } from './sizingModel.ts';
 
@@ -26,17 +27,17 @@ export interface SizingRules {
 /** One pick per lift, bottom first like model.lifts. */
 export function sizeLifts(model: SizingModel, candidates: readonly GradedCandidate[], rules: SizingRules): LiftPick[] {
   const picks: LiftPick[] = model.lifts.map(() => ({ kind: 'blocked' }));
-  let weightAbove = 0;
+  let above = NOTHING_ABOVE;
   let lightest = 0;
   for (let i = model.lifts.length - 1; i >= 0; i--) {
     let pick: LiftPick = { kind: 'none' };
     // kN → N for the comparison with Aeff·fy
-    const floor = liftForceFloor(model, i, weightAbove) * 1000;
+    const floor = liftForceFloor(model, i, above) * 1000;
     for (const candidate of candidates) {
       if (rules.noUpwardIncrease && candidate.massPerMetre < lightest) continue;
       if (floor > rules.target * candidate.squash) continue;
       const trial = { section: candidate.designation, grade: rules.grade, massPerMetre: candidate.massPerMetre };
-      const utilisation = liftUtilisation(model, i, trial, weightAbove, rules.target);
+      const utilisation = liftUtilisation(model, i, trial, above, rules.target);
       if (utilisation <= rules.target) {
         pick = { kind: 'section', candidate, utilisation };
         break;
@@ -45,7 +46,7 @@ export function sizeLifts(model: SizingModel, candidates: readonly GradedCandida
     picks[i] = pick;
     // Below a lift with no passing section the load is unknown: those lifts stay blocked.
     if (pick.kind !== 'section') break;
-    weightAbove += liftWeight(model, i, pick.candidate.massPerMetre);
+    above = passDown(model, i, pick.candidate.massPerMetre, above);
     lightest = pick.candidate.massPerMetre;
   }
   return picks;
@@ -60,17 +61,17 @@ export interface CurrentCheck {
 /** Utilisation of every lift as it is now, bottom first. */
 export function currentUtilisations(model: SizingModel): CurrentCheck[] {
   const result: CurrentCheck[] = new Array(model.lifts.length);
-  let weightAbove = 0;
+  let above = NOTHING_ABOVE;
   for (let i = model.lifts.length - 1; i >= 0; i--) {
     const lift = model.lifts[i];
     try {
-      result[i] = { utilisation: liftUtilisation(model, i, { section: lift.data.section, grade: lift.data.grade, massPerMetre: lift.massPerMetre }, weightAbove) };
+      result[i] = { utilisation: liftUtilisation(model, i, { section: lift.data.section, grade: lift.data.grade, massPerMetre: lift.massPerMetre }, above) };
     } catch (error) {
       // As in the analysis: a section the rules cannot check is reported on its lift.
       if (!isEngineError(error)) throw error;
       result[i] = { utilisation: null, message: error.message };
     }
-    weightAbove += liftWeight(model, i, lift.massPerMetre);
+    above = passDown(model, i, lift.massPerMetre, above);
   }
   return result;
 }

@@ -45,8 +45,7 @@ function groupsOf<T>(items: readonly T[]): number[] {
 
 export function sizingModel(model: StackModel, options: AnalysisOptions, levelElevations: readonly number[], sections?: ReadonlyMap<string, SectionDims>): SizingModel {
   // Spans and segments exactly as the analysis cuts them; self-weight is added per candidate.
-  const noWeight = model.lifts.map((l) => ({ bottom: l.bottom, top: l.top, perMetre: 0 }));
-  const spans = stackPieces(model, noWeight, options, levelElevations);
+  const spans = stackPieces(model, levelElevations);
   const states = axialStates(model.entries, [], spans.flat().map((p) => ({ elevation: p.from, includeEntriesAt: false })));
   let next = 0;
   const lifts = model.lifts.map((lift, i) => {
