@@ -10,6 +10,9 @@ import * as addStackOps from './202512010906_add_stack_ops.ts';
 import * as addAuditLog from './202512010907_add_audit_log.ts';
 import * as addOutbox from './202512010908_add_outbox.ts';
 import * as addMailLog from './202512010909_add_mail_log.ts';
+import * as addRevisions from './202512011000_add_revisions.ts';
+import * as addRevisionTriggers from './202512011001_add_revision_triggers.ts';
+import * as addRevisionRecipients from './202512011002_add_revision_recipients.ts';
 import * as addCompanySections from './202512011020_add_company_sections.ts';
 
 const migrations: Record<string, Knex.Migration> = {
@@ -23,6 +26,9 @@ const migrations: Record<string, Knex.Migration> = {
   '202512010907_add_audit_log': addAuditLog,
   '202512010908_add_outbox': addOutbox,
   '202512010909_add_mail_log': addMailLog,
+  '202512011000_add_revisions': addRevisions,
+  '202512011001_add_revision_triggers': addRevisionTriggers,
+  '202512011002_add_revision_recipients': addRevisionRecipients,
   '202512011020_add_company_sections': addCompanySections,
 };
 

@@ -8,7 +8,9 @@ import { registerExportRoutes } from './exports.ts';
 import { registerHealthRoutes } from './health.ts';
 import { registerImportRoutes } from './imports.ts';
 import { registerLevelRoutes } from './levels.ts';
+import { registerRevisionRoutes } from './revisions.ts';
 import { registerSectionRoutes } from './sections.ts';
+import { registerSizingRoutes } from './sizing.ts';
 import { registerStackRoutes } from './stacks.ts';
 
 export function createApiRouter(ctx: ServerContext): Router {
@@ -18,7 +20,9 @@ export function createApiRouter(ctx: ServerContext): Router {
   registerBuildingRoutes(router, ctx);
   registerLevelRoutes(router, ctx);
   registerStackRoutes(router, ctx);
+  registerRevisionRoutes(router, ctx);
   registerSectionRoutes(router, ctx);
+  registerSizingRoutes(router, ctx);
   registerImportRoutes(router, ctx);
   registerExportRoutes(router, ctx);
   registerDevRoutes(router, ctx);

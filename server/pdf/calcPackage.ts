@@ -1,0 +1,23 @@
+// The calculation package of a revision, drawn from its snapshot alone: the same snapshot always
+// gives the same pages (and, with the dates fixed from the freeze, the same bytes).
+import type { RevisionSnapshot } from '../../shared/schema/revisions.ts';
+import { drawCover } from './cover.ts';
+import { drawPageFurniture, trackSections } from './pageFurniture.ts';
+import { createPdf, toBuffer } from './pdf.ts';
+import { drawStackSection } from './stackSection.ts';
+import { drawSummary } from './summary.ts';
+
+export async function renderCalcPackage(snapshot: RevisionSnapshot, hash: string): Promise<Buffer> {
+  const doc = createPdf(snapshot);
+  const sections = trackSections(doc);
+  sections.set('Cover');
+  drawCover(doc, snapshot, hash);
+  sections.set('Summary');
+  drawSummary(doc, snapshot);
+  snapshot.stacks.forEach((stack, i) => {
+    sections.set(`Stack ${stack.name}`);
+    drawStackSection(doc, stack, snapshot.levels, i);
+  });
+  drawPageFurniture(doc, snapshot, hash, sections.titles);
+  return toBuffer(doc);
+}

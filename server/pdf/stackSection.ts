@@ -1,0 +1,55 @@
+// One stack of the package: its elevation beside a table of its lifts, the load take-down, then the
+// member check of every lift.
+import type { Level } from '../../shared/schema/api.ts';
+import type { SnapshotStack } from '../../shared/schema/revisions.ts';
+import { summariseResult } from '../services/analysis.ts';
+import { drawElevation } from './elevation.ts';
+import { governingWords, metres, ratio } from './format.ts';
+import { COLOUR, CONTENT_BOTTOM, FONT, FULL_WIDTH, MARGIN, SIZE, utilisationColour } from './layout.ts';
+import { drawMemberChecks } from './memberWorking.ts';
+import type { Pdf } from './pdf.ts';
+import { heading } from './summary.ts';
+import { drawTable, type Column } from './table.ts';
+import { drawTakeDown } from './takeDownTable.ts';
+
+const ELEVATION_WIDTH = 226;
+const LIFT_COLUMNS: Column[] = [
+  { header: 'Lift', width: 34 },
+  { header: 'From', unit: 'm', width: 34, align: 'right' },
+  { header: 'To', unit: 'm', width: 34, align: 'right' },
+  { header: 'Section', width: 96 },
+  { header: 'Util.', width: 30, align: 'right' },
+  { header: 'Check', width: 47 },
+];
+
+export function drawStackSection(doc: Pdf, stack: SnapshotStack, levels: Level[], index: number): void {
+  doc.addPage();
+  doc.y = MARGIN.top;
+  heading(doc, `2.${index + 1}  Stack ${stack.name}`);
+  const sum = summariseResult(stack.doc, stack.results);
+  const line = `${stack.results.lifts.length} lifts · governing lift ${sum.governingLiftId ?? '–'} (${sum.governingSection ?? '–'}) · utilisation ${ratio(sum.utilisation)} · document version ${stack.version}`;
+  doc.font(FONT.regular).fontSize(SIZE.body).fillColor(COLOUR.muted).text(line, MARGIN.left, doc.y, { width: FULL_WIDTH });
+  for (const w of stack.results.warnings) doc.fillColor(COLOUR.near).text(`Note: ${w.message}`, MARGIN.left, doc.y + 2, { width: FULL_WIDTH });
+  const top = doc.y + 16;
+
+  const height = Math.min(CONTENT_BOTTOM - top - 40, 560);
+  drawElevation(doc, stack, levels, { x: MARGIN.left, y: top + 10, width: ELEVATION_WIDTH, height });
+
+  doc.y = top;
+  const rows = [...stack.results.lifts].reverse().map((l) => [
+    { text: l.liftId, bold: l.liftId === stack.results.governingLiftId },
+    metres(l.bottom),
+    metres(l.top),
+    `${l.section} ${l.grade}`,
+    { text: ratio(l.utilisation), colour: utilisationColour(l.utilisation), bold: true },
+    governingWords[l.governing],
+  ]);
+  drawTable(doc, MARGIN.left + ELEVATION_WIDTH + 10, LIFT_COLUMNS, rows);
+
+  doc.addPage();
+  doc.y = MARGIN.top;
+  drawTakeDown(doc, stack, levels);
+  doc.y += 10;
+  heading(doc, 'Member checks', 11);
+  drawMemberChecks(doc, stack);
+}

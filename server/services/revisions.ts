@@ -1,0 +1,207 @@
+// Freezing and reading revisions (issue 8). One transaction snapshots the building; the rows are
+// never changed afterwards (database triggers refuse it). Mail goes out after commit (revisionsMail.ts).
+import type { Knex } from 'knex';
+import type { User } from '../../shared/schema/api.ts';
+import {
+  REVISION_PREFIX,
+  type FreezeRefusal,
+  type MailStatus,
+  type RevisionDetail,
+  type RevisionPurpose,
+  type RevisionSnapshot,
+  type RevisionSummary,
+  type SnapshotStack,
+} from '../../shared/schema/revisions.ts';
+import { notFound, unprocessable } from '../errors.ts';
+import { now } from '../db.ts';
+import { summariseResult } from './analysis.ts';
+import { recordAudit } from './audit.ts';
+import { listRecipients } from './revisionsRecipients.ts';
+import { sha256Hex, snapshotStacks, takeSnapshot } from './snapshot.ts';
+
+export interface RevisionRow {
+  id: number;
+  building_id: number;
+  code: string;
+  purpose: RevisionPurpose;
+  note: string;
+  acknowledgement: string | null;
+  hash: string;
+  engine_version: string;
+  frozen_by: number;
+  frozen_by_name: string;
+  frozen_at: string;
+  stack_count: number;
+  worst_utilisation: number | null;
+  failing_lifts: number;
+}
+const SUMMARY_COLUMNS = ['id', 'building_id', 'code', 'purpose', 'note', 'acknowledgement', 'hash', 'engine_version', 'frozen_by', 'frozen_by_name', 'frozen_at', 'stack_count', 'worst_utilisation', 'failing_lifts'];
+
+export interface FreezeInput {
+  note: string;
+  purpose: RevisionPurpose;
+  acknowledgeFailingLifts: boolean;
+  engineVersion: string;
+}
+
+interface FailingLift {
+  stack: string;
+  liftId: string;
+  section: string;
+  utilisation: number;
+}
+
+/** Validation errors stop a freeze; they are returned as the 422's reasons. */
+function validationReasons(stacks: SnapshotStack[]): FreezeRefusal['reasons'] {
+  const reasons: FreezeRefusal['reasons'] = [];
+  for (const s of stacks) {
+    for (const e of s.results.errors) reasons.push({ stackId: s.id, stack: s.name, ...(e.nodeId ? { nodeId: e.nodeId } : {}), message: e.message });
+    if (s.results.errors.length === 0 && s.results.lifts.length === 0) reasons.push({ stackId: s.id, stack: s.name, message: 'The stack has no lifts to check' });
+  }
+  return reasons;
+}
+
+// EN 1993-1-1 6.3.1.1(1): NEd/Nb,Rd ≤ 1.0; a lift above 1.0 fails.
+const failingLifts = (stacks: SnapshotStack[]): FailingLift[] =>
+  stacks.flatMap((s) => s.results.lifts.filter((l) => l.utilisation > 1).map((l) => ({ stack: s.name, liftId: l.liftId, section: l.section, utilisation: l.utilisation })));
+
+function acknowledgementText(failing: FailingLift[], user: User): string {
+  const list = failing.map((f) => `${f.stack} ${f.liftId} (${f.section}, ${f.utilisation.toFixed(3)})`).join('; ');
+  return `${user.name} issued this revision knowing that ${failing.length} lift${failing.length === 1 ? '' : 's'} exceed utilisation 1.0: ${list}`;
+}
+
+async function nextCode(trx: Knex, buildingId: number, purpose: RevisionPurpose): Promise<string> {
+  const prefix = REVISION_PREFIX[purpose];
+  const codes = await trx('revisions').where({ building_id: buildingId, purpose }).pluck<string[]>('code');
+  const highest = codes.reduce((m, c) => Math.max(m, Number(c.slice(prefix.length)) || 0), 0);
+  return `${prefix}${String(highest + 1).padStart(2, '0')}`;
+}
+
+export async function freezeRevision(db: Knex, buildingId: number, input: FreezeInput, user: User): Promise<{ id: number; snapshot: RevisionSnapshot; hash: string }> {
+  return db.transaction(async (trx) => {
+    const building = await trx('buildings').where({ id: buildingId }).first<{ id: number; name: string; reference: string } | undefined>('id', 'name', 'reference');
+    if (!building) throw notFound('Building');
+    const stacks = await snapshotStacks(trx, buildingId);
+    if (stacks.length === 0) throw unprocessable('The building has no stacks to freeze', { reasons: [] } satisfies FreezeRefusal);
+    const reasons = validationReasons(stacks);
+    if (reasons.length > 0) throw unprocessable(`${reasons.length} problem${reasons.length === 1 ? '' : 's'} must be fixed before freezing`, { reasons } satisfies FreezeRefusal);
+    const failing = failingLifts(stacks);
+    if (failing.length > 0 && (!input.acknowledgeFailingLifts || input.note.trim() === '')) {
+      const message = `${failing.length} lift${failing.length === 1 ? '' : 's'} exceed utilisation 1.0: acknowledge this and say why in the note to freeze anyway`;
+      throw unprocessable(message, {
+        reasons: failing.map((f) => ({ stackId: stacks.find((s) => s.name === f.stack)?.id ?? 0, stack: f.stack, nodeId: f.liftId, message: `Lift ${f.liftId} (${f.section}) has utilisation ${f.utilisation.toFixed(3)}` })),
+      } satisfies FreezeRefusal);
+    }
+    const code = await nextCode(trx, buildingId, input.purpose);
+    const frozenAt = now();
+    const acknowledgement = failing.length > 0 ? acknowledgementText(failing, user) : null;
+    const { snapshot, text, hash } = await takeSnapshot(
+      trx,
+      { building, code, purpose: input.purpose, note: input.note, acknowledgement, frozenAt, frozenBy: { id: user.id, name: user.name, email: user.email }, engineVersion: input.engineVersion },
+      stacks,
+    );
+    const utilisations = stacks.map((s) => summariseResult(s.doc, s.results).utilisation).filter((u): u is number => u !== null);
+    const [row] = await trx('revisions')
+      .insert({
+        building_id: buildingId,
+        code,
+        purpose: input.purpose,
+        note: input.note,
+        acknowledgement,
+        snapshot: text,
+        hash,
+        engine_version: input.engineVersion,
+        frozen_by: user.id,
+        frozen_by_name: user.name,
+        frozen_at: frozenAt,
+        stack_count: stacks.length,
+        worst_utilisation: utilisations.length > 0 ? Math.max(...utilisations) : null,
+        failing_lifts: failing.length,
+      })
+      .returning<{ id: number }[]>('id');
+    const members = await trx('memberships as m')
+      .join('users as u', 'u.id', 'm.user_id')
+      .where('m.building_id', buildingId)
+      .select<{ id: number; email: string; name: string }[]>('u.id', 'u.email', 'u.name');
+    if (members.length > 0) {
+      await trx('revision_recipients').insert(members.map((m) => ({ revision_id: row.id, user_id: m.id, email: m.email, name: m.name, status: 'pending', attempts: 0, updated_at: frozenAt })));
+    }
+    await recordAudit(trx, { userId: user.id, buildingId, action: 'revision.freeze', detail: { revisionId: row.id, code, hash, failingLifts: failing.length } });
+    return { id: row.id, snapshot, hash };
+  });
+}
+
+async function mailCounts(db: Knex, revisionIds: number[]): Promise<Map<number, Record<MailStatus, number>>> {
+  const counts = new Map<number, Record<MailStatus, number>>(revisionIds.map((id) => [id, { pending: 0, sent: 0, failed: 0 }]));
+  if (revisionIds.length === 0) return counts;
+  const rows = await db('revision_recipients')
+    .whereIn('revision_id', revisionIds)
+    .groupBy('revision_id', 'status')
+    .select<{ revision_id: number; status: MailStatus; n: number | string }[]>('revision_id', 'status', db.raw('count(*) as n'));
+  for (const r of rows) {
+    const c = counts.get(r.revision_id);
+    if (c) c[r.status] = Number(r.n);
+  }
+  return counts;
+}
+
+function toSummary(row: RevisionRow, mail: Record<MailStatus, number>): RevisionSummary {
+  return {
+    id: row.id,
+    buildingId: row.building_id,
+    code: row.code,
+    purpose: row.purpose,
+    note: row.note,
+    frozenAt: row.frozen_at,
+    frozenBy: { id: row.frozen_by, name: row.frozen_by_name },
+    hash: row.hash,
+    stackCount: row.stack_count,
+    worstUtilisation: row.worst_utilisation === null ? null : Number(row.worst_utilisation),
+    failingLifts: row.failing_lifts,
+    mail,
+  };
+}
+
+export async function listRevisions(db: Knex, buildingId: number): Promise<RevisionSummary[]> {
+  const rows = await db('revisions').where({ building_id: buildingId }).orderBy('id', 'desc').select<RevisionRow[]>(SUMMARY_COLUMNS);
+  const counts = await mailCounts(db, rows.map((r) => r.id));
+  return rows.map((r) => toSummary(r, counts.get(r.id) ?? { pending: 0, sent: 0, failed: 0 }));
+}
+
+async function loadRevisionRow(db: Knex, id: number): Promise<RevisionRow> {
+  const row = await db('revisions').where({ id }).first<RevisionRow | undefined>(...SUMMARY_COLUMNS);
+  if (!row) throw notFound('Revision');
+  return row;
+}
+
+/** The snapshot as frozen; a text whose hash no longer matches is refused rather than printed. */
+export async function loadSnapshot(db: Knex, id: number): Promise<{ snapshot: RevisionSnapshot; hash: string }> {
+  const row = await db('revisions').where({ id }).first<{ snapshot: string; hash: string } | undefined>('snapshot', 'hash');
+  if (!row) throw notFound('Revision');
+  if (sha256Hex(row.snapshot) !== row.hash) throw new Error(`Revision ${id}: the stored snapshot does not match its hash`);
+  // Written by freezeRevision from validated documents and our engine's results.
+  return { snapshot: JSON.parse(row.snapshot) as RevisionSnapshot, hash: row.hash };
+}
+
+export async function getRevision(db: Knex, id: number): Promise<RevisionDetail> {
+  const row = await loadRevisionRow(db, id);
+  const [{ snapshot }, counts, recipients] = await Promise.all([loadSnapshot(db, id), mailCounts(db, [id]), listRecipients(db, id)]);
+  return {
+    ...toSummary(row, counts.get(id) ?? { pending: 0, sent: 0, failed: 0 }),
+    engineVersion: row.engine_version,
+    acknowledgement: row.acknowledgement,
+    options: snapshot.options,
+    levels: snapshot.levels,
+    stacks: snapshot.stacks.map((s) => {
+      const sum = summariseResult(s.doc, s.results);
+      return { id: s.id, name: s.name, version: s.version, governingLiftId: sum.governingLiftId, governingSection: sum.governingSection, utilisation: sum.utilisation, status: sum.status };
+    }),
+    recipients,
+  };
+}
+
+/** The building a revision belongs to (for the access policy); null when there is no such revision. */
+export async function buildingOfRevisionId(db: Knex, id: number): Promise<number | null> {
+  const row = await db('revisions').where({ id }).first<{ building_id: number } | undefined>('building_id');
+  return row ? row.building_id : null;
+}

@@ -1,0 +1,38 @@
+// The frozen content of a revision: every stack's document and results, the levels, the analysis
+// options and the engine version, as canonical JSON (keys sorted) with its SHA-256.
+import { createHash } from 'node:crypto';
+import type { Knex } from 'knex';
+import type { RevisionSnapshot, SnapshotStack } from '../../shared/schema/revisions.ts';
+import { getBuildingOptions } from './buildings.ts';
+import { listLevels } from './levels.ts';
+import { parseDoc, parseResults, type StackRow } from './stackRows.ts';
+
+/** JSON with object keys in code-point order at every depth, so equal content gives equal text. */
+export function canonicalJson(value: unknown): string {
+  return JSON.stringify(value, (_key, v: unknown) => {
+    if (v === null || typeof v !== 'object' || Array.isArray(v)) return v;
+    const sorted: Record<string, unknown> = {};
+    for (const k of Object.keys(v).sort()) sorted[k] = (v as Record<string, unknown>)[k];
+    return sorted;
+  });
+}
+
+export const sha256Hex = (text: string): string => createHash('sha256').update(text, 'utf8').digest('hex');
+
+/** Grid references in natural order: "A/2" before "A/10". */
+export const byStackName = (a: { name: string; id: number }, b: { name: string; id: number }) =>
+  a.name.localeCompare(b.name, 'en', { numeric: true, sensitivity: 'base' }) || a.id - b.id;
+
+export async function snapshotStacks(db: Knex, buildingId: number): Promise<SnapshotStack[]> {
+  const rows = await db<StackRow>('stacks').where({ building_id: buildingId }).select('id', 'name', 'version', 'doc', 'results');
+  return rows.map((r) => ({ id: r.id, name: r.name, version: r.version, doc: parseDoc(r.doc), results: parseResults(r.results) })).sort(byStackName);
+}
+
+export type SnapshotMeta = Omit<RevisionSnapshot, 'format' | 'options' | 'levels' | 'stacks'>;
+
+export async function takeSnapshot(db: Knex, meta: SnapshotMeta, stacks: SnapshotStack[]): Promise<{ snapshot: RevisionSnapshot; text: string; hash: string }> {
+  const [options, levels] = await Promise.all([getBuildingOptions(db, meta.building.id), listLevels(db, meta.building.id)]);
+  const snapshot: RevisionSnapshot = { format: 1, ...meta, options, levels, stacks };
+  const text = canonicalJson(snapshot);
+  return { snapshot, text, hash: sha256Hex(text) };
+}

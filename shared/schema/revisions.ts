@@ -1,0 +1,149 @@
+// Frozen revisions (issue 8): the freeze body, the immutable snapshot, the API replies and the
+// comparison of two states of a building. Both ends use these; nothing is redeclared.
+import { z } from 'zod';
+import type { Level } from './api.ts';
+import type { AnalysisOptions, StackResult, StackStatus } from './results.ts';
+import type { NodeKind, StackDocument } from './stack.ts';
+
+export const revisionPurposeSchema = z.enum(['preliminary', 'construction']);
+export type RevisionPurpose = z.infer<typeof revisionPurposeSchema>;
+
+/** Code prefix per purpose: P01, P02… for preliminary issues, C01, C02… for construction. */
+export const REVISION_PREFIX: Record<RevisionPurpose, string> = { preliminary: 'P', construction: 'C' };
+
+export const freezeBodySchema = z
+  .object({
+    note: z.string().trim().max(2000).default(''),
+    purpose: revisionPurposeSchema,
+    /** Required (true) when any lift has a utilisation above 1.0; the note must then say why. */
+    acknowledgeFailingLifts: z.boolean().default(false),
+  })
+  .strict();
+export type FreezeBody = z.input<typeof freezeBodySchema>;
+
+export const compareQuerySchema = z
+  .object({
+    from: z.coerce.number().int().positive().max(Number.MAX_SAFE_INTEGER),
+    to: z.union([z.literal('current'), z.coerce.number().int().positive().max(Number.MAX_SAFE_INTEGER)]).default('current'),
+  })
+  .strict();
+export type CompareQuery = z.infer<typeof compareQuerySchema>;
+
+/** One stack as frozen: its document and the results of that version. */
+export interface SnapshotStack {
+  id: number;
+  name: string;
+  version: number;
+  doc: StackDocument;
+  results: StackResult;
+}
+
+/** Everything a revision freezes. Its canonical JSON (sorted keys) is what the hash covers. */
+export interface RevisionSnapshot {
+  format: 1;
+  building: { id: number; name: string; reference: string };
+  code: string;
+  purpose: RevisionPurpose;
+  note: string;
+  /** Set when lifts failed at freeze: who accepted that and which lifts. */
+  acknowledgement: string | null;
+  frozenAt: string;
+  frozenBy: { id: number; name: string; email: string };
+  engineVersion: string;
+  options: AnalysisOptions;
+  levels: Level[];
+  stacks: SnapshotStack[];
+}
+
+export type MailStatus = 'pending' | 'sent' | 'failed';
+
+export interface RevisionRecipient {
+  email: string;
+  name: string;
+  status: MailStatus;
+  attempts: number;
+  error: string | null;
+  updatedAt: string;
+}
+
+export interface RevisionSummary {
+  id: number;
+  buildingId: number;
+  code: string;
+  purpose: RevisionPurpose;
+  note: string;
+  frozenAt: string;
+  frozenBy: { id: number; name: string };
+  /** SHA-256 (hex) of the canonical snapshot. */
+  hash: string;
+  stackCount: number;
+  worstUtilisation: number | null;
+  failingLifts: number;
+  mail: Record<MailStatus, number>;
+}
+
+export interface RevisionStackSummary {
+  id: number;
+  name: string;
+  version: number;
+  governingLiftId: string | null;
+  governingSection: string | null;
+  utilisation: number | null;
+  status: StackStatus;
+}
+
+export interface RevisionDetail extends RevisionSummary {
+  engineVersion: string;
+  acknowledgement: string | null;
+  options: AnalysisOptions;
+  levels: Level[];
+  stacks: RevisionStackSummary[];
+  recipients: RevisionRecipient[];
+}
+
+/** A refused freeze (422) lists what stops it in `details.reasons`. */
+export interface FreezeRefusal {
+  reasons: { stackId: number; stack: string; nodeId?: string; message: string }[];
+}
+
+export type Change = 'added' | 'removed' | 'changed';
+export type FieldValue = string | number | null;
+
+export interface FieldChange {
+  field: string;
+  from: FieldValue;
+  to: FieldValue;
+}
+
+export interface NodeChange {
+  nodeId: string;
+  kind: NodeKind;
+  /** Plain words for the node, e.g. "Restraint at +7.600" or "Lift lift-2". */
+  label: string;
+  change: Change;
+  fields: FieldChange[];
+}
+
+export interface LiftUtilisationChange {
+  liftId: string;
+  section: { from: string | null; to: string | null };
+  from: number | null;
+  to: number | null;
+}
+
+export interface StackComparison {
+  stackId: number;
+  name: string;
+  change: Change;
+  nodes: NodeChange[];
+  lifts: LiftUtilisationChange[];
+}
+
+export interface RevisionComparison {
+  from: { id: number; code: string };
+  to: { id: number | null; code: string };
+  stacks: StackComparison[];
+  unchangedStacks: number;
+  levels: FieldChange[];
+  options: FieldChange[];
+}
