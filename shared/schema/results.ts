@@ -8,6 +8,8 @@ export const analysisOptionsSchema = z
     annex: z.enum(['UK', 'EN']),
     imposedReduction: z.boolean(),
     selfWeight: z.boolean(),
+    /** Nominal moments of simple construction and the combined check; absent means on (older stored options). */
+    nominalMoments: z.boolean().optional(),
   })
   .strict();
 export type AnalysisOptions = z.infer<typeof analysisOptionsSchema>;
@@ -22,7 +24,10 @@ export const DEFAULT_ANALYSIS_OPTIONS: AnalysisOptions = {
 
 export type BucklingCurve = 'a0' | 'a' | 'b' | 'c' | 'd';
 export type SectionClass = 1 | 2 | 3 | 4;
-export type GoverningMode = 'cross-section' | 'flexural-y' | 'flexural-z';
+/** Terms of the axial check (SPEC §5.6). */
+export type AxialMode = 'cross-section' | 'flexural-y' | 'flexural-z';
+/** 'combined': the simple-construction interaction with nominal moments governs. */
+export type GoverningMode = AxialMode | 'combined';
 
 /** One line of working: what the UI and the PDF print, in the engine's own units. */
 export interface CalcStep {
@@ -56,7 +61,7 @@ export interface CompressionResult {
   NbRdZ: number;
   NbRd: number;
   utilisation: number;
-  governing: GoverningMode;
+  governing: AxialMode;
   steps: CalcStep[];
 }
 
@@ -115,6 +120,10 @@ export interface PieceCheck {
   /** The member check run with the larger of NEdY and NEdZ (N, mm), so its buckling terms are not
    *  relaxed by 6.3.1.2(4) for a force smaller than the one they are checked against. */
   check: CompressionResult;
+  /** Present when nominal moments act on this piece: the simple-construction combined check (N, mm). */
+  combined?: CombinedCheck;
+  /** The axial utilisation above, kept when `combined` raises `utilisation`. */
+  axialUtilisation?: number;
 }
 
 export interface LiftResult {

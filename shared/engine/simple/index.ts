@@ -7,3 +7,4 @@ export * from './checkSimpleColumn.ts';
 export * from './floorMoments.ts';
 export * from './pieceMoments.ts';
 export * from './faceWarnings.ts';
+export * from './applyNominalMoments.ts';

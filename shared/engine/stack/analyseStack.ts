@@ -3,6 +3,7 @@
 import { DEFAULT_ANALYSIS_OPTIONS, type AnalysisOptions, type Issue, type LiftResult, type StackResult } from '../../schema/results.ts';
 import type { StackDocument } from '../../schema/stack.ts';
 import { isEngineError } from '../errors.ts';
+import { applyNominalMoments } from '../simple/applyNominalMoments.ts';
 import { checkLift } from './checkLift.ts';
 import { allLevelElevations, type AnalysisContext } from './context.ts';
 import { inspectStack } from './inspectStack.ts';
@@ -40,6 +41,10 @@ export function analyseStack(doc: StackDocument, options: Partial<AnalysisOption
     }
   }
   if (checkErrors.length) return withErrors(checkErrors, warnings);
+  // Simple construction: nominal moments from the beam reactions on the column faces, and the combined check
+  const simple = applyNominalMoments(doc, model, lifts, settings, context.sections);
+  warnings.push(...simple.warnings);
+  if (simple.errors.length) return withErrors(simple.errors, warnings);
 
   // The governing lift is the most utilised, the lowest one on a tie (SPEC §5.6)
   let governing: LiftResult | null = null;
