@@ -50,7 +50,7 @@ export interface SectionData {
 
 const CATALOGUE_CACHE = new Map<string, SectionData>();
 const EXTRA_CACHE = new WeakMap<ReadonlyMap<string, SectionDims>, Map<string, SectionData>>();
-/** Sections given by dimensions are cached by their exact dimensions; the cache is bounded. */
+/** Bound of the caches keyed by caller text or dimensions, so that they cannot grow without limit. */
 const MAX_CACHED_DIMS = 5000;
 const DIMS_CACHE = new Map<string, SectionData>();
 
@@ -100,6 +100,8 @@ export function sectionData(section: string | SectionDims, extra?: ReadonlyMap<s
   let data = CATALOGUE_CACHE.get(section);
   if (!data) {
     const { designation, dims } = resolveSection(section);
+    // Keyed by the text as given (spellings vary), so bound it like the dimensions cache
+    if (CATALOGUE_CACHE.size >= MAX_CACHED_DIMS) CATALOGUE_CACHE.clear();
     data = buildSectionData(designation, dims);
     CATALOGUE_CACHE.set(section, data);
   }
