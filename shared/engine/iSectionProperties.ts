@@ -42,8 +42,8 @@ export function iSectionProperties({ make, h, b, tw, tf, r: rootRadius }: IDims)
 }
 
 /**
- * Torsion constant of a rolled I with the web–flange junction allowance (the El Darwish–Johnston
- * approximation behind the EN 10365 / SCI P363 tables; from memory).
+ * Torsion constant of a rolled I with the allowance for the web–flange junctions that the
+ * EN 10365 and SCI P363 tables use (formula from memory).
  */
 function rolledTorsionConstant(h: number, b: number, tw: number, tf: number, r: number): number {
   const D = ((tf + r) ** 2 + tw * (r + tw / 4)) / (2 * r + tf);
