@@ -82,6 +82,8 @@ const MATRIX: Record<string, Case> = {
   'GET /api/buildings/:id/results.xlsx': { path: (f) => `/buildings/${f.buildingId}/results.xlsx`, expect: read },
   'GET /api/stacks/:id/results.csv': { path: (f) => `/stacks/${f.stackId}/results.csv`, expect: read },
   'GET /api/stacks/:id/results.xlsx': { path: (f) => `/stacks/${f.stackId}/results.xlsx`, expect: read },
+  'POST /api/stacks/:id/sizing': { path: (f) => `/stacks/${f.stackId}/sizing`, body: () => ({ series: 'UKC', grade: 'S355' }), expect: edit(200) },
+  'POST /api/buildings/:id/sizing': { path: (f) => `/buildings/${f.buildingId}/sizing`, body: () => ({ series: 'UKC', grade: 'S355' }), expect: edit(200) },
   'GET /api/dev/outbox': { path: () => '/dev/outbox', expect: adminOnly },
   'GET /api/dev/outbox/:id/attachments/:n': { path: (f) => `/dev/outbox/${f.outboxId}/attachments/0`, expect: adminOnly },
 };

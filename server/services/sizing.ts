@@ -1,0 +1,34 @@
+// Sizing previews (issue 11): the engine's proposal for a stored stack or for every stack of a
+// building, with the building's analysis options and levels. Nothing is stored; accepting goes
+// through the ordinary edit path (ops), from the client.
+import type { Knex } from 'knex';
+import { isEngineError, sizeBuilding, sizeStack } from '../../shared/engine/index.ts';
+import type { BuildingSizingPreview, SizingRequest, StackSizingPreview } from '../../shared/schema/sizing.ts';
+import { unprocessable } from '../errors.ts';
+import { analysisInputs } from './analysis.ts';
+import { loadStackRow, parseDoc, type StackRow } from './stackRows.ts';
+
+/** The engine refuses a request (an allowed name not in the series) with EngineError: a 422 here. */
+function engineRefusal<T>(run: () => T): T {
+  try {
+    return run();
+  } catch (error) {
+    if (isEngineError(error)) throw unprocessable(error.message, { code: error.code });
+    throw error;
+  }
+}
+
+export async function stackSizingPreview(db: Knex, stackId: number, request: SizingRequest): Promise<StackSizingPreview> {
+  const row = await loadStackRow(db, stackId);
+  const inputs = await analysisInputs(db, row.building_id);
+  const sizing = engineRefusal(() => sizeStack(parseDoc(row.doc), request, inputs.options, { levels: inputs.levels }));
+  return { stackId: row.id, name: row.name, version: row.version, ...sizing };
+}
+
+export async function buildingSizingPreview(db: Knex, buildingId: number, request: SizingRequest): Promise<BuildingSizingPreview> {
+  const rows = await db<StackRow>('stacks').where({ building_id: buildingId }).orderBy('name').orderBy('id').select('id', 'name', 'version', 'doc');
+  const inputs = await analysisInputs(db, buildingId);
+  const stacks = rows.map((r) => ({ stackId: r.id, name: r.name, version: r.version, doc: parseDoc(r.doc) }));
+  const sizing = engineRefusal(() => sizeBuilding(stacks, request, inputs.options, { levels: inputs.levels }));
+  return { buildingId, ...sizing };
+}
