@@ -11,7 +11,6 @@ import { registerLevelRoutes } from './levels.ts';
 import { registerRevisionRoutes } from './revisions.ts';
 import { registerSectionRoutes } from './sections.ts';
 import { registerSizingRoutes } from './sizing.ts';
-import { registerSizingRoutes } from './sizing.ts';
 import { registerStackRoutes } from './stacks.ts';
 
 export function createApiRouter(ctx: ServerContext): Router {
@@ -23,7 +22,6 @@ export function createApiRouter(ctx: ServerContext): Router {
   registerStackRoutes(router, ctx);
   registerRevisionRoutes(router, ctx);
   registerSectionRoutes(router, ctx);
-  registerSizingRoutes(router, ctx);
   registerSizingRoutes(router, ctx);
   registerImportRoutes(router, ctx);
   registerExportRoutes(router, ctx);
