@@ -3,12 +3,14 @@ import { benchEngine } from './engine.ts';
 import { benchStack } from './stack.ts';
 import { benchRealtime } from './realtime.ts';
 import { benchSizing } from './sizing.ts';
+import { benchFreeze } from './freeze.ts';
 
 const benches: [string, () => Promise<void>][] = [
   ['member check (issue 3)', benchEngine],
   ['stack analysis (issue 4)', benchStack],
   ['live channel (issue 6)', benchRealtime],
   ['sizing (issue 11)', benchSizing],
+  ['freeze a revision (issue 8)', benchFreeze],
 ];
 
 const only = process.argv[2];
