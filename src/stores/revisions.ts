@@ -1,0 +1,113 @@
+// Revisions of the open building: the list, one revision's detail with its mail status, freezing,
+// resending, the package download and the comparison of two states.
+import { ref } from 'vue';
+import { defineStore } from 'pinia';
+import type { FreezeBody, FreezeRefusal, RevisionComparison, RevisionDetail, RevisionSummary } from '@shared/schema/revisions.ts';
+import { ApiError, apiFetch, getToken } from '@/api/http.ts';
+import { describeError, useNotifyStore } from './notify.ts';
+import type { LoadState } from './buildings.ts';
+
+/** The 422 of a refused freeze carries its reasons; anything else has none. */
+export function refusalReasons(e: unknown): FreezeRefusal['reasons'] {
+  if (!(e instanceof ApiError) || e.status !== 422) return [];
+  const details = e.details as Partial<FreezeRefusal> | undefined;
+  return Array.isArray(details?.reasons) ? details.reasons : [];
+}
+
+/** Where a browser saves a downloaded file: an object URL on a temporary link. */
+function saveBlob(blob: Blob, filename: string): void {
+  const url = URL.createObjectURL(blob);
+  const a = document.createElement('a');
+  a.href = url;
+  a.download = filename;
+  document.body.appendChild(a);
+  a.click();
+  a.remove();
+  setTimeout(() => URL.revokeObjectURL(url), 0);
+}
+
+const filenameOf = (res: Response, fallback: string) => /filename="([^"]+)"/.exec(res.headers.get('Content-Disposition') ?? '')?.[1] ?? fallback;
+
+export const useRevisionsStore = defineStore('revisions', () => {
+  const notify = useNotifyStore();
+  const buildingId = ref<number | null>(null);
+  const list = ref<RevisionSummary[]>([]);
+  const state = ref<LoadState>('idle');
+  const error = ref('');
+  const detail = ref<RevisionDetail | null>(null);
+  const comparison = ref<RevisionComparison | null>(null);
+  const comparing = ref(false);
+
+  async function load(id: number): Promise<void> {
+    if (buildingId.value !== id) {
+      list.value = [];
+      detail.value = null;
+      comparison.value = null;
+    }
+    buildingId.value = id;
+    state.value = 'loading';
+    try {
+      list.value = await apiFetch<RevisionSummary[]>('GET', `/buildings/${id}/revisions`);
+      state.value = 'ready';
+    } catch (e) {
+      error.value = describeError(e);
+      state.value = 'error';
+    }
+  }
+
+  /** Freezes; a refusal is thrown back so the dialog can list its reasons. */
+  async function freeze(body: FreezeBody): Promise<RevisionDetail> {
+    if (buildingId.value === null) throw new Error('No building is open');
+    const created = await apiFetch<RevisionDetail>('POST', `/buildings/${buildingId.value}/revisions`, body);
+    detail.value = created;
+    list.value = [created, ...list.value.filter((r) => r.id !== created.id)];
+    notify.success(`Revision ${created.code} frozen; ${created.mail.sent} of ${created.recipients.length} e-mails sent`);
+    return created;
+  }
+
+  async function open(id: number): Promise<void> {
+    try {
+      detail.value = await apiFetch<RevisionDetail>('GET', `/revisions/${id}`);
+    } catch (e) {
+      notify.error(e, 'Could not open the revision');
+    }
+  }
+
+  async function resend(id: number): Promise<void> {
+    try {
+      const updated = await apiFetch<RevisionDetail>('POST', `/revisions/${id}/resend`);
+      detail.value = updated;
+      list.value = list.value.map((r) => (r.id === id ? updated : r));
+      if (updated.mail.failed > 0) notify.error(new Error(`${updated.mail.failed} e-mails still failed`), `Revision ${updated.code}`);
+      else notify.success(`Revision ${updated.code}: every member has the e-mail`);
+    } catch (e) {
+      notify.error(e, 'Could not send the e-mails again');
+    }
+  }
+
+  /** The package needs the bearer token, so it is fetched as a blob and saved, not linked. */
+  async function download(rev: Pick<RevisionSummary, 'id' | 'code'>): Promise<void> {
+    try {
+      const token = getToken();
+      const res = await fetch(`/api/revisions/${rev.id}/calc.pdf`, { headers: token ? { Authorization: `Bearer ${token}` } : {} });
+      if (!res.ok) throw new ApiError(res.status, res.status === 404 ? 'not_found' : 'internal', `Download failed (${res.status})`);
+      saveBlob(await res.blob(), filenameOf(res, `revision-${rev.code}.pdf`));
+    } catch (e) {
+      notify.error(e, `Could not download revision ${rev.code}`);
+    }
+  }
+
+  async function compare(from: number, to: number | 'current'): Promise<void> {
+    if (buildingId.value === null) return;
+    comparing.value = true;
+    try {
+      comparison.value = await apiFetch<RevisionComparison>('GET', `/buildings/${buildingId.value}/revisions/compare?from=${from}&to=${to}`);
+    } catch (e) {
+      notify.error(e, 'Could not compare');
+    } finally {
+      comparing.value = false;
+    }
+  }
+
+  return { buildingId, list, state, error, detail, comparison, comparing, load, freeze, open, resend, download, compare };
+});
