@@ -7,6 +7,7 @@ import type { StackResult } from '@shared/schema/results.ts';
 import type { StackDocument } from '@shared/schema/stack.ts';
 import { nodeTypes } from '@/components/graph/nodes/index.ts';
 import { useStackGraph } from '@/composables/useStackGraph.ts';
+import StackGraph from '@/components/graph/StackGraph.vue';
 
 // Invented demo stack: one lift from a pinned base at ±0 to a cap at +4, a restraint at +4 is not needed.
 const doc: StackDocument = {
@@ -81,6 +82,26 @@ describe('graph node components', () => {
     expect(node(w, 'cap').find('.node-card__person').text()).toBe('AE');
     expect(node(w, 'l1').find('.node-card__person').exists()).toBe(false);
     expect(node(w, 'r1').find('.node-card--selected').exists()).toBe(true);
+    w.unmount();
+  });
+});
+
+describe('stack graph', () => {
+  it('draws every edge of the document although its connection rules refuse a second one like it', async () => {
+    const w = mount(StackGraph, { props: { doc, results: null, selection: [], others: [], readOnly: false }, attachTo: document.body });
+    await flushPromises();
+    // new results make Vue Flow take the edges again, now with the connection rules in force
+    await w.setProps({ results: { errors: [], warnings: [], lifts: [], governingLiftId: null, takeDown: [] } });
+    await flushPromises();
+    expect(w.findAll('.vue-flow__edge')).toHaveLength(doc.edges.length);
+    expect(w.find('.node-palette').exists()).toBe(true);
+    w.unmount();
+  });
+
+  it('gives a viewer no palette', async () => {
+    const w = mount(StackGraph, { props: { doc, results: null, selection: [], others: [], readOnly: true }, attachTo: document.body });
+    await flushPromises();
+    expect(w.find('.node-palette').exists()).toBe(false);
     w.unmount();
   });
 });
