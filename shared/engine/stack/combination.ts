@@ -30,34 +30,40 @@ function leadingValue(state: AxialState, category: Category, options: Options): 
   return alphaN(state.loadedLevels[category] ?? 0, options.annex, category) * Q;
 }
 
+/** γQ·ψ0,i·Q_i for each category, in CATEGORIES order: the accompanying values. */
+function accompanyingValues(state: AxialState, options: Options): number[] {
+  return CATEGORIES.map((c) => GAMMA_Q * psi0(c, options.annex) * (state.sumQk[c] ?? 0));
+}
+
 /** max over the leading action L of permanent + γQ·Q_L* + Σ(i≠L) γQ·ψ0,i·Q_i. */
-function withLeading(permanent: number, state: AxialState, options: Options): { value: number; leading: Category | null } {
+function withLeading(permanent: number, state: AxialState, accompanying: readonly number[], options: Options): { value: number; leading: Category | null } {
   let value = permanent;
   let leading: Category | null = null;
-  for (const L of CATEGORIES) {
-    if (!((state.sumQk[L] ?? 0) > 0)) continue;
+  CATEGORIES.forEach((L, l) => {
+    if (!((state.sumQk[L] ?? 0) > 0)) return;
     let candidate = permanent + GAMMA_Q * leadingValue(state, L, options);
-    for (const i of CATEGORIES) if (i !== L) candidate += GAMMA_Q * psi0(i, options.annex) * (state.sumQk[i] ?? 0);
+    for (let i = 0; i < accompanying.length; i++) if (i !== l) candidate += accompanying[i];
     if (leading === null || candidate > value) {
       value = candidate;
       leading = L;
     }
-  }
+  });
   return { value, leading };
 }
 
 export function designAxialForce(state: AxialState, options: Options): DesignForce {
   const permanent = GAMMA_G * state.sumGk;
+  const accompanying = accompanyingValues(state, options);
   if (options.combination === '6.10') {
     // EN 1990 eq. 6.10
-    const { value, leading } = withLeading(permanent, state, options);
+    const { value, leading } = withLeading(permanent, state, accompanying, options);
     return { NEd: value, leading, combination: leading ? `6.10, leading ${leading}` : '6.10, permanent only' };
   }
   // EN 1990 eq. 6.10a: every variable action at its combination value ψ0·Qk
   let a = permanent;
-  for (const c of CATEGORIES) a += GAMMA_Q * psi0(c, options.annex) * (state.sumQk[c] ?? 0);
+  for (const value of accompanying) a += value;
   // EN 1990 eq. 6.10b: ξ·γG·Gk with a leading variable action
-  const b = withLeading(xi(options.annex) * permanent, state, options);
+  const b = withLeading(xi(options.annex) * permanent, state, accompanying, options);
   if (a >= b.value) return { NEd: a, leading: null, combination: '6.10a' };
   return { NEd: b.value, leading: b.leading, combination: b.leading ? `6.10b, leading ${b.leading}` : '6.10b' };
 }

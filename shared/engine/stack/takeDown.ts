@@ -38,21 +38,31 @@ function selfWeightAbove(weights: readonly ColumnWeight[], elevation: number): n
   return sum;
 }
 
+/** Queries from the top of the stack down: just above an elevation comes before just below it. */
+function sweepOrder(queries: readonly AxialQuery[]): number[] {
+  const level = queries.map((q) => (q.includeEntriesAt ? q.elevation - SAME_ELEVATION_M : q.elevation + SAME_ELEVATION_M));
+  return queries.map((_, i) => i).sort((a, b) => level[b] - level[a]);
+}
+
 /**
  * Loads in the column at each queried section: every entry above it (and at it, when asked), plus the
  * self-weight above it. One sweep down the stack, so a whole stack costs O(entries + queries).
  */
-export function axialStates(entries: readonly LoadEntry[], weights: readonly ColumnWeight[], queries: readonly AxialQuery[]): AxialState[] {
+export function axialStates(
+  entries: readonly LoadEntry[],
+  weights: readonly ColumnWeight[],
+  queries: readonly AxialQuery[],
+  order: readonly number[] = sweepOrder(queries),
+): AxialState[] {
   const down = [...entries].sort((a, b) => b.elevation - a.elevation);
-  const threshold = (q: AxialQuery): number => (q.includeEntriesAt ? q.elevation - SAME_ELEVATION_M : q.elevation + SAME_ELEVATION_M);
-  const order = queries.map((_, i) => i).sort((a, b) => threshold(queries[b]) - threshold(queries[a]));
   const states: AxialState[] = new Array(queries.length);
   let sumGk = 0;
   const sumQk: CategoryValues = {};
   const loadedLevels: CategoryValues = {};
   let next = 0;
   for (const qi of order) {
-    const limit = threshold(queries[qi]);
+    const { elevation, includeEntriesAt } = queries[qi];
+    const limit = includeEntriesAt ? elevation - SAME_ELEVATION_M : elevation + SAME_ELEVATION_M;
     for (; next < down.length && down[next].elevation >= limit; next++) {
       const entry = down[next];
       sumGk += entry.Gk;
@@ -63,8 +73,7 @@ export function axialStates(entries: readonly LoadEntry[], weights: readonly Col
         loadedLevels[c] = (loadedLevels[c] ?? 0) + 1;
       }
     }
-    const selfWeight = selfWeightAbove(weights, queries[qi].elevation);
-    states[qi] = { sumGk: sumGk + selfWeight, sumQk: { ...sumQk }, loadedLevels: { ...loadedLevels } };
+    states[qi] = { sumGk: sumGk + selfWeightAbove(weights, elevation), sumQk: { ...sumQk }, loadedLevels: { ...loadedLevels } };
   }
   return states;
 }
@@ -83,15 +92,13 @@ function categoriesOf(Qk: CategoryValues): string {
 type CombinationOptions = Pick<AnalysisOptions, 'combination' | 'annex' | 'imposedReduction'>;
 
 /**
- * Design forces at the queried sections, never less than at any section above. The force in a column
+ * Design forces at the queried sections (`order`: top down), never less than at any section above. The force in a column
  * below a floor is the force above plus what the floor adds, so where αn (EN 1991-1-1 6.3.1.2(11))
  * would give less, because one more loaded storey lowers αn on the whole leading load, the force
  * from above is kept (common practice, no source: the UK steps do this between 10 and 11 storeys).
  */
-function designForces(states: readonly AxialState[], queries: readonly AxialQuery[], options: CombinationOptions): DesignForce[] {
+function designForces(states: readonly AxialState[], order: readonly number[], options: CombinationOptions): DesignForce[] {
   const forces = states.map((state) => designAxialForce(state, options));
-  const depth = (q: AxialQuery): number => -q.elevation + (q.includeEntriesAt ? SAME_ELEVATION_M : -SAME_ELEVATION_M);
-  const order = queries.map((_, i) => i).sort((a, b) => depth(queries[a]) - depth(queries[b]));
   let above: DesignForce | null = null;
   for (const i of order) {
     if (above && forces[i].NEd < above.NEd) forces[i] = { NEd: above.NEd, leading: above.leading, combination: `${above.combination}, held at the force above` };
@@ -132,8 +139,9 @@ export function takeDown(entries: readonly LoadEntry[], weights: readonly Column
   const ordered = [...entries].sort((p, q) => q.elevation - p.elevation || (p.nodeId < q.nodeId ? -1 : 1));
   const queries: AxialQuery[] = ordered.map((e) => ({ elevation: e.elevation, includeEntriesAt: true }));
   for (const elevation of sections) queries.push({ elevation, includeEntriesAt: false });
-  const states = axialStates(entries, weights, queries);
-  const forces = designForces(states, queries, options);
+  const order = sweepOrder(queries);
+  const states = axialStates(entries, weights, queries, order);
+  const forces = designForces(states, order, options);
   return {
     rows: ordered.map((entry, i) => takeDownRow(entry, states[i], forces[i])),
     sectionNEd: forces.slice(ordered.length).map((f) => f.NEd),
