@@ -23,6 +23,9 @@ interface Fixture {
   engineerId: number;
   viewerId: number;
   outboxId: number;
+  /** A revision frozen once, in a building where the viewer, engineer and lead have the same roles. */
+  revisionBuildingId: number;
+  revisionId: number;
 }
 interface Case {
   path: (f: Fixture) => string;
@@ -84,6 +87,12 @@ const MATRIX: Record<string, Case> = {
   'GET /api/stacks/:id/results.xlsx': { path: (f) => `/stacks/${f.stackId}/results.xlsx`, expect: read },
   'POST /api/stacks/:id/sizing': { path: (f) => `/stacks/${f.stackId}/sizing`, body: () => ({ series: 'UKC', grade: 'S355' }), expect: edit(200) },
   'POST /api/buildings/:id/sizing': { path: (f) => `/buildings/${f.buildingId}/sizing`, body: () => ({ series: 'UKC', grade: 'S355' }), expect: edit(200) },
+  'POST /api/buildings/:id/revisions': { path: (f) => `/buildings/${f.buildingId}/revisions`, body: () => ({ note: 'matrix', purpose: 'preliminary' }), expect: leadOnly(201) },
+  'GET /api/buildings/:id/revisions': { path: (f) => `/buildings/${f.buildingId}/revisions`, expect: read },
+  'GET /api/buildings/:id/revisions/compare': { path: (f) => `/buildings/${f.revisionBuildingId}/revisions/compare?from=${f.revisionId}&to=current`, expect: read },
+  'GET /api/revisions/:id': { path: (f) => `/revisions/${f.revisionId}`, expect: read },
+  'GET /api/revisions/:id/calc.pdf': { path: (f) => `/revisions/${f.revisionId}/calc.pdf`, expect: read },
+  'POST /api/revisions/:id/resend': { path: (f) => `/revisions/${f.revisionId}/resend`, expect: leadOnly(200) },
   'GET /api/dev/outbox': { path: () => '/dev/outbox', expect: adminOnly },
   'GET /api/dev/outbox/:id/attachments/:n': { path: (f) => `/dev/outbox/${f.outboxId}/attachments/0`, expect: adminOnly },
 };
@@ -121,6 +130,21 @@ describe('the role matrix', () => {
     await s?.close();
   });
 
+  let revision: Promise<{ revisionBuildingId: number; revisionId: number }> | null = null;
+  /** Frozen revisions never change, so one serves every case (freezing renders a package). */
+  function sharedRevision(): Promise<{ revisionBuildingId: number; revisionId: number }> {
+    revision ??= (async () => {
+      const lead = tokens.lead.token;
+      const b = await createBuilding(s, lead, 'Matrix revisions');
+      await addMember(s, lead, b.id, tokens.viewer.user.email, 'viewer');
+      await addMember(s, lead, b.id, tokens.engineer.user.email, 'engineer');
+      await s.api('POST', `/buildings/${b.id}/stacks`, { token: lead, body: { name: 'R/1', template } });
+      const r = await s.api('POST', `/buildings/${b.id}/revisions`, { token: lead, body: { note: '', purpose: 'preliminary' } });
+      return { revisionBuildingId: b.id, revisionId: (r.body as { id: number }).id };
+    })();
+    return revision;
+  }
+
   /** A fresh building per request, so a delete or a role change never affects the next case. */
   async function fixture(): Promise<Fixture> {
     const lead = tokens.lead.token;
@@ -130,7 +154,7 @@ describe('the role matrix', () => {
     const level = (await s.api('POST', `/buildings/${b.id}/levels`, { token: lead, body: { name: 'Spare', elevation: 40 } })).body as Level;
     const stack = (await s.api('POST', `/buildings/${b.id}/stacks`, { token: lead, body: { name: 'M/1', template } })).body as StackSummary;
     const outbox = await s.ctx.db('outbox').where({ subject: 'Attachment' }).first<{ id: number }>('id');
-    return { buildingId: b.id, levelId: level.id, stackId: stack.id, version: stack.version, engineerId: tokens.engineer.user.id, viewerId: tokens.viewer.user.id, outboxId: outbox.id };
+    return { buildingId: b.id, levelId: level.id, stackId: stack.id, version: stack.version, engineerId: tokens.engineer.user.id, viewerId: tokens.viewer.user.id, outboxId: outbox.id, ...(await sharedRevision()) };
   }
 
   it('covers every registered route, and every route in it exists', () => {
