@@ -2,7 +2,7 @@
 // row), apply the checked file, download results and the loads template, and search the building's
 // own sections beside the catalogue.
 import { computed, ref } from 'vue';
-import { defineStore } from 'pinia';
+import { defineStore, getActivePinia } from 'pinia';
 import { z } from 'zod';
 import {
   applyResultSchema,
@@ -16,7 +16,9 @@ import {
 } from '@shared/schema/imports.ts';
 import { ApiError, apiFetch, getToken } from '@/api/http.ts';
 import { searchSections as searchCatalogue, type SectionHit } from '@/api/sections.ts';
+import { useBuildingsStore } from './buildings.ts';
 import { describeError, useNotifyStore } from './notify.ts';
+import { useStackStore } from './stack.ts';
 
 export type ImportKind = 'loads' | 'sections';
 export type ImportState = 'idle' | 'checking' | 'checked' | 'applying' | 'applied';
@@ -147,3 +149,16 @@ export const useImportsStore = defineStore('imports', () => {
 
   return { buildingId, kind, file, preview, problems, state, failure, canApply, reset, check, apply, download, searchSections };
 });
+
+/** The section pickers of the building page: the open building's own sections, then the catalogue. */
+export function searchBuildingSections(q: string, series?: string): Promise<SectionHit[]> {
+  // A picker mounted on its own (without the app's stores) searches the catalogue only.
+  if (!getActivePinia()) return searchCatalogue(q, series);
+  return useImportsStore().searchSections(q, series, useBuildingsStore().current?.id);
+}
+
+/** The section picker of the stack editor: the stack's building's own sections, then the catalogue. */
+export function searchStackSections(q: string, series?: string): Promise<SectionHit[]> {
+  if (!getActivePinia()) return searchCatalogue(q, series);
+  return useImportsStore().searchSections(q, series, useStackStore().buildingId);
+}
