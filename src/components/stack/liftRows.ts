@@ -23,6 +23,8 @@ export interface LiftRow {
   /** kN */
   NbRd: number;
   utilisation: number;
+  /** Largest simple-construction combined check of the lift's pieces; null when no nominal moments act. */
+  combined: number | null;
   governing: GoverningMode;
   isGoverningLift: boolean;
 }
@@ -67,6 +69,7 @@ export function liftRows(results: StackResult | null, doc: StackDocument | null)
         chiZ: c.chiZ,
         NbRd: c.NbRd / N_PER_KN,
         utilisation: lift.utilisation,
+        combined: lift.pieces.reduce<number | null>((max, p) => (p.combined && (max === null || p.combined.utilisation > max) ? p.combined.utilisation : max), null),
         governing: lift.governing,
         isGoverningLift: results.governingLiftId === lift.liftId,
       },
