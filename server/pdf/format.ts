@@ -36,3 +36,6 @@ export const governingWords: Record<string, string> = {
   'flexural-y': 'buckling y-y',
   'flexural-z': 'buckling z-z',
 };
+
+/** For narrow columns headed "Mode". */
+export const governingShort: Record<string, string> = { 'cross-section': 'section', 'flexural-y': 'y-y', 'flexural-z': 'z-z' };

@@ -4,7 +4,7 @@ import type { Level } from '../../shared/schema/api.ts';
 import type { SnapshotStack } from '../../shared/schema/revisions.ts';
 import { summariseResult } from '../services/analysis.ts';
 import { drawElevation } from './elevation.ts';
-import { governingWords, metres, ratio } from './format.ts';
+import { governingShort, metres, ratio } from './format.ts';
 import { COLOUR, CONTENT_BOTTOM, FONT, FULL_WIDTH, MARGIN, SIZE, utilisationColour } from './layout.ts';
 import { drawMemberChecks } from './memberWorking.ts';
 import type { Pdf } from './pdf.ts';
@@ -14,12 +14,13 @@ import { drawTakeDown } from './takeDownTable.ts';
 
 const ELEVATION_WIDTH = 226;
 const LIFT_COLUMNS: Column[] = [
-  { header: 'Lift', width: 34 },
+  { header: 'Lift', width: 30 },
   { header: 'From', unit: 'm', width: 34, align: 'right' },
   { header: 'To', unit: 'm', width: 34, align: 'right' },
-  { header: 'Section', width: 96 },
+  { header: 'Section', width: 88 },
+  { header: 'Grade', width: 28 },
   { header: 'Util.', width: 30, align: 'right' },
-  { header: 'Check', width: 47 },
+  { header: 'Mode', width: 30 },
 ];
 
 export function drawStackSection(doc: Pdf, stack: SnapshotStack, levels: Level[], index: number): void {
@@ -40,9 +41,10 @@ export function drawStackSection(doc: Pdf, stack: SnapshotStack, levels: Level[]
     { text: l.liftId, bold: l.liftId === stack.results.governingLiftId },
     metres(l.bottom),
     metres(l.top),
-    `${l.section} ${l.grade}`,
+    l.section,
+    l.grade,
     { text: ratio(l.utilisation), colour: utilisationColour(l.utilisation), bold: true },
-    governingWords[l.governing],
+    governingShort[l.governing],
   ]);
   drawTable(doc, MARGIN.left + ELEVATION_WIDTH + 10, LIFT_COLUMNS, rows);
 
