@@ -4,6 +4,7 @@ import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { randomBytes } from 'node:crypto';
 import knex from 'knex';
+import type { Express } from 'express';
 import type { AuthResponse, Building, Role } from '../../shared/schema/api.ts';
 import { startServer, type RunningServer, type StartOptions } from '../../server/server.ts';
 
@@ -111,4 +112,21 @@ export function errorCode(body: unknown): string | undefined {
   if (typeof body !== 'object' || body === null || !('error' in body)) return undefined;
   const e = (body as { error: { code?: unknown; message?: unknown } }).error;
   return typeof e.code === 'string' && typeof e.message === 'string' ? e.code : undefined;
+}
+
+interface RouteLayer {
+  route?: { path: string; methods: Record<string, boolean> };
+  handle: { stack?: RouteLayer[] };
+}
+
+/** "METHOD /api/path" of every route registered on the routers mounted under /api, sorted. */
+export function listRoutes(app: Express): string[] {
+  const out: string[] = [];
+  for (const layer of app.router.stack as RouteLayer[]) {
+    for (const inner of layer.handle.stack ?? []) {
+      if (!inner.route) continue;
+      for (const [method, on] of Object.entries(inner.route.methods)) if (on && method !== '_all') out.push(`${method.toUpperCase()} /api${inner.route.path}`);
+    }
+  }
+  return out.sort();
 }

@@ -2,7 +2,7 @@
 // and the database exactly as it was (issue 5 acceptance).
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type { Level, StackDetail, StackSummary } from '../../shared/schema/api.ts';
-import { addMember, createBuilding, errorCode, registerUser, startTestServer, type TestServer } from './helpers.ts';
+import { addMember, createBuilding, errorCode, listRoutes, registerUser, startTestServer, type TestServer } from './helpers.ts';
 
 const TABLES = ['users', 'buildings', 'memberships', 'invitations', 'levels', 'stacks', 'stack_ops', 'audit_log', 'outbox', 'mail_log'];
 const HUGE = JSON.stringify({ name: 'x'.repeat(1_200_000) });
@@ -57,7 +57,8 @@ describe('malformed input on every writing route', () => {
     });
   }
 
-  const routes: { name: string; method: string; path: () => string; cases: () => [string, Req][] }[] = [
+  // bodyless: the route reads no body, so only its path parameters can be malformed.
+  const routes: { name: string; method: string; path: () => string; bodyless?: boolean; cases: () => [string, Req][] }[] = [
     {
       name: 'POST /api/buildings',
       method: 'POST',
@@ -102,6 +103,7 @@ describe('malformed input on every writing route', () => {
     {
       name: 'DELETE /api/buildings/:id/members/:memberId',
       method: 'DELETE',
+      bodyless: true,
       path: () => `/buildings/${ids.building}/members/${ids.member}`,
       cases: () => [
         ['NaN as the member id', { path: `/buildings/${ids.building}/members/NaN` }],
@@ -132,6 +134,7 @@ describe('malformed input on every writing route', () => {
     {
       name: 'DELETE /api/buildings/:id/levels/:levelId',
       method: 'DELETE',
+      bodyless: true,
       path: () => `/buildings/${ids.building}/levels/${ids.level}`,
       cases: () => [['a level id of 0', { path: `/buildings/${ids.building}/levels/0` }]],
     },
@@ -193,9 +196,52 @@ describe('malformed input on every writing route', () => {
     {
       name: 'DELETE /api/stacks/:id',
       method: 'DELETE',
+      bodyless: true,
       path: () => `/stacks/${ids.stack}`,
       cases: () => [['a stack id that is not a number', { path: '/stacks/one' }]],
     },
+    // Routes of colleagues' features: a JSON body where a CSV upload is expected, bad fields, bad ids.
+    ...['loads', 'loads/apply', 'sections', 'sections/apply'].map((kind) => ({
+      name: `POST /api/buildings/:id/imports/${kind}`,
+      method: 'POST',
+      path: () => `/buildings/${ids.building}/imports/${kind}`,
+      cases: (): [string, Req][] => [
+        ['JSON instead of a CSV upload', { body: { rows: [[1, 2]] } }],
+        ['a building id of 1e308', { path: `/buildings/1e308/imports/${kind}`, body: {} }],
+      ],
+    })),
+    {
+      name: 'POST /api/buildings/:id/revisions',
+      method: 'POST',
+      path: () => `/buildings/${ids.building}/revisions`,
+      cases: () => [
+        ['an unknown purpose', { body: { purpose: 'final', note: 'x' } }],
+        ['a note that is a number', { body: { purpose: 'preliminary', note: 1e308 } }],
+        ['acknowledgement as a string', { body: { purpose: 'preliminary', acknowledgeFailingLifts: 'NaN' } }],
+        ['an unknown field', { body: { purpose: 'preliminary', code: 'P99' } }],
+      ],
+    },
+    {
+      name: 'POST /api/revisions/:id/resend',
+      method: 'POST',
+      path: () => '/revisions/1/resend',
+      bodyless: true,
+      cases: () => [
+        ['NaN as the revision id', { path: '/revisions/NaN/resend' }],
+        ['a revision id of -1', { path: '/revisions/-1/resend' }],
+      ],
+    },
+    ...(['stacks', 'buildings'] as const).map((scope) => ({
+      name: `POST /api/${scope}/:id/sizing`,
+      method: 'POST',
+      path: () => `/${scope}/${scope === 'stacks' ? ids.stack : ids.building}/sizing`,
+      cases: (): [string, Req][] => [
+        ['an unknown series', { body: { series: 'XYZ', grade: 'S355' } }],
+        ['a target of 1e308', { body: { series: 'UKC', grade: 'S355', target: 1e308 } }],
+        ['a negative target', { body: { series: 'UKC', grade: 'S355', target: -0.5 } }],
+        ['NaN as a string for the target', { body: { series: 'UKC', grade: 'S355', target: 'NaN' } }],
+      ],
+    })),
     {
       name: 'POST /api/auth/register',
       method: 'POST',
@@ -207,8 +253,7 @@ describe('malformed input on every writing route', () => {
   for (const route of routes) {
     it(`${route.name}: every malformed request gets a 4xx in the error shape and changes nothing`, async () => {
       const before = await snapshot();
-      const withBody = route.method !== 'DELETE';
-      const cases = [...(withBody ? common : []), ...route.cases()];
+      const cases = [...(route.bodyless ? [] : common), ...route.cases()];
       const failures: string[] = [];
       for (const [label, req] of cases) {
         const r = await s.api(route.method, req.path ?? route.path(), { token, body: req.body, raw: req.raw });
@@ -219,6 +264,11 @@ describe('malformed input on every writing route', () => {
       expect(await snapshot()).toBe(before);
     });
   }
+
+  it('covers every writing route the server registers (sign-in is covered in auth.test.ts)', () => {
+    const writing = listRoutes(s.app).filter((r) => !r.startsWith('GET ') && r !== 'POST /api/auth/login');
+    expect(writing).toEqual(routes.map((r) => r.name).sort());
+  });
 
   it('still reads the stack afterwards (no malformed write left a broken document behind)', async () => {
     const r = await s.api('GET', `/stacks/${ids.stack}`, { token });
