@@ -4,8 +4,14 @@ import { stringify } from 'csv-stringify/sync';
 
 export type Cell = string | number | undefined;
 
+/**
+ * Text that a spreadsheet would run as a formula (= + - @ first) gets a leading apostrophe, which
+ * spreadsheets show as text; readCsv takes it off again, so names still round-trip.
+ */
+export const spreadsheetSafe = (cell: Cell): Cell => (typeof cell === 'string' && /^[=+\-@\t\r]/.test(cell) ? `'${cell}` : cell);
+
 export function toCsv(columns: readonly string[], rows: readonly Partial<Record<string, Cell>>[]): string {
-  return stringify(rows.map((r) => columns.map((c) => r[c] ?? '')), { header: true, columns: [...columns], record_delimiter: 'windows' });
+  return stringify(rows.map((r) => columns.map((c) => spreadsheetSafe(r[c]) ?? '')), { header: true, columns: [...columns], record_delimiter: 'windows' });
 }
 
 export async function toXlsx(sheet: string, columns: readonly string[], rows: readonly Partial<Record<string, Cell>>[], note: string): Promise<Buffer> {

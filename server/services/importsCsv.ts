@@ -114,7 +114,8 @@ export function readCsv(buf: Buffer, columns: readonly string[], required: reado
       continue;
     }
     const cells: Record<string, string> = {};
-    names.forEach((name, i) => (cells[name] = record[i]!));
+    // An apostrophe before = + - @ is how our downloads keep text from running as a formula.
+    names.forEach((name, i) => (cells[name] = record[i]!.replace(/^'(?=[=+\-@])/, '')));
     rows.push({ line: info.lines, cells });
   }
   return problems.length > 0 ? { ok: false, problems } : { ok: true, rows };

@@ -279,3 +279,19 @@ describe('round trip', () => {
     expect(again.bytes.toString('utf8')).toBe(text);
   });
 });
+
+describe('formula-looking names', () => {
+  it('the template writes a name that a spreadsheet would run as a formula as text, and it still re-imports', async () => {
+    const made = await s.api('POST', `/buildings/${buildingId}/stacks`, { token: lead.token, body: { name: '=C/3', template: { storeys: 1, storeyHeight: 3.6, sections: ['UKC 203x203x46'], Gk: 10, Qk: 5 } } });
+    expect(made.status).toBe(201);
+    const t = await download(s, `/buildings/${buildingId}/imports/loads/template.csv`, viewer.token);
+    const lines = t.bytes.toString('utf8').trim().split(/\r?\n/);
+    // OWASP "CSV injection": a leading apostrophe makes spreadsheets show the cell as text.
+    expect(lines).toContain("'=C/3,Level 1,10,5,H");
+    expect(lines.some((l) => l.startsWith('=C/3'))).toBe(false);
+    const again = (await preview(t.bytes)).body as LoadsPreview;
+    expect(again.problems).toEqual([]);
+    expect(again.changes).toEqual([]);
+    expect(again.unchanged).toBe(lines.length - 1);
+  });
+});
