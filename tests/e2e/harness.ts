@@ -84,3 +84,58 @@ export async function signIn(page: Page, baseUrl: string, email: string, passwor
   await page.getByRole('button', { name: 'Sign in' }).click();
   await page.waitForURL((u) => !u.pathname.startsWith('/sign-in'));
 }
+
+/** Opens the demo building from the buildings list. */
+export async function openDemoBuilding(page: Page): Promise<void> {
+  await page.getByText('Demo office block').first().click();
+  await page.getByRole('heading', { name: 'Demo office block' }).waitFor();
+}
+
+/** Opens a stack of the current building by its grid reference. */
+export async function openStack(page: Page, gridRef: string): Promise<void> {
+  await page.getByRole('cell', { name: gridRef, exact: true }).first().click();
+  await page.waitForURL(/\/stacks\/\d+/);
+  await results(page).getByText('governs').first().waitFor();
+}
+
+export const results = (page: Page) => page.getByRole('region', { name: 'Results' });
+export const properties = (page: Page) => page.getByRole('complementary', { name: 'Properties' });
+export const graphNode = (page: Page, id: string) => page.locator(`.vue-flow__node[data-id="${id}"]`);
+
+/** Selects a node on the graph with the keyboard, as a person can. */
+export async function selectNode(page: Page, id: string): Promise<void> {
+  // A tall stack is larger than the pane: focusing a node pans to it (as Tab does), Enter selects it.
+  const node = graphNode(page, id);
+  await node.focus();
+  await page.keyboard.press('Enter');
+  await properties(page).getByText(/./).first().waitFor();
+}
+
+/** The results-table row of a lift, by its label (L1, L2, … from the bottom). */
+export const liftRow = (page: Page, label: string) =>
+  results(page)
+    .locator('tbody tr')
+    .filter({ has: page.locator('td:first-child', { hasText: new RegExp(`^\\s*${label}(\\s|$)`) }) });
+
+/** Picks a catalogue section in the properties pane's section picker. */
+export async function pickSection(page: Page, designation: string): Promise<void> {
+  const field = properties(page).locator('[data-field="section"]');
+  await field.click();
+  await page.keyboard.type(designation, { delay: 10 });
+  await page.locator('.q-menu .q-item').filter({ hasText: designation }).first().click();
+}
+
+/** A lift's utilisation as the results table shows it. */
+export async function liftUtilisation(page: Page, label: string): Promise<number> {
+  const headers = (await results(page).locator('thead th').allInnerTexts()).map((h) => h.trim());
+  const column = headers.indexOf('Utilisation');
+  if (column < 0) throw new Error(`no Utilisation column in ${headers.join(' | ')}`);
+  const text = await liftRow(page, label).locator('td').nth(column).innerText();
+  return Number(text.trim().split(/\s+/)[0]);
+}
+
+/** The label (L1, L2, …) of the lift the results table marks as governing. */
+export async function governingLift(page: Page): Promise<string> {
+  const row = results(page).locator('tbody tr').filter({ hasText: 'governs' });
+  return (await row.locator('td').first().innerText()).replace('governs', '').trim();
+}
