@@ -20,6 +20,11 @@ export function createApp(ctx: ServerContext): Express {
   app.use(pinoHttp({ level: ctx.config.logLevel, redact: ['req.headers.authorization'] }));
   app.use(express.json({ limit: JSON_BODY_LIMIT }));
 
+  // API replies are per user and change with every edit: never cached by browsers or proxies.
+  app.use('/api', (_req, res, next) => {
+    res.set('Cache-Control', 'no-store');
+    next();
+  });
   app.use('/api', createApiRouter(ctx));
   app.use('/api', (req, _res, next) => next(notFound(`Route ${req.method} /api${req.path}`)));
 
