@@ -4,7 +4,9 @@ import { DEFAULT_ANALYSIS_OPTIONS, type AnalysisOptions } from '../../schema/res
 import type { LiftSizing, SizingRequest, StackSizing } from '../../schema/sizing.ts';
 import type { StackDocument } from '../../schema/stack.ts';
 import { allLevelElevations, type AnalysisContext } from '../stack/context.ts';
+import { analyseStack } from '../stack/analyseStack.ts';
 import { inspectStack } from '../stack/inspectStack.ts';
+import { hasNominalMoments, raiseUntilPassing } from './nominalMoments.ts';
 import { checkableCandidates, sizingCandidates, type GradedCandidate } from './sizingCandidates.ts';
 import { currentUtilisations, sizeLifts, type CurrentCheck, type LiftPick } from './sizeLifts.ts';
 import { sizingModel, type SizingModel } from './sizingModel.ts';
@@ -28,17 +30,27 @@ function columnMass(model: SizingModel, picks?: readonly LiftPick[]): number {
  * next at a splice. Each serial size is sized on its own; the one that sizes the most lifts, then the
  * lightest column, wins (the first in the table on a tie).
  */
-function bestPicks(model: SizingModel, candidates: readonly GradedCandidate[], request: SizingRequest): { picks: LiftPick[]; serial: string | null } {
-  if (!request.sameSerialSize) return { picks: sizeLifts(model, candidates, request), serial: null };
+type Search = (candidates: readonly GradedCandidate[]) => LiftPick[];
+
+function bestPicks(model: SizingModel, candidates: readonly GradedCandidate[], request: SizingRequest, search: Search): { picks: LiftPick[]; serial: string | null } {
+  if (!request.sameSerialSize) return { picks: search(candidates), serial: null };
   const serials = [...new Set(candidates.map((c) => c.serial))];
   let best: { picks: LiftPick[]; serial: string | null } | null = null;
   for (const serial of serials) {
-    const picks = sizeLifts(model, candidates.filter((c) => c.serial === serial), request);
+    const picks = search(candidates.filter((c) => c.serial === serial));
     if (!best || sizedCount(picks) > sizedCount(best.picks) || (sizedCount(picks) === sizedCount(best.picks) && columnMass(model, picks) < columnMass(model, best.picks))) {
       best = { picks, serial };
     }
   }
   return best ?? { picks: model.lifts.map(() => ({ kind: 'none' })), serial: null };
+}
+
+/** The stack as it is, analysed whole: what "before" shows when nominal moments couple the lifts. */
+function analysedUtilisations(doc: StackDocument, count: number, options: AnalysisOptions, context: AnalysisContext): CurrentCheck[] {
+  const result = analyseStack(doc, options, context);
+  if (result.errors.length === 0) return result.lifts.map((l) => ({ utilisation: l.utilisation }));
+  const message = result.errors.map((e) => e.message).join('; ');
+  return Array.from({ length: count }, () => ({ utilisation: null, message }));
 }
 
 function liftRow(model: SizingModel, i: number, pick: LiftPick, now: CurrentCheck, request: SizingRequest): LiftSizing {
@@ -60,8 +72,13 @@ export function sizeStack(doc: StackDocument, request: SizingRequest, options: P
 
   const model = sizingModel(stack, settings, allLevelElevations(context.levels), context.sections);
   const candidates = checkableCandidates(sizingCandidates(request.series, request.allowed), request.grade, settings.annex);
-  const { picks, serial } = bestPicks(model, candidates, request);
-  const now = currentUtilisations(model);
+  const moments = hasNominalMoments(doc, settings);
+  const liftIds = model.lifts.map((l) => l.id);
+  const search: Search = moments
+    ? (group) => raiseUntilPassing(doc, liftIds, sizeLifts(model, group, request), group, request, settings, context)
+    : (group) => sizeLifts(model, group, request);
+  const { picks, serial } = bestPicks(model, candidates, request, search);
+  const now = moments ? analysedUtilisations(doc, model.lifts.length, settings, context) : currentUtilisations(model);
   const lifts = model.lifts.map((_, i) => liftRow(model, i, picks[i], now[i], request));
   return {
     errors: [],
