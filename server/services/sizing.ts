@@ -21,7 +21,7 @@ function engineRefusal<T>(run: () => T): T {
 export async function stackSizingPreview(db: Knex, stackId: number, request: SizingRequest): Promise<StackSizingPreview> {
   const row = await loadStackRow(db, stackId);
   const inputs = await analysisInputs(db, row.building_id);
-  const sizing = engineRefusal(() => sizeStack(parseDoc(row.doc), request, inputs.options, { levels: inputs.levels }));
+  const sizing = engineRefusal(() => sizeStack(parseDoc(row.doc), request, inputs.options, { levels: inputs.levels, sections: inputs.sections }));
   return { stackId: row.id, name: row.name, version: row.version, ...sizing };
 }
 
@@ -29,6 +29,6 @@ export async function buildingSizingPreview(db: Knex, buildingId: number, reques
   const rows = await db<StackRow>('stacks').where({ building_id: buildingId }).orderBy('name').orderBy('id').select('id', 'name', 'version', 'doc');
   const inputs = await analysisInputs(db, buildingId);
   const stacks = rows.map((r) => ({ stackId: r.id, name: r.name, version: r.version, doc: parseDoc(r.doc) }));
-  const sizing = engineRefusal(() => sizeBuilding(stacks, request, inputs.options, { levels: inputs.levels }));
+  const sizing = engineRefusal(() => sizeBuilding(stacks, request, inputs.options, { levels: inputs.levels, sections: inputs.sections }));
   return { buildingId, ...sizing };
 }
