@@ -22,7 +22,7 @@ export async function analysisInputs(db: Knex, buildingId: number): Promise<Anal
 }
 
 export function analyse(doc: StackDocument, inputs: AnalysisInputs): StackResult {
-  return analyseStack(doc, inputs.options, { levels: inputs.levels, sections: inputs.sections });
+  return analyseStack(doc, inputs.options, { levels: inputs.levels, sections: inputs.sections, shapeChecked: true });
 }
 
 export type StackStatus = 'passes' | 'fails' | 'errors';

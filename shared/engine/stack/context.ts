@@ -8,6 +8,11 @@ export interface AnalysisContext {
   levels?: LevelElevations;
   /** A building's own sections, by designation. */
   sections?: ReadonlyMap<string, SectionDims>;
+  /**
+   * The caller has already parsed the document with stackDocumentSchema (the server does on every
+   * read and write), so its shape need not be checked again; its meaning always is.
+   */
+  shapeChecked?: boolean;
 }
 
 /** Elevations closer than this (m) are the same elevation. */

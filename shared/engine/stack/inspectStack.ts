@@ -41,7 +41,7 @@ export interface Inspection {
 
 export function inspectStack(doc: StackDocument, context: AnalysisContext = {}): Inspection {
   const warnings: Issue[] = [BRACED_FRAME_WARNING];
-  const shape = schemaIssues(doc);
+  const shape = context.shapeChecked ? [] : schemaIssues(doc);
   if (shape.length) return { model: null, errors: shape, warnings };
 
   const { graph, issues: graphErrors } = buildStackGraph(doc);
