@@ -1,20 +1,11 @@
 // Reading the messages captured by the local SMTP fake.
 import type { Knex } from 'knex';
 import { z } from 'zod';
+import type { OutboxMessage } from '../../shared/schema/outbox.ts';
 import { isoTime } from '../db.ts';
 import { notFound } from '../errors.ts';
 
 const storedAttachments = z.array(z.object({ filename: z.string(), contentType: z.string(), size: z.number(), content: z.string() }));
-
-export interface OutboxMessage {
-  id: number;
-  to: string;
-  subject: string;
-  text: string;
-  html: string | null;
-  attachments: { filename: string; contentType: string; size: number }[];
-  createdAt: string;
-}
 
 interface OutboxRow {
   id: number;

@@ -5,7 +5,7 @@ import { afterAll, beforeAll, expect, it } from 'vitest';
 import type { Browser } from 'playwright-core';
 import { PDFParse } from 'pdf-parse';
 import type { AuthResponse } from '../../shared/schema/api.ts';
-import type { OutboxMessage } from '../../server/mail/outbox.ts';
+import type { OutboxMessage } from '../../shared/schema/outbox.ts';
 import { DEMO, DEMO_PASSWORD, describeInBrowser, launchBrowser, newContext, openDemoBuilding, screenshot, signIn, startApp, type App } from './harness.ts';
 
 describeInBrowser('freezing a revision', () => {

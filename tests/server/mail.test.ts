@@ -2,7 +2,7 @@ import { createServer, type Server } from 'node:net';
 import type { AddressInfo } from 'node:net';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { MAIL_ATTEMPTS } from '../../server/mail/mailer.ts';
-import type { OutboxMessage } from '../../server/mail/outbox.ts';
+import type { OutboxMessage } from '../../shared/schema/outbox.ts';
 import { createBuilding, errorCode, makeAdmin, registerUser, startTestServer, type TestServer } from './helpers.ts';
 
 describe('the local SMTP fake and the dev outbox', () => {

@@ -1,7 +1,7 @@
 import { createServer, type Server } from 'node:net';
 import type { AddressInfo } from 'node:net';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import type { OutboxMessage } from '../../server/mail/outbox.ts';
+import type { OutboxMessage } from '../../shared/schema/outbox.ts';
 import type { RevisionDetail } from '../../shared/schema/revisions.ts';
 import { makeAdmin, registerUser, startTestServer, type TestServer } from './helpers.ts';
 import { revisionFixture, type RevisionFixture } from './revisionsFixture.ts';
