@@ -9,6 +9,7 @@ import { renderCalcPackage } from '../pdf/calcPackage.ts';
 import { buildingOfRevisionId, freezeRevision, getRevision, listRevisions, loadSnapshot } from '../services/revisions.ts';
 import { compareRevisions } from '../services/revisionsCompare.ts';
 import { packageFilename, sendRevisionMail } from '../services/revisionsMail.ts';
+import { ENGINE_VERSION } from '../../shared/engine/version.ts';
 
 /** Where the e-mail's link points: the page the lead froze from (Origin), else this server. */
 function revisionsLink(req: Request, buildingId: number): string {
@@ -25,7 +26,7 @@ export function registerRevisionRoutes(router: Router, ctx: ServerContext): void
   router.post('/buildings/:id/revisions', auth, requireRole(ctx, 'lead'), async (req, res) => {
     const body = parseBody(freezeBodySchema, req);
     const { buildingId } = currentAccess(req);
-    const { id, snapshot, hash } = await freezeRevision(ctx.db, buildingId, { ...body, engineVersion: ctx.config.version }, currentUser(req));
+    const { id, snapshot, hash } = await freezeRevision(ctx.db, buildingId, { ...body, engineVersion: ENGINE_VERSION }, currentUser(req));
     // Committed: from here on a failure to send is recorded per recipient and never undoes the freeze.
     const pdf = await renderCalcPackage(snapshot, hash);
     await sendRevisionMail(ctx, id, snapshot, hash, revisionsLink(req, buildingId), pdf);

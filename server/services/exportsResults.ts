@@ -5,8 +5,7 @@ import type { LiftResult, PieceCheck } from '../../shared/schema/results.ts';
 import { loadStackRow, parseResults, type StackRow } from './stackRows.ts';
 
 /** SPEC §9: every copy of the results carries this. */
-export const RESULTS_NOTE =
-  'Stanchion results are a design aid. The design must be checked by a competent engineer against the National Annex and the regulations in force where the building is. Braced (non-sway) frames only.';
+export { SAFETY_NOTE as RESULTS_NOTE } from '../../shared/safety.ts';
 
 /** Header of each column, with its unit. */
 export const RESULT_COLUMNS = [

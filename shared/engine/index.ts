@@ -1,4 +1,5 @@
 export * from './errors.ts';
+export * from './version.ts';
 export * from './constants.ts';
 export * from './imperfectionFactor.ts';
 export * from './reductionFactor.ts';

@@ -1,3 +1,2 @@
 /** SPEC §9: shown wherever results are shown (building page, stack editor, calculation sheets). */
-export const SAFETY_NOTE =
-  "Stanchion's results are a design aid. The design must be checked by a competent engineer against the National Annex and the regulations in force where the building is. Braced (non-sway) frames only; fire, seismic actions and connections are outside its scope.";
+export { SAFETY_NOTE } from '@shared/safety.ts';
