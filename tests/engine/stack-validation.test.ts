@@ -26,7 +26,7 @@ describe('validateStack', () => {
   it('accepts a well-formed stack with no errors and the braced-frame warning', () => {
     const { errors, warnings } = validateStack(valid());
     expect(errors).toEqual([]);
-    expect(warnings).toEqual([{ message: expect.stringContaining('braced (non-sway) frame and axial load only') }]);
+    expect(warnings).toEqual([{ message: expect.stringContaining('braced (non-sway) frame in simple construction') }]);
   });
 
   it('reports an empty document as having neither support nor cap', () => {

@@ -30,7 +30,7 @@ export interface StackModel {
 
 export const BRACED_FRAME_WARNING: Issue = {
   message:
-    'The analysis assumes a braced (non-sway) frame and axial load only: sway, frame moments and eccentric connections are not included',
+    'The analysis assumes a braced (non-sway) frame in simple construction: sway effects, frame moments from continuous connections, fire, seismic actions and the connections themselves are not checked; only the nominal moments of beam reactions given on the column faces are included',
 };
 
 export interface Inspection {
