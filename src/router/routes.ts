@@ -1,5 +1,6 @@
 // Every page is its own chunk (route-level code splitting) so the first download stays small.
-import type { RouteRecordRaw } from 'vue-router';
+import type { RouteLocationRaw, RouteRecordRaw } from 'vue-router';
+import { useAuthStore } from '@/stores/auth.ts';
 
 declare module 'vue-router' {
   interface RouteMeta {
@@ -8,6 +9,11 @@ declare module 'vue-router' {
     /** Only for visitors who are not signed in (sign-in, register). */
     guestOnly?: boolean;
   }
+}
+
+/** Site admins only; anyone else goes to the buildings list. The global guard has loaded the user by now. */
+function adminOnly(): true | RouteLocationRaw {
+  return useAuthStore().user?.isAdmin ? true : { name: 'buildings' };
 }
 
 export const routes: RouteRecordRaw[] = [
@@ -29,6 +35,7 @@ export const routes: RouteRecordRaw[] = [
       { path: 'buildings/:id', name: 'building', component: () => import('@/pages/BuildingPage.vue') },
       { path: 'buildings/:id/revisions', name: 'revisions', component: () => import('@/pages/RevisionsPage.vue') },
       { path: '/stacks/:id', name: 'stack', component: () => import('@/pages/StackPage.vue') },
+      { path: 'outbox', name: 'outbox', component: () => import('@/pages/OutboxPage.vue'), beforeEnter: adminOnly },
     ],
   },
   { path: '/:pathMatch(.*)*', name: 'not-found', component: () => import('@/pages/NotFoundPage.vue'), meta: { public: true } },

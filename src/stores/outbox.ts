@@ -1,0 +1,61 @@
+// The development mail catcher for site admins: the captured messages, newest first, the one open
+// in the detail pane, and attachment downloads.
+import { computed, ref } from 'vue';
+import { defineStore } from 'pinia';
+import type { OutboxMessage } from '@shared/schema/outbox.ts';
+import { fetchOutboxAttachment, listOutbox } from '@/api/outbox.ts';
+import { describeError, useNotifyStore } from './notify.ts';
+import type { LoadState } from './buildings.ts';
+
+/** Where a browser saves a downloaded file: an object URL on a temporary link. */
+function saveBlob(blob: Blob, filename: string): void {
+  const url = URL.createObjectURL(blob);
+  const a = document.createElement('a');
+  a.href = url;
+  a.download = filename;
+  document.body.appendChild(a);
+  a.click();
+  a.remove();
+  setTimeout(() => URL.revokeObjectURL(url), 0);
+}
+
+/** Newest first by capture time; the id breaks ties between messages of the same instant. */
+export function newestFirst(messages: OutboxMessage[]): OutboxMessage[] {
+  return [...messages].sort((a, b) => b.createdAt.localeCompare(a.createdAt) || b.id - a.id);
+}
+
+export const useOutboxStore = defineStore('outbox', () => {
+  const notify = useNotifyStore();
+  const messages = ref<OutboxMessage[]>([]);
+  const state = ref<LoadState>('idle');
+  const error = ref('');
+  const selectedId = ref<number | null>(null);
+  const selected = computed(() => messages.value.find((m) => m.id === selectedId.value) ?? null);
+
+  async function load(): Promise<void> {
+    state.value = 'loading';
+    try {
+      messages.value = newestFirst(await listOutbox());
+      state.value = 'ready';
+    } catch (e) {
+      error.value = describeError(e);
+      state.value = 'error';
+    }
+  }
+
+  function select(id: number | null): void {
+    selectedId.value = id;
+  }
+
+  async function downloadAttachment(message: OutboxMessage, index: number): Promise<void> {
+    const attachment = message.attachments[index];
+    if (!attachment) return;
+    try {
+      saveBlob(await fetchOutboxAttachment(message.id, index), attachment.filename);
+    } catch (e) {
+      notify.error(e, `Could not download ${attachment.filename}`);
+    }
+  }
+
+  return { messages, state, error, selectedId, selected, load, select, downloadAttachment };
+});
