@@ -1,16 +1,13 @@
 // Issues 7 and 12 (flow 1): an engineer creates a stack from a template, sets sections and loads, and
 // sees the results and the governing lift change — in the real app, in headless Chromium.
-import { afterAll, beforeAll, expect, it } from 'vitest';
-import type { Browser } from 'playwright-core';
+import { expect, it } from 'vitest';
 import {
   DEMO,
   describeInBrowser,
   governingLift,
   graphNode,
-  liftUtilisation,
-  launchBrowser,
   liftRow,
-  newContext,
+  liftUtilisation,
   openDemoBuilding,
   openStack,
   pickSection,
@@ -18,26 +15,14 @@ import {
   results,
   screenshot,
   selectNode,
-  signIn,
-  startApp,
-  type App,
+  useAppAndBrowser,
 } from './harness.ts';
 
 describeInBrowser('an engineer at work', () => {
-  let app: App;
-  let browser: Browser;
-  beforeAll(async () => {
-    app = await startApp();
-    browser = await launchBrowser();
-  });
-  afterAll(async () => {
-    await browser?.close();
-    await app?.close();
-  });
+  const session = useAppAndBrowser();
 
   it('changes a lift section in the properties pane and sees its utilisation and the governing highlight change', async () => {
-    const page = await (await newContext(browser)).newPage();
-    await signIn(page, app.url, DEMO.engineer);
+    const page = await session.pageAs(DEMO.engineer);
     await openDemoBuilding(page);
     await screenshot(page, 'building-page');
     await openStack(page, 'C/4');
@@ -56,8 +41,7 @@ describeInBrowser('an engineer at work', () => {
   });
 
   it('creates a stack from a template, sets a floor load and sees results with a governing lift', async () => {
-    const page = await (await newContext(browser)).newPage();
-    await signIn(page, app.url, DEMO.engineer);
+    const page = await session.pageAs(DEMO.engineer);
     await openDemoBuilding(page);
     await page.getByRole('button', { name: 'New stack' }).click();
     const dialog = page.locator('.q-dialog');

@@ -1,28 +1,24 @@
 // Issue 12 (flow 4): the lead freezes a revision, downloads its calculation package, and every member's
 // e-mail with the package attached is in the outbox of the local SMTP fake.
 import { readFileSync } from 'node:fs';
-import { afterAll, beforeAll, expect, it } from 'vitest';
-import type { Browser } from 'playwright-core';
+import { expect, it } from 'vitest';
 import { PDFParse } from 'pdf-parse';
 import type { AuthResponse } from '../../shared/schema/api.ts';
 import type { OutboxMessage } from '../../shared/schema/outbox.ts';
-import { DEMO, DEMO_PASSWORD, describeInBrowser, launchBrowser, newContext, openDemoBuilding, screenshot, signIn, startApp, type App } from './harness.ts';
+import {
+  DEMO,
+  DEMO_PASSWORD,
+  describeInBrowser,
+  openDemoBuilding,
+  screenshot,
+  useAppAndBrowser,
+} from './harness.ts';
 
 describeInBrowser('freezing a revision', () => {
-  let app: App;
-  let browser: Browser;
-  beforeAll(async () => {
-    app = await startApp();
-    browser = await launchBrowser();
-  });
-  afterAll(async () => {
-    await browser?.close();
-    await app?.close();
-  });
+  const session = useAppAndBrowser();
 
   it('the lead freezes P01, downloads its PDF, and the outbox holds the e-mail to every member', async () => {
-    const page = await (await newContext(browser)).newPage();
-    await signIn(page, app.url, DEMO.lead);
+    const page = await session.pageAs(DEMO.lead);
     await openDemoBuilding(page);
     await page.getByRole('link', { name: 'Revisions' }).click();
     await page.getByRole('button', { name: 'Freeze a revision' }).click();
@@ -46,9 +42,9 @@ describeInBrowser('freezing a revision', () => {
     expect(text).toMatch(/design aid/i);
 
     const admin = (await (
-      await fetch(`${app.url}/api/auth/login`, { method: 'POST', headers: { 'Content-Type': 'application/json' }, body: JSON.stringify({ email: DEMO.admin, password: DEMO_PASSWORD }) })
+      await fetch(`${session.app.url}/api/auth/login`, { method: 'POST', headers: { 'Content-Type': 'application/json' }, body: JSON.stringify({ email: DEMO.admin, password: DEMO_PASSWORD }) })
     ).json()) as AuthResponse;
-    const outbox = (await (await fetch(`${app.url}/api/dev/outbox`, { headers: { Authorization: `Bearer ${admin.token}` } })).json()) as OutboxMessage[];
+    const outbox = (await (await fetch(`${session.app.url}/api/dev/outbox`, { headers: { Authorization: `Bearer ${admin.token}` } })).json()) as OutboxMessage[];
     const issued = outbox.filter((m) => m.subject.includes('P01'));
     expect(issued.map((m) => m.to).sort()).toEqual([DEMO.engineer, DEMO.lead, DEMO.viewer].sort());
     for (const m of issued) expect(m.attachments.some((a) => a.contentType === 'application/pdf' && a.size > 10_000)).toBe(true);

@@ -3,7 +3,7 @@
 import { existsSync, mkdirSync, mkdtempSync, rmSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import path from 'node:path';
-import { describe } from 'vitest';
+import { afterAll, beforeAll, describe } from 'vitest';
 import { chromium, type Browser, type BrowserContext, type Page } from 'playwright-core';
 import { startServer } from '../../server/server.ts';
 
@@ -138,4 +138,41 @@ export async function liftUtilisation(page: Page, label: string): Promise<number
 export async function governingLift(page: Page): Promise<string> {
   const row = results(page).locator('tbody tr').filter({ hasText: 'governs' });
   return (await row.locator('td').first().innerText()).replace('governs', '').trim();
+}
+
+export interface Session {
+  readonly app: App;
+  readonly browser: Browser;
+  /** A fresh browser context and page, signed in as the given demo account. */
+  pageAs(email: string): Promise<Page>;
+}
+
+/** Starts the app and a browser before a suite's tests and stops both after them. */
+export function useAppAndBrowser(): Session {
+  let app: App | undefined;
+  let browser: Browser | undefined;
+  beforeAll(async () => {
+    app = await startApp();
+    browser = await launchBrowser();
+  });
+  afterAll(async () => {
+    await browser?.close();
+    await app?.close();
+  });
+  const session: Session = {
+    get app() {
+      if (!app) throw new Error('the app is not running yet');
+      return app;
+    },
+    get browser() {
+      if (!browser) throw new Error('the browser is not running yet');
+      return browser;
+    },
+    async pageAs(email) {
+      const page = await (await newContext(session.browser)).newPage();
+      await signIn(page, session.app.url, email);
+      return page;
+    },
+  };
+  return session;
 }

@@ -1,8 +1,14 @@
 // Issue 12 (flow 5): a CSV of level loads with a bad row is refused with the row named, and nothing in
 // the building changes.
-import { afterAll, beforeAll, expect, it } from 'vitest';
-import type { Browser, Page } from 'playwright-core';
-import { DEMO, describeInBrowser, launchBrowser, newContext, openDemoBuilding, screenshot, signIn, startApp, type App } from './harness.ts';
+import { expect, it } from 'vitest';
+import type { Page } from 'playwright-core';
+import {
+  DEMO,
+  describeInBrowser,
+  openDemoBuilding,
+  screenshot,
+  useAppAndBrowser,
+} from './harness.ts';
 
 /** Every stack's version, read with the signed-in user's own token. */
 async function stackVersions(page: Page): Promise<Record<string, number>> {
@@ -15,20 +21,10 @@ async function stackVersions(page: Page): Promise<Record<string, number>> {
 }
 
 describeInBrowser('importing level loads', () => {
-  let app: App;
-  let browser: Browser;
-  beforeAll(async () => {
-    app = await startApp();
-    browser = await launchBrowser();
-  });
-  afterAll(async () => {
-    await browser?.close();
-    await app?.close();
-  });
+  const session = useAppAndBrowser();
 
   it('refuses a file with a bad row, naming the row, and changes nothing', async () => {
-    const page = await (await newContext(browser)).newPage();
-    await signIn(page, app.url, DEMO.engineer);
+    const page = await session.pageAs(DEMO.engineer);
     await openDemoBuilding(page);
     const before = await stackVersions(page);
     await page.getByRole('button', { name: 'Import loads' }).click();

@@ -1,24 +1,25 @@
 // Issue 12 (flow 2): two people on the same stack in two browser contexts. An edit in one appears,
 // with its new results, in the other within 2 s, and each sees the other present.
-import { afterAll, beforeAll, expect, it } from 'vitest';
-import type { Browser, Page } from 'playwright-core';
-import { DEMO, describeInBrowser, launchBrowser, liftRow, liftUtilisation, newContext, openDemoBuilding, openStack, pickSection, screenshot, signIn, startApp, type App } from './harness.ts';
+import { expect, it } from 'vitest';
+import type { Page } from 'playwright-core';
+import {
+  DEMO,
+  describeInBrowser,
+  liftRow,
+  liftUtilisation,
+  openDemoBuilding,
+  openStack,
+  pickSection,
+  results,
+  screenshot,
+  useAppAndBrowser,
+} from './harness.ts';
 
 describeInBrowser('two people on one stack', () => {
-  let app: App;
-  let browser: Browser;
-  beforeAll(async () => {
-    app = await startApp();
-    browser = await launchBrowser();
-  });
-  afterAll(async () => {
-    await browser?.close();
-    await app?.close();
-  });
+  const session = useAppAndBrowser();
 
   async function onStack(email: string): Promise<Page> {
-    const page = await (await newContext(browser)).newPage();
-    await signIn(page, app.url, email);
+    const page = await session.pageAs(email);
     await openDemoBuilding(page);
     await openStack(page, 'C/4');
     return page;

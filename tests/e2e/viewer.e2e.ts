@@ -1,24 +1,24 @@
 // Issue 12 (flow 3): a viewer sees the building, its stacks, results and revisions, and can change
 // nothing — the screens offer no edits, and the server refuses the ones a viewer tries anyway.
-import { afterAll, beforeAll, expect, it } from 'vitest';
-import type { Browser } from 'playwright-core';
-import { DEMO, describeInBrowser, launchBrowser, liftRow, newContext, openDemoBuilding, openStack, properties, results, screenshot, selectNode, signIn, startApp, type App } from './harness.ts';
+import { expect, it } from 'vitest';
+import {
+  DEMO,
+  describeInBrowser,
+  liftRow,
+  openDemoBuilding,
+  openStack,
+  properties,
+  results,
+  screenshot,
+  selectNode,
+  useAppAndBrowser,
+} from './harness.ts';
 
 describeInBrowser('a viewer', () => {
-  let app: App;
-  let browser: Browser;
-  beforeAll(async () => {
-    app = await startApp();
-    browser = await launchBrowser();
-  });
-  afterAll(async () => {
-    await browser?.close();
-    await app?.close();
-  });
+  const session = useAppAndBrowser();
 
   it('sees everything and can change nothing', async () => {
-    const page = await (await newContext(browser)).newPage();
-    await signIn(page, app.url, DEMO.viewer);
+    const page = await session.pageAs(DEMO.viewer);
     await openDemoBuilding(page);
     for (const ref of ['A/1', 'B/2', 'C/4']) await page.getByRole('cell', { name: ref, exact: true }).waitFor();
     await expect(page.getByRole('button', { name: 'New stack' }).count()).resolves.toBe(0);
@@ -58,7 +58,7 @@ describeInBrowser('a viewer', () => {
     expect(outcome).toMatchObject({ put: 403, ops: 403 });
     expect(outcome.versionAfter).toBe(outcome.versionBefore);
 
-    await page.goto(`${app.url}/buildings/1/revisions`);
+    await page.goto(`${session.app.url}/buildings/1/revisions`);
     await page.waitForLoadState('networkidle');
     await expect(page.getByRole('button', { name: /freeze/i }).count()).resolves.toBe(0);
     await screenshot(page, 'viewer-revisions');
