@@ -1,7 +1,7 @@
 // The calculation package of a revision, drawn from its snapshot alone: the same snapshot always
 // gives the same pages (and, with the dates fixed from the freeze, the same bytes).
 import type { RevisionSnapshot } from '../../shared/schema/revisions.ts';
-import { drawCover } from './cover.ts';
+import { drawCover, momentsOn } from './cover.ts';
 import { drawPageFurniture, trackSections } from './pageFurniture.ts';
 import { createPdf, toBuffer } from './pdf.ts';
 import { drawStackSection } from './stackSection.ts';
@@ -16,7 +16,7 @@ export async function renderCalcPackage(snapshot: RevisionSnapshot, hash: string
   drawSummary(doc, snapshot);
   snapshot.stacks.forEach((stack, i) => {
     sections.set(`Stack ${stack.name}`);
-    drawStackSection(doc, stack, snapshot.levels, i);
+    drawStackSection(doc, stack, snapshot.levels, i, momentsOn(snapshot));
   });
   drawPageFurniture(doc, snapshot, hash, sections.titles);
   return toBuffer(doc);

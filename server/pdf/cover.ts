@@ -3,8 +3,19 @@ import type { RevisionSnapshot } from '../../shared/schema/revisions.ts';
 import { frozenDate } from './format.ts';
 import { COLOUR, FONT, FULL_WIDTH, MARGIN, SIZE } from './layout.ts';
 import type { Pdf } from './pdf.ts';
+import { hasCombined } from './utilisations.ts';
 
 const ANNEX_WORDS = { UK: 'UK National Annexes', EN: 'recommended values of the Eurocodes' } as const;
+
+/** Absent means on (options stored before the switch existed). */
+export const momentsOn = (s: Pick<RevisionSnapshot, 'options'>) => s.options.nominalMoments !== false;
+
+export function nominalMomentsWords(s: RevisionSnapshot): string {
+  if (!momentsOn(s)) return 'not included: axial checks only, any beam reactions given on column faces are ignored';
+  const stacks = s.stacks.filter((st) => hasCombined(st.results)).length;
+  const where = stacks === 0 ? 'no stack has beam reactions on its column faces' : `applied in ${stacks} of ${s.stacks.length} stack${s.stacks.length === 1 ? '' : 's'}`;
+  return `included (simple construction): beam reactions on the column faces, combined check with the axial force (N+M); ${where}`;
+}
 
 function field(doc: Pdf, label: string, value: string, y: number, opts: { bold?: boolean; colour?: string } = {}): number {
   doc.font(FONT.regular).fontSize(SIZE.body).fillColor(COLOUR.muted).text(label, MARGIN.left, y, { width: 130, lineBreak: false });
@@ -48,7 +59,8 @@ export function drawCover(doc: Pdf, s: RevisionSnapshot, hash: string): void {
   y = field(doc, 'Partial and ψ factors', ANNEX_WORDS[s.options.annex], y);
   y = field(doc, 'Imposed-load reduction', s.options.imposedReduction ? 'αn for the number of storeys, EN 1991-1-1 6.3.1.2(11)' : 'not applied', y);
   y = field(doc, 'Self-weight of columns', s.options.selfWeight ? 'included' : 'not included', y);
-  y = field(doc, 'Member design', 'EN 1993-1-1: classification (Table 5.2), cross-section resistance (6.2.4) and flexural buckling (6.3.1)', y);
+  y = field(doc, 'Nominal moments', nominalMomentsWords(s), y);
+  y = field(doc, 'Member design', `EN 1993-1-1: classification (Table 5.2), cross-section resistance (6.2.4) and flexural buckling (6.3.1)${momentsOn(s) ? '; with nominal moments, bending resistance (6.2.5) and lateral-torsional buckling (6.3.2)' : ''}`, y);
   y = field(doc, 'Engine version', s.engineVersion, y);
   y += 8;
   if (s.note) y = boxed(doc, 'NOTE', s.note, y, COLOUR.accent);

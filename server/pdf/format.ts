@@ -1,5 +1,5 @@
 // Numbers and words as they are printed on the calculation sheets.
-import type { CalcStep } from '../../shared/schema/results.ts';
+import type { CalcStep, GoverningMode } from '../../shared/schema/results.ts';
 
 /** Fixed decimals that keep about four significant figures. */
 export function num(v: number): string {
@@ -14,10 +14,15 @@ export const kN = (v: number) => v.toFixed(1);
 export const metres = (v: number) => v.toFixed(3);
 export const ratio = (v: number | null) => (v === null ? '–' : v.toFixed(3));
 
-/** Steps come in N and mm (SPEC §6); forces print in kN and second moments in cm⁴, as handbooks give them. */
+/**
+ * Steps come in N and mm (SPEC §6); forces print in kN, moments in kN·m, section moduli in cm³ and second
+ * moments in cm⁴, as handbooks give them.
+ */
 export function stepValue(step: CalcStep): { value: string; unit: string } {
   if (typeof step.value === 'string') return { value: step.value, unit: step.unit };
   if (step.unit === 'N') return { value: num(step.value / 1e3), unit: 'kN' };
+  if (step.unit === 'N·mm') return { value: num(step.value / 1e6), unit: 'kN·m' };
+  if (step.unit === 'mm³') return { value: num(step.value / 1e3), unit: 'cm³' };
   if (step.unit === 'mm⁴') return { value: num(step.value / 1e4), unit: 'cm⁴' };
   return { value: num(step.value), unit: step.unit };
 }
@@ -31,11 +36,13 @@ export function frozenDate(iso: string): string {
   return `${d.getUTCDate()} ${MONTHS[d.getUTCMonth()]} ${d.getUTCFullYear()}, ${hh}:${mm} UTC`;
 }
 
-export const governingWords: Record<string, string> = {
+/** Keyed by every mode, so a new one cannot print as "undefined". */
+export const governingWords: Record<GoverningMode, string> = {
   'cross-section': 'cross-section',
   'flexural-y': 'buckling y-y',
   'flexural-z': 'buckling z-z',
+  combined: 'combined axial and nominal moments (simple construction)',
 };
 
-/** For narrow columns headed "Mode". */
-export const governingShort: Record<string, string> = { 'cross-section': 'section', 'flexural-y': 'y-y', 'flexural-z': 'z-z' };
+/** For narrow columns headed "Mode"; N+M is the combined check, explained beside each such table. */
+export const governingShort: Record<GoverningMode, string> = { 'cross-section': 'section', 'flexural-y': 'y-y', 'flexural-z': 'z-z', combined: 'N+M' };

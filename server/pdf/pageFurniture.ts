@@ -3,7 +3,7 @@
 import type { RevisionSnapshot } from '../../shared/schema/revisions.ts';
 import { COLOUR, FONT, MARGIN, PAGE, SIZE } from './layout.ts';
 import type { Pdf } from './pdf.ts';
-import { textIn } from './table.ts';
+import { textIn, wrapLines } from './table.ts';
 
 /** SPEC §9, word for word as the results pages show it (src/components/common/safetyNote.ts). */
 export const SAFETY_NOTE =
@@ -20,21 +20,6 @@ export function trackSections(doc: Pdf): { set(title: string): void; titles: str
       current = title;
     },
   };
-}
-
-/** Greedy word wrap, measured once, so each page draws plain lines instead of re-wrapping. */
-function wrapLines(doc: Pdf, text: string, width: number): string[] {
-  const lines: string[] = [];
-  let line = '';
-  for (const word of text.split(' ')) {
-    const next = line ? `${line} ${word}` : word;
-    if (line && doc.widthOfString(next) > width) {
-      lines.push(line);
-      line = word;
-    } else line = next;
-  }
-  if (line) lines.push(line);
-  return lines;
 }
 
 export function drawPageFurniture(doc: Pdf, s: RevisionSnapshot, hash: string, sectionTitles: string[]): void {

@@ -11,25 +11,33 @@ import type { Pdf } from './pdf.ts';
 import { heading } from './summary.ts';
 import { drawTable, type Column } from './table.ts';
 import { drawTakeDown } from './takeDownTable.ts';
+import { hasCombined } from './utilisations.ts';
 
-const ELEVATION_WIDTH = 226;
+const ELEVATION_WIDTH = 222;
 const LIFT_COLUMNS: Column[] = [
   { header: 'Lift', width: 30 },
   { header: 'From', unit: 'm', width: 34, align: 'right' },
   { header: 'To', unit: 'm', width: 34, align: 'right' },
   { header: 'Section', width: 88 },
-  { header: 'Grade', width: 28 },
+  { header: 'Grade', width: 32 },
   { header: 'Util.', width: 30, align: 'right' },
   { header: 'Mode', width: 30 },
 ];
 
-export function drawStackSection(doc: Pdf, stack: SnapshotStack, levels: Level[], index: number): void {
+function momentsLine(stack: SnapshotStack, included: boolean): string {
+  if (!included) return 'Nominal moments: not included in this revision (axial checks only).';
+  if (!hasCombined(stack.results)) return 'Nominal moments: included, but no beam reactions are given on the column faces of this stack (axial checks only).';
+  return 'Nominal moments: included, from the beam reactions on the column faces; the combined check (N+M) is printed beside the axial check.';
+}
+
+export function drawStackSection(doc: Pdf, stack: SnapshotStack, levels: Level[], index: number, momentsIncluded: boolean): void {
   doc.addPage();
   doc.y = MARGIN.top;
   heading(doc, `2.${index + 1}  Stack ${stack.name}`);
   const sum = summariseResult(stack.doc, stack.results);
   const line = `${stack.results.lifts.length} lifts · governing lift ${sum.governingLiftId ?? '–'} (${sum.governingSection ?? '–'}) · utilisation ${ratio(sum.utilisation)} · document version ${stack.version}`;
   doc.font(FONT.regular).fontSize(SIZE.body).fillColor(COLOUR.muted).text(line, MARGIN.left, doc.y, { width: FULL_WIDTH });
+  doc.text(momentsLine(stack, momentsIncluded), MARGIN.left, doc.y + 2, { width: FULL_WIDTH });
   for (const w of stack.results.warnings) doc.fillColor(COLOUR.near).text(`Note: ${w.message}`, MARGIN.left, doc.y + 2, { width: FULL_WIDTH });
   const top = doc.y + 16;
 

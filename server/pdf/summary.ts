@@ -1,10 +1,11 @@
 // Summary: every stack with its governing lift and utilisation, then the levels of the building.
 import type { RevisionSnapshot } from '../../shared/schema/revisions.ts';
 import { summariseResult } from '../services/analysis.ts';
-import { governingWords, kN, metres, ratio } from './format.ts';
+import { governingShort, kN, metres, ratio } from './format.ts';
 import { BODY, COLOUR, FONT, MARGIN, REF_COLUMN, SIZE, utilisationColour } from './layout.ts';
 import type { Pdf } from './pdf.ts';
 import { drawTable, type Column } from './table.ts';
+import { liftUtilisations } from './utilisations.ts';
 
 export function heading(doc: Pdf, text: string, size: number = SIZE.h1): void {
   doc.font(FONT.bold).fontSize(size).fillColor(COLOUR.ink).text(text, MARGIN.left, doc.y, { width: BODY.width });
@@ -22,19 +23,22 @@ export function drawSummary(doc: Pdf, s: RevisionSnapshot): void {
   doc.y = MARGIN.top;
   heading(doc, '1  Summary of stacks');
   const columns: Column[] = [
-    { header: 'Stack', width: 46 },
-    { header: 'Lifts', width: 30, align: 'right' },
+    { header: 'Stack', width: 38 },
+    { header: 'Lifts', width: 26, align: 'right' },
     { header: 'NEd at base', unit: 'kN', width: 58, align: 'right' },
-    { header: 'Governing lift', width: 62 },
-    { header: 'Section', width: 104 },
-    { header: 'Grade', width: 34 },
-    { header: 'Check', width: 62 },
+    { header: 'Governing lift', width: 66 },
+    { header: 'Section', width: 94 },
+    { header: 'Grade', width: 32 },
+    { header: 'Governs', width: 42 },
+    { header: 'Axial', unit: 'util.', width: 34, align: 'right' },
+    { header: 'N+M', unit: 'util.', width: 34, align: 'right' },
     { header: 'Utilisation', width: 50, align: 'right' },
-    { header: 'Status', width: 58 },
+    { header: 'Status', width: 36 },
   ];
   const rows = s.stacks.map((st) => {
     const sum = summariseResult(st.doc, st.results);
     const gov = st.results.lifts.find((l) => l.liftId === sum.governingLiftId);
+    const both = gov ? liftUtilisations(gov) : null;
     const base = st.results.lifts[0]?.pieces[0]?.NEd;
     return [
       { text: st.name, bold: true },
@@ -43,17 +47,21 @@ export function drawSummary(doc: Pdf, s: RevisionSnapshot): void {
       sum.governingLiftId ?? '–',
       gov?.section ?? '–',
       gov?.grade ?? '–',
-      gov ? governingWords[gov.governing] : '–',
+      gov ? governingShort[gov.governing] : '–',
+      ratio(both?.axial ?? null),
+      ratio(both?.combined ?? null),
       { text: ratio(sum.utilisation), colour: utilisationColour(sum.utilisation), bold: true },
       { text: STATUS_WORDS[sum.status], colour: sum.status === 'passes' ? COLOUR.ink : COLOUR.fail },
     ];
   });
   drawTable(doc, MARGIN.left, columns, rows);
+  const noteY = doc.y;
   doc.font(FONT.regular).fontSize(SIZE.small).fillColor(COLOUR.muted).text(
-    'Utilisation is the largest of NEd/Nc,Rd, NEd,y/Nb,y,Rd and NEd,z/Nb,z,Rd over the pieces of the governing lift. A lift passes when it does not exceed 1.0.',
-    MARGIN.left, doc.y, { width: BODY.width },
+    'Axial: the largest of NEd/Nc,Rd, NEd,y/Nb,y,Rd and NEd,z/Nb,z,Rd. N+M: the combined check of a column in simple construction, NEd/Nb,min,Rd + My,Ed/Mb,Rd + 1.5·Mz,Ed/Mz,Rd, where beam reactions on the column faces give nominal moments (– where none act). Utilisation: the larger of the two, over the pieces of the governing lift; Governs names the check (section, y-y or z-z buckling, N+M). A lift passes when it does not exceed 1.0.',
+    MARGIN.left, noteY, { width: BODY.width },
   );
-  reference(doc, 'EN 1993-1-1 6.2.4, 6.3.1.1', doc.y - 16);
+  reference(doc, 'EN 1993-1-1 6.2.4, 6.3.1.1', noteY);
+  reference(doc, 'EN 1993-1-1 6.3.2 (Mb,Rd), 6.2.5', noteY + 8);
   doc.y += 16;
 
   heading(doc, 'Levels', SIZE.h2);

@@ -8,6 +8,8 @@ export interface Column {
   unit?: string;
   width: number;
   align?: 'left' | 'right' | 'center';
+  /** Wrap long text onto more lines (the row grows) instead of cutting it with an ellipsis. */
+  wrap?: boolean;
 }
 
 export type Cell = string | { text: string; colour?: string; bold?: boolean };
@@ -57,9 +59,55 @@ function drawHeader(doc: Pdf, x: number, columns: Column[]): void {
 }
 
 export interface TableOptions {
-  /** Clause or equation per row, printed in the right-hand margin column. */
+  /** Clause or equation per row, printed in the right-hand margin column (wrapped when it is long). */
   refs?: (string | null)[];
   shade?: (rowIndex: number) => string | null;
+}
+
+/** Line pitch of wrapped table text and of wrapped references (pt). */
+const LINE = { cell: 8.5, ref: 7.5 } as const;
+
+/** Greedy word wrap at the current font; text that fits is returned whole after one measurement. */
+export function wrapLines(doc: Pdf, text: string, width: number): string[] {
+  if (doc.widthOfString(text) <= width) return [text];
+  const lines: string[] = [];
+  let line = '';
+  for (const word of text.split(' ')) {
+    const next = line ? `${line} ${word}` : word;
+    if (line && doc.widthOfString(next) > width) {
+      lines.push(line);
+      line = word;
+    } else line = next;
+  }
+  if (line) lines.push(line);
+  return lines;
+}
+
+const cellParts = (cell: Cell) => (typeof cell === 'string' ? { text: cell, colour: undefined, bold: false } : cell);
+
+function setRefStyle(doc: Pdf): void {
+  doc.font(FONT.regular).fontSize(SIZE.small).fillColor(COLOUR.accent);
+}
+
+/** Lines of each wrapping cell and of the reference; null for cells drawn on one line. */
+function measureRow(doc: Pdf, columns: Column[], row: Cell[], ref: string | null | undefined): { cells: (string[] | null)[]; ref: string[]; height: number } {
+  let extra = 0;
+  const cells = row.map((cell, j) => {
+    const c = columns[j];
+    if (!c.wrap) return null;
+    const { text, bold } = cellParts(cell);
+    doc.font(bold ? FONT.bold : FONT.regular).fontSize(SIZE.table);
+    const lines = wrapLines(doc, text, c.width - 6);
+    extra = Math.max(extra, (lines.length - 1) * LINE.cell);
+    return lines;
+  });
+  let refLines: string[] = [];
+  if (ref) {
+    setRefStyle(doc);
+    refLines = wrapLines(doc, ref, REF_COLUMN.width);
+    extra = Math.max(extra, (refLines.length - 1) * LINE.ref);
+  }
+  return { cells, ref: refLines, height: ROW_HEIGHT + extra };
 }
 
 export function drawTable(doc: Pdf, x: number, columns: Column[], rows: Cell[][], opts: TableOptions = {}): void {
@@ -67,36 +115,38 @@ export function drawTable(doc: Pdf, x: number, columns: Column[], rows: Cell[][]
   drawHeader(doc, x, columns);
   const width = columns.reduce((s, c) => s + c.width, 0);
   rows.forEach((row, i) => {
-    if (doc.y + ROW_HEIGHT > CONTENT_BOTTOM) {
+    const measured = measureRow(doc, columns, row, opts.refs?.[i]);
+    if (doc.y + measured.height > CONTENT_BOTTOM) {
       doc.addPage();
       doc.y = MARGIN.top;
       drawHeader(doc, x, columns);
     }
     const y = doc.y;
     const fill = opts.shade?.(i);
-    if (fill) doc.rect(x, y - 1, width, ROW_HEIGHT).fill(fill);
+    if (fill) doc.rect(x, y - 1, width, measured.height).fill(fill);
     let cx = x;
     // Setting a colour parses it every time; a large package sets far fewer when only changes are sent.
     let style = '';
     doc.fontSize(SIZE.table);
     row.forEach((cell, j) => {
       const c = columns[j];
-      const { text, colour, bold } = typeof cell === 'string' ? { text: cell, colour: undefined, bold: false } : cell;
+      const { text, colour, bold } = cellParts(cell);
       const next = `${bold ? 'b' : 'r'}${colour ?? COLOUR.ink}`;
       if (text && next !== style) {
         doc.font(bold ? FONT.bold : FONT.regular).fillColor(colour ?? COLOUR.ink);
         style = next;
       }
-      if (text) textIn(doc, text, cx + 3, y + 1, c.width - 6, c.align);
+      const lines = measured.cells[j];
+      if (lines) lines.forEach((line, k) => textIn(doc, line, cx + 3, y + 1 + k * LINE.cell, c.width - 6, c.align));
+      else if (text) textIn(doc, text, cx + 3, y + 1, c.width - 6, c.align);
       cx += c.width;
     });
-    const ref = opts.refs?.[i];
-    if (ref) {
-      doc.font(FONT.regular).fontSize(SIZE.small).fillColor(COLOUR.accent);
-      textIn(doc, ref, REF_COLUMN.x, y + 1.5, REF_COLUMN.width);
+    if (measured.ref.length > 0) {
+      setRefStyle(doc);
+      measured.ref.forEach((line, k) => textIn(doc, line, REF_COLUMN.x, y + 1.5 + k * LINE.ref, REF_COLUMN.width));
     }
-    doc.moveTo(x, y + ROW_HEIGHT - 1).lineTo(x + width, y + ROW_HEIGHT - 1).lineWidth(0.25).stroke(COLOUR.rule);
-    doc.y = y + ROW_HEIGHT;
+    doc.moveTo(x, y + measured.height - 1).lineTo(x + width, y + measured.height - 1).lineWidth(0.25).stroke(COLOUR.rule);
+    doc.y = y + measured.height;
   });
   doc.y += 6;
 }

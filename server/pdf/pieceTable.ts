@@ -1,0 +1,61 @@
+// The pieces a lift is cut into, with their forces, buckling lengths and utilisation. When the stack carries
+// nominal moments the table gives the axial and the combined (N+M) utilisation side by side, the one that
+// governs in bold and coloured.
+import type { LiftResult } from '../../shared/schema/results.ts';
+import { governingShort, governingWords, kN, metres, ratio } from './format.ts';
+import { COLOUR, MARGIN, utilisationColour } from './layout.ts';
+import type { Pdf } from './pdf.ts';
+import { drawTable, type Cell, type Column } from './table.ts';
+import { axialOf, combinedOf } from './utilisations.ts';
+
+const AXIAL_COLUMNS: Column[] = [
+  { header: 'From', unit: 'm', width: 34, align: 'right' },
+  { header: 'To', unit: 'm', width: 34, align: 'right' },
+  { header: 'NEd', unit: 'kN', width: 40, align: 'right' },
+  { header: 'NEd,y', unit: 'kN', width: 38, align: 'right' },
+  { header: 'NEd,z', unit: 'kN', width: 38, align: 'right' },
+  { header: 'ky', width: 26, align: 'right' },
+  { header: 'Lcr,y', unit: 'm', width: 34, align: 'right' },
+  { header: 'kz', width: 26, align: 'right' },
+  { header: 'Lcr,z', unit: 'm', width: 34, align: 'right' },
+  { header: 'Util.', width: 30, align: 'right' },
+  { header: 'Check', width: 54 },
+];
+
+/** Same width as the axial layout (the body width), so both sit clear of the reference column. */
+const COMBINED_COLUMNS: Column[] = [
+  { header: 'From', unit: 'm', width: 34, align: 'right' },
+  { header: 'To', unit: 'm', width: 34, align: 'right' },
+  { header: 'NEd', unit: 'kN', width: 38, align: 'right' },
+  { header: 'NEd,y', unit: 'kN', width: 38, align: 'right' },
+  { header: 'NEd,z', unit: 'kN', width: 38, align: 'right' },
+  { header: 'ky', width: 24, align: 'right' },
+  { header: 'Lcr,y', unit: 'm', width: 34, align: 'right' },
+  { header: 'kz', width: 24, align: 'right' },
+  { header: 'Lcr,z', unit: 'm', width: 34, align: 'right' },
+  { header: 'Axial', unit: 'util.', width: 30, align: 'right' },
+  { header: 'N+M', unit: 'util.', width: 30, align: 'right' },
+  { header: 'Mode', width: 30 },
+];
+
+/** Printed once above the member checks of a stack that carries nominal moments. */
+export const COMBINED_LEGEND =
+  'Axial: the largest of NEd/Nc,Rd, NEd,y/Nb,y,Rd and NEd,z/Nb,z,Rd. N+M: the combined check of a column in simple construction with its nominal moments (– where no moment acts on the piece). Mode: the check that governs (section, y-y or z-z buckling, or N+M).';
+
+const LCR_REF = 'Lcr = k·L, EN 1993-1-1 6.3.1.3';
+
+function utilisationCell(u: number | null, governs: boolean): Cell {
+  if (u === null) return { text: '–', colour: COLOUR.muted };
+  return governs ? { text: ratio(u), colour: utilisationColour(u), bold: true } : ratio(u);
+}
+
+export function drawPieceTable(doc: Pdf, lift: LiftResult, governingPiece: number, withCombined: boolean): void {
+  const rows = lift.pieces.map((p) => {
+    const common: Cell[] = [metres(p.from), metres(p.to), kN(p.NEd), kN(p.NEdY), kN(p.NEdZ), p.kY.toFixed(2), metres(p.LcrY), p.kZ.toFixed(2), metres(p.LcrZ)];
+    if (!withCombined) return [...common, utilisationCell(p.utilisation, true), governingWords[p.governing]];
+    const combinedGoverns = p.governing === 'combined';
+    return [...common, utilisationCell(axialOf(p), !combinedGoverns), utilisationCell(combinedOf(p), combinedGoverns), governingShort[p.governing]];
+  });
+  const refs = lift.pieces.map((_p, i) => (i === 0 ? LCR_REF : null));
+  drawTable(doc, MARGIN.left, withCombined ? COMBINED_COLUMNS : AXIAL_COLUMNS, rows, { refs, shade: (i) => (i === governingPiece ? COLOUR.band : null) });
+}
