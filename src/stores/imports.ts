@@ -14,7 +14,8 @@ import {
   type LoadsPreview,
   type SectionsPreview,
 } from '@shared/schema/imports.ts';
-import { ApiError, apiFetch, getToken } from '@/api/http.ts';
+import { ApiError, apiFetch } from '@/api/http.ts';
+import { fetchFile, saveBlob } from '@/api/download.ts';
 import { searchSections as searchCatalogue, type SectionHit } from '@/api/sections.ts';
 import { useBuildingsStore } from './buildings.ts';
 import { describeError, useNotifyStore } from './notify.ts';
@@ -119,18 +120,8 @@ export const useImportsStore = defineStore('imports', () => {
   /** Saves a download (results, template) under fileName; failures go to the notifier. */
   async function download(apiPath: string, fileName: string): Promise<boolean> {
     try {
-      const token = getToken();
-      const res = await fetch(`/api${apiPath}`, { headers: token ? { Authorization: `Bearer ${token}` } : {} });
-      if (!res.ok) {
-        const body = (await res.json().catch(() => undefined)) as { error?: { message?: string } } | undefined;
-        throw new ApiError(res.status, 'internal', body?.error?.message ?? `Download failed (${res.status})`);
-      }
-      const url = URL.createObjectURL(await res.blob());
-      const a = document.createElement('a');
-      a.href = url;
-      a.download = fileName;
-      a.click();
-      URL.revokeObjectURL(url);
+      const file = await fetchFile(apiPath);
+      saveBlob(file.blob, fileName);
       return true;
     } catch (e) {
       notify.error(e, 'Download failed');

@@ -4,20 +4,9 @@ import { computed, ref } from 'vue';
 import { defineStore } from 'pinia';
 import type { OutboxMessage } from '@shared/schema/outbox.ts';
 import { fetchOutboxAttachment, listOutbox } from '@/api/outbox.ts';
+import { saveBlob } from '@/api/download.ts';
 import { describeError, useNotifyStore } from './notify.ts';
 import type { LoadState } from './buildings.ts';
-
-/** Where a browser saves a downloaded file: an object URL on a temporary link. */
-function saveBlob(blob: Blob, filename: string): void {
-  const url = URL.createObjectURL(blob);
-  const a = document.createElement('a');
-  a.href = url;
-  a.download = filename;
-  document.body.appendChild(a);
-  a.click();
-  a.remove();
-  setTimeout(() => URL.revokeObjectURL(url), 0);
-}
 
 /** Newest first by capture time; the id breaks ties between messages of the same instant. */
 export function newestFirst(messages: OutboxMessage[]): OutboxMessage[] {

@@ -3,7 +3,8 @@
 import { ref } from 'vue';
 import { defineStore } from 'pinia';
 import type { FreezeBody, FreezeRefusal, RevisionComparison, RevisionDetail, RevisionSummary } from '@shared/schema/revisions.ts';
-import { ApiError, apiFetch, getToken } from '@/api/http.ts';
+import { ApiError, apiFetch } from '@/api/http.ts';
+import { downloadFile } from '@/api/download.ts';
 import { describeError, useNotifyStore } from './notify.ts';
 import type { LoadState } from './buildings.ts';
 
@@ -13,20 +14,6 @@ export function refusalReasons(e: unknown): FreezeRefusal['reasons'] {
   const details = e.details as Partial<FreezeRefusal> | undefined;
   return Array.isArray(details?.reasons) ? details.reasons : [];
 }
-
-/** Where a browser saves a downloaded file: an object URL on a temporary link. */
-function saveBlob(blob: Blob, filename: string): void {
-  const url = URL.createObjectURL(blob);
-  const a = document.createElement('a');
-  a.href = url;
-  a.download = filename;
-  document.body.appendChild(a);
-  a.click();
-  a.remove();
-  setTimeout(() => URL.revokeObjectURL(url), 0);
-}
-
-const filenameOf = (res: Response, fallback: string) => /filename="([^"]+)"/.exec(res.headers.get('Content-Disposition') ?? '')?.[1] ?? fallback;
 
 export const useRevisionsStore = defineStore('revisions', () => {
   const notify = useNotifyStore();
@@ -88,10 +75,7 @@ export const useRevisionsStore = defineStore('revisions', () => {
   /** The package needs the bearer token, so it is fetched as a blob and saved, not linked. */
   async function download(rev: Pick<RevisionSummary, 'id' | 'code'>): Promise<void> {
     try {
-      const token = getToken();
-      const res = await fetch(`/api/revisions/${rev.id}/calc.pdf`, { headers: token ? { Authorization: `Bearer ${token}` } : {} });
-      if (!res.ok) throw new ApiError(res.status, res.status === 404 ? 'not_found' : 'internal', `Download failed (${res.status})`);
-      saveBlob(await res.blob(), filenameOf(res, `revision-${rev.code}.pdf`));
+      await downloadFile(`/revisions/${rev.id}/calc.pdf`, `revision-${rev.code}.pdf`);
     } catch (e) {
       notify.error(e, `Could not download revision ${rev.code}`);
     }
