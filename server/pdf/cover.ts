@@ -74,5 +74,5 @@ export function drawCover(doc: Pdf, s: RevisionSnapshot, hash: string): void {
   doc.font(FONT.regular).fontSize(SIZE.body + 0.5).fillColor(COLOUR.ink);
   doc.text('1  Summary of stacks and levels', MARGIN.left + 8, doc.y + 4);
   doc.text('2  Each stack: elevation, load take-down by level, member checks of every lift with their working', MARGIN.left + 8, doc.y + 2, { width: FULL_WIDTH - 8 });
-  doc.text('Units: m and kN for the stack; mm, N/mm², kN and cm⁴ in the member working. References to clauses and equations are in the right-hand margin.', MARGIN.left + 8, doc.y + 8, { width: FULL_WIDTH - 8 });
+  doc.text('Units: m and kN for the stack; mm, N/mm², kN, kN·m, cm³ and cm⁴ in the member working. References to clauses and equations are in the right-hand margin.', MARGIN.left + 8, doc.y + 8, { width: FULL_WIDTH - 8 });
 }

@@ -8,7 +8,7 @@ import { BODY, COLOUR, FONT, MARGIN, SIZE, utilisationColour } from './layout.ts
 import type { Pdf } from './pdf.ts';
 import { COMBINED_LEGEND, drawPieceTable } from './pieceTable.ts';
 import { reference } from './summary.ts';
-import { drawTable, ensureSpace, wrapLines, type Column } from './table.ts';
+import { drawTable, ensureSpace, textIn, wrapLines, type Column } from './table.ts';
 import { hasCombined, liftUtilisations } from './utilisations.ts';
 
 const STEP_COLUMNS: Column[] = [
@@ -33,7 +33,7 @@ function liftHeading(doc: Pdf, lift: LiftResult, governing: boolean): void {
   doc.font(FONT.regular).fontSize(SIZE.body).fillColor(lift.utilisation > 1 ? COLOUR.fail : COLOUR.muted);
   // Wrapped by hand: pdfkit's line wrapper on every lift is a large share of a big package's time.
   const lines = wrapLines(doc, words, BODY.width - 9);
-  lines.forEach((line, k) => doc.text(line, MARGIN.left + 9, y + 14 + k * 10, { lineBreak: false }));
+  lines.forEach((line, k) => textIn(doc, line.text, MARGIN.left + 9, y + 14 + k * 10, BODY.width - 9, 'left', line.width));
   const bottom = y + 14 + lines.length * 10;
   doc.rect(MARGIN.left, y, 3, bottom - y).fill(utilisationColour(lift.utilisation));
   doc.y = bottom + 6;

@@ -50,7 +50,7 @@ export function drawPageFurniture(doc: Pdf, s: RevisionSnapshot, hash: string, s
     const footerY = PAGE.height - MARGIN.bottom + 16;
     doc.moveTo(MARGIN.left, footerY - 6).lineTo(PAGE.width - MARGIN.right, footerY - 6).lineWidth(0.5).stroke(COLOUR.rule);
     doc.font(FONT.regular).fontSize(SIZE.small).fillColor(COLOUR.muted);
-    noteLines.forEach((line, k) => doc.text(line, MARGIN.left, footerY + k * 8.5, { lineBreak: false }));
+    noteLines.forEach((line, k) => textIn(doc, line.text, MARGIN.left, footerY + k * 8.5, width - 90, 'left', line.width));
     doc.font(FONT.bold).fontSize(SIZE.small + 0.5).fillColor(COLOUR.ink);
     textIn(doc, `Page ${i - start + 1} of ${count}`, PAGE.width - MARGIN.right - 80, footerY, 80, 'right');
     doc.font(FONT.regular).fontSize(SIZE.small).fillColor(COLOUR.muted);

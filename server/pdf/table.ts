@@ -18,9 +18,9 @@ export type Cell = string | { text: string; colour?: string; bold?: boolean };
  * One line of text inside [x, x + width], aligned by hand and cut with an ellipsis when too long.
  * Without a width pdfkit skips its line wrapper, which is most of the cost of a large package.
  */
-export function textIn(doc: Pdf, text: string, x: number, y: number, width: number, align: Column['align'] = 'left'): void {
+export function textIn(doc: Pdf, text: string, x: number, y: number, width: number, align: Column['align'] = 'left', measured?: number): void {
   let t = text;
-  let w = doc.widthOfString(t);
+  let w = measured ?? doc.widthOfString(t);
   if (w > width) {
     while (t.length > 1 && doc.widthOfString(`${t}…`) > width) t = t.slice(0, -1);
     t = `${t}…`;
@@ -67,19 +67,26 @@ export interface TableOptions {
 /** Line pitch of wrapped table text and of wrapped references (pt). */
 const LINE = { cell: 8.5, ref: 7.5 } as const;
 
-/** Greedy word wrap at the current font; text that fits is returned whole after one measurement. */
-export function wrapLines(doc: Pdf, text: string, width: number): string[] {
-  if (doc.widthOfString(text) <= width) return [text];
-  const lines: string[] = [];
-  let line = '';
+export interface Line {
+  text: string;
+  width: number;
+}
+
+/** Greedy word wrap at the current font, each line with its measured width; text that fits is measured once. */
+export function wrapLines(doc: Pdf, text: string, width: number): Line[] {
+  const whole = doc.widthOfString(text);
+  if (whole <= width) return [{ text, width: whole }];
+  const lines: Line[] = [];
+  let line: Line = { text: '', width: 0 };
   for (const word of text.split(' ')) {
-    const next = line ? `${line} ${word}` : word;
-    if (line && doc.widthOfString(next) > width) {
+    const next = line.text ? `${line.text} ${word}` : word;
+    const w = doc.widthOfString(next);
+    if (line.text && w > width) {
       lines.push(line);
-      line = word;
-    } else line = next;
+      line = { text: word, width: doc.widthOfString(word) };
+    } else line = { text: next, width: w };
   }
-  if (line) lines.push(line);
+  if (line.text) lines.push(line);
   return lines;
 }
 
@@ -90,7 +97,7 @@ function setRefStyle(doc: Pdf): void {
 }
 
 /** Lines of each wrapping cell and of the reference; null for cells drawn on one line. */
-function measureRow(doc: Pdf, columns: Column[], row: Cell[], ref: string | null | undefined): { cells: (string[] | null)[]; ref: string[]; height: number } {
+function measureRow(doc: Pdf, columns: Column[], row: Cell[], ref: string | null | undefined): { cells: (Line[] | null)[]; ref: Line[]; height: number } {
   let extra = 0;
   const cells = row.map((cell, j) => {
     const c = columns[j];
@@ -101,7 +108,7 @@ function measureRow(doc: Pdf, columns: Column[], row: Cell[], ref: string | null
     extra = Math.max(extra, (lines.length - 1) * LINE.cell);
     return lines;
   });
-  let refLines: string[] = [];
+  let refLines: Line[] = [];
   if (ref) {
     setRefStyle(doc);
     refLines = wrapLines(doc, ref, REF_COLUMN.width);
@@ -137,13 +144,13 @@ export function drawTable(doc: Pdf, x: number, columns: Column[], rows: Cell[][]
         style = next;
       }
       const lines = measured.cells[j];
-      if (lines) lines.forEach((line, k) => textIn(doc, line, cx + 3, y + 1 + k * LINE.cell, c.width - 6, c.align));
+      if (lines) lines.forEach((line, k) => textIn(doc, line.text, cx + 3, y + 1 + k * LINE.cell, c.width - 6, c.align, line.width));
       else if (text) textIn(doc, text, cx + 3, y + 1, c.width - 6, c.align);
       cx += c.width;
     });
     if (measured.ref.length > 0) {
       setRefStyle(doc);
-      measured.ref.forEach((line, k) => textIn(doc, line, REF_COLUMN.x, y + 1.5 + k * LINE.ref, REF_COLUMN.width));
+      measured.ref.forEach((line, k) => textIn(doc, line.text, REF_COLUMN.x, y + 1.5 + k * LINE.ref, REF_COLUMN.width, 'left', line.width));
     }
     doc.moveTo(x, y + measured.height - 1).lineTo(x + width, y + measured.height - 1).lineWidth(0.25).stroke(COLOUR.rule);
     doc.y = y + measured.height;
