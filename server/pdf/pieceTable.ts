@@ -11,7 +11,7 @@ import { axialOf, combinedOf } from './utilisations.ts';
 const AXIAL_COLUMNS: Column[] = [
   { header: 'From', unit: 'm', width: 34, align: 'right' },
   { header: 'To', unit: 'm', width: 34, align: 'right' },
-  { header: 'NEd', unit: 'kN', width: 40, align: 'right' },
+  { header: 'NEd', unit: 'kN', width: 38, align: 'right' },
   { header: 'NEd,y', unit: 'kN', width: 38, align: 'right' },
   { header: 'NEd,z', unit: 'kN', width: 38, align: 'right' },
   { header: 'ky', width: 26, align: 'right' },
@@ -19,7 +19,7 @@ const AXIAL_COLUMNS: Column[] = [
   { header: 'kz', width: 26, align: 'right' },
   { header: 'Lcr,z', unit: 'm', width: 34, align: 'right' },
   { header: 'Util.', width: 30, align: 'right' },
-  { header: 'Check', width: 54 },
+  { header: 'Check', width: 56 },
 ];
 
 /** Same width as the axial layout (the body width), so both sit clear of the reference column. */
