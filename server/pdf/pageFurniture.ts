@@ -1,13 +1,11 @@
 // What every page carries: a running header (building, revision, section) and a footer with the
 // safety note of SPEC §9 and "page n of N". Drawn after the content, over the buffered pages.
 import type { RevisionSnapshot } from '../../shared/schema/revisions.ts';
+import { SAFETY_NOTE } from '../../shared/safety.ts';
 import { COLOUR, FONT, MARGIN, PAGE, SIZE } from './layout.ts';
 import type { Pdf } from './pdf.ts';
 import { textIn, wrapLines } from './table.ts';
 
-/** SPEC §9, word for word as the results pages show it (src/components/common/safetyNote.ts). */
-export const SAFETY_NOTE =
-  "Stanchion's results are a design aid. The design must be checked by a competent engineer against the National Annex and the regulations in force where the building is. Braced (non-sway) frames only; fire, seismic actions and connections are outside its scope.";
 
 /** Remembers which part of the package each page belongs to, for the running header. */
 export function trackSections(doc: Pdf): { set(title: string): void; titles: string[] } {
