@@ -3,7 +3,7 @@
 import type { Level } from '../../shared/schema/api.ts';
 import type { SnapshotStack } from '../../shared/schema/revisions.ts';
 import type { StackNode } from '../../shared/schema/stack.ts';
-import { metres, ratio } from './format.ts';
+import { metres, ratio, liftName } from './format.ts';
 import { COLOUR, FONT, SIZE, utilisationColour } from './layout.ts';
 import type { Pdf } from './pdf.ts';
 
@@ -53,7 +53,7 @@ export function drawElevation(doc: Pdf, stack: SnapshotStack, levels: Level[], b
     if (y0 - y1 >= 16) {
       const mid = (y0 + y1) / 2;
       doc.font(governing ? FONT.bold : FONT.regular).fontSize(SIZE.small).fillColor(COLOUR.ink).text(`${lift.section} ${lift.grade}`, colX + 14, mid - 8, { width: box.width - 110, lineBreak: false });
-      doc.fillColor(utilisationColour(lift.utilisation)).text(`${lift.liftId} · ${ratio(lift.utilisation)}${governing ? ' governs' : ''}`, colX + 14, mid, { width: box.width - 110, lineBreak: false });
+      doc.fillColor(utilisationColour(lift.utilisation)).text(`${liftName(lift)} · ${ratio(lift.utilisation)}${governing ? ' governs' : ''}`, colX + 14, mid, { width: box.width - 110, lineBreak: false });
     }
   }
 

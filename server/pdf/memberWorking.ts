@@ -3,7 +3,7 @@
 // piece carries nominal moments, the steps of its combined check follow in the same layout.
 import type { CalcStep, LiftResult, PieceCheck } from '../../shared/schema/results.ts';
 import type { SnapshotStack } from '../../shared/schema/revisions.ts';
-import { governingWords, kN, metres, ratio, stepValue } from './format.ts';
+import { governingWords, kN, metres, ratio, stepValue, liftName } from './format.ts';
 import { BODY, COLOUR, FONT, MARGIN, SIZE, utilisationColour } from './layout.ts';
 import type { Pdf } from './pdf.ts';
 import { COMBINED_LEGEND, drawPieceTable } from './pieceTable.ts';
@@ -28,7 +28,7 @@ function otherCheck(lift: LiftResult): string {
 function liftHeading(doc: Pdf, lift: LiftResult, governing: boolean): void {
   ensureSpace(doc, 120);
   const y = doc.y;
-  doc.font(FONT.bold).fontSize(SIZE.h2).fillColor(COLOUR.ink).text(`Lift ${lift.liftId}   ${lift.section} ${lift.grade}`, MARGIN.left + 9, y, { width: BODY.width - 9, lineBreak: false });
+  doc.font(FONT.bold).fontSize(SIZE.h2).fillColor(COLOUR.ink).text(`Lift ${liftName(lift)}   ${lift.section} ${lift.grade}`, MARGIN.left + 9, y, { width: BODY.width - 9, lineBreak: false });
   const words = `${metres(lift.bottom)} to ${metres(lift.top)} m · utilisation ${ratio(lift.utilisation)}, ${governingWords[lift.governing]}${otherCheck(lift)}${governing ? ' · governing lift of the stack' : ''}${lift.utilisation > 1 ? ' · FAILS' : ''}`;
   doc.font(FONT.regular).fontSize(SIZE.body).fillColor(lift.utilisation > 1 ? COLOUR.fail : COLOUR.muted);
   // Wrapped by hand: pdfkit's line wrapper on every lift is a large share of a big package's time.

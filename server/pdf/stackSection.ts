@@ -4,7 +4,7 @@ import type { Level } from '../../shared/schema/api.ts';
 import type { SnapshotStack } from '../../shared/schema/revisions.ts';
 import { summariseResult } from '../services/analysis.ts';
 import { drawElevation } from './elevation.ts';
-import { governingShort, metres, ratio } from './format.ts';
+import { governingShort, metres, ratio, liftName } from './format.ts';
 import { COLOUR, CONTENT_BOTTOM, FONT, FULL_WIDTH, MARGIN, SIZE, utilisationColour } from './layout.ts';
 import { drawMemberChecks } from './memberWorking.ts';
 import type { Pdf } from './pdf.ts';
@@ -46,7 +46,7 @@ export function drawStackSection(doc: Pdf, stack: SnapshotStack, levels: Level[]
 
   doc.y = top;
   const rows = [...stack.results.lifts].reverse().map((l) => [
-    { text: l.liftId, bold: l.liftId === stack.results.governingLiftId },
+    { text: liftName(l), bold: l.liftId === stack.results.governingLiftId },
     metres(l.bottom),
     metres(l.top),
     l.section,

@@ -1,7 +1,7 @@
 // Summary: every stack with its governing lift and utilisation, then the levels of the building.
 import type { RevisionSnapshot } from '../../shared/schema/revisions.ts';
 import { summariseResult } from '../services/analysis.ts';
-import { governingShort, kN, metres, ratio } from './format.ts';
+import { governingShort, kN, metres, ratio, liftName } from './format.ts';
 import { BODY, COLOUR, FONT, MARGIN, REF_COLUMN, SIZE, utilisationColour } from './layout.ts';
 import type { Pdf } from './pdf.ts';
 import { drawTable, type Column } from './table.ts';
@@ -44,7 +44,7 @@ export function drawSummary(doc: Pdf, s: RevisionSnapshot): void {
       { text: st.name, bold: true },
       String(st.results.lifts.length),
       base === undefined ? '–' : kN(base),
-      sum.governingLiftId ?? '–',
+      gov ? liftName(gov) : (sum.governingLiftId ?? '–'),
       gov?.section ?? '–',
       gov?.grade ?? '–',
       gov ? governingShort[gov.governing] : '–',

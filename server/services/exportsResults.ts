@@ -34,7 +34,7 @@ export function stackResultRows(row: StackRow): ResultRow[] {
     const c = p?.check;
     return {
       ...base,
-      lift: lift.liftId,
+      lift: lift.label ?? lift.liftId,
       bottom_m: round(lift.bottom, 3),
       top_m: round(lift.top, 3),
       section: lift.section,

@@ -128,6 +128,8 @@ export interface PieceCheck {
 
 export interface LiftResult {
   liftId: string;
+  /** L1, L2, … counted from the bottom of the stack: how engineers name lifts. Absent in results stored before it existed. */
+  label?: string;
   bottom: number;
   top: number;
   section: string;

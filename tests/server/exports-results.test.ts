@@ -44,9 +44,10 @@ describe('results as CSV', () => {
     expect(r.bytes.toString('utf8').split('\r\n')[0]).toBe(HEADER);
     const rows = readCsv(r.bytes);
     const stored = await getStack(s, viewer.token, stacks[0]!.id);
-    expect(rows.map((x) => x.lift)).toEqual(stored.results.lifts.map((l) => l.liftId));
+    expect(rows.map((x) => x.lift)).toEqual(stored.results.lifts.map((l) => l.label));
+    expect(rows.map((x) => x.lift)).toEqual(['L1', 'L2']);
     expect(rows.map((x) => Number(x.utilisation))).toEqual(stored.results.lifts.map((l) => Number(l.utilisation.toFixed(3))));
-    expect(rows.filter((x) => x.governing_lift === 'yes').map((x) => x.lift)).toEqual([stored.results.governingLiftId]);
+    expect(rows.filter((x) => x.governing_lift === 'yes').map((x) => x.lift)).toEqual(stored.results.lifts.filter((l) => l.liftId === stored.results.governingLiftId).map((l) => l.label));
 
     const bottom = rows[0]!;
     expect(bottom).toMatchObject({ stack: 'A/10', bottom_m: '0', top_m: '7.7', section: 'UKC 254x254x89', grade: 'S355', status: 'passes' });

@@ -51,6 +51,7 @@ export function checkLift(
   worst.check = checkCompression(memberInput(lift, options, worst.LcrY, worst.LcrZ, Math.max(worst.NEdY, worst.NEdZ)), { extraSections: sections });
   return {
     liftId: lift.id,
+    label: lift.name,
     bottom: lift.bottom,
     top: lift.top,
     section: lift.section.designation,
