@@ -7,5 +7,7 @@ export function optionsSummary(o: AnalysisOptions): string {
     o.annex === 'UK' ? 'UK National Annex' : 'EN recommended values',
     o.imposedReduction ? 'imposed loads reduced for storeys' : 'no imposed-load reduction',
     o.selfWeight ? 'self-weight included' : 'self-weight left out',
+    // Absent means on (options stored before the switch existed).
+    o.nominalMoments === false ? 'axial check only' : 'nominal moments of simple construction',
   ].join(' · ');
 }
