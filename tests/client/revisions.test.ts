@@ -121,6 +121,6 @@ describe('the comparison view', () => {
     const lift = wrapper.find('[data-test="lift-change"]').text();
     expect(lift).toContain('0.84 → 0.61');
     expect(lift).toContain('−0.23');
-    expect(wrapper.find('[data-test="compare-result"]').text()).toContain('1 stack differ, 1 unchanged');
+    expect(wrapper.find('[data-test="compare-result"]').text()).toContain('1 stack differs, 1 unchanged');
   });
 });
