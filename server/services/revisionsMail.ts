@@ -14,17 +14,18 @@ export const packageFilename = (s: Pick<RevisionSnapshot, 'building' | 'code'>) 
 
 export function revisionMessage(s: RevisionSnapshot, hash: string, to: string, link: string, pdf: Buffer): MailMessage {
   const purpose = s.purpose === 'construction' ? 'for construction' : 'preliminary';
+  const issue = s.purpose === 'construction' ? 'for construction' : 'as a preliminary issue';
+  const stacks = `${s.stacks.length} stack${s.stacks.length === 1 ? '' : 's'}`;
   const subject = `${s.building.name}: revision ${s.code} issued (${purpose})`;
   const note = s.note ? `\nNote: ${s.note}\n` : '';
   const ack = s.acknowledgement ? `\n${s.acknowledgement}\n` : '';
   const text =
-    `${s.frozenBy.name} has frozen revision ${s.code} of "${s.building.name}" ${purpose}, with ${s.stacks.length} stack${s.stacks.length === 1 ? '' : 's'}.\n` +
+    `${s.frozenBy.name} has frozen revision ${s.code} of "${s.building.name}" (${stacks}) ${issue}.\n` +
     note + ack +
     `\nThe calculation package is attached. Revisions of the building: ${link}\n` +
     `Snapshot SHA-256: ${hash}\n`;
   const html =
-    `<p>${escapeHtml(s.frozenBy.name)} has frozen revision <b>${escapeHtml(s.code)}</b> of <b>${escapeHtml(s.building.name)}</b> ${purpose}, ` +
-    `with ${s.stacks.length} stack${s.stacks.length === 1 ? '' : 's'}.</p>` +
+    `<p>${escapeHtml(s.frozenBy.name)} has frozen revision <b>${escapeHtml(s.code)}</b> of <b>${escapeHtml(s.building.name)}</b> (${stacks}) ${issue}.</p>` +
     (s.note ? `<p>Note: ${escapeHtml(s.note)}</p>` : '') +
     (s.acknowledgement ? `<p><b>${escapeHtml(s.acknowledgement)}</b></p>` : '') +
     `<p>The calculation package is attached. <a href="${escapeHtml(link)}">Open the revisions of the building</a>.</p>`;
