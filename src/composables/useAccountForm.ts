@@ -1,0 +1,39 @@
+// The sign-in and registration forms: check the fields with the API's own schema, send, and on
+// success go on to the page that was asked for. One concern: the life of an account form.
+import { computed, ref } from 'vue';
+import { useRoute, useRouter } from 'vue-router';
+import type { ZodType } from 'zod';
+import { describeError } from '@/stores/notify.ts';
+import { fieldErrors, type FieldInfo } from '@/components/common/formErrors.ts';
+import { redirectTarget } from '@/router/redirect.ts';
+
+export function useAccountForm<T>(schema: ZodType<T>, labels: Record<string, FieldInfo>, send: (body: T) => Promise<unknown>) {
+  const route = useRoute();
+  const router = useRouter();
+  const errors = ref<Record<string, string>>({});
+  const failure = ref('');
+  const busy = ref(false);
+
+  async function submit(values: Record<string, string>): Promise<void> {
+    failure.value = '';
+    const parsed = schema.safeParse(values);
+    if (!parsed.success) {
+      errors.value = fieldErrors(parsed.error, labels);
+      return;
+    }
+    errors.value = {};
+    busy.value = true;
+    try {
+      await send(parsed.data);
+      await router.replace(redirectTarget(route.query.redirect));
+    } catch (e) {
+      failure.value = describeError(e);
+    } finally {
+      busy.value = false;
+    }
+  }
+
+  /** The page's query (the redirect), carried over to the other account form's link. */
+  const query = computed(() => route.query);
+  return { errors, failure, busy, submit, query };
+}
