@@ -11,6 +11,7 @@ import { verifyToken } from '../services/tokens.ts';
 import { findUserById } from '../services/users.ts';
 import { socketBroadcaster } from './broadcaster.ts';
 import { registerHandlers } from './handlers.ts';
+import { stopPresence } from './presence.ts';
 import type { LiveServer } from './types.ts';
 
 export interface Realtime {
@@ -62,6 +63,7 @@ export async function attachRealtime(httpServer: HttpServer, ctx: ServerContext)
   return {
     io,
     async close() {
+      stopPresence(io);
       await new Promise<void>((resolve) => void io.close(() => resolve()));
       await closeRedis?.();
     },

@@ -21,6 +21,21 @@ export async function presenceOf(io: LiveServer | Server, stackId: number): Prom
   return [...byUser.values()].sort((a, b) => a.name.localeCompare(b.name) || a.userId - b.userId);
 }
 
+const shuttingDown = new WeakSet<LiveServer>();
+
+/**
+ * Stops presence broadcasts while the server shuts down: sockets leaving then must not publish
+ * through an adapter (Redis) that is being closed.
+ */
+export function stopPresence(io: LiveServer): void {
+  shuttingDown.add(io);
+}
+
+export const isShuttingDown = (io: LiveServer): boolean => shuttingDown.has(io);
+
 export async function broadcastPresence(io: LiveServer, stackId: number): Promise<void> {
-  io.to(stackRoom(stackId)).emit('presence', { stackId, users: await presenceOf(io, stackId) });
+  if (shuttingDown.has(io)) return;
+  const users = await presenceOf(io, stackId);
+  if (shuttingDown.has(io)) return;
+  io.to(stackRoom(stackId)).emit('presence', { stackId, users });
 }
