@@ -8,31 +8,24 @@ import type { Pdf } from './pdf.ts';
 import { drawTable, type Cell, type Column } from './table.ts';
 import { axialOf, combinedOf } from './utilisations.ts';
 
-const AXIAL_COLUMNS: Column[] = [
+/** From, To, the forces and the buckling lengths: the columns both layouts start with. */
+const forceColumns = (kWidth: number): Column[] => [
   { header: 'From', unit: 'm', width: 34, align: 'right' },
   { header: 'To', unit: 'm', width: 34, align: 'right' },
   { header: 'NEd', unit: 'kN', width: 38, align: 'right' },
   { header: 'NEd,y', unit: 'kN', width: 38, align: 'right' },
   { header: 'NEd,z', unit: 'kN', width: 38, align: 'right' },
-  { header: 'ky', width: 26, align: 'right' },
+  { header: 'ky', width: kWidth, align: 'right' },
   { header: 'Lcr,y', unit: 'm', width: 34, align: 'right' },
-  { header: 'kz', width: 26, align: 'right' },
+  { header: 'kz', width: kWidth, align: 'right' },
   { header: 'Lcr,z', unit: 'm', width: 34, align: 'right' },
-  { header: 'Util.', width: 30, align: 'right' },
-  { header: 'Check', width: 56 },
 ];
+
+const AXIAL_COLUMNS: Column[] = [...forceColumns(26), { header: 'Util.', width: 30, align: 'right' }, { header: 'Check', width: 56 }];
 
 /** Same width as the axial layout (the body width), so both sit clear of the reference column. */
 const COMBINED_COLUMNS: Column[] = [
-  { header: 'From', unit: 'm', width: 34, align: 'right' },
-  { header: 'To', unit: 'm', width: 34, align: 'right' },
-  { header: 'NEd', unit: 'kN', width: 38, align: 'right' },
-  { header: 'NEd,y', unit: 'kN', width: 38, align: 'right' },
-  { header: 'NEd,z', unit: 'kN', width: 38, align: 'right' },
-  { header: 'ky', width: 24, align: 'right' },
-  { header: 'Lcr,y', unit: 'm', width: 34, align: 'right' },
-  { header: 'kz', width: 24, align: 'right' },
-  { header: 'Lcr,z', unit: 'm', width: 34, align: 'right' },
+  ...forceColumns(24),
   { header: 'Axial', unit: 'util.', width: 30, align: 'right' },
   { header: 'N+M', unit: 'util.', width: 30, align: 'right' },
   { header: 'Mode', width: 30 },
