@@ -37,3 +37,31 @@ describe('checkCompression against a published capacity table (UBP 356x368x174, 
     });
   }
 });
+
+// A published worked example: "Steel Buildings in Europe — Multi-storey steel buildings, Part 4:
+// Detailed design", Appendix A.5 "Pinned column using non-slender H sections" (pages 2 and 3 of 4, read
+// from a stored copy). HE 300 B in S235, NEd = 2000 kN, column 8.00 m, Lcr,y = 8.00 m, Lcr,z = 0.7 × 8.00
+// = 5.60 m. The example takes A = 149 cm², Iy = 25 170 cm⁴, Iz = 8 560 cm⁴ (our catalogue: 149.1 cm²,
+// 25 170 cm⁴, 8 563 cm⁴), so agreement is asked within 0.3% on forces and 0.005 on ratios.
+describe('checkCompression against a published worked example (HE 300 B, S235, Lcr,y 8.00 m, Lcr,z 5.60 m)', () => {
+  const r = checkCompression({ section: 'HE 300 B', grade: 'S235', LcrY: 8000, LcrZ: 5600, NEd: 2000e3, annex: 'EN' });
+
+  it('fy = 235 N/mm² for tf = 19 mm ≤ 40 mm (EN 1993-1-1 Table 3.1)', () => {
+    expect(r.fy).toBe(235);
+  });
+
+  it('Ncr,y = 8151.2 kN and Ncr,z = 5657.4 kN as published', () => {
+    expect(Math.abs(r.NcrY / 1000 - 8151.2) / 8151.2).toBeLessThan(0.003);
+    expect(Math.abs(r.NcrZ / 1000 - 5657.4) / 5657.4).toBeLessThan(0.003);
+  });
+
+  it('λ̄y = 0.655 and λ̄z = 0.787 as published', () => {
+    expect(r.lambdaBarY).toBeCloseTo(0.655, 2);
+    expect(r.lambdaBarZ).toBeCloseTo(0.787, 2);
+  });
+
+  it('curve b about y-y (h/b = 1.00 ≤ 1.2, tf ≤ 100 mm) gives χy = 0.808 as published', () => {
+    expect(r.curveY).toBe('b');
+    expect(Math.abs(r.chiY - 0.808)).toBeLessThan(0.005);
+  });
+});
