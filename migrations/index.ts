@@ -14,6 +14,7 @@ import * as addRevisions from './202512011000_add_revisions.ts';
 import * as addRevisionTriggers from './202512011001_add_revision_triggers.ts';
 import * as addRevisionRecipients from './202512011002_add_revision_recipients.ts';
 import * as addCompanySections from './202512011020_add_company_sections.ts';
+import * as addStackGoverningLabel from './202612020900_add_stack_governing_label.ts';
 
 const migrations: Record<string, Knex.Migration> = {
   '202512010900_add_users': addUsers,
@@ -30,6 +31,7 @@ const migrations: Record<string, Knex.Migration> = {
   '202512011001_add_revision_triggers': addRevisionTriggers,
   '202512011002_add_revision_recipients': addRevisionRecipients,
   '202512011020_add_company_sections': addCompanySections,
+  '202612020900_add_stack_governing_label': addStackGoverningLabel,
 };
 
 export const migrationSource: Knex.MigrationSource<string> = {

@@ -35,7 +35,7 @@ export function drawStackSection(doc: Pdf, stack: SnapshotStack, levels: Level[]
   doc.y = MARGIN.top;
   heading(doc, `2.${index + 1}  Stack ${stack.name}`);
   const sum = summariseResult(stack.doc, stack.results);
-  const line = `${stack.results.lifts.length} lifts · governing lift ${sum.governingLiftId ?? '–'} (${sum.governingSection ?? '–'}) · utilisation ${ratio(sum.utilisation)} · document version ${stack.version}`;
+  const line = `${stack.results.lifts.length} lifts · governing lift ${sum.governingLiftLabel ?? '–'} (${sum.governingSection ?? '–'}) · utilisation ${ratio(sum.utilisation)} · document version ${stack.version}`;
   doc.font(FONT.regular).fontSize(SIZE.body).fillColor(COLOUR.muted).text(line, MARGIN.left, doc.y, { width: FULL_WIDTH });
   doc.text(momentsLine(stack, momentsIncluded), MARGIN.left, doc.y + 2, { width: FULL_WIDTH });
   for (const w of stack.results.warnings) doc.fillColor(COLOUR.near).text(`Note: ${w.message}`, MARGIN.left, doc.y + 2, { width: FULL_WIDTH });

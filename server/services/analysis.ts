@@ -31,6 +31,8 @@ export interface ResultSummary {
   utilisation: number | null;
   status: StackStatus;
   governingLiftId: string | null;
+  /** L1, L2, … as the engine names the lift; its node id for results stored before lifts had labels. */
+  governingLiftLabel: string | null;
   governingSection: string | null;
   liftCount: number;
 }
@@ -46,6 +48,7 @@ export function summariseResult(doc: StackDocument, results: StackResult): Resul
     utilisation,
     status,
     governingLiftId: governing?.liftId ?? null,
+    governingLiftLabel: governing ? (governing.label ?? governing.liftId) : null,
     governingSection: governing?.section ?? null,
     liftCount: doc.nodes.filter((n) => n.kind === 'lift').length,
   };
@@ -59,6 +62,7 @@ export function resultColumns(doc: StackDocument, results: StackResult) {
     utilisation: s.utilisation,
     status: s.status,
     governing_lift_id: s.governingLiftId,
+    governing_lift_label: s.governingLiftLabel,
     governing_section: s.governingSection,
     lift_count: s.liftCount,
   };

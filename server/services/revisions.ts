@@ -194,7 +194,7 @@ export async function getRevision(db: Knex, id: number): Promise<RevisionDetail>
     levels: snapshot.levels,
     stacks: snapshot.stacks.map((s) => {
       const sum = summariseResult(s.doc, s.results);
-      return { id: s.id, name: s.name, version: s.version, governingLiftId: sum.governingLiftId, governingSection: sum.governingSection, utilisation: sum.utilisation, status: sum.status };
+      return { id: s.id, name: s.name, version: s.version, governingLiftId: sum.governingLiftId, governingLiftLabel: sum.governingLiftLabel, governingSection: sum.governingSection, utilisation: sum.utilisation, status: sum.status };
     }),
     recipients,
   };

@@ -114,6 +114,8 @@ export function broadcastChange(ctx: ServerContext, c: CommittedChange, by: { us
       version: c.version,
       utilisation: c.summary.utilisation,
       governingLiftId: c.summary.governingLiftId,
+      governingLiftLabel: c.summary.governingLiftLabel,
+      governingSection: c.summary.governingSection,
       status: c.summary.status,
     });
   } catch (e) {

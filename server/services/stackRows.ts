@@ -17,6 +17,7 @@ export interface StackRow {
   utilisation: number | null;
   status: StackStatus;
   governing_lift_id: string | null;
+  governing_lift_label: string | null;
   governing_section: string | null;
   lift_count: number;
   updated_at: unknown;
@@ -47,6 +48,7 @@ export function toSummary(row: StackRow): StackSummary {
     version: row.version,
     liftCount: row.lift_count,
     governingLiftId: row.governing_lift_id,
+    governingLiftLabel: row.governing_lift_label,
     governingSection: row.governing_section,
     utilisation: row.utilisation === null ? null : Number(row.utilisation),
     status: row.status,

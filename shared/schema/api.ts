@@ -112,6 +112,8 @@ export interface StackSummary {
   version: number;
   liftCount: number;
   governingLiftId: string | null;
+  /** L1, L2, … counted from the bottom (the node id for results stored before lifts had labels). */
+  governingLiftLabel: string | null;
   governingSection: string | null;
   utilisation: number | null;
   status: 'passes' | 'fails' | 'errors';

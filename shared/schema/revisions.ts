@@ -87,6 +87,7 @@ export interface RevisionStackSummary {
   name: string;
   version: number;
   governingLiftId: string | null;
+  governingLiftLabel: string | null;
   governingSection: string | null;
   utilisation: number | null;
   status: StackStatus;

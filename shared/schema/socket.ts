@@ -38,6 +38,8 @@ export interface BuildingStackChanged {
   version: number;
   utilisation: number | null;
   governingLiftId: string | null;
+  governingLiftLabel: string | null;
+  governingSection: string | null;
   status: 'passes' | 'fails' | 'errors';
 }
 

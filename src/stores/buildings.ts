@@ -158,7 +158,15 @@ export const useBuildingsStore = defineStore('buildings', () => {
     }
     stacks.value = stacks.value.map((s) =>
       s.id === change.stackId
-        ? { ...s, version: change.version, utilisation: change.utilisation, governingLiftId: change.governingLiftId, status: change.status }
+        ? {
+            ...s,
+            version: change.version,
+            utilisation: change.utilisation,
+            governingLiftId: change.governingLiftId,
+            governingLiftLabel: change.governingLiftLabel,
+            governingSection: change.governingSection,
+            status: change.status,
+          }
         : s,
     );
   }

@@ -45,6 +45,8 @@ describe('the calculation package (PDF)', () => {
       expect(pages[1]).toContain(name);
       expect(all).toContain(`Stack ${name}`);
     }
+    // Each stack's heading line names its governing lift as engineers do (L1, L2, …), not by graph node id.
+    for (const stack of rev.stacks) expect(all).toContain(`governing lift ${stack.governingLiftLabel} (${stack.governingSection})`);
   });
 
   it('carries the clause and equation references of the member working and the take-down', () => {

@@ -2,6 +2,7 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type { AuthResponse, StackSummary } from '../../shared/schema/api.ts';
 import type { Op } from '../../shared/schema/ops.ts';
+import type { StackResult } from '../../shared/schema/results.ts';
 import type { StackJoinAck } from '../../shared/schema/socket.ts';
 import type { StackDocument } from '../../shared/schema/stack.ts';
 import { applyOps } from '../../shared/ops/applyOps.ts';
@@ -271,5 +272,13 @@ describe('live channel: presence and reconnection', () => {
     const p = await heard;
     expect(p.version).toBe(version + 1);
     expect(p.utilisation).toBeGreaterThan(0);
+    // The building's table names the governing lift as engineers do, with its section, from the same results.
+    const row = await s.ctx.db('stacks').where({ id: stackId }).first<{ results: string }>('results');
+    const stored = JSON.parse(row.results) as StackResult;
+    const governing = stored.lifts.find((l) => l.liftId === stored.governingLiftId)!;
+    expect(p.governingLiftId).toBe(governing.liftId);
+    expect(p.governingLiftLabel).toMatch(/^L\d+$/);
+    expect(p.governingLiftLabel).toBe(governing.label);
+    expect(p.governingSection).toBe(governing.section);
   });
 });

@@ -1,6 +1,7 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type { StackDetail, StackSummary } from '../../shared/schema/api.ts';
 import type { StackDocument } from '../../shared/schema/stack.ts';
+import { migrationSource } from '../../migrations/index.ts';
 import { addMember, createBuilding, errorCode, registerUser, startTestServer, type TestServer } from './helpers.ts';
 
 const template = { storeys: 4, storeyHeight: 3.6, spliceEvery: 2, sections: ['UKC 254x254x89', 'UKC 203x203x46'], Gk: 120, Qk: 60 };
@@ -33,6 +34,19 @@ describe('stacks', () => {
     expect(d.results.errors).toEqual([]);
     expect(d.results.lifts.map((l) => l.section)).toEqual(['UKC 254x254x89', 'UKC 203x203x46']);
     expect(sum.utilisation).toBe(Math.max(...d.results.lifts.map((l) => l.utilisation)));
+    const governing = d.results.lifts.find((l) => l.liftId === d.results.governingLiftId)!;
+    expect(sum).toMatchObject({ governingLiftId: governing.liftId, governingLiftLabel: governing.label, governingSection: governing.section });
+  });
+
+  it('fills the governing lift label of stacks stored before the column existed when migrating up', async () => {
+    const sum = await create({ name: 'M/1', template });
+    const migrationConfig = { migrationSource };
+    await s.ctx.db.migrate.down(migrationConfig);
+    expect(await s.ctx.db.schema.hasColumn('stacks', 'governing_lift_label')).toBe(false);
+    await s.ctx.db.migrate.up(migrationConfig);
+    const listed = (await s.api('GET', `/buildings/${buildingId}/stacks`, { token })).body as StackSummary[];
+    expect(listed.find((x) => x.id === sum.id)?.governingLiftLabel).toBe(sum.governingLiftLabel);
+    expect(sum.governingLiftLabel).toMatch(/^L\d+$/);
   });
 
   it('creates an empty stack, and saves an invalid document with its errors instead of results', async () => {
