@@ -1,5 +1,6 @@
 // What every route and service of one server process shares.
 import type { Knex } from 'knex';
+import type { createClient } from 'redis';
 import type { Config } from './config.ts';
 import type { Mailer } from './mail/mailer.ts';
 import type { Broadcaster } from './services/broadcast.ts';
@@ -10,4 +11,8 @@ export interface ServerContext {
   mailer: Mailer;
   /** Replaceable: the realtime module swaps in its Socket.IO broadcaster. */
   broadcaster: Broadcaster;
+  /** With REDIS_URL: counters every process must share (the sign-in limit); null on a single process. */
+  redis: RedisClient | null;
 }
+
+export type RedisClient = ReturnType<typeof createClient>;

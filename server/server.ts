@@ -3,9 +3,11 @@
 import { createServer, type Server } from 'node:http';
 import type { AddressInfo } from 'node:net';
 import type { Express } from 'express';
+import { pino } from 'pino';
+import { createClient } from 'redis';
 import { createApp } from './app.ts';
 import { loadConfig, type ConfigOverrides } from './config.ts';
-import type { ServerContext } from './context.ts';
+import type { RedisClient, ServerContext } from './context.ts';
 import { createDb, migrate } from './db.ts';
 import { createMailer } from './mail/mailer.ts';
 import { nullBroadcaster } from './services/broadcast.ts';
@@ -50,7 +52,8 @@ export async function startServer(opts: StartOptions = {}): Promise<RunningServe
     await seedDemoIfEmpty(db, config.bcryptRounds);
   }
   const mailer = await createMailer(config, db);
-  const ctx: ServerContext = { db, config, mailer, broadcaster: nullBroadcaster };
+  const redis = config.redisUrl ? await connectRedis(config.redisUrl, config.logLevel) : null;
+  const ctx: ServerContext = { db, config, mailer, broadcaster: nullBroadcaster, redis };
   const app = createApp(ctx);
   const httpServer = createServer(app);
   const realtime = await attachRealtime(httpServer, ctx);
@@ -66,10 +69,20 @@ export async function startServer(opts: StartOptions = {}): Promise<RunningServe
       httpServer.closeAllConnections();
       // Closes the live channel's sockets and the HTTP listener.
       await realtime.close();
+      await redis?.quit().catch(() => undefined);
       await mailer.close();
       await db.destroy();
     })();
     return closing;
   };
   return { url: `http://127.0.0.1:${port}`, port, app, httpServer, ctx, realtime, close };
+}
+
+async function connectRedis(url: string, logLevel: string): Promise<RedisClient> {
+  const log = pino({ level: logLevel, name: 'redis' });
+  const client: RedisClient = createClient({ url });
+  // Without a listener a dropped connection would end the process; the client reconnects by itself.
+  client.on('error', (err: unknown) => log.error({ err }, 'redis connection error'));
+  await client.connect();
+  return client;
 }

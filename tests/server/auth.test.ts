@@ -86,6 +86,32 @@ describe('accounts', () => {
   });
 });
 
+// Two processes behind one load balancer must not give a client two allowances (issue 13). Runs
+// wherever Redis is configured for tests (always in .ci/run); says so when it is not.
+const redisUrl = process.env.TEST_REDIS_URL;
+if (!redisUrl) console.warn('TEST_REDIS_URL is not set: the shared sign-in limit across processes is not tested here');
+describe.skipIf(!redisUrl)('the sign-in limit shared through Redis', () => {
+  const servers: TestServer[] = [];
+  afterAll(async () => {
+    for (const s of servers) await s.close();
+  });
+
+  it('counts attempts on one process against the other', async () => {
+    const redisPrefix = `stanchion-test:login-${Date.now().toString(36)}-${Math.random().toString(36).slice(2, 8)}`;
+    const config = { redisUrl: redisUrl!, redisPrefix, loginRateLimit: { windowMs: 60_000, max: 4 } };
+    servers.push(await startTestServer({ config }), await startTestServer({ config }));
+    const [a, b] = servers;
+    const attempt = (s: TestServer) => s.api('POST', '/auth/login', { body: { email: 'nobody@example.test', password: 'whatever12' } });
+    // Two wrong passwords on each process use up the shared allowance of four.
+    for (const s of [a, b, a, b]) expect((await attempt(s)).status).toBe(401);
+    for (const s of [a, b]) {
+      const r = await attempt(s);
+      expect(r.status).toBe(429);
+      expect(errorCode(r.body)).toBe('rate_limited');
+    }
+  });
+});
+
 describe('malformed bodies on the auth routes', () => {
   let s: TestServer;
   beforeAll(async () => {
