@@ -1,6 +1,8 @@
 // Universal beams (UKB), BS 4-1:2005 range from 914x419 down to 127x76, as tabulated in SCI P363
 // (steel building design: design data). Dimensions h, b, tw, tf, r in mm, typed from memory of
-// those tables; each row is checked by the mass test (computed vs designation ±2%).
+// those tables; each row is checked by the mass test (computed vs designation ±2%), and the rows from
+// 914x419x388 to 610x229x101 against a stored copy of the published table
+// (tests/engine/catalogue-published.test.ts).
 // The 1016x305 and other sizes marked "+" (not in BS 4-1) are not included.
 import type { CatalogueEntry } from './types.ts';
 import { rolledRows } from './rolledRows.ts';
