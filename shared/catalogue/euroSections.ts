@@ -1,6 +1,7 @@
 // European wide-flange (HE A, HE B, HE M) and IPE sections, EN 10365:2017 dimensions (the former
 // EURONORM 53 / DIN 1025 series): h, b, tw, tf, r in mm and the nominal mass in kg/m, typed from
-// memory of the product tables. Each row is checked by the mass test (computed vs nominal ±2%).
+// memory of the product tables. Each row is checked by the mass test (computed vs nominal ±2%); the IPE
+// depths and masses also against a stored copy of a published table (tests/engine/catalogue-published.test.ts).
 import type { CatalogueEntry } from './types.ts';
 import { euroRows } from './rolledRows.ts';
 

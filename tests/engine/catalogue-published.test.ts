@@ -3,7 +3,7 @@
 // UKB, Dimensions": mass per metre, h, b, tw, tf (mm). Root radii r from the dimension table of BS 4-1
 // universal beams in the same kind of stored copy (914: 24.1, 914x305: 19.1, 838: 17.8, 762: 16.5,
 // 686: 15.2, 610x305: 16.5, 610x229: 12.7 mm). Covers the 24 rows from 914x419x388 to 610x229x101;
-// the other rows are typed from memory and checked by the mass test in catalogue.test.ts.
+// the other rows are typed from memory and checked by the mass test in catalogue.test.ts. IPE below.
 import { describe, expect, it } from 'vitest';
 import { findSection } from '../../shared/catalogue/index.ts';
 import { sectionProperties } from '../../shared/engine/index.ts';
@@ -43,6 +43,30 @@ describe('UKB rows against the published dimension table', () => {
       expect(entry, `${designation} is in the catalogue`).toBeDefined();
       expect(entry!.dims).toMatchObject({ shape: 'I', make: 'rolled', h, b, tw, tf, r });
       // 7850 kg/m³ (the table's density); the published mass includes the root fillets as ours does.
+      expect(Math.abs(sectionProperties(entry!.dims).massPerMetre / mass - 1)).toBeLessThan(0.005);
+    });
+  }
+});
+
+// SCI / ArcelorMittal "orange book", "Parallel flange I sections — IPE, dimensions and properties"
+// (UK National Annex edition), read from a stored copy: mass per metre (kg/m) and depth h (mm). The
+// stored copy shows only these two columns, so b, tw, tf and r are checked through the mass: a
+// mistyped one moves the mass computed from them.
+const IPE_PUBLISHED: readonly [string, number, number][] = [
+  ['IPE 100', 8.1, 100], ['IPE 120', 10.4, 120], ['IPE 140', 12.9, 140], ['IPE 160', 15.8, 160],
+  ['IPE 180', 18.8, 180], ['IPE 200', 22.4, 200], ['IPE 220', 26.2, 220], ['IPE 240', 30.7, 240],
+  ['IPE 270', 36.1, 270], ['IPE 300', 42.2, 300], ['IPE 330', 49.1, 330], ['IPE 360', 57.1, 360],
+  ['IPE 400', 66.3, 400], ['IPE 450', 77.6, 450], ['IPE 500', 90.7, 500], ['IPE 550', 106, 550],
+  ['IPE 600', 122, 600],
+];
+
+describe('IPE rows against the published table', () => {
+  for (const [designation, mass, h] of IPE_PUBLISHED) {
+    it(`${designation}: h = ${h} mm and the mass from the dimensions within 0.5% of ${mass} kg/m`, () => {
+      const entry = findSection(designation);
+      expect(entry, `${designation} is in the catalogue`).toBeDefined();
+      expect(entry!.dims).toMatchObject({ h });
+      expect(entry!.massPerMetre).toBe(mass);
       expect(Math.abs(sectionProperties(entry!.dims).massPerMetre / mass - 1)).toBeLessThan(0.005);
     });
   }
