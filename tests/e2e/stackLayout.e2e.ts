@@ -131,6 +131,15 @@ describeInBrowser('stack page layout', () => {
     expect(await graphZoom(page)).toBeGreaterThanOrEqual(0.7);
     await viewShot(page, 'stack-layout-1280-tall-governing');
 
+    // The top lift picked in the results table: the graph pans to it, at the same zoom.
+    const zoom = await graphZoom(page);
+    expect(inside(await box(graphNode(page, 'lift-15')), await box(graphPane(page)))).toBe(false);
+    await liftRow(page, 'L15').click();
+    await expect.poll(async () => inside(await box(graphNode(page, 'lift-15')), await box(graphPane(page))), { timeout: 5000 }).toBe(true);
+    // The pan is animated (it zooms out a little on the way): it ends at the zoom it started from.
+    await expect.poll(() => graphZoom(page), { timeout: 5000 }).toBeCloseTo(zoom, 3);
+    expect(inside(await box(graphNode(page, 'lift-15')), await box(graphPane(page)))).toBe(true);
+
     // Fit: the cap and the support both inside the pane.
     await page.getByRole('button', { name: 'Fit', exact: true }).click();
     await expect
