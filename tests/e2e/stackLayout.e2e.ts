@@ -75,6 +75,15 @@ async function createTallStack(page: Page, name: string, template: Partial<Stack
 
 const graphPane = (page: Page) => page.getByRole('region', { name: 'Stack graph' });
 
+/** The graph has panned to the node and ended at the zoom it started from. The pan is animated and
+ *  zooms out a little on the way, so the end of it is waited for before the zoom and place are judged. */
+async function expectPannedTo(page: Page, node: Locator, zoom: number): Promise<void> {
+  const nodeInPane = async () => inside(await box(node), await box(graphPane(page)));
+  await expect.poll(nodeInPane, { timeout: 5000 }).toBe(true);
+  await expect.poll(() => graphZoom(page), { timeout: 5000 }).toBeCloseTo(zoom, 3);
+  expect(await nodeInPane()).toBe(true);
+}
+
 describeInBrowser('stack page layout', () => {
   const session = useAppAndBrowser();
 
@@ -135,10 +144,7 @@ describeInBrowser('stack page layout', () => {
     const zoom = await graphZoom(page);
     expect(inside(await box(graphNode(page, 'lift-15')), await box(graphPane(page)))).toBe(false);
     await liftRow(page, 'L15').click();
-    await expect.poll(async () => inside(await box(graphNode(page, 'lift-15')), await box(graphPane(page))), { timeout: 5000 }).toBe(true);
-    // The pan is animated (it zooms out a little on the way): it ends at the zoom it started from.
-    await expect.poll(() => graphZoom(page), { timeout: 5000 }).toBeCloseTo(zoom, 3);
-    expect(inside(await box(graphNode(page, 'lift-15')), await box(graphPane(page)))).toBe(true);
+    await expectPannedTo(page, graphNode(page, 'lift-15'), zoom);
 
     // Fit: the cap and the support both inside the pane.
     await page.getByRole('button', { name: 'Fit', exact: true }).click();
@@ -170,8 +176,7 @@ describeInBrowser('stack page layout', () => {
     await page.getByRole('toolbar', { name: 'Add a node' }).getByRole('button', { name: 'Restraint' }).click();
     const added = page.locator('.vue-flow__node.selected');
     await expect.poll(() => added.getAttribute('data-id')).toMatch(/^restraint-/);
-    await expect.poll(async () => inside(await box(added), await box(graphPane(page))), { timeout: 5000 }).toBe(true);
-    expect(await graphZoom(page)).toBeCloseTo(zoom, 3);
+    await expectPannedTo(page, added, zoom);
     await viewShot(page, 'stack-layout-1280-tall-added');
 
     await page.setViewportSize(LARGE);
