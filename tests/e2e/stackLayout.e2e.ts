@@ -185,4 +185,25 @@ describeInBrowser('stack page layout', () => {
     await expect.poll(async () => inside(await box(graphNode(page, 'cap')), await box(graphPane(page))), { timeout: 5000 }).toBe(true);
     await viewShot(page, 'stack-layout-1920-tall-top');
   });
+  it('keeps the divider between the graph and the results where the person left it', async () => {
+    const page = await session.pageAs(DEMO.engineer);
+    await page.setViewportSize(SMALL);
+    await openDemoBuilding(page);
+    await openStack(page, 'C/4');
+    const divider = page.locator('.stack-page__divider');
+    const before = await box(graphPane(page));
+    const grip = await box(divider);
+    await page.mouse.move(grip.x + grip.width / 2, grip.y + grip.height / 2);
+    await page.mouse.down();
+    await page.mouse.move(grip.x + grip.width / 2, grip.y + grip.height / 2 - 120, { steps: 8 });
+    await page.mouse.up();
+    const dragged = await box(graphPane(page));
+    expect(before.height - dragged.height).toBeGreaterThan(100);
+
+    // The splitter hands over its new place when the drag has ended; the page keeps it in this browser.
+    await expect.poll(() => page.evaluate(() => localStorage.getItem('stanchion.stackPage.graphShare')), { timeout: 5000 }).not.toBeNull();
+    await page.reload();
+    await results(page).getByText('governs').first().waitFor();
+    await expect.poll(async () => Math.abs((await box(graphPane(page))).height - dragged.height), { timeout: 5000 }).toBeLessThan(3);
+  });
 });
