@@ -1,5 +1,5 @@
 // Catalogue rows against a published section table, read from a stored copy: SCI P363 (steel building
-// design: design data, the "blue book"), "Universal beams, BS EN 1993-1-1:2005, BS 4-1:2005 — Advance
+// design: design data), "Universal beams, BS EN 1993-1-1:2005, BS 4-1:2005 — Advance
 // UKB, Dimensions": mass per metre, h, b, tw, tf (mm). Root radii r from the dimension table of BS 4-1
 // universal beams in the same kind of stored copy (914: 24.1, 914x305: 19.1, 838: 17.8, 762: 16.5,
 // 686: 15.2, 610x305: 16.5, 610x229: 12.7 mm). Covers the 24 rows from 914x419x388 to 610x229x101;
