@@ -4,7 +4,10 @@
 // top-down search alone is no longer exact. The combined check only ever adds to the axial one, so
 // the axial proposal is a lower bound; from there every lift that fails, analysed whole with
 // analyseStack, is raised to the next candidate until every lift passes or one runs out of sections.
-// The result passes and keeps the rules; unlike the axial case it is not proven to be the lightest.
+// Raising every failing lift at once can overshoot (a stiffer lift draws more of the shared moment and
+// relieves its neighbours), so a second pass then lightens the column while it still passes: one lift a
+// section lighter, or one lift lighter with a neighbour a section or two heavier. The result passes,
+// keeps the rules and no such move makes it lighter; it is not proven to be the lightest of all.
 import type { AnalysisOptions } from '../../schema/results.ts';
 import type { SizingRequest } from '../../schema/sizing.ts';
 import type { StackDocument } from '../../schema/stack.ts';
@@ -52,15 +55,25 @@ function blockBelowNone(picks: LiftPick[]): void {
   for (let i = 0; i < none; i++) picks[i] = { kind: 'blocked' };
 }
 
-export function raiseUntilPassing(
-  doc: StackDocument,
-  liftIds: readonly string[],
-  axial: readonly LiftPick[],
-  candidates: readonly GradedCandidate[],
-  request: SizingRequest,
-  options: AnalysisOptions,
-  context: AnalysisContext,
-): LiftPick[] {
+/** What the moment-aware search needs besides the candidates: the stack, its lifts and the rules. */
+export interface CoupledStack {
+  doc: StackDocument;
+  liftIds: readonly string[];
+  /** m, bottom lift first */
+  lengths: readonly number[];
+  request: SizingRequest;
+  options: AnalysisOptions;
+  context: AnalysisContext;
+}
+
+export function sizeWithMoments(stack: CoupledStack, axial: readonly LiftPick[], candidates: readonly GradedCandidate[]): LiftPick[] {
+  const raised = raiseUntilPassing(stack, axial, candidates);
+  if (!everyLiftPicked(raised) || !everyLiftPicked(axial)) return raised;
+  // No lift can go below its axial pick: that is the lightest passing with the lightest lifts above.
+  return lighten(stack, raised, candidates, axial.map((p) => candidates.indexOf(p.candidate)));
+}
+
+function raiseUntilPassing({ doc, liftIds, request, options, context }: CoupledStack, axial: readonly LiftPick[], candidates: readonly GradedCandidate[]): LiftPick[] {
   const picks = [...axial];
   for (;;) {
     const result = analyseStack(withPicks(doc, liftIds, picks, request), options, context);
@@ -83,5 +96,61 @@ export function raiseUntilPassing(
       blockBelowNone(picks);
     }
     if (!raised || picks.every((p) => p.kind !== 'section')) return picks;
+  }
+}
+
+type Picked = Extract<LiftPick, { kind: 'section' }>;
+const everyLiftPicked = (picks: readonly LiftPick[]): picks is readonly Picked[] => picks.every((p) => p.kind === 'section');
+
+/** The trial's utilisations when every lift passes the target and the rules hold, else null. */
+function passing({ doc, liftIds, request, options, context }: CoupledStack, trial: readonly Picked[]): number[] | null {
+  if (request.noUpwardIncrease && trial.some((p, i) => i > 0 && p.candidate.massPerMetre > trial[i - 1].candidate.massPerMetre)) return null;
+  const result = analyseStack(withPicks(doc, liftIds, trial, request), options, context);
+  if (result.errors.length > 0) return null;
+  const utilisations = result.lifts.map((l) => l.utilisation);
+  return utilisations.every((u) => u <= request.target) ? utilisations : null;
+}
+
+/**
+ * Lightens a passing proposal by moves that each lower the column's mass: one lift a section lighter
+ * (never below `lowest`, its index in the candidates), or that with a neighbour one or two sections
+ * heavier. Takes the first move that passes, and repeats until none does. Every move lowers the mass,
+ * so it ends.
+ */
+function lighten(stack: CoupledStack, start: readonly Picked[], candidates: readonly GradedCandidate[], lowest: readonly number[]): LiftPick[] {
+  let picks = start;
+  const indexOf = (p: Picked) => candidates.indexOf(p.candidate);
+  const mass = (trial: readonly Picked[]) => trial.reduce((sum, p, i) => sum + p.candidate.massPerMetre * stack.lengths[i], 0);
+  const moved = (from: readonly Picked[], i: number, steps: number): Picked | null => {
+    const index = indexOf(from[i]) + steps;
+    const candidate = index >= lowest[i] ? candidates[index] : undefined;
+    return candidate ? { kind: 'section', candidate, utilisation: from[i].utilisation } : null;
+  };
+  const movesOf = (from: readonly Picked[]): Picked[][] => {
+    const moves: Picked[][] = [];
+    from.forEach((_, i) => {
+      const lighter = moved(from, i, -1);
+      if (!lighter) return;
+      moves.push(from.map((p, k) => (k === i ? lighter : p)));
+      for (const j of [i - 1, i + 1]) {
+        for (const steps of [1, 2]) {
+          const heavier = j >= 0 && j < from.length ? moved(from, j, steps) : null;
+          if (heavier) moves.push(from.map((p, k) => (k === i ? lighter : k === j ? heavier : p)));
+        }
+      }
+    });
+    return moves.filter((m) => mass(m) < mass(from) - 1e-9);
+  };
+  for (;;) {
+    let next: Picked[] | null = null;
+    for (const trial of movesOf(picks)) {
+      const utilisations = passing(stack, trial);
+      if (utilisations) {
+        next = trial.map((p, i) => ({ ...p, utilisation: utilisations[i] }));
+        break;
+      }
+    }
+    if (!next) return [...picks];
+    picks = next;
   }
 }

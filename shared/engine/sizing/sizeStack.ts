@@ -6,7 +6,7 @@ import type { StackDocument } from '../../schema/stack.ts';
 import { allLevelElevations, type AnalysisContext } from '../stack/context.ts';
 import { analyseStack } from '../stack/analyseStack.ts';
 import { inspectStack } from '../stack/inspectStack.ts';
-import { hasNominalMoments, raiseUntilPassing } from './nominalMoments.ts';
+import { hasNominalMoments, sizeWithMoments, type CoupledStack } from './nominalMoments.ts';
 import { checkableCandidates, sizingCandidates, type GradedCandidate } from './sizingCandidates.ts';
 import { currentUtilisations, sizeLifts, type CurrentCheck, type LiftPick } from './sizeLifts.ts';
 import { sizingModel, type SizingModel } from './sizingModel.ts';
@@ -73,10 +73,8 @@ export function sizeStack(doc: StackDocument, request: SizingRequest, options: P
   const model = sizingModel(stack, settings, allLevelElevations(context.levels), context.sections);
   const candidates = checkableCandidates(sizingCandidates(request.series, request.allowed), request.grade, settings.annex);
   const moments = hasNominalMoments(doc, settings);
-  const liftIds = model.lifts.map((l) => l.id);
-  const search: Search = moments
-    ? (group) => raiseUntilPassing(doc, liftIds, sizeLifts(model, group, request), group, request, settings, context)
-    : (group) => sizeLifts(model, group, request);
+  const coupled: CoupledStack = { doc, liftIds: model.lifts.map((l) => l.id), lengths: model.lifts.map((l) => l.top - l.bottom), request, options: settings, context };
+  const search: Search = moments ? (group) => sizeWithMoments(coupled, sizeLifts(model, group, request), group) : (group) => sizeLifts(model, group, request);
   const { picks, serial } = bestPicks(model, candidates, request, search);
   const now = moments ? analysedUtilisations(doc, model.lifts.length, settings, context) : currentUtilisations(model);
   const lifts = model.lifts.map((_, i) => liftRow(model, i, picks[i], now[i], request));
