@@ -3,7 +3,7 @@ import type { Knex } from 'knex';
 import type { createClient } from 'redis';
 import type { Config } from './config.ts';
 import type { Mailer } from './mail/mailer.ts';
-import type { PackageRenderer } from './pdf/packageRenderer.ts';
+import type { OffThread } from './offThread/pool.ts';
 import type { Broadcaster } from './services/broadcast.ts';
 
 export interface ServerContext {
@@ -14,8 +14,8 @@ export interface ServerContext {
   broadcaster: Broadcaster;
   /** With REDIS_URL: counters every process must share (the sign-in limit); null on a single process. */
   redis: RedisClient | null;
-  /** Draws calculation packages off the main thread. */
-  packages: PackageRenderer;
+  /** Long work (calculation packages, sizing a building) done on a worker thread. */
+  offThread: OffThread;
 }
 
 export type RedisClient = ReturnType<typeof createClient>;

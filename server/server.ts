@@ -10,7 +10,7 @@ import { loadConfig, type ConfigOverrides } from './config.ts';
 import type { RedisClient, ServerContext } from './context.ts';
 import { createDb, migrate } from './db.ts';
 import { createMailer } from './mail/mailer.ts';
-import { createPackageRenderer } from './pdf/packageRenderer.ts';
+import { createOffThread } from './offThread/pool.ts';
 import { nullBroadcaster } from './services/broadcast.ts';
 import { attachRealtime, type Realtime } from './realtime/index.ts';
 
@@ -54,8 +54,8 @@ export async function startServer(opts: StartOptions = {}): Promise<RunningServe
   }
   const mailer = await createMailer(config, db);
   const redis = config.redisUrl ? await connectRedis(config.redisUrl, config.logLevel) : null;
-  const packages = createPackageRenderer();
-  const ctx: ServerContext = { db, config, mailer, broadcaster: nullBroadcaster, redis, packages };
+  const offThread = createOffThread();
+  const ctx: ServerContext = { db, config, mailer, broadcaster: nullBroadcaster, redis, offThread };
   const app = createApp(ctx);
   const httpServer = createServer(app);
   const realtime = await attachRealtime(httpServer, ctx);
@@ -72,7 +72,7 @@ export async function startServer(opts: StartOptions = {}): Promise<RunningServe
       // Closes the live channel's sockets and the HTTP listener.
       await realtime.close();
       await redis?.quit().catch(() => undefined);
-      await packages.close();
+      await offThread.close();
       await mailer.close();
       await db.destroy();
     })();

@@ -27,7 +27,7 @@ export function registerRevisionRoutes(router: Router, ctx: ServerContext): void
     const { buildingId } = currentAccess(req);
     const { id, snapshot, hash } = await freezeRevision(ctx.db, buildingId, { ...body, engineVersion: ENGINE_VERSION }, currentUser(req));
     // Committed: from here on a failure to send is recorded per recipient and never undoes the freeze.
-    const pdf = await ctx.packages.render(snapshot, hash);
+    const pdf = await ctx.offThread.renderPackage(snapshot, hash);
     await sendRevisionMail(ctx, id, snapshot, hash, revisionsLink(req, buildingId), pdf);
     res.status(201).json(await getRevision(ctx.db, id));
   });
@@ -43,7 +43,7 @@ export function registerRevisionRoutes(router: Router, ctx: ServerContext): void
   });
   router.get('/revisions/:id/calc.pdf', auth, revisionViewer, async (req, res) => {
     const { snapshot, hash } = await loadSnapshot(ctx.db, idParam(req));
-    const pdf = await ctx.packages.render(snapshot, hash);
+    const pdf = await ctx.offThread.renderPackage(snapshot, hash);
     res.setHeader('Content-Type', 'application/pdf');
     res.setHeader('Content-Disposition', `attachment; filename="${packageFilename(snapshot)}"`);
     res.send(pdf);
@@ -51,7 +51,7 @@ export function registerRevisionRoutes(router: Router, ctx: ServerContext): void
   router.post('/revisions/:id/resend', auth, revisionLead, async (req, res) => {
     const id = idParam(req);
     const { snapshot, hash } = await loadSnapshot(ctx.db, id);
-    const pdf = await ctx.packages.render(snapshot, hash);
+    const pdf = await ctx.offThread.renderPackage(snapshot, hash);
     await sendRevisionMail(ctx, id, snapshot, hash, revisionsLink(req, snapshot.building.id), pdf);
     res.json(await getRevision(ctx.db, id));
   });

@@ -16,6 +16,6 @@ export function registerSizingRoutes(router: Router, ctx: ServerContext): void {
   });
   router.post('/buildings/:id/sizing', auth, requireRole(ctx, 'engineer'), async (req, res) => {
     const request = parseBody(sizingRequestSchema, req);
-    res.json(await buildingSizingPreview(ctx.db, currentAccess(req).buildingId, request));
+    res.json(await buildingSizingPreview(ctx, currentAccess(req).buildingId, request));
   });
 }

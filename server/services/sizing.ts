@@ -2,8 +2,9 @@
 // building, with the building's analysis options and levels. Nothing is stored; accepting goes
 // through the ordinary edit path (ops), from the client.
 import type { Knex } from 'knex';
-import { isEngineError, sizeBuilding, sizeStack } from '../../shared/engine/index.ts';
+import { isEngineError, sizeStack } from '../../shared/engine/index.ts';
 import type { BuildingSizingPreview, SizingRequest, StackSizingPreview } from '../../shared/schema/sizing.ts';
+import type { ServerContext } from '../context.ts';
 import { unprocessable } from '../errors.ts';
 import { analysisInputs } from './analysis.ts';
 import { loadStackRow, parseDoc, type StackRow } from './stackRows.ts';
@@ -25,10 +26,12 @@ export async function stackSizingPreview(db: Knex, stackId: number, request: Siz
   return { stackId: row.id, name: row.name, version: row.version, ...sizing };
 }
 
-export async function buildingSizingPreview(db: Knex, buildingId: number, request: SizingRequest): Promise<BuildingSizingPreview> {
-  const rows = await db<StackRow>('stacks').where({ building_id: buildingId }).orderBy('name').orderBy('id').select('id', 'name', 'version', 'doc');
-  const inputs = await analysisInputs(db, buildingId);
+/** Every stack of a building, sized on the worker thread (a large building takes seconds). */
+export async function buildingSizingPreview(ctx: ServerContext, buildingId: number, request: SizingRequest): Promise<BuildingSizingPreview> {
+  const rows = await ctx.db<StackRow>('stacks').where({ building_id: buildingId }).orderBy('name').orderBy('id').select('id', 'name', 'version', 'doc');
+  const inputs = await analysisInputs(ctx.db, buildingId);
   const stacks = rows.map((r) => ({ stackId: r.id, name: r.name, version: r.version, doc: parseDoc(r.doc) }));
-  const sizing = engineRefusal(() => sizeBuilding(stacks, request, inputs.options, { levels: inputs.levels, sections: inputs.sections }));
-  return { buildingId, ...sizing };
+  const outcome = await ctx.offThread.sizeBuilding({ stacks, request, ...inputs });
+  if ('refused' in outcome) throw unprocessable(outcome.refused.message, { code: outcome.refused.code });
+  return { buildingId, ...outcome.sizing };
 }

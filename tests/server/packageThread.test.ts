@@ -1,5 +1,6 @@
-// The calculation package is drawn on a worker thread (server/pdf/packageRenderer.ts), so a freeze of
-// a large building does not stall the requests and live edits the same process serves. Invented data.
+// The calculation package is drawn on a worker thread (server/offThread/pool.ts), so a freeze of
+// a large building does not stall the requests and live edits the same process serves (sizing a whole
+// building goes to the same thread). Invented data.
 import { monitorEventLoopDelay } from 'node:perf_hooks';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type { StackSummary } from '../../shared/schema/api.ts';

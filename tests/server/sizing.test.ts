@@ -94,6 +94,11 @@ describe('sizing', () => {
     const foreign = await sizeStack(stack.id, { series: 'UKC', grade: 'S355', allowed: ['UKB 457x191x67'] });
     expect(foreign.status).toBe(422);
     expect(errorCode(foreign.body)).toBe('unprocessable');
+    // The building is sized on a worker thread; its refusal reaches the caller the same way.
+    const wholeBuilding = await s.api('POST', `/buildings/${buildingId}/sizing`, { token, body: { series: 'UKC', grade: 'S355', allowed: ['UKB 457x191x67'] } });
+    expect(wholeBuilding.status).toBe(422);
+    expect(errorCode(wholeBuilding.body)).toBe('unprocessable');
+    expect((wholeBuilding.body as { error: { message: string } }).error.message).toBe((foreign.body as { error: { message: string } }).error.message);
     const viewer = await registerUser(s, 'viewer');
     await addMember(s, token, buildingId, viewer.user.email, 'viewer');
     const refused = await s.api('POST', `/stacks/${stack.id}/sizing`, { token: viewer.token, body: { series: 'UKC', grade: 'S355' } });

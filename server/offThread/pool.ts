@@ -1,0 +1,32 @@
+// Drawing the calculation package of a large building, or sizing every stack of one, takes seconds
+// of CPU. On the main thread that would stall every request and live edit this process serves, so a
+// worker thread does it. One thread at a time keeps a core free for requests; it starts on first use
+// (about half a second to load the engine and the renderer) and ends after ten minutes without work.
+import { Piscina } from 'piscina';
+import type { RevisionSnapshot } from '../../shared/schema/revisions.ts';
+import type { BuildingSizingOutcome, BuildingSizingTask, PackageTask } from './tasks.ts';
+
+export interface OffThread {
+  renderPackage(snapshot: RevisionSnapshot, hash: string): Promise<Buffer>;
+  sizeBuilding(task: BuildingSizingTask): Promise<BuildingSizingOutcome>;
+  close(): Promise<void>;
+}
+
+export function createOffThread(): OffThread {
+  const pool = new Piscina({
+    filename: new URL('./worker.mjs', import.meta.url).href,
+    minThreads: 0,
+    maxThreads: 1,
+    idleTimeout: 10 * 60_000,
+  });
+  return {
+    async renderPackage(snapshot, hash) {
+      const task: PackageTask = { snapshot, hash };
+      // A Buffer crosses the thread boundary as a plain Uint8Array.
+      const bytes = (await pool.run(task, { name: 'renderPackage' })) as Uint8Array;
+      return Buffer.from(bytes.buffer, bytes.byteOffset, bytes.byteLength);
+    },
+    sizeBuilding: (task) => pool.run(task, { name: 'sizeWholeBuilding' }) as Promise<BuildingSizingOutcome>,
+    close: () => pool.destroy(),
+  };
+}
