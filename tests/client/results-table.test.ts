@@ -5,6 +5,7 @@ import { mount } from '@vue/test-utils';
 import type { StackResult } from '@shared/schema/results.ts';
 import type { StackDocument } from '@shared/schema/stack.ts';
 import { analyseStack } from '@shared/engine/index.ts';
+import { BRACED_FRAME_WARNING } from '@shared/engine/stack/inspectStack.ts';
 import ResultsPanel from '@/components/stack/ResultsPanel.vue';
 import BucklingCurvePlot from '@/components/stack/BucklingCurvePlot.vue';
 import { bucklingCurvePoints } from '@/composables/bucklingCurvePoints.ts';
@@ -88,6 +89,14 @@ describe('results table', () => {
     expect(w.emitted('select-lift')).toEqual([['l2']]);
   });
 
+  it('lets a lift be chosen from the keyboard: each row takes the focus and answers Enter', async () => {
+    const w = mountPanel();
+    const row = w.find('tr[data-lift="l1"]');
+    expect(row.attributes('tabindex')).toBe('0');
+    await row.trigger('keydown', { key: 'Enter' });
+    expect(w.emitted('select-lift')).toEqual([['l1']]);
+  });
+
   it("opens the selected lift's working with clause references and its buckling curve", () => {
     const w = mountPanel('l1');
     expect(w.text()).toContain('Working for lift L1');
@@ -107,6 +116,24 @@ describe('results table', () => {
     const w = mountPanel();
     expect(w.text()).toContain('checked by a competent engineer');
     expect(w.find('[data-scope-note]').text()).toContain('Sway frames are out of scope');
+  });
+
+  it('says the braced-frame assumption once, in the scope line, and keeps the warnings particular to the stack', () => {
+    const particular = { nodeId: 'l1', message: 'Lift L1 takes its buckling-length factor about z-z from a note' };
+    expect(results.warnings).toContainEqual(BRACED_FRAME_WARNING);
+    const w = mountPanel(null, { ...results, warnings: [...results.warnings, particular] });
+    expect(w.find('[data-test="stack-warnings"]').text()).toContain(particular.message);
+    expect(w.find('[data-test="stack-warnings"]').text()).not.toContain('assumes a braced');
+    expect(w.find('[data-scope-note]').text()).toContain('frame moments from continuous connections');
+    expect(mountPanel().find('[data-test="stack-warnings"]').exists()).toBe(false);
+  });
+
+  it('puts the governing lift and the table before the scope line, so a short pane opens on figures', () => {
+    const html = mountPanel().html();
+    const at = (marker: string) => html.indexOf(marker);
+    expect(at('data-governing-summary')).toBeGreaterThan(-1);
+    expect(at('data-governing-summary')).toBeLessThan(at('results-table'));
+    expect(at('results-table')).toBeLessThan(at('data-scope-note'));
   });
 });
 
