@@ -12,7 +12,9 @@ export interface FieldDraftOptions {
   onValid: (data: Record<string, unknown>) => void;
 }
 
-const shown = (v: unknown): string => (v === undefined || v === null ? '' : String(v));
+/** A stored value as its field shows it: numbers to the field's decimal places when it has them. */
+const shown = (v: unknown, places?: number): string =>
+  v === undefined || v === null ? '' : typeof v === 'number' && places !== undefined ? v.toFixed(places) : String(v);
 
 export function useFieldDraft(opts: FieldDraftOptions) {
   const draft = reactive<Record<string, string>>({});
@@ -25,7 +27,7 @@ export function useFieldDraft(opts: FieldDraftOptions) {
     () => toValue(opts.value),
     (value) => {
       sent.clear();
-      for (const f of toValue(opts.fields)) if (!errors[f.key]) draft[f.key] = shown(value[f.key]);
+      for (const f of toValue(opts.fields)) if (!errors[f.key]) draft[f.key] = shown(value[f.key], f.places);
     },
     { immediate: true, deep: true },
   );

@@ -47,8 +47,10 @@ describe('a restraint tied to a level', () => {
     expect(label).toBe('Untie Restraint +3.800 from its level');
   });
 
-  it('offers no untie button to a viewer', () => {
+  it('offers no untie button to a viewer, nor advice to do what a viewer cannot', () => {
     const w = mount(PropertiesPanel, { props: { doc: doc(onLevel), selection: ['r1'], results: null, readOnly: true } });
     expect(w.find('[data-test="untie-level"]').exists()).toBe(false);
+    expect(w.text()).toContain('Set by its level');
+    expect(w.text()).not.toContain('untie the restraint');
   });
 });

@@ -33,6 +33,11 @@ describe('node properties form', () => {
     expect(labels).toContain('Imposed load Qk (kN)');
   });
 
+  it('shows an elevation to the millimetre, as the node title does', () => {
+    const w = mount(NodeForm, { props: { kind: 'splice', value: { elevation: 8 }, readOnly: false } });
+    expect((w.find('input[data-field="elevation"]').element as HTMLInputElement).value).toBe('8.000');
+  });
+
   it('refuses a negative load with a message and sends nothing', async () => {
     const w = mount(NodeForm, { props: { kind: 'restraint', value: restraint, readOnly: false } });
     await typeInto(w, 'Gk', '-5');
@@ -101,6 +106,26 @@ describe('lift form', () => {
   it('lets a viewer read the values without buttons to change them', () => {
     const w = mount(LiftForm, { props: { value: lift, readOnly: true } });
     expect(w.find('[data-action="apply-overrides"]').exists()).toBe(false);
+  });
+
+  it('shows a viewer no empty override fields, series search or advice on filling them in', () => {
+    const w = mount(LiftForm, { props: { value: lift, readOnly: true } });
+    expect(w.find('input[data-field="kY"]').exists()).toBe(false);
+    expect(w.find('textarea[data-field="note"]').exists()).toBe(false);
+    expect(w.find('[data-field="series"]').exists()).toBe(false);
+    expect(w.find('[data-test="k-caption"]').text()).toContain('worked out from the restraints and fixities (none set by hand)');
+    expect(w.find('[data-test="k-caption"]').text()).not.toContain('Leave blank');
+  });
+
+  it('shows a viewer the factors and the reason that were set by hand', () => {
+    const w = mount(LiftForm, { props: { value: { ...lift, kZ: 0.85, note: 'Base fixed into the pile cap' }, readOnly: true } });
+    expect((w.find('input[data-field="kZ"]').element as HTMLInputElement).value).toBe('0.85');
+    expect((w.find('textarea[data-field="note"]').element as HTMLTextAreaElement).value).toBe('Base fixed into the pile cap');
+  });
+
+  it('names the grade without tying it to one product standard (hollow sections take fy from another)', () => {
+    const w = mount(LiftForm, { props: { value: lift, readOnly: false } });
+    expect(w.findAll('.q-field__label').map((l) => l.text())).toContain('Steel grade');
   });
 });
 

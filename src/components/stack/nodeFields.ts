@@ -14,6 +14,8 @@ export interface FieldSpec extends FieldInfo {
   type: 'number' | 'text' | 'select';
   options?: FieldOption[];
   hint?: string;
+  /** Decimal places a stored number is shown with. */
+  places?: number;
 }
 
 const words = (record: Record<string, string>, keys: readonly string[]): FieldOption[] => keys.map((value) => ({ value, label: record[value] }));
@@ -25,7 +27,8 @@ const fixity = (withFree: boolean): FieldSpec => ({
   options: words(FIXITY_WORD, withFree ? ['pinned', 'partial', 'fixed', 'free'] : ['pinned', 'partial', 'fixed']),
   hint: withFree ? 'Free: the top is a cantilever, which needs a fixed base segment' : undefined,
 });
-const elevation: FieldSpec = { key: 'elevation', label: 'Elevation', unit: 'm', type: 'number' };
+// To the millimetre, as the node titles and the levels show elevations.
+const elevation: FieldSpec = { key: 'elevation', label: 'Elevation', unit: 'm', type: 'number', places: 3 };
 const loads: FieldSpec[] = [
   { key: 'Gk', label: 'Permanent load Gk', unit: 'kN', type: 'number', hint: 'Characteristic, entering the column here' },
   { key: 'Qk', label: 'Imposed load Qk', unit: 'kN', type: 'number', hint: 'Characteristic, entering the column here' },
