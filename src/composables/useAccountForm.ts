@@ -18,7 +18,7 @@ export function useAccountForm<T>(schema: ZodType<T>, labels: Record<string, Fie
     failure.value = '';
     const parsed = schema.safeParse(values);
     if (!parsed.success) {
-      errors.value = fieldErrors(parsed.error, labels);
+      errors.value = fieldErrors(parsed.error, labels, values);
       return;
     }
     errors.value = {};

@@ -49,6 +49,15 @@ describe('sign-in form', () => {
     expect(requests).toHaveLength(0);
   });
 
+  it('asks for an e-mail address left empty rather than calling it a wrong one', async () => {
+    const requests = mockFetch({});
+    const { wrapper } = await mountSignIn();
+    await fillAndSubmit(wrapper, '  ', 'secret-enough');
+    expect(wrapper.text()).toContain('E-mail is required');
+    expect(wrapper.text()).not.toContain('must be an e-mail address');
+    expect(requests).toHaveLength(0);
+  });
+
   it('sends the trimmed, lower-cased address, keeps the token and goes to the page that was asked for', async () => {
     const requests = mockFetch({ 'POST /api/auth/login': () => ({ status: 200, body: { token: 'tok-123', user } }) });
     const { wrapper, router } = await mountSignIn('/buildings/7');

@@ -24,14 +24,17 @@ function describe(issue: z.core.$ZodIssue, unit: string): string {
   }
 }
 
-/** First message per top-level field, e.g. { elevation: "Elevation must be at most 1000 m" }. */
-export function fieldErrors(error: z.ZodError, fields: Record<string, FieldInfo>): Record<string, string> {
+/** First message per top-level field, e.g. { elevation: "Elevation must be at most 1000 m" }. Given the
+ *  typed values, a field left empty reads "is required" whatever rule refused it (an empty e-mail
+ *  address is not "not an e-mail address" to the person typing). */
+export function fieldErrors(error: z.ZodError, fields: Record<string, FieldInfo>, typed?: Record<string, unknown>): Record<string, string> {
   const out: Record<string, string> = {};
   for (const issue of error.issues) {
     const key = String(issue.path[0] ?? '');
     if (key in out) continue;
     const info = fields[key];
-    out[key] = info ? `${info.label} ${describe(issue, info.unit ?? '')}` : issue.message;
+    const empty = typeof typed?.[key] === 'string' && (typed[key] as string).trim() === '';
+    out[key] = info ? `${info.label} ${empty ? 'is required' : describe(issue, info.unit ?? '')}` : issue.message;
   }
   return out;
 }
