@@ -125,6 +125,14 @@ export const useBuildingsStore = defineStore('buildings', () => {
     return attempt('Could not delete the level', () => levelsApi.remove(buildingId(), levelId), () => (levels.value = before));
   }
 
+  /** The stack of this building that already has a grid reference, read as a person reads it ("c/4 " is
+   *  "C/4"), other than the one being renamed. Two stacks of one name could not be told apart in the
+   *  stacks table, the load import or the package. */
+  function stackNamed(name: string, exceptId?: number): StackSummary | undefined {
+    const wanted = name.trim().toLowerCase();
+    return stacks.value.find((s) => s.id !== exceptId && s.name.trim().toLowerCase() === wanted);
+  }
+
   async function createStack(body: CreateStackBody): Promise<number | null> {
     let id: number | null = null;
     await attempt('Could not create the stack', async () => {
@@ -135,6 +143,11 @@ export const useBuildingsStore = defineStore('buildings', () => {
   }
 
   async function renameStack(stackId: number, name: string): Promise<boolean> {
+    const taken = stackNamed(name, stackId);
+    if (taken) {
+      notify.error(new Error(`stack ${taken.name} is already in this building`), 'Could not rename the stack');
+      return false;
+    }
     const before = stacks.value;
     stacks.value = stacks.value.map((s) => (s.id === stackId ? { ...s, name } : s));
     return attempt('Could not rename the stack', () => stacksApi.rename(stackId, { name }).then(() => undefined), () => (stacks.value = before));
@@ -202,7 +215,7 @@ export const useBuildingsStore = defineStore('buildings', () => {
     list, listState, listError, loadList, createBuilding,
     current, levels, stacks, members, pageState, pageError, membersState, role, canEdit, isLead,
     open, saveOptions, addLevel, updateLevel, removeLevel,
-    createStack, renameStack, removeStack, applyStackChange,
+    stackNamed, createStack, renameStack, removeStack, applyStackChange,
     loadMembers, addMember, changeMemberRole, removeMember,
   };
 });

@@ -84,6 +84,28 @@ describe('levels editor', () => {
     expect(requests).toHaveLength(0);
   });
 
+  it('refuses a second level of the same name, whatever its case, without calling the server', async () => {
+    const requests = mockFetch({});
+    const wrapper = mountEditor();
+    await addLevel(wrapper, 'level 1 ', '7.2');
+    expect(wrapper.find('[data-test="level-clash"]').text()).toBe('There is already a level named "Level 1" (at +3.600 m)');
+    expect(requests).toHaveLength(0);
+  });
+
+  it('lets a level keep its own name and elevation when it is changed', async () => {
+    const requests = mockFetch({
+      'PATCH /api/buildings/7/levels/lv-1': (req) => ({ status: 200, body: { id: 'lv-1', ...(req.body as object) } }),
+    });
+    const wrapper = mountEditor();
+    await wrapper.find('[aria-label="Change Level 1"]').trigger('click');
+    const form = wrapper.findAll('form')[0];
+    await form.find('input[data-test="level-elevation"]').setValue('3.65');
+    await form.trigger('submit');
+    await flushPromises();
+    expect(wrapper.find('[data-test="level-clash"]').exists()).toBe(false);
+    expect(requests.map((r) => r.method)).toEqual(['PATCH']);
+  });
+
   it('adds a valid level through the API and shows it in elevation order', async () => {
     const requests = mockFetch({
       'POST /api/buildings/7/levels': (req) => ({ status: 201, body: { id: 'lv-2', ...(req.body as object) } }),
