@@ -7,7 +7,7 @@ import type { AnalysisOptions } from '@shared/schema/results.ts';
 import type { BuildingStackChanged } from '@shared/schema/socket.ts';
 import { buildingsApi, levelsApi, membersApi, type CreateBuildingBody, type CreateLevelBody, type UpdateLevelBody } from '@/api/buildings.ts';
 import { stacksApi, type CreateStackBody } from '@/api/stacks.ts';
-import { describeError, useNotifyStore } from './notify.ts';
+import { describeError, isNotFound, useNotifyStore } from './notify.ts';
 
 export type LoadState = 'idle' | 'loading' | 'ready' | 'error';
 
@@ -29,6 +29,8 @@ export const useBuildingsStore = defineStore('buildings', () => {
   const members = ref<Member[]>([]);
   const pageState = ref<LoadState>('idle');
   const pageError = ref('');
+  /** The open building does not exist or is not shared with this person. */
+  const pageMissing = ref(false);
   const membersState = ref<LoadState>('idle');
 
   const role = computed<Role>(() => current.value?.role ?? 'viewer');
@@ -83,6 +85,7 @@ export const useBuildingsStore = defineStore('buildings', () => {
       pageState.value = 'ready';
     } catch (e) {
       pageError.value = describeError(e);
+      pageMissing.value = isNotFound(e);
       pageState.value = 'error';
     }
   }
@@ -213,7 +216,7 @@ export const useBuildingsStore = defineStore('buildings', () => {
 
   return {
     list, listState, listError, loadList, createBuilding,
-    current, levels, stacks, members, pageState, pageError, membersState, role, canEdit, isLead,
+    current, levels, stacks, members, pageState, pageError, pageMissing, membersState, role, canEdit, isLead,
     open, saveOptions, addLevel, updateLevel, removeLevel,
     stackNamed, createStack, renameStack, removeStack, applyStackChange,
     loadMembers, addMember, changeMemberRole, removeMember,

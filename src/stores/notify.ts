@@ -10,6 +10,9 @@ export function describeError(e: unknown): string {
   return String(e);
 }
 
+/** The API's 404: the thing is gone or was never shared with this person, so trying again cannot help. */
+export const isNotFound = (e: unknown): boolean => e instanceof ApiError && e.status === 404;
+
 export const useNotifyStore = defineStore('notify', () => {
   function success(message: string): void {
     Notify.create({ type: 'positive', message });

@@ -13,7 +13,7 @@ import { apiFetch } from '@/api/http.ts';
 import { connectLive, joinStack, leaveStack, LiveError, selectNodes, sendEdit, type LiveSocket } from '@/api/live.ts';
 import { inverseOps } from '@/composables/inverseOps.ts';
 import { useUndoHistory, type HistoryEntry } from '@/composables/useUndoHistory.ts';
-import { describeError, useNotifyStore } from './notify.ts';
+import { describeError, isNotFound, useNotifyStore } from './notify.ts';
 import type { LoadState } from './buildings.ts';
 
 interface PendingEdit {
@@ -45,6 +45,9 @@ export const useStackStore = defineStore('stack', () => {
   const role = ref<Role>('viewer');
   const state = ref<LoadState>('idle');
   const loadError = ref('');
+  /** The stack does not exist or is not shared with this person. */
+  const loadMissing = ref(false);
+  const buildingName = ref('');
   const link = ref<LinkState>('connecting');
   const confirmed = shallowRef<StackDocument | null>(null);
   const version = ref(0);
@@ -93,11 +96,13 @@ export const useStackStore = defineStore('stack', () => {
       if (stackId.value !== id) return;
       name.value = detail.name;
       buildingId.value = detail.buildingId;
+      buildingName.value = building.name;
       role.value = building.role;
       takeServerState(detail);
       state.value = 'ready';
     } catch (e) {
       loadError.value = describeError(e);
+      loadMissing.value = isNotFound(e);
       state.value = 'error';
       return;
     }
@@ -269,11 +274,13 @@ export const useStackStore = defineStore('stack', () => {
     history.clear();
     state.value = 'idle';
     loadError.value = '';
+    loadMissing.value = false;
+    buildingName.value = '';
     link.value = 'connecting';
   }
 
   return {
-    stackId, name, buildingId, role, state, loadError, link, doc, version, results, selection, presence, others,
+    stackId, name, buildingId, buildingName, role, state, loadError, loadMissing, link, doc, version, results, selection, presence, others,
     canEdit, isViewer, saving,
     canUndo: history.canUndo, canRedo: history.canRedo, undoLabel: history.undoLabel, redoLabel: history.redoLabel,
     open, close, edit, undo, redo, select,
