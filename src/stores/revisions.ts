@@ -73,11 +73,17 @@ export const useRevisionsStore = defineStore('revisions', () => {
   }
 
   /** The package needs the bearer token, so it is fetched as a blob and saved, not linked. */
+  /** The package is drawn again for each download, which takes seconds on a large building. */
+  const downloading = ref<number | null>(null);
+
   async function download(rev: Pick<RevisionSummary, 'id' | 'code'>): Promise<void> {
+    downloading.value = rev.id;
     try {
       await downloadFile(`/revisions/${rev.id}/calc.pdf`, `revision-${rev.code}.pdf`);
     } catch (e) {
       notify.error(e, `Could not download revision ${rev.code}`);
+    } finally {
+      downloading.value = null;
     }
   }
 
@@ -93,5 +99,5 @@ export const useRevisionsStore = defineStore('revisions', () => {
     }
   }
 
-  return { buildingId, list, state, error, detail, comparison, comparing, load, freeze, open, resend, download, compare };
+  return { buildingId, list, state, error, detail, comparison, comparing, downloading, load, freeze, open, resend, download, compare };
 });

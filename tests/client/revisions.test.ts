@@ -123,4 +123,30 @@ describe('the comparison view', () => {
     expect(lift).toContain('−0.23');
     expect(wrapper.find('[data-test="compare-result"]').text()).toContain('1 stack differs, 1 unchanged');
   });
+
+  it('gives loads in kN, elevations to the millimetre and options in the words of the options dialog', async () => {
+    const comparison: RevisionComparison = {
+      from: { id: 11, code: 'P01' },
+      to: { id: null, code: 'current' },
+      unchangedStacks: 0,
+      levels: [{ field: 'Roof (id lv-9)', from: 26.6, to: 27 }],
+      options: [{ field: 'selfWeight', from: 'true', to: 'false' }],
+      stacks: [
+        {
+          stackId: 3,
+          name: 'B/2',
+          change: 'changed',
+          nodes: [{ nodeId: 'r5', kind: 'restraint', label: 'Restraint at +19.000', change: 'changed', fields: [{ field: 'Gk', from: 240, to: 400 }, { field: 'elevation', from: 19, to: 19.5 }] }],
+          lifts: [],
+        },
+      ],
+    };
+    mockFetch({ 'GET /api/buildings/7/revisions/compare?from=11&to=current': () => ({ status: 200, body: comparison }) });
+    const wrapper = mount(CompareView, { props: { revisions: [summary] }, global: { plugins: [pinia] } });
+    await wrapper.find('[data-test="run-compare"]').trigger('click');
+    await flushPromises();
+    expect(wrapper.find('[data-test="node-change"]').text()).toContain('Gk: 240 → 400 kN; elevation: +19.000 → +19.500 m');
+    expect(wrapper.find('[data-test="option-change"]').text()).toBe('Analysis option self-weight: on → off');
+    expect(wrapper.find('[data-test="level-change"]').text()).toBe('Level Roof: +26.600 → +27.000 m');
+  });
 });
