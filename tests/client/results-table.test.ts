@@ -137,6 +137,14 @@ describe('results table', () => {
   });
 });
 
+describe('elevation drawing', () => {
+  it('stops the level lines at the bar, so they never strike through the lift names beside it', () => {
+    const w = mountPanel();
+    const nameX = Math.min(...w.findAll('.stack-elevation__lift text').map((t) => Number(t.attributes('x'))));
+    for (const line of w.findAll('.stack-elevation__level line')) expect(Number(line.attributes('x2'))).toBeLessThan(nameX);
+  });
+});
+
 describe('buckling curve plot', () => {
   it('follows EN 1993-1-1 eq. 6.49: curve b gives χ = 0.597 at λ̄ = 1.0', () => {
     // Φ = 0.5[1 + 0.34(0.8) + 1] = 1.136; χ = 1/(1.136 + √(1.136² − 1)) = 0.597 (hand calculation; the
@@ -144,6 +152,13 @@ describe('buckling curve plot', () => {
     const at1 = bucklingCurvePoints('b', 3, 30).find((p) => Math.abs(p.lambdaBar - 1) < 1e-9);
     expect(at1?.chi).toBeCloseTo(0.597, 3);
     expect(bucklingCurvePoints('a', 3, 30)[1].chi).toBe(1); // λ̄ = 0.1 ≤ 0.2: plateau
+  });
+
+  it("sets a curve's name clear above the end of its line", () => {
+    const w = mount(BucklingCurvePlot, { props: { marks: [{ axis: 'z-z', curve: 'b', lambdaBar: 0.8, chi: 0.6622 }] } });
+    const points = w.find('polyline').attributes('points')!.trim().split(' ');
+    const endY = Number(points[points.length - 1].split(',')[1]);
+    expect(endY - Number(w.find('.curve-plot__name').attributes('y'))).toBeGreaterThanOrEqual(10);
   });
 
   it("marks the lift's λ̄ and χ on the curve", () => {
