@@ -98,6 +98,14 @@ describe('stack graph', () => {
     w.unmount();
   });
 
+  it('names the zoom and fit buttons, which the graph library draws as bare icons', async () => {
+    const w = mount(StackGraph, { props: { doc, results: null, selection: [], others: [], readOnly: true }, attachTo: document.body });
+    await flushPromises();
+    const names = w.findAll('.vue-flow__controls-button').map((b) => b.text());
+    expect(names.map((n) => n.replace(/^(add|remove|fit_screen)/, ''))).toEqual(['Zoom in', 'Zoom out', 'Show the whole stack']);
+    w.unmount();
+  });
+
   it('gives a viewer no palette', async () => {
     const w = mount(StackGraph, { props: { doc, results: null, selection: [], others: [], readOnly: true }, attachTo: document.body });
     await flushPromises();
