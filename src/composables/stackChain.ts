@@ -79,10 +79,11 @@ export function liftNumbers(doc: StackDocument): Map<string, string> {
   return new Map(sorted.map((n, i) => [n.id, `L${i + 1}`]));
 }
 
-/** A short name for a node in lists and messages: "Lift L2", "Splice +8.000", "Load Plant room". */
+/** A short name for a node in lists and messages: "Lift L2", "Splice +8.000", 'Load "Plant room"' (the
+ *  description quoted, so a new node's 'Load "Extra load"' does not read as "Load Extra load"). */
 export function nodeTitle(node: StackNode, liftNo: Map<string, string>): string {
   if (node.kind === 'lift') return `Lift ${liftNo.get(node.id) ?? ''}`.trim();
-  if (node.kind === 'load') return node.data.label ? `Load ${node.data.label}` : 'Load';
+  if (node.kind === 'load') return node.data.label ? `Load "${node.data.label}"` : 'Load';
   return `${KIND_WORD[node.kind]} ${formatElevation(node.data.elevation)}`;
 }
 

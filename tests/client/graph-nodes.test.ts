@@ -51,7 +51,7 @@ describe('graph node components', () => {
     expect(node(w, 'r1').text()).toContain('z-z only');
     expect(node(w, 'r1').text()).toContain('Gk 120 kN · Qk 45.5 kN (B)');
     expect(node(w, 'cap').text()).toContain('Cap +4.000');
-    expect(node(w, 'ld').text()).toContain('Load Plant');
+    expect(node(w, 'ld').text()).toContain('Load "Plant"');
     expect(node(w, 'ld').text()).toContain('Qk 5 kN (E)');
     w.unmount();
   });
