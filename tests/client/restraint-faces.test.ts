@@ -33,6 +33,15 @@ describe('restraint face reactions form', () => {
     expect(w.emitted('change')).toBeUndefined();
   });
 
+  it('shows a viewer only the faces that carry a reaction, without advice on filling them in', () => {
+    const w = mount(RestraintFacesForm, { props: { value: { ...restraint, faces: { zPlus: { Gk: 30, Qk: 20 } } }, readOnly: true } });
+    expect(w.findAll('input').map((i) => i.attributes('data-field'))).toEqual(['faces.zPlus.Gk', 'faces.zPlus.Qk']);
+    expect(w.find('[data-test="faces-caption"]').text()).not.toContain('Leave a face empty');
+    const none = mount(RestraintFacesForm, { props: { value: restraint, readOnly: true } });
+    expect(none.findAll('input')).toHaveLength(0);
+    expect(none.find('[data-test="faces-caption"]').text()).toContain('No beam reaction is given on any face');
+  });
+
   it('shows the stored faces and sends nothing when they did not change', async () => {
     const w = mount(RestraintFacesForm, { props: { value: { ...restraint, faces: { zPlus: { Gk: 30, Qk: 20 } } }, readOnly: false } });
     expect((w.find('input[data-field="faces.zPlus.Qk"]').element as HTMLInputElement).value).toBe('20');
