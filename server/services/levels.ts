@@ -11,6 +11,7 @@ import { analysisInputs } from './analysis.ts';
 import { recordAudit } from './audit.ts';
 import { broadcastChange, commitDoc, type CommittedChange } from './stackOps.ts';
 import { parseDoc, type StackRow } from './stackRows.ts';
+import { assertNameFree } from './uniqueNames.ts';
 
 interface LevelRow {
   id: number;
@@ -33,6 +34,7 @@ async function loadLevel(db: Knex, buildingId: number, levelId: number): Promise
 
 export async function createLevel(db: Knex, buildingId: number, input: { name: string; elevation: number }, user: User): Promise<Level> {
   return db.transaction(async (trx) => {
+    await assertNameFree(trx, 'level', buildingId, input.name);
     const [row] = await trx('levels').insert({ building_id: buildingId, ...input, created_at: now() }).returning<{ id: number }[]>('id');
     await recordAudit(trx, { userId: user.id, buildingId, action: 'level.create', detail: { levelId: row.id, ...input } });
     return { id: String(row.id), ...input };
@@ -54,6 +56,7 @@ async function stacksUsingLevel(db: Knex, buildingId: number, levelId: number): 
 export async function updateLevel(ctx: ServerContext, buildingId: number, levelId: number, input: { name?: string; elevation?: number }, user: User): Promise<Level> {
   const { level, changes } = await ctx.db.transaction(async (trx) => {
     const before = await loadLevel(trx, buildingId, levelId);
+    if (input.name !== undefined) await assertNameFree(trx, 'level', buildingId, input.name, levelId);
     await trx('levels').where({ id: levelId }).update(input);
     await recordAudit(trx, { userId: user.id, buildingId, action: 'level.update', detail: { levelId, from: toLevel(before), ...input } });
     const changes: CommittedChange[] = [];

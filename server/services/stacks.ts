@@ -10,6 +10,7 @@ import { recordAudit } from './audit.ts';
 import { touchBuilding } from './buildings.ts';
 import { listLevels } from './levels.ts';
 import { assertUniqueIds, loadStackRow, toDetail, toSummary, type StackRow } from './stackRows.ts';
+import { assertNameFree } from './uniqueNames.ts';
 
 export async function listStacks(db: Knex, buildingId: number): Promise<StackSummary[]> {
   const rows = await db<StackRow>('stacks').where({ building_id: buildingId }).orderBy('name').orderBy('id');
@@ -28,6 +29,7 @@ export interface NewStack {
 
 export async function createStack(db: Knex, buildingId: number, input: NewStack, user: User): Promise<StackSummary> {
   const id = await db.transaction(async (trx) => {
+    await assertNameFree(trx, 'stack', buildingId, input.name);
     const doc = input.template ? stackFromTemplate(input.template, await listLevels(trx, buildingId)) : (input.doc ?? { nodes: [], edges: [] });
     assertUniqueIds(doc);
     const results = analyse(doc, await analysisInputs(trx, buildingId));
@@ -44,6 +46,7 @@ export async function createStack(db: Knex, buildingId: number, input: NewStack,
 export async function renameStack(db: Knex, id: number, name: string, user: User): Promise<StackSummary> {
   await db.transaction(async (trx) => {
     const row = await loadStackRow(trx, id);
+    await assertNameFree(trx, 'stack', row.building_id, name, id);
     await trx('stacks').where({ id }).update({ name, updated_at: now() });
     await recordAudit(trx, { userId: user.id, buildingId: row.building_id, stackId: id, action: 'stack.rename', version: row.version, detail: { from: row.name, to: name } });
   });

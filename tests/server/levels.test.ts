@@ -33,6 +33,24 @@ describe('levels', () => {
     expect(r.body).toEqual({ id: l.id, name: 'Mezz', elevation: 2 });
   });
 
+  it('refuses a second level of one name, in any letter case (409), and leaves the levels as they were', async () => {
+    const roof = await addLevel('Roof', 30);
+    const before = (await s.api('GET', `/buildings/${buildingId}/levels`, { token })).body as Level[];
+    const again = await s.api('POST', `/buildings/${buildingId}/levels`, { token, body: { name: 'roof', elevation: 31 } });
+    expect(again.status).toBe(409);
+    expect(errorCode(again.body)).toBe('conflict');
+    expect((again.body as { error: { message: string } }).error.message).toContain('"Roof"');
+    const other = await addLevel('Plant deck', 33);
+    const renamed = await s.api('PATCH', `/buildings/${buildingId}/levels/${other.id}`, { token, body: { name: 'ROOF' } });
+    expect(renamed.status).toBe(409);
+    // Renaming a level to its own name in another case is not a clash with itself.
+    const own = await s.api('PATCH', `/buildings/${buildingId}/levels/${roof.id}`, { token, body: { name: 'ROOF' } });
+    expect(own.status).toBe(200);
+    const after = (await s.api('GET', `/buildings/${buildingId}/levels`, { token })).body as Level[];
+    expect(after.filter((l) => l.name.toLowerCase() === 'roof')).toHaveLength(1);
+    expect(after).toHaveLength(before.length + 1);
+  });
+
   it('answers 404 for a level of another building', async () => {
     const otherBuilding = await createBuilding(s, token, 'Other');
     const foreign = (await s.api('POST', `/buildings/${otherBuilding.id}/levels`, { token, body: { name: 'X', elevation: 1 } })).body as Level;

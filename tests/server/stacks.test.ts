@@ -168,6 +168,21 @@ describe('stacks', () => {
     expect(actions).toEqual(['stack.create', 'stack.rename', 'stack.delete']);
   });
 
+  it('refuses a second stack of one grid reference, in any letter case (409), by create or rename, storing nothing', async () => {
+    const first = await create({ name: 'Q/1', template });
+    const count = async () => ((await s.api('GET', `/buildings/${buildingId}/stacks`, { token })).body as StackSummary[]).length;
+    const before = await count();
+    const again = await s.api('POST', `/buildings/${buildingId}/stacks`, { token, body: { name: 'q/1', template } });
+    expect(again.status).toBe(409);
+    expect(errorCode(again.body)).toBe('conflict');
+    expect(await count()).toBe(before);
+    const other = await create({ name: 'Q/2' });
+    const renamed = await s.api('PATCH', `/stacks/${other.id}`, { token, body: { name: 'Q/1' } });
+    expect(renamed.status).toBe(409);
+    expect((await get(other.id)).name).toBe('Q/2');
+    expect((await s.api('PATCH', `/stacks/${first.id}`, { token, body: { name: 'q/1' } })).status).toBe(200);
+  });
+
   it('finds catalogue sections for the picker with their nominal mass', async () => {
     const r = await s.api('GET', '/sections?q=UKC%20203x203&limit=10', { token });
     const hits = r.body as { designation: string; series: string; massPerMetre: number }[];
