@@ -36,7 +36,7 @@ function pushAxisSteps(out: CalcStep[], axis: 'y' | 'z', Lcr: number, Ncr: numbe
 const GAMMA_M0_1: CalcStep = Object.freeze({ symbol: 'γM0', value: 1, unit: '', clause: 'EN 1993-1-1 6.1(1)' });
 const GAMMA_M1_1: CalcStep = Object.freeze({ symbol: 'γM1', value: 1, unit: '', clause: 'EN 1993-1-1 6.1(1)' });
 
-const GOVERNED_BY = { 'cross-section': 'governed by cross-section', 'flexural-y': 'governed by flexural-y', 'flexural-z': 'governed by flexural-z' } as const;
+const GOVERNED_BY = { 'cross-section': 'governed by the cross-section resistance', 'flexural-y': 'governed by flexural buckling about y-y', 'flexural-z': 'governed by flexural buckling about z-z' } as const;
 
 /** The section working followed by the length- and load-dependent working of one check. */
 export function memberSteps(g: GradeData, res: CompressionResult, input: MemberInput): CalcStep[] {
