@@ -30,10 +30,17 @@ function fieldChanges(before: Record<string, unknown>, after: Record<string, unk
   return keys.map((field) => ({ field, from: asValue(before[field]), to: asValue(after[field]) })).filter((c) => c.from !== c.to);
 }
 
-export function nodeLabel(n: StackNode): string {
+/** L1, L2, … by lift id, from the results of both states (the later one wins). */
+type LiftLabels = ReadonlyMap<string, string>;
+
+function liftLabels(...states: (SnapshotStack | undefined)[]): LiftLabels {
+  return new Map(states.flatMap((s) => s?.results.lifts ?? []).map((l) => [l.liftId, l.label ?? l.liftId]));
+}
+
+function nodeLabel(n: StackNode, lifts: LiftLabels): string {
   switch (n.kind) {
     case 'lift':
-      return `Lift ${n.id}`;
+      return `Lift ${lifts.get(n.id) ?? n.id}`;
     case 'load':
       return `Load "${n.data.label || n.id}"`;
     case 'support':
@@ -47,24 +54,24 @@ export function nodeLabel(n: StackNode): string {
   }
 }
 
-function compareNodes(before: StackNode[], after: StackNode[]): NodeChange[] {
+function compareNodes(before: StackNode[], after: StackNode[], lifts: LiftLabels): NodeChange[] {
   const old = new Map(before.map((n) => [n.id, n]));
   const next = new Map(after.map((n) => [n.id, n]));
   const changes: NodeChange[] = [];
-  for (const n of before) if (!next.has(n.id)) changes.push({ nodeId: n.id, kind: n.kind, label: nodeLabel(n), change: 'removed', fields: [] });
+  for (const n of before) if (!next.has(n.id)) changes.push({ nodeId: n.id, kind: n.kind, label: nodeLabel(n, lifts), change: 'removed', fields: [] });
   for (const n of after) {
     const o = old.get(n.id);
     if (!o) {
-      changes.push({ nodeId: n.id, kind: n.kind, label: nodeLabel(n), change: 'added', fields: [] });
+      changes.push({ nodeId: n.id, kind: n.kind, label: nodeLabel(n, lifts), change: 'added', fields: [] });
       continue;
     }
     const fields = fieldChanges({ kind: o.kind, ...o.data }, { kind: n.kind, ...n.data });
-    if (fields.length > 0) changes.push({ nodeId: n.id, kind: n.kind, label: nodeLabel(n), change: 'changed', fields });
+    if (fields.length > 0) changes.push({ nodeId: n.id, kind: n.kind, label: nodeLabel(n, lifts), change: 'changed', fields });
   }
   return changes;
 }
 
-function compareLifts(before: SnapshotStack | undefined, after: SnapshotStack | undefined): LiftUtilisationChange[] {
+function compareLifts(before: SnapshotStack | undefined, after: SnapshotStack | undefined, labels: LiftLabels): LiftUtilisationChange[] {
   const old = new Map((before?.results.lifts ?? []).map((l) => [l.liftId, l]));
   const next = new Map((after?.results.lifts ?? []).map((l) => [l.liftId, l]));
   const ids = [...new Set([...old.keys(), ...next.keys()])];
@@ -72,7 +79,7 @@ function compareLifts(before: SnapshotStack | undefined, after: SnapshotStack | 
     .map((liftId) => {
       const o = old.get(liftId);
       const n = next.get(liftId);
-      return { liftId, section: { from: o?.section ?? null, to: n?.section ?? null }, from: o?.utilisation ?? null, to: n?.utilisation ?? null };
+      return { liftId, label: labels.get(liftId) ?? liftId, section: { from: o?.section ?? null, to: n?.section ?? null }, from: o?.utilisation ?? null, to: n?.utilisation ?? null };
     })
     .filter((c) => c.section.from !== c.section.to || c.from === null || c.to === null || Math.abs(c.from - c.to) > UTILISATION_TOLERANCE);
 }
@@ -86,8 +93,9 @@ export function compareStates(from: BuildingState, to: BuildingState): RevisionC
   for (const s of all) {
     const o = old.get(s.id);
     const n = next.get(s.id);
-    const nodes = compareNodes(o?.doc.nodes ?? [], n?.doc.nodes ?? []);
-    const lifts = compareLifts(o, n);
+    const labels = liftLabels(o, n);
+    const nodes = compareNodes(o?.doc.nodes ?? [], n?.doc.nodes ?? [], labels);
+    const lifts = compareLifts(o, n, labels);
     const change = !o ? 'added' : !n ? 'removed' : nodes.length > 0 || lifts.length > 0 || o.name !== n.name ? 'changed' : null;
     if (change) stacks.push({ stackId: s.id, name: s.name, change, nodes: change === 'changed' ? nodes : [], lifts });
     else unchangedStacks += 1;

@@ -127,6 +127,8 @@ export interface NodeChange {
 
 export interface LiftUtilisationChange {
   liftId: string;
+  /** L1, L2, … as the results name the lift (its node id for results stored before lifts had labels). */
+  label: string;
   section: { from: string | null; to: string | null };
   from: number | null;
   to: number | null;

@@ -107,8 +107,8 @@ describe('the comparison view', () => {
           stackId: 3,
           name: 'B/2',
           change: 'changed',
-          nodes: [{ nodeId: 'lift-1', kind: 'lift', label: 'Lift lift-1', change: 'changed', fields: [{ field: 'section', from: 'UKC 254x254x73', to: 'UKC 305x305x97' }] }],
-          lifts: [{ liftId: 'lift-1', section: { from: 'UKC 254x254x73', to: 'UKC 305x305x97' }, from: 0.84, to: 0.61 }],
+          nodes: [{ nodeId: 'lift-1', kind: 'lift', label: 'Lift L1', change: 'changed', fields: [{ field: 'section', from: 'UKC 254x254x73', to: 'UKC 305x305x97' }] }],
+          lifts: [{ liftId: 'lift-1', label: 'L1', section: { from: 'UKC 254x254x73', to: 'UKC 305x305x97' }, from: 0.84, to: 0.61 }],
         },
       ],
     };
@@ -119,6 +119,8 @@ describe('the comparison view', () => {
     expect(requests.map((r) => r.url)).toEqual(['/api/buildings/7/revisions/compare?from=11&to=current']);
     expect(wrapper.find('[data-test="node-change"]').text()).toContain('section: UKC 254x254x73 → UKC 305x305x97');
     const lift = wrapper.find('[data-test="lift-change"]').text();
+    expect(lift).toContain('L1');
+    expect(lift).not.toContain('lift-1');
     expect(lift).toContain('0.84 → 0.61');
     expect(lift).toContain('−0.23');
     expect(wrapper.find('[data-test="compare-result"]').text()).toContain('1 stack differs, 1 unchanged');

@@ -92,7 +92,10 @@ describe('freezing revisions', () => {
     expect(stack?.change).toBe('changed');
     const node = stack?.nodes.find((n) => n.nodeId === 'lift-1');
     expect(node?.fields).toEqual([{ field: 'section', from: 'UKC 254x254x73', to: 'UKC 305x305x97' }]);
+    // Lifts are named as the results name them, not by the graph's node id.
+    expect(node?.label).toBe('Lift L1');
     const lift = stack?.lifts.find((l) => l.liftId === 'lift-1');
+    expect(lift?.label).toBe('L1');
     expect(lift?.section).toEqual({ from: 'UKC 254x254x73', to: 'UKC 305x305x97' });
     // A heavier section of the same family carries the same load at a lower utilisation.
     expect(lift?.to).toBeLessThan(lift?.from ?? 0);
