@@ -20,20 +20,48 @@ function levelAt(levels: readonly Level[], elevation: number): string | undefine
   return levels.find((l) => Math.abs(l.elevation - elevation) < 1e-6)?.id;
 }
 
+/** The elevations of a template's base, each floor and its top (m), bottom first. */
+export function templateFloors(t: Pick<StackTemplate, 'elevations' | 'storeys' | 'storeyHeight' | 'baseElevation'>): number[] {
+  if (t.elevations) return t.elevations.map(round);
+  const { storeys, storeyHeight } = t;
+  // stackTemplateSchema refuses a body with neither; this guards a caller that skipped it.
+  if (storeys === undefined || storeyHeight === undefined) throw new Error('A template needs elevations, or storeys and a storey height');
+  return Array.from({ length: storeys + 1 }, (_, k) => round((t.baseElevation ?? 0) + k * storeyHeight));
+}
+
+/** The floors each lift spans, as indexes into the floors: a splice every n storeys, the top lift taking what is left. */
+export function liftFloorRanges(storeys: number, spliceEvery: number): { bottom: number; top: number }[] {
+  const ranges: { bottom: number; top: number }[] = [];
+  for (let bottom = 0; bottom < storeys; bottom += spliceEvery) ranges.push({ bottom, top: Math.min(bottom + spliceEvery, storeys) });
+  return ranges;
+}
+
+/**
+ * The splice above a floor: SPLICE_ABOVE_FLOOR_M up, but never past half-way to the next floor. On a storey
+ * shorter than twice that offset (a mezzanine, a plant deck close above a floor) the splice sits half-way
+ * up, as far from both floors' beam connections as the storey allows. We place it rather than refuse: the
+ * template cannot move splices to other floors, so refusing would make a building's own levels unusable
+ * for this spacing, while a splice placed in the storey keeps the stack valid and the engineer can move it.
+ */
+export function spliceElevation(floor: number, nextFloor: number): number {
+  return round(Math.min(floor + SPLICE_ABOVE_FLOOR_M, (floor + nextFloor) / 2));
+}
+
 /** Input as parsed by stackTemplateSchema (defaults applied). */
 export function stackFromTemplate(t: StackTemplate, levels: readonly Level[] = []): StackDocument {
-  const floor = (k: number) => round(t.baseElevation + k * t.storeyHeight);
-  const liftCount = Math.ceil(t.storeys / t.spliceEvery);
+  const floors = templateFloors(t);
+  const storeys = floors.length - 1;
+  const ranges = liftFloorRanges(storeys, t.spliceEvery);
   const nodes: StackNode[] = [];
   const edges: StackEdge[] = [];
   const link = (source: string, target: string) => edges.push({ id: `e-${source}-${target}`, source, target });
 
-  nodes.push({ id: 'support', kind: 'support', data: { elevation: floor(0), fixity: t.baseFixity }, position: at(CHAIN_X, floor(0)) });
+  nodes.push({ id: 'support', kind: 'support', data: { elevation: floors[0], fixity: t.baseFixity }, position: at(CHAIN_X, floors[0]) });
   let below = 'support';
-  let belowElevation = floor(0);
-  for (let i = 0; i < liftCount; i++) {
-    const last = i === liftCount - 1;
-    const topElevation = last ? floor(t.storeys) : round(floor((i + 1) * t.spliceEvery) + SPLICE_ABOVE_FLOOR_M);
+  let belowElevation = floors[0];
+  ranges.forEach(({ bottom, top }, i) => {
+    const last = i === ranges.length - 1;
+    const topElevation = last ? floors[storeys] : spliceElevation(floors[top], floors[top + 1]);
     const liftId = `lift-${i + 1}`;
     const section = t.sections[Math.min(i, t.sections.length - 1)];
     nodes.push({ id: liftId, kind: 'lift', data: { section, grade: t.grade }, position: at(CHAIN_X, (belowElevation + topElevation) / 2) });
@@ -45,9 +73,9 @@ export function stackFromTemplate(t: StackTemplate, levels: readonly Level[] = [
       nodes.push({ id: above, kind: 'splice', data: { elevation: topElevation }, position: at(CHAIN_X, topElevation) });
     }
     link(liftId, above);
-    // Floors inside this lift's span; the top floor is the cap.
-    for (let k = i * t.spliceEvery + 1; k <= Math.min((i + 1) * t.spliceEvery, t.storeys - 1); k++) {
-      const elevation = floor(k);
+    // Floors inside this lift's span (the floor just below its splice included); the top floor is the cap.
+    for (let k = bottom + 1; k <= Math.min(top, storeys - 1); k++) {
+      const elevation = floors[k];
       const id = `restraint-${k}`;
       const levelId = levelAt(levels, elevation);
       nodes.push({
@@ -60,6 +88,6 @@ export function stackFromTemplate(t: StackTemplate, levels: readonly Level[] = [
     }
     below = above;
     belowElevation = topElevation;
-  }
+  });
   return { nodes, edges };
 }

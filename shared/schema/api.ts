@@ -1,6 +1,6 @@
 // Request and response bodies of the REST API (SPEC §7). Both ends use these; nothing is redeclared.
 import { z } from 'zod';
-import { stackDocumentSchema, gradeSchema, fixitySchema, sectionDimsSchema } from './stack.ts';
+import { stackDocumentSchema, gradeSchema, fixitySchema, sectionDimsSchema, MAX_ELEVATION_M } from './stack.ts';
 import { opsSchema } from './ops.ts';
 import { analysisOptionsSchema, type AnalysisOptions, type StackResult } from './results.ts';
 
@@ -78,11 +78,24 @@ export interface Level {
   elevation: number;
 }
 
+/** The most storeys a template makes; a building's levels give at most one more elevation than this. */
+export const MAX_TEMPLATE_STOREYS = 120;
+/** Floors closer than this cannot be told apart on screen or in the package (elevations print to the mm). */
+export const MIN_STOREY_M = 0.001;
+
+/**
+ * A stack to build: either regular (storeys × storeyHeight from baseElevation) or at given elevations
+ * (`elevations`: base, each floor, top; e.g. a building's levels). Regular bodies are the original shape
+ * and stay valid as they were.
+ */
 export const stackTemplateSchema = z
   .object({
-    storeys: z.number().int().min(1).max(120),
-    storeyHeight: z.number().finite().min(1).max(20),
-    baseElevation: z.number().finite().min(-100).max(100).default(0),
+    storeys: z.number().int().min(1).max(MAX_TEMPLATE_STOREYS).optional(),
+    storeyHeight: z.number().finite().min(1).max(20).optional(),
+    /** Regular templates only; 0 when left out. */
+    baseElevation: z.number().finite().min(-100).max(100).optional(),
+    /** Base, every floor and the top (m), rising; replaces storeys, storeyHeight and baseElevation. */
+    elevations: z.array(z.number().finite().min(-MAX_ELEVATION_M).max(MAX_ELEVATION_M)).min(2).max(MAX_TEMPLATE_STOREYS + 1).optional(),
     spliceEvery: z.number().int().min(1).max(10).default(2),
     /** Section per lift, bottom first; the last one repeats for the remaining lifts. */
     sections: z.array(z.string().trim().min(1).max(80)).min(1).max(120),
@@ -92,7 +105,30 @@ export const stackTemplateSchema = z
     Gk: z.number().finite().min(0).max(1e5).default(0),
     Qk: z.number().finite().min(0).max(1e5).default(0),
   })
-  .strict();
+  .strict()
+  .superRefine((t, ctx) => {
+    const issue = (path: string, message: string) => ctx.addIssue({ code: 'custom', path: [path], message });
+    if (t.elevations === undefined) {
+      if (t.storeys === undefined) issue('storeys', 'is required (or give elevations instead)');
+      if (t.storeyHeight === undefined) issue('storeyHeight', 'is required (or give elevations instead)');
+      return;
+    }
+    // Elevations fix every floor, so a storey height or base elevation beside them could only disagree.
+    if (t.storeyHeight !== undefined) issue('storeyHeight', 'must be left out when elevations are given');
+    if (t.baseElevation !== undefined) issue('baseElevation', 'must be left out when elevations are given (the first elevation is the base)');
+    if (t.storeys !== undefined && t.storeys !== t.elevations.length - 1) {
+      issue('storeys', `must be one less than the number of elevations (${t.elevations.length - 1}), or left out`);
+    }
+    const { elevations } = t;
+    const low = elevations.findIndex((e, i) => i > 0 && e - elevations[i - 1] < MIN_STOREY_M);
+    if (low > 0) {
+      ctx.addIssue({
+        code: 'custom',
+        path: ['elevations', low],
+        message: `must rise from floor to floor by at least 1 mm (${elevations[low]} m follows ${elevations[low - 1]} m)`,
+      });
+    }
+  });
 export type StackTemplate = z.infer<typeof stackTemplateSchema>;
 
 export const createStackBodySchema = z

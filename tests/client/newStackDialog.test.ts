@@ -4,9 +4,11 @@
 import { afterEach, describe, expect, it, vi } from 'vitest';
 import { flushPromises, mount } from '@vue/test-utils';
 import { createPinia, setActivePinia } from 'pinia';
-import type { Building, StackSummary } from '@shared/schema/api.ts';
+import { QSelect } from 'quasar';
+import type { Building, Level, StackSummary } from '@shared/schema/api.ts';
 import { DEFAULT_ANALYSIS_OPTIONS } from '@shared/schema/results.ts';
 import NewStackDialog from '@/components/building/NewStackDialog.vue';
+import SectionSelect from '@/components/building/SectionSelect.vue';
 import { useBuildingsStore } from '@/stores/buildings.ts';
 import { mockFetch } from './fetchMock.ts';
 
@@ -35,17 +37,27 @@ const c4: StackSummary = {
   updatedAt: '2026-03-14T09:05:00.000Z',
 };
 
-function openStore() {
+// Invented irregular levels: a tall ground storey, two office storeys, a plant storey under the roof.
+const LEVELS: Level[] = [
+  { id: '21', name: 'Ground', elevation: 0 },
+  { id: '22', name: 'Level 1', elevation: 4.5 },
+  { id: '23', name: 'Level 2', elevation: 8 },
+  { id: '24', name: 'Level 3', elevation: 11.5 },
+  { id: '25', name: 'Roof', elevation: 15.7 },
+];
+
+function openStore(levels: Level[] = []) {
   const pinia = createPinia();
   setActivePinia(pinia);
   const store = useBuildingsStore();
   store.current = building;
   store.stacks = [c4];
+  store.levels = levels;
   return { pinia, store };
 }
 
-async function mountDialog() {
-  const { pinia, store } = openStore();
+async function mountDialog(levels: Level[] = []) {
+  const { pinia, store } = openStore(levels);
   const w = mount(NewStackDialog, { props: { modelValue: true }, global: { plugins: [pinia] }, attachTo: document.body });
   await flushPromises();
   return { w, store };
@@ -67,6 +79,20 @@ async function submit() {
   await flushPromises();
 }
 const dialogText = () => document.querySelector('.q-dialog')?.textContent ?? '';
+const fieldLabels = () => [...document.querySelectorAll('.q-dialog .q-field__label')].map((l) => l.textContent?.trim() ?? '');
+const liftLabels = () => fieldLabels().filter((l) => l.startsWith('Lift '));
+const levelsToggle = () => document.querySelector<HTMLElement>('.q-dialog [data-test="floors-at-levels"]');
+
+/** Picks a section for every lift as the section picker would, and answers the create and list calls. */
+async function fillAndCreate(w: ReturnType<typeof mount>) {
+  for (const picker of w.findAllComponents(SectionSelect)) picker.vm.$emit('update:modelValue', 'UKC 203x203x46');
+  await type('Grid reference', 'F/3');
+  await submit();
+}
+const created = () => ({
+  'POST /api/buildings/7/stacks': () => ({ status: 201, body: { id: 12, name: 'F/3' } }),
+  'GET /api/buildings/7/stacks': () => ({ status: 200, body: [c4] }),
+});
 
 afterEach(() => {
   vi.unstubAllGlobals();
@@ -101,6 +127,70 @@ describe('new stack dialog', () => {
     await type('Storeys', '');
     await submit();
     expect(dialogText()).toContain('Storeys is required');
+    w.unmount();
+  });
+});
+
+describe("new stack at the building's levels", () => {
+  it('offers the levels by default: no storey fields, lifts named by their levels, and the levels\' elevations sent', async () => {
+    const requests = mockFetch(created());
+    const { w } = await mountDialog(LEVELS);
+    expect(levelsToggle()?.getAttribute('aria-checked')).toBe('true');
+    expect(fieldLabels()).not.toContain('Storeys');
+    expect(fieldLabels()).not.toContain('Storey height (m)');
+    expect(fieldLabels()).not.toContain('Base elevation (m)');
+    // Four storeys spliced every 2: two lifts, Ground to Level 2 and Level 2 to Roof.
+    expect(liftLabels()).toEqual(['Lift 1: Ground +0.000 to Level 2 +8.000 m', 'Lift 2: Level 2 +8.000 to Roof +15.700 m']);
+    expect(dialogText()).toContain('4 storeys between them');
+    await fillAndCreate(w);
+    const post = requests.find((r) => r.method === 'POST');
+    expect(post?.body).toEqual({
+      name: 'F/3',
+      template: { elevations: [0, 4.5, 8, 11.5, 15.7], spliceEvery: 2, sections: ['UKC 203x203x46', 'UKC 203x203x46'], grade: 'S355', baseFixity: 'pinned', Gk: 150, Qk: 90 },
+    });
+    expect(w.emitted('created')).toEqual([[12]]);
+    w.unmount();
+  });
+
+  it('builds the stack between the chosen bottom and top levels', async () => {
+    const requests = mockFetch(created());
+    const { w } = await mountDialog(LEVELS);
+    const select = (label: string) => w.findAllComponents(QSelect).find((s) => s.props('label') === label)!;
+    // The top level offers only levels above the bottom one.
+    expect((select('Top level').props('options') as { label: string }[]).map((o) => o.label)).toEqual([
+      'Level 1 (+4.500 m)',
+      'Level 2 (+8.000 m)',
+      'Level 3 (+11.500 m)',
+      'Roof (+15.700 m)',
+    ]);
+    select('Bottom level').vm.$emit('update:modelValue', '22');
+    select('Top level').vm.$emit('update:modelValue', '24');
+    await flushPromises();
+    expect(liftLabels()).toEqual(['Lift 1: Level 1 +4.500 to Level 3 +11.500 m']);
+    await fillAndCreate(w);
+    expect((requests.find((r) => r.method === 'POST')?.body as { template: { elevations: number[] } }).template.elevations).toEqual([4.5, 8, 11.5]);
+    w.unmount();
+  });
+
+  it('turned off, gives the regular template with storeys, storey height and base elevation', async () => {
+    const requests = mockFetch(created());
+    const { w } = await mountDialog(LEVELS);
+    levelsToggle()?.click();
+    await flushPromises();
+    expect(fieldLabels()).toEqual(expect.arrayContaining(['Storeys', 'Storey height (m)', 'Base elevation (m)']));
+    expect(liftLabels()).toEqual(['Lift 1: +0.000 to +7.200 m', 'Lift 2: +7.200 to +14.400 m']);
+    await fillAndCreate(w);
+    const template = (requests.find((r) => r.method === 'POST')?.body as { template: Record<string, unknown> }).template;
+    expect(template).toMatchObject({ storeys: 4, storeyHeight: 3.6, baseElevation: 0 });
+    expect(template).not.toHaveProperty('elevations');
+    w.unmount();
+  });
+
+  it('is not offered with fewer than two levels', async () => {
+    mockFetch({});
+    const { w } = await mountDialog([LEVELS[0]]);
+    expect(levelsToggle()).toBeNull();
+    expect(fieldLabels()).toContain('Storeys');
     w.unmount();
   });
 });

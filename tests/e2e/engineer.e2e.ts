@@ -40,14 +40,16 @@ describeInBrowser('an engineer at work', () => {
     await screenshot(page, 'stack-page-after-edit');
   });
 
-  it('creates a stack from a template, sets a floor load and sees results with a governing lift', async () => {
+  it("creates a stack at the building's levels, sets a floor load and sees results with a governing lift", async () => {
     const page = await session.pageAs(DEMO.engineer);
     await openDemoBuilding(page);
     await page.getByRole('button', { name: 'New stack' }).click();
     const dialog = page.locator('.q-dialog');
     await dialog.getByLabel('Grid reference').fill('E/7');
-    await dialog.getByLabel('Storeys', { exact: true }).fill('4');
-    await dialog.getByLabel('Storey height (m)').fill('3.8');
+    // The demo building has levels, so the floors follow them by default: Ground up to Level 4 is 4 storeys.
+    await dialog.getByLabel('Top level').click();
+    await page.locator('.q-menu .q-item').filter({ hasText: 'Level 4' }).click();
+    await dialog.getByText('4 storeys between them').waitFor();
     await dialog.getByLabel('Permanent load per floor, Gk (kN)').fill('150');
     await dialog.getByLabel('Imposed load per floor, Qk (kN)').fill('75');
     for (const [lift, section] of [
@@ -65,6 +67,8 @@ describeInBrowser('an engineer at work', () => {
     const lowest = await liftUtilisation(page, 'L1');
     // A heavier floor load on the first restraint raises the force in every lift below it.
     await selectNode(page, 'restraint-1');
+    // The floor is tied to Level 1, so its elevation is set by the level.
+    await properties(page).locator('[data-test="untie-level"]').waitFor();
     const gk = properties(page).getByLabel('Permanent load Gk (kN)');
     await gk.fill('900');
     await gk.press('Enter');

@@ -95,6 +95,42 @@ describe('levels', () => {
     expect(ops[0].ops).toEqual([{ op: 'updateNode', id: restraint?.id, data: { elevation: 4.5 } }]);
   });
 
+  it("creates a stack at the building's own irregular levels: every restraint carries its level, and moving a level moves it", async () => {
+    // Invented levels: a 4.5 m ground storey, 3.5 m office storeys and a 4.2 m plant storey under the roof.
+    const b = await createBuilding(s, token, 'Irregular levels');
+    for (const [name, elevation] of [['Level 2', 8], ['Ground', 0], ['Level 1', 4.5], ['Roof', 15.7], ['Level 3', 11.5]] as const) {
+      await s.api('POST', `/buildings/${b.id}/levels`, { token, body: { name, elevation } });
+    }
+    const levels = (await s.api('GET', `/buildings/${b.id}/levels`, { token })).body as Level[];
+    const template = { elevations: levels.map((l) => l.elevation), spliceEvery: 2, sections: ['UKC 203x203x60', 'UKC 152x152x37'], Gk: 120, Qk: 60 };
+    const created = await s.api('POST', `/buildings/${b.id}/stacks`, { token, body: { name: 'F/3', template } });
+    expect(created.status).toBe(201);
+    const id = (created.body as StackSummary).id;
+    const get = async () => (await s.api('GET', `/stacks/${id}`, { token })).body as StackDetail;
+    const before = await get();
+    expect(before.results.errors).toEqual([]);
+    const restraints = before.doc.nodes.filter((n) => n.kind === 'restraint');
+    const levelOf = new Map(levels.map((l) => [l.id, l]));
+    expect(restraints.map((n) => n.kind === 'restraint' && [levelOf.get(n.data.levelId ?? '')?.name, n.data.elevation])).toEqual([
+      ['Level 1', 4.5],
+      ['Level 2', 8],
+      ['Level 3', 11.5],
+    ]);
+    const at = (kind: string) => before.doc.nodes.find((n) => n.kind === kind)?.data;
+    expect(at('support')).toMatchObject({ elevation: 0 });
+    expect(at('cap')).toMatchObject({ elevation: 15.7 });
+    // The ground storey is the bottom piece: pinned at both ends, it buckles over its 4.5 m (EN 1993-1-1 6.3.1.3).
+    expect(before.results.lifts[0].pieces[0].LcrZ).toBeCloseTo(4.5, 6);
+
+    const level1 = levels.find((l) => l.name === 'Level 1') as Level;
+    expect((await s.api('PATCH', `/buildings/${b.id}/levels/${level1.id}`, { token, body: { elevation: 5 } })).status).toBe(200);
+    const after = await get();
+    expect(after.version).toBe(before.version + 1);
+    const moved = after.doc.nodes.find((n) => n.kind === 'restraint' && n.data.levelId === level1.id);
+    expect(moved?.kind === 'restraint' && moved.data.elevation).toBe(5);
+    expect(after.results.lifts[0].pieces[0].LcrZ).toBeCloseTo(5, 6);
+  });
+
   it('refuses to delete a level that a restraint uses (409) and deletes an unused one', async () => {
     const b = await createBuilding(s, token, 'Delete test');
     const used = (await s.api('POST', `/buildings/${b.id}/levels`, { token, body: { name: 'Level 1', elevation: 4 } })).body as Level;

@@ -183,6 +183,18 @@ describe('stacks', () => {
     expect((await s.api('PATCH', `/stacks/${first.id}`, { token, body: { name: 'q/1' } })).status).toBe(200);
   });
 
+  it('says which template field is wrong when the floors are given neither way or both ways', async () => {
+    const refuse = async (t: object) => {
+      const r = await s.api('POST', `/buildings/${buildingId}/stacks`, { token, body: { name: 'W/1', template: { sections: ['UKC 203x203x46'], ...t } } });
+      expect(r.status).toBe(400);
+      expect(errorCode(r.body)).toBe('validation_failed');
+      return (r.body as { error: { message: string } }).error.message;
+    };
+    expect(await refuse({})).toBe('Invalid input (template.storeys: is required (or give elevations instead))');
+    expect(await refuse({ elevations: [0, 4, 8], storeyHeight: 4 })).toBe('Invalid input (template.storeyHeight: must be left out when elevations are given)');
+    expect(await refuse({ elevations: [0, 4, 3.9] })).toContain('template.elevations.2: must rise from floor to floor');
+  });
+
   it('finds catalogue sections for the picker with their nominal mass', async () => {
     const r = await s.api('GET', '/sections?q=UKC%20203x203&limit=10', { token });
     const hits = r.body as { designation: string; series: string; massPerMetre: number }[];
