@@ -102,6 +102,13 @@ export async function createBuilding(s: TestServer, token: string, name = 'Test 
   return r.body as Building;
 }
 
+/** A fresh test server with one lead and one building of theirs: where most server tests start. */
+export async function startWithLeadAndBuilding(buildingName?: string): Promise<{ s: TestServer; token: string; buildingId: number }> {
+  const s = await startTestServer();
+  const token = (await registerUser(s, 'lead')).token;
+  return { s, token, buildingId: (await createBuilding(s, token, buildingName)).id };
+}
+
 export async function addMember(s: TestServer, leadToken: string, buildingId: number, email: string, role: Role): Promise<void> {
   const r = await s.api('POST', `/buildings/${buildingId}/members`, { token: leadToken, body: { email, role } });
   if (r.status !== 201) throw new Error(`add member failed: ${r.status} ${JSON.stringify(r.body)}`);

@@ -1,15 +1,13 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type { Level, StackDetail, StackSummary } from '../../shared/schema/api.ts';
-import { createBuilding, errorCode, registerUser, startTestServer, type TestServer } from './helpers.ts';
+import { createBuilding, errorCode, startWithLeadAndBuilding, type TestServer } from './helpers.ts';
 
 describe('levels', () => {
   let s: TestServer;
   let token: string;
   let buildingId: number;
   beforeAll(async () => {
-    s = await startTestServer();
-    token = (await registerUser(s, 'lead')).token;
-    buildingId = (await createBuilding(s, token)).id;
+    ({ s, token, buildingId } = await startWithLeadAndBuilding());
   });
   afterAll(async () => {
     await s?.close();

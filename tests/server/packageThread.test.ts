@@ -5,7 +5,7 @@ import { monitorEventLoopDelay } from 'node:perf_hooks';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type { StackSummary } from '../../shared/schema/api.ts';
 import type { RevisionDetail } from '../../shared/schema/revisions.ts';
-import { createBuilding, registerUser, startTestServer, type TestServer } from './helpers.ts';
+import { startWithLeadAndBuilding, type TestServer } from './helpers.ts';
 
 const STOREYS = 30;
 const STOREY = 3.6;
@@ -18,9 +18,7 @@ describe('drawing the package off the main thread', () => {
   let token: string;
   let buildingId: number;
   beforeAll(async () => {
-    s = await startTestServer();
-    token = (await registerUser(s, 'lead')).token;
-    buildingId = (await createBuilding(s, token, 'Tall invented block')).id;
+    ({ s, token, buildingId } = await startWithLeadAndBuilding('Tall invented block'));
     for (let i = 0; i <= STOREYS; i++) {
       await s.api('POST', `/buildings/${buildingId}/levels`, { token, body: { name: i === 0 ? 'Ground' : `Floor ${i}`, elevation: Math.round(i * STOREY * 1000) / 1000 } });
     }

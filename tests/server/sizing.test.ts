@@ -2,7 +2,7 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type { StackDetail, StackSummary } from '../../shared/schema/api.ts';
 import type { BuildingSizingPreview, StackSizingPreview } from '../../shared/schema/sizing.ts';
-import { addMember, createBuilding, errorCode, registerUser, startTestServer, type TestServer } from './helpers.ts';
+import { addMember, createBuilding, errorCode, registerUser, startWithLeadAndBuilding, type TestServer } from './helpers.ts';
 
 const template = { storeys: 6, storeyHeight: 3.6, spliceEvery: 2, sections: ['UKC 305x305x137', 'UKC 254x254x89', 'UKC 203x203x60'], Gk: 150, Qk: 75 };
 
@@ -11,9 +11,7 @@ describe('sizing', () => {
   let token: string;
   let buildingId: number;
   beforeAll(async () => {
-    s = await startTestServer();
-    token = (await registerUser(s, 'lead')).token;
-    buildingId = (await createBuilding(s, token)).id;
+    ({ s, token, buildingId } = await startWithLeadAndBuilding());
   });
   afterAll(async () => {
     await s?.close();

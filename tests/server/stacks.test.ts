@@ -2,7 +2,7 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type { StackDetail, StackSummary } from '../../shared/schema/api.ts';
 import type { StackDocument } from '../../shared/schema/stack.ts';
 import { migrationSource } from '../../migrations/index.ts';
-import { addMember, createBuilding, errorCode, registerUser, startTestServer, type TestServer } from './helpers.ts';
+import { addMember, errorCode, registerUser, startWithLeadAndBuilding, type TestServer } from './helpers.ts';
 
 const template = { storeys: 4, storeyHeight: 3.6, spliceEvery: 2, sections: ['UKC 254x254x89', 'UKC 203x203x46'], Gk: 120, Qk: 60 };
 
@@ -11,9 +11,7 @@ describe('stacks', () => {
   let token: string;
   let buildingId: number;
   beforeAll(async () => {
-    s = await startTestServer();
-    token = (await registerUser(s, 'lead')).token;
-    buildingId = (await createBuilding(s, token)).id;
+    ({ s, token, buildingId } = await startWithLeadAndBuilding());
   });
   afterAll(async () => {
     await s?.close();
