@@ -32,13 +32,11 @@ export async function buildingLevels(db: Knex, buildingId: number): Promise<Leve
   return rows.map((r) => ({ id: Number(r.id), name: r.name, elevation: Number(r.elevation) }));
 }
 
-/** Restraints tied to the level (by levelId or by elevation) and a cap at its elevation. */
+/** Restraints and a cap on the level: tied to it (levelId) or at its elevation. */
 export function nodesAtLevel(doc: StackDocument, level: LevelRef): LoadedNode[] {
   const key = String(level.id);
   const near = (z: number) => Math.abs(z - level.elevation) < SAME_ELEVATION_M;
-  return doc.nodes.filter(
-    (n): n is LoadedNode => (n.kind === 'restraint' && (n.data.levelId === key || near(n.data.elevation))) || (n.kind === 'cap' && near(n.data.elevation)),
-  );
+  return doc.nodes.filter((n): n is LoadedNode => (n.kind === 'restraint' || n.kind === 'cap') && (n.data.levelId === key || near(n.data.elevation)));
 }
 
 export const floorLoadOf = (node: LoadedNode): FloorLoad => ({ Gk: node.data.Gk, Qk: node.data.Qk, category: node.data.category });

@@ -1,8 +1,9 @@
-// Levels of a building (issue 5). Moving a level moves every restraint that refers to it and
+// Levels of a building (issue 5). Moving a level moves every restraint, cap and support that sits on it and
 // re-analyses those stacks in the same transaction.
 import type { Knex } from 'knex';
 import type { Level, User } from '../../shared/schema/api.ts';
 import type { Op } from '../../shared/schema/ops.ts';
+import type { StackNode } from '../../shared/schema/stack.ts';
 import { applyOps as applyOpsToDoc, touchedIds } from '../../shared/ops/applyOps.ts';
 import type { ServerContext } from '../context.ts';
 import { now } from '../db.ts';
@@ -41,16 +42,14 @@ export async function createLevel(db: Knex, buildingId: number, input: { name: s
   });
 }
 
-/** Stacks of the building with a restraint on this level, and the ids of those restraints. */
-async function stacksUsingLevel(db: Knex, buildingId: number, levelId: number): Promise<{ row: StackRow; restraintIds: string[] }[]> {
+/** Stacks of the building with nodes on this level (restraints, a cap, a support), and those nodes' ids. */
+async function stacksUsingLevel(db: Knex, buildingId: number, levelId: number): Promise<{ row: StackRow; nodeIds: string[] }[]> {
   const rows = await db<StackRow>('stacks').where({ building_id: buildingId });
   const key = String(levelId);
+  const onLevel = (n: StackNode) => (n.kind === 'restraint' || n.kind === 'cap' || n.kind === 'support') && n.data.levelId === key;
   return rows
-    .map((row) => ({
-      row,
-      restraintIds: parseDoc(row.doc).nodes.filter((n) => n.kind === 'restraint' && n.data.levelId === key).map((n) => n.id),
-    }))
-    .filter((s) => s.restraintIds.length > 0);
+    .map((row) => ({ row, nodeIds: parseDoc(row.doc).nodes.filter(onLevel).map((n) => n.id) }))
+    .filter((s) => s.nodeIds.length > 0);
 }
 
 export async function updateLevel(ctx: ServerContext, buildingId: number, levelId: number, input: { name?: string; elevation?: number }, user: User): Promise<Level> {
@@ -62,8 +61,8 @@ export async function updateLevel(ctx: ServerContext, buildingId: number, levelI
     const changes: CommittedChange[] = [];
     if (input.elevation !== undefined && input.elevation !== Number(before.elevation)) {
       const inputs = await analysisInputs(trx, buildingId);
-      for (const { row, restraintIds } of await stacksUsingLevel(trx, buildingId, levelId)) {
-        const ops: Op[] = restraintIds.map((id) => ({ op: 'updateNode', id, data: { elevation: input.elevation } }));
+      for (const { row, nodeIds } of await stacksUsingLevel(trx, buildingId, levelId)) {
+        const ops: Op[] = nodeIds.map((id) => ({ op: 'updateNode', id, data: { elevation: input.elevation } }));
         const doc = parseDoc(row.doc);
         changes.push(await commitDoc(trx, row, { doc: applyOpsToDoc(doc, ops), ops, touched: touchedIds(doc, ops), userId: user.id, action: 'level.move' }, inputs));
       }
@@ -80,7 +79,7 @@ export async function deleteLevel(db: Knex, buildingId: number, levelId: number,
     const users = await stacksUsingLevel(trx, buildingId, levelId);
     if (users.length > 0) {
       const names = users.map((s) => s.row.name);
-      throw conflict(`Level ${level.name} is used by restraints in ${names.join(', ')}; detach them first`, { stacks: users.map((s) => s.row.id) });
+      throw conflict(`Level ${level.name} is used by restraints, caps or supports in ${names.join(', ')}; detach them first`, { stacks: users.map((s) => s.row.id) });
     }
     await trx('levels').where({ id: levelId }).delete();
     await recordAudit(trx, { userId: user.id, buildingId, action: 'level.delete', detail: { levelId, name: level.name } });

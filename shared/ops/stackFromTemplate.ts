@@ -56,7 +56,12 @@ export function stackFromTemplate(t: StackTemplate, levels: readonly Level[] = [
   const edges: StackEdge[] = [];
   const link = (source: string, target: string) => edges.push({ id: `e-${source}-${target}`, source, target });
 
-  nodes.push({ id: 'support', kind: 'support', data: { elevation: floors[0], fixity: t.baseFixity }, position: at(CHAIN_X, floors[0]) });
+  // Every node at a building level's elevation sits on that level, so it follows when the level moves.
+  const onLevel = (elevation: number) => {
+    const levelId = levelAt(levels, elevation);
+    return levelId ? { levelId } : {};
+  };
+  nodes.push({ id: 'support', kind: 'support', data: { elevation: floors[0], ...onLevel(floors[0]), fixity: t.baseFixity }, position: at(CHAIN_X, floors[0]) });
   let below = 'support';
   let belowElevation = floors[0];
   ranges.forEach(({ bottom, top }, i) => {
@@ -68,7 +73,7 @@ export function stackFromTemplate(t: StackTemplate, levels: readonly Level[] = [
     link(below, liftId);
     const above = last ? 'cap' : `splice-${i + 1}`;
     if (last) {
-      nodes.push({ id: 'cap', kind: 'cap', data: { elevation: topElevation, fixity: 'pinned', Gk: t.Gk, Qk: t.Qk, category: 'H' }, position: at(CHAIN_X, topElevation) });
+      nodes.push({ id: 'cap', kind: 'cap', data: { elevation: topElevation, ...onLevel(topElevation), fixity: 'pinned', Gk: t.Gk, Qk: t.Qk, category: 'H' }, position: at(CHAIN_X, topElevation) });
     } else {
       nodes.push({ id: above, kind: 'splice', data: { elevation: topElevation }, position: at(CHAIN_X, topElevation) });
     }
@@ -77,11 +82,10 @@ export function stackFromTemplate(t: StackTemplate, levels: readonly Level[] = [
     for (let k = bottom + 1; k <= Math.min(top, storeys - 1); k++) {
       const elevation = floors[k];
       const id = `restraint-${k}`;
-      const levelId = levelAt(levels, elevation);
       nodes.push({
         id,
         kind: 'restraint',
-        data: { elevation, ...(levelId ? { levelId } : {}), axes: 'both', fixity: 'pinned', Gk: t.Gk, Qk: t.Qk, category: 'B' },
+        data: { elevation, ...onLevel(elevation), axes: 'both', fixity: 'pinned', Gk: t.Gk, Qk: t.Qk, category: 'B' },
         position: at(RESTRAINT_X, elevation),
       });
       link(id, liftId);

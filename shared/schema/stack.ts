@@ -26,7 +26,9 @@ export const sectionDimsSchema = z.discriminatedUnion('shape', [
 const sectionRef = z.union([z.string().trim().min(1).max(80), sectionDimsSchema]);
 const kFactor = finite.positive().max(10);
 
-export const supportDataSchema = z.object({ elevation, fixity: fixitySchema }).strict();
+/** A building level a node sits on (SPEC §4): its elevation then follows the level's. */
+const levelId = z.string().min(1).max(64).optional();
+export const supportDataSchema = z.object({ elevation, levelId, fixity: fixitySchema }).strict();
 export const liftDataSchema = z
   .object({ section: sectionRef, grade: gradeSchema, kY: kFactor.optional(), kZ: kFactor.optional(), note: z.string().max(500).optional() })
   .strict();
@@ -44,7 +46,7 @@ export const restraintFacesSchema = z
 export const restraintDataSchema = z
   .object({
     elevation,
-    levelId: z.string().min(1).max(64).optional(),
+    levelId,
     axes: axesSchema,
     fixity: fixitySchema,
     Gk: load,
@@ -54,7 +56,7 @@ export const restraintDataSchema = z
   })
   .strict();
 export const capDataSchema = z
-  .object({ elevation, fixity: z.union([fixitySchema, z.literal('free')]), Gk: load, Qk: load, category: categorySchema })
+  .object({ elevation, levelId, fixity: z.union([fixitySchema, z.literal('free')]), Gk: load, Qk: load, category: categorySchema })
   .strict();
 export const loadDataSchema = z.object({ label: z.string().max(120), Gk: load, Qk: load, category: categorySchema }).strict();
 

@@ -40,6 +40,26 @@ describe('analyseBuilding', () => {
     expect(moved.stacks[0].result.lifts[0].pieces.map((p) => p.to)).toEqual([4.5, 8]);
   });
 
+  it('takes the elevations of a cap and a support that sit on levels from the building levels', () => {
+    const doc = stack(100);
+    const tied = {
+      edges: doc.edges,
+      nodes: doc.nodes.map((n) => (n.kind === 'cap' ? { ...n, data: { ...n.data, levelId: 'roof' } } : n.kind === 'support' ? { ...n, data: { ...n.data, levelId: 'ground' } } : n)),
+    };
+    const lifted = analyseBuilding([{ id: 'y', name: 'F/1', doc: tied }], { ...levels, ground: -0.5, roof: 8.6 }, {}).stacks[0].result;
+    expect(lifted.errors).toEqual([]);
+    expect(lifted.takeDown.map((r) => r.elevation)).toEqual([8.6, 4]);
+    expect([lifted.lifts[0].bottom, lifted.lifts[0].top]).toEqual([-0.5, 8.6]);
+    expect(lifted.lifts[0].pieces.map((p) => [p.from, p.to])).toEqual([[-0.5, 4], [4, 8.6]]);
+    // A level the building no longer has: the node keeps its own elevation, with a warning on it.
+    const lost = analyseBuilding([{ id: 'z', name: 'G/1', doc: tied }], { first: 4 }, {}).stacks[0].result;
+    expect(lost.lifts[0].top).toBe(8);
+    expect(lost.warnings.filter((w) => /refers to a level the building no longer has/.test(w.message)).map((w) => w.message)).toEqual([
+      'Cap at +8.000 refers to a level the building no longer has; its own elevation is used',
+      'Support at +0.000 refers to a level the building no longer has; its own elevation is used',
+    ]);
+  });
+
   it('has no worst stack when no stack has results', () => {
     expect(analyseBuilding([{ id: 9, name: 'E/1', doc: broken }], levels, {}).worstStackId).toBeNull();
     expect(analyseBuilding([], levels, {})).toEqual({ stacks: [], worstStackId: null });

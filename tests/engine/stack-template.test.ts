@@ -71,6 +71,12 @@ describe('stackFromTemplate with explicit elevations', () => {
       [8, '13'],
       [11.5, '14'],
     ]);
+    // The support and the cap sit on the levels at the base and the top, when the building has them.
+    const ends = doc.nodes.flatMap((n) => (n.kind === 'support' || n.kind === 'cap' ? [[n.kind, n.data.levelId]] : []));
+    expect(ends).toEqual([
+      ['support', '11'],
+      ['cap', '15'],
+    ]);
   });
 });
 

@@ -115,8 +115,9 @@ describe('levels', () => {
       ['Level 3', 11.5],
     ]);
     const at = (kind: string) => before.doc.nodes.find((n) => n.kind === kind)?.data;
-    expect(at('support')).toMatchObject({ elevation: 0 });
-    expect(at('cap')).toMatchObject({ elevation: 15.7 });
+    const levelId = (name: string) => levels.find((l) => l.name === name)?.id;
+    expect(at('support')).toMatchObject({ elevation: 0, levelId: levelId('Ground') });
+    expect(at('cap')).toMatchObject({ elevation: 15.7, levelId: levelId('Roof') });
     // The ground storey is the bottom piece: pinned at both ends, it buckles over its 4.5 m (EN 1993-1-1 6.3.1.3).
     expect(before.results.lifts[0].pieces[0].LcrZ).toBeCloseTo(4.5, 6);
 
@@ -127,6 +128,16 @@ describe('levels', () => {
     const moved = after.doc.nodes.find((n) => n.kind === 'restraint' && n.data.levelId === level1.id);
     expect(moved?.kind === 'restraint' && moved.data.elevation).toBe(5);
     expect(after.results.lifts[0].pieces[0].LcrZ).toBeCloseTo(5, 6);
+
+    // The roof raised: the cap follows, and the top lift is checked over its new length.
+    const roof = levels.find((l) => l.name === 'Roof') as Level;
+    expect((await s.api('PATCH', `/buildings/${b.id}/levels/${roof.id}`, { token, body: { elevation: 16.2 } })).status).toBe(200);
+    const raised = await get();
+    expect(raised.doc.nodes.find((n) => n.kind === 'cap')?.data).toMatchObject({ elevation: 16.2 });
+    expect(raised.results.lifts.at(-1)?.top).toBeCloseTo(16.2, 9);
+    expect(raised.results.takeDown[0].elevation).toBeCloseTo(16.2, 9);
+    // A level the cap sits on cannot be deleted while it does.
+    expect((await s.api('DELETE', `/buildings/${b.id}/levels/${roof.id}`, { token })).status).toBe(409);
   });
 
   it('refuses to delete a level that a restraint uses (409) and deletes an unused one', async () => {

@@ -1,7 +1,7 @@
 // Restraints attached to the lift that contains them, and loads attached to a restraint or the cap (SPEC §4).
 import type { Issue } from '../../schema/results.ts';
 import type { Axes, Category, Fixity, NodeOf } from '../../schema/stack.ts';
-import { levelElevation, SAME_ELEVATION_M, type AnalysisContext } from './context.ts';
+import { SAME_ELEVATION_M } from './context.ts';
 import { formatElevation } from './formatElevation.ts';
 import type { ChainLift, StackChain } from './stackChain.ts';
 import { neighbours, type StackGraph } from './stackGraph.ts';
@@ -18,19 +18,6 @@ export interface ModelRestraint {
 function addLoad(entry: LoadEntry, Gk: number, Qk: number, category: Category): void {
   entry.Gk += Gk;
   if (Qk > 0) entry.Qk[category] = (entry.Qk[category] ?? 0) + Qk;
-}
-
-/** A restraint's elevation: from its level when the building has that level, else its own. */
-function restraintElevation(node: NodeOf<'restraint'>, context: AnalysisContext, warnings: Issue[]): number {
-  const { levelId, elevation } = node.data;
-  if (levelId === undefined || !context.levels) return elevation;
-  const fromLevel = levelElevation(context.levels, levelId);
-  if (fromLevel !== undefined) return fromLevel;
-  warnings.push({
-    nodeId: node.id,
-    message: `Restraint at ${formatElevation(elevation)} refers to a level the building no longer has; its own elevation is used`,
-  });
-  return elevation;
 }
 
 function restraintName(elevation: number): string {
@@ -78,9 +65,8 @@ export interface Attachments {
   entries: LoadEntry[];
 }
 
-export function readAttachments(graph: StackGraph, chain: StackChain, context: AnalysisContext): { attachments: Attachments; errors: Issue[]; warnings: Issue[] } {
+export function readAttachments(graph: StackGraph, chain: StackChain): { attachments: Attachments; errors: Issue[] } {
   const errors: Issue[] = [];
-  const warnings: Issue[] = [];
   const restraints: ModelRestraint[] = [];
   const entries = new Map<string, LoadEntry>();
   const liftsById = new Map(chain.lifts.map((l) => [l.node.id, l]));
@@ -88,7 +74,7 @@ export function readAttachments(graph: StackGraph, chain: StackChain, context: A
   const nodes = [...graph.nodes.values()].sort((a, b) => (a.id < b.id ? -1 : a.id > b.id ? 1 : 0));
   for (const node of nodes) {
     if (node.kind === 'restraint') {
-      const elevation = restraintElevation(node, context, warnings);
+      const { elevation } = node.data;
       const restraint = checkRestraint(node, elevation, graph, chain, liftsById, errors);
       if (!restraint) continue;
       restraints.push(restraint);
@@ -121,5 +107,5 @@ export function readAttachments(graph: StackGraph, chain: StackChain, context: A
     }
   }
   const ordered = [...entries.values()].sort((a, b) => b.elevation - a.elevation);
-  return { attachments: { restraints, entries: ordered }, errors, warnings };
+  return { attachments: { restraints, entries: ordered }, errors };
 }

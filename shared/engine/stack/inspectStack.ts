@@ -3,6 +3,7 @@ import type { Issue } from '../../schema/results.ts';
 import type { LiftData, StackDocument } from '../../schema/stack.ts';
 import { readAttachments, type ModelRestraint } from './attachments.ts';
 import type { AnalysisContext } from './context.ts';
+import { placeOnLevels } from './placeOnLevels.ts';
 import { isLiftSection, resolveLiftSection, type LiftSection } from './liftSections.ts';
 import { schemaIssues } from './schemaIssues.ts';
 import { segmentsAbout, type Segment } from './segments.ts';
@@ -44,11 +45,10 @@ export function inspectStack(doc: StackDocument, context: AnalysisContext = {}):
   const shape = context.shapeChecked ? [] : schemaIssues(doc);
   if (shape.length) return { model: null, errors: shape, warnings };
 
-  const { graph, issues: graphErrors } = buildStackGraph(doc);
+  const { graph, issues: graphErrors } = buildStackGraph(placeOnLevels(doc, context, warnings));
   const { chain, issues: chainErrors } = walkStackChain(graph);
-  const attached = readAttachments(graph, chain, context);
+  const attached = readAttachments(graph, chain);
   const errors = [...graphErrors, ...chainErrors, ...attached.errors];
-  warnings.push(...attached.warnings);
   if (!chain.complete || !chain.support || !chain.cap || errors.length) return { model: null, errors, warnings };
 
   const { support, cap } = chain;
