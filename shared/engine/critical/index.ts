@@ -1,0 +1,3 @@
+export { criticalBuckling, bucklingAbout, equivalentLength, type AxisBuckling, type StackBuckling } from './criticalBuckling.ts';
+export { lowestLoadFactor, type BeamColumn, type BucklingSolution } from './lowestLoadFactor.ts';
+export { stackColumn, bendingStiffness, ELEMENTS_PER_PIECE, PARTIAL_SPRING_FACTOR } from './stackColumn.ts';
