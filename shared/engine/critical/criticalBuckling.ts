@@ -38,9 +38,10 @@ export function bucklingAbout(
       ? { message: `${about} cannot solve the stack: the column is a mechanism near ${formatElevation(column.nodes[solution.node])} (it needs more restraint)` }
       : { message: `${about} found no buckling load: no piece of the column is in compression. Use tabulated factors for this building` };
   }
+  // + 0 turns a rounded −0 into 0
   return {
     alphaCr: solution.alphaCr,
-    shape: { elevations: column.nodes.map((e) => Math.round(e * ROUND) / ROUND), displacements: solution.shape.map((v) => Math.round(v * ROUND) / ROUND) },
+    shape: { elevations: column.nodes.map((e) => Math.round(e * ROUND) / ROUND), displacements: solution.shape.map((v) => Math.round(v * ROUND) / ROUND + 0) },
   };
 }
 
