@@ -64,12 +64,18 @@ export function largestEigenpair(n: number, apply: (x: Float64Array, out: Float6
     const q = basis[j];
     apply(q, w);
     alpha.push(dot(w, q));
-    // Full reorthogonalisation, twice ("twice is enough"), keeps the basis orthogonal in floating point.
+    // Full reorthogonalisation, repeated once when it removed most of w ("twice is enough", Kahan–Parlett;
+    // Golub & Van Loan §10.1.5; from memory), keeps the basis orthogonal in floating point.
+    let before = Math.sqrt(dot(w, w));
     for (let pass = 0; pass < 2; pass++) {
-      for (const v of basis) {
+      for (let k = 0; k < basis.length; k++) {
+        const v = basis[k];
         const c = dot(w, v);
         for (let i = 0; i < n; i++) w[i] -= c * v[i];
       }
+      const after = Math.sqrt(dot(w, w));
+      if (after > 0.7 * before) break;
+      before = after;
     }
     const b = Math.sqrt(dot(w, w));
     const exhausted = j + 1 === n || b <= 1e-13 * Math.abs(alpha[0] || 1);
