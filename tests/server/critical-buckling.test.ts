@@ -4,6 +4,8 @@ import { PDFParse } from 'pdf-parse';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type { Building, StackDetail } from '../../shared/schema/api.ts';
 import type { RevisionDetail } from '../../shared/schema/revisions.ts';
+import { inputsKey, precomputedFor } from '../../server/services/reanalysis.ts';
+import type { StackRow } from '../../server/services/stackRows.ts';
 import { startTestServer, type TestServer } from './helpers.ts';
 import { revisionFixture, type RevisionFixture } from './revisionsFixture.ts';
 
@@ -59,5 +61,22 @@ describe('buckling lengths from the critical buckling analysis', () => {
     expect(text).toContain('αcr,y');
     expect(text).toContain('tabulated ky');
     expect(text).toContain('Ncr = αcr·NEd');
+  });
+});
+
+describe('results worked out on the worker thread before the options are stored', () => {
+  const inputs = { options: { combination: '6.10ab', annex: 'UK', imposedReduction: true, selfWeight: true, bucklingLengths: 'critical' } as const, levels: new Map([['1', 3.6]]), sections: new Map() };
+  const results = { errors: [], warnings: [], lifts: [], governingLiftId: null, takeDown: [] };
+  const pre = { inputsKey: inputsKey(inputs), byStack: new Map([[7, { version: 3, results }]]) };
+  const row = (version: number) => ({ id: 7, building_id: 1, name: 'S', doc: '{}', version, results: '{}' }) as unknown as StackRow;
+
+  it('are used for a stack whose version and inputs are unchanged, whatever the order of the options', () => {
+    const reordered = { ...inputs, options: { bucklingLengths: 'critical', selfWeight: true, imposedReduction: true, annex: 'UK', combination: '6.10ab' } as const };
+    expect(precomputedFor(pre, reordered, row(3))).toBe(results);
+  });
+
+  it('are not used for a stack edited meanwhile, nor after a level moved', () => {
+    expect(precomputedFor(pre, inputs, row(4))).toBeUndefined();
+    expect(precomputedFor(pre, { ...inputs, levels: new Map([['1', 3.7]]) }, row(3))).toBeUndefined();
   });
 });
