@@ -96,6 +96,19 @@ describe('analyseStack with bucklingLengths: critical', () => {
     expect(Math.max(...shape.displacements.map(Math.abs))).toBe(1);
   });
 
+  it('keeps the tabulated length for a piece without compression above a loaded one', () => {
+    // No cap load and no self-weight: the storey above +4.000 carries nothing.
+    const doc = buildStack({ lifts: [{ top: 8 }], floors: [{ elevation: 4, Gk: 500 }], cap: { Gk: 0 } });
+    const [lower, upper] = solved(analyseStack(doc, CRITICAL)).lifts[0].pieces;
+    expect(upper.NEd).toBe(0);
+    expect(upper.LcrY).toBe(4);
+    expect(upper.tableKY).toBeUndefined();
+    expect(upper.utilisation).toBe(0);
+    // The unloaded storey above restrains the loaded one: k below 1.0 (pinned far end, 3EI/L at the joint).
+    expect(lower.kY).toBeLessThan(1);
+    expect(lower.tableKY).toBe(1);
+  });
+
   it('reports a stack without compression as an error, never a throw', () => {
     const result = analyseStack(buildStack({ lifts: [{ top: 4 }], cap: { Gk: 0 } }), CRITICAL);
     expect(result.lifts).toEqual([]);
