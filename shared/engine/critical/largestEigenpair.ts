@@ -86,7 +86,9 @@ export function largestEigenpair(n: number, apply: (x: Float64Array, out: Float6
       nextCheck = Math.min(n, Math.ceil(nextCheck * 1.5));
     }
     beta.push(b);
-    basis.push(w.map((x) => x / b));
+    const next = new Float64Array(n);
+    for (let i = 0; i < n; i++) next[i] = w[i] / b;
+    basis.push(next);
   }
   const vector = new Float64Array(n);
   for (let k = 0; k < ritz.s.length; k++) {

@@ -43,11 +43,17 @@ export function lowestLoadFactor(c: BeamColumn): BucklingSolution {
   const n = dofs.count;
   const K = bandMatrix(n, 3);
   const Kg = bandMatrix(n, 3);
+  const map = [0, 0, 0, 0];
+  const ke = new Float64Array(16);
+  const kg = new Float64Array(16);
   for (let e = 0; e + 1 < c.nodes.length; e++) {
     const L = c.nodes[e + 1] - c.nodes[e];
-    const map = [dofs.u[e], dofs.t[e], dofs.u[e + 1], dofs.t[e + 1]];
-    const ke = elasticStiffness(c.EI[e], L);
-    const kg = geometricStiffness(c.N[e], L);
+    map[0] = dofs.u[e];
+    map[1] = dofs.t[e];
+    map[2] = dofs.u[e + 1];
+    map[3] = dofs.t[e + 1];
+    elasticStiffness(c.EI[e], L, ke);
+    geometricStiffness(c.N[e], L, kg);
     for (let a = 0; a < 4; a++) {
       for (let b = 0; b <= a; b++) {
         if (map[a] < 0 || map[b] < 0) continue;
