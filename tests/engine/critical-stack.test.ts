@@ -42,6 +42,16 @@ describe('analyseStack with bucklingLengths: critical', () => {
     expect(piece.check.NcrZ / (result.criticalBuckling.z.alphaCr * piece.NEdZ * 1000)).toBeCloseTo(1, 10);
   });
 
+  it('a class 4 section: λ̄ = √(Aeff·fy/Ncr) with Ncr = αcr·NEd (EN 1993-1-1 eq. 6.51)', () => {
+    // SHS 300x300x6.3 hot-finished, S355: wall c/t = (300 − 3·6.3)/6.3 = 44.6 > 42ε = 34.2 (Table 5.2), class 4
+    const thin = { shape: 'RHS', make: 'hot-finished', h: 300, b: 300, t: 6.3 } as const;
+    const result = solved(analyseStack(buildStack({ lifts: [{ top: 6, section: thin }], cap: { Gk: 600 } }), CRITICAL));
+    const { check, NEdY } = result.lifts[0].pieces[0];
+    expect(check.sectionClass).toBe(4);
+    const Ncr = result.criticalBuckling.y.alphaCr * NEdY * 1000;
+    expect(check.lambdaBarY).toBeCloseTo(Math.sqrt((check.Aeff * check.fy) / Ncr), 10);
+  });
+
   it('writes the analysis and its αcr into the working of the checked piece', () => {
     const steps = solved(analyseStack(single, CRITICAL)).lifts[0].pieces[0].check.steps;
     const at = steps.findIndex((s) => s.symbol === 'αcr,z');
