@@ -4,11 +4,12 @@
 // (about half a second to load the engine and the renderer) and ends after ten minutes without work.
 import { Piscina } from 'piscina';
 import type { RevisionSnapshot } from '../../shared/schema/revisions.ts';
-import type { BuildingSizingOutcome, BuildingSizingTask, PackageTask } from './tasks.ts';
+import type { AnalysedStack, BuildingAnalysisTask, BuildingSizingOutcome, BuildingSizingTask, PackageTask } from './tasks.ts';
 
 export interface OffThread {
   renderPackage(snapshot: RevisionSnapshot, hash: string): Promise<Buffer>;
   sizeBuilding(task: BuildingSizingTask): Promise<BuildingSizingOutcome>;
+  analyseBuilding(task: BuildingAnalysisTask): Promise<AnalysedStack[]>;
   close(): Promise<void>;
 }
 
@@ -27,6 +28,7 @@ export function createOffThread(): OffThread {
       return Buffer.from(bytes.buffer, bytes.byteOffset, bytes.byteLength);
     },
     sizeBuilding: (task) => pool.run(task, { name: 'sizeWholeBuilding' }) as Promise<BuildingSizingOutcome>,
+    analyseBuilding: (task) => pool.run(task, { name: 'analyseWholeBuilding' }) as Promise<AnalysedStack[]>,
     close: () => pool.destroy(),
   };
 }

@@ -1,8 +1,8 @@
 // The work done on the worker thread (server/offThread/pool.ts): what takes long enough to stall the
 // requests and live edits of a process. Each task takes and returns plain data (structured clone).
-import { isEngineError, sizeBuilding } from '../../shared/engine/index.ts';
+import { analyseBuilding, isEngineError, sizeBuilding } from '../../shared/engine/index.ts';
 import type { BuildingSizing } from '../../shared/engine/sizing/sizeBuilding.ts';
-import type { AnalysisOptions } from '../../shared/schema/results.ts';
+import type { AnalysisOptions, BuildingStackResult } from '../../shared/schema/results.ts';
 import type { RevisionSnapshot } from '../../shared/schema/revisions.ts';
 import type { SizingRequest } from '../../shared/schema/sizing.ts';
 import type { SectionDims, StackDocument } from '../../shared/schema/stack.ts';
@@ -42,4 +42,35 @@ export function sizeWholeBuilding({ stacks, request, options, levels, sections }
     if (isEngineError(error)) return { refused: { message: error.message, code: error.code } };
     throw error;
   }
+}
+
+export interface BuildingAnalysisTask {
+  stacks: { id: number; name: string; doc: StackDocument }[];
+  options: AnalysisOptions;
+  levels: Map<string, number>;
+  sections: Map<string, SectionDims>;
+}
+
+/** One stack's analysis as it crosses the thread: the result as JSON text, as the stacks table stores it. */
+export interface AnalysedStack {
+  id: number;
+  status: BuildingStackResult['status'];
+  utilisation: number | null;
+  governingLiftId: string | null;
+  resultJson: string;
+}
+
+/**
+ * Every stack of a building analysed (with the critical buckling analysis of each stack, seconds for a
+ * large building). Results go back as text: copying one string per stack to the main thread costs a
+ * fraction of cloning the objects, and the caller stores the text as it is.
+ */
+export function analyseWholeBuilding({ stacks, options, levels, sections }: BuildingAnalysisTask): AnalysedStack[] {
+  return analyseBuilding(stacks, levels, options, { sections, shapeChecked: true }).stacks.map((s) => ({
+    id: s.id,
+    status: s.status,
+    utilisation: s.utilisation,
+    governingLiftId: s.governingLiftId,
+    resultJson: JSON.stringify(s.result),
+  }));
 }

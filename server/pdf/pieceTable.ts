@@ -1,7 +1,7 @@
 // The pieces a lift is cut into, with their forces, buckling lengths and utilisation. When the stack carries
 // nominal moments the table gives the axial and the combined (N+M) utilisation side by side, the one that
 // governs in bold and coloured.
-import type { LiftResult } from '../../shared/schema/results.ts';
+import type { LiftResult, PieceCheck } from '../../shared/schema/results.ts';
 import { governingShort, governingWords, kN, metres, ratio } from './format.ts';
 import { COLOUR, MARGIN, utilisationColour } from './layout.ts';
 import type { Pdf } from './pdf.ts';
@@ -36,6 +36,10 @@ export const COMBINED_LEGEND =
   'Axial: the largest of NEd/Nc,Rd, NEd,y/Nb,y,Rd and NEd,z/Nb,z,Rd. N+M: the combined check of a column in simple construction with its nominal moments (– where no moment acts on the piece). Mode: the check that governs (section, y-y or z-z buckling, or N+M).';
 
 const LCR_REF = 'Lcr = k·L, EN 1993-1-1 6.3.1.3';
+/** Lengths from the critical buckling analysis: the equivalent length and, beside it, the tabulated factor. */
+const CRITICAL_REF = 'Lcr = π√(EI/Ncr), Ncr = αcr·NEd, EN 1993-1-1 6.3.1.2(1)';
+const tabulated = (p: PieceCheck): string | null =>
+  p.tableKY === undefined && p.tableKZ === undefined ? null : `tabulated ky ${p.tableKY?.toFixed(2) ?? '–'}, kz ${p.tableKZ?.toFixed(2) ?? '–'}`;
 
 function utilisationCell(u: number | null, governs: boolean): Cell {
   if (u === null) return { text: '–', colour: COLOUR.muted };
@@ -49,6 +53,10 @@ export function drawPieceTable(doc: Pdf, lift: LiftResult, governingPiece: numbe
     const combinedGoverns = p.governing === 'combined';
     return [...common, utilisationCell(axialOf(p), !combinedGoverns), utilisationCell(combinedOf(p), combinedGoverns), governingShort[p.governing]];
   });
-  const refs = lift.pieces.map((_p, i) => (i === 0 ? LCR_REF : null));
+  const critical = lift.pieces.some((p) => tabulated(p) !== null);
+  const refs = lift.pieces.map((p, i) => {
+    if (!critical) return i === 0 ? LCR_REF : null;
+    return [i === 0 ? CRITICAL_REF : null, tabulated(p)].filter(Boolean).join('; ') || null;
+  });
   drawTable(doc, MARGIN.left, withCombined ? COMBINED_COLUMNS : AXIAL_COLUMNS, rows, { refs, shade: (i) => (i === governingPiece ? COLOUR.band : null) });
 }

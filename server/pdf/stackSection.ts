@@ -3,6 +3,7 @@
 import type { Level } from '../../shared/schema/api.ts';
 import type { SnapshotStack } from '../../shared/schema/revisions.ts';
 import { summariseResult } from '../services/analysis.ts';
+import { drawBucklingShapes, SHAPE_MIN_HEIGHT } from './bucklingShape.ts';
 import { drawElevation } from './elevation.ts';
 import { governingShort, metres, ratio, liftName } from './format.ts';
 import { COLOUR, CONTENT_BOTTOM, FONT, FULL_WIDTH, MARGIN, SIZE, utilisationColour } from './layout.ts';
@@ -55,6 +56,11 @@ export function drawStackSection(doc: Pdf, stack: SnapshotStack, levels: Level[]
     governingShort[l.governing],
   ]);
   drawTable(doc, MARGIN.left + ELEVATION_WIDTH + 10, LIFT_COLUMNS, rows);
+  const critical = stack.results.criticalBuckling;
+  const room = top + 10 + height - (doc.y + 16);
+  if (critical && room >= SHAPE_MIN_HEIGHT) {
+    drawBucklingShapes(doc, critical, { x: MARGIN.left + ELEVATION_WIDTH + 10, y: doc.y + 16, width: FULL_WIDTH - ELEVATION_WIDTH - 10, height: Math.min(room, 320) });
+  }
 
   doc.addPage();
   doc.y = MARGIN.top;

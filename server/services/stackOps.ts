@@ -32,8 +32,10 @@ export async function commitDoc(
   row: StackRow,
   change: { doc: StackDocument; ops: Op[]; touched: Set<string>; userId: number | null; action: string },
   inputs: AnalysisInputs,
+  /** Results worked out beforehand (on the worker thread) for exactly this document and these inputs. */
+  precomputed?: StackResult,
 ): Promise<CommittedChange> {
-  const results = analyse(change.doc, inputs);
+  const results = precomputed ?? analyse(change.doc, inputs);
   const version = row.version + 1;
   const updated = await trx('stacks')
     .where({ id: row.id, version: row.version })

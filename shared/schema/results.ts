@@ -10,6 +10,8 @@ export const analysisOptionsSchema = z
     selfWeight: z.boolean(),
     /** Nominal moments of simple construction and the combined check; absent means on (older stored options). */
     nominalMoments: z.boolean().optional(),
+    /** Where buckling lengths come from; absent means 'factors' (the table of factors per segment). */
+    bucklingLengths: z.enum(['factors', 'critical']).optional(),
   })
   .strict();
 export type AnalysisOptions = z.infer<typeof analysisOptionsSchema>;
@@ -124,6 +126,9 @@ export interface PieceCheck {
   combined?: CombinedCheck;
   /** The axial utilisation above, kept when `combined` raises `utilisation`. */
   axialUtilisation?: number;
+  /** Present when LcrY/LcrZ came from the critical buckling analysis: the tabulated factor beside it. */
+  tableKY?: number;
+  tableKZ?: number;
 }
 
 export interface LiftResult {
@@ -155,12 +160,21 @@ export interface TakeDownRow {
   combination: string;
 }
 
+/** Lowest load factor of the stack about one axis and its buckled shape (critical buckling analysis). */
+export interface CriticalAxis {
+  alphaCr: number;
+  /** Lateral displacement (largest 1) at node elevations (m), bottom to top. */
+  shape?: { elevations: number[]; displacements: number[] };
+}
+
 export interface StackResult {
   errors: Issue[];
   warnings: Issue[];
   lifts: LiftResult[];
   governingLiftId: string | null;
   takeDown: TakeDownRow[];
+  /** With `bucklingLengths: 'critical'`: the lowest load factor per axis on the design forces. */
+  criticalBuckling?: { y: CriticalAxis; z: CriticalAxis };
 }
 
 export type StackStatus = 'passes' | 'fails' | 'errors';

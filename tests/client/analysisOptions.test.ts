@@ -35,3 +35,24 @@ describe('analysis options dialog', () => {
     w.unmount();
   });
 });
+
+describe('buckling lengths option', () => {
+  it('offers tabulated factors (chosen by default) and the critical buckling analysis', async () => {
+    const w = await mountDialog(true);
+    const group = document.querySelector('[data-test="buckling-lengths"]');
+    const labels = [...(group?.querySelectorAll('.q-radio') ?? [])].map((r) => r.textContent?.trim() ?? '');
+    expect(labels).toHaveLength(2);
+    expect(labels[0]).toMatch(/^Tabulated factors/);
+    expect(labels[1]).toMatch(/^Critical buckling analysis/);
+    const checked = [...(group?.querySelectorAll('.q-radio') ?? [])].map((r) => r.getAttribute('aria-checked'));
+    expect(checked).toEqual(['true', 'false']);
+    w.unmount();
+  });
+
+  it('is named in the options summary', async () => {
+    const { optionsSummary } = await import('@/components/building/optionsSummary.ts');
+    const base = { combination: '6.10ab', annex: 'UK', imposedReduction: true, selfWeight: true } as const;
+    expect(optionsSummary(base)).toContain('tabulated buckling-length factors');
+    expect(optionsSummary({ ...base, bucklingLengths: 'critical' })).toContain('buckling lengths from a critical buckling analysis');
+  });
+});

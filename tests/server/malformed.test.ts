@@ -76,6 +76,7 @@ describe('malformed input on every writing route', () => {
       path: () => `/buildings/${ids.building}`,
       cases: () => [
         ['options of the wrong type', { body: { options: { imposedReduction: 'yes' } } }],
+        ['an unknown source of buckling lengths', { body: { options: { bucklingLengths: 'eigen' } } }],
         ['an unknown field', { body: { owner: 1 } }],
         ['a bad id', { path: '/buildings/abc', body: { name: 'x' } }],
         ['an id of 1e308', { path: '/buildings/1e308', body: { name: 'x' } }],

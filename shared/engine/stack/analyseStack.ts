@@ -3,6 +3,7 @@
 import { DEFAULT_ANALYSIS_OPTIONS, type AnalysisOptions, type Issue, type LiftResult, type StackResult } from '../../schema/results.ts';
 import type { StackDocument } from '../../schema/stack.ts';
 import { isEngineError } from '../errors.ts';
+import { withCriticalBuckling } from '../critical/withCriticalBuckling.ts';
 import { applyNominalMoments } from '../simple/applyNominalMoments.ts';
 import { checkLift } from './checkLift.ts';
 import { allLevelElevations, type AnalysisContext } from './context.ts';
@@ -27,6 +28,9 @@ export function analyseStack(doc: StackDocument, options: Partial<AnalysisOption
   }));
   const pieces = stackPieces(model, allLevelElevations(context.levels));
   const { rows, sectionNEd } = takeDown(model.entries, weights, settings, pieces.flat().map((p) => p.from));
+  // Buckling lengths from the elastic critical buckling analysis of the stack, when the building asks for it
+  const critical = settings.bucklingLengths === 'critical' ? withCriticalBuckling(model, pieces, sectionNEd, context.sections) : null;
+  if (critical?.errors.length) return withErrors(critical.errors, warnings);
   const lifts: LiftResult[] = [];
   const checkErrors: Issue[] = [];
   let first = 0;
@@ -34,7 +38,7 @@ export function analyseStack(doc: StackDocument, options: Partial<AnalysisOption
     const NEd = sectionNEd.slice(first, first + pieces[i].length);
     first += pieces[i].length;
     try {
-      lifts.push(checkLift(lift, pieces[i], NEd, settings, context.sections));
+      lifts.push(checkLift(lift, pieces[i], NEd, settings, context.sections, critical?.forLift(i)));
     } catch (error) {
       if (!isEngineError(error)) throw error;
       checkErrors.push({ nodeId: lift.id, message: `Lift ${lift.name}: ${error.message}` });
@@ -49,5 +53,7 @@ export function analyseStack(doc: StackDocument, options: Partial<AnalysisOption
   // The governing lift is the most utilised, the lowest one on a tie (SPEC §5.6)
   let governing: LiftResult | null = null;
   for (const lift of lifts) if (!governing || lift.utilisation > governing.utilisation) governing = lift;
-  return { errors: [], warnings, lifts, governingLiftId: governing?.liftId ?? null, takeDown: rows };
+  const result: StackResult = { errors: [], warnings, lifts, governingLiftId: governing?.liftId ?? null, takeDown: rows };
+  if (critical?.result) critical.finish(result);
+  return result;
 }

@@ -2,6 +2,7 @@
 import type { AnalysisOptions, GoverningMode, LiftResult, PieceCheck } from '../../schema/results.ts';
 import type { SectionDims } from '../../schema/stack.ts';
 import { checkCompression, type CompressionInput } from '../checkCompression.ts';
+import { pieceLengths, type LiftCritical } from '../critical/pieceLengths.ts';
 import type { ModelLift } from './inspectStack.ts';
 import type { PieceSpan } from './stackPieces.ts';
 
@@ -28,22 +29,28 @@ export function checkLift(
   NEdAtBottom: readonly number[],
   options: AnalysisOptions,
   sections?: ReadonlyMap<string, SectionDims>,
+  critical?: LiftCritical,
 ): LiftResult {
   const NEdY = largestInSegment(spans, NEdAtBottom, 'segmentY');
   const NEdZ = largestInSegment(spans, NEdAtBottom, 'segmentZ');
   const pieces: PieceCheck[] = spans.map((span, i) => {
     const { segmentY, segmentZ } = span;
     const NEd = NEdAtBottom[i];
-    const kY = lift.data.kY ?? segmentY.k;
-    const kZ = lift.data.kZ ?? segmentZ.k;
+    // With the critical buckling analysis, lengths from it (docs/critical-buckling.md)
+    const lengths = critical ? pieceLengths(lift, span, NEdY[i], NEdZ[i], critical) : null;
+    const kY = lengths ? lengths.kY : (lift.data.kY ?? segmentY.k);
+    const kZ = lengths ? lengths.kZ : (lift.data.kZ ?? segmentZ.k);
     // Lcr = k·L over the whole segment, which may cross splices (SPEC §5.5)
-    const LcrY = kY * (segmentY.top - segmentY.bottom);
-    const LcrZ = kZ * (segmentZ.top - segmentZ.bottom);
+    const LcrY = lengths ? lengths.LcrY : kY * (segmentY.top - segmentY.bottom);
+    const LcrZ = lengths ? lengths.LcrZ : kZ * (segmentZ.top - segmentZ.bottom);
     const check = checkCompression(memberInput(lift, options, LcrY, LcrZ, Math.max(NEdY[i], NEdZ[i])), { steps: false, extraSections: sections });
     // SPEC §5.6: max(NEd/Nc,Rd, NEd,y/Nb,y,Rd, NEd,z/Nb,z,Rd); the check is in N
     const term = governingTerm((NEd * 1000) / check.NcRd, (NEdY[i] * 1000) / check.NbRdY, (NEdZ[i] * 1000) / check.NbRdZ);
     const { utilisation, governing } = term;
-    return { from: span.from, to: span.to, NEd, NEdY: NEdY[i], NEdZ: NEdZ[i], LcrY, LcrZ, kY, kZ, utilisation, governing, check };
+    const piece: PieceCheck = { from: span.from, to: span.to, NEd, NEdY: NEdY[i], NEdZ: NEdZ[i], LcrY, LcrZ, kY, kZ, utilisation, governing, check };
+    if (lengths?.tableKY !== undefined) piece.tableKY = lengths.tableKY;
+    if (lengths?.tableKZ !== undefined) piece.tableKZ = lengths.tableKZ;
+    return piece;
   });
 
   const worst = pieces.reduce((a, b) => (b.utilisation > a.utilisation ? b : a));

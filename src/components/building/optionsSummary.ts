@@ -9,5 +9,7 @@ export function optionsSummary(o: AnalysisOptions): string {
     o.selfWeight ? 'self-weight included' : 'self-weight left out',
     // Absent means on (options stored before the switch existed).
     o.nominalMoments === false ? 'axial check only' : 'nominal moments of simple construction',
+    // Absent means tabulated factors (options stored before the choice existed).
+    o.bucklingLengths === 'critical' ? 'buckling lengths from a critical buckling analysis' : 'tabulated buckling-length factors',
   ].join(' · ');
 }

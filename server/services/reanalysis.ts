@@ -1,0 +1,48 @@
+// Analysing every stack of a building again under new options. With buckling lengths from the critical
+// buckling analysis that is seconds of CPU for a large building, so it is done on the worker thread
+// before the options are stored; the transaction then uses those results for every stack whose version
+// and analysis inputs did not change meanwhile, and analyses any other stack itself.
+import type { AnalysisOptions, StackResult } from '../../shared/schema/results.ts';
+import type { ServerContext } from '../context.ts';
+import { analysisInputs, type AnalysisInputs } from './analysis.ts';
+import { parseOptions } from './buildings.ts';
+import { parseDoc, type StackRow } from './stackRows.ts';
+
+export interface Precomputed {
+  /** Levels and sections the results were worked out with. */
+  inputsKey: string;
+  byStack: Map<number, { version: number; results: StackResult }>;
+}
+
+export function inputsKey(inputs: AnalysisInputs): string {
+  const options = Object.entries(inputs.options).sort(([a], [b]) => a.localeCompare(b));
+  return JSON.stringify([[...inputs.levels], [...inputs.sections], options]);
+}
+
+/** Worker-thread results under the new options when they ask for the critical buckling analysis; null otherwise. */
+export async function precomputeReanalysis(ctx: ServerContext, buildingId: number, change: Partial<AnalysisOptions> | undefined): Promise<Precomputed | null> {
+  if (change?.bucklingLengths !== 'critical') return null;
+  const row = await ctx.db('buildings').where({ id: buildingId }).first<{ options: string } | undefined>('options');
+  if (!row) return null;
+  const before = parseOptions(row.options);
+  const options = { ...before, ...change };
+  if (JSON.stringify(before) === JSON.stringify(options)) return null;
+  const rows = await ctx.db<StackRow>('stacks').where({ building_id: buildingId }).select('id', 'name', 'version', 'doc');
+  const inputs = { ...(await analysisInputs(ctx.db, buildingId)), options };
+  const analysed = await ctx.offThread.analyseBuilding({
+    stacks: rows.map((r) => ({ id: r.id, name: r.name, doc: parseDoc(r.doc) })),
+    options,
+    levels: inputs.levels,
+    sections: inputs.sections,
+  });
+  const version = new Map(rows.map((r) => [r.id, r.version]));
+  const byStack = new Map(analysed.map((a) => [a.id, { version: version.get(a.id) ?? -1, results: JSON.parse(a.resultJson) as StackResult }]));
+  return { inputsKey: inputsKey(inputs), byStack };
+}
+
+/** The precomputed result for a stack row, if it still holds for it. */
+export function precomputedFor(pre: Precomputed | null, inputs: AnalysisInputs, stack: StackRow): StackResult | undefined {
+  if (!pre || pre.inputsKey !== inputsKey(inputs)) return undefined;
+  const found = pre.byStack.get(stack.id);
+  return found && found.version === stack.version ? found.results : undefined;
+}
