@@ -10,7 +10,6 @@ import {
   openDemoBuilding,
   openStack,
   pickSection,
-  results,
   screenshot,
   useAppAndBrowser,
 } from './harness.ts';

@@ -127,7 +127,7 @@ describe('live channel: edits', () => {
       { stackId, baseVersion: before.version, ops: [{ op: 'explode', id: 'x' }] },
       { stackId, baseVersion: before.version, ops: [{ op: 'updateNode', id: ja.data.doc.nodes[0].id, data: { elevation: 'NaN' } }] },
       { stackId, baseVersion: before.version, ops: [{ op: 'removeNode', id: 'no-such-node' }] },
-      { stackId, baseVersion: before.version, ops: [{ op: 'moveNode', id: ja.data.doc.nodes[0].id, position: { x: 1e309, y: 0 } }] },
+      { stackId, baseVersion: before.version, ops: [{ op: 'moveNode', id: ja.data.doc.nodes[0].id, position: { x: Infinity, y: 0 } }] },
       { stackId, baseVersion: before.version, ops: [{ op: 'addEdge', edge: { id: 'e', source: 'a' } }], extra: true },
     ];
     for (const payload of bad) {

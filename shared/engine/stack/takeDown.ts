@@ -1,7 +1,6 @@
 // Load take-down (SPEC §5.1): load entering at a restraint or the cap acts on all of the column below it;
 // self-weight is permanent load on the column below each point.
 import type { AnalysisOptions, TakeDownRow } from '../../schema/results.ts';
-import type { Category } from '../../schema/stack.ts';
 import { CATEGORIES } from './combinationFactors.ts';
 import { designAxialForce, type AxialState, type CategoryValues, type DesignForce } from './combination.ts';
 import { SAME_ELEVATION_M } from './context.ts';
