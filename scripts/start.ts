@@ -1,5 +1,5 @@
 // npm start: build the client when dist/ is missing or older than its sources, then migrate, seed
-// the demo on an empty database and serve the API and the client on PORT (issue 2).
+// the demo on an empty database and serve the API and the client on PORT.
 import { spawn } from 'node:child_process';
 import { existsSync, readdirSync, statSync } from 'node:fs';
 import { join, resolve } from 'node:path';

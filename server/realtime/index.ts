@@ -1,5 +1,5 @@
-// Socket.IO on the API's HTTP server (issue 6): JWT in the handshake, typed events, rooms per stack
-// and per building. With REDIS_URL (issue 13) rooms are shared by every server process.
+// Socket.IO on the API's HTTP server (docs/live-protocol.md): JWT in the handshake, typed events, rooms per stack
+// and per building. With REDIS_URL (docs/live-protocol.md §Several processes) rooms are shared by every server process.
 import type { Server as HttpServer } from 'node:http';
 import { Server } from 'socket.io';
 import { createAdapter } from '@socket.io/redis-adapter';

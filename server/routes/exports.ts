@@ -1,4 +1,4 @@
-// Downloads (issue 9): results per stack and per building as CSV or XLSX, and the level-loads
+// Downloads (docs/contracts.md §Imports): results per stack and per building as CSV or XLSX, and the level-loads
 // template. Every member of the building may download.
 import type { Response, Router } from 'express';
 import type { ServerContext } from '../context.ts';

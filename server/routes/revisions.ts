@@ -1,4 +1,4 @@
-// Revisions (issue 8): leads freeze; every member reads, downloads the package and compares.
+// Revisions (docs/contracts.md §Revisions): leads freeze; every member reads, downloads the package and compares.
 import type { Request, Router } from 'express';
 import { compareQuerySchema, freezeBodySchema } from '../../shared/schema/revisions.ts';
 import type { ServerContext } from '../context.ts';

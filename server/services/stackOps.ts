@@ -1,4 +1,4 @@
-// The one service that changes a stack document (SPEC §7): the REST PUT and ops routes and the live
+// The one service that changes a stack document (docs/contracts.md §Edits): the REST PUT and ops routes and the live
 // channel all come here. Each change is one transaction: check the base version, apply, analyse,
 // store the new version with its results, its ops and an audit row; broadcast after commit.
 import type { Knex } from 'knex';

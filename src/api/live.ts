@@ -1,4 +1,4 @@
-// The live channel (SPEC §7, shared/schema/socket.ts): a typed Socket.IO client and promise wrappers
+// The live channel (docs/contracts.md §Live events): a typed Socket.IO client and promise wrappers
 // around the acknowledged events, so the store never handles raw ack shapes.
 import { io, type Socket } from 'socket.io-client';
 import type { ClientToServerEvents, ServerToClientEvents, StackJoinAck } from '@shared/schema/socket.ts';

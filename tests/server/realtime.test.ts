@@ -1,4 +1,4 @@
-// Live co-editing over real socket.io-client connections (issue 6, SPEC §7).
+// Live co-editing over real socket.io-client connections (docs/live-protocol.md).
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type { AuthResponse, StackSummary } from '../../shared/schema/api.ts';
 import type { Op } from '../../shared/schema/ops.ts';
