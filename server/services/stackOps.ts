@@ -120,7 +120,7 @@ export function broadcastChange(ctx: ServerContext, c: CommittedChange, by: { us
     });
   } catch (e) {
     // The change is committed; a failed notification must not turn it into an error reply.
-    console.error(`broadcast of stack ${c.stackId} v${c.version} failed`, e);
+    ctx.log.error({ err: e, stackId: c.stackId, version: c.version }, 'broadcast failed');
   }
 }
 
