@@ -40,7 +40,7 @@ describe('results as CSV', () => {
     const r = await download(s, `/stacks/${stacks[0]!.id}/results.csv`, viewer.token);
     expect(r.status).toBe(200);
     expect(r.headers.get('content-type')).toMatch(/^text\/csv/);
-    expect(r.headers.get('content-disposition')).toBe('attachment; filename="A_10-results.csv"');
+    expect(r.headers.get('content-disposition')).toBe('attachment; filename=A_10-results.csv');
     expect(r.bytes.toString('utf8').split('\r\n')[0]).toBe(HEADER);
     const rows = readCsv(r.bytes);
     const stored = await getStack(s, viewer.token, stacks[0]!.id);
