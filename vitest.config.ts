@@ -11,8 +11,8 @@ export default mergeConfig(
           extends: true,
           test: { name: 'server', environment: 'node', include: ['tests/server/**/*.test.ts'], testTimeout: 30_000, hookTimeout: 30_000 },
         },
-        // Issue 13: the same server tests on PostgreSQL and Redis, and the two-process suite; run by
-        // scripts/testScale.ts only when TEST_DATABASE_URL and TEST_REDIS_URL are set.
+        // docs/live-protocol.md §Several processes: the same server tests on PostgreSQL and Redis, and the
+        // two-process suite; run by scripts/testScale.ts only when TEST_DATABASE_URL and TEST_REDIS_URL are set.
         {
           extends: true,
           test: {

@@ -1,8 +1,8 @@
-// Freezing a revision (issue 8): a 40-stack, 30-level building frozen through the API, including the
-// calculation package and the e-mail to the team. Target: under 10 s. Baseline in the same run: the
+// Freezing a revision (docs/contracts.md §Revisions): a 40-stack, 30-level building frozen through the API, including
+// the calculation package and the e-mail to the team. Target: under 10 s. Baseline in the same run: the
 // engine analysing the same 40 stacks once. Run twice: axial loads only, then with beam reactions on
-// two faces of every floor (nominal moments, issue 10), whose package carries the combined-check working
-// for every piece. Demo data, invented.
+// two faces of every floor (nominal moments, docs/analysis-rules.md §Nominal moments), whose package carries the
+// combined-check working for every piece. Demo data, invented.
 import { mkdtempSync, rmSync } from 'node:fs';
 import { loadavg, tmpdir } from 'node:os';
 import { join } from 'node:path';

@@ -1,4 +1,4 @@
-// Live-channel latency (issue 6): edit → stack:changed at every other client in the room, p50/p95 with
+// Live-channel latency (docs/live-protocol.md): edit → stack:changed at every other client in the room, p50/p95 with
 // 20 and 100 clients, and sustained edits per second. The server runs in its own process so client
 // work does not distort it; the baseline is a bare Socket.IO acknowledgement round trip in the same run.
 import { spawn } from 'node:child_process';

@@ -1,5 +1,5 @@
-// Sizing (issue 11): median time to propose sections for one 60-storey stack and for a building of
-// 400 stacks of 40 storeys, against analysing the same building in the same run.
+// Sizing (docs/analysis-rules.md §Sizing): median time to propose sections for one 60-storey stack and for a building
+// of 400 stacks of 40 storeys, against analysing the same building in the same run.
 // Target: the building in under 2 s on one core. Demo data, invented.
 import { analyseBuilding } from '../shared/engine/stack/index.ts';
 import { sizeBuilding, sizeStack } from '../shared/engine/sizing/index.ts';

@@ -1,7 +1,8 @@
 import type { Knex } from 'knex';
 
 export async function up(knex: Knex): Promise<void> {
-  // Frozen revisions (issue 8). Rows are written once; triggers (next migration) refuse UPDATE and DELETE.
+  // Frozen revisions (docs/contracts.md §Revisions). Rows are written once; triggers (next migration) refuse UPDATE
+  // and DELETE.
   await knex.schema.createTable('revisions', (t) => {
     t.increments('id').primary();
     // RESTRICT: a building with issued revisions cannot be deleted out from under them.

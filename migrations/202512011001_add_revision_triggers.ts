@@ -1,6 +1,6 @@
 import type { Knex } from 'knex';
 
-// SPEC §8: a frozen revision can never be changed, by anyone, through any route; the database refuses
+// docs/rights.md: a frozen revision can never be changed, by anyone, through any route; the database refuses
 // it too, so a slip in code (or a hand-typed UPDATE) cannot alter an issued package.
 const isPostgres = (knex: Knex) => ['pg', 'postgres', 'postgresql'].includes(String(knex.client.config.client));
 

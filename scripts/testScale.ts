@@ -1,5 +1,5 @@
-// Issue 13: the scale-out suite (every server test on PostgreSQL + Redis, then two server processes
-// sharing rooms). Runs when TEST_DATABASE_URL and TEST_REDIS_URL are set; says so loudly when not.
+// docs/live-protocol.md §Several processes: the scale-out suite (every server test on PostgreSQL + Redis, then two
+// server processes sharing rooms). Runs when TEST_DATABASE_URL and TEST_REDIS_URL are set; says so loudly when not.
 import { spawnSync } from 'node:child_process';
 
 if (!process.env.TEST_DATABASE_URL || !process.env.TEST_REDIS_URL) {

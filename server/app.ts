@@ -17,7 +17,7 @@ export function createApp(ctx: ServerContext): Express {
   if (ctx.config.trustProxy !== null) app.set('trust proxy', ctx.config.trustProxy);
   // No upgrade-insecure-requests: a team may serve Stanchion over plain HTTP on its own network.
   app.use(helmet({ contentSecurityPolicy: { directives: { upgradeInsecureRequests: null } } }));
-  app.use(pinoHttp({ level: ctx.config.logLevel, redact: ['req.headers.authorization'] }));
+  app.use(pinoHttp({ logger: ctx.log }));
   app.use(express.json({ limit: JSON_BODY_LIMIT }));
 
   // API replies are per user and change with every edit: never cached by browsers or proxies.

@@ -1,4 +1,4 @@
-// Server configuration, read once from the environment with safe defaults (issue 2).
+// Server configuration, read once from the environment with safe defaults.
 import { randomBytes } from 'node:crypto';
 import { chmodSync, existsSync, mkdirSync, readFileSync, writeFileSync } from 'node:fs';
 import { resolve } from 'node:path';
@@ -11,7 +11,7 @@ export interface Config {
   databaseUrl: string | null;
   /** PostgreSQL schema to work in (created when missing); null uses the connection's default. */
   databaseSchema: string | null;
-  /** Redis for Socket.IO's adapter, so several processes share live rooms (issue 13). */
+  /** Redis for Socket.IO's adapter: processes share live rooms (docs/live-protocol.md §Several processes). */
   redisUrl: string | null;
   /** Prefix of every Redis key and channel this deployment uses. */
   redisPrefix: string;

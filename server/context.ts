@@ -1,5 +1,6 @@
 // What every route and service of one server process shares.
 import type { Knex } from 'knex';
+import type { Logger } from 'pino';
 import type { createClient } from 'redis';
 import type { Config } from './config.ts';
 import type { Mailer } from './mail/mailer.ts';
@@ -9,6 +10,8 @@ import type { Broadcaster } from './services/broadcast.ts';
 export interface ServerContext {
   db: Knex;
   config: Config;
+  /** The process's logger: every log line of the server goes through it (pino, JSON lines). */
+  log: Logger;
   mailer: Mailer;
   /** Replaceable: the realtime module swaps in its Socket.IO broadcaster. */
   broadcaster: Broadcaster;

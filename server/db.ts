@@ -1,4 +1,4 @@
-// The database: SQLite file in DATA_DIR by default, PostgreSQL when DATABASE_URL is set (SPEC §3).
+// The database: SQLite file in DATA_DIR by default, PostgreSQL when DATABASE_URL is set.
 import { mkdirSync } from 'node:fs';
 import { resolve } from 'node:path';
 import knex, { type Knex } from 'knex';

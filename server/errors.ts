@@ -1,4 +1,4 @@
-// Known errors of the API: each carries its HTTP status and the code of SPEC §7.
+// Known errors of the API: each carries its HTTP status and the code of docs/contracts.md §Errors.
 import type { ErrorCode } from '../shared/schema/errors.ts';
 
 export class HttpError extends Error {

@@ -2,14 +2,14 @@
 import { startServer } from './server.ts';
 
 const server = await startServer({ seed: true });
-console.log(`Stanchion listening on ${server.url} (database: ${server.ctx.config.databaseUrl ? 'postgres' : 'sqlite'})`);
+server.ctx.log.info(`Stanchion listening on ${server.url} (database: ${server.ctx.config.databaseUrl ? 'postgres' : 'sqlite'})`);
 
 for (const signal of ['SIGINT', 'SIGTERM'] as const) {
   process.once(signal, () => {
     server.close().then(
       () => process.exit(0),
       (e: unknown) => {
-        console.error('Shutdown failed', e);
+        server.ctx.log.error({ err: e }, 'shutdown failed');
         process.exit(1);
       },
     );

@@ -3,7 +3,7 @@
 import { createServer, type Server } from 'node:http';
 import type { AddressInfo } from 'node:net';
 import type { Express } from 'express';
-import { pino } from 'pino';
+import { pino, type Logger } from 'pino';
 import { createClient } from 'redis';
 import { createApp } from './app.ts';
 import { loadConfig, type ConfigOverrides } from './config.ts';
@@ -52,10 +52,11 @@ export async function startServer(opts: StartOptions = {}): Promise<RunningServe
     const { seedDemoIfEmpty } = await import('../seeds/demo.ts');
     await seedDemoIfEmpty(db, config.bcryptRounds);
   }
-  const mailer = await createMailer(config, db);
-  const redis = config.redisUrl ? await connectRedis(config.redisUrl, config.logLevel) : null;
+  const log = pino({ level: config.logLevel, redact: ['req.headers.authorization'] });
+  const mailer = await createMailer(config, db, log.child({ name: 'mail' }));
+  const redis = config.redisUrl ? await connectRedis(config.redisUrl, log.child({ name: 'redis' })) : null;
   const offThread = createOffThread();
-  const ctx: ServerContext = { db, config, mailer, broadcaster: nullBroadcaster, redis, offThread };
+  const ctx: ServerContext = { db, config, log, mailer, broadcaster: nullBroadcaster, redis, offThread };
   const app = createApp(ctx);
   const httpServer = createServer(app);
   const realtime = await attachRealtime(httpServer, ctx);
@@ -81,8 +82,7 @@ export async function startServer(opts: StartOptions = {}): Promise<RunningServe
   return { url: `http://127.0.0.1:${port}`, port, app, httpServer, ctx, realtime, close };
 }
 
-async function connectRedis(url: string, logLevel: string): Promise<RedisClient> {
-  const log = pino({ level: logLevel, name: 'redis' });
+async function connectRedis(url: string, log: Logger): Promise<RedisClient> {
   const client: RedisClient = createClient({ url });
   // Without a listener a dropped connection would end the process; the client reconnects by itself.
   client.on('error', (err: unknown) => log.error({ err }, 'redis connection error'));

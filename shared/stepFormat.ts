@@ -1,6 +1,6 @@
 // How a line of the engine's working reads, on screen and on the calculation sheets alike. Steps come
-// in N and mm (SPEC §6); they read as handbooks and design offices write them: forces in kN, moments in
-// kN·m, areas in cm², section moduli in cm³, second moments in cm⁴, buckling lengths in m, partial
+// in N and mm (docs/analysis-rules.md §Member check); they read as handbooks and design offices write them: forces in
+// kN, moments in kN·m, areas in cm², section moduli in cm³, second moments in cm⁴, buckling lengths in m, partial
 // factors to two places, other figures to about four significant figures.
 import type { CalcStep } from './schema/results.ts';
 

@@ -2,6 +2,7 @@
 // committed: it retries, then records the failure in mail_log.
 import type { Knex } from 'knex';
 import nodemailer from 'nodemailer';
+import type { Logger } from 'pino';
 import type { Config } from '../config.ts';
 import { now } from '../db.ts';
 import { startSmtpFake, type SmtpFake } from './smtpFake.ts';
@@ -24,7 +25,7 @@ export interface Mailer {
 
 export const MAIL_ATTEMPTS = 3;
 
-export async function createMailer(config: Pick<Config, 'smtpUrl' | 'mailFrom'>, db: Knex, retryDelayMs = 200): Promise<Mailer> {
+export async function createMailer(config: Pick<Config, 'smtpUrl' | 'mailFrom'>, db: Knex, log: Logger, retryDelayMs = 200): Promise<Mailer> {
   let fake: SmtpFake | null = null;
   if (!config.smtpUrl) fake = await startSmtpFake(db);
   const transport = config.smtpUrl
@@ -36,14 +37,14 @@ export async function createMailer(config: Pick<Config, 'smtpUrl' | 'mailFrom'>,
     for (let attempt = 1; attempt <= MAIL_ATTEMPTS; attempt++) {
       try {
         await transport.sendMail({ from: config.mailFrom, ...message });
-        await logMail(db, message, 'sent', attempt, null);
+        await logMail(db, log, message, 'sent', attempt, null);
         return true;
       } catch (e) {
         lastError = e instanceof Error ? e.message : String(e);
         if (attempt < MAIL_ATTEMPTS) await sleep(retryDelayMs * 2 ** (attempt - 1));
       }
     }
-    await logMail(db, message, 'failed', MAIL_ATTEMPTS, lastError);
+    await logMail(db, log, message, 'failed', MAIL_ATTEMPTS, lastError);
     return false;
   }
 
@@ -57,12 +58,12 @@ export async function createMailer(config: Pick<Config, 'smtpUrl' | 'mailFrom'>,
   };
 }
 
-async function logMail(db: Knex, m: MailMessage, status: 'sent' | 'failed', attempts: number, error: string | null): Promise<void> {
+async function logMail(db: Knex, log: Logger, m: MailMessage, status: 'sent' | 'failed', attempts: number, error: string | null): Promise<void> {
   try {
     await db('mail_log').insert({ to: m.to, subject: m.subject, status, attempts, error, created_at: now() });
   } catch (e) {
-    // The database may be closing during shutdown; the mail outcome is still reported to stderr.
-    console.error(`mail_log insert failed (${status} to ${m.to}):`, e);
+    // The database may be closing during shutdown; the mail outcome is still reported in the log.
+    log.error({ err: e, to: m.to, status }, 'mail_log insert failed');
   }
 }
 

@@ -1,8 +1,7 @@
 // Wording of the e-mails the product sends.
+import escapeHtml from 'escape-html';
 import type { Role } from '../../shared/schema/api.ts';
 import type { MailMessage } from './mailer.ts';
-
-const escapeHtml = (s: string) => s.replace(/[&<>"']/g, (c) => `&#${c.charCodeAt(0)};`);
 
 export function invitationMessage(p: { to: string; buildingName: string; inviterName: string; role: Role }): MailMessage {
   const text =

@@ -1,4 +1,4 @@
-// Building-scoped rights (SPEC §8). Policy, applied on every route:
+// Building-scoped rights (docs/rights.md). Policy, applied on every route:
 // - a non-member gets 404 for the building and everything in it, so existence does not leak;
 // - a site admin who is not a member may read (as if a viewer) but may not write: 403;
 // - a member with too low a role gets 403.

@@ -14,7 +14,7 @@ export interface BuildingAccess {
 }
 
 declare global {
-  // eslint-disable-next-line @typescript-eslint/no-namespace
+  // eslint-disable-next-line @typescript-eslint/no-namespace -- Express types its Request through this global namespace
   namespace Express {
     interface Request {
       user?: User;

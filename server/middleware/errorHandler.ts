@@ -1,4 +1,4 @@
-// The single error handler, registered last: every failure leaves in the shape of SPEC §7.
+// The single error handler, registered last: every failure leaves in the shape of docs/contracts.md §Errors.
 import type { ErrorRequestHandler } from 'express';
 import { ZodError } from 'zod';
 import type { ApiErrorBody, ErrorCode } from '../../shared/schema/errors.ts';

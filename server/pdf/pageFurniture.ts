@@ -1,5 +1,5 @@
 // What every page carries: a running header (building, revision, section) and a footer with the
-// safety note of SPEC §9 and "page n of N". Drawn after the content, over the buffered pages.
+// safety note of README §Safety and "page n of N". Drawn after the content, over the buffered pages.
 import type { RevisionSnapshot } from '../../shared/schema/revisions.ts';
 import { SAFETY_NOTE } from '../../shared/safety.ts';
 import { COLOUR, FONT, MARGIN, PAGE, SIZE } from './layout.ts';

@@ -1,4 +1,5 @@
-// Turns anything a live-channel handler throws into the error shape of SPEC §7, as an acknowledgement.
+// Turns anything a live-channel handler throws into the error shape of docs/contracts.md §Errors, as an
+// acknowledgement.
 import { ZodError } from 'zod';
 import type { Logger } from 'pino';
 import type { ApiErrorBody } from '../../shared/schema/errors.ts';

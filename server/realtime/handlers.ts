@@ -1,4 +1,4 @@
-// Live-channel events (SPEC §7, issue 6). Every payload is parsed with zod and every event checks the
+// Live-channel events (docs/live-protocol.md). Every payload is parsed with zod and every event checks the
 // caller's role on the stack's building, exactly as the REST routes do.
 import type { ZodType } from 'zod';
 import type { Logger } from 'pino';

@@ -1,10 +1,10 @@
-// Socket.IO on the API's HTTP server (issue 6): JWT in the handshake, typed events, rooms per stack
-// and per building. With REDIS_URL (issue 13) rooms are shared by every server process.
+// Socket.IO on the API's HTTP server (docs/live-protocol.md): JWT in the handshake, typed events, rooms per stack
+// and per building. With REDIS_URL (docs/live-protocol.md §Several processes) rooms are shared by every server process.
 import type { Server as HttpServer } from 'node:http';
 import { Server } from 'socket.io';
 import { createAdapter } from '@socket.io/redis-adapter';
 import { createClient } from 'redis';
-import { pino, type Logger } from 'pino';
+import type { Logger } from 'pino';
 import type { ServerContext } from '../context.ts';
 import { HttpError } from '../errors.ts';
 import { verifyToken } from '../services/tokens.ts';
@@ -32,7 +32,7 @@ async function useRedis(io: LiveServer, url: string, prefix: string, log: Logger
 }
 
 export async function attachRealtime(httpServer: HttpServer, ctx: ServerContext): Promise<Realtime> {
-  const log = pino({ level: ctx.config.logLevel, name: 'live' });
+  const log = ctx.log.child({ name: 'live' });
   const io: LiveServer = new Server(httpServer, {
     serveClient: false,
     maxHttpBufferSize: 1e6,

@@ -9,7 +9,7 @@ export interface SocketData {
   selections: Record<number, string[]>;
 }
 
-// eslint-disable-next-line @typescript-eslint/no-empty-object-type
-export type InterServerEvents = {};
+/** The processes send each other no events of their own (the Redis adapter carries the rooms). */
+export type InterServerEvents = Record<string, never>;
 export type LiveServer = Server<ClientToServerEvents, ServerToClientEvents, InterServerEvents, SocketData>;
 export type LiveSocket = Socket<ClientToServerEvents, ServerToClientEvents, InterServerEvents, SocketData>;

@@ -1,4 +1,4 @@
-// Accounts: register, sign in, who am I (issue 2).
+// Accounts: register, sign in, who am I.
 import type { Router } from 'express';
 import { rateLimit } from 'express-rate-limit';
 import { RedisStore } from 'rate-limit-redis';

@@ -1,4 +1,4 @@
-// Buildings and their members (issue 5). Parse, call a service, respond.
+// Buildings and their members. Parse, call a service, respond.
 import type { Router } from 'express';
 import { z } from 'zod';
 import { addMemberBodySchema, createBuildingBodySchema, emailSchema, idParamSchema, updateBuildingBodySchema, updateMemberBodySchema } from '../../shared/schema/api.ts';

@@ -17,8 +17,6 @@ export function registerDevRoutes(router: Router, ctx: ServerContext): void {
   });
   router.get('/dev/outbox/:id/attachments/:n', devOnly, auth, requireAdmin, async (req, res) => {
     const a = await getOutboxAttachment(ctx.db, idParam(req), Number(req.params.n));
-    res.setHeader('Content-Type', a.contentType);
-    res.setHeader('Content-Disposition', `attachment; filename="${a.filename.replace(/["\\\r\n]/g, '_')}"`);
-    res.send(a.content);
+    res.attachment(a.filename).type(a.contentType).send(a.content);
   });
 }

@@ -1,4 +1,4 @@
-// Downloads (issue 9): results per stack and per building as CSV or XLSX, and the level-loads
+// Downloads (docs/contracts.md §Imports): results per stack and per building as CSV or XLSX, and the level-loads
 // template. Every member of the building may download.
 import type { Response, Router } from 'express';
 import type { ServerContext } from '../context.ts';
@@ -12,15 +12,13 @@ import { loadsTemplateCsv } from '../services/exportsTemplate.ts';
 const XLSX_TYPE = 'application/vnd.openxmlformats-officedocument.spreadsheetml.sheet';
 
 function sendCsv(res: Response, fileName: string, text: string): void {
-  res.setHeader('Content-Disposition', `attachment; filename="${fileName}"`);
-  res.type('text/csv; charset=utf-8').send(text);
+  res.attachment(fileName).type('text/csv; charset=utf-8').send(text);
 }
 
 async function sendResults(res: Response, format: 'csv' | 'xlsx', table: { name: string; rows: ResultRow[] }): Promise<void> {
   const fileName = `${safeFileName(table.name)}-results.${format}`;
   if (format === 'csv') return sendCsv(res, fileName, toCsv(RESULT_COLUMNS, table.rows));
-  res.setHeader('Content-Disposition', `attachment; filename="${fileName}"`);
-  res.type(XLSX_TYPE).send(await toXlsx(table.name, RESULT_COLUMNS, table.rows, RESULTS_NOTE));
+  res.attachment(fileName).type(XLSX_TYPE).send(await toXlsx(table.name, RESULT_COLUMNS, table.rows, RESULTS_NOTE));
 }
 
 export function registerExportRoutes(router: Router, ctx: ServerContext): void {

@@ -1,4 +1,4 @@
-// Uploads of level loads and company sections (issue 9): engineers preview and apply; members read
+// Uploads of level loads and company sections (docs/contracts.md §Imports): engineers preview and apply; members read
 // the building's own sections. Files arrive as multipart field "file", at most MAX_IMPORT_BYTES.
 import type { NextFunction, Request, RequestHandler, Response, Router } from 'express';
 import multer from 'multer';

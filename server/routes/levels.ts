@@ -1,4 +1,4 @@
-// Levels of a building (issue 5): engineers and leads edit, every member reads.
+// Levels of a building: engineers and leads edit, every member reads.
 import type { Router } from 'express';
 import { createLevelBodySchema, updateLevelBodySchema } from '../../shared/schema/api.ts';
 import type { ServerContext } from '../context.ts';

@@ -1,4 +1,4 @@
-// Revisions (issue 8): leads freeze; every member reads, downloads the package and compares.
+// Revisions (docs/contracts.md §Revisions): leads freeze; every member reads, downloads the package and compares.
 import type { Request, Router } from 'express';
 import { compareQuerySchema, freezeBodySchema } from '../../shared/schema/revisions.ts';
 import type { ServerContext } from '../context.ts';
@@ -44,9 +44,7 @@ export function registerRevisionRoutes(router: Router, ctx: ServerContext): void
   router.get('/revisions/:id/calc.pdf', auth, revisionViewer, async (req, res) => {
     const { snapshot, hash } = await loadSnapshot(ctx.db, idParam(req));
     const pdf = await ctx.offThread.renderPackage(snapshot, hash);
-    res.setHeader('Content-Type', 'application/pdf');
-    res.setHeader('Content-Disposition', `attachment; filename="${packageFilename(snapshot)}"`);
-    res.send(pdf);
+    res.attachment(packageFilename(snapshot)).type('application/pdf').send(pdf);
   });
   router.post('/revisions/:id/resend', auth, revisionLead, async (req, res) => {
     const id = idParam(req);

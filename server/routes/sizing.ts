@@ -1,5 +1,5 @@
-// Sizing previews (issue 11): engineers and leads ask for the lightest passing sections of a stack
-// or of a whole building. Nothing is stored.
+// Sizing previews (docs/analysis-rules.md §Sizing): engineers and leads ask for the lightest passing sections of a
+// stack or of a whole building. Nothing is stored.
 import type { Router } from 'express';
 import { sizingRequestSchema } from '../../shared/schema/sizing.ts';
 import type { ServerContext } from '../context.ts';

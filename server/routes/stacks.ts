@@ -1,4 +1,4 @@
-// Stacks (issue 5): members read; engineers create and edit; leads delete.
+// Stacks: members read; engineers create and edit; leads delete.
 import type { Router } from 'express';
 import { z } from 'zod';
 import { applyOpsBodySchema, createStackBodySchema, patchStackBodySchema, putStackBodySchema } from '../../shared/schema/api.ts';

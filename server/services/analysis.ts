@@ -11,7 +11,7 @@ export interface AnalysisInputs {
   options: AnalysisOptions;
   /** levelId (as a string) → elevation, m */
   levels: Map<string, number>;
-  /** The building's own sections by designation (issue 9). */
+  /** The building's own sections by designation (docs/contracts.md §Imports). */
   sections: Map<string, SectionDims>;
 }
 

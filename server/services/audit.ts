@@ -1,4 +1,4 @@
-// One audit row for every write: who, when, what, which version (issue 5).
+// One audit row for every write: who, when, what, which version.
 import type { Knex } from 'knex';
 import { now } from '../db.ts';
 

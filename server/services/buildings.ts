@@ -1,4 +1,4 @@
-// Buildings: the job a team works on, with its analysis options (issue 5).
+// Buildings: the job a team works on, with its analysis options.
 import type { Knex } from 'knex';
 import type { Building, BuildingSummary, Role, User } from '../../shared/schema/api.ts';
 import { analysisOptionsSchema, DEFAULT_ANALYSIS_OPTIONS, type AnalysisOptions } from '../../shared/schema/results.ts';

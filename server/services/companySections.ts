@@ -1,5 +1,5 @@
-// A building's own sections (issue 9): stored by designation with their dimensions, listed beside the
-// catalogue in the section pickers and handed to the engine with every analysis of the building.
+// A building's own sections (docs/contracts.md §Imports): stored by designation with their dimensions, listed beside
+// the catalogue in the section pickers and handed to the engine with every analysis of the building.
 import type { Knex } from 'knex';
 import { designationKey } from '../../shared/catalogue/index.ts';
 import { sectionProperties } from '../../shared/engine/sectionProperties.ts';

@@ -1,10 +1,10 @@
-// Results as rows for download (issue 9): one row per lift, its governing piece's figures in kN and m,
-// read from the stored results of each stack's current version (never recomputed here).
+// Results as rows for download (docs/contracts.md §Imports): one row per lift, its governing piece's figures in kN
+// and m, read from the stored results of each stack's current version (never recomputed here).
 import type { Knex } from 'knex';
 import type { LiftResult, PieceCheck } from '../../shared/schema/results.ts';
 import { loadStackRow, parseResults, type StackRow } from './stackRows.ts';
 
-/** SPEC §9: every copy of the results carries this. */
+/** README §Safety: every copy of the results carries this. */
 export { SAFETY_NOTE as RESULTS_NOTE } from '../../shared/safety.ts';
 
 /** Header of each column, with its unit. */

@@ -1,4 +1,4 @@
-// The level-loads template (issue 9): one row per stack and level that has exactly one restraint or
+// The level-loads template (docs/contracts.md §Imports): one row per stack and level that has exactly one restraint or
 // cap there, filled with the loads it carries now, so a download re-imports unchanged.
 import type { Knex } from 'knex';
 import { LOAD_COLUMNS } from '../../shared/schema/imports.ts';

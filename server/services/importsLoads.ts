@@ -1,4 +1,4 @@
-// Level loads from a CSV file (issue 9): every row checked against the building, a preview of what
+// Level loads from a CSV file (docs/contracts.md §Imports): every row checked against the building, a preview of what
 // would change, and an apply that writes every stack in one transaction or nothing.
 import type { Knex } from 'knex';
 import type { User } from '../../shared/schema/api.ts';

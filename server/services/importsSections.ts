@@ -1,5 +1,5 @@
-// Company sections from a CSV file (issue 9): checked like the level loads, previewed, then written in
-// one transaction; stacks whose lifts use a changed section are re-analysed in the same transaction.
+// Company sections from a CSV file (docs/contracts.md §Imports): checked like the level loads, previewed, then
+// written in one transaction; stacks whose lifts use a changed section are re-analysed in the same transaction.
 import type { Knex } from 'knex';
 import { designationKey, findSection } from '../../shared/catalogue/index.ts';
 import { isEngineError } from '../../shared/engine/errors.ts';

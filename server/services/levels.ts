@@ -1,4 +1,4 @@
-// Levels of a building (issue 5). Moving a level moves every restraint, cap and support that sits on it and
+// Levels of a building. Moving a level moves every restraint, cap and support that sits on it and
 // re-analyses those stacks in the same transaction.
 import type { Knex } from 'knex';
 import type { Level, User } from '../../shared/schema/api.ts';

@@ -1,5 +1,5 @@
 // Building membership: the lead adds people by e-mail; unknown addresses get an invitation that
-// becomes a membership when the account is registered (issue 5).
+// becomes a membership when the account is registered.
 import type { Knex } from 'knex';
 import { ROLE_RANK, type Member, type Role, type User } from '../../shared/schema/api.ts';
 import { conflict, notFound, unprocessable } from '../errors.ts';

@@ -1,4 +1,4 @@
-// Freezing and reading revisions (issue 8). One transaction snapshots the building; the rows are
+// Freezing and reading revisions (docs/contracts.md §Revisions). One transaction snapshots the building; the rows are
 // never changed afterwards (database triggers refuse it). Mail goes out after commit (revisionsMail.ts).
 import type { Knex } from 'knex';
 import type { User } from '../../shared/schema/api.ts';

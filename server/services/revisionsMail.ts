@@ -1,13 +1,12 @@
 // Telling the team about a revision: one e-mail per member with a link and the calculation package
 // attached. Runs after the freeze has committed, so a mail failure never loses the revision; every
 // recipient's outcome is recorded and a lead can send again to those that failed.
+import escapeHtml from 'escape-html';
 import type { Knex } from 'knex';
 import type { RevisionSnapshot } from '../../shared/schema/revisions.ts';
 import type { ServerContext } from '../context.ts';
 import type { MailMessage } from '../mail/mailer.ts';
 import { recipientRows, recordDelivery } from './revisionsRecipients.ts';
-
-const escapeHtml = (s: string) => s.replace(/[&<>"']/g, (c) => `&#${c.charCodeAt(0)};`);
 
 export const packageFilename = (s: Pick<RevisionSnapshot, 'building' | 'code'>) =>
   `${(s.building.reference || s.building.name).replace(/[^A-Za-z0-9._-]+/g, '-')}-${s.code}-calculations.pdf`;

@@ -1,4 +1,4 @@
-// Sizing previews (issue 11): the engine's proposal for a stored stack or for every stack of a
+// Sizing previews (docs/analysis-rules.md §Sizing): the engine's proposal for a stored stack or for every stack of a
 // building, with the building's analysis options and levels. Nothing is stored; accepting goes
 // through the ordinary edit path (ops), from the client.
 import type { Knex } from 'knex';

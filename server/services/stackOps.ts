@@ -1,4 +1,4 @@
-// The one service that changes a stack document (SPEC §7): the REST PUT and ops routes and the live
+// The one service that changes a stack document (docs/contracts.md §Edits): the REST PUT and ops routes and the live
 // channel all come here. Each change is one transaction: check the base version, apply, analyse,
 // store the new version with its results, its ops and an audit row; broadcast after commit.
 import type { Knex } from 'knex';
@@ -122,7 +122,7 @@ export function broadcastChange(ctx: ServerContext, c: CommittedChange, by: { us
     });
   } catch (e) {
     // The change is committed; a failed notification must not turn it into an error reply.
-    console.error(`broadcast of stack ${c.stackId} v${c.version} failed`, e);
+    ctx.log.error({ err: e, stackId: c.stackId, version: c.version }, 'broadcast failed');
   }
 }
 

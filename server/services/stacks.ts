@@ -1,5 +1,5 @@
 // Stacks of a building: list, read, create (empty, from a document or from a template), rename,
-// delete (issue 5). Edits to the document go through stackOps.ts.
+// delete. Edits to the document go through stackOps.ts.
 import type { Knex } from 'knex';
 import type { StackDetail, StackSummary, StackTemplate, User } from '../../shared/schema/api.ts';
 import type { StackDocument } from '../../shared/schema/stack.ts';

@@ -1,4 +1,4 @@
-// Session tokens: signed JWTs that expire after 12 hours (issue 2).
+// Session tokens: signed JWTs that expire after 12 hours.
 import jwt from 'jsonwebtoken';
 import { z } from 'zod';
 import { unauthenticated } from '../errors.ts';

@@ -1,4 +1,4 @@
-// Accounts: registration, sign-in and look-up (issue 2). Passwords are bcrypt hashes.
+// Accounts: registration, sign-in and look-up. Passwords are bcrypt hashes.
 import bcrypt from 'bcryptjs';
 import type { Knex } from 'knex';
 import type { User } from '../../shared/schema/api.ts';

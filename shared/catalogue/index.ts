@@ -1,4 +1,4 @@
-// The section catalogue: standard rolled and hollow sections by designation (SPEC §6).
+// The section catalogue: standard rolled and hollow sections by designation (docs/analysis-rules.md §Member check).
 import { EngineError } from '../engine/errors.ts';
 import { validateDims } from '../engine/validateDims.ts';
 import type { SectionDims } from '../schema/stack.ts';

@@ -5,7 +5,7 @@ import { validateDims } from './validateDims.ts';
 
 export type { SectionProperties };
 
-/** Gross section properties from dimensions, including root or corner radii (SPEC §6). */
+/** Gross section properties from dimensions, including root or corner radii (docs/analysis-rules.md §Member check). */
 export function sectionProperties(dims: SectionDims): SectionProperties {
   const valid = validateDims(dims);
   if (valid.shape === 'I') return iSectionProperties(valid);

@@ -1,4 +1,4 @@
-// Applying edit operations to a stack document (SPEC §7). Pure: the server applies committed edits
+// Applying edit operations to a stack document (docs/contracts.md §Edits). Pure: the server applies committed edits
 // with it and the client applies its own edits optimistically with the same code.
 import type { Op } from '../schema/ops.ts';
 import { nodeDataSchemas, stackNodeSchema, type StackDocument, type StackEdge, type StackNode } from '../schema/stack.ts';

@@ -1,4 +1,4 @@
-// A stack document from a template (issue 5): the server creates stacks with it and the client may
+// A stack document from a template: the server creates stacks with it and the client may
 // preview with it. Pure.
 import type { Level, StackTemplate } from '../schema/api.ts';
 import type { StackDocument, StackEdge, StackNode } from '../schema/stack.ts';

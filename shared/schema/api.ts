@@ -1,4 +1,5 @@
-// Request and response bodies of the REST API (SPEC §7). Both ends use these; nothing is redeclared.
+// Request and response bodies of the REST API (docs/contracts.md §REST routes). Both ends use these; nothing is
+// redeclared.
 import { z } from 'zod';
 import { stackDocumentSchema, gradeSchema, fixitySchema, sectionDimsSchema, MAX_ELEVATION_M } from './stack.ts';
 import { opsSchema } from './ops.ts';

@@ -1,4 +1,4 @@
-// The one error shape of the API and the live channel (SPEC §7).
+// The one error shape of the API and the live channel (docs/contracts.md §Errors).
 import { z } from 'zod';
 
 export const errorCodeSchema = z.enum([

@@ -1,4 +1,5 @@
-// Imports and exports (issue 9): CSV columns, previews, problems and apply bodies. Both ends use these.
+// Imports and exports (docs/contracts.md §Imports): CSV columns, previews, problems and apply bodies. Both ends use
+// these.
 import { z } from 'zod';
 import { categorySchema, sectionDimsSchema } from './stack.ts';
 

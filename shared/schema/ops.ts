@@ -1,4 +1,4 @@
-// Edit operations on a stack document (SPEC §7). Shared by the REST write and the live channel.
+// Edit operations on a stack document (docs/contracts.md §Edits). Shared by the REST write and the live channel.
 import { z } from 'zod';
 import { nodeIdSchema, stackEdgeSchema, stackNodeSchema } from './stack.ts';
 

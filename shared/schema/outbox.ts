@@ -1,4 +1,4 @@
-// The development mail catcher (SPEC §3): one message captured by the local SMTP fake, as
+// The development mail catcher: one message captured by the local SMTP fake, as
 // GET /api/dev/outbox returns it. Attachments are listed by name and size; their content is fetched
 // one at a time from /api/dev/outbox/:id/attachments/:n.
 import { z } from 'zod';

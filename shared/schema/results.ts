@@ -1,5 +1,6 @@
-// Result shapes produced by the engine (SPEC §5, §6) and carried by the API, the live channel and the
-// calculation package. They are computed by our own code, so they are plain types, not zod schemas.
+// Result shapes produced by the engine (docs/contracts.md §Analysis options and results) and carried by the API, the
+// live channel and the calculation package. They are computed by our own code, so they are plain types, not zod
+// schemas.
 import { z } from 'zod';
 
 export const analysisOptionsSchema = z
@@ -26,7 +27,7 @@ export const DEFAULT_ANALYSIS_OPTIONS: AnalysisOptions = {
 
 export type BucklingCurve = 'a0' | 'a' | 'b' | 'c' | 'd';
 export type SectionClass = 1 | 2 | 3 | 4;
-/** Terms of the axial check (SPEC §5.6). */
+/** Terms of the axial check (docs/analysis-rules.md §Pieces). */
 export type AxialMode = 'cross-section' | 'flexural-y' | 'flexural-z';
 /** 'combined': the simple-construction interaction with nominal moments governs. */
 export type GoverningMode = AxialMode | 'combined';
@@ -41,7 +42,7 @@ export interface CalcStep {
   description?: string;
 }
 
-/** checkCompression result: N, mm, N/mm² (SPEC §6). */
+/** checkCompression result: N, mm, N/mm² (docs/analysis-rules.md §Member check). */
 export interface CompressionResult {
   fy: number;
   epsilon: number;
@@ -115,7 +116,7 @@ export interface PieceCheck {
   LcrZ: number;
   kY: number;
   kZ: number;
-  /** max(NEd/Nc,Rd, NEd,y/Nb,y,Rd, NEd,z/Nb,z,Rd) (SPEC §5.6). */
+  /** max(NEd/Nc,Rd, NEd,y/Nb,y,Rd, NEd,z/Nb,z,Rd) (docs/analysis-rules.md §Pieces). */
   utilisation: number;
   /** The term of `utilisation` that is largest. */
   governing: GoverningMode;

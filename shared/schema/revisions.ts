@@ -1,4 +1,4 @@
-// Frozen revisions (issue 8): the freeze body, the immutable snapshot, the API replies and the
+// Frozen revisions (docs/contracts.md §Revisions): the freeze body, the immutable snapshot, the API replies and the
 // comparison of two states of a building. Both ends use these; nothing is redeclared.
 import { z } from 'zod';
 import type { Level } from './api.ts';

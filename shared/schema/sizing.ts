@@ -1,5 +1,5 @@
-// Sizing (issue 11): the request for a proposal of the lightest passing sections, and the preview the
-// engine returns. Nothing here is stored; accepting a proposal sends ordinary updateNode ops.
+// Sizing (docs/analysis-rules.md §Sizing): the request for a proposal of the lightest passing sections, and the
+// preview the engine returns. Nothing here is stored; accepting a proposal sends ordinary updateNode ops.
 import { z } from 'zod';
 import { SERIES } from '../catalogue/types.ts';
 import type { Issue } from './results.ts';

@@ -1,4 +1,4 @@
-// Live channel events (SPEC §7): payload schemas and the typed Socket.IO event maps.
+// Live channel events (docs/live-protocol.md): payload schemas and the typed Socket.IO event maps.
 import { z } from 'zod';
 import { opsSchema, type Op } from './ops.ts';
 import type { StackDocument } from './stack.ts';

@@ -1,4 +1,4 @@
-// The stack document (SPEC §4): the contract between the editor, the server and the engine.
+// The stack document (docs/contracts.md §Stack document): the contract between the editor, the server and the engine.
 // Units: metres and kilonewtons. Positions are for drawing only; the analysis never reads them.
 import { z } from 'zod';
 
@@ -26,7 +26,7 @@ export const sectionDimsSchema = z.discriminatedUnion('shape', [
 const sectionRef = z.union([z.string().trim().min(1).max(80), sectionDimsSchema]);
 const kFactor = finite.positive().max(10);
 
-/** A building level a node sits on (SPEC §4): its elevation then follows the level's. */
+/** A building level a node sits on (docs/contracts.md §Stack document): its elevation then follows the level's. */
 const levelId = z.string().min(1).max(64).optional();
 export const supportDataSchema = z.object({ elevation, levelId, fixity: fixitySchema }).strict();
 export const liftDataSchema = z
@@ -100,7 +100,7 @@ export type StackDocument = z.infer<typeof stackDocumentSchema>;
 export type NodeKind = StackNode['kind'];
 export type NodeOf<K extends NodeKind> = Extract<StackNode, { kind: K }>;
 
-/** Schema of each kind's data, for validating a partial update (SPEC §7 updateNode). */
+/** Schema of each kind's data, for validating a partial update (docs/contracts.md §Edits, updateNode). */
 export const nodeDataSchemas = {
   support: supportDataSchema,
   lift: liftDataSchema,

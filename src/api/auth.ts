@@ -1,4 +1,4 @@
-// Sign-in, registration and the current user (SPEC §7).
+// Sign-in, registration and the current user (docs/contracts.md §REST routes).
 import type { z } from 'zod';
 import type { AuthResponse, User, loginBodySchema, registerBodySchema } from '@shared/schema/api.ts';
 import { apiFetch } from './http.ts';

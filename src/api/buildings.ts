@@ -1,4 +1,4 @@
-// Buildings, their members and their levels (SPEC §7).
+// Buildings, their members and their levels (docs/contracts.md §REST routes).
 import type { z } from 'zod';
 import type {
   Building,

@@ -1,5 +1,7 @@
 // Files the API sends (PDF packages, CSV/XLSX results, captured attachments): fetched with the
 // session's token, refused in the API's error shape, and saved the way a browser saves a download.
+import { parse } from 'content-disposition';
+import { exportFile } from 'quasar';
 import { apiErrorSchema } from '@shared/schema/errors.ts';
 import { ApiError, getToken } from './http.ts';
 
@@ -23,20 +25,18 @@ export async function fetchFile(path: string): Promise<DownloadedFile> {
     if (body.success) throw new ApiError(res.status, body.data.error.code, body.data.error.message);
     throw new ApiError(res.status, res.status === 404 ? 'not_found' : 'internal', `Download failed (${res.status})`);
   }
-  const filename = /filename="([^"]+)"/.exec(res.headers.get('Content-Disposition') ?? '')?.[1] ?? null;
-  return { blob: await res.blob(), filename };
+  return { blob: await res.blob(), filename: dispositionFilename(res.headers.get('Content-Disposition') ?? '') };
 }
 
-/** Where a browser saves a downloaded file: an object URL on a temporary link. */
+/** The file name a Content-Disposition header gives (RFC 6266, with filename* decoded), or null. */
+export function dispositionFilename(header: string): string | null {
+  return header ? (parse(header).parameters.filename ?? null) : null;
+}
+
+/** Saves a downloaded file the way the browser saves downloads (Quasar's exportFile). */
 export function saveBlob(blob: Blob, filename: string): void {
-  const url = URL.createObjectURL(blob);
-  const a = document.createElement('a');
-  a.href = url;
-  a.download = filename;
-  document.body.appendChild(a);
-  a.click();
-  a.remove();
-  setTimeout(() => URL.revokeObjectURL(url), 0);
+  const saved = exportFile(filename, blob);
+  if (saved !== true) throw saved;
 }
 
 /** Fetches a file and saves it under the server's name, or the fallback name. */

@@ -1,4 +1,4 @@
-// The one way the client talks to the REST API: JSON in, JSON out, errors in the shape of SPEC §7.
+// The one way the client talks to the REST API: JSON in, JSON out, errors in the shape of docs/contracts.md §Errors.
 import type { ApiErrorBody, ErrorCode } from '@shared/schema/errors.ts';
 
 const TOKEN_KEY = 'stanchion.token';

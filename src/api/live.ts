@@ -1,4 +1,4 @@
-// The live channel (SPEC §7, shared/schema/socket.ts): a typed Socket.IO client and promise wrappers
+// The live channel (docs/contracts.md §Live events): a typed Socket.IO client and promise wrappers
 // around the acknowledged events, so the store never handles raw ack shapes.
 import { io, type Socket } from 'socket.io-client';
 import type { ClientToServerEvents, ServerToClientEvents, StackJoinAck } from '@shared/schema/socket.ts';
@@ -28,26 +28,25 @@ export function connectLive(token: string, url?: string): LiveSocket {
 
 type AckResult<T> = { ok: true; data: T } | { ok: false; error: { code: ErrorCode; message: string } };
 
-function settle<T>(resolve: (v: T) => void, reject: (e: LiveError) => void) {
-  let done = false;
-  const timer = setTimeout(() => {
-    done = true;
-    reject(new LiveError('timeout', 'The server did not answer in time'));
-  }, ACK_TIMEOUT_MS);
-  return (res: AckResult<T>) => {
-    if (done) return;
-    clearTimeout(timer);
-    if (res.ok) resolve(res.data);
-    else reject(new LiveError(res.error.code, res.error.message));
-  };
+/** The data of an acknowledgement, or its error as a LiveError; Socket.IO's own timeout rejects a late answer. */
+async function answer<T>(acknowledged: Promise<AckResult<T>>): Promise<T> {
+  let res: AckResult<T>;
+  try {
+    res = await acknowledged;
+  } catch {
+    // With timeout(), emitWithAck rejects only when no acknowledgement came in time.
+    throw new LiveError('timeout', 'The server did not answer in time');
+  }
+  if (res.ok) return res.data;
+  throw new LiveError(res.error.code, res.error.message);
 }
 
 export function joinStack(socket: LiveSocket, stackId: number): Promise<StackJoinAck> {
-  return new Promise((resolve, reject) => socket.emit('stack:join', { stackId }, settle(resolve, reject)));
+  return answer(socket.timeout(ACK_TIMEOUT_MS).emitWithAck('stack:join', { stackId }));
 }
 
 export function sendEdit(socket: LiveSocket, stackId: number, baseVersion: number, ops: Op[]): Promise<{ version: number }> {
-  return new Promise((resolve, reject) => socket.emit('stack:edit', { stackId, baseVersion, ops }, settle(resolve, reject)));
+  return answer(socket.timeout(ACK_TIMEOUT_MS).emitWithAck('stack:edit', { stackId, baseVersion, ops }));
 }
 
 export function selectNodes(socket: LiveSocket, stackId: number, nodeIds: string[]): void {

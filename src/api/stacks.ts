@@ -1,4 +1,4 @@
-// A building's stacks as summaries for the building page (SPEC §7). The stack editor reads and
+// A building's stacks as summaries for the building page (docs/contracts.md §REST routes). The stack editor reads and
 // writes the document itself through its own store.
 import type { z } from 'zod';
 import type { StackSummary, createStackBodySchema, patchStackBodySchema } from '@shared/schema/api.ts';

@@ -1,5 +1,5 @@
-// Reading a stack document as the vertical chain of SPEC §4: where each node sits and how it is named
-// on screen. Pure functions of the document, shared by the graph, the forms and the results pane.
+// Reading a stack document as the vertical chain of docs/contracts.md §Stack document: where each node sits and how
+// it is named on screen. Pure functions of the document, shared by the graph, the forms and the results pane.
 import type { LiftData, NodeKind, StackDocument, StackNode } from '@shared/schema/stack.ts';
 import { formatElevation } from '@/components/common/format.ts';
 
@@ -17,7 +17,7 @@ export function ownElevation(node: StackNode): number | null {
   return 'elevation' in node.data ? node.data.elevation : null;
 }
 
-/** Bottom and top of each lift, from the nodes joined to it below and above (SPEC §4). */
+/** Bottom and top of each lift, from the nodes joined to it below and above (docs/contracts.md §Stack document). */
 export function liftSpans(doc: StackDocument): Map<string, Span> {
   const byId = nodesById(doc);
   const below = new Map<string, number>();

@@ -1,4 +1,4 @@
-// Imports and downloads (issue 9): check a CSV file against the building (preview and problems by
+// Imports and downloads (docs/contracts.md §Imports): check a CSV file against the building (preview and problems by
 // row), apply the checked file, download results and the loads template, and search the building's
 // own sections beside the catalogue.
 import { computed, ref } from 'vue';

@@ -1,5 +1,5 @@
-// Sizing (issue 11): asks the server for a preview of the lightest passing sections of a stack or a
-// building, keeps which lifts the engineer ticks, and accepts them through the normal edit path:
+// Sizing (docs/analysis-rules.md §Sizing): asks the server for a preview of the lightest passing sections of a stack
+// or a building, keeps which lifts the engineer ticks, and accepts them through the normal edit path:
 // the open stack's serial edit queue (live and undoable), or per stack over REST for a building.
 import { computed, ref, shallowRef } from 'vue';
 import { defineStore } from 'pinia';

@@ -1,4 +1,4 @@
-// Connection rules of the graph (SPEC §4) and placing nodes by elevation.
+// Connection rules of the graph (docs/contracts.md §Stack document) and placing nodes by elevation.
 import { describe, expect, it } from 'vitest';
 import type { StackDocument } from '@shared/schema/stack.ts';
 import { applyOps } from '@shared/ops/applyOps.ts';
@@ -30,7 +30,7 @@ const doc: StackDocument = {
 };
 
 describe('connection rules', () => {
-  it('allow the connections of SPEC §4', () => {
+  it('allow the connections of the stack document', () => {
     expect(connectionRefusal(doc, 'r10', 'l2')).toBeNull();
     expect(connectionRefusal(doc, 'ld', 'r10')).toBeNull();
     expect(connectionRefusal(doc, 'ld', 'cap')).toBeNull();

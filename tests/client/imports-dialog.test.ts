@@ -1,5 +1,5 @@
-// The import dialog (issue 9): the file is checked at once, problems are listed by row with the Import
-// button off, a clean preview shows a table of what changes, and Import sends the checked file back with
+// The import dialog (docs/contracts.md §Imports): the file is checked at once, problems are listed by row with the
+// Import button off, a clean preview shows a table of what changes, and Import sends the checked file back with
 // the preview's hash and version basis.
 import { afterEach, beforeEach, describe, expect, it, vi } from 'vitest';
 import { flushPromises, mount } from '@vue/test-utils';

@@ -1,5 +1,5 @@
-// Sizing in the client (issue 11): the preview rows and totals, the form, and accepting through the
-// open stack's edit queue or, for a building, stack by stack over REST. Demo data, invented.
+// Sizing in the client (docs/analysis-rules.md §Sizing): the preview rows and totals, the form, and accepting through
+// the open stack's edit queue or, for a building, stack by stack over REST. Demo data, invented.
 import { afterEach, beforeEach, describe, expect, it, vi } from 'vitest';
 import { flushPromises, mount } from '@vue/test-utils';
 import { createPinia, setActivePinia } from 'pinia';

@@ -1,4 +1,4 @@
-// Issues 7 and 12 (flow 1): an engineer creates a stack from a template, sets sections and loads, and
+// An engineer creates a stack from a template, sets sections and loads, and
 // sees the results and the governing lift change — in the real app, in headless Chromium.
 import { expect, it } from 'vitest';
 import {

@@ -1,4 +1,4 @@
-// Issue 12 (flow 4): the lead freezes a revision, downloads its calculation package, and every member's
+// The lead freezes a revision, downloads its calculation package, and every member's
 // e-mail with the package attached is in the outbox of the local SMTP fake.
 import { readFileSync } from 'node:fs';
 import { expect, it } from 'vitest';

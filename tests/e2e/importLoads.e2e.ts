@@ -1,4 +1,4 @@
-// Issue 12 (flow 5): a CSV of level loads with a bad row is refused with the row named, and nothing in
+// A CSV of level loads with a bad row is refused with the row named, and nothing in
 // the building changes.
 import { expect, it } from 'vitest';
 import type { Page } from 'playwright-core';

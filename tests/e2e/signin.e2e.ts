@@ -1,4 +1,4 @@
-// Issue 2: the built app, served by the real server, signs in the demo engineer and lists buildings,
+// The built app, served by the real server, signs in the demo engineer and lists buildings,
 // loading nothing from any origin but its own (fonts and icons are served by the app).
 import { expect, it } from 'vitest';
 import {

@@ -1,4 +1,4 @@
-// Issue 12 (flow 2): two people on the same stack in two browser contexts. An edit in one appears,
+// Two people on the same stack in two browser contexts. An edit in one appears,
 // with its new results, in the other within 2 s, and each sees the other present.
 import { expect, it } from 'vitest';
 import type { Page } from 'playwright-core';
@@ -10,7 +10,6 @@ import {
   openDemoBuilding,
   openStack,
   pickSection,
-  results,
   screenshot,
   useAppAndBrowser,
 } from './harness.ts';

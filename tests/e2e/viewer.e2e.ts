@@ -1,4 +1,4 @@
-// Issue 12 (flow 3): a viewer sees the building, its stacks, results and revisions, and can change
+// A viewer sees the building, its stacks, results and revisions, and can change
 // nothing — the screens offer no edits, and the server refuses the ones a viewer tries anyway.
 import { expect, it } from 'vitest';
 import {

@@ -1,8 +1,9 @@
-// The checking engineer's second, independent working of SPEC §5 on invented stacks: the take-down by
+// The checking engineer's second, independent working of docs/analysis-rules.md on invented stacks: the take-down by
 // EN 1990 eq. 6.10 / 6.10a / 6.10b (Table A1.1 ψ0, Table A1.2(B) γ and ξ; UK NA Table NA.A1.1 and
 // NA.A1.2(B)), αn on the leading action only (EN 1991-1-1 eq. 6.2; UK NA to EN 1991-1-1 NA.2.6), the
-// buckling-length factors of SPEC §5.5 over segments that cross splices, and the piece rule of §5.6.
-// It is written from the clauses, not from the engine's modules; only the member check is shared.
+// buckling-length factors of docs/analysis-rules.md §Buckling-length factors over segments that cross splices, and
+// the piece rule of docs/analysis-rules.md §Pieces. It is written from the clauses, not from the engine's modules;
+// only the member check is shared.
 import { describe, expect, it } from 'vitest';
 import { findSection } from '../../shared/catalogue/index.ts';
 import { checkCompression } from '../../shared/engine/checkCompression.ts';
@@ -25,7 +26,7 @@ function alphaN(n: number, annex: Annex): number {
   return n > 2 ? (2 + (n - 2) * 0.7) / n : 1;
 }
 
-/** SPEC §5.5 (common design-office values, BS 5950-1 Table 22 and EN 1993 design aids). */
+/** docs/analysis-rules.md §Buckling-length factors (design-office values, BS 5950-1 Table 22, EN 1993 design aids). */
 function kFactor(lower: Fixity | 'free', upper: Fixity | 'free'): number {
   if (upper === 'free') return 2.0;
   const ends = [lower, upper].sort().join('–');
@@ -75,7 +76,7 @@ function generator(seed: number) {
 const SECTIONS = ['UKC 203x203x46', 'UKC 254x254x89', 'UKC 305x305x118', 'HE 300 B', 'SHS 200x200x10', 'UKC 356x368x129'];
 const FIXITIES: readonly Fixity[] = ['pinned', 'partial', 'fixed'];
 
-describe('analyseStack against an independent hand working of SPEC §5 (invented stacks)', () => {
+describe('analyseStack against an independent hand working of the analysis rules (invented stacks)', () => {
   it('gives the same NEd, buckling lengths, segment forces and utilisation on every piece of 150 stacks', () => {
     const g = generator(20251201);
     let compared = 0;
@@ -113,7 +114,8 @@ describe('analyseStack against an independent hand working of SPEC §5 (invented
       };
       const result = analyseStack(buildStack({ base: { fixity: baseFixity }, lifts, floors, cap }), options);
       if (result.errors.length) {
-        // Only a free cap above a lower end that is not fixed may be refused (SPEC §5.5)
+        // Only a free cap above a lower end that is not fixed may be refused
+        // (docs/analysis-rules.md §Buckling-length factors)
         expect(capFixity).toBe('free');
         continue;
       }
@@ -122,7 +124,7 @@ describe('analyseStack against an independent hand working of SPEC §5 (invented
         ...floors.map((f) => ({ elevation: f.elevation, Gk: f.Gk ?? 0, Qk: f.Qk ?? 0, category: f.category ?? 'A' })),
         { elevation: top, Gk: cap.Gk, Qk: cap.Qk, category: cap.category },
       ];
-      // Self-weight: section mass × 9.81 N/kg on the column below (SPEC §5.1)
+      // Self-weight: section mass × 9.81 N/kg on the column below (docs/analysis-rules.md §Take-down)
       let bottom = 0;
       const weights = lifts.map((l) => {
         const perMetre = options.selfWeight ? (sectionProperties(findSection(l.section as string)!.dims).massPerMetre * 9.81) / 1000 : 0;
@@ -152,7 +154,7 @@ describe('analyseStack against an independent hand working of SPEC §5 (invented
           const sz = segmentOf('z', middle);
           const LcrY = kFactor(sy.lower.fixity, sy.upper.fixity) * (sy.upper.elevation - sy.lower.elevation);
           const LcrZ = kFactor(sz.lower.fixity, sz.upper.fixity) * (sz.upper.elevation - sz.lower.elevation);
-          // SPEC §5.6: the largest NEd of the lift's pieces inside the same segment
+          // docs/analysis-rules.md §Pieces: the largest NEd of the lift's pieces inside the same segment
           const inSegment = (s: { lower: Point; upper: Point }) =>
             Math.max(...lift.pieces.filter((q) => (q.from + q.to) / 2 > s.lower.elevation && (q.from + q.to) / 2 < s.upper.elevation).map((q) => NEdAt(q.from)));
           const NEd = NEdAt(piece.from);

@@ -223,7 +223,7 @@ describe('checkCompression: refuses bad input with a typed engine error', () => 
 });
 
 describe('shared/engine/index.ts', () => {
-  it('exports the contract names of SPEC §6', () => {
+  it('exports the contract names of the member check', () => {
     for (const name of ['imperfectionFactor', 'reductionFactor', 'sectionProperties', 'checkCompression', 'yieldStrength', 'classifySection', 'effectiveArea', 'bucklingCurve', 'EngineError']) {
       expect(typeof (engine as Record<string, unknown>)[name]).toBe('function');
     }

@@ -1,5 +1,5 @@
-// Sizing (issue 11): the proposal passes, is the lightest, keeps each rule and says when nothing passes.
-// The yardstick is analyseStack, checked elsewhere against EN 1990 / EN 1991-1-1 / EN 1993-1-1.
+// Sizing (docs/analysis-rules.md §Sizing): the proposal passes, is the lightest, keeps each rule and says when
+// nothing passes. The yardstick is analyseStack, checked elsewhere against EN 1990 / EN 1991-1-1 / EN 1993-1-1.
 import { describe, expect, it } from 'vitest';
 import { analyseStack, EngineError, sizeStack, sizingCandidates } from '../../shared/engine/index.ts';
 import { accepted, officeStack, request, tallTopStack, withSections } from './sizing-helpers.ts';

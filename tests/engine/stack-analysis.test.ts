@@ -22,7 +22,7 @@ describe('analyseStack', () => {
     expect(low.NEd).toBeCloseTo(442.6875, 9);
   });
 
-  it('combines the three checks of a piece as SPEC §5.6 states, in N for the member check', () => {
+  it('combines the three checks of a piece as docs/analysis-rules.md §Pieces states, in N for the member check', () => {
     const [lift] = analyseStack(doc, { selfWeight: false }).lifts;
     for (const p of lift.pieces) {
       const expected = Math.max((p.NEd * 1000) / p.check.NcRd, (p.NEdY * 1000) / p.check.NbRdY, (p.NEdZ * 1000) / p.check.NbRdZ);

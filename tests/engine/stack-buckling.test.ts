@@ -11,7 +11,8 @@ const pieces = (doc: Parameters<typeof analyseStack>[0], context = {}): PieceChe
 const lengths = (list: PieceCheck[]) => list.map((p) => [p.from, p.to, p.LcrY, p.LcrZ]);
 
 describe('bucklingLengthFactor', () => {
-  // SPEC §5.5, after BS 5950-1 Table 22 (common design-office values for braced columns; common practice)
+  // docs/analysis-rules.md §Buckling-length factors, after BS 5950-1 Table 22 (common design-office values for braced
+  // columns; common practice)
   it.each([
     ['pinned', 'pinned', 1.0],
     ['pinned', 'partial', 1.0],

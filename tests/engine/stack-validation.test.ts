@@ -109,7 +109,7 @@ describe('validateStack', () => {
     ]);
   });
 
-  it('reports a free cap above a restraint that is not fixed (SPEC §5.5)', () => {
+  it('reports a free cap above a restraint that is not fixed', () => {
     const doc = withNode(valid(), 'c', (n) => (n.kind === 'cap' ? { ...n, data: { ...n.data, fixity: 'free' } } : n));
     expect(errorsOf(doc)).toEqual([
       { nodeId: 'c', message: 'The free cap needs a fixed lower end about the y-y axis, but the restraint at +8.000 is pinned' },

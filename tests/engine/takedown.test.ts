@@ -24,7 +24,7 @@ function entriesOf(document = doc) {
 
 describe('take-down', () => {
   it('converts mass to self-weight with g = 9.81 N/kg', () => {
-    // SPEC §5.1: 73.1 kg/m × 9.81 / 1000 = 0.717111 kN/m
+    // docs/analysis-rules.md §Take-down: 73.1 kg/m × 9.81 / 1000 = 0.717111 kN/m
     expect(selfWeightPerMetre(73.1)).toBeCloseTo(0.717111, 9);
   });
 

@@ -1,6 +1,6 @@
-// Issue 13: two server processes on PostgreSQL sharing live rooms through Redis. Clients are spread
-// across both; random concurrent edits converge with nothing lost. Runs only when TEST_DATABASE_URL
-// and TEST_REDIS_URL are set (scripts/testScale.ts); each run has its own schema and key prefix.
+// docs/live-protocol.md §Several processes: two server processes on PostgreSQL sharing live rooms through Redis.
+// Clients are spread across both; random concurrent edits converge with nothing lost. Runs only when
+// TEST_DATABASE_URL and TEST_REDIS_URL are set (scripts/testScale.ts); each run has its own schema and key prefix.
 import { spawn, type ChildProcessWithoutNullStreams } from 'node:child_process';
 import { randomBytes } from 'node:crypto';
 import { createInterface } from 'node:readline';

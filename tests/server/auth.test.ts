@@ -86,8 +86,9 @@ describe('accounts', () => {
   });
 });
 
-// Two processes behind one load balancer must not give a client two allowances (issue 13). Runs
-// wherever Redis is configured for tests (always in .ci/run); says so when it is not.
+// Two processes behind one load balancer must not give a client two allowances
+// (docs/live-protocol.md §Several processes). Runs wherever Redis is configured for tests (always in .ci/run);
+// says so when it is not.
 const redisUrl = process.env.TEST_REDIS_URL;
 if (!redisUrl) console.warn('TEST_REDIS_URL is not set: the shared sign-in limit across processes is not tested here');
 describe.skipIf(!redisUrl)('the sign-in limit shared through Redis', () => {

@@ -1,4 +1,4 @@
-// Results out (issue 9): per stack and per building as CSV and XLSX, units in the headers, figures
+// Results out (docs/contracts.md §Imports): per stack and per building as CSV and XLSX, units in the headers, figures
 // from the stored results, checked against EN 1990 by hand and a handbook resistance.
 import ExcelJS from 'exceljs';
 import { parse } from 'csv-parse/sync';
@@ -40,7 +40,7 @@ describe('results as CSV', () => {
     const r = await download(s, `/stacks/${stacks[0]!.id}/results.csv`, viewer.token);
     expect(r.status).toBe(200);
     expect(r.headers.get('content-type')).toMatch(/^text\/csv/);
-    expect(r.headers.get('content-disposition')).toBe('attachment; filename="A_10-results.csv"');
+    expect(r.headers.get('content-disposition')).toBe('attachment; filename=A_10-results.csv');
     expect(r.bytes.toString('utf8').split('\r\n')[0]).toBe(HEADER);
     const rows = readCsv(r.bytes);
     const stored = await getStack(s, viewer.token, stacks[0]!.id);
@@ -61,10 +61,12 @@ describe('results as CSV', () => {
     // SCI P363 (steel building design: design data): UKC 254x254x89 in S355, Npl,Rd ≈ 3900 kN
     // (A = 113 cm², fy = 345 N/mm² for tf 17.3 mm), from memory; within 1%.
     expect(Math.abs(Number(bottom.Nc_Rd_kN) - 3900) / 3900).toBeLessThan(0.01);
-    // Pinned base, restraint at +3.600: k = 1.0 (SPEC §5.5), Lcr = 3.6 m about both axes.
+    // Pinned base, restraint at +3.600: k = 1.0 (docs/analysis-rules.md §Buckling-length factors), Lcr = 3.6 m about
+    // both axes.
     expect(Number(bottom.Lcr_y_m)).toBe(3.6);
     expect(Number(bottom.Lcr_z_m)).toBe(3.6);
-    // Utilisation is the largest of NEd over the three resistances (SPEC §5.6), to the rounding of the file.
+    // Utilisation is the largest of NEd over the three resistances (docs/analysis-rules.md §Pieces), to the rounding
+    // of the file.
     const u = Number(bottom.NEd_kN) / Math.min(Number(bottom.Nc_Rd_kN), Number(bottom.Nb_y_Rd_kN), Number(bottom.Nb_z_Rd_kN));
     expect(Number(bottom.utilisation)).toBeCloseTo(u, 3);
   });

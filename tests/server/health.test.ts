@@ -2,7 +2,8 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { mkdirSync, mkdtempSync, readFileSync, rmSync, statSync, utimesSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { dirname, join } from 'node:path';
-import { clientBuildNeeded } from '../../scripts/start.ts';
+import { fileURLToPath } from 'node:url';
+import { clientBuildNeeded, clientStep, viteScript } from '../../scripts/start.ts';
 import { DEMO_BUILDING, DEMO_PASSWORD, DEMO_STACKS, seedDemoIfEmpty } from '../../seeds/demo.ts';
 import type { AuthResponse, BuildingSummary, StackSummary } from '../../shared/schema/api.ts';
 import { errorCode, onPostgres, startTestServer, type TestServer } from './helpers.ts';
@@ -70,6 +71,22 @@ describe('npm start decides when to rebuild the client', () => {
     expect(clientBuildNeeded(root)).toBe(false);
     touch('shared/engine/x.ts', new Date('2025-01-03T00:00:00Z'));
     expect(clientBuildNeeded(root)).toBe(true);
+  });
+
+  it('without Vite (a production install) serves a stale dist/ and stops when there is none', () => {
+    expect(viteScript(root)).toBeNull();
+    expect(clientStep(root, false)).toBe('serve-stale');
+    expect(clientStep(root, true)).toBe('build');
+    touch('dist/index.html', new Date('2025-01-04T00:00:00Z'));
+    expect(clientStep(root, false)).toBe('serve');
+    rmSync(join(root, 'dist'), { recursive: true });
+    expect(clientStep(root, false)).toBe('missing');
+  });
+
+  it('finds the Vite of a development install', () => {
+    const script = viteScript(fileURLToPath(new URL('../..', import.meta.url)));
+    expect(script).toMatch(/node_modules\/vite\/bin\/vite\.js$/);
+    expect(statSync(script as string).isFile()).toBe(true);
   });
 });
 

@@ -9,8 +9,9 @@ import type { AuthResponse, Building, Role } from '../../shared/schema/api.ts';
 import { startServer, type RunningServer, type StartOptions } from '../../server/server.ts';
 
 /**
- * The scale-out run (issue 13) repeats every server test on PostgreSQL and Redis: vitest's 'server-pg'
- * project sets STANCHION_TEST_ON_PG, and each test server then gets its own schema and key prefix.
+ * The scale-out run (docs/live-protocol.md §Several processes) repeats every server test on PostgreSQL and Redis:
+ * vitest's 'server-pg' project sets STANCHION_TEST_ON_PG, and each test server then gets its own schema and key
+ * prefix.
  */
 export const onPostgres = process.env.STANCHION_TEST_ON_PG === '1' && !!process.env.TEST_DATABASE_URL;
 
@@ -114,7 +115,7 @@ export async function addMember(s: TestServer, leadToken: string, buildingId: nu
   if (r.status !== 201) throw new Error(`add member failed: ${r.status} ${JSON.stringify(r.body)}`);
 }
 
-/** The error shape of SPEC §7: { error: { code, message, details? } }. */
+/** The error shape of docs/contracts.md §Errors: { error: { code, message, details? } }. */
 export function errorCode(body: unknown): string | undefined {
   if (typeof body !== 'object' || body === null || !('error' in body)) return undefined;
   const e = (body as { error: { code?: unknown; message?: unknown } }).error;

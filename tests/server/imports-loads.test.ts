@@ -1,5 +1,5 @@
-// Level loads from CSV (issue 9): bad files are refused row by row and never touch the building; a good
-// file changes exactly the named restraints in one transaction and every client in the stack hears it.
+// Level loads from CSV (docs/contracts.md §Imports): bad files are refused row by row and never touch the building; a
+// good file changes exactly the named restraints in one transaction and every client in the stack hears it.
 import { randomBytes } from 'node:crypto';
 import { isDeepStrictEqual } from 'node:util';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';

@@ -1,5 +1,6 @@
-// Company sections from CSV (issue 9): checked row by row like the loads, listed beside the catalogue,
-// and used by the analysis of the building's stacks (which are re-analysed when a section they use changes).
+// Company sections from CSV (docs/contracts.md §Imports): checked row by row like the loads, listed beside the
+// catalogue, and used by the analysis of the building's stacks (which are re-analysed when a section they use
+// changes).
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type { AuthResponse, StackSummary } from '../../shared/schema/api.ts';
 import type { ApplyResult, CompanySectionHit, ImportProblem, SectionsPreview } from '../../shared/schema/imports.ts';

@@ -1,5 +1,5 @@
 // Every writing route answered with malformed input: always 4xx with the error shape, never 5xx,
-// and the database exactly as it was (issue 5 acceptance).
+// and the database exactly as it was.
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type { Level, StackDetail, StackSummary } from '../../shared/schema/api.ts';
 import { addMember, createBuilding, errorCode, listRoutes, registerUser, startTestServer, type TestServer } from './helpers.ts';

@@ -59,7 +59,7 @@ describe('the calculation package (PDF)', () => {
     expect(all).toMatch(/χz/);
   });
 
-  it('prints the safety note of SPEC §9 (the one the screens show) with the page number on every page', () => {
+  it('prints the safety note (the one the screens show) with the page number on every page', () => {
     pages.forEach((text, i) => {
       expect(text).toContain(squash(SAFETY_NOTE));
       expect(text).toContain(`Page ${i + 1} of ${pages.length}`);

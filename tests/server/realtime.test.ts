@@ -1,4 +1,4 @@
-// Live co-editing over real socket.io-client connections (issue 6, SPEC §7).
+// Live co-editing over real socket.io-client connections (docs/live-protocol.md).
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type { AuthResponse, StackSummary } from '../../shared/schema/api.ts';
 import type { Op } from '../../shared/schema/ops.ts';
@@ -127,7 +127,7 @@ describe('live channel: edits', () => {
       { stackId, baseVersion: before.version, ops: [{ op: 'explode', id: 'x' }] },
       { stackId, baseVersion: before.version, ops: [{ op: 'updateNode', id: ja.data.doc.nodes[0].id, data: { elevation: 'NaN' } }] },
       { stackId, baseVersion: before.version, ops: [{ op: 'removeNode', id: 'no-such-node' }] },
-      { stackId, baseVersion: before.version, ops: [{ op: 'moveNode', id: ja.data.doc.nodes[0].id, position: { x: 1e309, y: 0 } }] },
+      { stackId, baseVersion: before.version, ops: [{ op: 'moveNode', id: ja.data.doc.nodes[0].id, position: { x: Infinity, y: 0 } }] },
       { stackId, baseVersion: before.version, ops: [{ op: 'addEdge', edge: { id: 'e', source: 'a' } }], extra: true },
     ];
     for (const payload of bad) {

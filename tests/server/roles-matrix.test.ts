@@ -1,4 +1,4 @@
-// Every API route × every kind of caller → the expected status (SPEC §8, issue 5).
+// Every API route × every kind of caller → the expected status (docs/rights.md).
 // Policy (server/middleware/access.ts):
 // - anonymous callers get 401 on every route that needs an account;
 // - an outsider (signed in, not a member) gets 404 for a building and everything in it, so

@@ -1,4 +1,4 @@
-// Sizing previews over HTTP (issue 11): a real server, a real SQLite file. Demo data, invented.
+// Sizing previews over HTTP (docs/analysis-rules.md §Sizing): a real server, a real SQLite file. Demo data, invented.
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type { StackDetail, StackSummary } from '../../shared/schema/api.ts';
 import type { BuildingSizingPreview, StackSizingPreview } from '../../shared/schema/sizing.ts';

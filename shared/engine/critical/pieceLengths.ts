@@ -1,4 +1,4 @@
-// Buckling lengths of one piece about both axes: the table's k·L (SPEC §5.5), a lift's own kY/kZ, or,
+// Buckling lengths of one piece about both axes: the table's k·L (docs/analysis-rules.md §Buckling-length factors), a lift's own kY/kZ, or,
 // with the critical buckling analysis, the equivalent length of the piece's critical force.
 import type { ModelLift } from '../stack/inspectStack.ts';
 import type { PieceSpan } from '../stack/stackPieces.ts';
@@ -21,7 +21,7 @@ export interface PieceLengths {
 
 /**
  * `NEdY`/`NEdZ`: the forces the buckling checks about y and z use (the largest in the segment within the
- * lift, SPEC §5.6). Their critical force is αcr·NEd, the critical force of the piece that carries that
+ * lift, docs/analysis-rules.md §Pieces). Their critical force is αcr·NEd, the critical force of the piece that carries that
  * force, so the check is the one of that piece: Lcr = π√(EI/(αcr·NEd)) (EN 1993-1-1 6.3.1.2(1)).
  * A lift's kY/kZ set by hand still wins; a piece without compression about an axis keeps the table's
  * length (its buckling term is zero whatever the length).

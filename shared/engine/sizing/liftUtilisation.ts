@@ -1,5 +1,5 @@
 // Utilisation of one lift with a given section, the lifts above it fixed: the same rule as the
-// analysis (SPEC §5.6) with the working left out, so that sizing can try many sections quickly.
+// analysis (docs/analysis-rules.md §Pieces) with the working left out, so that sizing can try many sections quickly.
 import type { Grade, SectionDims } from '../../schema/stack.ts';
 import { checkCompression } from '../checkCompression.ts';
 import { designAxialForce } from '../stack/combination.ts';
@@ -21,7 +21,7 @@ export interface LoadFromAbove {
 
 export const NOTHING_ABOVE: LoadFromAbove = { weight: 0, envelope: 0 };
 
-/** Self-weight of a lift, kN: permanent load on everything below it (SPEC §5.1). */
+/** Self-weight of a lift, kN: permanent load on everything below it (docs/analysis-rules.md §Take-down). */
 export function liftWeight(model: SizingModel, index: number, massPerMetre: number): number {
   const lift = model.lifts[index];
   return model.options.selfWeight ? selfWeightPerMetre(massPerMetre) * (lift.top - lift.bottom) : 0;
@@ -56,7 +56,8 @@ export function liftUtilisation(model: SizingModel, index: number, trial: LiftTr
   const lift = model.lifts[index];
   const count = lift.pieces.length;
   const NEd = liftForces(model, index, trial.massPerMetre, above);
-  // The buckling check about an axis takes the largest NEd of the lift within that axis's segment (SPEC §5.6)
+  // The buckling check about an axis takes the largest NEd of the lift within that axis's segment
+  // (docs/analysis-rules.md §Pieces)
   const maxY = new Array<number>(count).fill(0);
   const maxZ = new Array<number>(count).fill(0);
   for (let k = 0; k < count; k++) {
@@ -74,7 +75,7 @@ export function liftUtilisation(model: SizingModel, index: number, trial: LiftTr
       { section: trial.section, grade: trial.grade, LcrY: p.LcrY * 1000, LcrZ: p.LcrZ * 1000, NEd: Math.max(NEdY, NEdZ) * 1000, annex: model.options.annex },
       { steps: false, extraSections: model.sections },
     );
-    // SPEC §5.6: max(NEd/Nc,Rd, NEd,y/Nb,y,Rd, NEd,z/Nb,z,Rd) — EN 1993-1-1 eq. 6.9 and 6.46
+    // docs/analysis-rules.md §Pieces: max(NEd/Nc,Rd, NEd,y/Nb,y,Rd, NEd,z/Nb,z,Rd) — EN 1993-1-1 eq. 6.9 and 6.46
     const u = Math.max((NEd[k] * 1000) / check.NcRd, (NEdY * 1000) / check.NbRdY, (NEdZ * 1000) / check.NbRdZ);
     if (u > worst) worst = u;
     if (worst > limit) return worst;

@@ -1,5 +1,5 @@
-// The search. A lift's load depends only on the lifts above it (SPEC §5.1), and lighter lifts above
-// never raise it, so the lifts are sized from the top down, each taking the lightest candidate that
+// The search. A lift's load depends only on the lifts above it (docs/analysis-rules.md §Take-down), and lighter lifts
+// above never raise it, so the lifts are sized from the top down, each taking the lightest candidate that
 // passes under the lifts already chosen above it. With "no upward increase" a lift may not be lighter
 // than the lift above it, which only raises its lower bound: the rule is met on the way down and
 // needs no second pass. (The force in each section is also never taken less than in the sections

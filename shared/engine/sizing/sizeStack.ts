@@ -1,5 +1,5 @@
-// Proposes, lift by lift, the lightest section of a series that passes (issue 11). Pure; nothing is
-// changed: the caller shows the preview and turns what the engineer accepts into updateNode ops.
+// Proposes, lift by lift, the lightest section of a series that passes (docs/analysis-rules.md §Sizing). Pure;
+// nothing is changed: the caller shows the preview and turns what the engineer accepts into updateNode ops.
 import { DEFAULT_ANALYSIS_OPTIONS, type AnalysisOptions } from '../../schema/results.ts';
 import type { LiftSizing, SizingRequest, StackSizing } from '../../schema/sizing.ts';
 import type { StackDocument } from '../../schema/stack.ts';

@@ -11,7 +11,7 @@ import { serialSize } from './serialSize.ts';
 export interface Candidate {
   designation: string;
   serial: string;
-  /** kg/m from the dimensions: the value the analysis takes for self-weight (SPEC §5.1). */
+  /** kg/m from the dimensions: the value the analysis takes for self-weight (docs/analysis-rules.md §Take-down). */
   massPerMetre: number;
 }
 

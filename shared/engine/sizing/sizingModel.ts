@@ -1,5 +1,5 @@
-// What sizing needs of a stack, worked out once: every lift's pieces (SPEC §5.6) with the loads that
-// enter above each piece, the segment it lies in about each axis and its buckling lengths. Only the
+// What sizing needs of a stack, worked out once: every lift's pieces (docs/analysis-rules.md §Pieces) with the loads
+// that enter above each piece, the segment it lies in about each axis and its buckling lengths. Only the
 // self-weight changes with the sections chosen, so a candidate costs a few member checks, not an analysis.
 import type { AnalysisOptions } from '../../schema/results.ts';
 import type { LiftData, SectionDims } from '../../schema/stack.ts';
@@ -15,7 +15,7 @@ export interface SizingPiece {
   /** Index (within the lift) of the piece group sharing a segment about y and about z. */
   groupY: number;
   groupZ: number;
-  /** Buckling lengths, m: k·L of the segment or the lift's override (SPEC §5.5). */
+  /** Buckling lengths, m: k·L of the segment or the lift's own k (docs/analysis-rules.md §Buckling-length factors). */
   LcrY: number;
   LcrZ: number;
 }

@@ -1,4 +1,4 @@
-// Load take-down and member checks of one stack (SPEC §5). Pure and synchronous; never throws for
+// Load take-down and member checks of one stack (docs/analysis-rules.md). Pure and synchronous; never throws for
 // a bad document, which is reported through `errors` instead.
 import { DEFAULT_ANALYSIS_OPTIONS, type AnalysisOptions, type Issue, type LiftResult, type StackResult } from '../../schema/results.ts';
 import type { StackDocument } from '../../schema/stack.ts';
@@ -20,7 +20,7 @@ export function analyseStack(doc: StackDocument, options: Partial<AnalysisOption
   const { model, errors, warnings } = inspectStack(doc, context);
   if (!model) return withErrors(errors, warnings);
 
-  // Self-weight is permanent load on the column below (SPEC §5.1)
+  // Self-weight is permanent load on the column below (docs/analysis-rules.md §Take-down)
   const weights = model.lifts.map((l) => ({
     bottom: l.bottom,
     top: l.top,
@@ -50,7 +50,7 @@ export function analyseStack(doc: StackDocument, options: Partial<AnalysisOption
   warnings.push(...simple.warnings);
   if (simple.errors.length) return withErrors(simple.errors, warnings);
 
-  // The governing lift is the most utilised, the lowest one on a tie (SPEC §5.6)
+  // The governing lift is the most utilised, the lowest one on a tie (docs/analysis-rules.md §Pieces)
   let governing: LiftResult | null = null;
   for (const lift of lifts) if (!governing || lift.utilisation > governing.utilisation) governing = lift;
   const result: StackResult = { errors: [], warnings, lifts, governingLiftId: governing?.liftId ?? null, takeDown: rows };

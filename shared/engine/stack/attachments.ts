@@ -1,4 +1,5 @@
-// Restraints attached to the lift that contains them, and loads attached to a restraint or the cap (SPEC §4).
+// Restraints attached to the lift that contains them, and loads attached to a restraint or the cap (docs/contracts.md
+// §Stack document).
 import type { Issue } from '../../schema/results.ts';
 import type { Axes, Category, Fixity, NodeOf } from '../../schema/stack.ts';
 import { SAME_ELEVATION_M } from './context.ts';

@@ -1,11 +1,12 @@
-// Buckling-length factor k of a segment of a braced column from its end fixities (SPEC §5.5).
+// Buckling-length factor k of a segment of a braced column from its end fixities (docs/analysis-rules.md
+// §Buckling-length factors).
 import type { Fixity } from '../../schema/stack.ts';
 
 /**
  * Common design-office values for braced columns, after BS 5950-1 Table 22 and EN 1993 design aids
- * (SPEC §5.5; common practice): pinned–pinned 1.0, pinned–partial 1.0, partial–partial 0.85,
- * fixed–pinned 0.85, fixed–partial 0.85, fixed–fixed 0.7. A free top is a cantilever, k = 2.0, and
- * only with a fixed lower end; with any other lower end it returns null (a mechanism, not a column).
+ * (docs/analysis-rules.md §Buckling-length factors; common practice): pinned–pinned 1.0, pinned–partial 1.0,
+ * partial–partial 0.85, fixed–pinned 0.85, fixed–partial 0.85, fixed–fixed 0.7. A free top is a cantilever, k = 2.0,
+ * and only with a fixed lower end; with any other lower end it returns null (a mechanism, not a column).
  */
 export function bucklingLengthFactor(lower: Fixity, upper: Fixity | 'free'): number | null {
   if (upper === 'free') return lower === 'fixed' ? 2.0 : null;

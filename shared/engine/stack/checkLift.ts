@@ -1,4 +1,5 @@
-// Checks every piece of one lift with the member check (SPEC §5.6) and keeps the lift's worst piece.
+// Checks every piece of one lift with the member check (docs/analysis-rules.md §Pieces) and keeps the lift's worst
+// piece.
 import type { AnalysisOptions, GoverningMode, LiftResult, PieceCheck } from '../../schema/results.ts';
 import type { SectionDims } from '../../schema/stack.ts';
 import { checkCompression, type CompressionInput } from '../checkCompression.ts';
@@ -6,7 +7,7 @@ import { pieceLengths, type LiftCritical } from '../critical/pieceLengths.ts';
 import type { ModelLift } from './inspectStack.ts';
 import type { PieceSpan } from './stackPieces.ts';
 
-/** Per piece, the largest NEd of the lift's pieces in the same segment about one axis (SPEC §5.6). */
+/** Per piece, the largest NEd of the lift's pieces in its segment about one axis (docs/analysis-rules.md §Pieces). */
 function largestInSegment(pieces: readonly PieceSpan[], NEd: readonly number[], axis: 'segmentY' | 'segmentZ'): number[] {
   return pieces.map((p) => pieces.reduce((max, q, j) => (q[axis] === p[axis] && NEd[j] > max ? NEd[j] : max), 0));
 }
@@ -40,11 +41,11 @@ export function checkLift(
     const lengths = critical ? pieceLengths(lift, span, NEdY[i], NEdZ[i], critical) : null;
     const kY = lengths ? lengths.kY : (lift.data.kY ?? segmentY.k);
     const kZ = lengths ? lengths.kZ : (lift.data.kZ ?? segmentZ.k);
-    // Lcr = k·L over the whole segment, which may cross splices (SPEC §5.5)
+    // Lcr = k·L over the whole segment, which may cross splices (docs/analysis-rules.md §Buckling-length factors)
     const LcrY = lengths ? lengths.LcrY : kY * (segmentY.top - segmentY.bottom);
     const LcrZ = lengths ? lengths.LcrZ : kZ * (segmentZ.top - segmentZ.bottom);
     const check = checkCompression(memberInput(lift, options, LcrY, LcrZ, Math.max(NEdY[i], NEdZ[i])), { steps: false, extraSections: sections });
-    // SPEC §5.6: max(NEd/Nc,Rd, NEd,y/Nb,y,Rd, NEd,z/Nb,z,Rd); the check is in N
+    // docs/analysis-rules.md §Pieces: max(NEd/Nc,Rd, NEd,y/Nb,y,Rd, NEd,z/Nb,z,Rd); the check is in N
     const term = governingTerm((NEd * 1000) / check.NcRd, (NEdY[i] * 1000) / check.NbRdY, (NEdZ[i] * 1000) / check.NbRdZ);
     const { utilisation, governing } = term;
     const piece: PieceCheck = { from: span.from, to: span.to, NEd, NEdY: NEdY[i], NEdZ: NEdZ[i], LcrY, LcrZ, kY, kZ, utilisation, governing, check };

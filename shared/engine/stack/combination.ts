@@ -1,4 +1,5 @@
-// Design axial force from characteristic loads (EN 1990 6.4.3.2, Table A1.2(B); SPEC §5.2–5.3).
+// Design axial force from characteristic loads (EN 1990 6.4.3.2, Table A1.2(B); docs/analysis-rules.md §Combinations,
+// §Reduction for storeys).
 import type { AnalysisOptions } from '../../schema/results.ts';
 import type { Category } from '../../schema/stack.ts';
 import { CATEGORIES, GAMMA_G, GAMMA_Q, isReducibleCategory, psi0, xi } from './combinationFactors.ts';

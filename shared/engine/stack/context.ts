@@ -1,4 +1,5 @@
-// What a stack's analysis may need from its building (SPEC §4: restraints that refer to a level).
+// What a stack's analysis may need from its building (docs/contracts.md §Stack document: restraints that refer to a
+// level).
 import type { SectionDims } from '../../schema/stack.ts';
 
 export type LevelElevations = ReadonlyMap<string, number> | Readonly<Record<string, number>>;

@@ -1,4 +1,4 @@
-// Pieces of a lift (SPEC §5.6): the lift cut at every restraint, splice and level elevation.
+// Pieces of a lift (docs/analysis-rules.md §Pieces): the lift cut at every restraint, splice and level elevation.
 import { SAME_ELEVATION_M } from './context.ts';
 
 /** Ascending cut elevations from the lift's bottom to its top, without repeats. */

@@ -1,4 +1,4 @@
-// Segments about each axis between consecutive restraint points (SPEC §5.4). A splice is not a
+// Segments about each axis between consecutive restraint points (docs/analysis-rules.md §Segments). A splice is not a
 // restraint point, so a segment may cross splices.
 import type { Issue } from '../../schema/results.ts';
 import type { Fixity } from '../../schema/stack.ts';
@@ -20,7 +20,7 @@ export interface Segment {
   top: number;
   lower: RestraintPoint;
   upper: RestraintPoint;
-  /** Buckling-length factor from the end fixities (SPEC §5.5). */
+  /** Buckling-length factor from the end fixities (docs/analysis-rules.md §Buckling-length factors). */
   k: number;
 }
 

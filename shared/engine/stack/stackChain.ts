@@ -1,4 +1,5 @@
-// The vertical chain support → lift → (splice → lift)… → cap, walked upward from the support (SPEC §4).
+// The vertical chain support → lift → (splice → lift)… → cap, walked upward from the support (docs/contracts.md
+// §Stack document).
 import type { Issue } from '../../schema/results.ts';
 import type { NodeOf, StackNode } from '../../schema/stack.ts';
 import { SAME_ELEVATION_M } from './context.ts';

@@ -1,4 +1,5 @@
-// The document's nodes and edges as a graph, keeping only connections a stack allows (SPEC §4).
+// The document's nodes and edges as a graph, keeping only connections a stack allows
+// (docs/contracts.md §Stack document).
 import type { Issue } from '../../schema/results.ts';
 import type { NodeKind, StackDocument, StackEdge, StackNode } from '../../schema/stack.ts';
 

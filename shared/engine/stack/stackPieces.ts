@@ -1,4 +1,4 @@
-// Pieces of every lift (SPEC §5.6): each lift cut at every restraint, splice and level elevation,
+// Pieces of every lift (docs/analysis-rules.md §Pieces): each lift cut at every restraint, splice and level elevation,
 // with the design force at each piece's bottom and the segment it lies in about each axis.
 import { SAME_ELEVATION_M } from './context.ts';
 import { cutElevations } from './cutLift.ts';

@@ -1,7 +1,6 @@
-// Load take-down (SPEC §5.1): load entering at a restraint or the cap acts on all of the column below it;
-// self-weight is permanent load on the column below each point.
+// Load take-down (docs/analysis-rules.md §Take-down): load entering at a restraint or the cap acts on all of the
+// column below it; self-weight is permanent load on the column below each point.
 import type { AnalysisOptions, TakeDownRow } from '../../schema/results.ts';
-import type { Category } from '../../schema/stack.ts';
 import { CATEGORIES } from './combinationFactors.ts';
 import { designAxialForce, type AxialState, type CategoryValues, type DesignForce } from './combination.ts';
 import { SAME_ELEVATION_M } from './context.ts';
@@ -21,7 +20,7 @@ export interface ColumnWeight {
   perMetre: number;
 }
 
-/** Self-weight from mass per metre: kN/m = kg/m × 9.81 N/kg / 1000 (SPEC §5.1, g = 9.81 m/s²). */
+/** Self-weight from mass per metre: kN/m = kg/m × 9.81 N/kg / 1000 (docs/analysis-rules.md §Take-down). */
 export function selfWeightPerMetre(massPerMetre: number): number {
   return (massPerMetre * 9.81) / 1000;
 }

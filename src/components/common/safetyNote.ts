@@ -1,2 +1,2 @@
-/** SPEC §9: shown wherever results are shown (building page, stack editor, calculation sheets). */
+/** README §Safety: shown wherever results are shown (building page, stack editor, calculation sheets). */
 export { SAFETY_NOTE } from '@shared/safety.ts';

@@ -1,4 +1,4 @@
-// Which connections the stack document allows (SPEC §4), with the reason when one is refused.
+// Which connections the stack document allows (docs/contracts.md §Stack document), with the reason when one is refused.
 // Edges point upward along the chain; restraints point at the lift they brace; loads at their carrier.
 import type { NodeKind, StackDocument, StackNode } from '@shared/schema/stack.ts';
 import { formatElevation } from '@/components/common/format.ts';

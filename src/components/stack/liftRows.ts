@@ -1,5 +1,5 @@
-// One results-table row per lift, read from the lift's worst piece (SPEC §5.6: the lift's utilisation
-// is its worst piece). Forces converted from the engine's N to kN; lengths stay in m.
+// One results-table row per lift, read from the lift's worst piece (docs/analysis-rules.md §Pieces: the lift's
+// utilisation is its worst piece). Forces converted from the engine's N to kN; lengths stay in m.
 import type { GoverningMode, LiftResult, PieceCheck, StackResult } from '@shared/schema/results.ts';
 import type { StackDocument } from '@shared/schema/stack.ts';
 import { liftNumbers } from '@/composables/stackChain.ts';
