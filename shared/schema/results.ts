@@ -86,6 +86,9 @@ export interface CombinedCheck {
   majorTerm: number;
   minorTerm: number;
   utilisation: number;
+  /** The expression of EN 1990 6.4.3.2 that governs, e.g. "6.10b"; NEd and the reactions both come from it.
+   *  Absent in results stored before the check was made per combination. */
+  combination?: string;
   steps: CalcStep[];
 }
 

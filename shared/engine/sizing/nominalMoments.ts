@@ -11,15 +11,15 @@
 import type { AnalysisOptions } from '../../schema/results.ts';
 import type { SizingRequest } from '../../schema/sizing.ts';
 import type { StackDocument } from '../../schema/stack.ts';
+import { hasFaceReactions } from '../simple/applyNominalMoments.ts';
 import { analyseStack } from '../stack/analyseStack.ts';
 import type { AnalysisContext } from '../stack/context.ts';
 import type { GradedCandidate } from './sizingCandidates.ts';
 import type { LiftPick } from './sizeLifts.ts';
 
-/** The analysis adds nominal moments: the option is on and some restraint has a face reaction. */
+/** The analysis adds nominal moments: the option is on and some restraint or the cap has a face reaction. */
 export function hasNominalMoments(doc: StackDocument, options: AnalysisOptions): boolean {
-  if (options.nominalMoments === false) return false;
-  return doc.nodes.some((n) => n.kind === 'restraint' && !!n.data.faces && Object.values(n.data.faces).some((f) => !!f && (f.Gk > 0 || f.Qk > 0)));
+  return hasFaceReactions(doc, options);
 }
 
 /** The document with every picked lift in its picked section and grade; other lifts as they are. */
