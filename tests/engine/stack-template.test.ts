@@ -1,6 +1,6 @@
 // Stacks from a template whose floors are given as elevations (a building's own, irregular levels).
 // Elevations and loads are invented; the expected figures are arithmetic on them, and the buckling length
-// between pinned restraints is the storey (EN 1993-1-1 6.3.1.3, Lcr = k·L with k = 1.0).
+// between pinned restraints is the storey (Lcr = k·L with k = 1.0: common practice, after BS 5950-1 Table 22).
 import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
 import { analyseStack, validateStack } from '../../shared/engine/index.ts';

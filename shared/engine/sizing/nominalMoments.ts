@@ -88,12 +88,13 @@ function atOrAbove(list: readonly GradedCandidate[], candidates: readonly Graded
 export function sizeWithMoments(stack: CoupledStack, axial: readonly LiftPick[], candidates: readonly GradedCandidate[]): LiftPick[] {
   const lists = candidateLists(stack, candidates);
   // A class 4 axial pick where the moments act moves up to the next section the combined check covers.
-  const start = axial.map((p, i) => (p.kind === 'section' ? atOrAbove(lists[i], candidates, p) : p));
+  const start: LiftPick[] = axial.map((p, i) => (p.kind === 'section' ? atOrAbove(lists[i], candidates, p) : p));
   blockBelowNone(start);
   const raised = raiseUntilPassing(stack, start, lists);
   if (!everyLiftPicked(raised) || !everyLiftPicked(start)) return raised;
   // No lift can go below its axial pick: that is the lightest passing with the lightest lifts above.
-  return lighten(stack, raised, lists, start.map((p, i) => lists[i].indexOf(p.candidate)));
+  const lowest = start.map((p, i) => (p.kind === 'section' ? lists[i].indexOf(p.candidate) : 0));
+  return lighten(stack, raised, lists, lowest);
 }
 
 function raiseUntilPassing({ doc, liftIds, request, options, context }: CoupledStack, axial: readonly LiftPick[], lists: readonly (readonly GradedCandidate[])[]): LiftPick[] {
