@@ -15,6 +15,12 @@ import { floorMoments, hasReactions, storeyLevels, type FloorMoment, type Moment
 import { combinationStep, momentSteps } from './momentSteps.ts';
 import { pieceMoments } from './pieceMoments.ts';
 
+/** Said on the stack when the building asks for nominal moments but nothing gives one: else the check is silently absent. */
+export const NO_FACE_REACTIONS_NOTE: Issue = {
+  message:
+    'Nominal moments are on for this building, but no beam reactions are given on the column faces of this stack (restraints or cap): the combined check is not made and these results are axial only',
+};
+
 export interface NominalMomentsOutcome {
   errors: Issue[];
   warnings: Issue[];
@@ -61,7 +67,8 @@ export function applyNominalMoments(
 ): NominalMomentsOutcome {
   const floors = momentFloors(doc, model);
   const warnings = faceWarnings(floors);
-  if (options.nominalMoments === false || !floors.some((f) => hasReactions(f.faces))) return { errors: [], warnings };
+  if (options.nominalMoments === false) return { errors: [], warnings };
+  if (!floors.some((f) => hasReactions(f.faces))) return { errors: [], warnings: [...warnings, NO_FACE_REACTIONS_NOTE] };
 
   const columns = model.lifts.map((l) => {
     const { props } = sectionData(l.data.section, sections);

@@ -27,7 +27,7 @@ function axisSteps(axis: 'y' | 'z', floor: FloorMoment | null, side: 'above' | '
   if (!floor) return [];
   const m = floor[axis];
   if (m.M === 0) return [];
-  const where = `${floor.cap ? 'cap' : 'floor'} at ${formatElevation(floor.elevation)}`;
+  const where = `${floor.cap ? 'cap' : 'floor'} at ${floor.elevation.toFixed(3)} m`;
   const storey = side === 'above' ? m.above : m.below;
   const span = storey ? `storey ${formatElevation(storey.from)} to ${formatElevation(storey.to)}` : 'the storey';
   return [
