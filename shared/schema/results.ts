@@ -164,6 +164,9 @@ export interface StackResult {
   lifts: LiftResult[];
   governingLiftId: string | null;
   takeDown: TakeDownRow[];
+  /** The rules that produced these results (ENGINE_VERSION), set by the server when it stores them; absent in
+   *  results stored before it was recorded. */
+  engineVersion?: string;
 }
 
 export type StackStatus = 'passes' | 'fails' | 'errors';
