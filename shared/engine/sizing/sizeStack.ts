@@ -72,7 +72,7 @@ function withClass4Note(row: LiftSizing, underMoments: boolean, pick: LiftPick, 
   if (!underMoments) return row;
   const limit = pick.kind === 'section' ? pick.candidate.massPerMetre : Infinity;
   if (!candidates.some((c) => c.sectionClass === 4 && c.massPerMetre < limit)) return row;
-  const note = `Class 4 sections were not considered: this lift carries nominal moments, and ${CLASS_4_REFUSAL.charAt(0).toLowerCase()}${CLASS_4_REFUSAL.slice(1)}`;
+  const note = `Class 4 sections were not considered: this lift carries nominal moments. ${CLASS_4_REFUSAL}`;
   return { ...row, message: row.message ? `${row.message}. ${note}` : note };
 }
 
