@@ -4,6 +4,7 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { ENGINE_VERSION } from '../../shared/engine/version.ts';
 import type { StackDetail, StackSummary } from '../../shared/schema/api.ts';
 import type { RevisionDetail } from '../../shared/schema/revisions.ts';
+import { reanalyseOutdatedOnStart } from '../../server/services/outdatedResults.ts';
 import { startWithLeadAndBuilding, type TestServer } from './helpers.ts';
 
 const template = { storeys: 2, storeyHeight: 4, spliceEvery: 2, sections: ['UKC 203x203x46'], Gk: 100, Qk: 50, roofFaces: { yPlus: { Gk: 60, Qk: 20 } } };
@@ -47,5 +48,18 @@ describe('results of older rules at freezing', () => {
     // V/1 was up to date and keeps its version
     const other = revision.stacks.find((x) => x.name === 'V/1')!;
     expect(other.version).toBe(0);
+  });
+
+  it('at start-up analyses again the stacks an older engine left, once', async () => {
+    const sum = (await s.api('POST', `/buildings/${buildingId}/stacks`, { token, body: { name: 'V/3', template } })).body as StackSummary;
+    const fresh = await get(sum.id);
+    const old = { ...fresh.results };
+    delete old.engineVersion;
+    await s.ctx.db('stacks').where({ id: sum.id }).update({ results: JSON.stringify(old) });
+    expect(await reanalyseOutdatedOnStart(s.ctx.db)).toBe(1);
+    const now = await get(sum.id);
+    expect(now.version).toBe(fresh.version + 1);
+    expect(now.results).toEqual(fresh.results);
+    expect(await reanalyseOutdatedOnStart(s.ctx.db)).toBe(0);
   });
 });
