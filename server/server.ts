@@ -13,6 +13,7 @@ import { createMailer } from './mail/mailer.ts';
 import { createOffThread } from './offThread/pool.ts';
 import { nullBroadcaster } from './services/broadcast.ts';
 import { attachRealtime, type Realtime } from './realtime/index.ts';
+import { reanalyseOutdatedOnStart } from './services/outdatedResults.ts';
 
 export interface StartOptions {
   port?: number;
@@ -52,6 +53,7 @@ export async function startServer(opts: StartOptions = {}): Promise<RunningServe
     const { seedDemoIfEmpty } = await import('../seeds/demo.ts');
     await seedDemoIfEmpty(db, config.bcryptRounds);
   }
+  await reanalyseOutdatedOnStart(db);
   const log = pino({ level: config.logLevel, redact: ['req.headers.authorization'] });
   const mailer = await createMailer(config, db, log.child({ name: 'mail' }));
   const redis = config.redisUrl ? await connectRedis(config.redisUrl, log.child({ name: 'redis' })) : null;

@@ -67,8 +67,8 @@ function drawCombinedWorking(doc: Pdf, piece: PieceCheck): void {
   if (!combined || combined.steps.length === 0) return;
   drawWorking(
     doc,
-    `Combined check of the same piece with nominal moments, utilisation ${ratio(combined.utilisation)}`,
-    `simple construction: beam reactions on the column faces; Nb,y,Rd and Nb,z,Rd as in the axial working above`,
+    `Combined check with nominal moments${combined.combination ? `, eq. ${combined.combination}` : ''}, utilisation ${ratio(combined.utilisation)}`,
+    `same piece; simple construction: beam reactions on the faces; NEd and reactions of one combination (EN 1990 6.4.3.2)`,
     'EN 1993-1-1 6.3.1, 6.3.2',
     combined.steps,
   );

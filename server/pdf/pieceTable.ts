@@ -7,6 +7,7 @@ import { COLOUR, MARGIN, utilisationColour } from './layout.ts';
 import type { Pdf } from './pdf.ts';
 import { drawTable, type Cell, type Column } from './table.ts';
 import { axialOf, combinedOf } from './utilisations.ts';
+import { BUCKLING_LENGTH_RULE } from '../../shared/engine/stack/bucklingLengthFactor.ts';
 
 /** From, To, the forces and the buckling lengths: the columns both layouts start with. */
 const forceColumns = (kWidth: number): Column[] => [
@@ -35,7 +36,7 @@ const COMBINED_COLUMNS: Column[] = [
 export const COMBINED_LEGEND =
   'Axial: the largest of NEd/Nc,Rd, NEd,y/Nb,y,Rd and NEd,z/Nb,z,Rd. N+M: the combined check of a column in simple construction with its nominal moments (– where no moment acts on the piece). Mode: the check that governs (section, y-y or z-z buckling, or N+M).';
 
-const LCR_REF = 'Lcr = k·L, EN 1993-1-1 6.3.1.3';
+const LCR_REF = BUCKLING_LENGTH_RULE;
 /** Lengths from the critical buckling analysis: the equivalent length and, beside it, the tabulated factor. */
 const CRITICAL_REF = 'Lcr = π√(EI/Ncr), Ncr = αcr·NEd, EN 1993-1-1 6.3.1.2(1)';
 const tabulated = (p: PieceCheck): string | null =>

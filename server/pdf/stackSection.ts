@@ -1,6 +1,7 @@
 // One stack of the package: its elevation beside a table of its lifts, the load take-down, then the
 // member check of every lift.
 import type { Level } from '../../shared/schema/api.ts';
+import { NO_FACE_REACTIONS_NOTE } from '../../shared/engine/simple/applyNominalMoments.ts';
 import type { SnapshotStack } from '../../shared/schema/revisions.ts';
 import { summariseResult } from '../services/analysis.ts';
 import { drawBucklingShapes, SHAPE_MIN_HEIGHT } from './bucklingShape.ts';
@@ -39,7 +40,8 @@ export function drawStackSection(doc: Pdf, stack: SnapshotStack, levels: Level[]
   const line = `${stack.results.lifts.length} lifts · governing lift ${sum.governingLiftLabel ?? '–'} (${sum.governingSection ?? '–'}) · utilisation ${ratio(sum.utilisation)} · document version ${stack.version}`;
   doc.font(FONT.regular).fontSize(SIZE.body).fillColor(COLOUR.muted).text(line, MARGIN.left, doc.y, { width: FULL_WIDTH });
   doc.text(momentsLine(stack, momentsIncluded), MARGIN.left, doc.y + 2, { width: FULL_WIDTH });
-  for (const w of stack.results.warnings) doc.fillColor(COLOUR.near).text(`Note: ${w.message}`, MARGIN.left, doc.y + 2, { width: FULL_WIDTH });
+  // The line above already says when no face reactions give a moment
+  for (const w of stack.results.warnings.filter((x) => x.message !== NO_FACE_REACTIONS_NOTE.message)) doc.fillColor(COLOUR.near).text(`Note: ${w.message}`, MARGIN.left, doc.y + 2, { width: FULL_WIDTH });
   const top = doc.y + 16;
 
   const height = Math.min(CONTENT_BOTTOM - top - 40, 560);

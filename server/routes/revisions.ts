@@ -9,6 +9,7 @@ import { buildingOfRevisionId, freezeRevision, getRevision, listRevisions, loadS
 import { compareRevisions } from '../services/revisionsCompare.ts';
 import { packageFilename, sendRevisionMail } from '../services/revisionsMail.ts';
 import { ENGINE_VERSION } from '../../shared/engine/version.ts';
+import { reanalyseOutdated } from '../services/outdatedResults.ts';
 
 /** Where the e-mail's link points: the page the lead froze from (Origin), else this server. */
 function revisionsLink(req: Request, buildingId: number): string {
@@ -25,6 +26,8 @@ export function registerRevisionRoutes(router: Router, ctx: ServerContext): void
   router.post('/buildings/:id/revisions', auth, requireRole(ctx, 'lead'), async (req, res) => {
     const body = parseBody(freezeBodySchema, req);
     const { buildingId } = currentAccess(req);
+    // Results of older rules are brought up to date first: the revision names the current engine version.
+    await reanalyseOutdated(ctx, buildingId, currentUser(req));
     const { id, snapshot, hash } = await freezeRevision(ctx.db, buildingId, { ...body, engineVersion: ENGINE_VERSION }, currentUser(req));
     // Committed: from here on a failure to send is recorded per recipient and never undoes the freeze.
     const pdf = await ctx.offThread.renderPackage(snapshot, hash);

@@ -2,6 +2,7 @@
 // result for lists (so listing never recomputes).
 import type { Knex } from 'knex';
 import { analyseStack } from '../../shared/engine/index.ts';
+import { ENGINE_VERSION } from '../../shared/engine/version.ts';
 import type { AnalysisOptions, StackResult } from '../../shared/schema/results.ts';
 import type { SectionDims, StackDocument } from '../../shared/schema/stack.ts';
 import { getBuildingOptions } from './buildings.ts';
@@ -21,8 +22,9 @@ export async function analysisInputs(db: Knex, buildingId: number): Promise<Anal
   return { options, levels: new Map(rows.map((r) => [String(r.id), Number(r.elevation)])), sections: await companySectionMap(db, buildingId) };
 }
 
+/** The results as stored: marked with the rules that produced them, so results of older rules can be found. */
 export function analyse(doc: StackDocument, inputs: AnalysisInputs): StackResult {
-  return analyseStack(doc, inputs.options, { levels: inputs.levels, sections: inputs.sections, shapeChecked: true });
+  return { ...analyseStack(doc, inputs.options, { levels: inputs.levels, sections: inputs.sections, shapeChecked: true }), engineVersion: ENGINE_VERSION };
 }
 
 export type StackStatus = 'passes' | 'fails' | 'errors';

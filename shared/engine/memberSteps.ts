@@ -1,6 +1,7 @@
 import type { CalcStep, CompressionResult } from '../schema/results.ts';
 import { phiFactor } from './reductionFactor.ts';
 import type { GradeData } from './sectionData.ts';
+import { BUCKLING_LENGTH_RULE } from './stack/bucklingLengthFactor.ts';
 
 // Values are kept unrounded in engine units; the calculation sheet and the UI format them.
 // Symbols and clauses are constants so that a check on a hot path allocates only the steps.
@@ -21,7 +22,7 @@ function pushAxisSteps(out: CalcStep[], axis: 'y' | 'z', Lcr: number, Ncr: numbe
   const s = LABELS[axis];
   const ignored = lambdaBar <= 0.2 || NEd <= 0.04 * Ncr;
   out.push(
-    { symbol: s.Lcr, value: Lcr, unit: 'mm', clause: 'EN 1993-1-1 6.3.1.3', description: 'buckling length' },
+    { symbol: s.Lcr, value: Lcr, unit: 'mm', clause: BUCKLING_LENGTH_RULE, description: 'buckling length' },
     { symbol: s.Ncr, value: Ncr, unit: 'N', clause: 'EN 1993-1-1 6.3.1.2(1)', description: 'Ncr = π²EI/Lcr²' },
     { symbol: s.lambda, value: lambdaBar, unit: '', clause: class4 ? 'EN 1993-1-1 eq. 6.51' : 'EN 1993-1-1 eq. 6.50' },
     { symbol: s.phi, value: phiFactor(lambdaBar, alpha), unit: '', clause: 'EN 1993-1-1 6.3.1.2(1)' },

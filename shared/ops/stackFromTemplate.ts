@@ -1,7 +1,7 @@
 // A stack document from a template: the server creates stacks with it and the client may
 // preview with it. Pure.
 import type { Level, StackTemplate } from '../schema/api.ts';
-import type { StackDocument, StackEdge, StackNode } from '../schema/stack.ts';
+import type { RestraintFaces, StackDocument, StackEdge, StackNode } from '../schema/stack.ts';
 
 /**
  * Splices sit a little above the floor so the connection is clear of the floor beams
@@ -47,6 +47,12 @@ export function spliceElevation(floor: number, nextFloor: number): number {
   return round(Math.min(floor + SPLICE_ABOVE_FLOOR_M, (floor + nextFloor) / 2));
 }
 
+/** The faces as given, when one of them carries a reaction (an empty set adds nothing to the document). */
+function givenFaces(faces: RestraintFaces | undefined): { faces: RestraintFaces } | Record<string, never> {
+  const any = faces && Object.values(faces).some((f) => !!f && (f.Gk > 0 || f.Qk > 0));
+  return any && faces ? { faces } : {};
+}
+
 /** Input as parsed by stackTemplateSchema (defaults applied). */
 export function stackFromTemplate(t: StackTemplate, levels: readonly Level[] = []): StackDocument {
   const floors = templateFloors(t);
@@ -73,7 +79,8 @@ export function stackFromTemplate(t: StackTemplate, levels: readonly Level[] = [
     link(below, liftId);
     const above = last ? 'cap' : `splice-${i + 1}`;
     if (last) {
-      nodes.push({ id: 'cap', kind: 'cap', data: { elevation: topElevation, ...onLevel(topElevation), fixity: 'pinned', Gk: t.Gk, Qk: t.Qk, category: 'H' }, position: at(CHAIN_X, topElevation) });
+      const data = { elevation: topElevation, ...onLevel(topElevation), fixity: 'pinned' as const, Gk: t.Gk, Qk: t.Qk, category: 'H' as const, ...givenFaces(t.roofFaces) };
+      nodes.push({ id: 'cap', kind: 'cap', data, position: at(CHAIN_X, topElevation) });
     } else {
       nodes.push({ id: above, kind: 'splice', data: { elevation: topElevation }, position: at(CHAIN_X, topElevation) });
     }
@@ -85,7 +92,7 @@ export function stackFromTemplate(t: StackTemplate, levels: readonly Level[] = [
       nodes.push({
         id,
         kind: 'restraint',
-        data: { elevation, ...onLevel(elevation), axes: 'both', fixity: 'pinned', Gk: t.Gk, Qk: t.Qk, category: 'B' },
+        data: { elevation, ...onLevel(elevation), axes: 'both', fixity: 'pinned', Gk: t.Gk, Qk: t.Qk, category: 'B', ...givenFaces(t.faces) },
         position: at(RESTRAINT_X, elevation),
       });
       link(id, liftId);

@@ -1,7 +1,7 @@
 // Request and response bodies of the REST API (docs/contracts.md §REST routes). Both ends use these; nothing is
 // redeclared.
 import { z } from 'zod';
-import { stackDocumentSchema, gradeSchema, fixitySchema, sectionDimsSchema, MAX_ELEVATION_M } from './stack.ts';
+import { stackDocumentSchema, gradeSchema, fixitySchema, sectionDimsSchema, restraintFacesSchema, MAX_ELEVATION_M } from './stack.ts';
 import { opsSchema } from './ops.ts';
 import { analysisOptionsSchema, type AnalysisOptions, type StackResult } from './results.ts';
 
@@ -105,6 +105,10 @@ export const stackTemplateSchema = z
     /** Characteristic floor loads per level (kN) for the template's restraints. */
     Gk: z.number().finite().min(0).max(1e5).default(0),
     Qk: z.number().finite().min(0).max(1e5).default(0),
+    /** Beam reactions on the column faces at every floor (part of Gk/Qk), for the nominal moments; optional. */
+    faces: restraintFacesSchema.optional(),
+    /** Roof beam reactions on the cap's faces; optional. */
+    roofFaces: restraintFacesSchema.optional(),
   })
   .strict()
   .superRefine((t, ctx) => {

@@ -89,6 +89,9 @@ export interface CombinedCheck {
   majorTerm: number;
   minorTerm: number;
   utilisation: number;
+  /** The expression of EN 1990 6.4.3.2 that governs, e.g. "6.10b"; NEd and the reactions both come from it.
+   *  Absent in results stored before the check was made per combination. */
+  combination?: string;
   steps: CalcStep[];
 }
 
@@ -176,6 +179,9 @@ export interface StackResult {
   takeDown: TakeDownRow[];
   /** With `bucklingLengths: 'critical'`: the lowest load factor per axis on the design forces. */
   criticalBuckling?: { y: CriticalAxis; z: CriticalAxis };
+  /** The rules that produced these results (ENGINE_VERSION), set by the server when it stores them; absent in
+   *  results stored before it was recorded. */
+  engineVersion?: string;
 }
 
 export type StackStatus = 'passes' | 'fails' | 'errors';

@@ -55,8 +55,17 @@ export const restraintDataSchema = z
     faces: restraintFacesSchema.optional(),
   })
   .strict();
+/** `faces`: roof beams on the cap's faces, as on a restraint; optional, so older documents stay valid. */
 export const capDataSchema = z
-  .object({ elevation, levelId, fixity: z.union([fixitySchema, z.literal('free')]), Gk: load, Qk: load, category: categorySchema })
+  .object({
+    elevation,
+    levelId,
+    fixity: z.union([fixitySchema, z.literal('free')]),
+    Gk: load,
+    Qk: load,
+    category: categorySchema,
+    faces: restraintFacesSchema.optional(),
+  })
   .strict();
 export const loadDataSchema = z.object({ label: z.string().max(120), Gk: load, Qk: load, category: categorySchema }).strict();
 

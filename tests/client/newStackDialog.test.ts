@@ -9,6 +9,7 @@ import type { Building, Level, StackSummary } from '@shared/schema/api.ts';
 import { DEFAULT_ANALYSIS_OPTIONS } from '@shared/schema/results.ts';
 import NewStackDialog from '@/components/building/NewStackDialog.vue';
 import SectionSelect from '@/components/building/SectionSelect.vue';
+import RestraintFacesForm from '@/components/stack/RestraintFacesForm.vue';
 import { useBuildingsStore } from '@/stores/buildings.ts';
 import { mockFetch } from './fetchMock.ts';
 
@@ -149,6 +150,20 @@ describe("new stack at the building's levels", () => {
       template: { elevations: [0, 4.5, 8, 11.5, 15.7], spliceEvery: 2, sections: ['UKC 203x203x46', 'UKC 203x203x46'], grade: 'S355', baseFixity: 'pinned', Gk: 150, Qk: 90 },
     });
     expect(w.emitted('created')).toEqual([[12]]);
+    w.unmount();
+  });
+
+  it('sends beam reactions for every floor and for the roof when given, and none otherwise', async () => {
+    const requests = mockFetch(created());
+    const { w } = await mountDialog(LEVELS);
+    const [floors, roof] = w.findAllComponents(RestraintFacesForm);
+    expect(roof.props('roof')).toBe(true);
+    floors.vm.$emit('change', { faces: { yPlus: { Gk: 40, Qk: 25 } } });
+    roof.vm.$emit('change', { faces: { yPlus: { Gk: 30, Qk: 10 } } });
+    await flushPromises();
+    await fillAndCreate(w);
+    const template = (requests.find((r) => r.method === 'POST')?.body as { template: Record<string, unknown> }).template;
+    expect(template).toMatchObject({ faces: { yPlus: { Gk: 40, Qk: 25 } }, roofFaces: { yPlus: { Gk: 30, Qk: 10 } } });
     w.unmount();
   });
 

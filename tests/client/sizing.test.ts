@@ -78,6 +78,17 @@ describe('sizing preview table', () => {
   });
 });
 
+describe('sizing preview notes', () => {
+  it('shows beside a proposed section why lighter ones were passed over', () => {
+    const note = 'Class 4 sections were not considered: this lift carries nominal moments.';
+    const withNote = preview(3, 'C/1', [{ ...lift('l1', 'L1', 0, 8, ['SHS 200x200x10', 57.8], ['SHS 180x180x6.3', 34], 'proposed'), message: note }]);
+    const chosen = allSelectable([withNote]);
+    const wrapper = mount(SizingPreviewTable, { props: { rows: previewRows([withNote]), previews: [withNote], chosen, totals: massTotals([withNote], chosen), showStack: false } });
+    expect(wrapper.find(`[data-test="row-${rowKey(3, 'l1')}"] [data-test="proposal-note"]`).text()).toBe(note);
+    expect(wrapper.find(`[data-test="row-${rowKey(3, 'l1')}"]`).text()).toContain('SHS 180x180x6.3');
+  });
+});
+
 describe('sizing form', () => {
   it('sends the series, grade, target and rules, and refuses a target above 1', async () => {
     const wrapper = mount(SizingForm, { props: { busy: false } });

@@ -38,7 +38,7 @@ describe('worked example: edge column in simple construction, UKC 254x254x73 S35
   const props = sectionData(section).props;
   const lifts = [{ bottom: 0, top: 9, dims, Iy: props.Iy, Iz: props.Iz }];
   const floors = [{ nodeId: 'r1', elevation: 4.5, category: 'A' as const, faces: { yPlus: { Gk: 60, Qk: 40 }, zPlus: { Gk: 30, Qk: 20 }, zMinus: { Gk: 20, Qk: 15 } } }];
-  const [floor] = floorMoments(floors, lifts, 0, 9, DEFAULT_ANALYSIS_OPTIONS);
+  const [floor] = floorMoments(floors, lifts, 0, 9, DEFAULT_ANALYSIS_OPTIONS, '6.10b');
   const moments = pieceMoments(0, 4.5, [4.5], [floor]);
   const result = checkSimpleColumn({ section, grade: 'S355', LcrY: 4500, LcrZ: 4500, NEdY: 1.5e6, NEdZ: 1.5e6, MyEd: moments.My * 1e6, MzEd: moments.Mz * 1e6 });
 

@@ -86,10 +86,10 @@ describe('floorMoments and pieceMoments on a column by hand', () => {
   const lifts: ColumnLength[] = [{ bottom: 0, top: 10, dims: UKC_254_73, Iy: 1.14e8, Iz: 3.91e7 }];
   const floors: MomentFloor[] = [
     { nodeId: 'r1', elevation: 4, category: 'A', faces: { yPlus: { Gk: 60, Qk: 40 } } },
-    { nodeId: 'r2', elevation: 7, category: 'A' },
+    { nodeId: 'r2', elevation: 7, category: 'A', loaded: true },
   ];
   const options = { ...DEFAULT_ANALYSIS_OPTIONS, combination: '6.10' as const };
-  const moments = floorMoments(floors, lifts, 0, 10, options);
+  const moments = floorMoments(floors, lifts, 0, 10, options, '6.10');
 
   it('finds the net moment at the floor and shares it equally when EI/L differ by 1.5 or less', () => {
     expect(moments).toHaveLength(1);
@@ -109,7 +109,7 @@ describe('floorMoments and pieceMoments on a column by hand', () => {
       { bottom: 0, top: 4, dims: UKC_254_73, Iy: 1.14e8, Iz: 3.91e7 },
       { bottom: 4, top: 10, dims: UKC_254_73, Iy: 2.22e8, Iz: 7.3e7 },
     ];
-    const [m] = floorMoments(floors, two, 0, 10, options);
+    const [m] = floorMoments(floors, two, 0, 10, options, '6.10');
     expect(m.y.share.rule).toBe('stiffness');
     expect(m.y.share.above).toBeCloseTo(23.112, 2);
     expect(m.y.share.below).toBeCloseTo(8.901, 2);

@@ -1,4 +1,5 @@
 import { describe, expect, it } from 'vitest';
+import { NO_FACE_REACTIONS_NOTE } from '../../shared/engine/simple/applyNominalMoments.ts';
 import { analyseStack } from '../../shared/engine/stack/analyseStack.ts';
 import { stackFromTemplate } from '../../shared/ops/stackFromTemplate.ts';
 import type { PieceCheck, StackResult } from '../../shared/schema/results.ts';
@@ -40,7 +41,10 @@ describe('analyseStack with nominal moments', () => {
       const doc = stackFromTemplate(template);
       const on = analyseStack(doc);
       expect(on.errors).toEqual([]);
-      expect(on).toEqual(analyseStack(doc, { nominalMoments: false }));
+      // The same figures, with a note that the combined check is not made (no face reactions)
+      const off = analyseStack(doc, { nominalMoments: false });
+      expect(on.warnings).toEqual([...off.warnings, NO_FACE_REACTIONS_NOTE]);
+      expect({ ...on, warnings: off.warnings }).toEqual(off);
       for (const lift of on.lifts) {
         expect(lift.governing).not.toBe('combined');
         for (const p of lift.pieces) expect(p.combined).toBeUndefined();
@@ -87,6 +91,12 @@ describe('analyseStack with nominal moments', () => {
     const doc = withFaces(three, { yPlus: { Gk: 60, Qk: 40 } });
     const pieces = analyseStack(doc).lifts[0].pieces;
     expect(pieces.map((p) => p.combined !== undefined)).toEqual([true, true, false]);
+  });
+
+  it('says on the stack when the option is on but no face reactions give a moment, and not when it is off', () => {
+    expect(analyseStack(base).warnings).toContainEqual(NO_FACE_REACTIONS_NOTE);
+    expect(analyseStack(base, { nominalMoments: false }).warnings).not.toContainEqual(NO_FACE_REACTIONS_NOTE);
+    expect(analyseStack(withFaces(base, EDGE_FACES)).warnings).not.toContainEqual(NO_FACE_REACTIONS_NOTE);
   });
 
   it('can be switched off per building', () => {

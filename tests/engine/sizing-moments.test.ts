@@ -2,8 +2,18 @@
 // The lifts are then coupled through the moment sharing, so the yardstick is the whole-stack analysis.
 import { describe, expect, it } from 'vitest';
 import { analyseStack, sizeStack, sizingCandidates } from '../../shared/engine/index.ts';
+import { gradeData, sectionData } from '../../shared/engine/sectionData.ts';
+import { liftsUnderMoments } from '../../shared/engine/simple/liftsUnderMoments.ts';
+import { inspectStack } from '../../shared/engine/stack/inspectStack.ts';
+import { DEFAULT_ANALYSIS_OPTIONS } from '../../shared/schema/results.ts';
 import type { RestraintFaces, StackDocument } from '../../shared/schema/stack.ts';
 import { accepted, officeStack, request, tallTopStack, withSections } from './sizing-helpers.ts';
+import { buildStack } from './stack-builder.ts';
+
+/** Every restraint of the document with these face reactions. */
+function facesEverywhere(doc: StackDocument, faces: RestraintFaces): StackDocument {
+  return { edges: doc.edges, nodes: doc.nodes.map((n) => (n.kind === 'restraint' ? { ...n, data: { ...n.data, faces } } : n)) };
+}
 
 /** The office stack with edge-beam reactions on one flange and both web faces at every floor (invented). */
 function facedStack(): StackDocument {
@@ -88,3 +98,53 @@ describe('sizing with nominal moments against every assignment of a small stack'
     });
   });
 });
+
+// EN 1993-1-1 Table 5.2, internal part in compression: class 3 limit 42ε; S355 hot-finished SHS (t ≤ 16,
+// EN 10210-1 fy 355): ε = √(235/355) = 0.8136, 42ε = 34.17. SHS 200x200x5: c/t = (200 − 3·5)/5 = 37.0 > 34.17,
+// class 4. The combined check does not cover class 4, so where the moments act sizing must step over it.
+describe('sizing with nominal moments where the lightest axial section is class 4', () => {
+  // One lift of SHS from +0.000 to +8.000, floor +4.000 (Gk 300, Qk 150, A) with a beam on one face
+  // (Gk 20, Qk 10), roof cap Gk 300, Qk 75 (H). Invented loads, picked so that the axial proposal is class 4.
+  const doc = facesEverywhere(
+    buildStack({ lifts: [{ top: 8, section: 'SHS 200x200x10' }], floors: [{ elevation: 4, Gk: 300, Qk: 150 }], cap: { Gk: 300, Qk: 75, category: 'H' } }),
+    { yPlus: { Gk: 20, Qk: 10 } },
+  );
+  const shs = request({ series: 'SHS' });
+
+  it('would take the class 4 SHS 200x200x5 for the axial load alone', () => {
+    const axial = sizeStack(doc, shs, { nominalMoments: false });
+    expect(axial.lifts[0].after?.section).toBe('SHS 200x200x5');
+    expect(classOf('SHS 200x200x5')).toBe(4);
+  });
+
+  it('moves on to the lightest section the combined check covers that passes, instead of failing', () => {
+    const sizing = sizeStack(doc, shs);
+    expect(sizing.errors).toEqual([]);
+    expect(sizing.complete).toBe(true);
+    const picked = sizing.lifts[0].after!;
+    expect(classOf(picked.section)).toBeLessThan(4);
+    const result = analyseStack(accepted(doc, sizing));
+    expect(result.errors).toEqual([]);
+    expect(result.lifts[0].utilisation).toBeLessThanOrEqual(1);
+    expect(picked.utilisation).toBeCloseTo(result.lifts[0].utilisation, 9);
+    // Brute force over the series: every lighter section is class 4 or fails the whole-stack analysis
+    for (const c of sizingCandidates('SHS').filter((c) => c.massPerMetre < picked.massPerMetre)) {
+      if (classOf(c.designation) === 4) continue;
+      const lighter = analyseStack(withSections(doc, [c.designation]));
+      expect(lighter.errors.length > 0 || lighter.lifts[0].utilisation > 1).toBe(true);
+    }
+    expect(sizing.lifts[0].message).toMatch(/^Class 4 sections were not considered: this lift carries nominal moments/);
+  });
+
+  it('leaves class 4 open to a lift the moments do not reach', () => {
+    // Faces only on the cap: the roof moment stays in the top storey (4–8 m, lift L2); L1 (0–4 m) is axial only.
+    const two = buildStack({ lifts: [{ top: 4 }, { top: 8 }], floors: [{ elevation: 4, Gk: 300, Qk: 150 }], cap: { Gk: 300, Qk: 75, category: 'H' } });
+    const capped = { edges: two.edges, nodes: two.nodes.map((n) => (n.kind === 'cap' ? { ...n, data: { ...n.data, faces: { yPlus: { Gk: 20, Qk: 10 } } } } : n)) };
+    const model = inspectStack(capped).model!;
+    expect(liftsUnderMoments(capped, model, DEFAULT_ANALYSIS_OPTIONS)).toEqual([false, true]);
+  });
+});
+
+function classOf(designation: string): number {
+  return gradeData(sectionData(designation), 'S355', 'UK').sectionClass;
+}

@@ -1,6 +1,6 @@
 // Stacks from a template whose floors are given as elevations (a building's own, irregular levels).
 // Elevations and loads are invented; the expected figures are arithmetic on them, and the buckling length
-// between pinned restraints is the storey (EN 1993-1-1 6.3.1.3, Lcr = k·L with k = 1.0).
+// between pinned restraints is the storey (Lcr = k·L with k = 1.0: common practice, after BS 5950-1 Table 22).
 import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
 import { analyseStack, validateStack } from '../../shared/engine/index.ts';
@@ -147,5 +147,37 @@ describe('stackTemplateSchema', () => {
     expect(messages({ elevations: [3], sections })).toHaveLength(1);
     expect(messages({ elevations: [0, 1e308], sections })).toHaveLength(1);
     expect(messages({ elevations: Array.from({ length: 122 }, (_, i) => i * 3), sections })).toHaveLength(1);
+  });
+});
+
+describe('stackFromTemplate with beam reactions on the faces', () => {
+  const body = { storeys: 3, storeyHeight: 4, spliceEvery: 2, sections: ['UKC 254x254x73', 'UKC 203x203x46'], Gk: 150, Qk: 90 };
+
+  it('puts the floor faces on every floor restraint and the roof faces on the cap, and nothing when none are given', () => {
+    const t = stackTemplateSchema.parse({ ...body, faces: { yPlus: { Gk: 40, Qk: 25 } }, roofFaces: { zPlus: { Gk: 30, Qk: 10 } } });
+    const doc = stackFromTemplate(t);
+    expect(stackDocumentSchema.safeParse(doc).success).toBe(true);
+    const restraints = doc.nodes.filter((n) => n.kind === 'restraint');
+    expect(restraints).toHaveLength(2);
+    for (const r of restraints) expect(r.kind === 'restraint' && r.data.faces).toEqual({ yPlus: { Gk: 40, Qk: 25 } });
+    const cap = doc.nodes.find((n) => n.kind === 'cap');
+    expect(cap?.kind === 'cap' && cap.data.faces).toEqual({ zPlus: { Gk: 30, Qk: 10 } });
+    const plain = stackFromTemplate(stackTemplateSchema.parse(body));
+    expect(plain.nodes.some((n) => (n.kind === 'restraint' || n.kind === 'cap') && 'faces' in n.data)).toBe(false);
+    expect(stackFromTemplate(stackTemplateSchema.parse({ ...body, faces: { yPlus: { Gk: 0, Qk: 0 } } }))).toEqual(plain);
+  });
+
+  it('refuses a negative face reaction in a template', () => {
+    expect(stackTemplateSchema.safeParse({ ...body, roofFaces: { yPlus: { Gk: -1, Qk: 0 } } }).success).toBe(false);
+  });
+
+  it('gives a stack whose analysis checks the roof moment in the top storey', () => {
+    const doc = stackFromTemplate(stackTemplateSchema.parse({ ...body, roofFaces: { yPlus: { Gk: 60, Qk: 20 } } }));
+    const result = analyseStack(doc);
+    expect(result.errors).toEqual([]);
+    const top = result.lifts[result.lifts.length - 1];
+    // Storeys end at +4, +8 and the cap at +12: only pieces from +8 up carry the roof moment
+    for (const p of result.lifts.flatMap((l) => l.pieces)) expect(p.combined !== undefined).toBe(p.from >= 8 - 1e-9);
+    expect(top.pieces.some((p) => p.combined)).toBe(true);
   });
 });

@@ -118,7 +118,7 @@ describe('levels', () => {
     const levelId = (name: string) => levels.find((l) => l.name === name)?.id;
     expect(at('support')).toMatchObject({ elevation: 0, levelId: levelId('Ground') });
     expect(at('cap')).toMatchObject({ elevation: 15.7, levelId: levelId('Roof') });
-    // The ground storey is the bottom piece: pinned at both ends, it buckles over its 4.5 m (EN 1993-1-1 6.3.1.3).
+    // The ground storey is the bottom piece: pinned at both ends, it buckles over its 4.5 m (Lcr = k·L, k = 1.0 for pinned ends: common practice, after BS 5950-1 Table 22).
     expect(before.results.lifts[0].pieces[0].LcrZ).toBeCloseTo(4.5, 6);
 
     const level1 = levels.find((l) => l.name === 'Level 1') as Level;

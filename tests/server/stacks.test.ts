@@ -36,6 +36,17 @@ describe('stacks', () => {
     expect(sum).toMatchObject({ governingLiftId: governing.liftId, governingLiftLabel: governing.label, governingSection: governing.section });
   });
 
+  it('creates a stack with beam reactions on every floor and the roof, and checks their nominal moments', async () => {
+    const faces = { yPlus: { Gk: 40, Qk: 25 } };
+    const sum = await create({ name: 'F/1', template: { ...template, faces, roofFaces: faces } });
+    const d = await get(sum.id);
+    const faced = d.doc.nodes.filter((n) => (n.kind === 'restraint' || n.kind === 'cap') && n.data.faces);
+    expect(faced).toHaveLength(4);
+    expect(d.results.lifts.every((l) => l.pieces.every((p) => p.combined?.combination))).toBe(true);
+    const bad = await s.api('POST', `/buildings/${buildingId}/stacks`, { token, body: { name: 'F/2', template: { ...template, roofFaces: { up: { Gk: 1, Qk: 0 } } } } });
+    expect(bad.status).toBe(400);
+  });
+
   it('fills the governing lift label of stacks stored before the column existed when migrating up', async () => {
     const sum = await create({ name: 'M/1', template });
     const migrationConfig = { migrationSource };

@@ -1,56 +1,62 @@
 // Adds the simple-construction combined check to the pieces of an analysed stack when beam reactions are
-// given on the column faces. Without face reactions (or with the option off) the results are untouched.
-import type { AnalysisOptions, CalcStep, Issue, LiftResult, PieceCheck } from '../../schema/results.ts';
-import type { Grade, RestraintFaces, SectionDims, StackDocument } from '../../schema/stack.ts';
+// given on the column faces (at floors or at the cap). Without face reactions (or with the option off)
+// the results are untouched.
+import type { AnalysisOptions, CombinedCheck, Issue, LiftResult, PieceCheck } from '../../schema/results.ts';
+import type { Grade, SectionDims, StackDocument } from '../../schema/stack.ts';
 import { checkCompression } from '../checkCompression.ts';
 import { isEngineError } from '../errors.ts';
 import { sectionData } from '../sectionData.ts';
+import type { Expression } from '../stack/combination.ts';
 import type { StackModel } from '../stack/inspectStack.ts';
 import { checkSimpleColumn } from './checkSimpleColumn.ts';
+import { expressionsOf, forcesOfExpression, type PieceForces } from './combinationForces.ts';
 import { faceWarnings } from './faceWarnings.ts';
-import { floorMoments, type FloorMoment, type MomentFloor } from './floorMoments.ts';
-import { pieceMoments, type PieceMoments } from './pieceMoments.ts';
+import { floorMoments, hasReactions, storeyLevels, type FloorMoment, type MomentFloor } from './floorMoments.ts';
+import { combinationStep, momentSteps } from './momentSteps.ts';
+import { pieceMoments } from './pieceMoments.ts';
+
+/** Said on the stack when the building asks for nominal moments but nothing gives one: else the check is silently absent. */
+export const NO_FACE_REACTIONS_NOTE: Issue = {
+  message:
+    'Nominal moments are on for this building, but no beam reactions are given on the column faces of this stack (restraints or cap): the combined check is not made and these results are axial only',
+};
 
 export interface NominalMomentsOutcome {
   errors: Issue[];
   warnings: Issue[];
 }
 
-function momentFloors(doc: StackDocument, model: StackModel): MomentFloor[] {
+/** Every restraint and the cap, with the loads entering there (their own and attached load nodes). */
+export function momentFloors(doc: StackDocument, model: StackModel): (MomentFloor & { Gk: number; Qk: number })[] {
   const byId = new Map(doc.nodes.map((n) => [n.id, n]));
-  return model.restraints.map((r) => {
-    const node = byId.get(r.id);
-    const data = node?.kind === 'restraint' ? node.data : undefined;
-    return { nodeId: r.id, elevation: r.elevation, category: data?.category ?? 'A', faces: data?.faces };
+  const top = model.lifts[model.lifts.length - 1].top;
+  const floors = model.entries.map((entry) => {
+    const node = byId.get(entry.nodeId);
+    const data = node?.kind === 'restraint' || node?.kind === 'cap' ? node.data : undefined;
+    const Qk = Object.values(entry.Qk).reduce((s: number, q) => s + (q ?? 0), 0);
+    const cap = node?.kind === 'cap';
+    return { nodeId: entry.nodeId, elevation: cap ? top : entry.elevation, category: data?.category ?? 'A', faces: data?.faces, loaded: entry.Gk > 0 || Qk > 0, cap, Gk: entry.Gk, Qk };
   });
+  return floors.sort((a, b) => a.elevation - b.elevation);
 }
 
-function hasReactions(faces: RestraintFaces | undefined): boolean {
-  if (!faces) return false;
-  return [faces.yPlus, faces.yMinus, faces.zPlus, faces.zMinus].some((f) => f && (f.Gk > 0 || f.Qk > 0));
+/** The option is on and some restraint or the cap has a face reaction. */
+export function hasFaceReactions(doc: StackDocument, options: Pick<AnalysisOptions, 'nominalMoments'>): boolean {
+  if (options.nominalMoments === false) return false;
+  return doc.nodes.some((n) => (n.kind === 'restraint' || n.kind === 'cap') && hasReactions(n.data.faces));
 }
 
-function axisSteps(axis: 'y' | 'z', floor: FloorMoment | null, side: 'above' | 'below'): CalcStep[] {
-  if (!floor) return [];
-  const m = floor[axis];
-  if (m.M === 0) return [];
-  const where = `floor at ${floor.elevation.toFixed(3)} m`;
-  const rule = m.share.rule === 'equal' ? 'shared equally (EI/L ratio ≤ 1.5)' : m.share.rule === 'stiffness' ? 'shared by EI/L' : 'one column length';
-  return [
-    { symbol: `R${axis},net`, value: m.reaction.value * 1000, unit: 'N', clause: m.reaction.expression, description: `${where}: worst imposed-load pattern across the ${axis} faces` },
-    { symbol: `e${axis}`, value: m.e, unit: 'mm', clause: 'simple construction, reaction 100 mm from the face', description: axis === 'y' ? 'h/2 + 100' : 'tw/2 + 100 (hollow: b/2 + 100)' },
-    { symbol: `M${axis},floor`, value: m.M * 1e6, unit: 'N·mm', clause: 'simple construction', description: where },
-    { symbol: `M${axis},${side}`, value: m.share[side] * 1e6, unit: 'N·mm', clause: 'simple construction', description: `${rule}; not carried to the next floor` },
-  ];
-}
-
-function momentSteps(m: PieceMoments): CalcStep[] {
-  return [...axisSteps('y', m.floorBelow, 'above'), ...axisSteps('y', m.floorAbove, 'below'), ...axisSteps('z', m.floorBelow, 'above'), ...axisSteps('z', m.floorAbove, 'below')];
+interface Trial {
+  expression: Expression;
+  moments: FloorMoment[];
+  forces: PieceForces[];
 }
 
 /**
- * Mutates `lifts`: each piece under nominal moments gains `combined`; its utilisation becomes the larger of
- * the axial and the combined checks ('combined' governs only when strictly larger), and so does its lift's.
+ * Mutates `lifts`: each piece under nominal moments gains `combined`, the worst of the combinations (eq.
+ * 6.10, or each of eq. 6.10a and 6.10b), each taking NEd and the beam reactions from itself; its
+ * utilisation becomes the larger of the axial and the combined checks ('combined' governs only when
+ * strictly larger), and so does its lift's.
  */
 export function applyNominalMoments(
   doc: StackDocument,
@@ -60,44 +66,75 @@ export function applyNominalMoments(
   sections?: ReadonlyMap<string, SectionDims>,
 ): NominalMomentsOutcome {
   const floors = momentFloors(doc, model);
-  const warnings = faceWarnings(
-    floors.map((f) => {
-      const entry = model.entries.find((e) => e.nodeId === f.nodeId);
-      const Qk = entry ? Object.values(entry.Qk).reduce((s: number, q) => s + (q ?? 0), 0) : 0;
-      return { nodeId: f.nodeId, elevation: f.elevation, faces: f.faces, Gk: entry?.Gk ?? 0, Qk };
-    }),
-  );
-  if (options.nominalMoments === false || !floors.some((f) => hasReactions(f.faces))) return { errors: [], warnings };
+  const warnings = faceWarnings(floors);
+  if (options.nominalMoments === false) return { errors: [], warnings };
+  if (!floors.some((f) => hasReactions(f.faces))) return { errors: [], warnings: [...warnings, NO_FACE_REACTIONS_NOTE] };
 
   const columns = model.lifts.map((l) => {
     const { props } = sectionData(l.data.section, sections);
     return { bottom: l.bottom, top: l.top, dims: l.section.dims, Iy: props.Iy, Iz: props.Iz };
   });
-  const moments = floorMoments(floors, columns, model.lifts[0].bottom, model.lifts[model.lifts.length - 1].top, options).filter((m) => m.y.M > 0 || m.z.M > 0);
-  const elevations = floors.map((f) => f.elevation);
+  const bottom = model.lifts[0].bottom;
+  const top = model.lifts[model.lifts.length - 1].top;
+  const levels = storeyLevels(floors, bottom, top);
+  const trials: Trial[] = expressionsOf(options).map((expression) => ({
+    expression,
+    moments: floorMoments(floors, columns, bottom, top, options, expression).filter((m) => m.y.M > 0 || m.z.M > 0),
+    forces: forcesOfExpression(model, lifts, options, expression),
+  }));
   const errors: Issue[] = [];
   for (const [i, lift] of lifts.entries()) {
     const modelLift = model.lifts[i];
+    const { section, grade } = modelLift.data;
     try {
-      for (const piece of lift.pieces) addCombined(piece, pieceMoments(piece.from, piece.to, elevations, moments), modelLift.data.section, modelLift.data.grade, options, sections);
+      lift.pieces.forEach((piece, k) => addCombined(piece, worstCombination(piece, levels, trials, i, k, section, grade, options, sections)));
     } catch (error) {
       if (!isEngineError(error)) throw error;
       errors.push({ nodeId: lift.liftId, message: `Lift ${modelLift.name}: ${error.message}` });
       continue;
     }
-    governLift(lift, modelLift.data.section, modelLift.data.grade, options, sections);
+    governLift(lift, section, grade, options, sections);
   }
   return { errors, warnings };
 }
 
-function addCombined(piece: PieceCheck, m: PieceMoments, section: string | SectionDims, grade: Grade, options: AnalysisOptions, sections?: ReadonlyMap<string, SectionDims>): void {
-  if (m.My === 0 && m.Mz === 0) return;
-  // kN → N, kN·m → N·mm, m → mm
-  const combined = checkSimpleColumn(
-    { section, grade, LcrY: piece.LcrY * 1000, LcrZ: piece.LcrZ * 1000, NEdY: piece.NEdY * 1000, NEdZ: piece.NEdZ * 1000, MyEd: m.My * 1e6, MzEd: m.Mz * 1e6, annex: options.annex },
-    { compression: piece.check, extraSections: sections },
-  );
-  combined.steps = [...momentSteps(m), ...combined.steps];
+/** The combined check of one piece under each combination; the worst, with the others named in its working. */
+function worstCombination(
+  piece: PieceCheck,
+  levels: readonly number[],
+  trials: readonly Trial[],
+  lift: number,
+  index: number,
+  section: string | SectionDims,
+  grade: Grade,
+  options: AnalysisOptions,
+  sections?: ReadonlyMap<string, SectionDims>,
+): CombinedCheck | null {
+  const checks: CombinedCheck[] = [];
+  for (const trial of trials) {
+    const m = pieceMoments(piece.from, piece.to, levels, trial.moments);
+    if (m.My === 0 && m.Mz === 0) continue;
+    const NEdY = trial.forces[lift].NEdY[index];
+    const NEdZ = trial.forces[lift].NEdZ[index];
+    // kN → N, kN·m → N·mm, m → mm. piece.check was run with the largest NEd of all combinations: the
+    // buckling resistances it gives are never larger than those for a smaller force (6.3.1.2(4)).
+    const combined = checkSimpleColumn(
+      { section, grade, LcrY: piece.LcrY * 1000, LcrZ: piece.LcrZ * 1000, NEdY: NEdY * 1000, NEdZ: NEdZ * 1000, MyEd: m.My * 1e6, MzEd: m.Mz * 1e6, annex: options.annex },
+      { compression: piece.check, extraSections: sections },
+    );
+    combined.combination = trial.expression;
+    for (const step of combined.steps) if (step.symbol.startsWith('NEd,')) step.description = `${step.description ?? ''}, eq. ${trial.expression}`;
+    combined.steps = [...momentSteps(m, piece), ...combined.steps];
+    checks.push(combined);
+  }
+  if (checks.length === 0) return null;
+  const worst = checks.reduce((a, b) => (b.utilisation > a.utilisation ? b : a));
+  worst.steps.unshift(combinationStep(worst, checks));
+  return worst;
+}
+
+function addCombined(piece: PieceCheck, combined: CombinedCheck | null): void {
+  if (!combined) return;
   piece.combined = combined;
   if (combined.utilisation > piece.utilisation) {
     piece.axialUtilisation = piece.utilisation;

@@ -33,6 +33,10 @@ export interface SimpleColumnOptions {
 
 const METHOD = 'NCCI SN048b simplified interaction';
 
+/** Why a class 4 section is not checked under nominal moments (and so never proposed for one by sizing). */
+export const CLASS_4_REFUSAL =
+  'The combined check with nominal moments is not available for class 4 sections: the simplified interaction covers class 1 to 3, and a class 4 section under moment needs its effective section moduli and the moment from the shift of its neutral axis (EN 1993-1-1 6.2.2.5(4), eq. 6.61 and 6.62), which are not worked here.';
+
 /**
  * NEd/Nb,min,Rd + My,Ed/Mb,Rd + 1.5·Mz,Ed/Mz,Rd ≤ 1 (NCCI SN048b, from memory), with each axis's own design
  * force in the first term (it is NEd/Nb,min,Rd when the forces agree). Units N, mm. Class 4 is refused.
@@ -47,7 +51,7 @@ export function checkSimpleColumn(input: SimpleColumnInput, opts: SimpleColumnOp
     opts.compression ??
     checkCompression({ section: input.section, grade: input.grade, LcrY: input.LcrY, LcrZ: input.LcrZ, NEd, annex, gammaM0, gammaM1 }, { steps: false, extraSections: opts.extraSections });
   if (compression.sectionClass === 4) {
-    throw new EngineError('unsupported', 'The combined check with nominal moments is not available for class 4 sections.');
+    throw new EngineError('unsupported', CLASS_4_REFUSAL);
   }
   const { dims, props } = sectionData(input.section, opts.extraSections);
   const { fy } = compression;

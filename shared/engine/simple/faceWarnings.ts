@@ -10,6 +10,8 @@ export interface FaceTotals {
   /** Characteristic loads entering the column at this floor (its own plus attached load nodes), kN. */
   Gk: number;
   Qk: number;
+  /** The cap (roof beams) rather than a restraint. */
+  cap?: boolean;
 }
 
 const TOLERANCE_KN = 1e-6;
@@ -24,7 +26,7 @@ export function faceWarnings(floors: readonly FaceTotals[]): Issue[] {
     if (Gk > f.Gk + TOLERANCE_KN || Qk > f.Qk + TOLERANCE_KN) {
       issues.push({
         nodeId: f.nodeId,
-        message: `Restraint at ${formatElevation(f.elevation)}: the face reactions (Gk ${Gk.toFixed(1)}, Qk ${Qk.toFixed(1)} kN) add up to more than the floor load entering the column (Gk ${f.Gk.toFixed(1)}, Qk ${f.Qk.toFixed(1)} kN); the axial force uses the floor load`,
+        message: `${f.cap ? 'Cap' : 'Restraint'} at ${formatElevation(f.elevation)}: the face reactions (Gk ${Gk.toFixed(1)}, Qk ${Qk.toFixed(1)} kN) add up to more than the load entering the column there (Gk ${f.Gk.toFixed(1)}, Qk ${f.Qk.toFixed(1)} kN); the axial force uses the load entering the column`,
       });
     }
   }

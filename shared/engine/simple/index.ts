@@ -8,3 +8,4 @@ export * from './floorMoments.ts';
 export * from './pieceMoments.ts';
 export * from './faceWarnings.ts';
 export * from './applyNominalMoments.ts';
+export * from './liftsUnderMoments.ts';

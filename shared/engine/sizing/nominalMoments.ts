@@ -8,18 +8,20 @@
 // relieves its neighbours), so a second pass then lightens the column while it still passes: one lift a
 // section lighter, or one lift lighter with a neighbour a section or two heavier. The result passes,
 // keeps the rules and no such move makes it lighter; it is not proven to be the lightest of all.
+// A lift the nominal moments reach never takes a class 4 section: the combined check does not cover
+// class 4 (CLASS_4_REFUSAL), so such a section cannot be shown to pass and the search steps over it.
 import type { AnalysisOptions } from '../../schema/results.ts';
 import type { SizingRequest } from '../../schema/sizing.ts';
 import type { StackDocument } from '../../schema/stack.ts';
+import { hasFaceReactions } from '../simple/applyNominalMoments.ts';
 import { analyseStack } from '../stack/analyseStack.ts';
 import type { AnalysisContext } from '../stack/context.ts';
 import type { GradedCandidate } from './sizingCandidates.ts';
 import type { LiftPick } from './sizeLifts.ts';
 
-/** The analysis adds nominal moments: the option is on and some restraint has a face reaction. */
+/** The analysis adds nominal moments: the option is on and some restraint or the cap has a face reaction. */
 export function hasNominalMoments(doc: StackDocument, options: AnalysisOptions): boolean {
-  if (options.nominalMoments === false) return false;
-  return doc.nodes.some((n) => n.kind === 'restraint' && !!n.data.faces && Object.values(n.data.faces).some((f) => !!f && (f.Gk > 0 || f.Qk > 0)));
+  return hasFaceReactions(doc, options);
 }
 
 /** The document with every picked lift in its picked section and grade; other lifts as they are. */
@@ -34,12 +36,12 @@ function withPicks(doc: StackDocument, liftIds: readonly string[], picks: readon
 const massOf = (p: LiftPick): number => (p.kind === 'section' ? p.candidate.massPerMetre : 0);
 
 /** With "no upward increase", raises each lift to at least the lift above it; true when one changed. */
-function keepNoUpward(picks: LiftPick[], candidates: readonly GradedCandidate[]): boolean {
+function keepNoUpward(picks: LiftPick[], lists: readonly (readonly GradedCandidate[])[]): boolean {
   let changed = false;
   for (let i = picks.length - 2; i >= 0; i--) {
     const own = picks[i];
     if (own.kind !== 'section' || massOf(own) >= massOf(picks[i + 1])) continue;
-    const raised = candidates.find((c) => c.massPerMetre >= massOf(picks[i + 1]));
+    const raised = lists[i].find((c) => c.massPerMetre >= massOf(picks[i + 1]));
     picks[i] = raised ? { kind: 'section', candidate: raised, utilisation: own.utilisation } : { kind: 'none' };
     changed = true;
   }
@@ -64,16 +66,38 @@ export interface CoupledStack {
   request: SizingRequest;
   options: AnalysisOptions;
   context: AnalysisContext;
+  /** Per lift, bottom first: the combined check reaches it (liftsUnderMoments). */
+  underMoments: readonly boolean[];
+  /** The candidate is class 4 in the requested grade. */
+  isClass4: (candidate: GradedCandidate) => boolean;
+}
+
+/** Each lift's candidates: without class 4 where the combined check reaches the lift. */
+function candidateLists(stack: CoupledStack, candidates: readonly GradedCandidate[]): GradedCandidate[][] {
+  const checkable = candidates.filter((c) => !stack.isClass4(c));
+  return stack.underMoments.map((under) => (under ? checkable : [...candidates]));
+}
+
+/** The lightest of the lift's candidates at or above `pick` in the series order, or none. */
+function atOrAbove(list: readonly GradedCandidate[], candidates: readonly GradedCandidate[], pick: Picked): Picked | { kind: 'none' } {
+  const from = candidates.indexOf(pick.candidate);
+  const candidate = list.find((c) => candidates.indexOf(c) >= from);
+  return candidate ? { ...pick, candidate } : { kind: 'none' };
 }
 
 export function sizeWithMoments(stack: CoupledStack, axial: readonly LiftPick[], candidates: readonly GradedCandidate[]): LiftPick[] {
-  const raised = raiseUntilPassing(stack, axial, candidates);
-  if (!everyLiftPicked(raised) || !everyLiftPicked(axial)) return raised;
+  const lists = candidateLists(stack, candidates);
+  // A class 4 axial pick where the moments act moves up to the next section the combined check covers.
+  const start: LiftPick[] = axial.map((p, i) => (p.kind === 'section' ? atOrAbove(lists[i], candidates, p) : p));
+  blockBelowNone(start);
+  const raised = raiseUntilPassing(stack, start, lists);
+  if (!everyLiftPicked(raised) || !everyLiftPicked(start)) return raised;
   // No lift can go below its axial pick: that is the lightest passing with the lightest lifts above.
-  return lighten(stack, raised, candidates, axial.map((p) => candidates.indexOf(p.candidate)));
+  const lowest = start.map((p, i) => (p.kind === 'section' ? lists[i].indexOf(p.candidate) : 0));
+  return lighten(stack, raised, lists, lowest);
 }
 
-function raiseUntilPassing({ doc, liftIds, request, options, context }: CoupledStack, axial: readonly LiftPick[], candidates: readonly GradedCandidate[]): LiftPick[] {
+function raiseUntilPassing({ doc, liftIds, request, options, context }: CoupledStack, axial: readonly LiftPick[], lists: readonly (readonly GradedCandidate[])[]): LiftPick[] {
   const picks = [...axial];
   for (;;) {
     const result = analyseStack(withPicks(doc, liftIds, picks, request), options, context);
@@ -86,12 +110,12 @@ function raiseUntilPassing({ doc, liftIds, request, options, context }: CoupledS
         picks[i] = { ...pick, utilisation };
         continue;
       }
-      const next = candidates[candidates.indexOf(pick.candidate) + 1];
+      const next = lists[i][lists[i].indexOf(pick.candidate) + 1];
       picks[i] = next ? { kind: 'section', candidate: next, utilisation } : { kind: 'none' };
       raised = true;
     }
     blockBelowNone(picks);
-    if (request.noUpwardIncrease && keepNoUpward(picks, candidates)) {
+    if (request.noUpwardIncrease && keepNoUpward(picks, lists)) {
       raised = true;
       blockBelowNone(picks);
     }
@@ -113,17 +137,16 @@ function passing({ doc, liftIds, request, options, context }: CoupledStack, tria
 
 /**
  * Lightens a passing proposal by moves that each lower the column's mass: one lift a section lighter
- * (never below `lowest`, its index in the candidates), or that with a neighbour one or two sections
+ * (never below `lowest`, its index in the lift's candidates), or that with a neighbour one or two sections
  * heavier. Takes the first move that passes, and repeats until none does. Every move lowers the mass,
  * so it ends.
  */
-function lighten(stack: CoupledStack, start: readonly Picked[], candidates: readonly GradedCandidate[], lowest: readonly number[]): LiftPick[] {
+function lighten(stack: CoupledStack, start: readonly Picked[], lists: readonly (readonly GradedCandidate[])[], lowest: readonly number[]): LiftPick[] {
   let picks = start;
-  const indexOf = (p: Picked) => candidates.indexOf(p.candidate);
   const mass = (trial: readonly Picked[]) => trial.reduce((sum, p, i) => sum + p.candidate.massPerMetre * stack.lengths[i], 0);
   const moved = (from: readonly Picked[], i: number, steps: number): Picked | null => {
-    const index = indexOf(from[i]) + steps;
-    const candidate = index >= lowest[i] ? candidates[index] : undefined;
+    const index = lists[i].indexOf(from[i].candidate) + steps;
+    const candidate = index >= lowest[i] ? lists[i][index] : undefined;
     return candidate ? { kind: 'section', candidate, utilisation: from[i].utilisation } : null;
   };
   const movesOf = (from: readonly Picked[]): Picked[][] => {

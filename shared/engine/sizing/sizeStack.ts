@@ -6,6 +6,8 @@ import type { StackDocument } from '../../schema/stack.ts';
 import { allLevelElevations, type AnalysisContext } from '../stack/context.ts';
 import { analyseStack } from '../stack/analyseStack.ts';
 import { inspectStack } from '../stack/inspectStack.ts';
+import { CLASS_4_REFUSAL } from '../simple/checkSimpleColumn.ts';
+import { liftsUnderMoments } from '../simple/liftsUnderMoments.ts';
 import { hasNominalMoments, sizeWithMoments, type CoupledStack } from './nominalMoments.ts';
 import { checkableCandidates, sizingCandidates, type GradedCandidate } from './sizingCandidates.ts';
 import { currentUtilisations, sizeLifts, type CurrentCheck, type LiftPick } from './sizeLifts.ts';
@@ -65,6 +67,15 @@ function liftRow(model: SizingModel, i: number, pick: LiftPick, now: CurrentChec
   return { ...row, after, status: same ? 'unchanged' : 'proposed', ...(now.message ? { message: now.message } : {}) };
 }
 
+/** Says why lighter class 4 sections of the series were passed over where the moments act. */
+function withClass4Note(row: LiftSizing, underMoments: boolean, pick: LiftPick, candidates: readonly GradedCandidate[]): LiftSizing {
+  if (!underMoments) return row;
+  const limit = pick.kind === 'section' ? pick.candidate.massPerMetre : Infinity;
+  if (!candidates.some((c) => c.sectionClass === 4 && c.massPerMetre < limit)) return row;
+  const note = `Class 4 sections were not considered: this lift carries nominal moments. ${CLASS_4_REFUSAL}`;
+  return { ...row, message: row.message ? `${row.message}. ${note}` : note };
+}
+
 export function sizeStack(doc: StackDocument, request: SizingRequest, options: Partial<AnalysisOptions> = {}, context: AnalysisContext = {}): StackSizing {
   const settings: AnalysisOptions = { ...DEFAULT_ANALYSIS_OPTIONS, ...options };
   const { model: stack, errors } = inspectStack(doc, context);
@@ -73,11 +84,21 @@ export function sizeStack(doc: StackDocument, request: SizingRequest, options: P
   const model = sizingModel(stack, settings, allLevelElevations(context.levels), context.sections);
   const candidates = checkableCandidates(sizingCandidates(request.series, request.allowed), request.grade, settings.annex);
   const moments = hasNominalMoments(doc, settings);
-  const coupled: CoupledStack = { doc, liftIds: model.lifts.map((l) => l.id), lengths: model.lifts.map((l) => l.top - l.bottom), request, options: settings, context };
+  const underMoments = moments ? liftsUnderMoments(doc, stack, settings, context.sections) : model.lifts.map(() => false);
+  const coupled: CoupledStack = {
+    doc,
+    liftIds: model.lifts.map((l) => l.id),
+    lengths: model.lifts.map((l) => l.top - l.bottom),
+    request,
+    options: settings,
+    context,
+    underMoments,
+    isClass4: (c) => c.sectionClass === 4,
+  };
   const search: Search = moments ? (group) => sizeWithMoments(coupled, sizeLifts(model, group, request), group) : (group) => sizeLifts(model, group, request);
   const { picks, serial } = bestPicks(model, candidates, request, search);
   const now = moments ? analysedUtilisations(doc, model.lifts.length, settings, context) : currentUtilisations(model);
-  const lifts = model.lifts.map((_, i) => liftRow(model, i, picks[i], now[i], request));
+  const lifts = model.lifts.map((_, i) => withClass4Note(liftRow(model, i, picks[i], now[i], request), underMoments[i], picks[i], candidates));
   return {
     errors: [],
     lifts,

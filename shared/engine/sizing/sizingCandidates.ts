@@ -2,7 +2,7 @@
 // optionally limited to a list the engineer gives.
 import { designationKey, sectionsInSeries, type Series } from '../../catalogue/index.ts';
 import type { SizingSeries } from '../../schema/sizing.ts';
-import type { Annex } from '../../schema/results.ts';
+import type { Annex, SectionClass } from '../../schema/results.ts';
 import type { Grade } from '../../schema/stack.ts';
 import { EngineError, isEngineError } from '../errors.ts';
 import { gradeData, sectionData } from '../sectionData.ts';
@@ -18,6 +18,8 @@ export interface Candidate {
 /** A candidate in one grade: Aeff·fy (N), the cross-section resistance with γM0 = 1.0 (EN 1993-1-1 eq. 6.10/6.11). */
 export interface GradedCandidate extends Candidate {
   squash: number;
+  /** In pure compression (EN 1993-1-1 Table 5.2): class 4 is never proposed where nominal moments act. */
+  sectionClass: SectionClass;
 }
 
 const HE_SERIES: readonly Series[] = ['HE A', 'HE B', 'HE M'];
@@ -55,7 +57,8 @@ export function checkableCandidates(candidates: readonly Candidate[], grade: Gra
   const graded: GradedCandidate[] = [];
   for (const c of candidates) {
     try {
-      graded.push({ ...c, squash: gradeData(sectionData(c.designation), grade, annex).squash });
+      const g = gradeData(sectionData(c.designation), grade, annex);
+      graded.push({ ...c, squash: g.squash, sectionClass: g.sectionClass });
     } catch (error) {
       if (!isEngineError(error) || error.code !== 'unsupported') throw error;
     }

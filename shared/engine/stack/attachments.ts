@@ -55,7 +55,7 @@ function checkRestraint(
     return null;
   }
   if (chain.cap && elevation >= chain.cap.data.elevation - SAME_ELEVATION_M) {
-    errors.push({ nodeId: node.id, message: `${restraintName(elevation)} is at the cap; put its loads on the cap instead` });
+    errors.push({ nodeId: node.id, message: `${restraintName(elevation)} is at the cap; put its loads and beam reactions (faces) on the cap instead` });
     return null;
   }
   return { id: node.id, elevation, axes: node.data.axes, fixity: node.data.fixity, liftId: lift.node.id };

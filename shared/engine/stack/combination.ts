@@ -22,7 +22,11 @@ export interface DesignForce {
   leading: Category | null;
 }
 
-type Options = Pick<AnalysisOptions, 'combination' | 'annex' | 'imposedReduction'>;
+/** One expression of EN 1990 6.4.3.2: eq. 6.10, or eq. 6.10a or 6.10b taken alone. */
+export type Expression = '6.10' | '6.10a' | '6.10b';
+
+/** `expression`: only that expression of '6.10ab' (for checks that must use one combination throughout). */
+type Options = Pick<AnalysisOptions, 'combination' | 'annex' | 'imposedReduction'> & { expression?: Expression };
 
 /** Q_L*: the leading action, reduced by αn only for categories A–D (EN 1991-1-1 6.3.1.2(11), 6.2.2(2)). */
 function leadingValue(state: AxialState, category: Category, options: Options): number {
@@ -65,6 +69,8 @@ export function designAxialForce(state: AxialState, options: Options): DesignFor
   for (const value of accompanying) a += value;
   // EN 1990 eq. 6.10b: ξ·γG·Gk with a leading variable action
   const b = withLeading(xi(options.annex) * permanent, state, accompanying, options);
+  if (options.expression === '6.10a') return { NEd: a, leading: null, combination: '6.10a' };
+  if (options.expression === '6.10b') return { NEd: b.value, leading: b.leading, combination: b.leading ? `6.10b, leading ${b.leading}` : '6.10b' };
   if (a >= b.value) return { NEd: a, leading: null, combination: '6.10a' };
   return { NEd: b.value, leading: b.leading, combination: b.leading ? `6.10b, leading ${b.leading}` : '6.10b' };
 }

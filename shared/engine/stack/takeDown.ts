@@ -2,7 +2,7 @@
 // column below it; self-weight is permanent load on the column below each point.
 import type { AnalysisOptions, TakeDownRow } from '../../schema/results.ts';
 import { CATEGORIES } from './combinationFactors.ts';
-import { designAxialForce, type AxialState, type CategoryValues, type DesignForce } from './combination.ts';
+import { designAxialForce, type AxialState, type CategoryValues, type DesignForce, type Expression } from './combination.ts';
 import { SAME_ELEVATION_M } from './context.ts';
 
 /** A point where load enters the column: a restraint or the cap, with the load nodes attached to it (kN). */
@@ -88,7 +88,7 @@ function categoriesOf(Qk: CategoryValues): string {
   return names || '-';
 }
 
-type CombinationOptions = Pick<AnalysisOptions, 'combination' | 'annex' | 'imposedReduction'>;
+type CombinationOptions = Pick<AnalysisOptions, 'combination' | 'annex' | 'imposedReduction'> & { expression?: Expression };
 
 /**
  * Design forces at the queried sections (`order`: top down), never less than at any section above. The force in a column

@@ -25,6 +25,8 @@ export interface LiftRow {
   utilisation: number;
   /** Largest simple-construction combined check of the lift's pieces; null when no nominal moments act. */
   combined: number | null;
+  /** The combination (EN 1990 eq. 6.10, 6.10a or 6.10b) of that combined check; null without one or in older results. */
+  combinedCombination: string | null;
   governing: GoverningMode;
   isGoverningLift: boolean;
 }
@@ -43,6 +45,13 @@ export function worstPiece(lift: LiftResult): PieceCheck | null {
   let worst: PieceCheck | null = null;
   for (const p of lift.pieces) if (!worst || p.utilisation > worst.utilisation) worst = p;
   return worst;
+}
+
+/** The largest combined check of the lift's pieces, with the combination it was made for. */
+function worstCombined(lift: LiftResult): { combined: number | null; combinedCombination: string | null } {
+  let worst: PieceCheck['combined'] | null = null;
+  for (const p of lift.pieces) if (p.combined && (!worst || p.combined.utilisation > worst.utilisation)) worst = p.combined;
+  return { combined: worst?.utilisation ?? null, combinedCombination: worst?.combination ?? null };
 }
 
 export function liftRows(results: StackResult | null, doc: StackDocument | null): LiftRow[] {
@@ -69,7 +78,7 @@ export function liftRows(results: StackResult | null, doc: StackDocument | null)
         chiZ: c.chiZ,
         NbRd: c.NbRd / N_PER_KN,
         utilisation: lift.utilisation,
-        combined: lift.pieces.reduce<number | null>((max, p) => (p.combined && (max === null || p.combined.utilisation > max) ? p.combined.utilisation : max), null),
+        ...worstCombined(lift),
         governing: lift.governing,
         isGoverningLift: results.governingLiftId === lift.liftId,
       },

@@ -1,5 +1,5 @@
 // How node values read on the graph and in the forms. Plain trade words.
-import type { Axes, Category, Fixity } from '@shared/schema/stack.ts';
+import type { Axes, Category, FaceName, Fixity, RestraintFaces } from '@shared/schema/stack.ts';
 
 export const FIXITY_WORD: Record<Fixity | 'free', string> = { pinned: 'pinned', partial: 'partially fixed', fixed: 'fixed', free: 'free' };
 
@@ -18,6 +18,18 @@ export const CATEGORY_WORD: Record<Category, string> = {
 /** "G 120 kN · Q 45 kN (B)": characteristic loads as entered. */
 export function loadsText(Gk: number, Qk: number, category: Category): string {
   return `Gk ${round(Gk)} kN · Qk ${round(Qk)} kN (${category})`;
+}
+
+const FACE_SHORT: Record<FaceName, string> = { yPlus: 'y+', yMinus: 'y−', zPlus: 'z+', zMinus: 'z−' };
+
+/** "y+ 60/20 kN": the faces that carry a beam reaction, Gk/Qk; empty when none does. */
+export function facesText(faces: RestraintFaces | undefined): string {
+  if (!faces) return '';
+  const parts = (Object.keys(FACE_SHORT) as FaceName[]).flatMap((k) => {
+    const f = faces[k];
+    return f && (f.Gk > 0 || f.Qk > 0) ? [`${FACE_SHORT[k]} ${round(f.Gk)}/${round(f.Qk)}`] : [];
+  });
+  return parts.length ? `${parts.join(' · ')} kN` : '';
 }
 
 function round(kN: number): string {
