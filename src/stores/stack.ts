@@ -11,7 +11,7 @@ import type { StackDocument } from '@shared/schema/stack.ts';
 import { applyOps as applyOpsToDoc } from '@shared/ops/applyOps.ts';
 import { apiFetch } from '@/api/http.ts';
 import { connectLive, joinStack, leaveStack, LiveError, selectNodes, sendEdit, type LiveSocket } from '@/api/live.ts';
-import { inverseOps } from '@/composables/inverseOps.ts';
+import { drawnWhereLaidOut, inverseOps } from '@/composables/inverseOps.ts';
 import { useUndoHistory, type HistoryEntry } from '@/composables/useUndoHistory.ts';
 import { describeError, isNotFound, useNotifyStore } from './notify.ts';
 import type { LoadState } from './buildings.ts';
@@ -230,7 +230,8 @@ export const useStackStore = defineStore('stack', () => {
       notify.error(e, `${label} is not possible`);
       return false;
     }
-    const entry: HistoryEntry = { label, ops: inverseOps(before, ops, applyOpsToDoc) };
+    // A node drawn where the layout puts it has no stored position: undoing a move puts it back there.
+    const entry: HistoryEntry = { label, ops: inverseOps(before, ops, applyOpsToDoc, drawnWhereLaidOut(before)) };
     if (record === 'new') history.record(entry);
     else if (record === 'undo') history.pushRedo(entry);
     else history.pushUndo(entry);
