@@ -1,0 +1,61 @@
+// Structural edits as single commands, in a real browser: split a lift at an elevation and undo it,
+// join two lifts at a splice. Each is one edit, so the results never go blank between steps.
+import { expect, it } from 'vitest';
+import type { Page } from 'playwright-core';
+import { DEMO, describeInBrowser, openDemoBuilding, openStack, properties, results, screenshot, useAppAndBrowser } from './harness.ts';
+
+const liftRows = (page: Page) => results(page).locator('tbody tr').filter({ has: page.locator('td:first-child', { hasText: /^\s*L\d+/ }) });
+
+async function liftCountBecomes(page: Page, n: number): Promise<void> {
+  await expect.poll(() => liftRows(page).count(), { timeout: 10_000 }).toBe(n);
+  // The results are there (a lift governs), not blank or replaced by errors.
+  await results(page).getByText('governs').first().waitFor();
+}
+
+/** Selects a node on the graph by keyboard, as a person can (Tab to it, Enter). */
+async function selectOnGraph(page: Page, selector: string): Promise<void> {
+  const node = page.locator(selector).first();
+  await node.focus();
+  await page.keyboard.press('Enter');
+}
+
+describeInBrowser('structural edits on the stack page', () => {
+  const session = useAppAndBrowser();
+
+  it('splits a lift at an elevation in one command, then undoes it in one step', async () => {
+    const page = await session.pageAs(DEMO.engineer);
+    await openDemoBuilding(page);
+    await openStack(page, 'C/4');
+    const before = await liftRows(page).count();
+    const liftId = await page.locator('.vue-flow__node-lift').first().getAttribute('data-id');
+    await selectOnGraph(page, `.vue-flow__node[data-id="${liftId}"]`);
+    await page.getByRole('button', { name: 'Split' }).click();
+    const dialog = page.getByRole('dialog');
+    await dialog.locator('input').fill('2.4');
+    await dialog.getByRole('button', { name: 'Split' }).click();
+    await liftCountBecomes(page, before + 1);
+    expect(await results(page).getByText('+2.400').count()).toBeGreaterThan(0);
+    // The new upper lift carries the copied section, flagged until confirmed
+    await results(page).getByText('section copied from the lift it was split from').first().waitFor();
+    await screenshot(page, 'stack-split-lift');
+
+    await page.getByRole('button', { name: 'Undo' }).click();
+    await liftCountBecomes(page, before);
+    expect(await results(page).getByText('section copied from the lift it was split from').count()).toBe(0);
+    await screenshot(page, 'stack-split-undone');
+    await page.context().close();
+  });
+
+  it('joins the two lifts at a splice in one command', async () => {
+    const page = await session.pageAs(DEMO.engineer);
+    await openDemoBuilding(page);
+    await openStack(page, 'B/2');
+    const before = await liftRows(page).count();
+    await selectOnGraph(page, '.vue-flow__node-splice');
+    await properties(page).getByText(/splice/i).first().waitFor();
+    await page.getByRole('button', { name: 'Join' }).click();
+    await liftCountBecomes(page, before - 1);
+    await screenshot(page, 'stack-join-lifts');
+    await page.context().close();
+  });
+});
