@@ -153,6 +153,10 @@ export interface TakeDownRow {
   /** Design axial force just below this point, with the combination that governs. */
   NEd: number;
   combination: string;
+  /** Storeys above carrying imposed load of the leading category, and the αn applied to it
+   *  (EN 1991-1-1 6.3.1.2(11)); absent in results stored before they were reported. */
+  n?: number;
+  alphaN?: number;
 }
 
 export interface StackResult {
