@@ -38,7 +38,7 @@ export function drawTakeDown(doc: Pdf, stack: SnapshotStack, levels: Level[]): v
   heading(doc, 'Load take-down', 11);
   doc.font(FONT.regular).fontSize(SIZE.small).fillColor(COLOUR.muted);
   doc.text(
-    'Loads entering at each point; totals (ΣQk by category) and NEd just below it. n: storeys above carrying imposed load of the leading category; αn: the reduction applied to it (EN 1991-1-1 6.3.1.2(11)).',
+    'Loads entering at each point; totals (ΣQk by category) and NEd just below it. n: storeys above carrying imposed load of the leading category; αn: the reduction applied to it (EN 1991-1-1 6.3.1.2(11)), – where no imposed load leads (eq. 6.10a).',
     MARGIN.left,
     doc.y,
     { width: BODY.width },
@@ -52,7 +52,7 @@ export function drawTakeDown(doc: Pdf, stack: SnapshotStack, levels: Level[]): v
     kN(r.Qk),
     r.category,
     r.n === undefined ? '–' : String(r.n),
-    r.alphaN === undefined ? '–' : r.alphaN.toFixed(2),
+    r.alphaN === undefined || r.alphaN === null ? '–' : r.alphaN.toFixed(2),
     kN(r.sumGk),
     Object.entries(r.sumQkByCategory)
       .map(([cat, q]) => `${cat} ${q.toFixed(0)}`)

@@ -3,12 +3,13 @@
 // against, and rolled back when the server refuses them. Undo and redo are new edits built locally.
 import { computed, ref, shallowRef, watch } from 'vue';
 import { defineStore } from 'pinia';
-import { ROLE_RANK, type Building, type Role, type StackDetail } from '@shared/schema/api.ts';
+import { ROLE_RANK, type Building, type Level, type Role, type StackDetail } from '@shared/schema/api.ts';
 import type { Op } from '@shared/schema/ops.ts';
 import type { StackResult } from '@shared/schema/results.ts';
 import type { PresenceUser, StackChanged, StackJoinAck } from '@shared/schema/socket.ts';
 import type { StackDocument } from '@shared/schema/stack.ts';
 import { applyOps as applyOpsToDoc } from '@shared/ops/applyOps.ts';
+import { levelsApi } from '@/api/buildings.ts';
 import { apiFetch } from '@/api/http.ts';
 import { connectLive, joinStack, leaveStack, LiveError, selectNodes, sendEdit, type LiveSocket } from '@/api/live.ts';
 import { drawnWhereLaidOut, inverseOps } from '@/composables/inverseOps.ts';
@@ -48,6 +49,8 @@ export const useStackStore = defineStore('stack', () => {
   /** The stack does not exist or is not shared with this person. */
   const loadMissing = ref(false);
   const buildingName = ref('');
+  /** The building's levels, for naming take-down rows and placing floor restraints (read once on opening). */
+  const levels = shallowRef<Level[]>([]);
   const link = ref<LinkState>('connecting');
   const confirmed = shallowRef<StackDocument | null>(null);
   const version = ref(0);
@@ -92,8 +95,12 @@ export const useStackStore = defineStore('stack', () => {
     state.value = 'loading';
     try {
       const detail = await apiFetch<StackDetail>('GET', `/stacks/${id}`);
-      const building = await apiFetch<Building>('GET', `/buildings/${detail.buildingId}`);
+      const [building, buildingLevels] = await Promise.all([
+        apiFetch<Building>('GET', `/buildings/${detail.buildingId}`),
+        levelsApi.list(detail.buildingId),
+      ]);
       if (stackId.value !== id) return;
+      levels.value = [...buildingLevels].sort((a, b) => a.elevation - b.elevation);
       name.value = detail.name;
       buildingId.value = detail.buildingId;
       buildingName.value = building.name;
@@ -277,11 +284,12 @@ export const useStackStore = defineStore('stack', () => {
     loadError.value = '';
     loadMissing.value = false;
     buildingName.value = '';
+    levels.value = [];
     link.value = 'connecting';
   }
 
   return {
-    stackId, name, buildingId, buildingName, role, state, loadError, loadMissing, link, doc, version, results, selection, presence, others,
+    stackId, name, buildingId, buildingName, levels, role, state, loadError, loadMissing, link, doc, version, results, selection, presence, others,
     canEdit, isViewer, saving,
     canUndo: history.canUndo, canRedo: history.canRedo, undoLabel: history.undoLabel, redoLabel: history.redoLabel,
     open, close, edit, undo, redo, select,

@@ -58,4 +58,34 @@ describeInBrowser('structural edits on the stack page', () => {
     await screenshot(page, 'stack-join-lifts');
     await page.context().close();
   });
+
+  it('shows the load take-down per level with n and αn, and the combination that gives NEd', async () => {
+    const page = await session.pageAs(DEMO.engineer);
+    await openDemoBuilding(page);
+    // Imposed load large beside the permanent (invented): eq. 6.10b with a leading imposed load governs, so αn applies.
+    const buildingId = Number(new URL(page.url()).pathname.split('/')[2]);
+    const status = await page.evaluate(async (id) => {
+      const headers = { Authorization: `Bearer ${localStorage.getItem('stanchion.token')}`, 'Content-Type': 'application/json' };
+      const template = { storeys: 6, storeyHeight: 3.8, sections: ['UKC 305x305x198'], Gk: 60, Qk: 200 };
+      return (await fetch(`/api/buildings/${id}/stacks`, { method: 'POST', headers, body: JSON.stringify({ name: 'T/1', template }) })).status;
+    }, buildingId);
+    expect(status).toBe(201);
+    await page.reload();
+    await openStack(page, 'T/1');
+    const table = results(page).locator('[data-test="take-down"]');
+    await table.scrollIntoViewIfNeeded();
+    const headers = (await table.locator('thead th').allInnerTexts()).map((h) => h.trim());
+    expect(headers).toEqual(expect.arrayContaining(['n', 'αn', 'Combination']));
+    const ns = (await table.locator('td[data-col="n"]').allInnerTexts()).map(Number);
+    const alphas = (await table.locator('td[data-col="alphaN"]').allInnerTexts()).map(Number);
+    // Where floor load B leads, n counts the loaded floors above: n = 3 gives αn = 1.1 − 3/10 = 0.80 (UK NA to
+    // EN 1991-1-1, NA.2.6); lower down the roof load (ψ0,H = 0.7 in the UK NA to EN 1990) leads, unreduced.
+    expect(ns.map((n, i) => [n, alphas[i]])).toContainEqual([3, 0.8]);
+    expect(ns.map((n, i) => [n, alphas[i]])).toContainEqual([2, 0.9]);
+    expect(await table.innerText()).toContain('6.10b, leading');
+    // Rows are named by level or place, never by node id
+    expect(await table.innerText()).not.toMatch(/restraint-|lift-|splice-/);
+    await table.screenshot({ path: 'test-results/stack-take-down.png' });
+    await page.context().close();
+  });
 });

@@ -21,8 +21,9 @@ export interface DesignForce {
   leading: Category | null;
   /** Storeys above the section carrying imposed load of the leading category (of any category when none leads). */
   n: number;
-  /** αn applied to the leading action (EN 1991-1-1 6.3.1.2(11)); 1 when no reduction applies. */
-  alphaN: number;
+  /** αn applied to the leading action (EN 1991-1-1 6.3.1.2(11)): 1 when its category is not reduced,
+   *  null when no variable action leads (eq. 6.10a, or permanent load only), so none is reduced. */
+  alphaN: number | null;
 }
 
 type Options = Pick<AnalysisOptions, 'combination' | 'annex' | 'imposedReduction'>;
@@ -56,8 +57,8 @@ function withLeading(permanent: number, state: AxialState, accompanying: readonl
 }
 
 /** The reduction the leading action received, for the take-down's working: n and αn (EN 1991-1-1 6.3.1.2(11)). */
-function reductionOf(state: AxialState, leading: Category | null, options: Options): { n: number; alphaN: number } {
-  if (leading === null) return { n: Math.max(0, ...CATEGORIES.map((c) => state.loadedLevels[c] ?? 0)), alphaN: 1 };
+function reductionOf(state: AxialState, leading: Category | null, options: Options): { n: number; alphaN: number | null } {
+  if (leading === null) return { n: Math.max(0, ...CATEGORIES.map((c) => state.loadedLevels[c] ?? 0)), alphaN: null };
   const n = state.loadedLevels[leading] ?? 0;
   const Q = state.sumQk[leading] ?? 0;
   return { n, alphaN: Q > 0 ? leadingValue(state, leading, options) / Q : 1 };
