@@ -174,3 +174,22 @@ export function addFloorRestraintOps(doc: StackDocument, level: LevelRef, newId:
 export function liftAt(doc: StackDocument, elevation: number): string | null {
   return liftSpans(doc).find((s) => elevation > s.below.data.elevation && elevation < s.above.data.elevation)?.lift.id ?? null;
 }
+
+/**
+ * Moves a restraint that is not tied to a level to `elevation`, re-attaching it to the lift that spans the
+ * new elevation. One tied to a level follows the level and is refused here.
+ */
+export function moveRestraintOps(doc: StackDocument, restraintId: string, elevation: number, newId: NewId): Op[] {
+  const node = nodeOf(doc, restraintId);
+  if (node.kind !== 'restraint') throw new StructuralEditError('Pick a restraint');
+  if (node.data.levelId) throw new StructuralEditError('This restraint sits on a level and moves with it: move the level, or untie the restraint first');
+  const holder = liftSpans(doc).find((s) => elevation > s.below.data.elevation && elevation <= s.above.data.elevation);
+  if (!holder) throw new StructuralEditError(`No lift spans ${formatElevation(elevation)} m`);
+  const edge = doc.edges.find((e) => e.source === restraintId && nodeOf(doc, e.target).kind === 'lift');
+  const ops: Op[] = [{ op: 'updateNode', id: restraintId, data: { elevation } }];
+  if (edge?.target !== holder.lift.id) {
+    if (edge) ops.push({ op: 'removeEdge', id: edge.id });
+    ops.push({ op: 'addEdge', edge: { id: newId('edge'), source: restraintId, target: holder.lift.id } });
+  }
+  return ops;
+}
