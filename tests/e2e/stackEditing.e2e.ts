@@ -88,4 +88,19 @@ describeInBrowser('structural edits on the stack page', () => {
     await table.screenshot({ path: 'test-results/stack-take-down.png' });
     await page.context().close();
   });
+
+  it('at 1280×720 the results show at least four lifts without scrolling, the last column whole', async () => {
+    const page = await session.pageAs(DEMO.engineer);
+    await page.setViewportSize({ width: 1280, height: 720 });
+    await openDemoBuilding(page);
+    await openStack(page, 'C/4');
+    const window = { width: 1280, height: 720 };
+    const rows = await liftRows(page).evaluateAll((els) => els.map((el) => el.getBoundingClientRect().bottom));
+    expect(rows.filter((bottom) => bottom <= window.height).length).toBeGreaterThanOrEqual(4);
+    const last = await results(page).locator('thead th').last().boundingBox();
+    const pane = await results(page).boundingBox();
+    expect(last && pane && last.x + last.width <= pane.x + pane.width + 1).toBe(true);
+    await page.screenshot({ path: 'test-results/stack-results-1280.png' });
+    await page.context().close();
+  });
 });
