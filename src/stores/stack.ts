@@ -58,6 +58,9 @@ export const useStackStore = defineStore('stack', () => {
   const pending = shallowRef<PendingEdit[]>([]);
   const selection = ref<string[]>([]);
   const presence = shallowRef<PresenceUser[]>([]);
+  /** The nodes the latest change touched and the colleague who made it (null for one's own), so a form can
+   *  say who replaced what its user was typing. */
+  const lastChange = shallowRef<{ nodeIds: ReadonlySet<string>; by: string | null }>({ nodeIds: new Set(), by: null });
 
   let socket: LiveSocket | null = null;
   let me = 0;
@@ -220,6 +223,7 @@ export const useStackStore = defineStore('stack', () => {
     } else {
       const next = tryApply(confirmed.value, c.ops);
       if (!next) return void join();
+      lastChange.value = { nodeIds: new Set(c.ops.flatMap((op) => (op.op === 'updateNode' || op.op === 'removeNode' ? [op.id] : []))), by: c.by.name };
       confirmed.value = next;
       version.value = c.version;
     }
@@ -238,6 +242,7 @@ export const useStackStore = defineStore('stack', () => {
       return false;
     }
     // A node drawn where the layout puts it has no stored position: undoing a move puts it back there.
+    lastChange.value = { nodeIds: new Set(), by: null };
     const entry: HistoryEntry = { label, ops: inverseOps(before, ops, applyOpsToDoc, drawnWhereLaidOut(before)) };
     if (record === 'new') history.record(entry);
     else if (record === 'undo') history.pushRedo(entry);
@@ -289,7 +294,7 @@ export const useStackStore = defineStore('stack', () => {
   }
 
   return {
-    stackId, name, buildingId, buildingName, levels, role, state, loadError, loadMissing, link, doc, version, results, selection, presence, others,
+    stackId, name, buildingId, buildingName, levels, lastChange, role, state, loadError, loadMissing, link, doc, version, results, selection, presence, others,
     canEdit, isViewer, saving,
     canUndo: history.canUndo, canRedo: history.canRedo, undoLabel: history.undoLabel, redoLabel: history.redoLabel,
     open, close, edit, undo, redo, select,
