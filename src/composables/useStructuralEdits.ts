@@ -3,10 +3,10 @@
 // the results never go blank half-way.
 import { computed } from 'vue';
 import { useQuasar } from 'quasar';
-import { joinLiftsOps, splitLiftOps, StructuralEditError, type NewId } from '@shared/ops/structuralEdits.ts';
+import { addFloorRestraintOps, joinLiftsOps, liftAt, splitLiftOps, StructuralEditError, type NewId } from '@shared/ops/structuralEdits.ts';
 import type { Op } from '@shared/schema/ops.ts';
 import type { StackDocument } from '@shared/schema/stack.ts';
-import { formatElevation } from '@shared/wording.ts';
+import { formatElevation, levelWord } from '@shared/wording.ts';
 import { newId } from '@/composables/clipboardOps.ts';
 import { liftNumbers, liftSpans } from '@/composables/stackChain.ts';
 import { useNotifyStore } from '@/stores/notify.ts';
@@ -70,5 +70,22 @@ export function useStructuralEdits() {
     }, `Join the lifts at ${formatElevation(splice.data.elevation)}`);
   }
 
-  return { selectedKind, split, join };
+  /** Levels a lift of this stack spans that have no floor restraint yet: where "add a floor" can go. */
+  const freeLevels = computed(() => {
+    const doc = stack.doc;
+    if (!doc) return [];
+    const taken = new Set(doc.nodes.flatMap((n) => (n.kind === 'restraint' ? [n.data.levelId ?? '', n.data.elevation.toFixed(3)] : [])));
+    return stack.levels.filter((l) => !taken.has(l.id) && !taken.has(l.elevation.toFixed(3)) && liftAt(doc, l.elevation) !== null);
+  });
+
+  function addFloor(levelId: string): void {
+    const level = stack.levels.find((l) => l.id === levelId);
+    if (!level) return;
+    run((d) => {
+      const r = addFloorRestraintOps(d, level, idMaker(d));
+      return { ops: r.ops, select: r.restraintId };
+    }, `Add a floor restraint at ${levelWord(level.name)}`);
+  }
+
+  return { selectedKind, split, join, freeLevels, addFloor };
 }
