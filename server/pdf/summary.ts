@@ -44,7 +44,7 @@ export function drawSummary(doc: Pdf, s: RevisionSnapshot): void {
       { text: st.name, bold: true },
       String(st.results.lifts.length),
       base === undefined ? '–' : kN(base),
-      gov ? liftName(gov) : (sum.governingLiftId ?? '–'),
+      gov ? liftName(gov) : '–',
       gov?.section ?? '–',
       gov?.grade ?? '–',
       gov ? governingShort[gov.governing] : '–',

@@ -1,11 +1,11 @@
 // Levels of a building: engineers and leads edit, every member reads.
 import type { Router } from 'express';
-import { createLevelBodySchema, updateLevelBodySchema } from '../../shared/schema/api.ts';
+import { createLevelBodySchema, levelMovePreviewBodySchema, updateLevelBodySchema } from '../../shared/schema/api.ts';
 import type { ServerContext } from '../context.ts';
 import { currentAccess, currentUser, requireAuth } from '../middleware/auth.ts';
 import { requireRole } from '../middleware/access.ts';
 import { idParam, parseBody, parsePatch } from '../middleware/validate.ts';
-import { createLevel, deleteLevel, listLevels, updateLevel } from '../services/levels.ts';
+import { createLevel, deleteLevel, listLevels, previewLevelMove, updateLevel } from '../services/levels.ts';
 
 export function registerLevelRoutes(router: Router, ctx: ServerContext): void {
   const auth = requireAuth(ctx);
@@ -22,6 +22,11 @@ export function registerLevelRoutes(router: Router, ctx: ServerContext): void {
   router.patch('/buildings/:id/levels/:levelId', auth, engineer, async (req, res) => {
     const body = parsePatch(updateLevelBodySchema, req);
     res.json(await updateLevel(ctx, currentAccess(req).buildingId, idParam(req, 'levelId'), body, currentUser(req)));
+  });
+  // Stores nothing: what moving the level would do to the stacks, shown before the engineer saves.
+  router.post('/buildings/:id/levels/:levelId/preview', auth, engineer, async (req, res) => {
+    const body = parseBody(levelMovePreviewBodySchema, req);
+    res.json(await previewLevelMove(ctx.db, currentAccess(req).buildingId, idParam(req, 'levelId'), body.elevation));
   });
   router.delete('/buildings/:id/levels/:levelId', auth, engineer, async (req, res) => {
     await deleteLevel(ctx.db, currentAccess(req).buildingId, idParam(req, 'levelId'), currentUser(req));

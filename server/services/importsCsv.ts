@@ -10,7 +10,9 @@ export interface CsvRow {
   cells: Record<string, string>;
 }
 
-export type CsvRead = { ok: true; rows: CsvRow[] } | { ok: false; problems: ImportProblem[] };
+/** When some rows are the wrong width, `rows` still holds the others, so their problems are reported in the
+ *  same answer; a file that cannot be read at all has none. */
+export type CsvRead = { ok: true; rows: CsvRow[] } | { ok: false; problems: ImportProblem[]; rows: CsvRow[] };
 
 export const fileHash = (buf: Buffer): string => createHash('sha256').update(buf).digest('hex');
 
@@ -73,6 +75,31 @@ function headerProblems(header: string[], columns: readonly string[], required: 
   return problems;
 }
 
+const csvErrorLine = (e: CsvError): number => {
+  const lines = (e as CsvError & { lines?: unknown }).lines;
+  return typeof lines === 'number' ? lines : 1;
+};
+const csvProblem = (e: CsvError, row: number): ImportProblem => ({
+  row,
+  column: null,
+  message: `The file cannot be read as CSV here: ${e.message.replace(/^Invalid [^:]*: /, '').replace(/ at line \d+/, '')}`,
+});
+
+/** Each line of the file that cannot be read as a CSV row by itself. */
+function lineByLineProblems(text: string): ImportProblem[] {
+  const problems: ImportProblem[] = [];
+  text.replace(/^\uFEFF/, '').split(/\r?\n/).forEach((line, i) => {
+    if (line.trim() === '') return;
+    try {
+      parse(line, { trim: true, relax_column_count: true });
+    } catch (e) {
+      if (!(e instanceof CsvError)) throw e;
+      problems.push(csvProblem(e, i + 1));
+    }
+  });
+  return problems;
+}
+
 /**
  * Parses the file: UTF-8 text, comma-separated, a header row naming `columns` (any order, any case),
  * at least the `required` ones, then at most MAX_IMPORT_ROWS data rows of the header's width.
@@ -80,9 +107,9 @@ function headerProblems(header: string[], columns: readonly string[], required: 
 export function readCsv(buf: Buffer, columns: readonly string[], required: readonly string[] = columns): CsvRead {
   const expected = columns.join(',');
   const decoded = decodeText(buf);
-  if ('problem' in decoded) return { ok: false, problems: [decoded.problem] };
+  if ('problem' in decoded) return { ok: false, problems: [decoded.problem], rows: [] };
   if (decoded.text.replace(/^\uFEFF/, '').trim() === '') {
-    return { ok: false, problems: [{ row: 1, column: null, message: `The file is empty; it needs a header row (${expected}) and one row per entry` }] };
+    return { ok: false, problems: [{ row: 1, column: null, message: `The file is empty; it needs a header row (${expected}) and one row per entry` }], rows: [] };
   }
 
   let records: { info: { lines: number }; record: string[] }[];
@@ -91,8 +118,11 @@ export function readCsv(buf: Buffer, columns: readonly string[], required: reado
     records = parse(decoded.text, { bom: true, info: true, trim: true, skip_empty_lines: true, relax_column_count: true }) as unknown as typeof records;
   } catch (e) {
     if (e instanceof CsvError) {
-      const line = typeof (e as CsvError & { lines?: unknown }).lines === 'number' ? (e as CsvError & { lines: number }).lines : 1;
-      return { ok: false, problems: [{ row: line, column: null, message: `The file cannot be read as CSV here: ${e.message.replace(/^Invalid [^:]*: /, '')}` }] };
+      // The parser stops at the first bad row; reading the lines one by one finds every other one too, so
+      // the person fixes the file once. A quoted value running over lines cannot be read so; then the
+      // parser's one problem is all there is to report.
+      const each = lineByLineProblems(decoded.text);
+      return { ok: false, problems: each.length ? each : [csvProblem(e, csvErrorLine(e))], rows: [] };
     }
     throw e;
   }
@@ -100,10 +130,10 @@ export function readCsv(buf: Buffer, columns: readonly string[], required: reado
   const [head, ...data] = records;
   const header = head!.record;
   const problems = headerProblems(header, columns, required);
-  if (problems.length > 0) return { ok: false, problems };
-  if (data.length === 0) return { ok: false, problems: [{ row: 2, column: null, message: 'The file has a header but no rows' }] };
+  if (problems.length > 0) return { ok: false, problems, rows: [] };
+  if (data.length === 0) return { ok: false, problems: [{ row: 2, column: null, message: 'The file has a header but no rows' }], rows: [] };
   if (data.length > MAX_IMPORT_ROWS) {
-    return { ok: false, problems: [{ row: MAX_IMPORT_ROWS + 2, column: null, message: `The file has ${data.length} rows; at most ${MAX_IMPORT_ROWS} can be imported at once` }] };
+    return { ok: false, problems: [{ row: MAX_IMPORT_ROWS + 2, column: null, message: `The file has ${data.length} rows; at most ${MAX_IMPORT_ROWS} can be imported at once` }], rows: [] };
   }
 
   const names = header.map((h) => columns.find((c) => c.toLowerCase() === h.toLowerCase())!);
@@ -118,7 +148,7 @@ export function readCsv(buf: Buffer, columns: readonly string[], required: reado
     names.forEach((name, i) => (cells[name] = record[i]!.replace(/^'(?=[=+\-@])/, '')));
     rows.push({ line: info.lines, cells });
   }
-  return problems.length > 0 ? { ok: false, problems } : { ok: true, rows };
+  return problems.length > 0 ? { ok: false, problems, rows } : { ok: true, rows };
 }
 
 const NUMBER = /^[+-]?(\d+(\.\d*)?|\.\d+)([eE][+-]?\d+)?$/;
@@ -138,3 +168,6 @@ export function numberCell(row: CsvRow, column: string, unit: string, min: numbe
   if (value > max) return fail(`${column} must be at most ${max} ${unit}`);
   return value;
 }
+
+/** The file's own problems and those found in its readable rows, in the order of the file. */
+export const byRow = (problems: ImportProblem[]): ImportProblem[] => problems.map((p, i) => [p, i] as const).sort(([a, i], [b, j]) => a.row - b.row || i - j).map(([p]) => p);

@@ -9,7 +9,7 @@ import { applyOps as applyOpsToDoc, touchedIds } from '../../shared/ops/applyOps
 import type { ServerContext } from '../context.ts';
 import { conflict, unprocessable } from '../errors.ts';
 import { analysisInputs } from './analysis.ts';
-import { fileHash, numberCell, readCsv, type CsvRow } from './importsCsv.ts';
+import { byRow, fileHash, numberCell, readCsv, type CsvRow } from './importsCsv.ts';
 import { buildingLevels, buildingStacks, floorLoadOf, nodesAtLevel, sameLoad, type LevelRef, type StackRef } from './importsLoadTargets.ts';
 import { broadcastChange, commitDoc, type CommittedChange } from './stackOps.ts';
 
@@ -41,10 +41,11 @@ function categoryCell(row: CsvRow, problems: ImportProblem[]): Category | null {
 export async function previewLoads(db: Knex, buildingId: number, file: Buffer): Promise<LoadsPreview> {
   const empty: LoadsPreview = { kind: 'loads', fileHash: fileHash(file), rows: 0, unchanged: 0, changes: [], problems: [], basis: [] };
   const read = readCsv(file, LOAD_COLUMNS);
-  if (!read.ok) return { ...empty, problems: read.problems };
+  if (!read.ok && read.rows.length === 0) return { ...empty, problems: read.problems };
 
   const [stacks, levels] = await Promise.all([buildingStacks(db, buildingId), buildingLevels(db, buildingId)]);
-  const problems: ImportProblem[] = [];
+  // Rows of the wrong width are reported together with the problems of every other row.
+  const problems: ImportProblem[] = read.ok ? [] : [...read.problems];
   const changes: LoadChange[] = [];
   const firstRowOf = new Map<string, number>();
   let unchanged = 0;
@@ -82,7 +83,7 @@ export async function previewLoads(db: Knex, buildingId: number, file: Buffer): 
   }
   const changed = new Set(changes.map((c) => c.stackId));
   const basis = stacks.filter((s) => changed.has(s.row.id)).map((s) => ({ stackId: s.row.id, version: s.row.version }));
-  return { ...empty, rows: read.rows.length, unchanged, changes, problems, basis };
+  return { ...empty, rows: read.rows.length, unchanged, changes, problems: byRow(problems), basis };
 }
 
 export const problemsMessage = (n: number): string => `The file has ${n} problem${n === 1 ? '' : 's'}; nothing was changed`;

@@ -13,7 +13,7 @@ import type { ServerContext } from '../context.ts';
 import { conflict, unprocessable } from '../errors.ts';
 import { analysisInputs } from './analysis.ts';
 import { companySectionMap, upsertCompanySections } from './companySections.ts';
-import { fileHash, numberCell, readCsv, type CsvRow } from './importsCsv.ts';
+import { byRow, fileHash, numberCell, readCsv, type CsvRow } from './importsCsv.ts';
 import { problemsMessage } from './importsLoads.ts';
 import { buildingStacks } from './importsLoadTargets.ts';
 import { broadcastChange, commitDoc, type CommittedChange } from './stackOps.ts';
@@ -79,10 +79,11 @@ function dimsOf(row: CsvRow, problems: ImportProblem[]): SectionDims | null {
 export async function previewSections(db: Knex, buildingId: number, file: Buffer): Promise<SectionsPreview> {
   const empty: SectionsPreview = { kind: 'sections', fileHash: fileHash(file), rows: 0, unchanged: 0, changes: [], problems: [] };
   const read = readCsv(file, SECTION_COLUMNS, ['designation', 'shape', 'make']);
-  if (!read.ok) return { ...empty, problems: read.problems };
+  if (!read.ok && read.rows.length === 0) return { ...empty, problems: read.problems };
 
   const existing = new Map([...(await companySectionMap(db, buildingId))].map(([designation, dims]) => [designationKey(designation), { designation, dims }]));
-  const problems: ImportProblem[] = [];
+  // Rows of the wrong width are reported together with the problems of every other row.
+  const problems: ImportProblem[] = read.ok ? [] : [...read.problems];
   const changes: SectionChange[] = [];
   const firstRowOf = new Map<string, number>();
   let unchanged = 0;
@@ -101,7 +102,7 @@ export async function previewSections(db: Knex, buildingId: number, file: Buffer
     if (current && JSON.stringify(current.dims) === JSON.stringify(dims)) unchanged += 1;
     else changes.push({ row: row.line, designation: current?.designation ?? name, before: current?.dims ?? null, after: dims });
   }
-  return { ...empty, rows: read.rows.length, unchanged, changes, problems };
+  return { ...empty, rows: read.rows.length, unchanged, changes, problems: byRow(problems) };
 }
 
 /** Writes the sections, then re-analyses (as an edit of their lifts) the stacks that use a changed one. */

@@ -1,14 +1,14 @@
 // Levels of a building. Moving a level moves every restraint, cap and support that sits on it and
 // re-analyses those stacks in the same transaction.
 import type { Knex } from 'knex';
-import type { Level, User } from '../../shared/schema/api.ts';
-import type { Op } from '../../shared/schema/ops.ts';
+import type { Level, LevelMovePreview, User } from '../../shared/schema/api.ts';
 import type { StackNode } from '../../shared/schema/stack.ts';
-import { applyOps as applyOpsToDoc, touchedIds } from '../../shared/ops/applyOps.ts';
+import { touchedIds } from '../../shared/ops/applyOps.ts';
 import type { ServerContext } from '../context.ts';
 import { now } from '../db.ts';
-import { conflict, notFound } from '../errors.ts';
-import { analysisInputs } from './analysis.ts';
+import { conflict, notFound, unprocessable } from '../errors.ts';
+import { formatElevation, levelWord } from '../../shared/wording.ts';
+import { planLevelMove } from './levelMove.ts';
 import { recordAudit } from './audit.ts';
 import { broadcastChange, commitDoc, type CommittedChange } from './stackOps.ts';
 import { parseDoc, type StackRow } from './stackRows.ts';
@@ -56,15 +56,22 @@ export async function updateLevel(ctx: ServerContext, buildingId: number, levelI
   const { level, changes } = await ctx.db.transaction(async (trx) => {
     const before = await loadLevel(trx, buildingId, levelId);
     if (input.name !== undefined) await assertNameFree(trx, 'level', buildingId, input.name, levelId);
+    const moves = input.elevation !== undefined && input.elevation !== Number(before.elevation);
+    // Planned against the levels as they stand; every stack follows in this transaction (splices keep their
+    // offset above the level), or, when any would break, nothing changes at all.
+    const plan = moves ? await planLevelMove(trx, buildingId, String(levelId), Number(before.elevation), input.elevation as number) : null;
+    const broken = plan?.preview.stacks.filter((st) => st.breaks.length > 0) ?? [];
+    if (plan && broken.length) {
+      const reasons = broken.map((st) => `${st.name}: ${st.breaks[0]}`).join('; ');
+      const where = formatElevation(plan.preview.elevation);
+      throw unprocessable(`Moving ${levelWord(before.name)} to ${where} m would break ${broken.length === 1 ? 'a stack' : `${broken.length} stacks`} (${reasons}); nothing was changed`, plan.preview);
+    }
     await trx('levels').where({ id: levelId }).update(input);
     await recordAudit(trx, { userId: user.id, buildingId, action: 'level.update', detail: { levelId, from: toLevel(before), ...input } });
     const changes: CommittedChange[] = [];
-    if (input.elevation !== undefined && input.elevation !== Number(before.elevation)) {
-      const inputs = await analysisInputs(trx, buildingId);
-      for (const { row, nodeIds } of await stacksUsingLevel(trx, buildingId, levelId)) {
-        const ops: Op[] = nodeIds.map((id) => ({ op: 'updateNode', id, data: { elevation: input.elevation } }));
-        const doc = parseDoc(row.doc);
-        changes.push(await commitDoc(trx, row, { doc: applyOpsToDoc(doc, ops), ops, touched: touchedIds(doc, ops), userId: user.id, action: 'level.move' }, inputs));
+    if (plan) {
+      for (const { row, doc, ops } of plan.moves) {
+        changes.push(await commitDoc(trx, row, { doc, ops, touched: touchedIds(parseDoc(row.doc), ops), userId: user.id, action: 'level.move' }, plan.inputs));
       }
     }
     return { level: toLevel(await loadLevel(trx, buildingId, levelId)), changes };
@@ -79,9 +86,15 @@ export async function deleteLevel(db: Knex, buildingId: number, levelId: number,
     const users = await stacksUsingLevel(trx, buildingId, levelId);
     if (users.length > 0) {
       const names = users.map((s) => s.row.name);
-      throw conflict(`Level ${level.name} is used by restraints, caps or supports in ${names.join(', ')}; detach them first`, { stacks: users.map((s) => s.row.id) });
+      throw conflict(`${levelWord(level.name)} is used by restraints, caps or supports in ${names.join(', ')}; detach them first`, { stacks: users.map((s) => s.row.id) });
     }
     await trx('levels').where({ id: levelId }).delete();
     await recordAudit(trx, { userId: user.id, buildingId, action: 'level.delete', detail: { levelId, name: level.name } });
   });
+}
+
+/** What moving a level would do to each stack, without storing anything. */
+export async function previewLevelMove(db: Knex, buildingId: number, levelId: number, elevation: number): Promise<LevelMovePreview> {
+  const level = await loadLevel(db, buildingId, levelId);
+  return (await planLevelMove(db, buildingId, String(levelId), Number(level.elevation), elevation)).preview;
 }

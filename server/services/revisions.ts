@@ -47,6 +47,8 @@ export interface FreezeInput {
 interface FailingLift {
   stack: string;
   liftId: string;
+  /** L1, L2, … as people read it (the node id is only for linking). */
+  label: string;
   section: string;
   utilisation: number;
 }
@@ -63,10 +65,10 @@ function validationReasons(stacks: SnapshotStack[]): FreezeRefusal['reasons'] {
 
 // EN 1993-1-1 6.3.1.1(1): NEd/Nb,Rd ≤ 1.0; a lift above 1.0 fails.
 const failingLifts = (stacks: SnapshotStack[]): FailingLift[] =>
-  stacks.flatMap((s) => s.results.lifts.filter((l) => l.utilisation > 1).map((l) => ({ stack: s.name, liftId: l.liftId, section: l.section, utilisation: l.utilisation })));
+  stacks.flatMap((s) => s.results.lifts.filter((l) => l.utilisation > 1).map((l) => ({ stack: s.name, liftId: l.liftId, label: l.label ?? 'lift', section: l.section, utilisation: l.utilisation })));
 
 function acknowledgementText(failing: FailingLift[], user: User): string {
-  const list = failing.map((f) => `${f.stack} ${f.liftId} (${f.section}, ${f.utilisation.toFixed(3)})`).join('; ');
+  const list = failing.map((f) => `${f.stack} ${f.label} (${f.section}, ${f.utilisation.toFixed(3)})`).join('; ');
   return `${user.name} issued this revision knowing that ${failing.length} lift${failing.length === 1 ? '' : 's'} exceed utilisation 1.0: ${list}`;
 }
 
@@ -89,7 +91,7 @@ export async function freezeRevision(db: Knex, buildingId: number, input: Freeze
     if (failing.length > 0 && (!input.acknowledgeFailingLifts || input.note.trim() === '')) {
       const message = `${failing.length} lift${failing.length === 1 ? '' : 's'} exceed utilisation 1.0: acknowledge this and say why in the note to freeze anyway`;
       throw unprocessable(message, {
-        reasons: failing.map((f) => ({ stackId: stacks.find((s) => s.name === f.stack)?.id ?? 0, stack: f.stack, nodeId: f.liftId, message: `Lift ${f.liftId} (${f.section}) has utilisation ${f.utilisation.toFixed(3)}` })),
+        reasons: failing.map((f) => ({ stackId: stacks.find((s) => s.name === f.stack)?.id ?? 0, stack: f.stack, nodeId: f.liftId, message: `Lift ${f.label} (${f.section}) has utilisation ${f.utilisation.toFixed(3)}` })),
       } satisfies FreezeRefusal);
     }
     const code = await nextCode(trx, buildingId, input.purpose);

@@ -100,7 +100,8 @@ export function compareStates(from: BuildingState, to: BuildingState): RevisionC
     if (change) stacks.push({ stackId: s.id, name: s.name, change, nodes: change === 'changed' ? nodes : [], lifts });
     else unchangedStacks += 1;
   }
-  const levelMap = (levels: Level[]) => Object.fromEntries(levels.map((l) => [`${l.name} (id ${l.id})`, l.elevation]));
+  // Level names are unique in a building, so the name alone identifies a level to a person.
+  const levelMap = (levels: Level[]) => Object.fromEntries(levels.map((l) => [l.name, l.elevation]));
   return {
     from: { id: from.id ?? 0, code: from.code },
     to: { id: to.id, code: to.code },

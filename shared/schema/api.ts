@@ -69,14 +69,33 @@ export interface Member {
   pending: boolean;
 }
 
+/**
+ * A building level's elevation must lie in a range buildings have (m): from a deep basement to above the
+ * tallest towers (common practice, no source). Anything outside is a typing error, refused with the range.
+ */
+export const LEVEL_ELEVATION_RANGE = { min: -100, max: 900 } as const;
+const levelElevationSchema = z
+  .number()
+  .finite()
+  .min(LEVEL_ELEVATION_RANGE.min, `must be at least ${LEVEL_ELEVATION_RANGE.min} m: a level deeper than that is not a building level`)
+  .max(LEVEL_ELEVATION_RANGE.max, `must be at most ${LEVEL_ELEVATION_RANGE.max} m: no building stands that tall`);
 export const createLevelBodySchema = z
-  .object({ name: z.string().trim().min(1).max(60), elevation: z.number().finite().min(-1000).max(1000) })
+  .object({ name: z.string().trim().min(1).max(60), elevation: levelElevationSchema })
   .strict();
 export const updateLevelBodySchema = createLevelBodySchema.partial().strict();
 export interface Level {
   id: string;
   name: string;
   elevation: number;
+}
+
+/** Asks what moving a level to `elevation` would do, before saving it. */
+export const levelMovePreviewBodySchema = z.object({ elevation: levelElevationSchema }).strict();
+/** Each stack that moving a level changes: how many of its nodes follow the level, how many splices keep
+ *  their offset above it, and the problems the move would cause (none, or it is refused). */
+export interface LevelMovePreview {
+  elevation: number;
+  stacks: { stackId: number; name: string; nodes: number; splices: number; breaks: string[] }[];
 }
 
 /** The most storeys a template makes; a building's levels give at most one more elevation than this. */

@@ -162,6 +162,11 @@ export interface TakeDownRow {
   /** Design axial force just below this point, with the combination that governs. */
   NEd: number;
   combination: string;
+  /** Storeys above carrying imposed load of the leading category (of any category when none leads), and the
+   *  αn applied to the leading action (EN 1991-1-1 6.3.1.2(11)); null when no variable action leads (6.10a),
+   *  so none is reduced. Absent in results stored before they were reported. */
+  n?: number;
+  alphaN?: number | null;
 }
 
 /** Lowest load factor of the stack about one axis and its buckled shape (critical buckling analysis). */

@@ -29,8 +29,21 @@ const kFactor = finite.positive().max(10);
 /** A building level a node sits on (docs/contracts.md §Stack document): its elevation then follows the level's. */
 const levelId = z.string().min(1).max(64).optional();
 export const supportDataSchema = z.object({ elevation, levelId, fixity: fixitySchema }).strict();
+/**
+ * Whether the engineer has chosen the lift's section: 'not-chosen' for a lift added with a placeholder
+ * (the analysis refuses it), 'to-confirm' for a section copied when a lift was split (flagged until
+ * confirmed). Absent means chosen, so older documents stay valid.
+ */
+export const sectionStatusSchema = z.enum(['chosen', 'to-confirm', 'not-chosen']);
 export const liftDataSchema = z
-  .object({ section: sectionRef, grade: gradeSchema, kY: kFactor.optional(), kZ: kFactor.optional(), note: z.string().max(500).optional() })
+  .object({
+    section: sectionRef,
+    grade: gradeSchema,
+    kY: kFactor.optional(),
+    kZ: kFactor.optional(),
+    note: z.string().max(500).optional(),
+    sectionStatus: sectionStatusSchema.optional(),
+  })
   .strict();
 export const spliceDataSchema = z.object({ elevation }).strict();
 /** Characteristic beam reaction on one face of the column (kN). */
@@ -93,6 +106,7 @@ export type Fixity = z.infer<typeof fixitySchema>;
 export type Category = z.infer<typeof categorySchema>;
 export type Grade = z.infer<typeof gradeSchema>;
 export type Axes = z.infer<typeof axesSchema>;
+export type SectionStatus = z.infer<typeof sectionStatusSchema>;
 export type SectionDims = z.infer<typeof sectionDimsSchema>;
 export type SupportData = z.infer<typeof supportDataSchema>;
 export type LiftData = z.infer<typeof liftDataSchema>;

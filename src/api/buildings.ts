@@ -4,6 +4,7 @@ import type {
   Building,
   BuildingSummary,
   Level,
+  LevelMovePreview,
   Member,
   addMemberBodySchema,
   createBuildingBodySchema,
@@ -45,4 +46,7 @@ export const levelsApi = {
   update: (buildingId: number, levelId: string, body: UpdateLevelBody) =>
     apiFetch<Level>('PATCH', `${b(buildingId)}/levels/${encodeURIComponent(levelId)}`, body),
   remove: (buildingId: number, levelId: string) => apiFetch<void>('DELETE', `${b(buildingId)}/levels/${encodeURIComponent(levelId)}`),
+  /** What moving the level would do to the stacks; stores nothing. */
+  previewMove: (buildingId: number, levelId: string, elevation: number) =>
+    apiFetch<LevelMovePreview>('POST', `${b(buildingId)}/levels/${encodeURIComponent(levelId)}/preview`, { elevation }),
 };

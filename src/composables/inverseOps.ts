@@ -2,7 +2,7 @@
 // computed from that earlier document. Pure; the store sends the result through the live channel.
 import type { Op } from '@shared/schema/ops.ts';
 import type { StackDocument, StackEdge, StackNode } from '@shared/schema/stack.ts';
-import type { XY } from '@/components/graph/layoutByElevation.ts';
+import { layoutByElevation, type XY } from '@/components/graph/layoutByElevation.ts';
 
 /** Re-creates a node exactly as it was, with the edges that touched it. */
 function restoreNode(node: StackNode, edges: StackEdge[]): Op[] {
@@ -60,4 +60,10 @@ export function replaceNodeOps(doc: StackDocument, id: string, data: StackNode['
   const node = doc.nodes.find((n) => n.id === id);
   if (!node) return [];
   return [{ op: 'removeNode', id }, ...restoreNode({ ...node, data } as StackNode, doc.edges)];
+}
+
+/** Where the graph draws each node of `doc` that has no stored position (laid out once, on first ask). */
+export function drawnWhereLaidOut(doc: StackDocument): (id: string) => XY | undefined {
+  let layout: Map<string, XY> | null = null;
+  return (id) => (layout ??= layoutByElevation(doc)).get(id);
 }

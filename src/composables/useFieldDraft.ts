@@ -10,6 +10,10 @@ export interface FieldDraftOptions {
   schema: MaybeRefOrGetter<z.ZodType>;
   fields: MaybeRefOrGetter<FieldSpec[]>;
   onValid: (data: Record<string, unknown>) => void;
+  /** The colleague whose edit brought the latest change of this node; null when it was not a colleague's. */
+  changedBy?: MaybeRefOrGetter<string | null>;
+  /** Told, in words naming who, when a colleague's change replaces what this person typed or had just set. */
+  onOverwritten?: (message: string) => void;
 }
 
 /** A stored value as its field shows it: numbers to the field's decimal places when it has them. */
@@ -22,10 +26,29 @@ export function useFieldDraft(opts: FieldDraftOptions) {
   /** Values passed on and not yet reflected back, so one change is never sent twice. */
   const sent = new Map<string, unknown>();
 
+  /** What this person last set in each field, kept until a colleague replaces it (sent is cleared each change). */
+  const mine = new Map<string, unknown>();
+
+  /** Tells the person when a colleague's change replaced their typing or the value they had just set. */
+  function noticeOverwrites(value: Record<string, unknown>, old: Record<string, unknown>): void {
+    const who = toValue(opts.changedBy);
+    if (!who || !opts.onOverwritten) return;
+    for (const f of toValue(opts.fields)) {
+      if (value[f.key] === old[f.key]) continue;
+      const typing = draft[f.key] !== shown(old[f.key], f.places) && draft[f.key].trim() !== '';
+      const lost = mine.has(f.key) && mine.get(f.key) === old[f.key];
+      if (!typing && !lost) continue;
+      const yours = typing ? `what you typed (${draft[f.key]})` : `your ${shown(mine.get(f.key), f.places)}`;
+      opts.onOverwritten(`${who} changed ${f.label} to ${shown(value[f.key], f.places)} while you were editing it; ${yours} was replaced`);
+      mine.delete(f.key);
+    }
+  }
+
   // A change from elsewhere (a colleague, undo) replaces the draft, except a field still showing a refusal.
   watch(
     () => toValue(opts.value),
-    (value) => {
+    (value, old) => {
+      if (old && value !== old) noticeOverwrites(value, old);
       sent.clear();
       for (const f of toValue(opts.fields)) if (!errors[f.key]) draft[f.key] = shown(value[f.key], f.places);
     },
@@ -48,6 +71,7 @@ export function useFieldDraft(opts: FieldDraftOptions) {
     delete errors[key];
     if (current[key] !== value && sent.get(key) !== value) {
       sent.set(key, value);
+      mine.set(key, value);
       opts.onValid({ [key]: value });
     }
     return true;

@@ -1,14 +1,17 @@
 // The stored document ↔ Vue Flow: nodes and edges to draw, and the ops that the graph's gestures
 // (connect, drag, tidy) turn into. The document never holds Vue Flow's own types.
-import { computed, toValue, type MaybeRefOrGetter } from 'vue';
+import { computed, ref, toValue, type MaybeRefOrGetter } from 'vue';
 import type { Edge, Node } from '@vue-flow/core';
 import type { Op } from '@shared/schema/ops.ts';
 import type { StackResult } from '@shared/schema/results.ts';
 import type { PresenceUser } from '@shared/schema/socket.ts';
+import type { Level } from '@shared/schema/api.ts';
 import type { StackDocument, StackEdge, StackNode } from '@shared/schema/stack.ts';
-import { layoutByElevation, type XY } from '@/components/graph/layoutByElevation.ts';
-import { HANDLE, colleagueColour, type Colleague, type NodeProblem, type NodeView } from '@/components/graph/nodeView.ts';
-import { liftNumbers, liftSpans, nodeTitle, nodesById } from './stackChain.ts';
+import { moveRestraintOps, moveSpliceOps } from '@shared/ops/structuralEdits.ts';
+import { COMPACT_LINE_PX, FULL_SCALE, PX_PER_METRE, layoutByElevation, type GraphScale, type XY } from '@/components/graph/layoutByElevation.ts';
+import { HANDLE, LEVEL_LINE_X, colleagueColour, type Colleague, type LevelView, type NodeProblem, type NodeView } from '@/components/graph/nodeView.ts';
+import { snapElevation } from '@/components/graph/snapElevation.ts';
+import { drawingElevations, liftNumbers, liftSpans, nodeTitle, nodesById } from './stackChain.ts';
 import { newId } from './clipboardOps.ts';
 
 export interface StackGraphInput {
@@ -17,7 +20,13 @@ export interface StackGraphInput {
   selection: MaybeRefOrGetter<readonly string[]>;
   others: MaybeRefOrGetter<readonly PresenceUser[]>;
   readOnly: MaybeRefOrGetter<boolean>;
+  /** The building's levels, drawn across the graph and snapped to when a node is dragged. */
+  levels?: MaybeRefOrGetter<readonly Level[]>;
+  scale?: MaybeRefOrGetter<GraphScale>;
 }
+
+/** Level names closer together than this (px on screen at zoom 1) would overlap: only every k-th is named. */
+const LEVEL_LABEL_PX = 14;
 
 function handlesFor(edge: StackEdge, byId: Map<string, StackNode>): { sourceHandle: string; targetHandle: string } {
   const source = byId.get(edge.source)?.kind;
@@ -30,14 +39,31 @@ function handlesFor(edge: StackEdge, byId: Map<string, StackNode>): { sourceHand
 }
 
 export function useStackGraph(input: StackGraphInput) {
+  const scale = computed(() => toValue(input.scale) ?? FULL_SCALE);
+  const levels = computed(() => toValue(input.levels) ?? []);
   const layout = computed(() => {
     const doc = toValue(input.doc);
-    return doc ? layoutByElevation(doc) : new Map<string, XY>();
+    return doc ? layoutByElevation(doc, scale.value) : new Map<string, XY>();
   });
+  const elevations = computed(() => {
+    const doc = toValue(input.doc);
+    return doc ? drawingElevations(doc) : new Map<string, number>();
+  });
+
+  /**
+   * Where a node is drawn. Height always follows elevation (the graph stands at true elevation); the
+   * stored position gives only the sideways place, and not in the compressed drawing, which lines the
+   * chain up itself. A node with no elevation yet (not connected) is drawn where it was put.
+   */
+  function placeOf(n: StackNode): XY {
+    const laid = layout.value.get(n.id) ?? { x: 0, y: 0 };
+    if (!elevations.value.has(n.id)) return { ...(n.position ?? laid) };
+    return { x: scale.value.compact ? laid.x : (n.position?.x ?? laid.x), y: laid.y };
+  }
 
   function drawnAt(id: string): XY | undefined {
     const node = toValue(input.doc)?.nodes.find((n) => n.id === id);
-    return node?.position ?? layout.value.get(id);
+    return node ? placeOf(node) : undefined;
   }
 
   const problems = computed(() => {
@@ -59,7 +85,35 @@ export function useStackGraph(input: StackGraphInput) {
     return out;
   });
 
-  const nodes = computed<Node<NodeView>[]>(() => {
+  /** The building's levels as lines across the graph, behind the stack, named at the left. */
+  const levelNodes = computed<Node<LevelView>[]>(() => {
+    const sorted = [...levels.value].sort((a, b) => a.elevation - b.elevation);
+    let lastNamed = Infinity;
+    return sorted.map((l) => {
+      const y = Math.round(-l.elevation * scale.value.pxPerMetre);
+      const labelled = lastNamed - y >= LEVEL_LABEL_PX;
+      if (labelled) lastNamed = y;
+      return {
+        id: `level:${l.id}`,
+        type: 'level',
+        position: { x: LEVEL_LINE_X, y },
+        draggable: false,
+        selectable: false,
+        connectable: false,
+        focusable: false,
+        zIndex: -1,
+        class: 'stack-graph__level',
+        data: { name: l.name, elevation: l.elevation, labelled, compact: scale.value.compact },
+      };
+    });
+  });
+
+  const nodes = computed<(Node<NodeView> | Node<LevelView>)[]>(() => [...levelNodes.value, ...stackNodes.value]);
+
+  /** Bumped after a drag, so a node dragged where it cannot go is drawn back at its place. */
+  const redraw = ref(0);
+  const stackNodes = computed<Node<NodeView>[]>(() => {
+    void redraw.value;
     const doc = toValue(input.doc);
     if (!doc) return [];
     const res = toValue(input.results);
@@ -71,7 +125,7 @@ export function useStackGraph(input: StackGraphInput) {
     return doc.nodes.map((n) => ({
       id: n.id,
       type: n.kind,
-      position: { ...(n.position ?? layout.value.get(n.id) ?? { x: 0, y: 0 }) },
+      position: placeOf(n),
       selected: selected.has(n.id),
       draggable: !readOnly,
       connectable: !readOnly,
@@ -85,6 +139,7 @@ export function useStackGraph(input: StackGraphInput) {
         span: spans.get(n.id) ?? null,
         others: colleagues.value.get(n.id) ?? [],
         readOnly,
+        compact: scale.value.compact,
       } satisfies NodeView,
     }));
   });
@@ -122,6 +177,40 @@ export function useStackGraph(input: StackGraphInput) {
     });
   }
 
+  /**
+   * The edit a drag makes. Sideways, a node keeps its new place (moveNode). Up or down, a splice or a
+   * restraint not tied to a level takes the elevation it was dropped at (snapped to a level or to `offset`
+   * above one); every other node's height is its elevation, so it goes back to it. Throws
+   * StructuralEditError when the new elevation does not fit (a splice past the next one).
+   */
+  function dragOps(moved: readonly { id: string; position: XY }[], offset: number): Op[] {
+    const doc = toValue(input.doc);
+    if (!doc) return [];
+    const taken = new Set(doc.edges.map((e) => e.id).concat(doc.nodes.map((n) => n.id)));
+    const make = (prefix: 'lift' | 'splice' | 'restraint' | 'edge') => newId(prefix, taken);
+    const ops: Op[] = [];
+    try {
+      for (const { id, position } of moved) {
+        const node = doc.nodes.find((n) => n.id === id);
+        const was = drawnAt(id);
+        if (!node || !was) continue;
+        const x = scale.value.compact ? (node.position?.x ?? was.x) : Math.round(position.x);
+        const vertical = node.kind === 'splice' || (node.kind === 'restraint' && !node.data.levelId);
+        const dropped = -(position.y + (scale.value.compact ? COMPACT_LINE_PX / 2 : 0)) / scale.value.pxPerMetre;
+        const z = vertical ? snapElevation(dropped, levels.value, offset) : null;
+        let y = was.y;
+        if (z !== null && (node.kind === 'splice' || node.kind === 'restraint') && Math.abs(z - node.data.elevation) >= 0.001) {
+          ops.push(...(node.kind === 'splice' ? moveSpliceOps(doc, id, z, make) : moveRestraintOps(doc, id, z, make)));
+          y = Math.round(-z * PX_PER_METRE);
+        }
+        if (x !== node.position?.x || (node.position && y !== node.position.y)) ops.push({ op: 'moveNode', id, position: { x, y } });
+      }
+    } finally {
+      redraw.value++;
+    }
+    return ops;
+  }
+
   /** moveNode for every node whose stored position differs from its place by elevation ("tidy"). */
   function tidyOps(): Op[] {
     const doc = toValue(input.doc);
@@ -135,5 +224,5 @@ export function useStackGraph(input: StackGraphInput) {
     });
   }
 
-  return { nodes, edges, drawnAt, connectOp, moveOps, tidyOps };
+  return { nodes, edges, drawnAt, connectOp, moveOps, dragOps, tidyOps };
 }

@@ -15,27 +15,27 @@ export function useUndoHistory() {
   const undoStack = shallowRef<HistoryEntry[]>([]);
   const redoStack = shallowRef<HistoryEntry[]>([]);
 
+  // An entry with no ops could never be undone (the store sends nothing for it) and would stay on top,
+  // blocking every older step: such entries are never kept, and any already held are skipped.
   /** A fresh edit: it can be undone, and nothing can be redone past it. */
   function record(entry: HistoryEntry): void {
-    undoStack.value = [...undoStack.value, entry].slice(-HISTORY_LIMIT);
     redoStack.value = [];
+    if (entry.ops.length) undoStack.value = [...undoStack.value, entry].slice(-HISTORY_LIMIT);
   }
   function pushUndo(entry: HistoryEntry): void {
-    undoStack.value = [...undoStack.value, entry].slice(-HISTORY_LIMIT);
+    if (entry.ops.length) undoStack.value = [...undoStack.value, entry].slice(-HISTORY_LIMIT);
   }
   function pushRedo(entry: HistoryEntry): void {
-    redoStack.value = [...redoStack.value, entry];
+    if (entry.ops.length) redoStack.value = [...redoStack.value, entry];
   }
-  function popUndo(): HistoryEntry | undefined {
-    const entry = undoStack.value.at(-1);
-    undoStack.value = undoStack.value.slice(0, -1);
+  function popFrom(stack: typeof undoStack): HistoryEntry | undefined {
+    const entries = stack.value.filter((e) => e.ops.length > 0);
+    const entry = entries.at(-1);
+    stack.value = entries.slice(0, -1);
     return entry;
   }
-  function popRedo(): HistoryEntry | undefined {
-    const entry = redoStack.value.at(-1);
-    redoStack.value = redoStack.value.slice(0, -1);
-    return entry;
-  }
+  const popUndo = () => popFrom(undoStack);
+  const popRedo = () => popFrom(redoStack);
   /** Drops an entry whose edit the server refused: there is nothing to undo. */
   function forget(entry: HistoryEntry): void {
     undoStack.value = undoStack.value.filter((e) => e !== entry);

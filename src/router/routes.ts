@@ -22,6 +22,9 @@ export const routes: RouteRecordRaw[] = [
     component: () => import('@/layouts/AuthLayout.vue'),
     meta: { public: true, guestOnly: true },
     children: [
+      // The bare root matched this layout with no page in it (a blank screen when signed out): it is the
+      // sign-in page, which sends a signed-in person on to the buildings list.
+      { path: '', redirect: { name: 'sign-in' } },
       { path: 'sign-in', name: 'sign-in', component: () => import('@/pages/SignInPage.vue'), meta: { public: true, guestOnly: true } },
       { path: 'register', name: 'register', component: () => import('@/pages/RegisterPage.vue'), meta: { public: true, guestOnly: true } },
     ],

@@ -2,7 +2,7 @@
 // Actions report failures through the notifier and answer whether they succeeded, so forms can stay open.
 import { computed, ref } from 'vue';
 import { defineStore } from 'pinia';
-import { ROLE_RANK, type Building, type BuildingSummary, type Level, type Member, type Role, type StackSummary } from '@shared/schema/api.ts';
+import { ROLE_RANK, type Building, type BuildingSummary, type Level, type LevelMovePreview, type Member, type Role, type StackSummary } from '@shared/schema/api.ts';
 import type { AnalysisOptions } from '@shared/schema/results.ts';
 import type { BuildingStackChanged } from '@shared/schema/socket.ts';
 import { buildingsApi, levelsApi, membersApi, type CreateBuildingBody, type CreateLevelBody, type UpdateLevelBody } from '@/api/buildings.ts';
@@ -122,6 +122,15 @@ export const useBuildingsStore = defineStore('buildings', () => {
     );
   }
 
+  /** What moving a level would do to the stacks, or null (reported) when it cannot be worked out. */
+  async function previewLevelMove(levelId: string, elevation: number): Promise<LevelMovePreview | null> {
+    let preview: LevelMovePreview | null = null;
+    await attempt('Could not work out what the move changes', async () => {
+      preview = await levelsApi.previewMove(buildingId(), levelId, elevation);
+    });
+    return preview;
+  }
+
   async function removeLevel(levelId: string): Promise<boolean> {
     const before = levels.value;
     levels.value = levels.value.filter((l) => l.id !== levelId);
@@ -217,7 +226,7 @@ export const useBuildingsStore = defineStore('buildings', () => {
   return {
     list, listState, listError, loadList, createBuilding,
     current, levels, stacks, members, pageState, pageError, pageMissing, membersState, role, canEdit, isLead,
-    open, saveOptions, addLevel, updateLevel, removeLevel,
+    open, saveOptions, addLevel, updateLevel, previewLevelMove, removeLevel,
     stackNamed, createStack, renameStack, removeStack, applyStackChange,
     loadMembers, addMember, changeMemberRole, removeMember,
   };

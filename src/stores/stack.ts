@@ -3,15 +3,16 @@
 // against, and rolled back when the server refuses them. Undo and redo are new edits built locally.
 import { computed, ref, shallowRef, watch } from 'vue';
 import { defineStore } from 'pinia';
-import { ROLE_RANK, type Building, type Role, type StackDetail } from '@shared/schema/api.ts';
+import { ROLE_RANK, type Building, type Level, type Role, type StackDetail } from '@shared/schema/api.ts';
 import type { Op } from '@shared/schema/ops.ts';
 import type { StackResult } from '@shared/schema/results.ts';
 import type { PresenceUser, StackChanged, StackJoinAck } from '@shared/schema/socket.ts';
 import type { StackDocument } from '@shared/schema/stack.ts';
 import { applyOps as applyOpsToDoc } from '@shared/ops/applyOps.ts';
+import { levelsApi } from '@/api/buildings.ts';
 import { apiFetch } from '@/api/http.ts';
 import { connectLive, joinStack, leaveStack, LiveError, selectNodes, sendEdit, type LiveSocket } from '@/api/live.ts';
-import { inverseOps } from '@/composables/inverseOps.ts';
+import { drawnWhereLaidOut, inverseOps } from '@/composables/inverseOps.ts';
 import { useUndoHistory, type HistoryEntry } from '@/composables/useUndoHistory.ts';
 import { describeError, isNotFound, useNotifyStore } from './notify.ts';
 import type { LoadState } from './buildings.ts';
@@ -48,6 +49,8 @@ export const useStackStore = defineStore('stack', () => {
   /** The stack does not exist or is not shared with this person. */
   const loadMissing = ref(false);
   const buildingName = ref('');
+  /** The building's levels, for naming take-down rows and placing floor restraints (read once on opening). */
+  const levels = shallowRef<Level[]>([]);
   const link = ref<LinkState>('connecting');
   const confirmed = shallowRef<StackDocument | null>(null);
   const version = ref(0);
@@ -55,6 +58,9 @@ export const useStackStore = defineStore('stack', () => {
   const pending = shallowRef<PendingEdit[]>([]);
   const selection = ref<string[]>([]);
   const presence = shallowRef<PresenceUser[]>([]);
+  /** The nodes the latest change touched and the colleague who made it (null for one's own), so a form can
+   *  say who replaced what its user was typing. */
+  const lastChange = shallowRef<{ nodeIds: ReadonlySet<string>; by: string | null }>({ nodeIds: new Set(), by: null });
 
   let socket: LiveSocket | null = null;
   let me = 0;
@@ -92,8 +98,12 @@ export const useStackStore = defineStore('stack', () => {
     state.value = 'loading';
     try {
       const detail = await apiFetch<StackDetail>('GET', `/stacks/${id}`);
-      const building = await apiFetch<Building>('GET', `/buildings/${detail.buildingId}`);
+      const [building, buildingLevels] = await Promise.all([
+        apiFetch<Building>('GET', `/buildings/${detail.buildingId}`),
+        levelsApi.list(detail.buildingId),
+      ]);
       if (stackId.value !== id) return;
+      levels.value = [...buildingLevels].sort((a, b) => a.elevation - b.elevation);
       name.value = detail.name;
       buildingId.value = detail.buildingId;
       buildingName.value = building.name;
@@ -213,6 +223,7 @@ export const useStackStore = defineStore('stack', () => {
     } else {
       const next = tryApply(confirmed.value, c.ops);
       if (!next) return void join();
+      lastChange.value = { nodeIds: new Set(c.ops.flatMap((op) => (op.op === 'updateNode' || op.op === 'removeNode' ? [op.id] : []))), by: c.by.name };
       confirmed.value = next;
       version.value = c.version;
     }
@@ -230,7 +241,9 @@ export const useStackStore = defineStore('stack', () => {
       notify.error(e, `${label} is not possible`);
       return false;
     }
-    const entry: HistoryEntry = { label, ops: inverseOps(before, ops, applyOpsToDoc) };
+    // A node drawn where the layout puts it has no stored position: undoing a move puts it back there.
+    lastChange.value = { nodeIds: new Set(), by: null };
+    const entry: HistoryEntry = { label, ops: inverseOps(before, ops, applyOpsToDoc, drawnWhereLaidOut(before)) };
     if (record === 'new') history.record(entry);
     else if (record === 'undo') history.pushRedo(entry);
     else history.pushUndo(entry);
@@ -276,11 +289,12 @@ export const useStackStore = defineStore('stack', () => {
     loadError.value = '';
     loadMissing.value = false;
     buildingName.value = '';
+    levels.value = [];
     link.value = 'connecting';
   }
 
   return {
-    stackId, name, buildingId, buildingName, role, state, loadError, loadMissing, link, doc, version, results, selection, presence, others,
+    stackId, name, buildingId, buildingName, levels, lastChange, role, state, loadError, loadMissing, link, doc, version, results, selection, presence, others,
     canEdit, isViewer, saving,
     canUndo: history.canUndo, canRedo: history.canRedo, undoLabel: history.undoLabel, redoLabel: history.redoLabel,
     open, close, edit, undo, redo, select,

@@ -29,6 +29,17 @@ describe('route guard and sign-out on 401', () => {
     expect(router.currentRoute.value.query.redirect).toBe('/buildings/7');
   });
 
+  it('sends the bare root to the sign-in page when signed out, and to the buildings list when signed in', async () => {
+    mockFetch({ 'GET /api/me': () => ({ status: 200, body: user }) });
+    const router = makeRouter();
+    await router.push('/');
+    expect(router.currentRoute.value.name).toBe('sign-in');
+    setToken('tok-root');
+    const signedIn = makeRouter();
+    await signedIn.push('/');
+    expect(signedIn.currentRoute.value.name).toBe('buildings');
+  });
+
   it('lets a signed-in user through and loads who they are once', async () => {
     setToken('tok-1');
     const requests = mockFetch({ 'GET /api/me': () => ({ status: 200, body: user }) });

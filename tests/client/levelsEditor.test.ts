@@ -68,11 +68,11 @@ describe('levels editor', () => {
     expect(requests).toHaveLength(0);
   });
 
-  it('refuses an elevation beyond the ±1000 m the API accepts', async () => {
+  it('refuses an elevation beyond the −100 to +900 m range of buildings the API accepts', async () => {
     const requests = mockFetch({});
     const wrapper = mountEditor();
     await addLevel(wrapper, 'Level 2', '1200');
-    expect(wrapper.text()).toContain('Elevation must be at most 1000 m');
+    expect(wrapper.text()).toContain('Elevation must be at most 900 m');
     expect(requests).toHaveLength(0);
   });
 
@@ -94,6 +94,8 @@ describe('levels editor', () => {
 
   it('lets a level keep its own name and elevation when it is changed', async () => {
     const requests = mockFetch({
+      // No stack uses the level: the move is saved without asking
+      'POST /api/buildings/7/levels/lv-1/preview': () => ({ status: 200, body: { elevation: 3.65, stacks: [] } }),
       'PATCH /api/buildings/7/levels/lv-1': (req) => ({ status: 200, body: { id: 'lv-1', ...(req.body as object) } }),
     });
     const wrapper = mountEditor();
@@ -103,7 +105,7 @@ describe('levels editor', () => {
     await form.trigger('submit');
     await flushPromises();
     expect(wrapper.find('[data-test="level-clash"]').exists()).toBe(false);
-    expect(requests.map((r) => r.method)).toEqual(['PATCH']);
+    expect(requests.map((r) => r.method)).toEqual(['POST', 'PATCH']);
   });
 
   it('adds a valid level through the API and shows it in elevation order', async () => {

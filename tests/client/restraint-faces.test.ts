@@ -127,7 +127,8 @@ describe('the note when nominal moments are on but no face reactions are given',
 
   it('says so in the results header and in the combined column’s tooltip', async () => {
     const w = mountPanel(analyseStack(plainDoc));
-    expect(w.find('[data-test="moments-note"]').text()).toContain('no beam reactions are given on the column faces');
+    expect(w.find('[data-test="moments-note"]').text()).toContain('Axial only: no beam reactions given');
+    expect(w.find('[data-test="moments-note"]').attributes('aria-label')).toContain('no beam reactions are given on the column faces');
     expect(w.find('[data-test="stack-warnings"]').exists()).toBe(false);
     const table = w.findComponent(ResultsTable);
     expect(table.props('combinedNote')).toContain('the combined check is not made');

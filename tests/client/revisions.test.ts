@@ -131,7 +131,7 @@ describe('the comparison view', () => {
       from: { id: 11, code: 'P01' },
       to: { id: null, code: 'current' },
       unchangedStacks: 0,
-      levels: [{ field: 'Roof (id lv-9)', from: 26.6, to: 27 }],
+      levels: [{ field: 'Roof (id lv-9)', from: 26.6, to: 27 }, { field: 'Level 3', from: 11.4, to: 11.5 }],
       options: [{ field: 'selfWeight', from: 'true', to: 'false' }],
       stacks: [
         {
@@ -149,6 +149,7 @@ describe('the comparison view', () => {
     await flushPromises();
     expect(wrapper.find('[data-test="node-change"]').text()).toContain('Gk: 240 → 400 kN; elevation: +19.000 → +19.500 m');
     expect(wrapper.find('[data-test="option-change"]').text()).toBe('Analysis option self-weight: on → off');
-    expect(wrapper.find('[data-test="level-change"]').text()).toBe('Level Roof: +26.600 → +27.000 m');
+    // A level named "Level 3" reads "Level 3", never "Level Level 3"
+    expect(wrapper.findAll('[data-test="level-change"]').map((w) => w.text())).toEqual(['Level Roof: +26.600 → +27.000 m', 'Level 3: +11.400 → +11.500 m']);
   });
 });

@@ -12,7 +12,8 @@ describeInBrowser('nominal moments on the stack page', () => {
     await openStack(page, 'C/4');
     const note = results(page).locator('[data-test="moments-note"]');
     await note.waitFor();
-    expect(await note.innerText()).toContain('no beam reactions are given on the column faces');
+    expect(await note.innerText()).toContain('Axial only: no beam reactions given');
+    expect(await note.getAttribute('aria-label')).toContain('no beam reactions are given on the column faces');
     await screenshot(page, 'stack-page-no-face-reactions');
   });
 

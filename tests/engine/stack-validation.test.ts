@@ -164,7 +164,7 @@ describe('validateStack', () => {
   it('prints negative elevations with a minus sign and three decimals', () => {
     const doc = buildStack({ base: { elevation: -3 }, lifts: [{ top: 4 }], floors: [{ elevation: -1.5 }] });
     const moved = { nodes: doc.nodes, edges: doc.edges.filter((e) => e.source !== 'r1') };
-    expect(errorsOf(moved)).toEqual([{ nodeId: 'r1', message: 'Restraint at -1.500 is not attached to a lift' }]);
+    expect(errorsOf(moved)).toEqual([{ nodeId: 'r1', message: 'Restraint at \u22121.500 is not attached to a lift' }]);
   });
 
   it('warns when a restraint refers to a level the building does not have', () => {

@@ -99,6 +99,28 @@ describe('bad files: 4xx with row-level problems, building unchanged', () => {
       expect: (p) => expect(p).toEqual([{ row: 2, column: null, message: 'This row has 6 values; the header has 5' }]),
     },
     {
+      name: 'several bad rows of different kinds: every one reported in one answer, in file order',
+      body: () => csv('A/1,Level 1,120,60,B,extra', 'A/2,Level 1,lots,60,B', 'B/1,Level 1', 'A/1,Level 9,120,60,B'),
+      status: 422,
+      expect: (p) =>
+        expect(p).toEqual([
+          { row: 2, column: null, message: 'This row has 6 values; the header has 5' },
+          { row: 3, column: 'Gk_kN', message: '"lots" is not a number (use a point for decimals, e.g. 12.5)' },
+          { row: 4, column: null, message: 'This row has 2 values; the header has 5' },
+          { row: 5, column: 'level', message: 'No level "Level 9" in this building' },
+        ]),
+    },
+    {
+      name: 'broken quoting on two rows: both reported',
+      body: () => csv('A/1,"Level 1"x,120,60,B', 'A/2,Level 1,120,60,B', 'B/1,"Level 1"y,120,60,B'),
+      status: 422,
+      expect: (p) =>
+        expect(p).toEqual([
+          { row: 2, column: null, message: expect.stringMatching(/^The file cannot be read as CSV here/) },
+          { row: 4, column: null, message: expect.stringMatching(/^The file cannot be read as CSV here/) },
+        ]),
+    },
+    {
       name: 'an empty file',
       body: () => '',
       status: 422,

@@ -133,6 +133,16 @@ describe('malformed input on every writing route', () => {
       ],
     },
     {
+      name: 'POST /api/buildings/:id/levels/:levelId/preview',
+      method: 'POST',
+      path: () => `/buildings/${ids.building}/levels/${ids.level}/preview`,
+      cases: () => [
+        ['an elevation beyond any building', { body: { elevation: 5000 } }],
+        ['an elevation as a string', { body: { elevation: '4.5' } }],
+        ['an unknown field', { body: { elevation: 4, name: 'x' } }],
+      ],
+    },
+    {
       name: 'DELETE /api/buildings/:id/levels/:levelId',
       method: 'DELETE',
       bodyless: true,

@@ -60,6 +60,7 @@ const MATRIX: Record<string, Case> = {
   'GET /api/buildings/:id/levels': { path: (f) => `/buildings/${f.buildingId}/levels`, expect: read },
   'POST /api/buildings/:id/levels': { path: (f) => `/buildings/${f.buildingId}/levels`, body: () => ({ name: 'Level 9', elevation: 30 }), expect: edit(201) },
   'PATCH /api/buildings/:id/levels/:levelId': { path: (f) => `/buildings/${f.buildingId}/levels/${f.levelId}`, body: () => ({ elevation: 41 }), expect: edit(200) },
+  'POST /api/buildings/:id/levels/:levelId/preview': { path: (f) => `/buildings/${f.buildingId}/levels/${f.levelId}/preview`, body: () => ({ elevation: 42 }), expect: edit(200) },
   'DELETE /api/buildings/:id/levels/:levelId': { path: (f) => `/buildings/${f.buildingId}/levels/${f.levelId}`, expect: edit(204) },
   'GET /api/buildings/:id/stacks': { path: (f) => `/buildings/${f.buildingId}/stacks`, expect: read },
   'POST /api/buildings/:id/stacks': { path: (f) => `/buildings/${f.buildingId}/stacks`, body: () => ({ name: 'N/1', template }), expect: edit(201) },

@@ -98,7 +98,7 @@ export function readAttachments(graph: StackGraph, chain: StackChain): { attachm
   }
   for (const node of nodes) {
     if (node.kind !== 'load') continue;
-    const name = node.data.label.trim() ? `Load "${node.data.label.trim()}"` : `Load ${node.id}`;
+    const name = node.data.label.trim() ? `Load "${node.data.label.trim()}"` : 'A load with no description';
     const targets = neighbours(graph, node.id, 'out', ['restraint', 'cap']);
     if (targets.length === 0) errors.push({ nodeId: node.id, message: `${name} is not attached to a restraint or the cap` });
     else if (targets.length > 1) errors.push({ nodeId: node.id, message: `${name} is attached to more than one node` });

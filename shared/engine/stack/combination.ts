@@ -20,6 +20,11 @@ export interface DesignForce {
   /** The expression that governs, e.g. "6.10b, leading A". */
   combination: string;
   leading: Category | null;
+  /** Storeys above the section carrying imposed load of the leading category (of any category when none leads). */
+  n: number;
+  /** αn applied to the leading action (EN 1991-1-1 6.3.1.2(11)): 1 when its category is not reduced,
+   *  null when no variable action leads (eq. 6.10a, or permanent load only), so none is reduced. */
+  alphaN: number | null;
 }
 
 /** One expression of EN 1990 6.4.3.2: eq. 6.10, or eq. 6.10a or 6.10b taken alone. */
@@ -56,21 +61,31 @@ function withLeading(permanent: number, state: AxialState, accompanying: readonl
   return { value, leading };
 }
 
+/** The reduction the leading action received, for the take-down's working: n and αn (EN 1991-1-1 6.3.1.2(11)). */
+function reductionOf(state: AxialState, leading: Category | null, options: Options): { n: number; alphaN: number | null } {
+  if (leading === null) return { n: Math.max(0, ...CATEGORIES.map((c) => state.loadedLevels[c] ?? 0)), alphaN: null };
+  const n = state.loadedLevels[leading] ?? 0;
+  const Q = state.sumQk[leading] ?? 0;
+  return { n, alphaN: Q > 0 ? leadingValue(state, leading, options) / Q : 1 };
+}
+
 export function designAxialForce(state: AxialState, options: Options): DesignForce {
   const permanent = GAMMA_G * state.sumGk;
   const accompanying = accompanyingValues(state, options);
   if (options.combination === '6.10') {
     // EN 1990 eq. 6.10
     const { value, leading } = withLeading(permanent, state, accompanying, options);
-    return { NEd: value, leading, combination: leading ? `6.10, leading ${leading}` : '6.10, permanent only' };
+    return { NEd: value, leading, combination: leading ? `6.10, leading ${leading}` : '6.10, permanent only', ...reductionOf(state, leading, options) };
   }
   // EN 1990 eq. 6.10a: every variable action at its combination value ψ0·Qk
   let a = permanent;
   for (const value of accompanying) a += value;
   // EN 1990 eq. 6.10b: ξ·γG·Gk with a leading variable action
   const b = withLeading(xi(options.annex) * permanent, state, accompanying, options);
-  if (options.expression === '6.10a') return { NEd: a, leading: null, combination: '6.10a' };
-  if (options.expression === '6.10b') return { NEd: b.value, leading: b.leading, combination: b.leading ? `6.10b, leading ${b.leading}` : '6.10b' };
-  if (a >= b.value) return { NEd: a, leading: null, combination: '6.10a' };
-  return { NEd: b.value, leading: b.leading, combination: b.leading ? `6.10b, leading ${b.leading}` : '6.10b' };
+  if (options.expression === '6.10a') return { NEd: a, leading: null, combination: '6.10a', ...reductionOf(state, null, options) };
+  if (options.expression === '6.10b') {
+    return { NEd: b.value, leading: b.leading, combination: b.leading ? `6.10b, leading ${b.leading}` : '6.10b', ...reductionOf(state, b.leading, options) };
+  }
+  if (a >= b.value) return { NEd: a, leading: null, combination: '6.10a', ...reductionOf(state, null, options) };
+  return { NEd: b.value, leading: b.leading, combination: b.leading ? `6.10b, leading ${b.leading}` : '6.10b', ...reductionOf(state, b.leading, options) };
 }

@@ -35,7 +35,7 @@ function chainNodeName(node: StackNode, liftNames: ReadonlyMap<string, string>):
     case 'lift':
       return `Lift ${liftNames.get(node.id) ?? node.id}`;
     default:
-      return `Node ${node.id}`;
+      return 'A node';
   }
 }
 

@@ -100,7 +100,7 @@ function designForces(states: readonly AxialState[], order: readonly number[], o
   const forces = states.map((state) => designAxialForce(state, options));
   let above: DesignForce | null = null;
   for (const i of order) {
-    if (above && forces[i].NEd < above.NEd) forces[i] = { NEd: above.NEd, leading: above.leading, combination: `${above.combination}, held at the force above` };
+    if (above && forces[i].NEd < above.NEd) forces[i] = { ...above, combination: `${above.combination}, held at the force above` };
     above = forces[i];
   }
   return forces;
@@ -123,6 +123,8 @@ function takeDownRow(entry: LoadEntry, state: AxialState, force: DesignForce): T
     sumQkByCategory,
     NEd: force.NEd,
     combination: force.combination,
+    n: force.n,
+    alphaN: force.alphaN,
   };
 }
 

@@ -1,11 +1,8 @@
 // How figures read on screen: elevations to the millimetre with a sign, utilisation to two places,
 // dates in ISO 8601.
 
-/** "+3.500" (m). */
-export function formatElevation(metres: number): string {
-  const text = Math.abs(metres).toFixed(3);
-  return metres < 0 && text !== '0.000' ? `−${text}` : `+${text}`;
-}
+/** "+3.500" (m): the one formatter shared with the package and the e-mail. */
+export { formatElevation } from '@shared/wording.ts';
 
 /** "0.87"; a dash when there is no result. */
 export function formatUtilisation(u: number | null): string {

@@ -9,7 +9,7 @@ import { connectionRefusal } from './connectionRules.ts';
 
 /** A typical storey height for a new level above the top of the stack (common practice, no source). */
 export const DEFAULT_STOREY_M = 4;
-/** A starting section for a new lift; the engineer picks the real one in the properties pane. */
+/** A placeholder section for a new lift, marked not chosen; the engineer picks the real one in the properties pane. */
 export const DEFAULT_SECTION = 'UKC 203x203x46';
 
 function highest(doc: StackDocument): number | null {
@@ -23,10 +23,9 @@ function startingData(kind: NodeKind, doc: StackDocument, near: StackNode | unde
   switch (kind) {
     case 'support':
       return { elevation: 0, fixity: 'pinned' };
-    case 'lift': {
-      const last = [...doc.nodes].reverse().find((n) => n.kind === 'lift');
-      return last?.kind === 'lift' ? { section: last.data.section, grade: last.data.grade } : { section: DEFAULT_SECTION, grade: 'S355' };
-    }
+    case 'lift':
+      // A placeholder the analysis refuses until the engineer picks the section (never a neighbour's, silently).
+      return { section: DEFAULT_SECTION, grade: 'S355', sectionStatus: 'not-chosen' };
     case 'splice':
       return { elevation: above };
     case 'restraint':

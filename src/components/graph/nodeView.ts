@@ -26,10 +26,24 @@ export interface NodeView<K extends NodeKind = NodeKind> {
   span: Span | null;
   others: Colleague[];
   readOnly: boolean;
+  /** Drawn in the compressed (whole tall stack) drawing: one line, no details. */
+  compact?: boolean;
 }
 
 /** The part of a node's view that its frame draws, whatever its kind. */
-export type NodeFrame = Pick<NodeView, 'kind' | 'title' | 'problems' | 'governing' | 'others'>;
+export type NodeFrame = Pick<NodeView, 'kind' | 'title' | 'problems' | 'governing' | 'others' | 'compact'>;
+
+/** A building level drawn across the graph (not a node of the stack). */
+export interface LevelView {
+  name: string;
+  elevation: number;
+  /** False where the levels are too close to name every one. */
+  labelled: boolean;
+  /** In the compressed drawing the line stops at the loads column, so Fit keeps the names in view. */
+  compact: boolean;
+}
+/** Where level lines start: left of every column of the drawing, so their names sit at the side. */
+export const LEVEL_LINE_X = -420;
 
 /** Handle ids, so a connection reads the same whichever way the user drew it. */
 export const HANDLE = { up: 'up', below: 'below', side: 'side', load: 'load' } as const;

@@ -1,6 +1,7 @@
 // How a comparison reads on screen: quantities with their units, elevations to the millimetre, and the
 // analysis options in the words of the options dialog rather than their stored keys.
 import type { Change, FieldChange, LiftUtilisationChange } from '@shared/schema/revisions.ts';
+import { levelWord } from '@shared/wording.ts';
 import { formatElevation } from '@/components/common/format.ts';
 
 export const CHANGE_COLOUR: Record<Change, string> = { added: 'positive', removed: 'negative', changed: 'warning' };
@@ -54,12 +55,12 @@ export const fieldWords = (f: FieldChange) => words(f, NODE_FIELD[f.field]);
 /** "self-weight: on → off". */
 export const optionWords = (f: FieldChange) => words(f, OPTION_FIELD[f.field]);
 
-/** A level's elevation, keyed by its name with its id ("Roof (id lv-9)"); the id is for telling two
- *  levels of one name apart and is left out when it is not needed. */
+/** A level's elevation, keyed by its name ("Level Roof", and "Level 3" for a level named "Level 3", never
+ *  "Level Level 3"); comparisons stored before names were unique may still carry an id, left out when not needed. */
 export function levelWords(f: FieldChange, all: FieldChange[]): string {
   const name = f.field.replace(/ \(id [^)]*\)$/, '');
   const shared = all.filter((o) => o.field.replace(/ \(id [^)]*\)$/, '') === name).length > 1;
-  return words(f, { name: shared ? f.field : name, unit: 'm', show: elevation });
+  return words(f, { name: levelWord(shared ? f.field : name), unit: 'm', show: elevation });
 }
 
 /** Signed change of utilisation to two places, or the word for a lift that came or went. */

@@ -2,6 +2,7 @@
 // utilisation is its worst piece). Forces converted from the engine's N to kN; lengths stay in m.
 import type { GoverningMode, LiftResult, PieceCheck, StackResult } from '@shared/schema/results.ts';
 import type { StackDocument } from '@shared/schema/stack.ts';
+import { CHECK_NAMES } from '@shared/wording.ts';
 import { liftNumbers } from '@/composables/stackChain.ts';
 
 export interface LiftRow {
@@ -31,12 +32,7 @@ export interface LiftRow {
   isGoverningLift: boolean;
 }
 
-export const GOVERNING_WORD: Record<GoverningMode, string> = {
-  'cross-section': 'Cross-section resistance',
-  'flexural-y': 'Flexural buckling about y-y',
-  'flexural-z': 'Flexural buckling about z-z',
-  combined: 'Axial force with nominal moments (simple construction)',
-};
+export const GOVERNING_WORD: Record<GoverningMode, string> = CHECK_NAMES;
 
 const N_PER_KN = 1000;
 
