@@ -6,6 +6,11 @@ import type { AnalysisOptions } from '../../shared/schema/results.ts';
 import type { RevisionSnapshot } from '../../shared/schema/revisions.ts';
 import type { SizingRequest } from '../../shared/schema/sizing.ts';
 import type { SectionDims, StackDocument } from '../../shared/schema/stack.ts';
+import type { Op } from '../../shared/schema/ops.ts';
+import type { StackResult } from '../../shared/schema/results.ts';
+import { stackDocumentSchema } from '../../shared/schema/stack.ts';
+import { analyseStack } from '../../shared/engine/index.ts';
+import { applyOps, OpError, touchedIds } from '../../shared/ops/applyOps.ts';
 import { renderCalcPackage } from '../pdf/calcPackage.ts';
 
 export interface PackageTask {
@@ -42,4 +47,31 @@ export function sizeWholeBuilding({ stacks, request, options, levels, sections }
     if (isEngineError(error)) return { refused: { message: error.message, code: error.code } };
     throw error;
   }
+}
+
+export interface EditTask {
+  /** The stored document as text: parsing and checking it is part of the work moved off the main thread. */
+  docText: string;
+  ops: Op[];
+  options: AnalysisOptions;
+  levels: Map<string, number>;
+  sections: Map<string, SectionDims>;
+}
+
+export type EditOutcome =
+  | { doc: StackDocument; touched: string[]; results: StackResult }
+  | { touched: string[]; opError: { message: string; opIndex: number; id: string } };
+
+/** One edit of a large stack: parse the stored document, apply the ops, analyse (docs/access.md). */
+export function editLargeStack({ docText, ops, options, levels, sections }: EditTask): EditOutcome {
+  const before = stackDocumentSchema.parse(JSON.parse(docText));
+  const touched = [...touchedIds(before, ops)];
+  let doc: StackDocument;
+  try {
+    doc = applyOps(before, ops);
+  } catch (e) {
+    if (e instanceof OpError) return { touched, opError: { message: e.message, opIndex: e.opIndex, id: e.id } };
+    throw e;
+  }
+  return { doc, touched, results: analyseStack(doc, options, { levels, sections, shapeChecked: true }) };
 }

@@ -7,3 +7,4 @@ const tasks = await import('./tasks.ts');
 
 export const renderPackage = tasks.renderPackage;
 export const sizeWholeBuilding = tasks.sizeWholeBuilding;
+export const editLargeStack = tasks.editLargeStack;

@@ -20,7 +20,8 @@ const estimator = new ZxcvbnFactory({
 export async function rate(password: string, personal: string[] = []): Promise<PasswordStrength> {
   // The estimator's cost grows with length; past bcrypt's 72 bytes a password is refused anyway.
   const sample = password.slice(0, MAX_PASSWORD_BYTES);
-  const words = personal.flatMap((p) => p.toLowerCase().split(/[^a-z0-9]+/)).filter((w) => w.length >= 3);
+  const whole = personal.flatMap((p) => [p.toLowerCase(), p.toLowerCase().split('@')[0] ?? '']);
+  const words = [...whole, ...personal.flatMap((p) => p.toLowerCase().split(/[^a-z0-9]+/))].filter((w) => w.length >= 3);
   const r = await estimator.check(sample, words);
   return {
     score: r.score,

@@ -22,8 +22,10 @@ export interface SessionClaims {
   expiresAt: number;
 }
 
-export function signToken(secret: string, userId: number, tokenVersion = 0): string {
-  return jwt.sign({ tv: tokenVersion }, secret, { subject: String(userId), expiresIn: TOKEN_LIFETIME, algorithm: 'HS256', audience: SESSION });
+/** lifetimeSeconds: shorter sessions for tests of expiry; TOKEN_LIFETIME otherwise. */
+export function signToken(secret: string, userId: number, tokenVersion = 0, lifetimeSeconds?: number): string {
+  const expiresIn = lifetimeSeconds ?? TOKEN_LIFETIME;
+  return jwt.sign({ tv: tokenVersion }, secret, { subject: String(userId), expiresIn, algorithm: 'HS256', audience: SESSION });
 }
 
 /** The claims of a valid session token; a bad, expired or foreign token is a 401. */

@@ -8,6 +8,7 @@ import type { Express } from 'express';
 import type { AuthResponse, Building, Role } from '../../shared/schema/api.ts';
 import { startServer, type RunningServer, type StartOptions } from '../../server/server.ts';
 import type { Limits } from '../../server/config.ts';
+import { verifyEmail } from '../../server/services/users.ts';
 
 /**
  * The scale-out run (issue 13) repeats every server test on PostgreSQL and Redis: vitest's 'server-pg'
@@ -124,6 +125,12 @@ export async function verificationToken(s: TestServer, email: string): Promise<s
 export async function registerAndVerify(s: TestServer, email: string, name: string, password = TEST_PASSWORD): Promise<AuthResponse> {
   const r = await s.api('POST', '/auth/register', { body: { email, password, name } });
   if (r.status !== 202) throw new Error(`register failed: ${r.status} ${JSON.stringify(r.body)}`);
+  if (s.ctx.mailer.fakePort === null) {
+    // A test of a failing mail server: no link can arrive, so the address is verified in the database.
+    const row = await s.ctx.db('users').where({ email }).first<{ id: number }>('id');
+    await verifyEmail(s.ctx.db, row.id, email);
+    return signIn(s, email, password);
+  }
   const v = await s.api('POST', '/auth/verify', { body: { token: await verificationToken(s, email) } });
   if (v.status !== 200) throw new Error(`verify failed: ${v.status} ${JSON.stringify(v.body)}`);
   return signIn(s, email, password);
