@@ -75,7 +75,7 @@ export const DEFAULT_LIMITS: Limits = {
 export const publicUrlSchema = z
   .string()
   .url('PUBLIC_URL must be an absolute URL')
-  .refine((u) => /^https?:$/.test(new URL(u).protocol), 'PUBLIC_URL must start with http:// or https://')
+  .refine((u) => URL.canParse(u) && /^https?:$/.test(new URL(u).protocol), 'PUBLIC_URL must start with http:// or https://')
   .transform((u) => u.replace(/\/+$/, ''));
 
 const intFromEnv = (fallback: number, min: number, max: number) =>

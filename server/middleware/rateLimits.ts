@@ -25,7 +25,7 @@ export const byBodyEmail: LimitKey = (req) => {
 
 const made = new WeakMap<ServerContext, Map<string, RequestHandler>>();
 
-/** One limiter per name and server: routes naming the same limit share its count. */
+/** One limiter per name and server: routes naming the same limit share its count (so they must share its key). */
 export function limiter(ctx: ServerContext, name: string, limit: Limit, key: LimitKey, message: string, opts: { onlyFailures?: boolean } = {}): RequestHandler {
   const mine = made.get(ctx) ?? new Map<string, RequestHandler>();
   made.set(ctx, mine);

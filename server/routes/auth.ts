@@ -33,7 +33,7 @@ export function registerAuthRoutes(router: Router, ctx: ServerContext): void {
   ];
   const verificationLimits = [
     limiter(ctx, 'mail-user', limits.mailPerUser, byUser, 'Too many e-mails sent from this account'),
-    limiter(ctx, 'mail-recipient', limits.mailPerRecipient, (req) => (req.user ? req.user.email : null), 'Too many e-mails to this address'),
+    limiter(ctx, 'verify-recipient', limits.mailPerRecipient, (req) => (req.user ? req.user.email : null), 'Too many e-mails to this address'),
   ];
   const strengthLimit = limiter(ctx, 'strength', limits.strengthPerClient, byClient, 'Too many password checks');
   const link = (path: string) => `${config.publicUrl}${path}`;

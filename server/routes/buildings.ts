@@ -42,7 +42,7 @@ export function registerBuildingRoutes(router: Router, ctx: ServerContext): void
   const inviteLimits = [
     limiter(ctx, 'mail-user', limits.mailPerUser, byUser, 'Too many e-mails sent from this account'),
     limiter(ctx, 'invite-building', limits.invitesPerBuilding, byBuilding, 'Too many invitations from this building'),
-    limiter(ctx, 'mail-recipient', limits.mailPerRecipient, byBodyEmail, 'Too many e-mails to this address'),
+    limiter(ctx, 'invite-recipient', limits.mailPerRecipient, byBodyEmail, 'Too many e-mails to this address'),
   ];
   router.post('/buildings/:id/members', auth, lead, ...inviteLimits, async (req, res) => {
     const { email, role } = parseBody(addMemberBodySchema, req);
