@@ -4,6 +4,7 @@
 // (about half a second to load the engine and the renderer) and ends after ten minutes without work.
 import { Piscina } from 'piscina';
 import type { RevisionSnapshot } from '../../shared/schema/revisions.ts';
+import { workerExecArgv } from './passwords.ts';
 import type { BuildingSizingOutcome, BuildingSizingTask, EditOutcome, EditTask, PackageTask } from './tasks.ts';
 
 export interface OffThread {
@@ -28,6 +29,7 @@ export function createOffThread(): OffThread {
     minThreads: 0,
     maxThreads: 1,
     idleTimeout: 10 * 60_000,
+    execArgv: workerExecArgv(),
   });
   return {
     async renderPackage(snapshot, hash) {

@@ -1,7 +1,5 @@
 // Accounts: registration, verification of the address, sign-in, sessions and look-up (issue 2,
-// docs/access.md). Passwords are bcrypt hashes, always computed with the asynchronous bcryptjs calls so a
-// burst of registrations or sign-ins never holds the event loop for a whole hash.
-import bcrypt from 'bcryptjs';
+// docs/access.md). Passwords are bcrypt hashes, computed on a worker thread.
 import type { Knex } from 'knex';
 import type { User } from '../../shared/schema/api.ts';
 import { conflict, unauthenticated, unprocessable } from '../errors.ts';
@@ -9,6 +7,7 @@ import { now } from '../db.ts';
 import { acceptInvitations } from './members.ts';
 import { recordAudit } from './audit.ts';
 import type { SessionClaims } from './tokens.ts';
+import { compareOffThread, hashOffThread } from '../offThread/passwords.ts';
 
 interface UserRow {
   id: number;
@@ -69,7 +68,9 @@ export interface NewUser {
   isAdmin?: boolean;
 }
 
-export const hashPassword = (password: string, rounds: number): Promise<string> => bcrypt.hash(password, rounds);
+// On a worker thread: a burst of registrations or sign-ins never holds the event loop (offThread/passwords.ts).
+export const hashPassword = (password: string, rounds: number): Promise<string> => hashOffThread(password, rounds);
+const comparePassword = (password: string, hash: string): Promise<boolean> => compareOffThread(password, hash);
 
 /**
  * Creates the account. Unverified by default: invitations wait until the owner follows the verification
@@ -109,14 +110,14 @@ export async function verifyEmail(db: Knex, userId: number, email: string): Prom
 const dummyHashes = new Map<number, Promise<string>>();
 export function dummyHash(rounds: number): Promise<string> {
   let hash = dummyHashes.get(rounds);
-  if (!hash) dummyHashes.set(rounds, (hash = bcrypt.hash('no-such-account-placeholder', rounds)));
+  if (!hash) dummyHashes.set(rounds, (hash = hashPassword('no-such-account-placeholder', rounds)));
   return hash;
 }
 export const WRONG_CREDENTIALS = 'E-mail address or password is wrong';
 
 export async function verifyLogin(db: Knex, email: string, password: string, rounds: number): Promise<User & { tokenVersion: number }> {
   const row = await db<UserRow>('users').where({ email }).first();
-  const ok = await bcrypt.compare(password, row?.password_hash ?? (await dummyHash(rounds)));
+  const ok = await comparePassword(password, row?.password_hash ?? (await dummyHash(rounds)));
   if (!row || !ok) throw unauthenticated(WRONG_CREDENTIALS);
   return { ...toUser(row), tokenVersion: Number(row.token_version) };
 }
@@ -125,7 +126,7 @@ export async function verifyLogin(db: Knex, email: string, password: string, rou
 export async function changePassword(db: Knex, userId: number, current: string, next: string, rounds: number): Promise<number> {
   const row = await db<UserRow>('users').where({ id: userId }).first();
   if (!row) throw unauthenticated('This account no longer exists');
-  if (!(await bcrypt.compare(current, row.password_hash))) throw unprocessable('The current password is wrong', { field: 'currentPassword' });
+  if (!(await comparePassword(current, row.password_hash))) throw unprocessable('The current password is wrong', { field: 'currentPassword' });
   const hash = await hashPassword(next, rounds);
   await db('users').where({ id: userId }).update({ password_hash: hash });
   return endSessions(db, userId, 'user.password');
