@@ -5,6 +5,9 @@ import bcrypt from 'bcryptjs';
 import { ZxcvbnFactory } from '@zxcvbn-ts/core';
 import * as common from '@zxcvbn-ts/language-common';
 import * as en from '@zxcvbn-ts/language-en';
+import { lowerPriority } from './lowerPriority.mjs';
+
+lowerPriority(10);
 
 let estimator = null;
 

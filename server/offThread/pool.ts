@@ -30,6 +30,8 @@ export function createOffThread(): OffThread {
     maxThreads: 1,
     idleTimeout: 10 * 60_000,
     execArgv: workerExecArgv(),
+    // Below the event loop's priority: an edit may wait a little, a request should not.
+    workerData: { nice: 10 },
   });
   return {
     async renderPackage(snapshot, hash) {

@@ -12,11 +12,19 @@ import type { StackRow } from './stackRows.ts';
 /** Stored documents longer than this (characters of JSON, about 150 nodes) are edited off the main thread. */
 export const LARGE_DOC_CHARS = 20_000;
 
+/** One turn of the event loop: long synchronous stretches are split so timers and I/O run between them. */
+export const yieldToLoop = (): Promise<void> => new Promise((resolve) => setImmediate(resolve));
+
+/** Stacks with more lifts than this have results large enough to be worth a turn of the loop before broadcasting. */
+export const LARGE_STACK_LIFTS = 10;
+
 export const isLarge = (row: Pick<StackRow, 'doc'>): boolean => row.doc.length > LARGE_DOC_CHARS;
 
 export async function editOffThread(trx: Knex, row: StackRow, input: OpsInput, offThread: ServerContext['offThread']): Promise<CommittedChange> {
   const inputs = await analysisInputs(trx, row.building_id);
   const outcome = await offThread.editLargeStack({ docText: row.doc, ops: input.ops, options: inputs.options, levels: inputs.levels, sections: inputs.sections });
+  // The result arrives as one message: let the event loop turn before storing it.
+  await yieldToLoop();
   const touched = new Set(outcome.touched);
   // As on the main thread: a clash with an edit since baseVersion (409) is reported before a bad op (422).
   await assertNoOverlap(trx, row, input.baseVersion, touched);

@@ -16,7 +16,7 @@ import { touchBuilding } from './buildings.ts';
 import { diffDocs } from './docDiff.ts';
 import { assertUniqueIds, loadStackRow, parseDoc, type StackRow } from './stackRows.ts';
 import type { OffThread } from '../offThread/pool.ts';
-import { editOffThread, isLarge } from './stackEditOffThread.ts';
+import { editOffThread, isLarge, LARGE_STACK_LIFTS, yieldToLoop } from './stackEditOffThread.ts';
 
 export interface CommittedChange {
   stackId: number;
@@ -39,9 +39,11 @@ export async function commitDoc(
 ): Promise<CommittedChange> {
   const results = computed ?? analyse(change.doc, inputs);
   const version = row.version + 1;
-  const updated = await trx('stacks')
-    .where({ id: row.id, version: row.version })
-    .update({ doc: JSON.stringify(change.doc), version, ...resultColumns(change.doc, results), updated_at: now() });
+  const columns = { doc: JSON.stringify(change.doc), version, ...resultColumns(change.doc, results), updated_at: now() };
+  // A large stack (results computed off the main thread) is encoded and written in separate turns of the loop.
+  if (computed) await yieldToLoop();
+  const updated = await trx('stacks').where({ id: row.id, version: row.version }).update(columns);
+  if (computed) await yieldToLoop();
   if (updated === 0) throw conflict('The stack was changed by someone else; reload and try again', { version: row.version });
   await trx('stack_ops').insert({
     stack_id: row.id,
@@ -134,6 +136,8 @@ export function broadcastChange(ctx: ServerContext, c: CommittedChange, by: { us
 /** applyOps then broadcast: what the REST ops route and the live channel call. */
 export async function editStack(ctx: ServerContext, input: Omit<OpsInput, 'userId'>, user: User): Promise<CommittedChange> {
   const change = await applyOps(ctx.db, { ...input, userId: user.id, offThread: ctx.offThread });
+  // Storing a large stack and encoding its broadcast are each tens of milliseconds: not in one turn.
+  if (change.results.lifts.length > LARGE_STACK_LIFTS) await yieldToLoop();
   broadcastChange(ctx, change, { userId: user.id, name: user.name });
   return change;
 }
