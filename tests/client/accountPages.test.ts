@@ -72,7 +72,10 @@ describe('account pages', () => {
       'POST /api/auth/verify': () => ({ status: 200, body: { id: 3, email: 'ana@example.test', name: 'Ana', isAdmin: false, emailVerified: true } }),
     });
     const { wrapper } = await mountAt('/verify-email?token=abc.def.ghi', VerifyEmailPage);
-    await flushPromises();
+    await vi.waitFor(async () => {
+      await flushPromises();
+      expect(wrapper.find('[data-test="verified"]').exists()).toBe(true);
+    });
     expect(requests.map((r) => r.body)).toEqual([{ token: 'abc.def.ghi' }]);
     expect(wrapper.find('[data-test="verified"]').text()).toContain('ana@example.test');
   });
@@ -80,7 +83,10 @@ describe('account pages', () => {
   it("shows the server's refusal of an old link", async () => {
     mockFetch({ 'POST /api/auth/verify': () => ({ status: 422, body: { error: { code: 'unprocessable', message: 'This verification link has expired' } } }) });
     const { wrapper } = await mountAt('/verify-email?token=old', VerifyEmailPage);
-    await flushPromises();
+    await vi.waitFor(async () => {
+      await flushPromises();
+      expect(wrapper.find('[data-test="failure"]').exists()).toBe(true);
+    });
     expect(wrapper.find('[data-test="failure"]').text()).toContain('expired');
   });
 
