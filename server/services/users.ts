@@ -1,7 +1,7 @@
 // Accounts: registration, verification of the address, sign-in, sessions and look-up (issue 2,
 // docs/access.md). Passwords are bcrypt hashes, computed on a worker thread.
 import type { Knex } from 'knex';
-import type { User } from '../../shared/schema/api.ts';
+import { MAX_PASSWORD_BYTES, type User } from '../../shared/schema/api.ts';
 import { conflict, unauthenticated, unprocessable } from '../errors.ts';
 import { now } from '../db.ts';
 import { acceptInvitations } from './members.ts';
@@ -118,7 +118,9 @@ export const WRONG_CREDENTIALS = 'E-mail address or password is wrong';
 export async function verifyLogin(db: Knex, email: string, password: string, rounds: number): Promise<User & { tokenVersion: number }> {
   const row = await db<UserRow>('users').where({ email }).first();
   const ok = await comparePassword(password, row?.password_hash ?? (await dummyHash(rounds)));
-  if (!row || !ok) throw unauthenticated(WRONG_CREDENTIALS);
+  // bcrypt reads 72 bytes: a longer attempt would match on its first 72 alone. Never a stored password.
+  const tooLong = Buffer.byteLength(password, 'utf8') > MAX_PASSWORD_BYTES;
+  if (!row || !ok || tooLong) throw unauthenticated(WRONG_CREDENTIALS);
   return { ...toUser(row), tokenVersion: Number(row.token_version) };
 }
 
@@ -126,7 +128,8 @@ export async function verifyLogin(db: Knex, email: string, password: string, rou
 export async function changePassword(db: Knex, userId: number, current: string, next: string, rounds: number): Promise<number> {
   const row = await db<UserRow>('users').where({ id: userId }).first();
   if (!row) throw unauthenticated('This account no longer exists');
-  if (!(await comparePassword(current, row.password_hash))) throw unprocessable('The current password is wrong', { field: 'currentPassword' });
+  const currentOk = (await comparePassword(current, row.password_hash)) && Buffer.byteLength(current, 'utf8') <= MAX_PASSWORD_BYTES;
+  if (!currentOk) throw unprocessable('The current password is wrong', { field: 'currentPassword' });
   const hash = await hashPassword(next, rounds);
   await db('users').where({ id: userId }).update({ password_hash: hash });
   return endSessions(db, userId, 'user.password');

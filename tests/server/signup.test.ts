@@ -135,6 +135,14 @@ describe('passwords', () => {
     expect(await s.ctx.db('users').where({ email: `long-${n}-x` }).first()).toBeUndefined();
   });
 
+  it('never lets a longer attempt in on the first 72 bytes of the password', async () => {
+    const email = address('exact');
+    const password = `${'quiet ferry lantern orbit '.repeat(3)}`.slice(0, 72);
+    expect((await register(s, email, { password })).status).toBe(202);
+    expect((await s.api('POST', '/auth/login', { body: { email, password } })).status).toBe(200);
+    expect((await s.api('POST', '/auth/login', { body: { email, password: `${password}anything` } })).status).toBe(401);
+  });
+
   it('refuses ten spaces and passwords the estimator rates easy to guess', async () => {
     const spaces = await register(s, address('spaces'), { password: ' '.repeat(10) });
     expect(spaces.status).toBe(400);
