@@ -12,6 +12,7 @@ import { useAuthStore } from '@/stores/auth.ts';
 import { mockFetch } from './fetchMock.ts';
 
 const Stub = defineComponent(() => () => h('div'));
+const mounted: { unmount(): void }[] = [];
 
 async function mountAt(path: string, component: typeof RegisterPage) {
   const pinia = createPinia();
@@ -28,12 +29,14 @@ async function mountAt(path: string, component: typeof RegisterPage) {
   await router.push(path);
   await router.isReady();
   const wrapper = mount(component, { global: { plugins: [pinia, router] } });
+  mounted.push(wrapper);
   return { wrapper, router };
 }
 
 describe('account pages', () => {
   beforeEach(() => localStorage.clear());
   afterEach(() => {
+    for (const w of mounted.splice(0)) w.unmount();
     vi.useRealTimers();
     vi.unstubAllGlobals();
   });
@@ -76,7 +79,7 @@ describe('account pages', () => {
       await flushPromises();
       expect(wrapper.find('[data-test="verified"]').exists()).toBe(true);
     });
-    expect(requests.map((r) => r.body)).toEqual([{ token: 'abc.def.ghi' }]);
+    expect(requests.filter((r) => r.url === '/api/auth/verify').map((r) => r.body)).toEqual([{ token: 'abc.def.ghi' }]);
     expect(wrapper.find('[data-test="verified"]').text()).toContain('ana@example.test');
   });
 
