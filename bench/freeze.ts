@@ -49,7 +49,7 @@ async function freezeScenario(label: string, faces: RestraintFaces | null): Prom
   const server = await startServer({ port: 0, dataDir, logLevel: 'silent', env: {}, config: { bcryptRounds: 4 } });
   try {
     const { db } = server.ctx;
-    const lead = await registerUser(db, { email: 'lead@bench.test', name: 'Bench Lead', password: 'bench-password-1' }, 4);
+    const lead = await registerUser(db, { email: 'lead@bench.test', name: 'Bench Lead', password: 'bench-password-1' }, 4, { verified: true });
     const building = await createBuilding(db, lead, { name: 'Bench tower', reference: 'BENCH-40x30' });
     for (let i = 0; i <= STOREYS; i++) await createLevel(db, building.id, { name: i === 0 ? 'Ground' : `Level ${i}`, elevation: Math.round(i * STOREY_HEIGHT * 1000) / 1000 }, lead);
     const template = { storeys: STOREYS, storeyHeight: STOREY_HEIGHT, baseElevation: 0, spliceEvery: 2, sections: SECTIONS, grade: 'S355' as const, baseFixity: 'pinned' as const, Gk: 90, Qk: 45 };

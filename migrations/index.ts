@@ -15,6 +15,9 @@ import * as addRevisionTriggers from './202512011001_add_revision_triggers.ts';
 import * as addRevisionRecipients from './202512011002_add_revision_recipients.ts';
 import * as addCompanySections from './202512011020_add_company_sections.ts';
 import * as addStackGoverningLabel from './202612020900_add_stack_governing_label.ts';
+import * as addUsersTokenVersion from './202612031200_add_users_token_version.ts';
+import * as addUsersEmailVerifiedAt from './202612031201_add_users_email_verified_at.ts';
+import * as addInvitationsExpiresAt from './202612031202_add_invitations_expires_at.ts';
 
 const migrations: Record<string, Knex.Migration> = {
   '202512010900_add_users': addUsers,
@@ -32,6 +35,9 @@ const migrations: Record<string, Knex.Migration> = {
   '202512011002_add_revision_recipients': addRevisionRecipients,
   '202512011020_add_company_sections': addCompanySections,
   '202612020900_add_stack_governing_label': addStackGoverningLabel,
+  '202612031200_add_users_token_version': addUsersTokenVersion,
+  '202612031201_add_users_email_verified_at': addUsersEmailVerifiedAt,
+  '202612031202_add_invitations_expires_at': addInvitationsExpiresAt,
 };
 
 export const migrationSource: Knex.MigrationSource<string> = {

@@ -51,7 +51,7 @@ export async function seedDemoIfEmpty(db: Knex, bcryptRounds: number): Promise<b
 export async function seedDemo(db: Knex, bcryptRounds: number): Promise<{ buildingId: number }> {
   const accounts: Partial<Record<keyof typeof DEMO_USERS, User>> = {};
   for (const key of Object.keys(DEMO_USERS) as (keyof typeof DEMO_USERS)[]) {
-    accounts[key] = await registerUser(db, { ...DEMO_USERS[key], password: DEMO_PASSWORD }, bcryptRounds);
+    accounts[key] = await registerUser(db, { ...DEMO_USERS[key], password: DEMO_PASSWORD }, bcryptRounds, { verified: true });
   }
   const lead = accounts.lead as User;
   const users = { lead: lead.id, engineer: accounts.engineer?.id, viewer: accounts.viewer?.id };

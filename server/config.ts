@@ -22,6 +22,15 @@ export interface Config {
   bcryptRounds: number;
   /** Login attempts allowed per IP address in each window. */
   loginRateLimit: { windowMs: number; max: number };
+  /** Rate limits of sign-up and of every route that sends e-mail (docs/access.md). */
+  limits: Limits;
+  /**
+   * Where the people who receive our e-mails open Stanchion (links in verification, invitation and
+   * revision e-mails). Configured, never taken from a request header.
+   */
+  publicUrl: string;
+  /** Days a pending invitation can be taken up. */
+  invitationDays: number;
   /** Express 'trust proxy' setting; null leaves it off. */
   trustProxy: string | number | boolean | null;
   production: boolean;
@@ -29,6 +38,45 @@ export interface Config {
   /** Built client served by the API process. */
   distDir: string;
 }
+
+/** At most `max` in each window of `windowMs`. */
+export interface Limit {
+  windowMs: number;
+  max: number;
+}
+
+export interface Limits {
+  /** Registrations per client (IP) address. */
+  registerPerClient: Limit;
+  /** Registrations (and so verification or "you already have an account" e-mails) per e-mail address. */
+  registerPerAddress: Limit;
+  /** E-mail-sending actions per signed-in user: invitations, verification links, revision mail. */
+  mailPerUser: Limit;
+  /** Invitation e-mails per building. */
+  invitesPerBuilding: Limit;
+  /** Invitation and verification e-mails per recipient address. */
+  mailPerRecipient: Limit;
+  /** Password-strength checks per client address (the check costs a few milliseconds of CPU). */
+  strengthPerClient: Limit;
+}
+
+const HOUR = 3_600_000;
+const DAY = 24 * HOUR;
+export const DEFAULT_LIMITS: Limits = {
+  registerPerClient: { windowMs: HOUR, max: 10 },
+  registerPerAddress: { windowMs: HOUR, max: 3 },
+  mailPerUser: { windowMs: HOUR, max: 30 },
+  invitesPerBuilding: { windowMs: DAY, max: 20 },
+  mailPerRecipient: { windowMs: DAY, max: 5 },
+  strengthPerClient: { windowMs: 60_000, max: 60 },
+};
+
+/** A public URL: http or https only (a javascript: or data: link in an e-mail would be an attack). */
+export const publicUrlSchema = z
+  .string()
+  .url('PUBLIC_URL must be an absolute URL')
+  .refine((u) => URL.canParse(u) && /^https?:$/.test(new URL(u).protocol), 'PUBLIC_URL must start with http:// or https://')
+  .transform((u) => u.replace(/\/+$/, ''));
 
 const intFromEnv = (fallback: number, min: number, max: number) =>
   z.coerce.number().int().min(min).max(max).default(fallback);
@@ -49,6 +97,10 @@ const envSchema = z.object({
   LOGIN_RATE_LIMIT: intFromEnv(20, 1, 100_000),
   LOGIN_RATE_WINDOW_MS: intFromEnv(60_000, 1000, 86_400_000),
   TRUST_PROXY: z.string().optional(),
+  PUBLIC_URL: publicUrlSchema.optional(),
+  INVITATION_DAYS: intFromEnv(14, 1, 365),
+  REGISTER_RATE_LIMIT: intFromEnv(DEFAULT_LIMITS.registerPerClient.max, 1, 100_000),
+  MAIL_RATE_LIMIT: intFromEnv(DEFAULT_LIMITS.mailPerUser.max, 1, 100_000),
   NODE_ENV: z.string().optional(),
 });
 
@@ -90,6 +142,13 @@ export function loadConfig(env: NodeJS.ProcessEnv = process.env, overrides: Conf
     bcryptRounds: e.BCRYPT_ROUNDS,
     loginRateLimit: { windowMs: e.LOGIN_RATE_WINDOW_MS, max: e.LOGIN_RATE_LIMIT },
     trustProxy: parseTrustProxy(e.TRUST_PROXY),
+    limits: {
+      ...DEFAULT_LIMITS,
+      registerPerClient: { ...DEFAULT_LIMITS.registerPerClient, max: e.REGISTER_RATE_LIMIT },
+      mailPerUser: { ...DEFAULT_LIMITS.mailPerUser, max: e.MAIL_RATE_LIMIT },
+    },
+    publicUrl: e.PUBLIC_URL ?? `http://localhost:${overrides.port || e.PORT}`,
+    invitationDays: e.INVITATION_DAYS,
     production: e.NODE_ENV === 'production',
     distDir: fileURLToPath(new URL('../dist', import.meta.url)),
     ...rest,

@@ -67,6 +67,8 @@ export async function startServer(opts: StartOptions = {}): Promise<RunningServe
     httpServer.listen(config.port, () => resolve());
   });
   const { port } = httpServer.address() as AddressInfo;
+  // On an ephemeral port (tests) the default public URL names the port actually bound.
+  if (!overrides.publicUrl && !(opts.env ?? process.env).PUBLIC_URL) config.publicUrl = `http://localhost:${port}`;
 
   let closing: Promise<void> | null = null;
   const close = () => {

@@ -3,8 +3,8 @@ import type { NextFunction, Request, RequestHandler, Response } from 'express';
 import type { Role, User } from '../../shared/schema/api.ts';
 import type { ServerContext } from '../context.ts';
 import { forbidden, unauthenticated } from '../errors.ts';
-import { verifyToken } from '../services/tokens.ts';
-import { findUserById } from '../services/users.ts';
+import { verifySession } from '../services/tokens.ts';
+import { userForSession } from '../services/users.ts';
 
 /** The caller's rights on the building a route is about (set by requireRole). */
 export interface BuildingAccess {
@@ -32,8 +32,8 @@ export function requireAuth(ctx: ServerContext): RequestHandler {
   return async (req: Request, _res: Response, next: NextFunction) => {
     const token = bearerToken(req.headers.authorization);
     if (!token) throw unauthenticated();
-    const user = await findUserById(ctx.db, verifyToken(ctx.config.jwtSecret, token));
-    if (!user) throw unauthenticated('This account no longer exists');
+    // The session version is checked on every request: signing out or a password change ends older tokens.
+    const { tokenVersion: _version, ...user } = await userForSession(ctx.db, verifySession(ctx.config.jwtSecret, token));
     req.user = user;
     next();
   };

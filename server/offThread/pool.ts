@@ -4,12 +4,15 @@
 // (about half a second to load the engine and the renderer) and ends after ten minutes without work.
 import { Piscina } from 'piscina';
 import type { RevisionSnapshot } from '../../shared/schema/revisions.ts';
-import type { AnalysedStack, BuildingAnalysisTask, BuildingSizingOutcome, BuildingSizingTask, PackageTask } from './tasks.ts';
+import { workerExecArgv } from './passwords.ts';
+import type { AnalysedStack, BuildingAnalysisTask, BuildingSizingOutcome, BuildingSizingTask, EditOutcome, EditTask, PackageTask } from './tasks.ts';
 
 export interface OffThread {
   renderPackage(snapshot: RevisionSnapshot, hash: string): Promise<Buffer>;
   sizeBuilding(task: BuildingSizingTask): Promise<BuildingSizingOutcome>;
   analyseBuilding(task: BuildingAnalysisTask): Promise<AnalysedStack[]>;
+  /** An edit of a large stack (parse, apply, analyse), on its own thread so it never waits behind a package. */
+  editLargeStack(task: EditTask): Promise<EditOutcome>;
   close(): Promise<void>;
 }
 
@@ -20,6 +23,17 @@ export function createOffThread(): OffThread {
     maxThreads: 1,
     idleTimeout: 10 * 60_000,
   });
+  // Edits of large stacks: a tenth of a second of CPU each (docs/access.md), queued here instead of on the
+  // event loop. A thread of their own so an edit never waits behind a package being drawn.
+  const edits = new Piscina({
+    filename: new URL('./worker.mjs', import.meta.url).href,
+    minThreads: 0,
+    maxThreads: 1,
+    idleTimeout: 10 * 60_000,
+    execArgv: workerExecArgv(),
+    // Below the event loop's priority: an edit may wait a little, a request should not.
+    workerData: { nice: 10 },
+  });
   return {
     async renderPackage(snapshot, hash) {
       const task: PackageTask = { snapshot, hash };
@@ -29,6 +43,9 @@ export function createOffThread(): OffThread {
     },
     sizeBuilding: (task) => pool.run(task, { name: 'sizeWholeBuilding' }) as Promise<BuildingSizingOutcome>,
     analyseBuilding: (task) => pool.run(task, { name: 'analyseWholeBuilding' }) as Promise<AnalysedStack[]>,
-    close: () => pool.destroy(),
+    editLargeStack: (task) => edits.run(task, { name: 'editLargeStack' }) as Promise<EditOutcome>,
+    close: async () => {
+      await Promise.all([pool.destroy(), edits.destroy()]);
+    },
   };
 }

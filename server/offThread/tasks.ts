@@ -6,6 +6,11 @@ import type { AnalysisOptions, BuildingStackResult } from '../../shared/schema/r
 import type { RevisionSnapshot } from '../../shared/schema/revisions.ts';
 import type { SizingRequest } from '../../shared/schema/sizing.ts';
 import type { SectionDims, StackDocument } from '../../shared/schema/stack.ts';
+import type { Op } from '../../shared/schema/ops.ts';
+import type { StackResult } from '../../shared/schema/results.ts';
+import { stackDocumentSchema } from '../../shared/schema/stack.ts';
+import { analyseStack } from '../../shared/engine/index.ts';
+import { applyOps, OpError, touchedIds } from '../../shared/ops/applyOps.ts';
 import { renderCalcPackage } from '../pdf/calcPackage.ts';
 
 export interface PackageTask {
@@ -51,6 +56,15 @@ export interface BuildingAnalysisTask {
   sections: Map<string, SectionDims>;
 }
 
+export interface EditTask {
+  /** The stored document as text: parsing and checking it is part of the work moved off the main thread. */
+  docText: string;
+  ops: Op[];
+  options: AnalysisOptions;
+  levels: Map<string, number>;
+  sections: Map<string, SectionDims>;
+}
+
 /** One stack's analysis as it crosses the thread: the result as JSON text, as the stacks table stores it. */
 export interface AnalysedStack {
   id: number;
@@ -73,4 +87,22 @@ export function analyseWholeBuilding({ stacks, options, levels, sections }: Buil
     governingLiftId: s.governingLiftId,
     resultJson: JSON.stringify(s.result),
   }));
+}
+
+export type EditOutcome =
+  | { doc: StackDocument; touched: string[]; results: StackResult }
+  | { touched: string[]; opError: { message: string; opIndex: number; id: string } };
+
+/** One edit of a large stack: parse the stored document, apply the ops, analyse (docs/access.md). */
+export function editLargeStack({ docText, ops, options, levels, sections }: EditTask): EditOutcome {
+  const before = stackDocumentSchema.parse(JSON.parse(docText));
+  const touched = [...touchedIds(before, ops)];
+  let doc: StackDocument;
+  try {
+    doc = applyOps(before, ops);
+  } catch (e) {
+    if (e instanceof OpError) return { touched, opError: { message: e.message, opIndex: e.opIndex, id: e.id } };
+    throw e;
+  }
+  return { doc, touched, results: analyseStack(doc, options, { levels, sections, shapeChecked: true }) };
 }

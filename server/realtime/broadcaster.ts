@@ -1,7 +1,8 @@
 // The Socket.IO implementation of the Broadcaster: committed changes go to the stack's room and a
-// summary to the building's room. With the Redis adapter these reach clients on every process.
+// summary to the building's room. With the Redis adapter these reach clients on every process, and
+// socketsLeave / disconnectSockets on the user's own room reach that user's sockets on every process too.
 import type { Broadcaster } from '../services/broadcast.ts';
-import { buildingRoom, isShuttingDown, stackRoom } from './presence.ts';
+import { broadcastPresence, buildingRoom, isShuttingDown, stackRoom, userRoom } from './presence.ts';
 import type { LiveServer } from './types.ts';
 
 export function socketBroadcaster(io: LiveServer): Broadcaster {
@@ -14,6 +15,21 @@ export function socketBroadcaster(io: LiveServer): Broadcaster {
     buildingStackChanged(payload) {
       if (isShuttingDown(io)) return;
       io.to(buildingRoom(payload.buildingId)).emit('building:stack-changed', payload);
+    },
+    async accessRevoked({ userId, buildingId, stackIds }) {
+      if (isShuttingDown(io)) return;
+      const mine = io.in(userRoom(userId));
+      // Joined stack rooms first: the set is taken before leaving, so presence can be told afterwards.
+      const sockets = await mine.fetchSockets();
+      const rooms = new Set(sockets.flatMap((s) => [...s.rooms]));
+      mine.socketsLeave([buildingRoom(buildingId), ...stackIds.map(stackRoom)]);
+      io.to(userRoom(userId)).emit('access:revoked', { buildingId });
+      await Promise.all(stackIds.filter((id) => rooms.has(stackRoom(id))).map((id) => broadcastPresence(io, id)));
+    },
+    async sessionsEnded({ userId }) {
+      if (isShuttingDown(io)) return;
+      io.to(userRoom(userId)).emit('session:ended', { reason: 'signed-out', message: 'You have signed out on this or another device; sign in again' });
+      io.in(userRoom(userId)).disconnectSockets(true);
     },
   };
 }

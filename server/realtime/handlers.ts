@@ -2,7 +2,7 @@
 // caller's role on the stack's building, exactly as the REST routes do.
 import type { ZodType } from 'zod';
 import type { Logger } from 'pino';
-import { ROLE_RANK, type Role } from '../../shared/schema/api.ts';
+import type { Role } from '../../shared/schema/api.ts';
 import {
   buildingJoinSchema,
   stackEditSchema,
@@ -12,25 +12,18 @@ import {
   type Ack,
 } from '../../shared/schema/socket.ts';
 import type { ServerContext } from '../context.ts';
-import { forbidden, notFound } from '../errors.ts';
-import { roleIn } from '../middleware/access.ts';
+import { forbidden } from '../errors.ts';
+import { checkAccess } from '../services/accessPolicy.ts';
 import { editStack } from '../services/stackOps.ts';
 import { getStack } from '../services/stacks.ts';
 import { toErrorBody } from './errors.ts';
 import { broadcastPresence, buildingRoom, stackRoom } from './presence.ts';
+import { assertSessionLive } from './session.ts';
 import type { LiveServer, LiveSocket } from './types.ts';
 
-/** The caller's role on a building, by the REST policy: non-members see nothing, admins may read. */
+/** The one access policy, as REST applies it (services/accessPolicy.ts), for the socket's user. */
 async function accessTo(ctx: ServerContext, socket: LiveSocket, buildingId: number | null, what: string, minRole: Role): Promise<void> {
-  if (buildingId === null) throw notFound(what);
-  const user = socket.data.user;
-  const role = await roleIn(ctx.db, buildingId, user.id);
-  if (role === null) {
-    if (!user.isAdmin) throw notFound(what);
-    if (minRole !== 'viewer') throw forbidden('Site admins edit a building only as members of it');
-    return;
-  }
-  if (ROLE_RANK[role] < ROLE_RANK[minRole]) throw forbidden(`This needs the ${minRole} role on this building`);
+  await checkAccess(ctx.db, socket.data.user, buildingId, what, minRole);
 }
 
 async function buildingOfStack(ctx: ServerContext, stackId: number): Promise<number | null> {
@@ -44,13 +37,15 @@ async function buildingExists(ctx: ServerContext, buildingId: number): Promise<n
 }
 
 /**
- * Wraps a handler: validates the payload, runs it, and answers through the acknowledgement with
+ * Wraps a handler: checks the socket's session is still live (not expired, not signed out), validates
+ * the payload, runs it, and answers through the acknowledgement with
  * `{ ok: true, data }` or the error shape. A client that sends no acknowledgement is still served.
  */
-function handle<S extends ZodType, T>(log: Logger, schema: S, run: (payload: ReturnType<S['parse']>) => Promise<T>) {
+function handle<S extends ZodType, T>(guard: () => Promise<void>, log: Logger, schema: S, run: (payload: ReturnType<S['parse']>) => Promise<T>) {
   return async (raw: unknown, ack?: unknown): Promise<void> => {
     const reply = typeof ack === 'function' ? (ack as Ack<T>) : () => undefined;
     try {
+      await guard();
       reply({ ok: true, data: await run(schema.parse(raw) as ReturnType<S['parse']>) });
     } catch (err) {
       reply({ ok: false, ...toErrorBody(err, log) });
@@ -60,10 +55,11 @@ function handle<S extends ZodType, T>(log: Logger, schema: S, run: (payload: Ret
 
 export function registerHandlers(ctx: ServerContext, io: LiveServer, socket: LiveSocket, log: Logger): void {
   const user = socket.data.user;
+  const live = () => assertSessionLive(ctx, socket);
 
   socket.on(
     'stack:join',
-    handle(log, stackJoinSchema, async ({ stackId }) => {
+    handle(live, log, stackJoinSchema, async ({ stackId }) => {
       await accessTo(ctx, socket, await buildingOfStack(ctx, stackId), 'Stack', 'viewer');
       const stack = await getStack(ctx.db, stackId);
       await socket.join(stackRoom(stackId));
@@ -75,7 +71,7 @@ export function registerHandlers(ctx: ServerContext, io: LiveServer, socket: Liv
 
   socket.on(
     'stack:leave',
-    handle(log, stackLeaveSchema, async ({ stackId }) => {
+    handle(live, log, stackLeaveSchema, async ({ stackId }) => {
       await socket.leave(stackRoom(stackId));
       const { [stackId]: _left, ...rest } = socket.data.selections;
       socket.data.selections = rest;
@@ -86,7 +82,7 @@ export function registerHandlers(ctx: ServerContext, io: LiveServer, socket: Liv
 
   socket.on(
     'stack:edit',
-    handle(log, stackEditSchema, async ({ stackId, baseVersion, ops }) => {
+    handle(live, log, stackEditSchema, async ({ stackId, baseVersion, ops }) => {
       // Checked on every edit, not only at join: a role can be lowered while the socket is open.
       await accessTo(ctx, socket, await buildingOfStack(ctx, stackId), 'Stack', 'engineer');
       const change = await editStack(ctx, { stackId, baseVersion, ops }, user);
@@ -96,8 +92,10 @@ export function registerHandlers(ctx: ServerContext, io: LiveServer, socket: Liv
 
   socket.on(
     'stack:select',
-    handle(log, stackSelectSchema, async ({ stackId, nodeIds }) => {
+    handle(live, log, stackSelectSchema, async ({ stackId, nodeIds }) => {
       if (!socket.rooms.has(stackRoom(stackId))) throw forbidden('Join the stack before selecting in it');
+      // Presence goes to everyone in the room: the sender must still be allowed to read the stack.
+      await accessTo(ctx, socket, await buildingOfStack(ctx, stackId), 'Stack', 'viewer');
       socket.data.selections = { ...socket.data.selections, [stackId]: [...new Set(nodeIds)] };
       await broadcastPresence(io, stackId);
       return null;
@@ -106,7 +104,7 @@ export function registerHandlers(ctx: ServerContext, io: LiveServer, socket: Liv
 
   socket.on(
     'building:join',
-    handle(log, buildingJoinSchema, async ({ buildingId }) => {
+    handle(live, log, buildingJoinSchema, async ({ buildingId }) => {
       await accessTo(ctx, socket, await buildingExists(ctx, buildingId), 'Building', 'viewer');
       await socket.join(buildingRoom(buildingId));
       return null;

@@ -7,12 +7,13 @@ import { createClient } from 'redis';
 import type { Logger } from 'pino';
 import type { ServerContext } from '../context.ts';
 import { HttpError } from '../errors.ts';
-import { verifyToken } from '../services/tokens.ts';
-import { findUserById } from '../services/users.ts';
+import { verifySession } from '../services/tokens.ts';
+import { userForSession } from '../services/users.ts';
 import { socketBroadcaster } from './broadcaster.ts';
 import { registerHandlers } from './handlers.ts';
-import { stopPresence } from './presence.ts';
-import type { LiveServer } from './types.ts';
+import { stopPresence, userRoom } from './presence.ts';
+import { endSession } from './session.ts';
+import type { LiveServer, LiveSocket } from './types.ts';
 
 export interface Realtime {
   io: LiveServer;
@@ -31,6 +32,15 @@ async function useRedis(io: LiveServer, url: string, prefix: string, log: Logger
   };
 }
 
+/** setTimeout takes at most 2^31-1 ms (about 24.8 days); a session token lives far less. */
+const MAX_TIMER_MS = 2 ** 31 - 1;
+
+/** Closes the socket when its token expires: a socket never outlives the session that opened it. */
+function endAtExpiry(socket: LiveSocket): void {
+  const timer = setTimeout(() => endSession(socket, 'expired'), Math.min(Math.max(0, socket.data.expiresAt - Date.now()), MAX_TIMER_MS));
+  socket.once('disconnect', () => clearTimeout(timer));
+}
+
 export async function attachRealtime(httpServer: HttpServer, ctx: ServerContext): Promise<Realtime> {
   const log = ctx.log.child({ name: 'live' });
   const io: LiveServer = new Server(httpServer, {
@@ -45,9 +55,11 @@ export async function attachRealtime(httpServer: HttpServer, ctx: ServerContext)
       const auth: unknown = socket.handshake.auth;
       const token = auth && typeof auth === 'object' && 'token' in auth && typeof auth.token === 'string' ? auth.token : null;
       if (!token) throw new HttpError(401, 'unauthenticated', 'Sign in to continue');
-      const user = await findUserById(ctx.db, verifyToken(ctx.config.jwtSecret, token));
-      if (!user) throw new HttpError(401, 'unauthenticated', 'This account no longer exists');
+      const claims = verifySession(ctx.config.jwtSecret, token);
+      const { tokenVersion, ...user } = await userForSession(ctx.db, claims);
       socket.data.user = user;
+      socket.data.tokenVersion = tokenVersion;
+      socket.data.expiresAt = claims.expiresAt;
       socket.data.selections = {};
       next();
     } catch (err) {
@@ -57,7 +69,11 @@ export async function attachRealtime(httpServer: HttpServer, ctx: ServerContext)
   });
 
   const closeRedis = ctx.config.redisUrl ? await useRedis(io, ctx.config.redisUrl, ctx.config.redisPrefix, log) : null;
-  io.on('connection', (socket) => registerHandlers(ctx, io, socket, log));
+  io.on('connection', (socket) => {
+    void socket.join(userRoom(socket.data.user.id));
+    endAtExpiry(socket);
+    registerHandlers(ctx, io, socket, log);
+  });
   ctx.broadcaster = socketBroadcaster(io);
 
   return {

@@ -6,6 +6,8 @@ import type { LiveServer } from './types.ts';
 
 export const stackRoom = (stackId: number) => `stack:${stackId}`;
 export const buildingRoom = (buildingId: number) => `building:${buildingId}`;
+/** Every socket of one user, on any process: where access changes and sign-outs are sent. */
+export const userRoom = (userId: number) => `user:${userId}`;
 
 export async function presenceOf(io: LiveServer | Server, stackId: number): Promise<PresenceUser[]> {
   const sockets = await (io as LiveServer).in(stackRoom(stackId)).fetchSockets();

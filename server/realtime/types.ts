@@ -5,6 +5,10 @@ import type { ClientToServerEvents, ServerToClientEvents } from '../../shared/sc
 /** Per-connection state, kept on the socket so the Redis adapter can see it from any process. */
 export interface SocketData {
   user: User;
+  /** The session version the socket's token carried (users.token_version). */
+  tokenVersion: number;
+  /** When the socket's token expires, ms since the epoch: after it the socket may do nothing. */
+  expiresAt: number;
   /** Selected node ids per stack the socket has joined. */
   selections: Record<number, string[]>;
 }

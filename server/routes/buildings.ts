@@ -5,7 +5,10 @@ import { addMemberBodySchema, createBuildingBodySchema, emailSchema, idParamSche
 import type { ServerContext } from '../context.ts';
 import { currentAccess, currentUser, requireAuth } from '../middleware/auth.ts';
 import { requireRole } from '../middleware/access.ts';
+import { byBodyEmail, byBuilding, byUser, limiter } from '../middleware/rateLimits.ts';
 import { parseBody, parsePatch } from '../middleware/validate.ts';
+import { canRead } from '../services/accessPolicy.ts';
+import { findUserById } from '../services/users.ts';
 import { createBuilding, getBuilding, listBuildings } from '../services/buildings.ts';
 import { updateBuilding } from '../services/buildingUpdate.ts';
 import { addMember, cancelInvitation, listMembers, removeMember, updateInvitationRole, updateMemberRole } from '../services/members.ts';
@@ -34,9 +37,17 @@ export function registerBuildingRoutes(router: Router, ctx: ServerContext): void
   router.get('/buildings/:id/members', auth, viewer, async (req, res) => {
     res.json(await listMembers(ctx.db, currentAccess(req).buildingId));
   });
-  router.post('/buildings/:id/members', auth, lead, async (req, res) => {
+  // Adding a member may send an invitation e-mail: limited per lead, per building and per recipient.
+  const { limits } = ctx.config;
+  const inviteLimits = [
+    limiter(ctx, 'mail-user', limits.mailPerUser, byUser, 'Too many e-mails sent from this account'),
+    limiter(ctx, 'invite-building', limits.invitesPerBuilding, byBuilding, 'Too many invitations from this building'),
+    limiter(ctx, 'invite-recipient', limits.mailPerRecipient, byBodyEmail, 'Too many e-mails to this address'),
+  ];
+  router.post('/buildings/:id/members', auth, lead, ...inviteLimits, async (req, res) => {
     const { email, role } = parseBody(addMemberBodySchema, req);
-    res.status(201).json(await addMember(ctx.db, ctx.mailer, currentAccess(req).buildingId, email, role, currentUser(req)));
+    const settings = { link: `${ctx.config.publicUrl}/sign-in`, days: ctx.config.invitationDays };
+    res.status(201).json(await addMember(ctx.db, ctx.mailer, currentAccess(req).buildingId, email, role, currentUser(req), settings));
   });
   // :memberId is the user id of a member, or the e-mail address of a pending invitation.
   router.patch('/buildings/:id/members/:memberId', auth, lead, async (req, res) => {
@@ -52,10 +63,20 @@ export function registerBuildingRoutes(router: Router, ctx: ServerContext): void
   router.delete('/buildings/:id/members/:memberId', auth, lead, async (req, res) => {
     const member = memberKey(req.params.memberId);
     const { buildingId } = currentAccess(req);
-    if ('userId' in member) await removeMember(ctx.db, buildingId, member.userId, currentUser(req));
-    else await cancelInvitation(ctx.db, buildingId, member.email, currentUser(req));
+    if ('userId' in member) {
+      await removeMember(ctx.db, buildingId, member.userId, currentUser(req));
+      await revokeLiveAccess(ctx, buildingId, member.userId);
+    } else await cancelInvitation(ctx.db, buildingId, member.email, currentUser(req));
     res.status(204).end();
   });
+}
+
+/** A removed member's open sockets leave the building's rooms at once, unless a site admin may still read. */
+async function revokeLiveAccess(ctx: ServerContext, buildingId: number, userId: number): Promise<void> {
+  const user = await findUserById(ctx.db, userId);
+  if (!user || (await canRead(ctx.db, user, buildingId))) return;
+  const stacks = await ctx.db('stacks').where({ building_id: buildingId }).pluck<number[]>('id');
+  await ctx.broadcaster.accessRevoked({ userId, buildingId, stackIds: stacks });
 }
 
 const memberKeySchema = z.union([

@@ -10,6 +10,7 @@ import { currentAccess, currentUser, requireAuth } from '../middleware/auth.ts';
 import { requireRole } from '../middleware/access.ts';
 import { parseBody, parseQuery } from '../middleware/validate.ts';
 import { listCompanySections } from '../services/companySections.ts';
+import { problemCount } from '../services/importsCsv.ts';
 import { applyLoads, previewLoads, problemsMessage } from '../services/importsLoads.ts';
 import { applySections, previewSections } from '../services/importsSections.ts';
 
@@ -49,7 +50,7 @@ export function registerImportRoutes(router: Router, ctx: ServerContext): void {
 
   router.post('/buildings/:id/imports/loads', auth, engineer, receiveFile, async (req, res) => {
     const preview = await previewLoads(ctx.db, currentAccess(req).buildingId, uploadedFile(req));
-    if (preview.problems.length > 0) throw unprocessable(problemsMessage(preview.problems.length), preview);
+    if (preview.problems.length > 0) throw unprocessable(problemsMessage(problemCount(preview)), preview);
     res.json(preview);
   });
   router.post('/buildings/:id/imports/loads/apply', auth, engineer, receiveFile, async (req, res) => {
@@ -60,7 +61,7 @@ export function registerImportRoutes(router: Router, ctx: ServerContext): void {
 
   router.post('/buildings/:id/imports/sections', auth, engineer, receiveFile, async (req, res) => {
     const preview = await previewSections(ctx.db, currentAccess(req).buildingId, uploadedFile(req));
-    if (preview.problems.length > 0) throw unprocessable(problemsMessage(preview.problems.length), preview);
+    if (preview.problems.length > 0) throw unprocessable(problemsMessage(problemCount(preview)), preview);
     res.json(preview);
   });
   router.post('/buildings/:id/imports/sections/apply', auth, engineer, receiveFile, async (req, res) => {

@@ -4,6 +4,7 @@ import { compareQuerySchema, freezeBodySchema } from '../../shared/schema/revisi
 import type { ServerContext } from '../context.ts';
 import { currentAccess, currentUser, requireAuth } from '../middleware/auth.ts';
 import { requireRole } from '../middleware/access.ts';
+import { byUser, limiter } from '../middleware/rateLimits.ts';
 import { idParam, parseBody, parseQuery } from '../middleware/validate.ts';
 import { buildingOfRevisionId, freezeRevision, getRevision, listRevisions, loadSnapshot } from '../services/revisions.ts';
 import { compareRevisions } from '../services/revisionsCompare.ts';
@@ -11,10 +12,9 @@ import { packageFilename, sendRevisionMail } from '../services/revisionsMail.ts'
 import { ENGINE_VERSION } from '../../shared/engine/version.ts';
 import { reanalyseOutdated } from '../services/outdatedResults.ts';
 
-/** Where the e-mail's link points: the page the lead froze from (Origin), else this server. */
-function revisionsLink(req: Request, buildingId: number): string {
-  const origin = req.get('origin') ?? `${req.protocol}://${req.get('host') ?? 'localhost'}`;
-  return `${origin}/buildings/${buildingId}/revisions`;
+/** Where the e-mail's link points: the configured public URL, never a request header (docs/access.md). */
+function revisionsLink(ctx: ServerContext, buildingId: number): string {
+  return `${ctx.config.publicUrl}/buildings/${buildingId}/revisions`;
 }
 
 export function registerRevisionRoutes(router: Router, ctx: ServerContext): void {
@@ -22,8 +22,10 @@ export function registerRevisionRoutes(router: Router, ctx: ServerContext): void
   const ofRevision = (db: ServerContext['db'], req: Request) => buildingOfRevisionId(db, idParam(req));
   const revisionViewer = requireRole(ctx, 'viewer', ofRevision);
   const revisionLead = requireRole(ctx, 'lead', ofRevision);
+  // Both send an e-mail to every member.
+  const mailLimit = limiter(ctx, 'mail-user', ctx.config.limits.mailPerUser, byUser, 'Too many e-mails sent from this account');
 
-  router.post('/buildings/:id/revisions', auth, requireRole(ctx, 'lead'), async (req, res) => {
+  router.post('/buildings/:id/revisions', auth, requireRole(ctx, 'lead'), mailLimit, async (req, res) => {
     const body = parseBody(freezeBodySchema, req);
     const { buildingId } = currentAccess(req);
     // Results of older rules are brought up to date first: the revision names the current engine version.
@@ -31,7 +33,7 @@ export function registerRevisionRoutes(router: Router, ctx: ServerContext): void
     const { id, snapshot, hash } = await freezeRevision(ctx.db, buildingId, { ...body, engineVersion: ENGINE_VERSION }, currentUser(req));
     // Committed: from here on a failure to send is recorded per recipient and never undoes the freeze.
     const pdf = await ctx.offThread.renderPackage(snapshot, hash);
-    await sendRevisionMail(ctx, id, snapshot, hash, revisionsLink(req, buildingId), pdf);
+    await sendRevisionMail(ctx, id, snapshot, hash, revisionsLink(ctx, buildingId), pdf);
     res.status(201).json(await getRevision(ctx.db, id));
   });
   router.get('/buildings/:id/revisions', auth, requireRole(ctx, 'viewer'), async (req, res) => {
@@ -49,11 +51,11 @@ export function registerRevisionRoutes(router: Router, ctx: ServerContext): void
     const pdf = await ctx.offThread.renderPackage(snapshot, hash);
     res.attachment(packageFilename(snapshot)).type('application/pdf').send(pdf);
   });
-  router.post('/revisions/:id/resend', auth, revisionLead, async (req, res) => {
+  router.post('/revisions/:id/resend', auth, revisionLead, mailLimit, async (req, res) => {
     const id = idParam(req);
     const { snapshot, hash } = await loadSnapshot(ctx.db, id);
     const pdf = await ctx.offThread.renderPackage(snapshot, hash);
-    await sendRevisionMail(ctx, id, snapshot, hash, revisionsLink(req, snapshot.building.id), pdf);
+    await sendRevisionMail(ctx, id, snapshot, hash, revisionsLink(ctx, snapshot.building.id), pdf);
     res.json(await getRevision(ctx.db, id));
   });
 }

@@ -5,9 +5,18 @@ import type { BuildingStackChanged, StackChanged } from '../../shared/schema/soc
 export interface Broadcaster {
   stackChanged(p: StackChanged & { buildingId: number }): void;
   buildingStackChanged(p: BuildingStackChanged): void;
+  /**
+   * The user may no longer read the building: their open sockets, on every process, leave the rooms of
+   * the building and of its stacks at once (docs/access.md).
+   */
+  accessRevoked(p: { userId: number; buildingId: number; stackIds: number[] }): Promise<void>;
+  /** Every session of the user ended (sign-out, password change): their open sockets are closed. */
+  sessionsEnded(p: { userId: number }): Promise<void>;
 }
 
 export const nullBroadcaster: Broadcaster = {
   stackChanged: () => undefined,
   buildingStackChanged: () => undefined,
+  accessRevoked: async () => undefined,
+  sessionsEnded: async () => undefined,
 };

@@ -1,8 +1,9 @@
 // Reads an uploaded CSV file into rows keyed by column, or says by line what is wrong with it.
 // Everything a user can get wrong becomes a problem with a row number; nothing here throws for bad input.
 import { createHash } from 'node:crypto';
-import { CsvError, parse } from 'csv-parse/sync';
-import { MAX_IMPORT_ROWS, type ImportProblem } from '../../shared/schema/imports.ts';
+import { CsvError, parse, type Options } from 'csv-parse';
+import { parse as parseSync } from 'csv-parse/sync';
+import { MAX_IMPORT_LINE_CHARS, MAX_IMPORT_ROWS, MAX_LISTED_PROBLEMS, type ImportProblem } from '../../shared/schema/imports.ts';
 
 export interface CsvRow {
   /** Line of the file the row ends on (the header is line 1). */
@@ -85,26 +86,82 @@ const csvProblem = (e: CsvError, row: number): ImportProblem => ({
   message: `The file cannot be read as CSV here: ${e.message.replace(/^Invalid [^:]*: /, '').replace(/ at line \d+/, '')}`,
 });
 
-/** Each line of the file that cannot be read as a CSV row by itself. */
-function lineByLineProblems(text: string): ImportProblem[] {
+/**
+ * Each line of the file that cannot be read as a CSV row by itself. The file's shape is already bounded
+ * (shapeProblem), and the event loop is served between batches of lines.
+ */
+async function lineByLineProblems(text: string): Promise<ImportProblem[]> {
   const problems: ImportProblem[] = [];
-  text.replace(/^\uFEFF/, '').split(/\r?\n/).forEach((line, i) => {
-    if (line.trim() === '') return;
+  const lines = text.replace(/^\uFEFF/, '').split(/\r?\n/);
+  for (let i = 0; i < lines.length; i += 1) {
+    if (i % 500 === 499) await new Promise((r) => setImmediate(r));
+    const line = lines[i]!;
+    if (line.trim() === '') continue;
     try {
-      parse(line, { trim: true, relax_column_count: true });
+      parseSync(line, { trim: true, relax_column_count: true });
     } catch (e) {
       if (!(e instanceof CsvError)) throw e;
       problems.push(csvProblem(e, i + 1));
     }
-  });
+  }
   return problems;
+}
+
+/** Text fed to the parser at a time; the event loop serves others between slices (docs/access.md). */
+const SLICE_CHARS = 32 * 1024;
+
+/** csv-parse's streaming parser fed in slices with a turn of the event loop between them. */
+async function parseInSlices(text: string, options: Options): Promise<unknown[]> {
+  const parser = parse(options);
+  const records: unknown[] = [];
+  let failure: unknown = null;
+  parser.on('readable', () => {
+    for (let r: unknown = parser.read(); r !== null; r = parser.read()) records.push(r);
+  });
+  parser.on('error', (e) => (failure ??= e));
+  const ended = new Promise<void>((resolve) => {
+    parser.on('end', resolve);
+    parser.on('close', resolve);
+    parser.on('error', () => resolve());
+  });
+  for (let i = 0; i < text.length && failure === null && !parser.destroyed; i += SLICE_CHARS) {
+    parser.write(text.slice(i, i + SLICE_CHARS));
+    await new Promise((r) => setImmediate(r));
+  }
+  if (failure === null && !parser.destroyed) parser.end();
+  await ended;
+  if (failure !== null) throw failure;
+  return records;
+}
+
+/**
+ * Refuses, before any parsing, a file whose lines are too long or too many to be a real import: the cost
+ * of reading a file then stays bounded by its size, whatever it holds (a million commas, a million lines).
+ */
+function shapeProblem(text: string, width: number, expected: string): ImportProblem | null {
+  let lines = 0;
+  let line = 0;
+  for (let start = 0; start < text.length; ) {
+    const end = text.indexOf('\n', start);
+    const stop = end < 0 ? text.length : end;
+    line += 1;
+    if (stop - start > MAX_IMPORT_LINE_CHARS) {
+      return { row: line, column: null, message: `This line is longer than ${MAX_IMPORT_LINE_CHARS} characters; a row holds ${width} short values: ${expected}` };
+    }
+    if (stop - start > 1 || (stop > start && text[start] !== '\r')) lines += 1;
+    if (lines > MAX_IMPORT_ROWS + 1) {
+      return { row: line, column: null, message: `The file has more than ${MAX_IMPORT_ROWS} rows; at most ${MAX_IMPORT_ROWS} can be imported at once` };
+    }
+    start = stop + 1;
+  }
+  return null;
 }
 
 /**
  * Parses the file: UTF-8 text, comma-separated, a header row naming `columns` (any order, any case),
  * at least the `required` ones, then at most MAX_IMPORT_ROWS data rows of the header's width.
  */
-export function readCsv(buf: Buffer, columns: readonly string[], required: readonly string[] = columns): CsvRead {
+export async function readCsv(buf: Buffer, columns: readonly string[], required: readonly string[] = columns): Promise<CsvRead> {
   const expected = columns.join(',');
   const decoded = decodeText(buf);
   if ('problem' in decoded) return { ok: false, problems: [decoded.problem], rows: [] };
@@ -112,16 +169,33 @@ export function readCsv(buf: Buffer, columns: readonly string[], required: reado
     return { ok: false, problems: [{ row: 1, column: null, message: `The file is empty; it needs a header row (${expected}) and one row per entry` }], rows: [] };
   }
 
+  const shape = shapeProblem(decoded.text, columns.length, expected);
+  if (shape) return { ok: false, problems: [shape], rows: [] };
+
   let records: { info: { lines: number }; record: string[] }[];
   try {
     // With info: true each record comes as { info, record }; the typings only know plain rows.
-    records = parse(decoded.text, { bom: true, info: true, trim: true, skip_empty_lines: true, relax_column_count: true }) as unknown as typeof records;
+    // Bounded work whatever the file: parsing stops one record past the row limit, and a line longer
+    // than any real row (a million commas) stops it at once.
+    records = (await parseInSlices(decoded.text, {
+      bom: true,
+      info: true,
+      trim: true,
+      skip_empty_lines: true,
+      relax_column_count: true,
+      to: MAX_IMPORT_ROWS + 2,
+      max_record_size: MAX_IMPORT_LINE_CHARS,
+    })) as typeof records;
   } catch (e) {
+    if (e instanceof CsvError && e.code === 'CSV_MAX_RECORD_SIZE') {
+      const line = typeof (e as CsvError & { lines?: unknown }).lines === 'number' ? (e as CsvError & { lines: number }).lines : 1;
+      return { ok: false, problems: [{ row: line, column: null, message: `This line is longer than ${MAX_IMPORT_LINE_CHARS} characters; a row holds ${columns.length} short values: ${expected}` }], rows: [] };
+    }
     if (e instanceof CsvError) {
       // The parser stops at the first bad row; reading the lines one by one finds every other one too, so
       // the person fixes the file once. A quoted value running over lines cannot be read so; then the
       // parser's one problem is all there is to report.
-      const each = lineByLineProblems(decoded.text);
+      const each = await lineByLineProblems(decoded.text);
       return { ok: false, problems: each.length ? each : [csvProblem(e, csvErrorLine(e))], rows: [] };
     }
     throw e;
@@ -129,11 +203,14 @@ export function readCsv(buf: Buffer, columns: readonly string[], required: reado
 
   const [head, ...data] = records;
   const header = head!.record;
+  if (header.length > columns.length * 2) {
+    return { ok: false, problems: [{ row: 1, column: null, message: `The header has ${header.length} columns; the columns are ${expected}` }], rows: [] };
+  }
   const problems = headerProblems(header, columns, required);
   if (problems.length > 0) return { ok: false, problems, rows: [] };
   if (data.length === 0) return { ok: false, problems: [{ row: 2, column: null, message: 'The file has a header but no rows' }], rows: [] };
   if (data.length > MAX_IMPORT_ROWS) {
-    return { ok: false, problems: [{ row: MAX_IMPORT_ROWS + 2, column: null, message: `The file has ${data.length} rows; at most ${MAX_IMPORT_ROWS} can be imported at once` }], rows: [] };
+    return { ok: false, problems: [{ row: MAX_IMPORT_ROWS + 2, column: null, message: `The file has more than ${MAX_IMPORT_ROWS} rows; at most ${MAX_IMPORT_ROWS} can be imported at once` }], rows: [] };
   }
 
   const names = header.map((h) => columns.find((c) => c.toLowerCase() === h.toLowerCase())!);
@@ -150,6 +227,21 @@ export function readCsv(buf: Buffer, columns: readonly string[], required: reado
   }
   return problems.length > 0 ? { ok: false, problems, rows } : { ok: true, rows };
 }
+
+/**
+ * The first MAX_LISTED_PROBLEMS problems, and a last entry saying how many more were left out, so a file
+ * with a problem on every line answers with a short list rather than megabytes of it.
+ */
+export function listProblems<T extends { problems: ImportProblem[] }>(preview: T): T & { problemsOmitted?: number } {
+  const omitted = preview.problems.length - MAX_LISTED_PROBLEMS;
+  if (omitted <= 0) return preview;
+  const more = { row: 0, column: null, message: `… and ${omitted} more problem${omitted === 1 ? '' : 's'} not listed; fix these and upload the file again` };
+  return { ...preview, problems: [...preview.problems.slice(0, MAX_LISTED_PROBLEMS), more], problemsOmitted: omitted };
+}
+
+/** Every problem found, listed or not. */
+export const problemCount = (preview: { problems: ImportProblem[]; problemsOmitted?: number }): number =>
+  preview.problemsOmitted ? MAX_LISTED_PROBLEMS + preview.problemsOmitted : preview.problems.length;
 
 const NUMBER = /^[+-]?(\d+(\.\d*)?|\.\d+)([eE][+-]?\d+)?$/;
 

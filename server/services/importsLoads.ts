@@ -9,7 +9,7 @@ import { applyOps as applyOpsToDoc, touchedIds } from '../../shared/ops/applyOps
 import type { ServerContext } from '../context.ts';
 import { conflict, unprocessable } from '../errors.ts';
 import { analysisInputs } from './analysis.ts';
-import { byRow, fileHash, numberCell, readCsv, type CsvRow } from './importsCsv.ts';
+import { byRow, fileHash, listProblems, numberCell, problemCount, readCsv, type CsvRow } from './importsCsv.ts';
 import { buildingLevels, buildingStacks, floorLoadOf, nodesAtLevel, sameLoad, type LevelRef, type StackRef } from './importsLoadTargets.ts';
 import { broadcastChange, commitDoc, type CommittedChange } from './stackOps.ts';
 
@@ -40,8 +40,8 @@ function categoryCell(row: CsvRow, problems: ImportProblem[]): Category | null {
 /** Checks every row of the file against the building as it is in `db` now. */
 export async function previewLoads(db: Knex, buildingId: number, file: Buffer): Promise<LoadsPreview> {
   const empty: LoadsPreview = { kind: 'loads', fileHash: fileHash(file), rows: 0, unchanged: 0, changes: [], problems: [], basis: [] };
-  const read = readCsv(file, LOAD_COLUMNS);
-  if (!read.ok && read.rows.length === 0) return { ...empty, problems: read.problems };
+  const read = await readCsv(file, LOAD_COLUMNS);
+  if (!read.ok && read.rows.length === 0) return listProblems({ ...empty, problems: read.problems });
 
   const [stacks, levels] = await Promise.all([buildingStacks(db, buildingId), buildingLevels(db, buildingId)]);
   // Rows of the wrong width are reported together with the problems of every other row.
@@ -83,7 +83,7 @@ export async function previewLoads(db: Knex, buildingId: number, file: Buffer): 
   }
   const changed = new Set(changes.map((c) => c.stackId));
   const basis = stacks.filter((s) => changed.has(s.row.id)).map((s) => ({ stackId: s.row.id, version: s.row.version }));
-  return { ...empty, rows: read.rows.length, unchanged, changes, problems: byRow(problems), basis };
+  return listProblems({ ...empty, rows: read.rows.length, unchanged, changes, problems: byRow(problems), basis });
 }
 
 export const problemsMessage = (n: number): string => `The file has ${n} problem${n === 1 ? '' : 's'}; nothing was changed`;
@@ -107,7 +107,7 @@ export async function applyLoads(ctx: ServerContext, buildingId: number, file: B
   const committed = await ctx.db.transaction(async (trx) => {
     const preview = await previewLoads(trx, buildingId, file);
     if (fields.fileHash && fields.fileHash !== preview.fileHash) throw conflict('This is not the file that was previewed; preview it again');
-    if (preview.problems.length > 0) throw unprocessable(problemsMessage(preview.problems.length), preview);
+    if (preview.problems.length > 0) throw unprocessable(problemsMessage(problemCount(preview)), preview);
     if (fields.basis) assertBasis(fields.basis, preview.basis);
 
     const opsByStack = new Map<number, Op[]>();

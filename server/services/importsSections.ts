@@ -13,7 +13,7 @@ import type { ServerContext } from '../context.ts';
 import { conflict, unprocessable } from '../errors.ts';
 import { analysisInputs } from './analysis.ts';
 import { companySectionMap, upsertCompanySections } from './companySections.ts';
-import { byRow, fileHash, numberCell, readCsv, type CsvRow } from './importsCsv.ts';
+import { byRow, fileHash, listProblems, numberCell, problemCount, readCsv, type CsvRow } from './importsCsv.ts';
 import { problemsMessage } from './importsLoads.ts';
 import { buildingStacks } from './importsLoadTargets.ts';
 import { broadcastChange, commitDoc, type CommittedChange } from './stackOps.ts';
@@ -78,8 +78,8 @@ function dimsOf(row: CsvRow, problems: ImportProblem[]): SectionDims | null {
 
 export async function previewSections(db: Knex, buildingId: number, file: Buffer): Promise<SectionsPreview> {
   const empty: SectionsPreview = { kind: 'sections', fileHash: fileHash(file), rows: 0, unchanged: 0, changes: [], problems: [] };
-  const read = readCsv(file, SECTION_COLUMNS, ['designation', 'shape', 'make']);
-  if (!read.ok && read.rows.length === 0) return { ...empty, problems: read.problems };
+  const read = await readCsv(file, SECTION_COLUMNS, ['designation', 'shape', 'make']);
+  if (!read.ok && read.rows.length === 0) return listProblems({ ...empty, problems: read.problems });
 
   const existing = new Map([...(await companySectionMap(db, buildingId))].map(([designation, dims]) => [designationKey(designation), { designation, dims }]));
   // Rows of the wrong width are reported together with the problems of every other row.
@@ -102,7 +102,7 @@ export async function previewSections(db: Knex, buildingId: number, file: Buffer
     if (current && JSON.stringify(current.dims) === JSON.stringify(dims)) unchanged += 1;
     else changes.push({ row: row.line, designation: current?.designation ?? name, before: current?.dims ?? null, after: dims });
   }
-  return { ...empty, rows: read.rows.length, unchanged, changes, problems: byRow(problems) };
+  return listProblems({ ...empty, rows: read.rows.length, unchanged, changes, problems: byRow(problems) });
 }
 
 /** Writes the sections, then re-analyses (as an edit of their lifts) the stacks that use a changed one. */
@@ -110,7 +110,7 @@ export async function applySections(ctx: ServerContext, buildingId: number, file
   const committed = await ctx.db.transaction(async (trx) => {
     const preview = await previewSections(trx, buildingId, file);
     if (fields.fileHash && fields.fileHash !== preview.fileHash) throw conflict('This is not the file that was previewed; preview it again');
-    if (preview.problems.length > 0) throw unprocessable(problemsMessage(preview.problems.length), preview);
+    if (preview.problems.length > 0) throw unprocessable(problemsMessage(problemCount(preview)), preview);
     await upsertCompanySections(trx, buildingId, preview.changes.map((c) => ({ designation: c.designation, dims: c.after })));
 
     const changedKeys = new Set(preview.changes.map((c) => designationKey(c.designation)));

@@ -1,16 +1,23 @@
-// Building membership: the lead adds people by e-mail; unknown addresses get an invitation that
-// becomes a membership when the account is registered.
+// Building membership: the lead adds people by e-mail. An account with a verified address becomes a
+// member at once; any other address gets an invitation that becomes a membership only when an account
+// with that address verifies it, and only until the invitation expires (docs/access.md).
 import type { Knex } from 'knex';
 import { ROLE_RANK, type Member, type Role, type User } from '../../shared/schema/api.ts';
 import { conflict, notFound, unprocessable } from '../errors.ts';
-import { now } from '../db.ts';
+import { isoTime, now } from '../db.ts';
 import type { Mailer } from '../mail/mailer.ts';
 import { invitationMessage } from '../mail/messages.ts';
 import { recordAudit } from './audit.ts';
 
+/** Call only for a verified address: turns its live invitations into memberships; expired ones lapse. */
 export async function acceptInvitations(trx: Knex, userId: number, email: string): Promise<void> {
-  const invitations = await trx('invitations').where({ email }).select<{ id: number; building_id: number; role: Role }[]>('id', 'building_id', 'role');
+  const invitations = await trx('invitations')
+    .where({ email })
+    .andWhere((q) => q.whereNull('expires_at').orWhere('expires_at', '>', now()))
+    .select<{ id: number; building_id: number; role: Role }[]>('id', 'building_id', 'role');
   for (const inv of invitations) {
+    const already = await trx('memberships').where({ building_id: inv.building_id, user_id: userId }).first('id');
+    if (already) continue;
     await trx('memberships').insert({ building_id: inv.building_id, user_id: userId, role: inv.role, created_at: now() });
     await recordAudit(trx, { userId, buildingId: inv.building_id, action: 'member.accept', detail: { email, role: inv.role } });
   }
@@ -23,32 +30,50 @@ export async function listMembers(db: Knex, buildingId: number): Promise<Member[
     .where('m.building_id', buildingId)
     .orderBy('u.email')
     .select<{ user_id: number; email: string; name: string; role: Role }[]>('m.user_id', 'u.email', 'u.name', 'm.role');
-  const invited = await db('invitations').where({ building_id: buildingId }).orderBy('email').select<{ email: string; role: Role }[]>('email', 'role');
+  const invited = await db('invitations')
+    .where({ building_id: buildingId })
+    .orderBy('email')
+    .select<{ email: string; role: Role; expires_at: unknown }[]>('email', 'role', 'expires_at');
   return [
     ...members.map((m) => ({ userId: m.user_id, email: m.email, name: m.name, role: m.role, pending: false })),
-    ...invited.map((i) => ({ userId: null, email: i.email, name: null, role: i.role, pending: true })),
+    ...invited.map((i) => ({ userId: null, email: i.email, name: null, role: i.role, pending: true, ...(i.expires_at ? { expiresAt: isoTime(i.expires_at) } : {}) })),
   ];
 }
 
-/** Adds an account as a member, or invites an address with no account (and e-mails it after commit). */
-export async function addMember(db: Knex, mailer: Mailer, buildingId: number, email: string, role: Role, by: User): Promise<Member> {
+export interface InviteSettings {
+  /** Where the invited person signs in or registers (the configured public URL). */
+  link: string;
+  /** Days an invitation stays open. */
+  days: number;
+}
+
+/**
+ * Adds an account with a verified address as a member; invites any other address (and e-mails it after
+ * commit). An unverified account with the address is invited too: it joins when it verifies.
+ */
+export async function addMember(db: Knex, mailer: Mailer, buildingId: number, email: string, role: Role, by: User, settings: InviteSettings): Promise<Member> {
   const outcome = await db.transaction(async (trx) => {
     const building = await trx('buildings').where({ id: buildingId }).first<{ name: string } | undefined>('name');
     if (!building) throw notFound('Building');
-    const user = await trx('users').where({ email }).first<{ id: number; name: string } | undefined>('id', 'name');
+    const user = await trx('users').where({ email }).first<{ id: number; name: string; email_verified_at: unknown } | undefined>('id', 'name', 'email_verified_at');
     if (user) {
       const existing = await trx('memberships').where({ building_id: buildingId, user_id: user.id }).first('id');
       if (existing) throw conflict(`${email} is already a member of this building`);
+    }
+    if (user && user.email_verified_at !== null && user.email_verified_at !== undefined) {
       await trx('memberships').insert({ building_id: buildingId, user_id: user.id, role, created_at: now() });
       await recordAudit(trx, { userId: by.id, buildingId, action: 'member.add', detail: { email, role } });
       return { member: { userId: user.id, email, name: user.name, role, pending: false }, buildingName: building.name, invite: false };
     }
     await trx('invitations').where({ building_id: buildingId, email }).delete();
-    await trx('invitations').insert({ building_id: buildingId, email, role, invited_by: by.id, created_at: now() });
+    const expiresAt = new Date(Date.now() + settings.days * 86_400_000).toISOString();
+    await trx('invitations').insert({ building_id: buildingId, email, role, invited_by: by.id, created_at: now(), expires_at: expiresAt });
     await recordAudit(trx, { userId: by.id, buildingId, action: 'member.invite', detail: { email, role } });
-    return { member: { userId: null, email, name: null, role, pending: true }, buildingName: building.name, invite: true };
+    return { member: { userId: null, email, name: null, role, pending: true, expiresAt }, buildingName: building.name, invite: true };
   });
-  if (outcome.invite) await mailer.sendMail(invitationMessage({ to: email, buildingName: outcome.buildingName, inviterName: by.name, role }));
+  if (outcome.invite) {
+    await mailer.sendMail(invitationMessage({ to: email, buildingName: outcome.buildingName, inviterName: by.name, role, link: settings.link, days: settings.days }));
+  }
   return outcome.member;
 }
 

@@ -15,6 +15,8 @@ import { recordAudit } from './audit.ts';
 import { touchBuilding } from './buildings.ts';
 import { diffDocs } from './docDiff.ts';
 import { assertUniqueIds, loadStackRow, parseDoc, type StackRow } from './stackRows.ts';
+import type { OffThread } from '../offThread/pool.ts';
+import { editOffThread, isLarge, LARGE_STACK_LIFTS, yieldToLoop } from './stackEditOffThread.ts';
 
 export interface CommittedChange {
   stackId: number;
@@ -37,9 +39,11 @@ export async function commitDoc(
 ): Promise<CommittedChange> {
   const results = precomputed ?? analyse(change.doc, inputs);
   const version = row.version + 1;
-  const updated = await trx('stacks')
-    .where({ id: row.id, version: row.version })
-    .update({ doc: JSON.stringify(change.doc), version, ...resultColumns(change.doc, results), updated_at: now() });
+  const columns = { doc: JSON.stringify(change.doc), version, ...resultColumns(change.doc, results), updated_at: now() };
+  // A large stack (results computed off the main thread) is encoded and written in separate turns of the loop.
+  if (precomputed) await yieldToLoop();
+  const updated = await trx('stacks').where({ id: row.id, version: row.version }).update(columns);
+  if (precomputed) await yieldToLoop();
   if (updated === 0) throw conflict('The stack was changed by someone else; reload and try again', { version: row.version });
   await trx('stack_ops').insert({
     stack_id: row.id,
@@ -54,7 +58,7 @@ export async function commitDoc(
   return { stackId: row.id, buildingId: row.building_id, version, doc: change.doc, results, ops: change.ops, summary: summariseResult(change.doc, results) };
 }
 
-async function assertNoOverlap(trx: Knex, row: StackRow, baseVersion: number, touched: Set<string>): Promise<void> {
+export async function assertNoOverlap(trx: Knex, row: StackRow, baseVersion: number, touched: Set<string>): Promise<void> {
   if (baseVersion > row.version) throw conflict(`Version ${baseVersion} of this stack does not exist yet`, { version: row.version });
   if (baseVersion === row.version) return;
   const since = await trx('stack_ops').where('stack_id', row.id).andWhere('version', '>', baseVersion).select<{ touched: string }[]>('touched');
@@ -71,12 +75,15 @@ export interface OpsInput {
   baseVersion: number;
   ops: Op[];
   userId: number | null;
+  /** With it, edits of large stacks are computed on a worker thread (stackEditOffThread.ts). */
+  offThread?: OffThread;
 }
 
 /** Applies ops made against baseVersion; merged when nobody has touched the same nodes or edges since. */
 export async function applyOps(db: Knex, input: OpsInput): Promise<CommittedChange> {
   return db.transaction(async (trx) => {
     const row = await loadStackRow(trx, input.stackId, { lock: true });
+    if (input.offThread && isLarge(row)) return editOffThread(trx, row, input, input.offThread);
     const doc = parseDoc(row.doc);
     const touched = touchedIds(doc, input.ops);
     await assertNoOverlap(trx, row, input.baseVersion, touched);
@@ -128,7 +135,9 @@ export function broadcastChange(ctx: ServerContext, c: CommittedChange, by: { us
 
 /** applyOps then broadcast: what the REST ops route and the live channel call. */
 export async function editStack(ctx: ServerContext, input: Omit<OpsInput, 'userId'>, user: User): Promise<CommittedChange> {
-  const change = await applyOps(ctx.db, { ...input, userId: user.id });
+  const change = await applyOps(ctx.db, { ...input, userId: user.id, offThread: ctx.offThread });
+  // Storing a large stack and encoding its broadcast are each tens of milliseconds: not in one turn.
+  if (change.results.lifts.length > LARGE_STACK_LIFTS) await yieldToLoop();
   broadcastChange(ctx, change, { userId: user.id, name: user.name });
   return change;
 }

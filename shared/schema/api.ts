@@ -16,19 +16,50 @@ export const emailSchema = z
   .max(254)
   .email('must be an e-mail address')
   .transform((s) => s.toLowerCase());
-export const passwordSchema = z.string().min(10, 'must be at least 10 characters').max(200);
+/** bcrypt reads only the first 72 bytes of a password; a longer one is refused rather than cut short. */
+export const MAX_PASSWORD_BYTES = 72;
+const utf8Length = (s: string) => new TextEncoder().encode(s).length;
+export const passwordSchema = z
+  .string()
+  .min(10, 'must be at least 10 characters')
+  .max(200)
+  .refine((p) => p.trim().length >= 10, 'must hold at least 10 characters besides spaces')
+  .refine((p) => utf8Length(p) <= MAX_PASSWORD_BYTES, `must be at most ${MAX_PASSWORD_BYTES} bytes (about 72 letters, fewer with accents or symbols)`);
 export const idParamSchema = z.coerce.number().int().positive().max(Number.MAX_SAFE_INTEGER);
 
 export const registerBodySchema = z
   .object({ email: emailSchema, password: passwordSchema, name: z.string().trim().min(1).max(100) })
   .strict();
 export const loginBodySchema = z.object({ email: emailSchema, password: z.string().min(1).max(200) }).strict();
+export const verifyEmailBodySchema = z.object({ token: z.string().min(1).max(2000) }).strict();
+export const changePasswordBodySchema = z.object({ currentPassword: z.string().min(1).max(200), newPassword: passwordSchema }).strict();
+export const passwordStrengthBodySchema = z
+  .object({ password: z.string().max(200), email: z.string().max(254).optional(), name: z.string().max(100).optional() })
+  .strict();
+
+/** How guessable a password is: score 0 (very) to 4 (very unlikely), as the estimator rates it. */
+export interface PasswordStrength {
+  score: number;
+  /** The score a new password needs. */
+  required: number;
+  acceptable: boolean;
+  warning: string | null;
+  suggestions: string[];
+}
+
+/** What registration answers, the same whether or not the address already has an account. */
+export interface RegisterResponse {
+  status: 'verification-sent';
+  email: string;
+}
 
 export interface User {
   id: number;
   email: string;
   name: string;
   isAdmin: boolean;
+  /** The owner has followed the link mailed to the address (docs/access.md). */
+  emailVerified: boolean;
 }
 export interface AuthResponse {
   token: string;
@@ -65,8 +96,10 @@ export interface Member {
   email: string;
   name: string | null;
   role: Role;
-  /** true while the address has no account yet (invitation sent). */
+  /** true while the invitation waits for a verified account with this address. */
   pending: boolean;
+  /** When a pending invitation ends (ISO time). */
+  expiresAt?: string;
 }
 
 /**

@@ -12,6 +12,10 @@ export const SECTION_COLUMNS = ['designation', 'shape', 'make', 'h_mm', 'b_mm', 
 export const MAX_IMPORT_BYTES = 2 * 1024 * 1024;
 /** Most data rows in one file: a guard, far above the stacks × levels of a real building. */
 export const MAX_IMPORT_ROWS = 20_000;
+/** Longest line read (characters): a real row is a few dozen; a line of a million commas is refused at once. */
+export const MAX_IMPORT_LINE_CHARS = 4096;
+/** Most problems listed in one reply; the rest are counted (problemsOmitted) and named in the last entry. */
+export const MAX_LISTED_PROBLEMS = 100;
 
 /** One thing wrong with an uploaded file. row is the file's line number (the header is row 1). */
 export const importProblemSchema = z.object({ row: z.number().int().min(0), column: z.string().nullable(), message: z.string() });
@@ -44,6 +48,8 @@ export const loadsPreviewSchema = z.object({
   unchanged: z.number().int(),
   changes: z.array(loadChangeSchema),
   problems: z.array(importProblemSchema),
+  /** Problems found beyond the MAX_LISTED_PROBLEMS listed. */
+  problemsOmitted: z.number().int().min(0).optional(),
   basis: previewBasisSchema,
 });
 export type LoadsPreview = z.infer<typeof loadsPreviewSchema>;
@@ -63,6 +69,8 @@ export const sectionsPreviewSchema = z.object({
   unchanged: z.number().int(),
   changes: z.array(sectionChangeSchema),
   problems: z.array(importProblemSchema),
+  /** Problems found beyond the MAX_LISTED_PROBLEMS listed. */
+  problemsOmitted: z.number().int().min(0).optional(),
 });
 export type SectionsPreview = z.infer<typeof sectionsPreviewSchema>;
 

@@ -43,6 +43,11 @@ export interface BuildingStackChanged {
   status: 'passes' | 'fails' | 'errors';
 }
 
+export interface SessionEnded {
+  reason: 'expired' | 'signed-out';
+  message: string;
+}
+
 export type Ack<T> = (res: { ok: true; data: T } | ({ ok: false } & ApiErrorBody)) => void;
 
 export interface ClientToServerEvents {
@@ -56,4 +61,8 @@ export interface ServerToClientEvents {
   'stack:changed': (payload: StackChanged) => void;
   presence: (payload: { stackId: number; users: PresenceUser[] }) => void;
   'building:stack-changed': (payload: BuildingStackChanged) => void;
+  /** The user lost access to a building: the server has taken this socket out of its rooms. */
+  'access:revoked': (payload: { buildingId: number }) => void;
+  /** The session behind this socket ended; the server closes the socket next (sign in again). */
+  'session:ended': (payload: SessionEnded) => void;
 }

@@ -31,6 +31,11 @@ export function onUnauthorised(listener: UnauthorisedListener): () => void {
   return () => unauthorisedListeners.delete(listener);
 }
 
+/** Tells every listener the session is over (a 401, or the live channel saying so). */
+export function notifyUnauthorised(): void {
+  unauthorisedListeners.forEach((l) => l());
+}
+
 export async function apiFetch<T>(method: 'GET' | 'POST' | 'PUT' | 'PATCH' | 'DELETE', path: string, body?: unknown): Promise<T> {
   const headers: Record<string, string> = { Accept: 'application/json' };
   const token = getToken();
@@ -51,7 +56,7 @@ export async function apiFetch<T>(method: 'GET' | 'POST' | 'PUT' | 'PATCH' | 'DE
   const text = await res.text();
   const json: unknown = text ? safeParse(text) : undefined;
   if (!res.ok) {
-    if (res.status === 401) unauthorisedListeners.forEach((l) => l());
+    if (res.status === 401) notifyUnauthorised();
     const err = (json as ApiErrorBody | undefined)?.error;
     throw new ApiError(res.status, err?.code ?? 'internal', err?.message ?? `Request failed (${res.status})`, err?.details);
   }

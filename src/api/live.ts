@@ -4,6 +4,7 @@ import { io, type Socket } from 'socket.io-client';
 import type { ClientToServerEvents, ServerToClientEvents, StackJoinAck } from '@shared/schema/socket.ts';
 import type { ErrorCode } from '@shared/schema/errors.ts';
 import type { Op } from '@shared/schema/ops.ts';
+import { notifyUnauthorised } from './http.ts';
 
 export type LiveSocket = Socket<ServerToClientEvents, ClientToServerEvents>;
 
@@ -23,7 +24,10 @@ export class LiveError extends Error {
 /** Connects to the same origin (path /socket.io) unless a URL is given (tests, a separate API host). */
 export function connectLive(token: string, url?: string): LiveSocket {
   const options = { auth: { token }, path: '/socket.io', transports: ['websocket', 'polling'] };
-  return url ? io(url, options) : io(options);
+  const socket: LiveSocket = url ? io(url, options) : io(options);
+  // The server ends a socket whose session expired or was signed out: sign in again.
+  socket.on('session:ended', () => notifyUnauthorised());
+  return socket;
 }
 
 type AckResult<T> = { ok: true; data: T } | { ok: false; error: { code: ErrorCode; message: string } };

@@ -7,7 +7,8 @@ import { describeError } from '@/stores/notify.ts';
 import { fieldErrors, type FieldInfo } from '@/components/common/formErrors.ts';
 import { redirectTarget } from '@/router/redirect.ts';
 
-export function useAccountForm<T>(schema: ZodType<T>, labels: Record<string, FieldInfo>, send: (body: T) => Promise<unknown>) {
+/** after: 'redirect' goes on to the page asked for; 'stay' leaves the page to show what happened. */
+export function useAccountForm<T>(schema: ZodType<T>, labels: Record<string, FieldInfo>, send: (body: T) => Promise<unknown>, after: 'redirect' | 'stay' = 'redirect') {
   const route = useRoute();
   const router = useRouter();
   const errors = ref<Record<string, string>>({});
@@ -25,7 +26,7 @@ export function useAccountForm<T>(schema: ZodType<T>, labels: Record<string, Fie
     busy.value = true;
     try {
       await send(parsed.data);
-      await router.replace(redirectTarget(route.query.redirect));
+      if (after === 'redirect') await router.replace(redirectTarget(route.query.redirect));
     } catch (e) {
       failure.value = describeError(e);
     } finally {

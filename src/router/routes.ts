@@ -30,6 +30,13 @@ export const routes: RouteRecordRaw[] = [
     ],
   },
   {
+    // The link in the verification e-mail: opened signed in or not.
+    path: '/verify-email',
+    component: () => import('@/layouts/AuthLayout.vue'),
+    meta: { public: true },
+    children: [{ path: '', name: 'verify-email', component: () => import('@/pages/VerifyEmailPage.vue'), meta: { public: true } }],
+  },
+  {
     path: '/',
     component: () => import('@/layouts/MainLayout.vue'),
     children: [

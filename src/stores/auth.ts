@@ -1,7 +1,7 @@
 // Who is signed in. The token lives in localStorage (http.ts); any 401 from the API signs out.
 import { computed, ref } from 'vue';
 import { defineStore } from 'pinia';
-import type { AuthResponse, User } from '@shared/schema/api.ts';
+import type { AuthResponse, RegisterResponse, User } from '@shared/schema/api.ts';
 import { authApi, type LoginBody, type RegisterBody } from '@/api/auth.ts';
 import { getToken, onUnauthorised, setToken } from '@/api/http.ts';
 
@@ -20,8 +20,16 @@ export const useAuthStore = defineStore('auth', () => {
     startSession(await authApi.login(body));
   }
 
-  async function register(body: RegisterBody): Promise<void> {
-    startSession(await authApi.register(body));
+  /** Registration starts no session: the address is verified through the mailed link first. */
+  async function register(body: RegisterBody): Promise<RegisterResponse> {
+    return authApi.register(body);
+  }
+
+  /** Follows a verification link; a signed-in user's account shows as verified at once. */
+  async function verify(linkToken: string): Promise<User> {
+    const verified = await authApi.verify(linkToken);
+    if (user.value && user.value.id === verified.id) user.value = { ...user.value, emailVerified: true };
+    return verified;
   }
 
   /** Loads the user behind a stored token once; a 401 signs out through onUnauthorised. */
@@ -30,15 +38,25 @@ export const useAuthStore = defineStore('auth', () => {
     user.value = await authApi.me();
   }
 
-  function signOut(): void {
+  /** Forgets the session here only (the server has ended it already, or refused it). */
+  function endLocalSession(): void {
     setToken(null);
     token.value = null;
     user.value = null;
   }
 
+  /** Signs out everywhere: the server ends every session of the account, then this one is forgotten. */
+  async function signOut(): Promise<void> {
+    try {
+      if (token.value) await authApi.logout();
+    } finally {
+      endLocalSession();
+    }
+  }
+
   onUnauthorised(() => {
-    if (token.value) signOut();
+    if (token.value) endLocalSession();
   });
 
-  return { token, user, isSignedIn, signIn, register, loadUser, signOut };
+  return { token, user, isSignedIn, signIn, register, verify, loadUser, signOut, endLocalSession };
 });

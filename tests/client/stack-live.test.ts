@@ -12,6 +12,7 @@ import { spawn, type ChildProcess } from 'node:child_process';
 import { mkdtempSync, rmSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
+import Database from 'better-sqlite3';
 
 // The server runs in its own Node.js process: this test file runs in a browser-like environment.
 const SERVER_SCRIPT = `
@@ -48,8 +49,22 @@ async function api<T>(method: string, path: string, token: string | null, body?:
   return (await res.json()) as T;
 }
 
-const register = (label: string) =>
-  api<AuthResponse>('POST', '/auth/register', null, { email: `${label}-${Date.now()}@example.test`, password: 'correct horse battery', name: `${label} person` });
+/** Registers, follows the verification link the server's SMTP fake captured, and signs in. */
+async function register(label: string): Promise<AuthResponse> {
+  const email = `${label}-${Date.now()}@example.test`;
+  const password = 'correct horse battery';
+  await api('POST', '/auth/register', null, { email, password, name: `${label} person` });
+  const db = new Database(join(dataDir, 'stanchion.sqlite'), { readonly: true });
+  try {
+    const mail = db.prepare('SELECT text FROM outbox WHERE "to" = ? ORDER BY id DESC').get(email) as { text: string } | undefined;
+    const token = /verify-email\?token=(\S+)/.exec(mail?.text ?? '')?.[1];
+    if (!token) throw new Error(`no verification link for ${email}`);
+    await api('POST', '/auth/verify', null, { token: decodeURIComponent(token) });
+  } finally {
+    db.close();
+  }
+  return api<AuthResponse>('POST', '/auth/login', null, { email, password });
+}
 
 beforeAll(async () => {
   dataDir = mkdtempSync(join(tmpdir(), 'stanchion-client-'));

@@ -1,7 +1,7 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import jwt from 'jsonwebtoken';
-import type { AuthResponse, User } from '../../shared/schema/api.ts';
-import { errorCode, registerUser, startTestServer, TEST_PASSWORD, type TestServer } from './helpers.ts';
+import type { User } from '../../shared/schema/api.ts';
+import { errorCode, mailTo, registerUser, signIn, startTestServer, TEST_PASSWORD, verificationToken, type TestServer } from './helpers.ts';
 
 describe('accounts', () => {
   let s: TestServer;
@@ -12,11 +12,13 @@ describe('accounts', () => {
     await s?.close();
   });
 
-  it('registers with a normalised e-mail address and returns a token that GET /api/me accepts', async () => {
+  it('registers with a normalised e-mail address, mails a verification link, and signs in with a token that GET /api/me accepts', async () => {
     const r = await s.api('POST', '/auth/register', { body: { email: '  Mixed.Case@Example.TEST ', password: TEST_PASSWORD, name: 'Mixed' } });
-    expect(r.status).toBe(201);
-    const { token, user } = r.body as AuthResponse;
-    expect(user).toEqual({ id: expect.any(Number), email: 'mixed.case@example.test', name: 'Mixed', isAdmin: false });
+    expect(r.status).toBe(202);
+    expect(r.body).toEqual({ status: 'verification-sent', email: 'mixed.case@example.test' });
+    expect(await verificationToken(s, 'mixed.case@example.test')).toMatch(/^[\w-]+\.[\w-]+\.[\w-]+$/);
+    const { token, user } = await signIn(s, 'mixed.case@example.test');
+    expect(user).toEqual({ id: expect.any(Number), email: 'mixed.case@example.test', name: 'Mixed', isAdmin: false, emailVerified: false });
     const me = await s.api('GET', '/me', { token });
     expect(me.status).toBe(200);
     expect((me.body as User).email).toBe('mixed.case@example.test');
@@ -28,10 +30,15 @@ describe('accounts', () => {
     expect(row.password_hash).not.toContain(TEST_PASSWORD);
   });
 
-  it('refuses a second account on the same address, whatever its case, with 409', async () => {
+  it('makes no second account on the same address, whatever its case, and answers as for a new one', async () => {
     const r = await s.api('POST', '/auth/register', { body: { email: 'MIXED.case@example.test', password: TEST_PASSWORD, name: 'Again' } });
-    expect(r.status).toBe(409);
-    expect(errorCode(r.body)).toBe('conflict');
+    expect(r.status).toBe(202);
+    expect(r.body).toEqual({ status: 'verification-sent', email: 'mixed.case@example.test' });
+    expect(await s.ctx.db('users').where({ email: 'mixed.case@example.test' }).count<{ n: number }[]>({ n: '*' })).toEqual([{ n: 1 }]);
+    // The owner is told instead, with no verification link.
+    const mails = await mailTo(s, 'mixed.case@example.test', 2);
+    expect(mails.at(-1)?.text).toContain('already has an account');
+    expect(mails.at(-1)?.text).not.toContain('verify-email');
   });
 
   it('refuses a password shorter than 10 characters', async () => {

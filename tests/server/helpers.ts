@@ -7,6 +7,8 @@ import knex from 'knex';
 import type { Express } from 'express';
 import type { AuthResponse, Building, Role } from '../../shared/schema/api.ts';
 import { startServer, type RunningServer, type StartOptions } from '../../server/server.ts';
+import type { Limits } from '../../server/config.ts';
+import { verifyEmail } from '../../server/services/users.ts';
 
 /**
  * The scale-out run (docs/live-protocol.md §Several processes) repeats every server test on PostgreSQL and Redis:
@@ -43,6 +45,16 @@ export interface ApiReply {
 
 export const TEST_PASSWORD = 'correct horse battery';
 
+const generous = { windowMs: 60_000, max: 100_000 };
+export const GENEROUS_LIMITS: Limits = {
+  registerPerClient: generous,
+  registerPerAddress: generous,
+  mailPerUser: generous,
+  invitesPerBuilding: generous,
+  mailPerRecipient: generous,
+  strengthPerClient: generous,
+};
+
 export async function startTestServer(opts: Omit<StartOptions, 'dataDir' | 'port'> = {}): Promise<TestServer> {
   const dataDir = mkdtempSync(join(tmpdir(), 'stanchion-test-'));
   const scale = onPostgres ? scaleOutConfig() : null;
@@ -52,7 +64,8 @@ export async function startTestServer(opts: Omit<StartOptions, 'dataDir' | 'port
     logLevel: 'silent',
     env: {},
     ...opts,
-    config: { bcryptRounds: 4, ...scale, ...opts.config },
+    // Tests register many accounts from one address: the limits are tested on their own (limits.test.ts).
+    config: { bcryptRounds: 4, limits: GENEROUS_LIMITS, ...scale, ...opts.config },
   });
   const api: TestServer['api'] = async (method, path, o = {}) => {
     const headers: Record<string, string> = { ...o.headers };
@@ -83,14 +96,59 @@ export async function startTestServer(opts: Omit<StartOptions, 'dataDir' | 'port
   };
 }
 
+export interface CapturedMail {
+  id: number;
+  to: string;
+  subject: string;
+  text: string;
+  html: string | null;
+}
+
+/** Messages the SMTP fake captured for an address, oldest first; waits up to timeoutMs for `atLeast`. */
+export async function mailTo(s: TestServer, to: string, atLeast = 1, timeoutMs = 5000): Promise<CapturedMail[]> {
+  const until = Date.now() + timeoutMs;
+  for (;;) {
+    const rows = await s.ctx.db('outbox').where({ to }).orderBy('id').select<CapturedMail[]>('id', 'to', 'subject', 'text', 'html');
+    if (rows.length >= atLeast || Date.now() > until) return rows;
+    await new Promise((r) => setTimeout(r, 20));
+  }
+}
+
+/** The token of the newest verification link mailed to the address. */
+export async function verificationToken(s: TestServer, email: string): Promise<string> {
+  const mails = (await mailTo(s, email)).filter((m) => /verify-email\?token=/.test(m.text));
+  const m = /verify-email\?token=([^\s]+)/.exec(mails.at(-1)?.text ?? '');
+  if (!m) throw new Error(`no verification link mailed to ${email}`);
+  return decodeURIComponent(m[1]);
+}
+
+/** Registers, follows the link mailed to the address, and signs in: a verified account with a session. */
+export async function registerAndVerify(s: TestServer, email: string, name: string, password = TEST_PASSWORD): Promise<AuthResponse> {
+  const r = await s.api('POST', '/auth/register', { body: { email, password, name } });
+  if (r.status !== 202) throw new Error(`register failed: ${r.status} ${JSON.stringify(r.body)}`);
+  if (s.ctx.mailer.fakePort === null) {
+    // A test of a failing mail server: no link can arrive, so the address is verified in the database.
+    const row = await s.ctx.db('users').where({ email }).first<{ id: number }>('id');
+    await verifyEmail(s.ctx.db, row.id, email);
+    return signIn(s, email, password);
+  }
+  const v = await s.api('POST', '/auth/verify', { body: { token: await verificationToken(s, email) } });
+  if (v.status !== 200) throw new Error(`verify failed: ${v.status} ${JSON.stringify(v.body)}`);
+  return signIn(s, email, password);
+}
+
+export async function signIn(s: TestServer, email: string, password = TEST_PASSWORD): Promise<AuthResponse> {
+  const r = await s.api('POST', '/auth/login', { body: { email, password } });
+  if (r.status !== 200) throw new Error(`sign-in failed: ${r.status} ${JSON.stringify(r.body)}`);
+  return r.body as AuthResponse;
+}
+
 let counter = 0;
-/** Registers a fresh account and returns its token and user. */
+/** Registers a fresh account, verifies its address through the captured mail and returns its session. */
 export async function registerUser(s: TestServer, label = 'user'): Promise<AuthResponse> {
   counter += 1;
   const email = `${label}-${counter}-${Date.now()}@example.test`;
-  const r = await s.api('POST', '/auth/register', { body: { email, password: TEST_PASSWORD, name: `${label} ${counter}` } });
-  if (r.status !== 201) throw new Error(`register failed: ${r.status} ${JSON.stringify(r.body)}`);
-  return r.body as AuthResponse;
+  return registerAndVerify(s, email, `${label} ${counter}`);
 }
 
 export async function makeAdmin(s: TestServer, userId: number): Promise<void> {

@@ -2,7 +2,7 @@
 // and the database exactly as it was.
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type { Level, StackDetail, StackSummary } from '../../shared/schema/api.ts';
-import { addMember, createBuilding, errorCode, listRoutes, registerUser, startTestServer, type TestServer } from './helpers.ts';
+import { addMember, createBuilding, errorCode, listRoutes, registerUser, startTestServer, TEST_PASSWORD, type TestServer } from './helpers.ts';
 
 const TABLES = ['users', 'buildings', 'memberships', 'invitations', 'levels', 'stacks', 'stack_ops', 'audit_log', 'outbox', 'mail_log'];
 const HUGE = JSON.stringify({ name: 'x'.repeat(1_200_000) });
@@ -11,6 +11,8 @@ interface Req {
   raw?: string;
   body?: unknown;
   path?: string;
+  /** Sent without the session token. */
+  anonymous?: boolean;
 }
 
 describe('malformed input on every writing route', () => {
@@ -265,7 +267,61 @@ describe('malformed input on every writing route', () => {
       name: 'POST /api/auth/register',
       method: 'POST',
       path: () => '/auth/register',
-      cases: () => [['a password of 1e308', { body: { email: 'r@example.test', password: 1e308, name: 'R' } }]],
+      cases: () => [
+        ['a password of 1e308', { body: { email: 'r@example.test', password: 1e308, name: 'R' } }],
+        ['a password of ten spaces', { body: { email: 'r@example.test', password: ' '.repeat(10), name: 'R' } }],
+        ['a password of 73 bytes', { body: { email: 'r@example.test', password: 'é'.repeat(37), name: 'R' } }],
+        ['an easily guessed password', { body: { email: 'r@example.test', password: 'password123456', name: 'R' } }],
+        ['a password that is the address', { body: { email: 'quillon.marsh@example.test', password: 'quillon.marsh', name: 'R' } }],
+        ['no e-mail address', { body: { password: 'long enough password', name: 'R' } }],
+      ],
+    },
+    {
+      name: 'POST /api/auth/verify',
+      method: 'POST',
+      path: () => '/auth/verify',
+      cases: () => [
+        ['a token that is not a JWT', { body: { token: 'not-a-token' } }],
+        ['a session token instead of a verification link', { body: { token } }],
+        ['a token of 5,000 characters', { body: { token: 'x'.repeat(5000) } }],
+        ['a number', { body: { token: 42 } }],
+      ],
+    },
+    {
+      name: 'POST /api/auth/verify/resend',
+      method: 'POST',
+      path: () => '/auth/verify/resend',
+      // Reads no body; the caller's address is verified already (409).
+      bodyless: true,
+      cases: () => [['an already verified address', {}]],
+    },
+    {
+      name: 'POST /api/auth/logout',
+      method: 'POST',
+      path: () => '/auth/logout',
+      bodyless: true,
+      cases: () => [['no session token', { path: '/auth/logout', body: undefined, anonymous: true }]],
+    },
+    {
+      name: 'POST /api/auth/password',
+      method: 'POST',
+      path: () => '/auth/password',
+      cases: () => [
+        ['a wrong current password', { body: { currentPassword: 'not the password at all', newPassword: 'another long passphrase' } }],
+        ['a weak new password', { body: { currentPassword: TEST_PASSWORD, newPassword: 'password123456' } }],
+        ['a new password of 73 bytes', { body: { currentPassword: TEST_PASSWORD, newPassword: 'é'.repeat(37) } }],
+        ['a number as the new password', { body: { currentPassword: TEST_PASSWORD, newPassword: 12345678901 } }],
+      ],
+    },
+    {
+      name: 'POST /api/auth/password-strength',
+      method: 'POST',
+      path: () => '/auth/password-strength',
+      cases: () => [
+        ['a password of 201 characters', { body: { password: 'x'.repeat(201) } }],
+        ['a number', { body: { password: 1234567890 } }],
+        ['an unknown field', { body: { password: 'x', extra: true } }],
+      ],
     },
   ];
 
@@ -275,7 +331,7 @@ describe('malformed input on every writing route', () => {
       const cases = [...(route.bodyless ? [] : common), ...route.cases()];
       const failures: string[] = [];
       for (const [label, req] of cases) {
-        const r = await s.api(route.method, req.path ?? route.path(), { token, body: req.body, raw: req.raw });
+        const r = await s.api(route.method, req.path ?? route.path(), { token: req.anonymous ? null : token, body: req.body, raw: req.raw });
         const ok = r.status >= 400 && r.status < 500 && errorCode(r.body) !== undefined;
         if (!ok) failures.push(`${label}: ${r.status} ${JSON.stringify(r.body).slice(0, 200)}`);
       }

@@ -1,6 +1,6 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type { BuildingSummary, Member } from '../../shared/schema/api.ts';
-import { addMember, createBuilding, errorCode, registerUser, startTestServer, TEST_PASSWORD, type TestServer } from './helpers.ts';
+import { addMember, createBuilding, errorCode, registerUser, signIn, startTestServer, TEST_PASSWORD, verificationToken, type TestServer } from './helpers.ts';
 
 describe('members and invitations', () => {
   let s: TestServer;
@@ -22,19 +22,26 @@ describe('members and invitations', () => {
     expect(again.status).toBe(409);
   });
 
-  it('invites an address with no account by e-mail naming the building and the inviter, and makes it a member on registration', async () => {
+  it('invites an address with no account by e-mail quoting the building and the inviter, and makes it a member once the address is verified', async () => {
     const lead = await registerUser(s, 'lead');
     const b = await createBuilding(s, lead.token, 'Invented tower');
     const email = `newcomer-${Date.now()}@example.test`;
     const r = await s.api('POST', `/buildings/${b.id}/members`, { token: lead.token, body: { email, role: 'viewer' } });
     expect(r.status).toBe(201);
-    expect(r.body).toEqual({ userId: null, email, name: null, role: 'viewer', pending: true });
+    expect(r.body).toEqual({ userId: null, email, name: null, role: 'viewer', pending: true, expiresAt: expect.any(String) });
     const mail = await s.ctx.db('outbox').where({ to: email }).first<{ subject: string; text: string }>();
-    expect(mail.subject).toContain('Invented tower');
-    expect(mail.text).toContain(lead.user.name);
+    // The building's name is the lead's text: quoted in the body, never in the subject.
+    expect(mail.subject).not.toContain('Invented tower');
+    expect(mail.text).toContain('“Invented tower”');
+    expect(mail.text).toContain(`“${lead.user.name}”`);
 
     const reg = await s.api('POST', '/auth/register', { body: { email, password: TEST_PASSWORD, name: 'Newcomer' } });
-    const token = (reg.body as { token: string }).token;
+    expect(reg.status).toBe(202);
+    // Registered but not verified: the invitation waits.
+    const unverified = await signIn(s, email);
+    expect((await s.api('GET', '/buildings', { token: unverified.token })).body).toEqual([]);
+    expect(await s.api('POST', '/auth/verify', { body: { token: await verificationToken(s, email) } })).toMatchObject({ status: 200 });
+    const token = unverified.token;
     const list = (await s.api('GET', '/buildings', { token })).body as BuildingSummary[];
     expect(list.map((x) => [x.id, x.role])).toEqual([[b.id, 'viewer']]);
     const members = (await s.api('GET', `/buildings/${b.id}/members`, { token })).body as Member[];

@@ -10,7 +10,7 @@ describe('e-mail on freeze (local SMTP fake)', () => {
   let s: TestServer;
   let f: RevisionFixture;
   beforeAll(async () => {
-    s = await startTestServer();
+    s = await startTestServer({ config: { publicUrl: 'https://stanchion.test' } });
     f = await revisionFixture(s);
   });
   afterAll(async () => {
@@ -18,7 +18,8 @@ describe('e-mail on freeze (local SMTP fake)', () => {
   });
 
   it('sends every member one message with a link and the calculation package attached, and records each as sent', async () => {
-    const r = await s.api('POST', `/buildings/${f.buildingId}/revisions`, { token: f.lead.token, body: { note: 'Mail test', purpose: 'preliminary' }, headers: { Origin: 'http://stanchion.test' } });
+    // The link comes from the configured public URL: a crafted Origin header never reaches the mail.
+    const r = await s.api('POST', `/buildings/${f.buildingId}/revisions`, { token: f.lead.token, body: { note: 'Mail test', purpose: 'preliminary' }, headers: { Origin: 'javascript:alert(1)//' } });
     expect(r.status).toBe(201);
     const rev = r.body as RevisionDetail;
     const members = [f.lead, f.engineer, f.viewer].map((m) => m.user.email).sort();
@@ -30,7 +31,8 @@ describe('e-mail on freeze (local SMTP fake)', () => {
     const outbox = ((await s.api('GET', '/dev/outbox', { token: admin.token })).body as OutboxMessage[]).filter((m) => m.subject.includes('P01'));
     expect(outbox.map((m) => m.to).sort()).toEqual(members);
     for (const m of outbox) {
-      expect(m.text).toContain(`http://stanchion.test/buildings/${f.buildingId}/revisions`);
+      expect(m.text).toContain(`https://stanchion.test/buildings/${f.buildingId}/revisions`);
+      expect(`${m.text}${m.html}`).not.toContain('javascript:');
       expect(m.text).toContain(rev.hash);
       expect(m.attachments).toHaveLength(1);
       expect(m.attachments[0].contentType).toBe('application/pdf');

@@ -10,7 +10,18 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type { Express } from 'express';
 import type { AuthResponse, Level, StackSummary } from '../../shared/schema/api.ts';
-import { addMember, createBuilding, makeAdmin, registerUser, startTestServer, type TestServer } from './helpers.ts';
+import {
+  addMember,
+  createBuilding,
+  makeAdmin,
+  registerAndVerify,
+  registerUser,
+  signIn,
+  startTestServer,
+  TEST_PASSWORD,
+  verificationToken,
+  type TestServer,
+} from './helpers.ts';
 
 const ACTORS = ['anonymous', 'outsider', 'viewer', 'engineer', 'lead', 'admin'] as const;
 type Actor = (typeof ACTORS)[number];
@@ -26,12 +37,20 @@ interface Fixture {
   /** A revision frozen once, in a building where the viewer, engineer and lead have the same roles. */
   revisionBuildingId: number;
   revisionId: number;
+  /** A verification link of an account registered for the matrix. */
+  verifyToken: string;
 }
 interface Case {
   path: (f: Fixture) => string;
-  body?: (f: Fixture) => unknown;
+  body?: (f: Fixture, actor: Actor) => unknown;
   expect: Record<Actor, number>;
+  /** The route ends the caller's sessions: the actor signs in again before the next case. */
+  endsSession?: boolean;
 }
+
+const LEAD_EMAIL = 'matrix-lead@example.test';
+const LEAD_PASSWORD = 'long enough password';
+const passwordOf = (actor: Actor) => (actor === 'lead' ? LEAD_PASSWORD : TEST_PASSWORD);
 
 const all = (status: number): Record<Actor, number> => ({ anonymous: status, outsider: status, viewer: status, engineer: status, lead: status, admin: status });
 const signedIn = (status: number) => ({ ...all(status), anonymous: 401 });
@@ -46,8 +65,20 @@ const template = { storeys: 2, storeyHeight: 3.5, sections: ['UKC 203x203x46'], 
 
 const MATRIX: Record<string, Case> = {
   'GET /api/health': { path: () => '/health', expect: all(200) },
-  'POST /api/auth/register': { path: () => '/auth/register', body: () => ({ email: fresh(), password: 'long enough password', name: 'New' }), expect: all(201) },
-  'POST /api/auth/login': { path: () => '/auth/login', body: () => ({ email: 'matrix-lead@example.test', password: 'long enough password' }), expect: all(200) },
+  'POST /api/auth/register': { path: () => '/auth/register', body: () => ({ email: fresh(), password: 'long enough password', name: 'New' }), expect: all(202) },
+  // Public: the link's token is what proves the owner; following it twice is harmless.
+  'POST /api/auth/verify': { path: () => '/auth/verify', body: (f) => ({ token: f.verifyToken }), expect: all(200) },
+  // Every caller of the matrix has a verified address already.
+  'POST /api/auth/verify/resend': { path: () => '/auth/verify/resend', expect: signedIn(409) },
+  'POST /api/auth/logout': { path: () => '/auth/logout', expect: { ...signedIn(204) }, endsSession: true },
+  'POST /api/auth/password': {
+    path: () => '/auth/password',
+    body: (f, actor) => ({ currentPassword: passwordOf(actor), newPassword: passwordOf(actor) }),
+    expect: signedIn(200),
+    endsSession: true,
+  },
+  'POST /api/auth/password-strength': { path: () => '/auth/password-strength', body: () => ({ password: 'long enough password' }), expect: all(200) },
+  'POST /api/auth/login': { path: () => '/auth/login', body: () => ({ email: LEAD_EMAIL, password: LEAD_PASSWORD }), expect: all(200) },
   'GET /api/me': { path: () => '/me', expect: signedIn(200) },
   'GET /api/buildings': { path: () => '/buildings', expect: signedIn(200) },
   'POST /api/buildings': { path: () => '/buildings', body: () => ({ name: 'Another' }), expect: signedIn(201) },
@@ -118,12 +149,13 @@ function registeredRoutes(app: Express): string[] {
 describe('the role matrix', () => {
   let s: TestServer;
   const tokens = {} as Record<Exclude<Actor, 'anonymous'>, AuthResponse>;
+  let verifyToken = '';
 
   beforeAll(async () => {
     s = await startTestServer({ config: { loginRateLimit: { windowMs: 60_000, max: 10_000 } } });
     for (const actor of ['outsider', 'viewer', 'engineer', 'admin'] as const) tokens[actor] = await registerUser(s, actor);
-    const r = await s.api('POST', '/auth/register', { body: { email: 'matrix-lead@example.test', password: 'long enough password', name: 'Lead' } });
-    tokens.lead = r.body as AuthResponse;
+    tokens.lead = await registerAndVerify(s, LEAD_EMAIL, 'Lead', LEAD_PASSWORD);
+    verifyToken = await verificationToken(s, LEAD_EMAIL);
     await makeAdmin(s, tokens.admin.user.id);
     await s.ctx.mailer.sendMail({ to: 'x@example.test', subject: 'Attachment', text: 'x', attachments: [{ filename: 'a.txt', content: Buffer.from('abc') }] });
   });
@@ -155,7 +187,7 @@ describe('the role matrix', () => {
     const level = (await s.api('POST', `/buildings/${b.id}/levels`, { token: lead, body: { name: 'Spare', elevation: 40 } })).body as Level;
     const stack = (await s.api('POST', `/buildings/${b.id}/stacks`, { token: lead, body: { name: 'M/1', template } })).body as StackSummary;
     const outbox = await s.ctx.db('outbox').where({ subject: 'Attachment' }).first<{ id: number }>('id');
-    return { buildingId: b.id, levelId: level.id, stackId: stack.id, version: stack.version, engineerId: tokens.engineer.user.id, viewerId: tokens.viewer.user.id, outboxId: outbox.id, ...(await sharedRevision()) };
+    return { buildingId: b.id, levelId: level.id, stackId: stack.id, version: stack.version, engineerId: tokens.engineer.user.id, viewerId: tokens.viewer.user.id, outboxId: outbox.id, verifyToken, ...(await sharedRevision()) };
   }
 
   it('covers every registered route, and every route in it exists', () => {
@@ -169,7 +201,8 @@ describe('the role matrix', () => {
         const f = await fixture();
         const [method] = route.split(' ');
         const token = actor === 'anonymous' ? null : tokens[actor].token;
-        got[actor] = (await s.api(method, c.path(f), { token, body: c.body?.(f) })).status;
+        got[actor] = (await s.api(method, c.path(f), { token, body: c.body?.(f, actor) })).status;
+        if (c.endsSession && actor !== 'anonymous') tokens[actor] = await signIn(s, tokens[actor].user.email, passwordOf(actor));
       }
       expect(got).toEqual(c.expect);
     });
