@@ -4,13 +4,13 @@ import { createServer, type Server } from 'node:http';
 import type { AddressInfo } from 'node:net';
 import type { Express } from 'express';
 import { pino } from 'pino';
-import { createClient } from 'redis';
 import { createApp } from './app.ts';
 import { loadConfig, type ConfigOverrides } from './config.ts';
 import type { RedisClient, ServerContext } from './context.ts';
 import { createDb, migrate } from './db.ts';
 import { createMailer } from './mail/mailer.ts';
 import { createOffThread } from './offThread/pool.ts';
+import { closeRedis, connectBounded, createRedisClient, REDIS_START_WAIT_MS } from './redis.ts';
 import { nullBroadcaster } from './services/broadcast.ts';
 import { attachRealtime, type Realtime } from './realtime/index.ts';
 
@@ -71,7 +71,7 @@ export async function startServer(opts: StartOptions = {}): Promise<RunningServe
       httpServer.closeAllConnections();
       // Closes the live channel's sockets and the HTTP listener.
       await realtime.close();
-      await redis?.quit().catch(() => undefined);
+      await closeRedis(redis);
       await offThread.close();
       await mailer.close();
       await db.destroy();
@@ -81,11 +81,10 @@ export async function startServer(opts: StartOptions = {}): Promise<RunningServe
   return { url: `http://127.0.0.1:${port}`, port, app, httpServer, ctx, realtime, close };
 }
 
+/** The client of the sign-in limit: commands fail at once while Redis is away, so sign-in answers 503. */
 async function connectRedis(url: string, logLevel: string): Promise<RedisClient> {
   const log = pino({ level: logLevel, name: 'redis' });
-  const client: RedisClient = createClient({ url });
-  // Without a listener a dropped connection would end the process; the client reconnects by itself.
-  client.on('error', (err: unknown) => log.error({ err }, 'redis connection error'));
-  await client.connect();
+  const client = createRedisClient(url, 'counters', log, { queueWhileOffline: false });
+  await connectBounded(client, REDIS_START_WAIT_MS, log, 'counters');
   return client;
 }

@@ -1,22 +1,20 @@
 // Accounts: register, sign in, who am I (issue 2).
 import type { Router } from 'express';
 import { rateLimit } from 'express-rate-limit';
-import { RedisStore } from 'rate-limit-redis';
 import { loginBodySchema, registerBodySchema, type AuthResponse } from '../../shared/schema/api.ts';
 import type { ServerContext } from '../context.ts';
 import { HttpError } from '../errors.ts';
 import { currentUser, requireAuth } from '../middleware/auth.ts';
+import { signInLimitStore } from '../middleware/signInLimitStore.ts';
 import { parseBody } from '../middleware/validate.ts';
 import { signToken } from '../services/tokens.ts';
 import { registerUser, verifyLogin } from '../services/users.ts';
-
-type SendCommand = Extract<ConstructorParameters<typeof RedisStore>[0], { sendCommand: unknown }>['sendCommand'];
 
 export function registerAuthRoutes(router: Router, ctx: ServerContext): void {
   const { redis } = ctx;
   const loginLimiter = rateLimit({
     // Counted in Redis when processes share it, so a second process is not a second allowance.
-    ...(redis ? { store: new RedisStore({ sendCommand: (...args) => redis.sendCommand(args) as ReturnType<SendCommand>, prefix: `${ctx.config.redisPrefix}#login:` }) } : {}),
+    ...(redis ? { store: signInLimitStore(redis, `${ctx.config.redisPrefix}#login:`) } : {}),
     windowMs: ctx.config.loginRateLimit.windowMs,
     limit: ctx.config.loginRateLimit.max,
     standardHeaders: 'draft-8',
