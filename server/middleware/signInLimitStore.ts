@@ -5,12 +5,12 @@
 import type { Options } from 'express-rate-limit';
 import { RedisStore } from 'rate-limit-redis';
 import type { RedisClient } from '../context.ts';
-import { HttpError } from '../errors.ts';
+import { unavailable as unavailableError } from '../errors.ts';
 import { boundedCommand } from '../redis.ts';
 
 type SendCommand = Extract<ConstructorParameters<typeof RedisStore>[0], { sendCommand: unknown }>['sendCommand'];
 
-const unavailable = () => new HttpError(503, 'unavailable', 'Sign-in is briefly unavailable (the shared counter cannot be reached); try again in a minute');
+const unavailable = () => unavailableError('Sign-in is briefly unavailable (the shared counter cannot be reached); try again in a minute', 30);
 
 /**
  * RedisStore keeps the promise of its script load from start-up; when Redis was away then, that

@@ -1,5 +1,5 @@
 // Revisions (issue 8): leads freeze; every member reads, downloads the package and compares.
-import type { Request, Router } from 'express';
+import type { Request, RequestHandler, Router } from 'express';
 import { compareQuerySchema, freezeBodySchema } from '../../shared/schema/revisions.ts';
 import type { ServerContext } from '../context.ts';
 import { currentAccess, currentUser, requireAuth } from '../middleware/auth.ts';
@@ -9,6 +9,7 @@ import { buildingOfRevisionId, freezeRevision, getRevision, listRevisions, loadS
 import { compareRevisions } from '../services/revisionsCompare.ts';
 import { packageFilename, sendRevisionMail } from '../services/revisionsMail.ts';
 import { ENGINE_VERSION } from '../../shared/engine/version.ts';
+import { now } from '../db.ts';
 
 /** Where the e-mail's link points: the page the lead froze from (Origin), else this server. */
 function revisionsLink(req: Request, buildingId: number): string {
@@ -16,16 +17,23 @@ function revisionsLink(req: Request, buildingId: number): string {
   return `${origin}/buildings/${buildingId}/revisions`;
 }
 
+/** When each freeze request reached this process, before it waited for the database (see freezeRevision). */
+const arrivals = new WeakMap<Request, string>();
+const stampArrival: RequestHandler = (req, _res, next) => {
+  arrivals.set(req, now());
+  next();
+};
+
 export function registerRevisionRoutes(router: Router, ctx: ServerContext): void {
   const auth = requireAuth(ctx);
   const ofRevision = (db: ServerContext['db'], req: Request) => buildingOfRevisionId(db, idParam(req));
   const revisionViewer = requireRole(ctx, 'viewer', ofRevision);
   const revisionLead = requireRole(ctx, 'lead', ofRevision);
 
-  router.post('/buildings/:id/revisions', auth, requireRole(ctx, 'lead'), async (req, res) => {
+  router.post('/buildings/:id/revisions', stampArrival, auth, requireRole(ctx, 'lead'), async (req, res) => {
     const body = parseBody(freezeBodySchema, req);
     const { buildingId } = currentAccess(req);
-    const { id, snapshot, hash } = await freezeRevision(ctx.db, buildingId, { ...body, engineVersion: ENGINE_VERSION }, currentUser(req));
+    const { id, snapshot, hash } = await freezeRevision(ctx.db, buildingId, { ...body, engineVersion: ENGINE_VERSION }, currentUser(req), arrivals.get(req) ?? now());
     // Committed: from here on a failure to send is recorded per recipient and never undoes the freeze.
     const pdf = await ctx.offThread.renderPackage(snapshot, hash);
     await sendRevisionMail(ctx, id, snapshot, hash, revisionsLink(req, buildingId), pdf);

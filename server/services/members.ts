@@ -2,8 +2,8 @@
 // becomes a membership when the account is registered (issue 5).
 import type { Knex } from 'knex';
 import { ROLE_RANK, type Member, type Role, type User } from '../../shared/schema/api.ts';
-import { conflict, notFound, unprocessable } from '../errors.ts';
-import { now } from '../db.ts';
+import { conflict, forbidden, notFound, unprocessable } from '../errors.ts';
+import { isPostgres, now } from '../db.ts';
 import type { Mailer } from '../mail/mailer.ts';
 import { invitationMessage } from '../mail/messages.ts';
 import { recordAudit } from './audit.ts';
@@ -52,6 +52,18 @@ export async function addMember(db: Knex, mailer: Mailer, buildingId: number, em
   return outcome.member;
 }
 
+/**
+ * Locks the building's memberships for the rest of the transaction (PostgreSQL; SQLite has one writer)
+ * and checks the caller is still a lead: two leads removing each other at once are then serialised,
+ * and the second finds itself no longer a lead (or the last one) instead of leaving no lead at all.
+ */
+async function lockMemberships(trx: Knex, buildingId: number, by: User): Promise<void> {
+  const query = trx('memberships').where({ building_id: buildingId });
+  if (isPostgres(trx)) query.forUpdate();
+  const rows = await query.select<{ user_id: number; role: Role }[]>('user_id', 'role');
+  if (rows.find((r) => r.user_id === by.id)?.role !== 'lead') throw forbidden('You are no longer a lead of this building');
+}
+
 async function assertLeadRemains(trx: Knex, buildingId: number, userId: number, newRole: Role | null): Promise<void> {
   const current = await trx('memberships').where({ building_id: buildingId, user_id: userId }).first<{ role: Role } | undefined>('role');
   if (!current) throw notFound('Member');
@@ -62,6 +74,7 @@ async function assertLeadRemains(trx: Knex, buildingId: number, userId: number, 
 
 export async function updateMemberRole(db: Knex, buildingId: number, userId: number, role: Role, by: User): Promise<Member> {
   return db.transaction(async (trx) => {
+    await lockMemberships(trx, buildingId, by);
     await assertLeadRemains(trx, buildingId, userId, role);
     await trx('memberships').where({ building_id: buildingId, user_id: userId }).update({ role });
     await recordAudit(trx, { userId: by.id, buildingId, action: 'member.role', detail: { memberId: userId, role } });
@@ -72,6 +85,7 @@ export async function updateMemberRole(db: Knex, buildingId: number, userId: num
 
 export async function removeMember(db: Knex, buildingId: number, userId: number, by: User): Promise<void> {
   await db.transaction(async (trx) => {
+    await lockMemberships(trx, buildingId, by);
     await assertLeadRemains(trx, buildingId, userId, null);
     await trx('memberships').where({ building_id: buildingId, user_id: userId }).delete();
     await recordAudit(trx, { userId: by.id, buildingId, action: 'member.remove', detail: { memberId: userId } });
@@ -92,5 +106,26 @@ export async function updateInvitationRole(db: Knex, buildingId: number, email: 
     if (n === 0) throw notFound('Invitation');
     await recordAudit(trx, { userId: by.id, buildingId, action: 'member.invite-role', detail: { email, role } });
     return { userId: null, email, name: null, role, pending: true };
+  });
+}
+
+/**
+ * A site admin gives a building that has no lead (a race before the lock above, or a database edited
+ * by hand) a lead again: an existing account, made a member or raised to lead. Refused (409) while
+ * the building still has a lead, who can do this themselves.
+ */
+export async function restoreLead(db: Knex, buildingId: number, email: string, by: User): Promise<Member> {
+  return db.transaction(async (trx) => {
+    const buildingQuery = trx('buildings').where({ id: buildingId });
+    if (isPostgres(trx)) buildingQuery.forUpdate();
+    if (!(await buildingQuery.first('id'))) throw notFound('Building');
+    const leads = await trx('memberships').where({ building_id: buildingId, role: 'lead' }).count<{ n: number | string }[]>({ n: '*' });
+    if (Number(leads[0].n) > 0) throw conflict('This building has a lead; the lead manages its members');
+    const user = await trx('users').where({ email }).first<{ id: number; name: string } | undefined>('id', 'name');
+    if (!user) throw unprocessable(`There is no account for ${email}; the new lead must register first`);
+    const updated = await trx('memberships').where({ building_id: buildingId, user_id: user.id }).update({ role: 'lead' });
+    if (updated === 0) await trx('memberships').insert({ building_id: buildingId, user_id: user.id, role: 'lead', created_at: now() });
+    await recordAudit(trx, { userId: by.id, buildingId, action: 'member.restore-lead', detail: { email } });
+    return { userId: user.id, email, name: user.name, role: 'lead', pending: false };
   });
 }

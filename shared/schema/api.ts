@@ -59,6 +59,8 @@ export interface Building extends BuildingSummary {
 
 export const addMemberBodySchema = z.object({ email: emailSchema, role: roleSchema }).strict();
 export const updateMemberBodySchema = z.object({ role: roleSchema }).strict();
+/** A site admin gives a building with no lead a lead again (docs/faults.md). */
+export const restoreLeadBodySchema = z.object({ email: emailSchema }).strict();
 export interface Member {
   userId: number | null;
   email: string;

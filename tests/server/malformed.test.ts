@@ -239,6 +239,17 @@ describe('malformed input on every writing route', () => {
         ['a revision id of -1', { path: '/revisions/-1/resend' }],
       ],
     },
+    {
+      name: 'POST /api/admin/buildings/:id/lead',
+      method: 'POST',
+      path: () => `/admin/buildings/${ids.building}/lead`,
+      cases: () => [
+        ['no e-mail', { body: {} }],
+        ['an e-mail that is a number', { body: { email: 1e308 } }],
+        ['an unknown field', { body: { email: 'a@example.test', role: 'viewer' } }],
+        ['a building id of NaN', { path: '/admin/buildings/NaN/lead', body: { email: 'a@example.test' } }],
+      ],
+    },
     ...(['stacks', 'buildings'] as const).map((scope) => ({
       name: `POST /api/${scope}/:id/sizing`,
       method: 'POST',
