@@ -9,6 +9,7 @@ import { loadConfig, type ConfigOverrides } from './config.ts';
 import type { RedisClient, ServerContext } from './context.ts';
 import { createDb, migrate } from './db.ts';
 import { createMailer } from './mail/mailer.ts';
+import { startMailSender } from './mail/mailSender.ts';
 import { createOffThread } from './offThread/pool.ts';
 import { closeRedis, connectBounded, createRedisClient, REDIS_START_WAIT_MS } from './redis.ts';
 import { nullBroadcaster } from './services/broadcast.ts';
@@ -55,7 +56,7 @@ export async function startServer(opts: StartOptions = {}): Promise<RunningServe
   const mailer = await createMailer(config, db);
   const redis = config.redisUrl ? await connectRedis(config.redisUrl, config.logLevel) : null;
   const offThread = createOffThread();
-  const ctx: ServerContext = { db, config, mailer, broadcaster: nullBroadcaster, redis, offThread };
+  const ctx: ServerContext = { db, config, mailer, broadcaster: nullBroadcaster, redis, offThread, outbox: { kick: () => undefined } };
   const app = createApp(ctx);
   const httpServer = createServer(app);
   const realtime = await attachRealtime(httpServer, ctx);
@@ -64,6 +65,8 @@ export async function startServer(opts: StartOptions = {}): Promise<RunningServe
     httpServer.listen(config.port, () => resolve());
   });
   const { port } = httpServer.address() as AddressInfo;
+  const mailSender = startMailSender(ctx, pino({ level: config.logLevel, name: 'mail' }));
+  ctx.outbox = mailSender;
 
   let closing: Promise<void> | null = null;
   const close = () => {
@@ -71,6 +74,7 @@ export async function startServer(opts: StartOptions = {}): Promise<RunningServe
       httpServer.closeAllConnections();
       // Closes the live channel's sockets and the HTTP listener.
       await realtime.close();
+      await mailSender.stop();
       await closeRedis(redis);
       await offThread.close();
       await mailer.close();

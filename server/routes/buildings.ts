@@ -36,7 +36,7 @@ export function registerBuildingRoutes(router: Router, ctx: ServerContext): void
   });
   router.post('/buildings/:id/members', auth, lead, async (req, res) => {
     const { email, role } = parseBody(addMemberBodySchema, req);
-    res.status(201).json(await addMember(ctx.db, ctx.mailer, currentAccess(req).buildingId, email, role, currentUser(req)));
+    res.status(201).json(await addMember(ctx.db, ctx.outbox, currentAccess(req).buildingId, email, role, currentUser(req)));
   });
   // :memberId is the user id of a member, or the e-mail address of a pending invitation.
   router.patch('/buildings/:id/members/:memberId', auth, lead, async (req, res) => {

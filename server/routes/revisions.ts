@@ -1,5 +1,6 @@
 // Revisions (issue 8): leads freeze; every member reads, downloads the package and compares.
 import type { Request, RequestHandler, Router } from 'express';
+import { z } from 'zod';
 import { compareQuerySchema, freezeBodySchema } from '../../shared/schema/revisions.ts';
 import type { ServerContext } from '../context.ts';
 import { currentAccess, currentUser, requireAuth } from '../middleware/auth.ts';
@@ -7,7 +8,8 @@ import { requireRole } from '../middleware/access.ts';
 import { idParam, parseBody, parseQuery } from '../middleware/validate.ts';
 import { buildingOfRevisionId, freezeRevision, getRevision, listRevisions, loadSnapshot } from '../services/revisions.ts';
 import { compareRevisions } from '../services/revisionsCompare.ts';
-import { packageFilename, sendRevisionMail } from '../services/revisionsMail.ts';
+import { packageFilename, resendRevisionMail } from '../services/revisionsMail.ts';
+import { issuedPackage, packageCopy, redrawCopy } from '../services/revisionPackages.ts';
 import { ENGINE_VERSION } from '../../shared/engine/version.ts';
 import { now } from '../db.ts';
 
@@ -33,11 +35,13 @@ export function registerRevisionRoutes(router: Router, ctx: ServerContext): void
   router.post('/buildings/:id/revisions', stampArrival, auth, requireRole(ctx, 'lead'), async (req, res) => {
     const body = parseBody(freezeBodySchema, req);
     const { buildingId } = currentAccess(req);
-    const { id, snapshot, hash } = await freezeRevision(ctx.db, buildingId, { ...body, engineVersion: ENGINE_VERSION }, currentUser(req), arrivals.get(req) ?? now());
-    // Committed: from here on a failure to send is recorded per recipient and never undoes the freeze.
-    const pdf = await ctx.offThread.renderPackage(snapshot, hash);
-    await sendRevisionMail(ctx, id, snapshot, hash, revisionsLink(req, buildingId), pdf);
+    const { id } = await freezeRevision(ctx.db, buildingId, { ...body, link: revisionsLink(req, buildingId), engineVersion: ENGINE_VERSION }, currentUser(req), arrivals.get(req) ?? now());
+    // Committed, with the package due and the e-mails queued: answer now. The package is drawn once in
+    // the background (or by the mail sender, or the first download, whichever comes first).
     res.status(201).json(await getRevision(ctx.db, id));
+    void issuedPackage(ctx, id)
+      .catch((err: unknown) => req.log.warn({ err, revisionId: id }, 'package not drawn yet; the mail sender or the first download draws it'))
+      .finally(() => ctx.outbox.kick());
   });
   router.get('/buildings/:id/revisions', auth, requireRole(ctx, 'viewer'), async (req, res) => {
     res.json(await listRevisions(ctx.db, currentAccess(req).buildingId));
@@ -49,18 +53,28 @@ export function registerRevisionRoutes(router: Router, ctx: ServerContext): void
   router.get('/revisions/:id', auth, revisionViewer, async (req, res) => {
     res.json(await getRevision(ctx.db, idParam(req)));
   });
+  // ?copy=n serves a re-drawn copy; without it, the issued package as stored (verified on read).
   router.get('/revisions/:id/calc.pdf', auth, revisionViewer, async (req, res) => {
-    const { snapshot, hash } = await loadSnapshot(ctx.db, idParam(req));
-    const pdf = await ctx.offThread.renderPackage(snapshot, hash);
+    const { copy } = parseQuery(copyQuerySchema, req);
+    const id = idParam(req);
+    const pkg = await packageCopy(ctx, id, copy);
+    const { snapshot } = await loadSnapshot(ctx.db, id);
     res.setHeader('Content-Type', 'application/pdf');
-    res.setHeader('Content-Disposition', `attachment; filename="${packageFilename(snapshot)}"`);
-    res.send(pdf);
+    res.setHeader('Content-Disposition', `attachment; filename="${packageFilename(snapshot).replace(/\.pdf$/, copy ? `-redrawn-copy-${copy}.pdf` : '.pdf')}"`);
+    res.setHeader('X-Package-SHA256', pkg.sha256);
+    res.send(pkg.bytes);
   });
   router.post('/revisions/:id/resend', auth, revisionLead, async (req, res) => {
     const id = idParam(req);
     const { snapshot, hash } = await loadSnapshot(ctx.db, id);
-    const pdf = await ctx.offThread.renderPackage(snapshot, hash);
-    await sendRevisionMail(ctx, id, snapshot, hash, revisionsLink(req, snapshot.building.id), pdf);
+    await resendRevisionMail(ctx, id, snapshot, hash, revisionsLink(req, snapshot.building.id));
     res.json(await getRevision(ctx.db, id));
   });
+  // Only when the issued package is tampered or lost: a new copy, marked as re-drawn on every page.
+  router.post('/revisions/:id/package/redraw', auth, revisionLead, async (req, res) => {
+    const pkg = await redrawCopy(ctx, idParam(req), currentUser(req));
+    res.status(201).json({ copy: pkg.copy, sha256: pkg.sha256, size: pkg.bytes.length, reason: pkg.reason });
+  });
 }
+
+const copyQuerySchema = z.object({ copy: z.coerce.number().int().min(0).max(10_000).default(0) });

@@ -4,7 +4,7 @@ import type { Knex } from 'knex';
 import { ROLE_RANK, type Member, type Role, type User } from '../../shared/schema/api.ts';
 import { conflict, forbidden, notFound, unprocessable } from '../errors.ts';
 import { isPostgres, now } from '../db.ts';
-import type { Mailer } from '../mail/mailer.ts';
+import { enqueueMail } from '../mail/mailQueue.ts';
 import { invitationMessage } from '../mail/messages.ts';
 import { recordAudit } from './audit.ts';
 
@@ -24,14 +24,23 @@ export async function listMembers(db: Knex, buildingId: number): Promise<Member[
     .orderBy('u.email')
     .select<{ user_id: number; email: string; name: string; role: Role }[]>('m.user_id', 'u.email', 'u.name', 'm.role');
   const invited = await db('invitations').where({ building_id: buildingId }).orderBy('email').select<{ email: string; role: Role }[]>('email', 'role');
+  // The latest invitation e-mail to each address, so the lead sees one that could not be sent.
+  const mails = await db('mail_queue').where({ building_id: buildingId, kind: 'invitation' }).orderBy('id').select<{ to: string; status: string; attempts: number; last_error: string | null }[]>('to', 'status', 'attempts', 'last_error');
+  const mailTo = new Map(mails.map((m) => [m.to, { status: m.status === 'sent' ? 'sent' : m.status === 'failed' ? 'failed' : 'pending', attempts: Number(m.attempts), error: m.last_error } as const]));
   return [
     ...members.map((m) => ({ userId: m.user_id, email: m.email, name: m.name, role: m.role, pending: false })),
-    ...invited.map((i) => ({ userId: null, email: i.email, name: null, role: i.role, pending: true })),
+    ...invited.map((i) => {
+      const mail = mailTo.get(i.email);
+      return { userId: null, email: i.email, name: null, role: i.role, pending: true, ...(mail ? { invitationMail: mail } : {}) };
+    }),
   ];
 }
 
-/** Adds an account as a member, or invites an address with no account (and e-mails it after commit). */
-export async function addMember(db: Knex, mailer: Mailer, buildingId: number, email: string, role: Role, by: User): Promise<Member> {
+/**
+ * Adds an account as a member, or invites an address with no account: the invitation e-mail is queued
+ * in the same transaction and sent by the background sender; listMembers shows whether it went.
+ */
+export async function addMember(db: Knex, outbox: { kick(): void }, buildingId: number, email: string, role: Role, by: User): Promise<Member> {
   const outcome = await db.transaction(async (trx) => {
     const building = await trx('buildings').where({ id: buildingId }).first<{ name: string } | undefined>('name');
     if (!building) throw notFound('Building');
@@ -41,14 +50,15 @@ export async function addMember(db: Knex, mailer: Mailer, buildingId: number, em
       if (existing) throw conflict(`${email} is already a member of this building`);
       await trx('memberships').insert({ building_id: buildingId, user_id: user.id, role, created_at: now() });
       await recordAudit(trx, { userId: by.id, buildingId, action: 'member.add', detail: { email, role } });
-      return { member: { userId: user.id, email, name: user.name, role, pending: false }, buildingName: building.name, invite: false };
+      return { member: { userId: user.id, email, name: user.name, role, pending: false } satisfies Member, invite: false };
     }
     await trx('invitations').where({ building_id: buildingId, email }).delete();
     await trx('invitations').insert({ building_id: buildingId, email, role, invited_by: by.id, created_at: now() });
     await recordAudit(trx, { userId: by.id, buildingId, action: 'member.invite', detail: { email, role } });
-    return { member: { userId: null, email, name: null, role, pending: true }, buildingName: building.name, invite: true };
+    await enqueueMail(trx, [{ kind: 'invitation', message: invitationMessage({ to: email, buildingName: building.name, inviterName: by.name, role }), buildingId }]);
+    return { member: { userId: null, email, name: null, role, pending: true, invitationMail: { status: 'pending', attempts: 0, error: null } } satisfies Member, invite: true };
   });
-  if (outcome.invite) await mailer.sendMail(invitationMessage({ to: email, buildingName: outcome.buildingName, inviterName: by.name, role }));
+  if (outcome.invite) outbox.kick();
   return outcome.member;
 }
 

@@ -18,6 +18,8 @@ import { onUniqueViolation } from '../dbErrors.ts';
 import { summariseResult } from './analysis.ts';
 import { recordAudit } from './audit.ts';
 import { listRecipients } from './revisionsRecipients.ts';
+import { revisionMessage } from './revisionsMail.ts';
+import { enqueueMail } from '../mail/mailQueue.ts';
 import { sha256Hex, snapshotStacks, takeSnapshot } from './snapshot.ts';
 
 export interface RevisionRow {
@@ -39,6 +41,8 @@ export interface RevisionRow {
 const SUMMARY_COLUMNS = ['id', 'building_id', 'code', 'purpose', 'note', 'acknowledgement', 'hash', 'engine_version', 'frozen_by', 'frozen_by_name', 'frozen_at', 'stack_count', 'worst_utilisation', 'failing_lifts'];
 
 export interface FreezeInput {
+  /** Where the e-mail's link points (the revisions page of the building). */
+  link: string;
   /** See freezeBodySchema: the newest revision the sender has seen; undefined when not said. */
   afterRevisionId?: number | null;
   note: string;
@@ -148,8 +152,14 @@ async function freezeIn(db: Knex, buildingId: number, input: FreezeInput, user: 
       .join('users as u', 'u.id', 'm.user_id')
       .where('m.building_id', buildingId)
       .select<{ id: number; email: string; name: string }[]>('u.id', 'u.email', 'u.name');
-    if (members.length > 0) {
-      await trx('revision_recipients').insert(members.map((m) => ({ revision_id: row.id, user_id: m.id, email: m.email, name: m.name, status: 'pending', attempts: 0, updated_at: frozenAt })));
+    // The issued package is due (drawn once after commit, revisionPackages.ts), and each member's
+    // e-mail is queued in this transaction, so a crash after commit still sends it (mailSender.ts).
+    await trx('revision_packages').insert({ revision_id: row.id, copy: 0, created_at: frozenAt });
+    for (const m of members) {
+      const [recipient] = await trx('revision_recipients')
+        .insert({ revision_id: row.id, user_id: m.id, email: m.email, name: m.name, status: 'pending', attempts: 0, updated_at: frozenAt })
+        .returning<{ id: number }[]>('id');
+      await enqueueMail(trx, [{ kind: 'revision', message: revisionMessage(snapshot, hash, m.email, input.link), attachRevisionId: row.id, recipientId: recipient.id, buildingId }]);
     }
     await recordAudit(trx, { userId: user.id, buildingId, action: 'revision.freeze', detail: { revisionId: row.id, code, hash, failingLifts: failing.length } });
     return { id: row.id, snapshot, hash };

@@ -68,6 +68,8 @@ export interface Member {
   role: Role;
   /** true while the address has no account yet (invitation sent). */
   pending: boolean;
+  /** For an invitation: whether its e-mail went out (the outbox retries; failed is given up). */
+  invitationMail?: { status: 'pending' | 'sent' | 'failed'; attempts: number; error: string | null };
 }
 
 export const createLevelBodySchema = z

@@ -4,7 +4,7 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type { Level, StackDetail, StackSummary } from '../../shared/schema/api.ts';
 import { addMember, createBuilding, errorCode, listRoutes, registerUser, startTestServer, type TestServer } from './helpers.ts';
 
-const TABLES = ['users', 'buildings', 'memberships', 'invitations', 'levels', 'stacks', 'stack_ops', 'audit_log', 'outbox', 'mail_log'];
+const TABLES = ['users', 'buildings', 'memberships', 'invitations', 'levels', 'stacks', 'stack_ops', 'audit_log', 'outbox', 'mail_log', 'mail_queue', 'revision_packages'];
 const HUGE = JSON.stringify({ name: 'x'.repeat(1_200_000) });
 
 interface Req {
@@ -237,6 +237,16 @@ describe('malformed input on every writing route', () => {
       cases: () => [
         ['NaN as the revision id', { path: '/revisions/NaN/resend' }],
         ['a revision id of -1', { path: '/revisions/-1/resend' }],
+      ],
+    },
+    {
+      name: 'POST /api/revisions/:id/package/redraw',
+      method: 'POST',
+      path: () => '/revisions/1/package/redraw',
+      bodyless: true,
+      cases: () => [
+        ['NaN as the revision id', { path: '/revisions/NaN/package/redraw' }],
+        ['a revision id of 1e308', { path: '/revisions/1e308/package/redraw' }],
       ],
     },
     {
