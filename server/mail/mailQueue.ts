@@ -91,3 +91,18 @@ export async function requeueFailed(db: Knex, revisionId: number): Promise<numbe
     .where({ attach_revision_id: revisionId, status: 'failed' })
     .update({ status: 'pending', attempts: 0, next_attempt_at: Date.now(), updated_at: now() });
 }
+
+/**
+ * Renews this owner's claim just before the SMTP exchange; false when the claim was lost (the lease
+ * ran out while the message was being prepared and another process took the row): then do not send.
+ */
+export async function renewClaim(db: Knex, mail: QueuedMail, owner: string, leaseMs: number): Promise<boolean> {
+  const n = await db('mail_queue').where({ id: mail.id, claimed_by: owner, status: 'sending' }).update({ claimed_until: Date.now() + leaseMs, updated_at: now() });
+  return n === 1;
+}
+
+/** Revisions whose packages due mail will attach: drawn before any row is claimed. */
+export async function dueAttachments(db: Knex, limit: number): Promise<number[]> {
+  const rows = await db('mail_queue').where({ status: 'pending' }).andWhere('next_attempt_at', '<=', Date.now()).whereNotNull('attach_revision_id').distinct('attach_revision_id').limit(limit);
+  return rows.map((r: { attach_revision_id: number }) => r.attach_revision_id);
+}

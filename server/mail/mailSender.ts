@@ -11,7 +11,7 @@ import { now } from '../db.ts';
 import { packageFilename } from '../services/revisionsMail.ts';
 import { issuedPackage } from '../services/revisionPackages.ts';
 import { loadSnapshot } from '../services/revisions.ts';
-import { claimDue, recordAttempt, type QueuedMail, type QueueStatus } from './mailQueue.ts';
+import { claimDue, dueAttachments, recordAttempt, renewClaim, type QueuedMail, type QueueStatus } from './mailQueue.ts';
 import type { MailMessage } from './mailer.ts';
 
 const MAX_RETRY_DELAY_MS = 60 * 60_000;
@@ -55,7 +55,12 @@ export function startMailSender(ctx: ServerContext, log: Logger): MailSender {
   async function sendOne(mail: QueuedMail): Promise<void> {
     let error: string | null;
     try {
-      error = await ctx.mailer.trySend(await messageOf(ctx, mail), mail.attempts + 1);
+      const message = await messageOf(ctx, mail);
+      if (!(await renewClaim(ctx.db, mail, owner, leaseMs))) {
+        log.warn({ id: mail.id }, 'mail claim lost before sending; another process has it');
+        return;
+      }
+      error = await ctx.mailer.trySend(message, mail.attempts + 1);
     } catch (e) {
       error = e instanceof Error ? e.message : String(e);
     }
@@ -69,6 +74,10 @@ export function startMailSender(ctx: ServerContext, log: Logger): MailSender {
   async function tick(): Promise<void> {
     do {
       again = false;
+      // Packages are drawn before any row is claimed, so a claim's lease covers only the SMTP exchange.
+      for (const revisionId of await dueAttachments(ctx.db, BATCH)) {
+        await issuedPackage(ctx, revisionId).catch((err: unknown) => log.warn({ err, revisionId }, 'package for mail not drawn; the send will report it'));
+      }
       const batch = await claimDue(ctx.db, owner, leaseMs, BATCH);
       for (const mail of batch) {
         if (stopped) return;
