@@ -51,8 +51,21 @@ function verified(row: PackageRow): StoredPackage | null {
   return { copy: row.copy, bytes, sha256: row.sha256, reason: row.reason };
 }
 
+/** Drawings in progress in this process, so a download just after a freeze waits for that drawing. */
+const drawing = new WeakMap<ServerContext, Map<number, Promise<StoredPackage>>>();
+
 /** The issued package (copy 0), drawn now if it is due or the revision predates stored packages. */
-export async function issuedPackage(ctx: ServerContext, revisionId: number): Promise<StoredPackage> {
+export function issuedPackage(ctx: ServerContext, revisionId: number): Promise<StoredPackage> {
+  const inFlight = drawing.get(ctx) ?? new Map<number, Promise<StoredPackage>>();
+  drawing.set(ctx, inFlight);
+  const known = inFlight.get(revisionId);
+  if (known) return known;
+  const work = readOrDraw(ctx, revisionId).finally(() => inFlight.delete(revisionId));
+  inFlight.set(revisionId, work);
+  return work;
+}
+
+async function readOrDraw(ctx: ServerContext, revisionId: number): Promise<StoredPackage> {
   const row = await packageRow(ctx.db, revisionId, 0);
   const stored = row ? verified(row) : null;
   if (stored) return stored;
