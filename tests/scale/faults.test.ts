@@ -50,14 +50,16 @@ class FlakyMailServer {
       logger: false,
       size: 25 * 1024 * 1024,
       onData: (stream, session, callback) => {
-        simpleParser(stream).then(
-          (mail) => {
-            const to = session.envelope.rcptTo.map((r) => r.address).join(', ');
+        // Accept as soon as the data is in, as a mail server does; reading it comes after.
+        const chunks: Buffer[] = [];
+        const to = session.envelope.rcptTo.map((r) => r.address).join(', ');
+        stream.on('data', (c: Buffer) => chunks.push(c));
+        stream.on('end', () => {
+          callback();
+          void simpleParser(Buffer.concat(chunks)).then((mail) => {
             this.delivered.push({ to, subject: mail.subject ?? '', attachment: mail.attachments[0]?.content ?? null });
-            callback();
-          },
-          (err: Error) => callback(err),
-        );
+          });
+        });
       },
     });
     this.working = working;
@@ -90,11 +92,11 @@ describeScale('faults across two server processes', () => {
     await mail.hang();
     env = scaleEnv(tag, {
       SMTP_URL: `smtp://127.0.0.1:${mail.port}`,
-      MAIL_TIMEOUT_MS: '500',
+      MAIL_TIMEOUT_MS: '2000',
       MAIL_RETRY_BASE_MS: '200',
       MAIL_MAX_ATTEMPTS: '100',
       MAIL_POLL_MS: '200',
-      MAIL_LEASE_MS: '3000',
+      MAIL_LEASE_MS: '10000',
     });
     a = await startProcess(env);
     b = await startProcess(env);
@@ -160,7 +162,7 @@ describeScale('faults across two server processes', () => {
     c = await startProcess(env);
 
     const expected = [lead.user.email, engineer.user.email].sort();
-    expect(await eventually(async () => mail.delivered.filter((d) => d.subject.includes('P01')).length >= 2, 30_000)).toBe(true);
+    expect(await eventually(async () => mail.delivered.filter((d) => d.subject.includes('P01')).length >= 2, 40_000)).toBe(true);
     expect(
       await eventually(async () => {
         const detail = (await api<RevisionDetail>(c!.url, 'GET', `/revisions/${rev.id}`, lead.token)).body;
@@ -190,5 +192,5 @@ describeScale('faults across two server processes', () => {
     }
     expect(b.child.exitCode).toBeNull();
     expect(c.child.exitCode).toBeNull();
-  });
+  }, 150_000);
 });

@@ -135,6 +135,7 @@ describeScale('losing Redis under two server processes', () => {
       const r = await api<unknown>(c.url, 'POST', '/auth/login', null, { email: lead.user.email, password: PASSWORD });
       expect(r.status).toBe(503);
       expect(r.body).toMatchObject({ error: { code: 'unavailable', message: expect.any(String) } });
+      expect(Number(r.headers.get('retry-after'))).toBeGreaterThan(0);
       expect(Date.now() - t1).toBeLessThan(2500);
       // REST that needs no Redis works.
       expect((await api(c.url, 'GET', '/buildings', lead.token)).status).toBe(200);
