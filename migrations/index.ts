@@ -15,6 +15,10 @@ import * as addRevisionTriggers from './202512011001_add_revision_triggers.ts';
 import * as addRevisionRecipients from './202512011002_add_revision_recipients.ts';
 import * as addCompanySections from './202512011020_add_company_sections.ts';
 import * as addStackGoverningLabel from './202612020900_add_stack_governing_label.ts';
+import * as addStackNameIndex from './202612031100_add_stack_name_index.ts';
+import * as addLevelNameIndex from './202612031101_add_level_name_index.ts';
+import * as addMailQueue from './202612031102_add_mail_queue.ts';
+import * as addRevisionPackages from './202612031103_add_revision_packages.ts';
 import * as addUsersTokenVersion from './202612031200_add_users_token_version.ts';
 import * as addUsersEmailVerifiedAt from './202612031201_add_users_email_verified_at.ts';
 import * as addInvitationsExpiresAt from './202612031202_add_invitations_expires_at.ts';
@@ -35,6 +39,10 @@ const migrations: Record<string, Knex.Migration> = {
   '202512011002_add_revision_recipients': addRevisionRecipients,
   '202512011020_add_company_sections': addCompanySections,
   '202612020900_add_stack_governing_label': addStackGoverningLabel,
+  '202612031100_add_stack_name_index': addStackNameIndex,
+  '202612031101_add_level_name_index': addLevelNameIndex,
+  '202612031102_add_mail_queue': addMailQueue,
+  '202612031103_add_revision_packages': addRevisionPackages,
   '202612031200_add_users_token_version': addUsersTokenVersion,
   '202612031201_add_users_email_verified_at': addUsersEmailVerifiedAt,
   '202612031202_add_invitations_expires_at': addInvitationsExpiresAt,

@@ -7,6 +7,7 @@ import { pinoHttp } from 'pino-http';
 import type { ServerContext } from './context.ts';
 import { notFound } from './errors.ts';
 import { errorHandler } from './middleware/errorHandler.ts';
+import { refuseNul } from './middleware/refuseNul.ts';
 import { createApiRouter } from './routes/index.ts';
 
 export const JSON_BODY_LIMIT = '1mb';
@@ -19,6 +20,7 @@ export function createApp(ctx: ServerContext): Express {
   app.use(helmet({ contentSecurityPolicy: { directives: { upgradeInsecureRequests: null } } }));
   app.use(pinoHttp({ logger: ctx.log }));
   app.use(express.json({ limit: JSON_BODY_LIMIT }));
+  app.use('/api', refuseNul);
 
   // API replies are per user and change with every edit: never cached by browsers or proxies.
   app.use('/api', (_req, res, next) => {

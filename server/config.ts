@@ -18,6 +18,8 @@ export interface Config {
   jwtSecret: string;
   smtpUrl: string | null;
   mailFrom: string;
+  /** The durable mail outbox (docs/faults.md): SMTP time bounds, retries with back-off, how often it looks. */
+  mail: { timeoutMs: number; retryBaseMs: number; maxAttempts: number; pollMs: number; leaseMs: number };
   logLevel: string;
   bcryptRounds: number;
   /** Login attempts allowed per IP address in each window. */
@@ -91,6 +93,12 @@ const envSchema = z.object({
   JWT_SECRET: z.string().min(16, 'JWT_SECRET must be at least 16 characters').optional(),
   SMTP_URL: z.string().min(1).optional(),
   MAIL_FROM: z.string().min(3).default('Stanchion <no-reply@stanchion.test>'),
+  MAIL_TIMEOUT_MS: intFromEnv(15_000, 100, 600_000),
+  MAIL_RETRY_BASE_MS: intFromEnv(30_000, 10, 3_600_000),
+  MAIL_MAX_ATTEMPTS: intFromEnv(8, 1, 100),
+  MAIL_POLL_MS: intFromEnv(2000, 10, 600_000),
+  /** How long a claimed send is held before another process may take it (default: 4 × timeout + 2 min). */
+  MAIL_LEASE_MS: z.coerce.number().int().min(1000).max(86_400_000).optional(),
   LOG_LEVEL: z.enum(['fatal', 'error', 'warn', 'info', 'debug', 'trace', 'silent']).default('info'),
   // bcrypt cost 10 in production; tests lower it to 4 to stay fast.
   BCRYPT_ROUNDS: intFromEnv(10, 4, 15),
@@ -138,6 +146,7 @@ export function loadConfig(env: NodeJS.ProcessEnv = process.env, overrides: Conf
     redisPrefix: e.REDIS_PREFIX,
     smtpUrl: e.SMTP_URL ?? null,
     mailFrom: e.MAIL_FROM,
+    mail: { timeoutMs: e.MAIL_TIMEOUT_MS, retryBaseMs: e.MAIL_RETRY_BASE_MS, maxAttempts: e.MAIL_MAX_ATTEMPTS, pollMs: e.MAIL_POLL_MS, leaseMs: e.MAIL_LEASE_MS ?? 4 * e.MAIL_TIMEOUT_MS + 120_000 },
     logLevel: e.LOG_LEVEL,
     bcryptRounds: e.BCRYPT_ROUNDS,
     loginRateLimit: { windowMs: e.LOGIN_RATE_WINDOW_MS, max: e.LOGIN_RATE_LIMIT },

@@ -19,6 +19,8 @@ export interface ServerContext {
   redis: RedisClient | null;
   /** Long work (calculation packages, sizing a building) done on a worker thread. */
   offThread: OffThread;
+  /** The background mail sender: `kick()` after queueing mail so it goes out without waiting a poll. */
+  outbox: { kick(): void };
 }
 
 export type RedisClient = ReturnType<typeof createClient>;

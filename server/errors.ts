@@ -7,6 +7,8 @@ export class HttpError extends Error {
     readonly code: ErrorCode,
     message: string,
     readonly details?: unknown,
+    /** Sent as Retry-After with a 503: when trying again makes sense. */
+    readonly retryAfterSeconds?: number,
   ) {
     super(message);
     this.name = 'HttpError';
@@ -19,3 +21,5 @@ export const forbidden = (message = 'Your role does not allow this') => new Http
 export const notFound = (what = 'Resource') => new HttpError(404, 'not_found', `${what} not found`);
 export const conflict = (message: string, details?: unknown) => new HttpError(409, 'conflict', message, details);
 export const unprocessable = (message: string, details?: unknown) => new HttpError(422, 'unprocessable', message, details);
+export const unavailable = (message: string, retryAfterSeconds: number) => new HttpError(503, 'unavailable', message, undefined, retryAfterSeconds);
+export const busy = (message: string, retryAfterSeconds: number) => new HttpError(503, 'busy', message, undefined, retryAfterSeconds);

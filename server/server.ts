@@ -4,13 +4,14 @@ import { createServer, type Server } from 'node:http';
 import type { AddressInfo } from 'node:net';
 import type { Express } from 'express';
 import { pino, type Logger } from 'pino';
-import { createClient } from 'redis';
 import { createApp } from './app.ts';
 import { loadConfig, type ConfigOverrides } from './config.ts';
 import type { RedisClient, ServerContext } from './context.ts';
 import { createDb, migrate } from './db.ts';
 import { createMailer } from './mail/mailer.ts';
+import { startMailSender } from './mail/mailSender.ts';
 import { createOffThread } from './offThread/pool.ts';
+import { closeRedis, connectBounded, createRedisClient, REDIS_START_WAIT_MS } from './redis.ts';
 import { nullBroadcaster } from './services/broadcast.ts';
 import { attachRealtime, type Realtime } from './realtime/index.ts';
 import { reanalyseOutdatedOnStart } from './services/outdatedResults.ts';
@@ -58,7 +59,7 @@ export async function startServer(opts: StartOptions = {}): Promise<RunningServe
   const mailer = await createMailer(config, db, log.child({ name: 'mail' }));
   const redis = config.redisUrl ? await connectRedis(config.redisUrl, log.child({ name: 'redis' })) : null;
   const offThread = createOffThread();
-  const ctx: ServerContext = { db, config, log, mailer, broadcaster: nullBroadcaster, redis, offThread };
+  const ctx: ServerContext = { db, config, log, mailer, broadcaster: nullBroadcaster, redis, offThread, outbox: { kick: () => undefined } };
   const app = createApp(ctx);
   const httpServer = createServer(app);
   const realtime = await attachRealtime(httpServer, ctx);
@@ -69,6 +70,8 @@ export async function startServer(opts: StartOptions = {}): Promise<RunningServe
   const { port } = httpServer.address() as AddressInfo;
   // On an ephemeral port (tests) the default public URL names the port actually bound.
   if (!overrides.publicUrl && !(opts.env ?? process.env).PUBLIC_URL) config.publicUrl = `http://localhost:${port}`;
+  const mailSender = startMailSender(ctx, log.child({ name: 'mail' }));
+  ctx.outbox = mailSender;
 
   let closing: Promise<void> | null = null;
   const close = () => {
@@ -76,7 +79,8 @@ export async function startServer(opts: StartOptions = {}): Promise<RunningServe
       httpServer.closeAllConnections();
       // Closes the live channel's sockets and the HTTP listener.
       await realtime.close();
-      await redis?.quit().catch(() => undefined);
+      await mailSender.stop();
+      await closeRedis(redis);
       await offThread.close();
       await mailer.close();
       await db.destroy();
@@ -86,10 +90,9 @@ export async function startServer(opts: StartOptions = {}): Promise<RunningServe
   return { url: `http://127.0.0.1:${port}`, port, app, httpServer, ctx, realtime, close };
 }
 
+/** The client of the sign-in limit: commands fail at once while Redis is away, so sign-in answers 503. */
 async function connectRedis(url: string, log: Logger): Promise<RedisClient> {
-  const client: RedisClient = createClient({ url });
-  // Without a listener a dropped connection would end the process; the client reconnects by itself.
-  client.on('error', (err: unknown) => log.error({ err }, 'redis connection error'));
-  await client.connect();
+  const client = createRedisClient(url, 'counters', log, { queueWhileOffline: false });
+  await connectBounded(client, REDIS_START_WAIT_MS, log, 'counters');
   return client;
 }

@@ -1,5 +1,7 @@
-// Outgoing e-mail over SMTP (nodemailer). Sending never throws into a request that has already
-// committed: it retries, then records the failure in mail_log.
+// Outgoing e-mail over SMTP (nodemailer) with bounded connection, greeting and socket times, so a
+// mail server that accepts and never answers costs at most MAIL_TIMEOUT_MS per attempt. Requests do
+// not send: they queue (mailQueue.ts) and the background sender (mailSender.ts) calls trySend.
+// sendMail (retrying in place) remains for tools and tests that want a message out at once.
 import type { Knex } from 'knex';
 import nodemailer from 'nodemailer';
 import type { Logger } from 'pino';
@@ -18,6 +20,8 @@ export interface MailMessage {
 export interface Mailer {
   /** true when the message was accepted by the SMTP server. */
   sendMail(message: MailMessage): Promise<boolean>;
+  /** One attempt: null when the SMTP server accepted the message, else why not (logged in mail_log). */
+  trySend(message: MailMessage, attempt: number): Promise<string | null>;
   /** Port of the local fake, null when a real SMTP_URL is used. */
   fakePort: number | null;
   close(): Promise<void>;
@@ -25,12 +29,31 @@ export interface Mailer {
 
 export const MAIL_ATTEMPTS = 3;
 
-export async function createMailer(config: Pick<Config, 'smtpUrl' | 'mailFrom'>, db: Knex, log: Logger, retryDelayMs = 200): Promise<Mailer> {
+export async function createMailer(
+  config: Pick<Config, 'smtpUrl' | 'mailFrom'> & Partial<Pick<Config, 'mail'>>,
+  db: Knex,
+  log: Logger,
+  retryDelayMs = 200,
+): Promise<Mailer> {
   let fake: SmtpFake | null = null;
   if (!config.smtpUrl) fake = await startSmtpFake(db);
+  const t = config.mail?.timeoutMs ?? 15_000;
+  const bounds = { connectionTimeout: t, greetingTimeout: t, socketTimeout: t, dnsTimeout: t };
   const transport = config.smtpUrl
-    ? nodemailer.createTransport(config.smtpUrl)
-    : nodemailer.createTransport({ host: '127.0.0.1', port: fake?.port, secure: false, ignoreTLS: true });
+    ? nodemailer.createTransport({ url: config.smtpUrl, ...bounds })
+    : nodemailer.createTransport({ host: '127.0.0.1', port: fake?.port, secure: false, ignoreTLS: true, ...bounds });
+
+  async function trySend(message: MailMessage, attempt: number): Promise<string | null> {
+    try {
+      await transport.sendMail({ from: config.mailFrom, ...message });
+      await logMail(db, log, message, 'sent', attempt, null);
+      return null;
+    } catch (e) {
+      const error = e instanceof Error ? e.message : String(e);
+      await logMail(db, log, message, 'failed', attempt, error);
+      return error;
+    }
+  }
 
   async function sendMail(message: MailMessage): Promise<boolean> {
     let lastError = '';
@@ -50,6 +73,7 @@ export async function createMailer(config: Pick<Config, 'smtpUrl' | 'mailFrom'>,
 
   return {
     sendMail,
+    trySend,
     fakePort: fake?.port ?? null,
     async close() {
       transport.close();

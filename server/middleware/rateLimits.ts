@@ -4,12 +4,10 @@
 // building or the recipient address.
 import type { Request, RequestHandler } from 'express';
 import { ipKeyGenerator, rateLimit } from 'express-rate-limit';
-import { RedisStore } from 'rate-limit-redis';
 import type { Limit } from '../config.ts';
 import type { ServerContext } from '../context.ts';
 import { HttpError } from '../errors.ts';
-
-type SendCommand = Extract<ConstructorParameters<typeof RedisStore>[0], { sendCommand: unknown }>['sendCommand'];
+import { signInLimitStore } from './signInLimitStore.ts';
 
 /** What a limit is counted by; null skips the limit for this request (e.g. no address in the body). */
 export type LimitKey = (req: Request) => string | null;
@@ -40,9 +38,8 @@ function makeLimiter(ctx: ServerContext, name: string, limit: Limit, key: LimitK
   const { redis } = ctx;
   const minutes = Math.max(1, Math.round(limit.windowMs / 60_000));
   return rateLimit({
-    ...(redis
-      ? { store: new RedisStore({ sendCommand: (...args) => redis.sendCommand(args) as ReturnType<SendCommand>, prefix: `${ctx.config.redisPrefix}#${name}:` }) }
-      : {}),
+    // Fails safe while Redis is away: a 503 at once, never a crash or a long wait (docs/faults.md).
+    ...(redis ? { store: signInLimitStore(redis, `${ctx.config.redisPrefix}#${name}:`, name === 'login' ? 'Sign-in' : 'This action') } : {}),
     windowMs: limit.windowMs,
     limit: limit.max,
     standardHeaders: 'draft-8',

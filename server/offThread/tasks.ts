@@ -16,10 +16,11 @@ import { renderCalcPackage } from '../pdf/calcPackage.ts';
 export interface PackageTask {
   snapshot: RevisionSnapshot;
   hash: string;
+  mark?: string;
 }
 
-export function renderPackage({ snapshot, hash }: PackageTask): Promise<Buffer> {
-  return renderCalcPackage(snapshot, hash);
+export function renderPackage({ snapshot, hash, mark }: PackageTask): Promise<Buffer> {
+  return renderCalcPackage(snapshot, hash, mark);
 }
 
 export interface SizingStack {

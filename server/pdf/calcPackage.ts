@@ -7,7 +7,8 @@ import { createPdf, toBuffer } from './pdf.ts';
 import { drawStackSection } from './stackSection.ts';
 import { drawSummary } from './summary.ts';
 
-export async function renderCalcPackage(snapshot: RevisionSnapshot, hash: string): Promise<Buffer> {
+/** `mark` (a re-drawn copy) is printed at the top of every page. */
+export async function renderCalcPackage(snapshot: RevisionSnapshot, hash: string, mark?: string): Promise<Buffer> {
   const doc = createPdf(snapshot);
   const sections = trackSections(doc);
   sections.set('Cover');
@@ -18,6 +19,6 @@ export async function renderCalcPackage(snapshot: RevisionSnapshot, hash: string
     sections.set(`Stack ${stack.name}`);
     drawStackSection(doc, stack, snapshot.levels, i, momentsOn(snapshot));
   });
-  drawPageFurniture(doc, snapshot, hash, sections.titles);
+  drawPageFurniture(doc, snapshot, hash, sections.titles, mark);
   return toBuffer(doc);
 }

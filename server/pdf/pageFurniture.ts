@@ -20,7 +20,7 @@ export function trackSections(doc: Pdf): { set(title: string): void; titles: str
   };
 }
 
-export function drawPageFurniture(doc: Pdf, s: RevisionSnapshot, hash: string, sectionTitles: string[]): void {
+export function drawPageFurniture(doc: Pdf, s: RevisionSnapshot, hash: string, sectionTitles: string[], mark?: string): void {
   const { start, count } = doc.bufferedPageRange();
   const width = PAGE.width - MARGIN.left - MARGIN.right;
   const left = `${s.building.name}${s.building.reference ? ` (${s.building.reference})` : ''}`;
@@ -44,6 +44,10 @@ export function drawPageFurniture(doc: Pdf, s: RevisionSnapshot, hash: string, s
       textIn(doc, section, MARGIN.left, headerY + 10, width, 'right');
     }
     doc.moveTo(MARGIN.left, headerY + 22).lineTo(PAGE.width - MARGIN.right, headerY + 22).lineWidth(0.5).stroke(COLOUR.rule);
+    if (mark) {
+      doc.font(FONT.bold).fontSize(SIZE.small + 0.5).fillColor(COLOUR.fail);
+      textIn(doc, mark, MARGIN.left, headerY - 14, width);
+    }
 
     const footerY = PAGE.height - MARGIN.bottom + 16;
     doc.moveTo(MARGIN.left, footerY - 6).lineTo(PAGE.width - MARGIN.right, footerY - 6).lineWidth(0.5).stroke(COLOUR.rule);

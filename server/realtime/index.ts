@@ -3,10 +3,10 @@
 import type { Server as HttpServer } from 'node:http';
 import { Server } from 'socket.io';
 import { createAdapter } from '@socket.io/redis-adapter';
-import { createClient } from 'redis';
 import type { Logger } from 'pino';
 import type { ServerContext } from '../context.ts';
 import { HttpError } from '../errors.ts';
+import { closeRedis, connectBounded, createRedisClient, REDIS_START_WAIT_MS, safePublisher } from '../redis.ts';
 import { verifySession } from '../services/tokens.ts';
 import { userForSession } from '../services/users.ts';
 import { socketBroadcaster } from './broadcaster.ts';
@@ -20,15 +20,18 @@ export interface Realtime {
   close(): Promise<void>;
 }
 
-/** With REDIS_URL, rooms, presence and broadcasts are shared with every process on the same Redis. */
+/**
+ * With REDIS_URL, rooms, presence and broadcasts are shared with every process on the same Redis.
+ * Without Redis (lost, or not there at start) the adapter serves this process's own sockets: a
+ * publish that fails is dropped with a warning, the subscriber re-subscribes when Redis returns.
+ */
 async function useRedis(io: LiveServer, url: string, prefix: string, log: Logger): Promise<() => Promise<void>> {
-  const pub = createClient({ url });
-  const sub = pub.duplicate();
-  for (const c of [pub, sub]) c.on('error', (err: unknown) => log.error({ err }, 'redis connection error'));
-  await Promise.all([pub.connect(), sub.connect()]);
-  io.adapter(createAdapter(pub, sub, { key: `${prefix}#live`, requestsTimeout: 3000 }));
+  const pub = createRedisClient(url, 'live-publish', log, { queueWhileOffline: false });
+  const sub = createRedisClient(url, 'live-subscribe', log, { queueWhileOffline: true });
+  await Promise.all([connectBounded(pub, REDIS_START_WAIT_MS, log, 'live-publish'), connectBounded(sub, REDIS_START_WAIT_MS, log, 'live-subscribe')]);
+  io.adapter(createAdapter(safePublisher(pub, log), sub, { key: `${prefix}#live`, requestsTimeout: 3000 }));
   return async () => {
-    await Promise.allSettled([pub.quit(), sub.quit()]);
+    await Promise.allSettled([closeRedis(pub), closeRedis(sub)]);
   };
 }
 
@@ -68,7 +71,7 @@ export async function attachRealtime(httpServer: HttpServer, ctx: ServerContext)
     }
   });
 
-  const closeRedis = ctx.config.redisUrl ? await useRedis(io, ctx.config.redisUrl, ctx.config.redisPrefix, log) : null;
+  const closeLiveRedis = ctx.config.redisUrl ? await useRedis(io, ctx.config.redisUrl, ctx.config.redisPrefix, log) : null;
   io.on('connection', (socket) => {
     void socket.join(userRoom(socket.data.user.id));
     endAtExpiry(socket);
@@ -81,7 +84,7 @@ export async function attachRealtime(httpServer: HttpServer, ctx: ServerContext)
     async close() {
       stopPresence(io);
       await new Promise<void>((resolve) => void io.close(() => resolve()));
-      await closeRedis?.();
+      await closeLiveRedis?.();
     },
   };
 }

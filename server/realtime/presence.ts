@@ -9,8 +9,18 @@ export const buildingRoom = (buildingId: number) => `building:${buildingId}`;
 /** Every socket of one user, on any process: where access changes and sign-outs are sent. */
 export const userRoom = (userId: number) => `user:${userId}`;
 
+/** Sockets in the room on every process; this process's own when the others cannot be asked (Redis away). */
+async function roomSockets(io: LiveServer, stackId: number) {
+  try {
+    return await io.in(stackRoom(stackId)).fetchSockets();
+  } catch {
+    // Redis is away or another process did not answer in time (logged by the Redis clients).
+    return io.local.in(stackRoom(stackId)).fetchSockets();
+  }
+}
+
 export async function presenceOf(io: LiveServer | Server, stackId: number): Promise<PresenceUser[]> {
-  const sockets = await (io as LiveServer).in(stackRoom(stackId)).fetchSockets();
+  const sockets = await roomSockets(io as LiveServer, stackId);
   const byUser = new Map<number, PresenceUser>();
   for (const s of sockets) {
     const user = s.data.user;

@@ -47,7 +47,7 @@ export function registerBuildingRoutes(router: Router, ctx: ServerContext): void
   router.post('/buildings/:id/members', auth, lead, ...inviteLimits, async (req, res) => {
     const { email, role } = parseBody(addMemberBodySchema, req);
     const settings = { link: `${ctx.config.publicUrl}/sign-in`, days: ctx.config.invitationDays };
-    res.status(201).json(await addMember(ctx.db, ctx.mailer, currentAccess(req).buildingId, email, role, currentUser(req), settings));
+    res.status(201).json(await addMember(ctx.db, ctx.outbox, currentAccess(req).buildingId, email, role, currentUser(req), settings));
   });
   // :memberId is the user id of a member, or the e-mail address of a pending invitation.
   router.patch('/buildings/:id/members/:memberId', auth, lead, async (req, res) => {

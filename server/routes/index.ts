@@ -1,6 +1,7 @@
 // Every API route on one router mounted at /api, so the role-matrix test can list them all.
 import { Router } from 'express';
 import type { ServerContext } from '../context.ts';
+import { registerAdminRoutes } from './admin.ts';
 import { registerAuthRoutes } from './auth.ts';
 import { registerBuildingRoutes } from './buildings.ts';
 import { registerDevRoutes } from './dev.ts';
@@ -26,5 +27,6 @@ export function createApiRouter(ctx: ServerContext): Router {
   registerImportRoutes(router, ctx);
   registerExportRoutes(router, ctx);
   registerDevRoutes(router, ctx);
+  registerAdminRoutes(router, ctx);
   return router;
 }

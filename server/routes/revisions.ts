@@ -1,5 +1,6 @@
 // Revisions (docs/contracts.md §Revisions): leads freeze; every member reads, downloads the package and compares.
-import type { Request, Router } from 'express';
+import type { Request, RequestHandler, Router } from 'express';
+import { z } from 'zod';
 import { compareQuerySchema, freezeBodySchema } from '../../shared/schema/revisions.ts';
 import type { ServerContext } from '../context.ts';
 import { currentAccess, currentUser, requireAuth } from '../middleware/auth.ts';
@@ -8,14 +9,23 @@ import { byUser, limiter } from '../middleware/rateLimits.ts';
 import { idParam, parseBody, parseQuery } from '../middleware/validate.ts';
 import { buildingOfRevisionId, freezeRevision, getRevision, listRevisions, loadSnapshot } from '../services/revisions.ts';
 import { compareRevisions } from '../services/revisionsCompare.ts';
-import { packageFilename, sendRevisionMail } from '../services/revisionsMail.ts';
+import { packageFilename, resendRevisionMail } from '../services/revisionsMail.ts';
+import { issuedPackage, packageCopy, redrawCopy } from '../services/revisionPackages.ts';
 import { ENGINE_VERSION } from '../../shared/engine/version.ts';
 import { reanalyseOutdated } from '../services/outdatedResults.ts';
+import { now } from '../db.ts';
 
 /** Where the e-mail's link points: the configured public URL, never a request header (docs/access.md). */
 function revisionsLink(ctx: ServerContext, buildingId: number): string {
   return `${ctx.config.publicUrl}/buildings/${buildingId}/revisions`;
 }
+
+/** When each freeze request reached this process, before it waited for the database (see freezeRevision). */
+const arrivals = new WeakMap<Request, string>();
+const stampArrival: RequestHandler = (req, _res, next) => {
+  arrivals.set(req, now());
+  next();
+};
 
 export function registerRevisionRoutes(router: Router, ctx: ServerContext): void {
   const auth = requireAuth(ctx);
@@ -25,16 +35,18 @@ export function registerRevisionRoutes(router: Router, ctx: ServerContext): void
   // Both send an e-mail to every member.
   const mailLimit = limiter(ctx, 'mail-user', ctx.config.limits.mailPerUser, byUser, 'Too many e-mails sent from this account');
 
-  router.post('/buildings/:id/revisions', auth, requireRole(ctx, 'lead'), mailLimit, async (req, res) => {
+  router.post('/buildings/:id/revisions', stampArrival, auth, requireRole(ctx, 'lead'), mailLimit, async (req, res) => {
     const body = parseBody(freezeBodySchema, req);
     const { buildingId } = currentAccess(req);
     // Results of older rules are brought up to date first: the revision names the current engine version.
     await reanalyseOutdated(ctx, buildingId, currentUser(req));
-    const { id, snapshot, hash } = await freezeRevision(ctx.db, buildingId, { ...body, engineVersion: ENGINE_VERSION }, currentUser(req));
-    // Committed: from here on a failure to send is recorded per recipient and never undoes the freeze.
-    const pdf = await ctx.offThread.renderPackage(snapshot, hash);
-    await sendRevisionMail(ctx, id, snapshot, hash, revisionsLink(ctx, buildingId), pdf);
+    const { id } = await freezeRevision(ctx.db, buildingId, { ...body, link: revisionsLink(ctx, buildingId), engineVersion: ENGINE_VERSION }, currentUser(req), arrivals.get(req) ?? now());
+    // Committed, with the package due and the e-mails queued: answer now. The package is drawn once in
+    // the background (or by the mail sender, or the first download, whichever comes first).
     res.status(201).json(await getRevision(ctx.db, id));
+    void issuedPackage(ctx, id)
+      .catch((err: unknown) => req.log.warn({ err, revisionId: id }, 'package not drawn yet; the mail sender or the first download draws it'))
+      .finally(() => ctx.outbox.kick());
   });
   router.get('/buildings/:id/revisions', auth, requireRole(ctx, 'viewer'), async (req, res) => {
     res.json(await listRevisions(ctx.db, currentAccess(req).buildingId));
@@ -46,16 +58,26 @@ export function registerRevisionRoutes(router: Router, ctx: ServerContext): void
   router.get('/revisions/:id', auth, revisionViewer, async (req, res) => {
     res.json(await getRevision(ctx.db, idParam(req)));
   });
+  // ?copy=n serves a re-drawn copy; without it, the issued package as stored (verified on read).
   router.get('/revisions/:id/calc.pdf', auth, revisionViewer, async (req, res) => {
-    const { snapshot, hash } = await loadSnapshot(ctx.db, idParam(req));
-    const pdf = await ctx.offThread.renderPackage(snapshot, hash);
-    res.attachment(packageFilename(snapshot)).type('application/pdf').send(pdf);
+    const { copy } = parseQuery(copyQuerySchema, req);
+    const id = idParam(req);
+    const pkg = await packageCopy(ctx, id, copy);
+    const { snapshot } = await loadSnapshot(ctx.db, id);
+    res.setHeader('X-Package-SHA256', pkg.sha256);
+    res.attachment(packageFilename(snapshot).replace(/\.pdf$/, copy ? `-redrawn-copy-${copy}.pdf` : '.pdf')).type('application/pdf').send(pkg.bytes);
   });
   router.post('/revisions/:id/resend', auth, revisionLead, mailLimit, async (req, res) => {
     const id = idParam(req);
     const { snapshot, hash } = await loadSnapshot(ctx.db, id);
-    const pdf = await ctx.offThread.renderPackage(snapshot, hash);
-    await sendRevisionMail(ctx, id, snapshot, hash, revisionsLink(ctx, snapshot.building.id), pdf);
+    await resendRevisionMail(ctx, id, snapshot, hash, revisionsLink(ctx, snapshot.building.id));
     res.json(await getRevision(ctx.db, id));
   });
+  // Only when the issued package is tampered or lost: a new copy, marked as re-drawn on every page.
+  router.post('/revisions/:id/package/redraw', auth, revisionLead, async (req, res) => {
+    const pkg = await redrawCopy(ctx, idParam(req), currentUser(req));
+    res.status(201).json({ copy: pkg.copy, sha256: pkg.sha256, size: pkg.bytes.length, reason: pkg.reason });
+  });
 }
+
+const copyQuerySchema = z.object({ copy: z.coerce.number().int().min(0).max(10_000).default(0) });

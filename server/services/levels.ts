@@ -12,7 +12,7 @@ import { planLevelMove } from './levelMove.ts';
 import { recordAudit } from './audit.ts';
 import { broadcastChange, commitDoc, type CommittedChange } from './stackOps.ts';
 import { parseDoc, type StackRow } from './stackRows.ts';
-import { assertNameFree } from './uniqueNames.ts';
+import { assertNameFree, withNameGuard } from './uniqueNames.ts';
 
 interface LevelRow {
   id: number;
@@ -34,12 +34,12 @@ async function loadLevel(db: Knex, buildingId: number, levelId: number): Promise
 }
 
 export async function createLevel(db: Knex, buildingId: number, input: { name: string; elevation: number }, user: User): Promise<Level> {
-  return db.transaction(async (trx) => {
+  return withNameGuard('level', input.name, () => db.transaction(async (trx) => {
     await assertNameFree(trx, 'level', buildingId, input.name);
     const [row] = await trx('levels').insert({ building_id: buildingId, ...input, created_at: now() }).returning<{ id: number }[]>('id');
     await recordAudit(trx, { userId: user.id, buildingId, action: 'level.create', detail: { levelId: row.id, ...input } });
     return { id: String(row.id), ...input };
-  });
+  }));
 }
 
 /** Stacks of the building with nodes on this level (restraints, a cap, a support), and those nodes' ids. */
@@ -53,7 +53,7 @@ async function stacksUsingLevel(db: Knex, buildingId: number, levelId: number): 
 }
 
 export async function updateLevel(ctx: ServerContext, buildingId: number, levelId: number, input: { name?: string; elevation?: number }, user: User): Promise<Level> {
-  const { level, changes } = await ctx.db.transaction(async (trx) => {
+  const { level, changes } = await withNameGuard('level', input.name ?? '', () => ctx.db.transaction(async (trx) => {
     const before = await loadLevel(trx, buildingId, levelId);
     if (input.name !== undefined) await assertNameFree(trx, 'level', buildingId, input.name, levelId);
     const moves = input.elevation !== undefined && input.elevation !== Number(before.elevation);
@@ -75,7 +75,7 @@ export async function updateLevel(ctx: ServerContext, buildingId: number, levelI
       }
     }
     return { level: toLevel(await loadLevel(trx, buildingId, levelId)), changes };
-  });
+  }));
   for (const c of changes) broadcastChange(ctx, c, { userId: user.id, name: user.name });
   return level;
 }

@@ -12,11 +12,14 @@ import {
   type RevisionSummary,
   type SnapshotStack,
 } from '../../shared/schema/revisions.ts';
-import { notFound, unprocessable } from '../errors.ts';
-import { now } from '../db.ts';
+import { conflict, notFound, unprocessable } from '../errors.ts';
+import { isPostgres, now } from '../db.ts';
+import { onUniqueViolation } from '../dbErrors.ts';
 import { summariseResult } from './analysis.ts';
 import { recordAudit } from './audit.ts';
 import { listRecipients } from './revisionsRecipients.ts';
+import { revisionMessage } from './revisionsMail.ts';
+import { enqueueMail } from '../mail/mailQueue.ts';
 import { sha256Hex, snapshotStacks, takeSnapshot } from './snapshot.ts';
 
 export interface RevisionRow {
@@ -38,6 +41,10 @@ export interface RevisionRow {
 const SUMMARY_COLUMNS = ['id', 'building_id', 'code', 'purpose', 'note', 'acknowledgement', 'hash', 'engine_version', 'frozen_by', 'frozen_by_name', 'frozen_at', 'stack_count', 'worst_utilisation', 'failing_lifts'];
 
 export interface FreezeInput {
+  /** Where the e-mail's link points (the revisions page of the building). */
+  link: string;
+  /** See freezeBodySchema: the newest revision the sender has seen; undefined when not said. */
+  afterRevisionId?: number | null;
   note: string;
   purpose: RevisionPurpose;
   acknowledgeFailingLifts: boolean;
@@ -79,10 +86,32 @@ async function nextCode(trx: Knex, buildingId: number, purpose: RevisionPurpose)
   return `${prefix}${String(highest + 1).padStart(2, '0')}`;
 }
 
-export async function freezeRevision(db: Knex, buildingId: number, input: FreezeInput, user: User): Promise<{ id: number; snapshot: RevisionSnapshot; hash: string }> {
+/**
+ * Freezes are serialised per building by locking the building's row (PostgreSQL; SQLite has one
+ * writer). A freeze that finds a revision frozen after its request arrived is refused (409) rather
+ * than issuing a second revision its sender never saw. `afterRevisionId` (sent by the app) makes this
+ * exact: parallel or retried freezes give one revision. Without it, `arrivedAt` (when the request
+ * reached this process) catches the requests that arrived before another freeze committed.
+ */
+export async function freezeRevision(db: Knex, buildingId: number, input: FreezeInput, user: User, arrivedAt: string): Promise<{ id: number; snapshot: RevisionSnapshot; hash: string }> {
+  return onUniqueViolation(() => freezeIn(db, buildingId, input, user, arrivedAt), () => conflict('Another freeze of this building took the same revision code at the same moment; reload the revisions'));
+}
+
+async function freezeIn(db: Knex, buildingId: number, input: FreezeInput, user: User, arrivedAt: string): Promise<{ id: number; snapshot: RevisionSnapshot; hash: string }> {
   return db.transaction(async (trx) => {
-    const building = await trx('buildings').where({ id: buildingId }).first<{ id: number; name: string; reference: string } | undefined>('id', 'name', 'reference');
+    const buildingQuery = trx('buildings').where({ id: buildingId });
+    if (isPostgres(trx)) buildingQuery.forUpdate();
+    const building = await buildingQuery.first<{ id: number; name: string; reference: string } | undefined>('id', 'name', 'reference');
     if (!building) throw notFound('Building');
+    const unseen = await trx('revisions').where({ building_id: buildingId }).andWhere('frozen_at', '>=', arrivedAt).orderBy('id', 'desc').first<{ id: number; code: string } | undefined>('id', 'code');
+    const newest = await trx('revisions').where({ building_id: buildingId }).orderBy('id', 'desc').first<{ id: number; code: string } | undefined>('id', 'code');
+    if (input.afterRevisionId !== undefined && (newest?.id ?? null) !== input.afterRevisionId) {
+      if (!newest) throw conflict('The revision this freeze was based on does not exist; reload the revisions');
+      throw conflict(`Revision ${newest.code} is newer than the one this freeze was based on; check it, and freeze again only if another revision is needed`, { revisionId: newest.id });
+    }
+    if (unseen) {
+      throw conflict(`Revision ${unseen.code} was frozen while this freeze was on its way; check it, and freeze again only if another revision is needed`, { revisionId: unseen.id });
+    }
     const stacks = await snapshotStacks(trx, buildingId);
     if (stacks.length === 0) throw unprocessable('The building has no stacks to freeze', { reasons: [] } satisfies FreezeRefusal);
     const reasons = validationReasons(stacks);
@@ -125,8 +154,14 @@ export async function freezeRevision(db: Knex, buildingId: number, input: Freeze
       .join('users as u', 'u.id', 'm.user_id')
       .where('m.building_id', buildingId)
       .select<{ id: number; email: string; name: string }[]>('u.id', 'u.email', 'u.name');
-    if (members.length > 0) {
-      await trx('revision_recipients').insert(members.map((m) => ({ revision_id: row.id, user_id: m.id, email: m.email, name: m.name, status: 'pending', attempts: 0, updated_at: frozenAt })));
+    // The issued package is due (drawn once after commit, revisionPackages.ts), and each member's
+    // e-mail is queued in this transaction, so a crash after commit still sends it (mailSender.ts).
+    await trx('revision_packages').insert({ revision_id: row.id, copy: 0, created_at: frozenAt });
+    for (const m of members) {
+      const [recipient] = await trx('revision_recipients')
+        .insert({ revision_id: row.id, user_id: m.id, email: m.email, name: m.name, status: 'pending', attempts: 0, updated_at: frozenAt })
+        .returning<{ id: number }[]>('id');
+      await enqueueMail(trx, [{ kind: 'revision', message: revisionMessage(snapshot, hash, m.email, input.link), attachRevisionId: row.id, recipientId: recipient.id, buildingId }]);
     }
     await recordAudit(trx, { userId: user.id, buildingId, action: 'revision.freeze', detail: { revisionId: row.id, code, hash, failingLifts: failing.length } });
     return { id: row.id, snapshot, hash };

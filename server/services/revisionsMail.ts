@@ -1,17 +1,21 @@
-// Telling the team about a revision: one e-mail per member with a link and the calculation package
-// attached. Runs after the freeze has committed, so a mail failure never loses the revision; every
-// recipient's outcome is recorded and a lead can send again to those that failed.
+// Telling the team about a revision: one e-mail per member with a link and the stored calculation
+// package attached. The freeze queues these in its own transaction (mailQueue.ts) and the background
+// sender sends them (mailSender.ts), so a slow or dead mail server never holds the freeze and a crash
+// after commit loses no mail. Each recipient's outcome is kept; a lead can send again to the failed.
 import escapeHtml from 'escape-html';
 import type { Knex } from 'knex';
 import type { RevisionSnapshot } from '../../shared/schema/revisions.ts';
 import type { ServerContext } from '../context.ts';
+import { now } from '../db.ts';
+import { enqueueMail, requeueFailed } from '../mail/mailQueue.ts';
 import type { MailMessage } from '../mail/mailer.ts';
-import { recipientRows, recordDelivery } from './revisionsRecipients.ts';
+import { recipientRows } from './revisionsRecipients.ts';
 
 export const packageFilename = (s: Pick<RevisionSnapshot, 'building' | 'code'>) =>
   `${(s.building.reference || s.building.name).replace(/[^A-Za-z0-9._-]+/g, '-')}-${s.code}-calculations.pdf`;
 
-export function revisionMessage(s: RevisionSnapshot, hash: string, to: string, link: string, pdf: Buffer): MailMessage {
+/** The message without its attachment: the sender attaches the stored package when it sends. */
+export function revisionMessage(s: RevisionSnapshot, hash: string, to: string, link: string): Omit<MailMessage, 'attachments'> {
   const purpose = s.purpose === 'construction' ? 'for construction' : 'preliminary';
   const issue = s.purpose === 'construction' ? 'for construction' : 'as a preliminary issue';
   const stacks = `${s.stacks.length} stack${s.stacks.length === 1 ? '' : 's'}`;
@@ -28,25 +32,27 @@ export function revisionMessage(s: RevisionSnapshot, hash: string, to: string, l
     (s.note ? `<p>Note: ${escapeHtml(s.note)}</p>` : '') +
     (s.acknowledgement ? `<p><b>${escapeHtml(s.acknowledgement)}</b></p>` : '') +
     `<p>The calculation package is attached. <a href="${escapeHtml(link)}">Open the revisions of the building</a>.</p>`;
-  return { to, subject, text, html, attachments: [{ filename: packageFilename(s), content: pdf, contentType: 'application/pdf' }] };
+  return { to, subject, text, html };
 }
 
-/** The mailer logs the last SMTP error per message; it is shown to the lead beside the recipient. */
-async function lastMailError(db: Knex, to: string, subject: string): Promise<string | null> {
-  const row = await db('mail_log').where({ to, subject, status: 'failed' }).orderBy('id', 'desc').first<{ error: string | null } | undefined>('error');
-  return row?.error ?? null;
-}
-
-/** Sends to every recipient not yet reached; returns how many were sent now. */
-export async function sendRevisionMail(ctx: ServerContext, revisionId: number, snapshot: RevisionSnapshot, hash: string, link: string, pdf: Buffer): Promise<number> {
-  const rows = (await recipientRows(ctx.db, revisionId)).filter((r) => r.status !== 'sent');
-  const outcomes = await Promise.all(
-    rows.map(async (row) => {
-      const message = revisionMessage(snapshot, hash, row.email, link, pdf);
-      const sent = await ctx.mailer.sendMail(message);
-      await recordDelivery(ctx.db, row, sent, sent ? null : await lastMailError(ctx.db, row.email, message.subject));
-      return sent;
-    }),
-  );
-  return outcomes.filter(Boolean).length;
+/**
+ * Sends again to every recipient not yet reached: failed sends go back in the queue, and recipients
+ * with no send queued (revisions frozen before the outbox existed) get one. Returns how many.
+ */
+export async function resendRevisionMail(ctx: ServerContext, revisionId: number, snapshot: RevisionSnapshot, hash: string, link: string): Promise<number> {
+  const n = await ctx.db.transaction(async (trx: Knex) => {
+    let queued = await requeueFailed(trx, revisionId);
+    const open = await trx('mail_queue').where({ attach_revision_id: revisionId }).whereIn('status', ['pending', 'sending']).pluck<number[]>('recipient_id');
+    const waiting = new Set(open);
+    for (const row of await recipientRows(trx, revisionId)) {
+      if (row.status === 'sent') continue;
+      await trx('revision_recipients').where({ id: row.id }).update({ status: 'pending', updated_at: now() });
+      if (waiting.has(row.id)) continue;
+      await enqueueMail(trx, [{ kind: 'revision', message: revisionMessage(snapshot, hash, row.email, link), attachRevisionId: revisionId, recipientId: row.id, buildingId: snapshot.building.id }]);
+      queued += 1;
+    }
+    return queued;
+  });
+  ctx.outbox.kick();
+  return n;
 }

@@ -31,7 +31,7 @@ export async function buildingSizingPreview(ctx: ServerContext, buildingId: numb
   const rows = await ctx.db<StackRow>('stacks').where({ building_id: buildingId }).orderBy('name').orderBy('id').select('id', 'name', 'version', 'doc');
   const inputs = await analysisInputs(ctx.db, buildingId);
   const stacks = rows.map((r) => ({ stackId: r.id, name: r.name, version: r.version, doc: parseDoc(r.doc) }));
-  const outcome = await ctx.offThread.sizeBuilding({ stacks, request, ...inputs });
+  const outcome = await ctx.offThread.sizeBuilding({ stacks, request, ...inputs }, `building:${buildingId}`);
   if ('refused' in outcome) throw unprocessable(outcome.refused.message, { code: outcome.refused.code });
   return { buildingId, ...outcome.sizing };
 }

@@ -13,6 +13,7 @@ import { conflict, unprocessable } from '../errors.ts';
 import { analyse, analysisInputs, resultColumns, summariseResult, type AnalysisInputs, type ResultSummary } from './analysis.ts';
 import { recordAudit } from './audit.ts';
 import { touchBuilding } from './buildings.ts';
+import { assertDocSound } from './docChecks.ts';
 import { diffDocs } from './docDiff.ts';
 import { assertUniqueIds, loadStackRow, parseDoc, type StackRow } from './stackRows.ts';
 import type { OffThread } from '../offThread/pool.ts';
@@ -94,7 +95,9 @@ export async function applyOps(db: Knex, input: OpsInput): Promise<CommittedChan
       if (e instanceof OpError) throw unprocessable(e.message, { opIndex: e.opIndex, id: e.id });
       throw e;
     }
-    return commitDoc(trx, row, { doc: next, ops: input.ops, touched, userId: input.userId, action: 'stack.edit' }, await analysisInputs(trx, row.building_id));
+    const inputs = await analysisInputs(trx, row.building_id);
+    assertDocSound(next, inputs.levels, touched);
+    return commitDoc(trx, row, { doc: next, ops: input.ops, touched, userId: input.userId, action: 'stack.edit' }, inputs);
   });
 }
 
@@ -110,7 +113,10 @@ export async function replaceDoc(db: Knex, input: { stackId: number; baseVersion
     const before = parseDoc(row.doc);
     const ops = diffDocs(before, input.doc);
     if (ops.length === 0) return null;
-    return commitDoc(trx, row, { doc: input.doc, ops, touched: touchedIds(before, ops), userId: input.userId, action: 'stack.replace' }, await analysisInputs(trx, row.building_id));
+    const touched = touchedIds(before, ops);
+    const inputs = await analysisInputs(trx, row.building_id);
+    assertDocSound(input.doc, inputs.levels, touched);
+    return commitDoc(trx, row, { doc: input.doc, ops, touched, userId: input.userId, action: 'stack.replace' }, inputs);
   });
 }
 

@@ -10,7 +10,7 @@ import { recordAudit } from './audit.ts';
 import { touchBuilding } from './buildings.ts';
 import { listLevels } from './levels.ts';
 import { assertUniqueIds, loadStackRow, toDetail, toSummary, type StackRow } from './stackRows.ts';
-import { assertNameFree } from './uniqueNames.ts';
+import { assertNameFree, withNameGuard } from './uniqueNames.ts';
 
 export async function listStacks(db: Knex, buildingId: number): Promise<StackSummary[]> {
   const rows = await db<StackRow>('stacks').where({ building_id: buildingId }).orderBy('name').orderBy('id');
@@ -28,7 +28,7 @@ export interface NewStack {
 }
 
 export async function createStack(db: Knex, buildingId: number, input: NewStack, user: User): Promise<StackSummary> {
-  const id = await db.transaction(async (trx) => {
+  const id = await withNameGuard('stack', input.name, () => db.transaction(async (trx) => {
     await assertNameFree(trx, 'stack', buildingId, input.name);
     const doc = input.template ? stackFromTemplate(input.template, await listLevels(trx, buildingId)) : (input.doc ?? { nodes: [], edges: [] });
     assertUniqueIds(doc);
@@ -39,17 +39,17 @@ export async function createStack(db: Knex, buildingId: number, input: NewStack,
     await recordAudit(trx, { userId: user.id, buildingId, stackId: row.id, action: 'stack.create', version: 0, detail: { name: input.name, from: input.template ? 'template' : input.doc ? 'document' : 'empty' } });
     await touchBuilding(trx, buildingId);
     return row.id;
-  });
+  }));
   return toSummary(await loadStackRow(db, id));
 }
 
 export async function renameStack(db: Knex, id: number, name: string, user: User): Promise<StackSummary> {
-  await db.transaction(async (trx) => {
+  await withNameGuard('stack', name, () => db.transaction(async (trx) => {
     const row = await loadStackRow(trx, id);
     await assertNameFree(trx, 'stack', row.building_id, name, id);
     await trx('stacks').where({ id }).update({ name, updated_at: now() });
     await recordAudit(trx, { userId: user.id, buildingId: row.building_id, stackId: id, action: 'stack.rename', version: row.version, detail: { from: row.name, to: name } });
-  });
+  }));
   return toSummary(await loadStackRow(db, id));
 }
 

@@ -91,6 +91,8 @@ export interface Building extends BuildingSummary {
 
 export const addMemberBodySchema = z.object({ email: emailSchema, role: roleSchema }).strict();
 export const updateMemberBodySchema = z.object({ role: roleSchema }).strict();
+/** A site admin gives a building with no lead a lead again (docs/faults.md). */
+export const restoreLeadBodySchema = z.object({ email: emailSchema }).strict();
 export interface Member {
   userId: number | null;
   email: string;
@@ -100,6 +102,8 @@ export interface Member {
   pending: boolean;
   /** When a pending invitation ends (ISO time). */
   expiresAt?: string;
+  /** For an invitation: whether its e-mail went out (the outbox retries; failed is given up). */
+  invitationMail?: { status: 'pending' | 'sent' | 'failed'; attempts: number; error: string | null };
 }
 
 /**

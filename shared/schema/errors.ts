@@ -12,6 +12,10 @@ export const errorCodeSchema = z.enum([
   'payload_too_large',
   'rate_limited',
   'internal',
+  'unavailable',
+  'busy',
+  'package_tampered',
+  'package_missing',
 ]);
 export type ErrorCode = z.infer<typeof errorCodeSchema>;
 

@@ -17,6 +17,11 @@ export const freezeBodySchema = z
     purpose: revisionPurposeSchema,
     /** Required (true) when any lift has a utilisation above 1.0; the note must then say why. */
     acknowledgeFailingLifts: z.boolean().default(false),
+    /**
+     * The newest revision of the building its sender has seen (null: none). When given, a freeze is
+     * refused (409) if a newer one exists, so a retried or doubled request makes one revision.
+     */
+    afterRevisionId: z.number().int().positive().max(Number.MAX_SAFE_INTEGER).nullable().optional(),
   })
   .strict();
 export type FreezeBody = z.input<typeof freezeBodySchema>;

@@ -45,10 +45,12 @@ export const useRevisionsStore = defineStore('revisions', () => {
   /** Freezes; a refusal is thrown back so the dialog can list its reasons. */
   async function freeze(body: FreezeBody): Promise<RevisionDetail> {
     if (buildingId.value === null) throw new Error('No building is open');
-    const created = await apiFetch<RevisionDetail>('POST', `/buildings/${buildingId.value}/revisions`, body);
+    // The newest revision this page shows: a doubled or retried request then cannot freeze twice.
+    const afterRevisionId = list.value.reduce<number | null>((m, r) => (m === null || r.id > m ? r.id : m), null);
+    const created = await apiFetch<RevisionDetail>('POST', `/buildings/${buildingId.value}/revisions`, { afterRevisionId, ...body });
     detail.value = created;
     list.value = [created, ...list.value.filter((r) => r.id !== created.id)];
-    notify.success(`Revision ${created.code} frozen; ${created.mail.sent} of ${created.recipients.length} e-mails sent`);
+    notify.success(`Revision ${created.code} frozen; e-mail to ${created.recipients.length} member${created.recipients.length === 1 ? '' : 's'} is on its way`);
     return created;
   }
 

@@ -57,7 +57,8 @@ describe('the freeze dialog', () => {
     byTest('freeze')?.click();
     await flushPromises();
     expect(requests.filter((r) => r.method === 'POST')).toHaveLength(1);
-    expect(requests[0].body).toEqual({ note: 'C/3 is being re-sized', purpose: 'preliminary', acknowledgeFailingLifts: true });
+    // afterRevisionId: the newest revision the page shows (none here), so a doubled request cannot freeze twice.
+    expect(requests[0].body).toEqual({ afterRevisionId: null, note: 'C/3 is being re-sized', purpose: 'preliminary', acknowledgeFailingLifts: true });
     expect(wrapper.emitted('frozen')?.[0]).toEqual([detail]);
     wrapper.unmount();
   });

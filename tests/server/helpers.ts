@@ -196,3 +196,16 @@ export function listRoutes(app: Express): string[] {
   }
   return out.sort();
 }
+
+/** Polls until `check` holds (work done in the background, such as the mail outbox); fails after timeoutMs. */
+export async function eventually(check: () => Promise<boolean>, timeoutMs = 25_000, everyMs = 50): Promise<void> {
+  const deadline = Date.now() + timeoutMs;
+  while (Date.now() < deadline) {
+    if (await check()) return;
+    await new Promise((r) => setTimeout(r, everyMs));
+  }
+  throw new Error(`condition not met within ${timeoutMs} ms`);
+}
+
+/** Mail settings that retry quickly, for tests of the outbox. */
+export const FAST_MAIL = { timeoutMs: 2000, retryBaseMs: 20, maxAttempts: 3, pollMs: 20, leaseMs: 10_000 };

@@ -1,9 +1,9 @@
 import { createServer, type Server } from 'node:net';
 import type { AddressInfo } from 'node:net';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { MAIL_ATTEMPTS } from '../../server/mail/mailer.ts';
+import type { Member } from '../../shared/schema/api.ts';
 import type { OutboxMessage } from '../../shared/schema/outbox.ts';
-import { createBuilding, errorCode, makeAdmin, registerUser, startTestServer, type TestServer } from './helpers.ts';
+import { createBuilding, errorCode, eventually, FAST_MAIL, makeAdmin, registerUser, startTestServer, type TestServer } from './helpers.ts';
 
 describe('the local SMTP fake and the dev outbox', () => {
   let s: TestServer;
@@ -75,21 +75,25 @@ describe('a mail server that refuses connections', () => {
     dead = createServer((socket) => socket.destroy());
     await new Promise<void>((r) => dead.listen(0, '127.0.0.1', () => r()));
     const { port } = dead.address() as AddressInfo;
-    s = await startTestServer({ smtpUrl: `smtp://127.0.0.1:${port}` });
+    s = await startTestServer({ smtpUrl: `smtp://127.0.0.1:${port}`, config: { mail: FAST_MAIL } });
   });
   afterAll(async () => {
     await s?.close();
     await new Promise<void>((r) => dead.close(() => r()));
   });
 
-  it('still answers the invitation request with 201, after retrying and logging the failure', async () => {
+  it('answers the invitation at once, retries with back-off, logs each failure and shows the lead the failed e-mail', async () => {
     const lead = await registerUser(s, 'lead');
     const b = await createBuilding(s, lead.token);
     const r = await s.api('POST', `/buildings/${b.id}/members`, { token: lead.token, body: { email: 'unreachable@example.test', role: 'viewer' } });
     expect(r.status).toBe(201);
-    const log = await s.ctx.db('mail_log').where({ to: 'unreachable@example.test' }).first<{ status: string; attempts: number; error: string }>();
-    expect(log).toMatchObject({ status: 'failed', attempts: MAIL_ATTEMPTS });
-    expect(log.error.length).toBeGreaterThan(0);
+    const invited = async () => ((await s.api('GET', `/buildings/${b.id}/members`, { token: lead.token })).body as Member[]).find((m) => m.email === 'unreachable@example.test');
+    await eventually(async () => (await invited())?.invitationMail?.status === 'failed');
+    const shown = (await invited())?.invitationMail;
+    expect(shown).toMatchObject({ status: 'failed', attempts: FAST_MAIL.maxAttempts });
+    expect((shown?.error ?? '').length).toBeGreaterThan(0);
+    const log = await s.ctx.db('mail_log').where({ to: 'unreachable@example.test' }).orderBy('id').select<{ status: string; attempts: number; error: string }[]>('status', 'attempts', 'error');
+    expect(log.map((l) => [l.status, l.attempts])).toEqual([['failed', 1], ['failed', 2], ['failed', 3]]);
     expect(s.ctx.mailer.fakePort).toBeNull();
   });
 });

@@ -4,7 +4,7 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type { Level, StackDetail, StackSummary } from '../../shared/schema/api.ts';
 import { addMember, createBuilding, errorCode, listRoutes, registerUser, startTestServer, TEST_PASSWORD, type TestServer } from './helpers.ts';
 
-const TABLES = ['users', 'buildings', 'memberships', 'invitations', 'levels', 'stacks', 'stack_ops', 'audit_log', 'outbox', 'mail_log'];
+const TABLES = ['users', 'buildings', 'memberships', 'invitations', 'levels', 'stacks', 'stack_ops', 'audit_log', 'outbox', 'mail_log', 'mail_queue', 'revision_packages'];
 const HUGE = JSON.stringify({ name: 'x'.repeat(1_200_000) });
 
 interface Req {
@@ -250,6 +250,27 @@ describe('malformed input on every writing route', () => {
       cases: () => [
         ['NaN as the revision id', { path: '/revisions/NaN/resend' }],
         ['a revision id of -1', { path: '/revisions/-1/resend' }],
+      ],
+    },
+    {
+      name: 'POST /api/revisions/:id/package/redraw',
+      method: 'POST',
+      path: () => '/revisions/1/package/redraw',
+      bodyless: true,
+      cases: () => [
+        ['NaN as the revision id', { path: '/revisions/NaN/package/redraw' }],
+        ['a revision id of 1e308', { path: '/revisions/1e308/package/redraw' }],
+      ],
+    },
+    {
+      name: 'POST /api/admin/buildings/:id/lead',
+      method: 'POST',
+      path: () => `/admin/buildings/${ids.building}/lead`,
+      cases: () => [
+        ['no e-mail', { body: {} }],
+        ['an e-mail that is a number', { body: { email: 1e308 } }],
+        ['an unknown field', { body: { email: 'a@example.test', role: 'viewer' } }],
+        ['a building id of NaN', { path: '/admin/buildings/NaN/lead', body: { email: 'a@example.test' } }],
       ],
     },
     ...(['stacks', 'buildings'] as const).map((scope) => ({

@@ -1,6 +1,6 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type { BuildingSummary, Member } from '../../shared/schema/api.ts';
-import { addMember, createBuilding, errorCode, registerUser, signIn, startTestServer, TEST_PASSWORD, verificationToken, type TestServer } from './helpers.ts';
+import { addMember, createBuilding, errorCode, eventually, registerUser, signIn, startTestServer, TEST_PASSWORD, verificationToken, type TestServer } from './helpers.ts';
 
 describe('members and invitations', () => {
   let s: TestServer;
@@ -28,8 +28,12 @@ describe('members and invitations', () => {
     const email = `newcomer-${Date.now()}@example.test`;
     const r = await s.api('POST', `/buildings/${b.id}/members`, { token: lead.token, body: { email, role: 'viewer' } });
     expect(r.status).toBe(201);
-    expect(r.body).toEqual({ userId: null, email, name: null, role: 'viewer', pending: true, expiresAt: expect.any(String) });
+    expect(r.body).toEqual({ userId: null, email, name: null, role: 'viewer', pending: true, expiresAt: expect.any(String), invitationMail: { status: 'pending', attempts: 0, error: null } });
+    // Sent by the background sender from the durable outbox.
+    await eventually(async () => (await s.ctx.db('outbox').where({ to: email }).first()) !== undefined);
     const mail = await s.ctx.db('outbox').where({ to: email }).first<{ subject: string; text: string }>();
+    const listed = ((await s.api('GET', `/buildings/${b.id}/members`, { token: lead.token })).body as Member[]).find((m) => m.email === email);
+    expect(listed?.invitationMail).toEqual({ status: 'sent', attempts: 1, error: null });
     // The building's name is the lead's text: quoted in the body, never in the subject.
     expect(mail.subject).not.toContain('Invented tower');
     expect(mail.text).toContain('“Invented tower”');

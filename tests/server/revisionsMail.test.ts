@@ -3,7 +3,7 @@ import type { AddressInfo } from 'node:net';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type { OutboxMessage } from '../../shared/schema/outbox.ts';
 import type { RevisionDetail } from '../../shared/schema/revisions.ts';
-import { makeAdmin, registerUser, startTestServer, type TestServer } from './helpers.ts';
+import { eventually, FAST_MAIL, makeAdmin, registerUser, startTestServer, type TestServer } from './helpers.ts';
 import { revisionFixture, type RevisionFixture } from './revisionsFixture.ts';
 
 describe('e-mail on freeze (local SMTP fake)', () => {
@@ -21,9 +21,14 @@ describe('e-mail on freeze (local SMTP fake)', () => {
     // The link comes from the configured public URL: a crafted Origin header never reaches the mail.
     const r = await s.api('POST', `/buildings/${f.buildingId}/revisions`, { token: f.lead.token, body: { note: 'Mail test', purpose: 'preliminary' }, headers: { Origin: 'javascript:alert(1)//' } });
     expect(r.status).toBe(201);
-    const rev = r.body as RevisionDetail;
+    const frozen = r.body as RevisionDetail;
     const members = [f.lead, f.engineer, f.viewer].map((m) => m.user.email).sort();
-    expect(rev.recipients.map((x) => [x.email, x.status])).toEqual(members.map((e) => [e, 'sent']));
+    // The freeze answers once committed; the mail goes out from the durable outbox just after.
+    expect(frozen.recipients.map((x) => x.email)).toEqual(members);
+    const detail = async () => (await s.api('GET', `/revisions/${frozen.id}`, { token: f.lead.token })).body as RevisionDetail;
+    await eventually(async () => (await detail()).mail.sent === 3);
+    const rev = await detail();
+    expect(rev.recipients.map((x) => [x.email, x.status, x.attempts])).toEqual(members.map((e) => [e, 'sent', 1]));
     expect(rev.mail).toEqual({ pending: 0, sent: 3, failed: 0 });
 
     const admin = await registerUser(s, 'admin');
@@ -63,7 +68,7 @@ describe('e-mail on freeze when the mail server refuses', () => {
     // Accepts TCP and hangs up at once: every SMTP attempt fails.
     dead = createServer((socket) => socket.destroy());
     await new Promise<void>((r) => dead.listen(0, '127.0.0.1', () => r()));
-    s = await startTestServer({ smtpUrl: `smtp://127.0.0.1:${(dead.address() as AddressInfo).port}` });
+    s = await startTestServer({ smtpUrl: `smtp://127.0.0.1:${(dead.address() as AddressInfo).port}`, config: { mail: FAST_MAIL } });
     f = await revisionFixture(s);
   });
   afterAll(async () => {
@@ -71,15 +76,19 @@ describe('e-mail on freeze when the mail server refuses', () => {
     await new Promise<void>((r) => dead.close(() => r()));
   });
 
-  it('keeps the revision, marks each recipient failed with the reason, and counts a resend as another attempt', async () => {
+  it('keeps the revision, retries with back-off, marks each recipient failed with the reason, and a resend tries again', async () => {
     const r = await s.api('POST', `/buildings/${f.buildingId}/revisions`, { token: f.lead.token, body: { note: '', purpose: 'preliminary' } });
     expect(r.status).toBe(201);
-    const rev = r.body as RevisionDetail;
-    expect(rev.code).toBe('P01');
-    expect(rev.mail).toEqual({ pending: 0, sent: 0, failed: 3 });
-    expect(rev.recipients.every((x) => x.status === 'failed' && x.attempts === 1 && (x.error ?? '').length > 0)).toBe(true);
+    const frozen = r.body as RevisionDetail;
+    expect(frozen.code).toBe('P01');
+    const detail = async () => (await s.api('GET', `/revisions/${frozen.id}`, { token: f.lead.token })).body as RevisionDetail;
+    await eventually(async () => (await detail()).mail.failed === 3);
+    const rev = await detail();
+    expect(rev.recipients.every((x) => x.status === 'failed' && x.attempts === FAST_MAIL.maxAttempts && (x.error ?? '').length > 0)).toBe(true);
     const again = (await s.api('POST', `/revisions/${rev.id}/resend`, { token: f.lead.token })).body as RevisionDetail;
-    expect(again.recipients.every((x) => x.status === 'failed' && x.attempts === 2)).toBe(true);
+    expect(again.recipients.every((x) => x.status === 'pending')).toBe(true);
+    await eventually(async () => (await detail()).mail.failed === 3);
+    expect((await detail()).recipients.every((x) => x.status === 'failed' && x.attempts === 2 * FAST_MAIL.maxAttempts)).toBe(true);
     expect(again.hash).toBe(rev.hash);
   });
 });

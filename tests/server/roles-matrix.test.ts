@@ -125,7 +125,11 @@ const MATRIX: Record<string, Case> = {
   'GET /api/revisions/:id': { path: (f) => `/revisions/${f.revisionId}`, expect: read },
   'GET /api/revisions/:id/calc.pdf': { path: (f) => `/revisions/${f.revisionId}/calc.pdf`, expect: read },
   'POST /api/revisions/:id/resend': { path: (f) => `/revisions/${f.revisionId}/resend`, expect: leadOnly(200) },
+  // Only for a tampered or lost package: the shared revision's is intact, so the lead is refused (409).
+  'POST /api/revisions/:id/package/redraw': { path: (f) => `/revisions/${f.revisionId}/package/redraw`, expect: leadOnly(409) },
   'GET /api/dev/outbox': { path: () => '/dev/outbox', expect: adminOnly },
+  // Only for a building with no lead: the fixture's building has one, so even the admin is refused (409).
+  'POST /api/admin/buildings/:id/lead': { path: (f) => `/admin/buildings/${f.buildingId}/lead`, body: () => ({ email: 'matrix-lead@example.test' }), expect: { ...adminOnly, admin: 409 } },
   'GET /api/dev/outbox/:id/attachments/:n': { path: (f) => `/dev/outbox/${f.outboxId}/attachments/0`, expect: adminOnly },
 };
 

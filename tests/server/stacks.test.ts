@@ -53,7 +53,7 @@ describe('stacks', () => {
     const migrationConfig = { migrationSource, name: '202612020900_add_stack_governing_label' };
     await s.ctx.db.migrate.down(migrationConfig);
     expect(await s.ctx.db.schema.hasColumn('stacks', 'governing_lift_label')).toBe(false);
-    await s.ctx.db.migrate.up(migrationConfig);
+    await s.ctx.db.migrate.latest(migrationConfig);
     const listed = (await s.api('GET', `/buildings/${buildingId}/stacks`, { token })).body as StackSummary[];
     expect(listed.find((x) => x.id === sum.id)?.governingLiftLabel).toBe(sum.governingLiftLabel);
     expect(sum.governingLiftLabel).toMatch(/^L\d+$/);
