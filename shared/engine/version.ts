@@ -3,4 +3,4 @@
  * number the engine prints (a formula, a factor, a catalogue row), so an issued package says which
  * rules produced it.
  */
-export const ENGINE_VERSION = '1.0.0';
+export const ENGINE_VERSION = '1.1.0';

@@ -155,12 +155,32 @@ export interface TakeDownRow {
   combination: string;
 }
 
+/** Loads a level's floor brought into a restraint or the cap of a stack on the grid (m², kN). */
+export interface FloorLoadUse {
+  nodeId: string;
+  levelId: string;
+  area: number;
+  gridArea: number;
+  Gk: number;
+  Qk: number;
+  category: string;
+  faces: Partial<Record<'yPlus' | 'yMinus' | 'zPlus' | 'zMinus', { Gk: number; Qk: number }>>;
+  /** Line loads within Gk and Qk. */
+  lineGk: number;
+  lineQk: number;
+  overrideReason?: string;
+  /** The node keeps loads set by hand; the figures above are what the floor would give. */
+  byHand: boolean;
+}
+
 export interface StackResult {
   errors: Issue[];
   warnings: Issue[];
   lifts: LiftResult[];
   governingLiftId: string | null;
   takeDown: TakeDownRow[];
+  /** Present for a stack on the building's grid: the loads derived from the floors (docs/building-model.md). */
+  floorLoads?: FloorLoadUse[];
 }
 
 export type StackStatus = 'passes' | 'fails' | 'errors';
