@@ -15,6 +15,8 @@ import * as addRevisionTriggers from './202512011001_add_revision_triggers.ts';
 import * as addRevisionRecipients from './202512011002_add_revision_recipients.ts';
 import * as addCompanySections from './202512011020_add_company_sections.ts';
 import * as addStackGoverningLabel from './202612020900_add_stack_governing_label.ts';
+import * as addBuildingModels from './202612031300_add_building_models.ts';
+import * as addStackGridPosition from './202612031301_add_stack_grid_position.ts';
 
 const migrations: Record<string, Knex.Migration> = {
   '202512010900_add_users': addUsers,
@@ -32,6 +34,8 @@ const migrations: Record<string, Knex.Migration> = {
   '202512011002_add_revision_recipients': addRevisionRecipients,
   '202512011020_add_company_sections': addCompanySections,
   '202612020900_add_stack_governing_label': addStackGoverningLabel,
+  '202612031300_add_building_models': addBuildingModels,
+  '202612031301_add_stack_grid_position': addStackGridPosition,
 };
 
 export const migrationSource: Knex.MigrationSource<string> = {

@@ -15,5 +15,9 @@ export function socketBroadcaster(io: LiveServer): Broadcaster {
       if (isShuttingDown(io)) return;
       io.to(buildingRoom(payload.buildingId)).emit('building:stack-changed', payload);
     },
+    buildingModelChanged(payload) {
+      if (isShuttingDown(io)) return;
+      io.to(buildingRoom(payload.buildingId)).emit('building:model-changed', payload);
+    },
   };
 }

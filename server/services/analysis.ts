@@ -1,9 +1,12 @@
 // Runs the engine for a stored stack with its building's options and levels, and summarises the
 // result for lists (so listing never recomputes).
 import type { Knex } from 'knex';
+import { stackFloorLoads } from '../../shared/engine/building/stackFloorLoads.ts';
 import { analyseStack } from '../../shared/engine/index.ts';
+import type { BuildingModel, StackPlacement } from '../../shared/schema/building.ts';
 import type { AnalysisOptions, StackResult } from '../../shared/schema/results.ts';
 import type { SectionDims, StackDocument } from '../../shared/schema/stack.ts';
+import { readModel } from './buildingModelStore.ts';
 import { getBuildingOptions } from './buildings.ts';
 import { companySectionMap } from './companySections.ts';
 
@@ -13,16 +16,25 @@ export interface AnalysisInputs {
   levels: Map<string, number>;
   /** The building's own sections by designation (issue 9). */
   sections: Map<string, SectionDims>;
+  /** Grid, floor loads and area overrides (docs/building-model.md). */
+  model: BuildingModel;
+}
+
+/** A stored stack's place on the grid, for deriving its loads. */
+export interface StackPlace extends StackPlacement {
+  stackId: number;
 }
 
 export async function analysisInputs(db: Knex, buildingId: number): Promise<AnalysisInputs> {
   const options = await getBuildingOptions(db, buildingId);
   const rows = await db('levels').where({ building_id: buildingId }).select<{ id: number; elevation: number }[]>('id', 'elevation');
-  return { options, levels: new Map(rows.map((r) => [String(r.id), Number(r.elevation)])), sections: await companySectionMap(db, buildingId) };
+  const levels = new Map(rows.map((r) => [String(r.id), Number(r.elevation)]));
+  return { options, levels, sections: await companySectionMap(db, buildingId), model: (await readModel(db, buildingId)).model };
 }
 
-export function analyse(doc: StackDocument, inputs: AnalysisInputs): StackResult {
-  return analyseStack(doc, inputs.options, { levels: inputs.levels, sections: inputs.sections, shapeChecked: true });
+export function analyse(doc: StackDocument, inputs: AnalysisInputs, place?: StackPlace): StackResult {
+  const floorLoads = place && place.gridX !== null ? stackFloorLoads(inputs.model, place, place.stackId) : undefined;
+  return analyseStack(doc, inputs.options, { levels: inputs.levels, sections: inputs.sections, shapeChecked: true, floorLoads });
 }
 
 export type StackStatus = 'passes' | 'fails' | 'errors';

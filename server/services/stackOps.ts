@@ -14,7 +14,7 @@ import { analyse, analysisInputs, resultColumns, summariseResult, type AnalysisI
 import { recordAudit } from './audit.ts';
 import { touchBuilding } from './buildings.ts';
 import { diffDocs } from './docDiff.ts';
-import { assertUniqueIds, loadStackRow, parseDoc, type StackRow } from './stackRows.ts';
+import { assertUniqueIds, loadStackRow, parseDoc, placeOf, type StackRow } from './stackRows.ts';
 
 export interface CommittedChange {
   stackId: number;
@@ -33,7 +33,7 @@ export async function commitDoc(
   change: { doc: StackDocument; ops: Op[]; touched: Set<string>; userId: number | null; action: string },
   inputs: AnalysisInputs,
 ): Promise<CommittedChange> {
-  const results = analyse(change.doc, inputs);
+  const results = analyse(change.doc, inputs, placeOf(row));
   const version = row.version + 1;
   const updated = await trx('stacks')
     .where({ id: row.id, version: row.version })

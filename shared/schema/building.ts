@@ -141,7 +141,19 @@ export const buildingModelSchema = z
 
 // Request bodies
 export const putGridBodySchema = z.object({ grid: gridSchema }).strict();
-export const putBuildupsBodySchema = z.object({ buildups: z.array(buildupSchema).max(100) }).strict();
+export const putBuildupsBodySchema = z
+  .object({ buildups: z.array(buildupSchema).max(100) })
+  .strict()
+  .superRefine((body, ctx) => {
+    const ids = new Set<string>();
+    const names = new Set<string>();
+    body.buildups.forEach((b, i) => {
+      if (ids.has(b.id)) ctx.addIssue({ code: 'custom', path: ['buildups', i, 'id'], message: `is used by another build-up (${b.id})` });
+      if (names.has(b.name.toLowerCase())) ctx.addIssue({ code: 'custom', path: ['buildups', i, 'name'], message: `${b.name} names two build-ups` });
+      ids.add(b.id);
+      names.add(b.name.toLowerCase());
+    });
+  });
 export const putFloorLoadBodySchema = z
   .object({ buildupId: id.nullable(), span: floorSpanSchema.default('two-way'), lines: z.array(lineLoadSchema).max(20).default([]) })
   .strict();
@@ -152,10 +164,21 @@ export interface BuildingModelReply extends BuildingModel {
   version: number;
 }
 
-/** Socket: the building's model changed (grid, build-ups, floor loads or overrides). */
+/** Where a stack stands, as lists and the live channel carry it. */
+export interface Placement {
+  id: number;
+  name: string;
+  gridX: string | null;
+  gridY: string | null;
+  webAlong: 'x' | 'y';
+}
+
+/** Socket: the building's model changed (grid, build-ups, floor loads or overrides), or a stack was placed. */
 export interface BuildingModelChanged {
   buildingId: number;
   version: number;
   model: BuildingModel;
   by: { userId: number; name: string };
+  /** Every stack's place, when the change moved or renamed stacks. */
+  placements?: Placement[];
 }

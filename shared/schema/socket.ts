@@ -4,6 +4,7 @@ import { opsSchema, type Op } from './ops.ts';
 import type { StackDocument } from './stack.ts';
 import type { StackResult } from './results.ts';
 import type { ApiErrorBody } from './errors.ts';
+import type { BuildingModelChanged } from './building.ts';
 
 const stackId = z.number().int().positive();
 
@@ -56,4 +57,5 @@ export interface ServerToClientEvents {
   'stack:changed': (payload: StackChanged) => void;
   presence: (payload: { stackId: number; users: PresenceUser[] }) => void;
   'building:stack-changed': (payload: BuildingStackChanged) => void;
+  'building:model-changed': (payload: BuildingModelChanged) => void;
 }

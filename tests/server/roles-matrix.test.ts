@@ -44,6 +44,8 @@ let unique = 0;
 const fresh = () => `matrix-${++unique}-${Date.now()}@example.test`;
 const template = { storeys: 2, storeyHeight: 3.5, sections: ['UKC 203x203x46'], Gk: 50, Qk: 20 };
 
+const MATRIX_GRID = { x: { lines: [{ id: 'A', name: 'A', position: 0 }] }, y: { lines: [{ id: 'y1', name: '1', position: 0 }] } };
+
 const MATRIX: Record<string, Case> = {
   'GET /api/health': { path: () => '/health', expect: all(200) },
   'POST /api/auth/register': { path: () => '/auth/register', body: () => ({ email: fresh(), password: 'long enough password', name: 'New' }), expect: all(201) },
@@ -61,6 +63,12 @@ const MATRIX: Record<string, Case> = {
   'POST /api/buildings/:id/levels': { path: (f) => `/buildings/${f.buildingId}/levels`, body: () => ({ name: 'Level 9', elevation: 30 }), expect: edit(201) },
   'PATCH /api/buildings/:id/levels/:levelId': { path: (f) => `/buildings/${f.buildingId}/levels/${f.levelId}`, body: () => ({ elevation: 41 }), expect: edit(200) },
   'DELETE /api/buildings/:id/levels/:levelId': { path: (f) => `/buildings/${f.buildingId}/levels/${f.levelId}`, expect: edit(204) },
+  'GET /api/buildings/:id/model': { path: (f) => `/buildings/${f.buildingId}/model`, expect: read },
+  'PUT /api/buildings/:id/grid': { path: (f) => `/buildings/${f.buildingId}/grid`, body: () => ({ grid: MATRIX_GRID }), expect: edit(200) },
+  'PUT /api/buildings/:id/buildups': { path: (f) => `/buildings/${f.buildingId}/buildups`, body: () => ({ buildups: [] }), expect: edit(200) },
+  'PUT /api/buildings/:id/levels/:levelId/floor-load': { path: (f) => `/buildings/${f.buildingId}/levels/${f.levelId}/floor-load`, body: () => ({ buildupId: null }), expect: edit(200) },
+  'PUT /api/stacks/:id/placement': { path: (f) => `/stacks/${f.stackId}/placement`, body: () => ({ gridX: null, gridY: null }), expect: edit(200) },
+  'PUT /api/stacks/:id/area-overrides': { path: (f) => `/stacks/${f.stackId}/area-overrides`, body: () => ({ overrides: [] }), expect: edit(200) },
   'GET /api/buildings/:id/stacks': { path: (f) => `/buildings/${f.buildingId}/stacks`, expect: read },
   'POST /api/buildings/:id/stacks': { path: (f) => `/buildings/${f.buildingId}/stacks`, body: () => ({ name: 'N/1', template }), expect: edit(201) },
   'GET /api/stacks/:id': { path: (f) => `/stacks/${f.stackId}`, expect: read },
