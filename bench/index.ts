@@ -4,6 +4,7 @@ import { benchStack } from './stack.ts';
 import { benchRealtime } from './realtime.ts';
 import { benchSizing } from './sizing.ts';
 import { benchFreeze } from './freeze.ts';
+import { benchFloorLoad } from './floorLoad.ts';
 
 const benches: [string, () => Promise<void>][] = [
   ['member check (issue 3)', benchEngine],
@@ -11,6 +12,7 @@ const benches: [string, () => Promise<void>][] = [
   ['live channel (issue 6)', benchRealtime],
   ['sizing (issue 11)', benchSizing],
   ['freeze a revision (issue 8)', benchFreeze],
+  ['floor load at building scale (issue 20)', benchFloorLoad],
 ];
 
 const only = process.argv[2];

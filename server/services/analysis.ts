@@ -1,6 +1,7 @@
 // Runs the engine for a stored stack with its building's options and levels, and summarises the
 // result for lists (so listing never recomputes).
 import type { Knex } from 'knex';
+import { applyFloorLoads } from '../../shared/engine/building/applyFloorLoads.ts';
 import { stackFloorLoads } from '../../shared/engine/building/stackFloorLoads.ts';
 import { analyseStack } from '../../shared/engine/index.ts';
 import type { BuildingModel, StackPlacement } from '../../shared/schema/building.ts';
@@ -32,9 +33,20 @@ export async function analysisInputs(db: Knex, buildingId: number): Promise<Anal
   return { options, levels, sections: await companySectionMap(db, buildingId), model: (await readModel(db, buildingId)).model };
 }
 
+function floorLoadsOf(inputs: AnalysisInputs, place?: StackPlace) {
+  return place && place.gridX !== null ? stackFloorLoads(inputs.model, place, place.stackId) : undefined;
+}
+
 export function analyse(doc: StackDocument, inputs: AnalysisInputs, place?: StackPlace): StackResult {
-  const floorLoads = place && place.gridX !== null ? stackFloorLoads(inputs.model, place, place.stackId) : undefined;
-  return analyseStack(doc, inputs.options, { levels: inputs.levels, sections: inputs.sections, shapeChecked: true, floorLoads });
+  return analyseStack(doc, inputs.options, { levels: inputs.levels, sections: inputs.sections, shapeChecked: true, floorLoads: floorLoadsOf(inputs, place) });
+}
+
+/**
+ * The document with its floors' loads on its restraints and cap, for sizing, which reads loads from the
+ * document. Sizing so leaves out αA (the area is not in the document): its proposal can only be heavier.
+ */
+export function withDerivedLoads(doc: StackDocument, inputs: AnalysisInputs, place?: StackPlace): StackDocument {
+  return applyFloorLoads(doc, floorLoadsOf(inputs, place)).doc;
 }
 
 export type StackStatus = 'passes' | 'fails' | 'errors';
