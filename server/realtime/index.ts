@@ -58,7 +58,7 @@ export async function attachRealtime(httpServer: HttpServer, ctx: ServerContext)
 
   const closeRedis = ctx.config.redisUrl ? await useRedis(io, ctx.config.redisUrl, ctx.config.redisPrefix, log) : null;
   io.on('connection', (socket) => registerHandlers(ctx, io, socket, log));
-  ctx.broadcaster = socketBroadcaster(io);
+  ctx.broadcaster = socketBroadcaster(io, { sharedRooms: closeRedis !== null });
 
   return {
     io,

@@ -20,12 +20,18 @@ export async function getModel(db: Knex, buildingId: number): Promise<BuildingMo
 }
 
 /** Stored documents were validated on the way in; the hot path of a building-wide change reads them as they are. */
-const storedDoc = (row: StackRow): StackDocument => JSON.parse(row.doc) as StackDocument;
+const storedDoc = (row: Pick<StackRow, 'doc'>): StackDocument => JSON.parse(row.doc) as StackDocument;
 
-const onGrid = (row: StackRow) => row.grid_x !== null && row.grid_y !== null;
+/** What re-analysing and placing need of a stack row: never its stored results, which are large. */
+const ROW_COLUMNS = ['id', 'building_id', 'name', 'doc', 'version', 'grid_x', 'grid_y', 'web_along'] as const;
+type ModelRow = Pick<StackRow, (typeof ROW_COLUMNS)[number]>;
+const PLACE_COLUMNS = ['id', 'name', 'grid_x', 'grid_y', 'web_along'] as const;
+type PlaceRow = Pick<StackRow, (typeof PLACE_COLUMNS)[number]>;
+
+const onGrid = (row: Pick<StackRow, 'grid_x' | 'grid_y'>) => row.grid_x !== null && row.grid_y !== null;
 
 /** A stack uses a level when a restraint, its cap or support sits on it; found in the stored text, no parse needed. */
-const usesLevel = (row: StackRow, levelId: string) => row.doc.includes(`"levelId":${JSON.stringify(levelId)}`);
+const usesLevel = (row: Pick<StackRow, 'doc'>, levelId: string) => row.doc.includes(`"levelId":${JSON.stringify(levelId)}`);
 
 
 interface ModelChange {
@@ -35,7 +41,7 @@ interface ModelChange {
   placements?: Placement[];
 }
 
-async function reanalyse(trx: Knex, buildingId: number, rows: StackRow[], userId: number, action: string): Promise<CommittedChange[]> {
+async function reanalyse(trx: Knex, buildingId: number, rows: ModelRow[], userId: number, action: string): Promise<CommittedChange[]> {
   if (rows.length === 0) return [];
   const inputs = await analysisInputs(trx, buildingId);
   const changes: CommittedChange[] = [];
@@ -62,12 +68,12 @@ async function storeAndReanalyse(
   version: number,
   user: User,
   action: string,
-  affected: (row: StackRow) => boolean,
+  affected: (row: ModelRow) => boolean,
   detail: Record<string, unknown>,
 ): Promise<ModelChange> {
   const stored = await writeModel(trx, buildingId, next, version);
   await recordAudit(trx, { userId: user.id, buildingId, action, version: stored, detail });
-  const rows = (await trx<StackRow>('stacks').where({ building_id: buildingId }).orderBy('id')).filter(affected);
+  const rows = (await trx<StackRow>('stacks').where({ building_id: buildingId }).orderBy('id').select<ModelRow[]>(...ROW_COLUMNS)).filter(affected);
   return { version: stored, model: next, changes: await reanalyse(trx, buildingId, rows, user.id, action) };
 }
 
@@ -77,12 +83,12 @@ const gridRef = (grid: Grid, gridX: string, gridY: string): string | null => {
   return x && y ? `${x.name}/${y.name}` : null;
 };
 
-const toPlacement = (r: StackRow): Placement => ({ id: r.id, name: r.name, gridX: r.grid_x, gridY: r.grid_y, webAlong: r.web_along === 'y' ? 'y' : 'x' });
+const toPlacement = (r: PlaceRow): Placement => ({ id: r.id, name: r.name, gridX: r.grid_x, gridY: r.grid_y, webAlong: r.web_along === 'y' ? 'y' : 'x' });
 
 export async function putGrid(ctx: ServerContext, buildingId: number, grid: Grid, user: User): Promise<BuildingModelReply> {
   const change = await ctx.db.transaction(async (trx) => {
     const { model, version } = await readModel(trx, buildingId, { lock: true });
-    const stacks = await trx<StackRow>('stacks').where({ building_id: buildingId }).orderBy('id');
+    const stacks = await trx<StackRow>('stacks').where({ building_id: buildingId }).orderBy('id').select<PlaceRow[]>(...PLACE_COLUMNS);
     const placed = stacks.filter(onGrid);
     const lost = placed.filter((s) => gridRef(grid, s.grid_x!, s.grid_y!) === null);
     if (lost.length) {
@@ -123,7 +129,7 @@ export async function putBuildups(ctx: ServerContext, buildingId: number, buildu
     if (orphan) throw conflict(`Build-up ${orphan.buildupId} is used by a level's floor load; give that level another build-up first`, { levelId: orphan.levelId });
     const changed = new Set(buildups.filter((b) => JSON.stringify(b) !== JSON.stringify(model.buildups.find((o) => o.id === b.id))).map((b) => b.id));
     const levels = model.floors.filter((f) => changed.has(f.buildupId)).map((f) => f.levelId);
-    const affected = (row: StackRow) => onGrid(row) && levels.some((l) => usesLevel(row, l));
+    const affected = (row: ModelRow) => onGrid(row) && levels.some((l) => usesLevel(row, l));
     return storeAndReanalyse(trx, buildingId, { ...model, buildups }, version, user, 'building.buildups', affected, { buildups: buildups.length });
   });
   broadcast(ctx, buildingId, change, user);
@@ -162,7 +168,7 @@ export async function putFloorLoad(ctx: ServerContext, buildingId: number, level
       assertEdgeLines(model.grid, input.lines);
       floors = [...others, { levelId: key, buildupId: input.buildupId, span: input.span, lines: input.lines }];
     }
-    const affected = (row: StackRow) => onGrid(row) && usesLevel(row, key);
+    const affected = (row: ModelRow) => onGrid(row) && usesLevel(row, key);
     return storeAndReanalyse(trx, buildingId, { ...model, floors }, version, user, 'level.floor-load', affected, { levelId, ...input });
   });
   broadcast(ctx, buildingId, change, user);
@@ -211,10 +217,10 @@ export async function placeStack(ctx: ServerContext, stackId: number, placement:
     }
     const columns = { grid_x: placement.gridX, grid_y: placement.gridY, web_along: placement.webAlong, name };
     await trx('stacks').where({ id: stackId }).update({ ...columns, updated_at: now() });
-    const placed: StackRow = { ...row, ...columns };
+    const placed = { ...row, ...columns };
     const inputs = await analysisInputs(trx, buildingId);
     const committed = await commitDoc(trx, placed, { doc: storedDoc(placed), ops: [], touched: new Set(), userId: user.id, action: 'stack.place' }, inputs);
-    const placements = (await trx<StackRow>('stacks').where({ building_id: buildingId }).orderBy('id')).map(toPlacement);
+    const placements = (await trx<StackRow>('stacks').where({ building_id: buildingId }).orderBy('id').select<PlaceRow[]>(...PLACE_COLUMNS)).map(toPlacement);
     return { version, model, changes: [committed], placements, placement: toPlacement(placed), buildingId };
   });
   broadcast(ctx, change.buildingId, change, user);

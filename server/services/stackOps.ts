@@ -29,7 +29,7 @@ export interface CommittedChange {
 /** Stores doc as the next version of row; refuses (409) when another writer got there first. */
 export async function commitDoc(
   trx: Knex,
-  row: StackRow,
+  row: Pick<StackRow, 'id' | 'building_id' | 'version' | 'grid_x' | 'grid_y' | 'web_along'>,
   change: { doc: StackDocument; ops: Op[]; touched: Set<string>; userId: number | null; action: string },
   inputs: AnalysisInputs,
 ): Promise<CommittedChange> {
