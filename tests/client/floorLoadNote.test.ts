@@ -33,7 +33,7 @@ describe('loads of a restraint on a floor with floor loads', () => {
     expect((gk.element as HTMLInputElement).value).toBe('126.563');
     expect(gk.attributes('readonly')).toBeDefined();
     await w.get('[data-test="set-loads-by-hand"]').trigger('click');
-    const [ops] = w.emitted('edit')![0] as [{ op: string; data: Record<string, unknown> }[]];
+    const [ops] = w.emitted('edit')![0] as unknown as [{ op: string; data: Record<string, unknown> }[]];
     expect(ops[0].data).toMatchObject({ loadsByHand: true, Gk: 126.563, Qk: 63.281, category: 'B' });
     w.unmount();
   });
@@ -45,7 +45,7 @@ describe('loads of a restraint on a floor with floor loads', () => {
     expect(note.text()).toContain('Loads set by hand');
     expect(w.get('input[data-field="Gk"]').attributes('readonly')).toBeUndefined();
     await w.get('[data-test="use-floor-loads"]').trigger('click');
-    const [ops] = w.emitted('edit')![0] as [{ op: string; data: Record<string, unknown> }[]];
+    const [ops] = w.emitted('edit')![0] as unknown as [{ op: string; data: Record<string, unknown> }[]];
     expect(ops[0].data).toEqual({ loadsByHand: false });
     w.unmount();
   });
