@@ -18,6 +18,9 @@ const STOREYS = 40;
 const SIDE = 20;
 const BUILDING_CLIENTS = 10;
 const STACK_CLIENTS = 10;
+const SAMPLES = 5;
+/** A change whose updates have not all arrived by now has lost some: reported, not waited for. */
+const TIMEOUT_MS = 120_000;
 
 async function startBenchServer(): Promise<{ url: string; stop(): void }> {
   const child = spawn(process.execPath, ['--import', 'tsx', 'bench/serve.ts'], { stdio: ['pipe', 'pipe', 'inherit'] });
@@ -86,11 +89,13 @@ async function setUp(url: string, token: string) {
 async function timeChange(url: string, token: string, buildingId: number, levelId: string, buildupId: string, stackIds: number[], clients: { building: Client[]; stacks: Client[] }): Promise<number> {
   const t0 = performance.now();
   const arrivals: Promise<number>[] = [];
+  let heard = 0;
   for (const c of clients.building) {
     arrivals.push(
       new Promise((resolve) => {
         let left = stackIds.length;
         const on = () => {
+          heard += 1;
           left -= 1;
           if (left > 0) return;
           c.off('building:stack-changed', on);
@@ -101,8 +106,13 @@ async function timeChange(url: string, token: string, buildingId: number, levelI
     );
   }
   for (const c of clients.stacks) arrivals.push(new Promise((resolve) => c.once('stack:changed', () => resolve(performance.now() - t0))));
+  const lost = clients.building.concat(clients.stacks).filter((c) => !c.connected).length;
+  if (lost) throw new Error(`${lost} bench clients lost their connection`);
   await api(url, 'PUT', `/buildings/${buildingId}/levels/${levelId}/floor-load`, token, { buildupId });
-  const times = await Promise.all(arrivals);
+  const timeout = new Promise<never>((_, reject) =>
+    setTimeout(() => reject(new Error(`updates still missing after ${TIMEOUT_MS / 1000} s (${heard} of ${stackIds.length * clients.building.length} building-room updates heard)`)), TIMEOUT_MS),
+  );
+  const times = await Promise.race([Promise.all(arrivals), timeout]);
   return Math.max(...times);
 }
 
@@ -121,7 +131,7 @@ export async function benchFloorLoad(): Promise<void> {
     sockets.push(...buildingClients, ...stackClients);
     const level = levels[20];
     const samples: number[] = [];
-    for (let i = 0; i < 8; i++) {
+    for (let i = 0; i < SAMPLES; i++) {
       const ms = await timeChange(server.url, token, building.id, level.id, i % 2 === 0 ? 'heavy' : 'office', stacks.map((s) => s.id), { building: buildingClients, stacks: stackClients });
       samples.push(ms);
     }
