@@ -36,10 +36,11 @@ export const useBuildingModelStore = defineStore('buildingModel', () => {
     }
   }
 
-  async function write(context: string, work: (id: number) => Promise<BuildingModelReply>): Promise<boolean> {
+  async function write(context: string, work: (id: number) => Promise<BuildingModelReply>, done?: string): Promise<boolean> {
     if (buildingId.value === null) return false;
     try {
       take(await work(buildingId.value));
+      if (done) notify.success(done);
       return true;
     } catch (e) {
       notify.error(e, context);
@@ -52,8 +53,8 @@ export const useBuildingModelStore = defineStore('buildingModel', () => {
     // Renamed grid lines rename the stacks on them
     await buildings.refreshStacks();
     return reply;
-  });
-  const saveBuildups = (buildups: Buildup[]) => write('Could not save the build-ups', (id) => buildingModelApi.putBuildups(id, buildups));
+  }, 'Grid saved');
+  const saveBuildups = (buildups: Buildup[]) => write('Could not save the build-ups', (id) => buildingModelApi.putBuildups(id, buildups), 'Build-ups saved');
   const saveFloorLoad = (levelId: string, body: FloorLoadBody) => write('Could not save the floor load', (id) => buildingModelApi.putFloorLoad(id, levelId, body));
   const saveAreaOverrides = (stackId: number, overrides: AreaOverride[]) => write('Could not save the areas set by hand', () => buildingModelApi.putAreaOverrides(stackId, overrides));
 
