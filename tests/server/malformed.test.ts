@@ -279,7 +279,7 @@ describe('malformed input on every writing route', () => {
       ],
     },
     // Routes of colleagues' features: a JSON body where a CSV upload is expected, bad fields, bad ids.
-    ...['loads', 'loads/apply', 'sections', 'sections/apply'].map((kind) => ({
+    ...['loads', 'loads/apply', 'sections', 'sections/apply', 'grid', 'grid/apply', 'floor-loads', 'floor-loads/apply'].map((kind) => ({
       name: `POST /api/buildings/:id/imports/${kind}`,
       method: 'POST',
       path: () => `/buildings/${ids.building}/imports/${kind}`,
