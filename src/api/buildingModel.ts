@@ -9,7 +9,17 @@ import type {
   putFloorLoadBodySchema,
   StackPlacement,
 } from '@shared/schema/building.ts';
+import type { FloorLoadsPreview, GridPreview } from '@shared/schema/imports.ts';
 import { apiFetch } from './http.ts';
+
+export type ModelCsvKind = 'grid' | 'floor-loads';
+
+function form(file: File, fileHash?: string): FormData {
+  const body = new FormData();
+  if (fileHash) body.append('fileHash', fileHash);
+  body.append('file', file);
+  return body;
+}
 
 export type FloorLoadBody = z.input<typeof putFloorLoadBodySchema>;
 
@@ -22,5 +32,7 @@ export const buildingModelApi = {
   putFloorLoad: (buildingId: number, levelId: string, body: FloorLoadBody) =>
     apiFetch<BuildingModelReply>('PUT', `${b(buildingId)}/levels/${encodeURIComponent(levelId)}/floor-load`, body),
   place: (stackId: number, placement: StackPlacement) => apiFetch<Placement>('PUT', `/stacks/${stackId}/placement`, placement),
+  previewCsv: (buildingId: number, kind: ModelCsvKind, file: File) => apiFetch<GridPreview | FloorLoadsPreview>('POST', `${b(buildingId)}/imports/${kind}`, form(file)),
+  applyCsv: (buildingId: number, kind: ModelCsvKind, file: File, fileHash: string) => apiFetch<unknown>('POST', `${b(buildingId)}/imports/${kind}/apply`, form(file, fileHash)),
   putAreaOverrides: (stackId: number, overrides: AreaOverride[]) => apiFetch<BuildingModelReply>('PUT', `/stacks/${stackId}/area-overrides`, { overrides }),
 };
