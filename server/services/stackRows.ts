@@ -67,9 +67,10 @@ export function toSummary(row: StackRow): StackSummary {
   };
 }
 
-function placementFields(row: StackRow): { gridX: string | null; gridY: string | null; webAlong: 'x' | 'y' } {
+/** A stack's place on the grid, for stacks on it only: replies about other stacks keep their shape (SPEC §7). */
+function placementFields(row: StackRow): { gridX?: string; gridY?: string; webAlong?: 'x' | 'y' } {
   const { gridX, gridY, webAlong } = placeOf(row);
-  return { gridX, gridY, webAlong };
+  return gridX !== null && gridY !== null ? { gridX, gridY, webAlong } : {};
 }
 
 export function toDetail(row: StackRow): StackDetail {

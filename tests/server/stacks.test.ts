@@ -38,7 +38,8 @@ describe('stacks', () => {
 
   it('fills the governing lift label of stacks stored before the column existed when migrating up', async () => {
     const sum = await create({ name: 'M/1', template });
-    const migrationConfig = { migrationSource };
+    // By name: later migrations (the building model's) stay applied
+    const migrationConfig = { migrationSource, name: '202612020900_add_stack_governing_label' };
     await s.ctx.db.migrate.down(migrationConfig);
     expect(await s.ctx.db.schema.hasColumn('stacks', 'governing_lift_label')).toBe(false);
     await s.ctx.db.migrate.up(migrationConfig);
