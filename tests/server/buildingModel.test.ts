@@ -3,6 +3,7 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type { Level, StackDetail, StackSummary } from '../../shared/schema/api.ts';
 import type { BuildingModelChanged, BuildingModelReply, Grid, Placement } from '../../shared/schema/building.ts';
+import type { RevisionSnapshot } from '../../shared/schema/revisions.ts';
 import { errorCode, startWithLeadAndBuilding, type TestServer } from './helpers.ts';
 import { connect, next, request, type LiveClient } from './liveHelpers.ts';
 
@@ -136,6 +137,18 @@ describe('the building model over the API', () => {
     const use = (await detail(other.id)).results.floorLoads!.find((u) => u.levelId === levels[2].id)!;
     expect(use.Gk).toBeCloseTo(92.8125, 9);
     expect(use.lineGk).toBeCloseTo(22.5, 9);
+  });
+
+  it('freezes the model and each stack\'s place with the revision, beside the derived loads in its results', async () => {
+    const r = await s.api('POST', `/buildings/${buildingId}/revisions`, { token, body: { note: 'Floor loads', purpose: 'preliminary', acknowledgeFailingLifts: true } });
+    expect(r.status).toBe(201);
+    const row = await s.ctx.db('revisions').where({ id: (r.body as { id: number }).id }).first<{ snapshot: string }>('snapshot');
+    const snapshot = JSON.parse(row.snapshot) as RevisionSnapshot;
+    expect(snapshot.buildingModel?.floors.map((f) => f.levelId).sort()).toEqual([levels[1].id, levels[2].id].sort());
+    const frozen = snapshot.stacks.find((st) => st.id === stack.id)!;
+    expect(frozen.placement).toEqual({ gridX: 'B', gridY: 'y2', webAlong: 'x' });
+    expect(frozen.results.floorLoads?.some((u) => u.levelId === levels[1].id)).toBe(true);
+    expect(snapshot.stacks.find((st) => st.id === other.id)?.placement).toEqual({ gridX: 'C', gridY: 'y2', webAlong: 'x' });
   });
 
   it('taking the floor load away gives the stacks their typed loads back', async () => {
