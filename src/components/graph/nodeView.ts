@@ -26,6 +26,8 @@ export interface NodeView<K extends NodeKind = NodeKind> {
   span: Span | null;
   others: Colleague[];
   readOnly: boolean;
+  /** Restraints and the cap of a stack on the grid, on a level with a floor load: where their loads come from. */
+  loadsFrom?: 'floor' | 'hand';
 }
 
 /** The part of a node's view that its frame draws, whatever its kind. */
