@@ -34,7 +34,7 @@ describe('loads of a restraint on a floor with floor loads', () => {
     expect(gk.attributes('readonly')).toBeDefined();
     await w.get('[data-test="set-loads-by-hand"]').trigger('click');
     const [ops] = w.emitted('edit')![0] as unknown as [{ op: string; data: Record<string, unknown> }[]];
-    expect(ops[0].data).toMatchObject({ loadsByHand: true, Gk: 126.563, Qk: 63.281, category: 'B' });
+    expect(ops[0].data).toMatchObject({ loadsByHand: true, Gk: 126.5625, Qk: 63.28125, category: 'B', faces: { yPlus: { Gk: 60, Qk: 30 } } });
     w.unmount();
   });
 
