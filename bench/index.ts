@@ -5,6 +5,7 @@ import { benchRealtime } from './realtime.ts';
 import { benchSizing } from './sizing.ts';
 import { benchFreeze } from './freeze.ts';
 import { benchCritical } from './critical.ts';
+import { benchFloorLoad } from './floorLoad.ts';
 
 const benches: [string, () => Promise<void>][] = [
   ['member check (issue 3)', benchEngine],
@@ -13,6 +14,7 @@ const benches: [string, () => Promise<void>][] = [
   ['sizing (issue 11)', benchSizing],
   ['freeze a revision (issue 8)', benchFreeze],
   ['critical buckling (issue 23)', benchCritical],
+  ['floor load at building scale (issue 20)', benchFloorLoad],
 ];
 
 const only = process.argv[2];

@@ -22,6 +22,8 @@ import * as addRevisionPackages from './202612031103_add_revision_packages.ts';
 import * as addUsersTokenVersion from './202612031200_add_users_token_version.ts';
 import * as addUsersEmailVerifiedAt from './202612031201_add_users_email_verified_at.ts';
 import * as addInvitationsExpiresAt from './202612031202_add_invitations_expires_at.ts';
+import * as addBuildingModels from './202612031300_add_building_models.ts';
+import * as addStackGridPosition from './202612031301_add_stack_grid_position.ts';
 
 const migrations: Record<string, Knex.Migration> = {
   '202512010900_add_users': addUsers,
@@ -46,6 +48,8 @@ const migrations: Record<string, Knex.Migration> = {
   '202612031200_add_users_token_version': addUsersTokenVersion,
   '202612031201_add_users_email_verified_at': addUsersEmailVerifiedAt,
   '202612031202_add_invitations_expires_at': addInvitationsExpiresAt,
+  '202612031300_add_building_models': addBuildingModels,
+  '202612031301_add_stack_grid_position': addStackGridPosition,
 };
 
 export const migrationSource: Knex.MigrationSource<string> = {

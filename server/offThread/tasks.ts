@@ -7,6 +7,7 @@ import type { RevisionSnapshot } from '../../shared/schema/revisions.ts';
 import type { SizingRequest } from '../../shared/schema/sizing.ts';
 import type { SectionDims, StackDocument } from '../../shared/schema/stack.ts';
 import type { Op } from '../../shared/schema/ops.ts';
+import type { AnalysisContext } from '../../shared/engine/stack/context.ts';
 import type { StackResult } from '../../shared/schema/results.ts';
 import { stackDocumentSchema } from '../../shared/schema/stack.ts';
 import { analyseStack } from '../../shared/engine/index.ts';
@@ -51,7 +52,7 @@ export function sizeWholeBuilding({ stacks, request, options, levels, sections }
 }
 
 export interface BuildingAnalysisTask {
-  stacks: { id: number; name: string; doc: StackDocument }[];
+  stacks: { id: number; name: string; doc: StackDocument; floorLoads?: AnalysisContext['floorLoads'] }[];
   options: AnalysisOptions;
   levels: Map<string, number>;
   sections: Map<string, SectionDims>;
@@ -61,6 +62,8 @@ export interface EditTask {
   /** The stored document as text: parsing and checking it is part of the work moved off the main thread. */
   docText: string;
   ops: Op[];
+  /** For a stack on the building's grid: what each level's floor brings into it. */
+  floorLoads?: AnalysisContext['floorLoads'];
   options: AnalysisOptions;
   levels: Map<string, number>;
   sections: Map<string, SectionDims>;
@@ -95,7 +98,7 @@ export type EditOutcome =
   | { touched: string[]; opError: { message: string; opIndex: number; id: string } };
 
 /** One edit of a large stack: parse the stored document, apply the ops, analyse (docs/access.md). */
-export function editLargeStack({ docText, ops, options, levels, sections }: EditTask): EditOutcome {
+export function editLargeStack({ docText, ops, options, levels, sections, floorLoads }: EditTask): EditOutcome {
   const before = stackDocumentSchema.parse(JSON.parse(docText));
   const touched = [...touchedIds(before, ops)];
   let doc: StackDocument;
@@ -105,5 +108,5 @@ export function editLargeStack({ docText, ops, options, levels, sections }: Edit
     if (e instanceof OpError) return { touched, opError: { message: e.message, opIndex: e.opIndex, id: e.id } };
     throw e;
   }
-  return { doc, touched, results: analyseStack(doc, options, { levels, sections, shapeChecked: true }) };
+  return { doc, touched, results: analyseStack(doc, options, { levels, sections, shapeChecked: true, floorLoads }) };
 }

@@ -77,7 +77,7 @@ export async function attachRealtime(httpServer: HttpServer, ctx: ServerContext)
     endAtExpiry(socket);
     registerHandlers(ctx, io, socket, log);
   });
-  ctx.broadcaster = socketBroadcaster(io);
+  ctx.broadcaster = socketBroadcaster(io, { sharedRooms: closeLiveRedis !== null });
 
   return {
     io,

@@ -8,6 +8,7 @@ import { idParam } from '../middleware/validate.ts';
 import { safeFileName, toCsv, toXlsx } from '../services/exportsFormats.ts';
 import { buildingResults, RESULT_COLUMNS, RESULTS_NOTE, stackResults, type ResultRow } from '../services/exportsResults.ts';
 import { loadsTemplateCsv } from '../services/exportsTemplate.ts';
+import { floorLoadsCsv, gridCsv } from '../services/importsModel.ts';
 
 const XLSX_TYPE = 'application/vnd.openxmlformats-officedocument.spreadsheetml.sheet';
 
@@ -40,5 +41,11 @@ export function registerExportRoutes(router: Router, ctx: ServerContext): void {
   });
   router.get('/buildings/:id/imports/loads/template.csv', auth, viewer, async (req, res) => {
     sendCsv(res, 'level-loads.csv', await loadsTemplateCsv(ctx.db, currentAccess(req).buildingId));
+  });
+  router.get('/buildings/:id/grid.csv', auth, viewer, async (req, res) => {
+    sendCsv(res, 'grid.csv', await gridCsv(ctx.db, currentAccess(req).buildingId));
+  });
+  router.get('/buildings/:id/floor-loads.csv', auth, viewer, async (req, res) => {
+    sendCsv(res, 'floor-loads.csv', await floorLoadsCsv(ctx.db, currentAccess(req).buildingId));
   });
 }

@@ -13,6 +13,7 @@ import { listCompanySections } from '../services/companySections.ts';
 import { problemCount } from '../services/importsCsv.ts';
 import { applyLoads, previewLoads, problemsMessage } from '../services/importsLoads.ts';
 import { applySections, previewSections } from '../services/importsSections.ts';
+import { applyFloorLoads, applyGrid, previewFloorLoads, previewGrid } from '../services/importsModel.ts';
 
 const receive = multer({
   storage: multer.memoryStorage(),
@@ -68,6 +69,28 @@ export function registerImportRoutes(router: Router, ctx: ServerContext): void {
     const file = uploadedFile(req);
     const { fileHash } = parseBody(applyFieldsSchema, req);
     res.json(await applySections(ctx, currentAccess(req).buildingId, file, { fileHash }, currentUser(req)));
+  });
+
+  // The grid and the levels' floor loads (docs/building-model.md)
+  router.post('/buildings/:id/imports/grid', auth, engineer, receiveFile, async (req, res) => {
+    const preview = await previewGrid(ctx.db, currentAccess(req).buildingId, uploadedFile(req));
+    if (preview.problems.length > 0) throw unprocessable(problemsMessage(preview.problems.length), preview);
+    res.json(preview);
+  });
+  router.post('/buildings/:id/imports/grid/apply', auth, engineer, receiveFile, async (req, res) => {
+    const file = uploadedFile(req);
+    const { fileHash } = parseBody(applyFieldsSchema, req);
+    res.json(await applyGrid(ctx, currentAccess(req).buildingId, file, fileHash, currentUser(req)));
+  });
+  router.post('/buildings/:id/imports/floor-loads', auth, engineer, receiveFile, async (req, res) => {
+    const preview = await previewFloorLoads(ctx.db, currentAccess(req).buildingId, uploadedFile(req));
+    if (preview.problems.length > 0) throw unprocessable(problemsMessage(preview.problems.length), preview);
+    res.json(preview);
+  });
+  router.post('/buildings/:id/imports/floor-loads/apply', auth, engineer, receiveFile, async (req, res) => {
+    const file = uploadedFile(req);
+    const { fileHash } = parseBody(applyFieldsSchema, req);
+    res.json(await applyFloorLoads(ctx, currentAccess(req).buildingId, file, fileHash, currentUser(req)));
   });
 
   router.get('/buildings/:id/sections', auth, viewer, async (req, res) => {

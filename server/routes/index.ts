@@ -3,6 +3,7 @@ import { Router } from 'express';
 import type { ServerContext } from '../context.ts';
 import { registerAdminRoutes } from './admin.ts';
 import { registerAuthRoutes } from './auth.ts';
+import { registerBuildingModelRoutes } from './buildingModel.ts';
 import { registerBuildingRoutes } from './buildings.ts';
 import { registerDevRoutes } from './dev.ts';
 import { registerExportRoutes } from './exports.ts';
@@ -20,6 +21,7 @@ export function createApiRouter(ctx: ServerContext): Router {
   registerAuthRoutes(router, ctx);
   registerBuildingRoutes(router, ctx);
   registerLevelRoutes(router, ctx);
+  registerBuildingModelRoutes(router, ctx);
   registerStackRoutes(router, ctx);
   registerRevisionRoutes(router, ctx);
   registerSectionRoutes(router, ctx);

@@ -1,10 +1,14 @@
 // Runs the engine for a stored stack with its building's options and levels, and summarises the
 // result for lists (so listing never recomputes).
 import type { Knex } from 'knex';
+import { applyFloorLoads } from '../../shared/engine/building/applyFloorLoads.ts';
+import { stackFloorLoads } from '../../shared/engine/building/stackFloorLoads.ts';
 import { analyseStack } from '../../shared/engine/index.ts';
 import { ENGINE_VERSION } from '../../shared/engine/version.ts';
+import type { BuildingModel, StackPlacement } from '../../shared/schema/building.ts';
 import type { AnalysisOptions, StackResult } from '../../shared/schema/results.ts';
 import type { SectionDims, StackDocument } from '../../shared/schema/stack.ts';
+import { readModel } from './buildingModelStore.ts';
 import { getBuildingOptions } from './buildings.ts';
 import { companySectionMap } from './companySections.ts';
 
@@ -14,17 +18,39 @@ export interface AnalysisInputs {
   levels: Map<string, number>;
   /** The building's own sections by designation (docs/contracts.md §Imports). */
   sections: Map<string, SectionDims>;
+  /** Grid, floor loads and area overrides (docs/building-model.md). */
+  model: BuildingModel;
+}
+
+/** A stored stack's place on the grid, for deriving its loads. */
+export interface StackPlace extends StackPlacement {
+  stackId: number;
 }
 
 export async function analysisInputs(db: Knex, buildingId: number): Promise<AnalysisInputs> {
   const options = await getBuildingOptions(db, buildingId);
   const rows = await db('levels').where({ building_id: buildingId }).select<{ id: number; elevation: number }[]>('id', 'elevation');
-  return { options, levels: new Map(rows.map((r) => [String(r.id), Number(r.elevation)])), sections: await companySectionMap(db, buildingId) };
+  const levels = new Map(rows.map((r) => [String(r.id), Number(r.elevation)]));
+  return { options, levels, sections: await companySectionMap(db, buildingId), model: (await readModel(db, buildingId)).model };
+}
+
+/** What each level's floor brings into a stack on the grid; undefined for a stack off the grid. */
+export function floorLoadsOf(inputs: AnalysisInputs, place?: StackPlace) {
+  return place && place.gridX !== null ? stackFloorLoads(inputs.model, place, place.stackId) : undefined;
 }
 
 /** The results as stored: marked with the rules that produced them, so results of older rules can be found. */
-export function analyse(doc: StackDocument, inputs: AnalysisInputs): StackResult {
-  return { ...analyseStack(doc, inputs.options, { levels: inputs.levels, sections: inputs.sections, shapeChecked: true }), engineVersion: ENGINE_VERSION };
+export function analyse(doc: StackDocument, inputs: AnalysisInputs, place?: StackPlace): StackResult {
+  const options = { levels: inputs.levels, sections: inputs.sections, shapeChecked: true, floorLoads: floorLoadsOf(inputs, place) };
+  return { ...analyseStack(doc, inputs.options, options), engineVersion: ENGINE_VERSION };
+}
+
+/**
+ * The document with its floors' loads on its restraints and cap, for sizing, which reads loads from the
+ * document. Sizing so leaves out αA (the area is not in the document): its proposal can only be heavier.
+ */
+export function withDerivedLoads(doc: StackDocument, inputs: AnalysisInputs, place?: StackPlace): StackDocument {
+  return applyFloorLoads(doc, floorLoadsOf(inputs, place)).doc;
 }
 
 export type StackStatus = 'passes' | 'fails' | 'errors';

@@ -1,5 +1,6 @@
 // How committed stack changes reach live rooms. The realtime module replaces ctx.broadcaster with a
 // Socket.IO implementation; REST writes call it after commit, so they reach live rooms too.
+import type { BuildingModelChanged } from '../../shared/schema/building.ts';
 import type { BuildingStackChanged, StackChanged } from '../../shared/schema/socket.ts';
 
 export interface Broadcaster {
@@ -12,6 +13,7 @@ export interface Broadcaster {
   accessRevoked(p: { userId: number; buildingId: number; stackIds: number[] }): Promise<void>;
   /** Every session of the user ended (sign-out, password change): their open sockets are closed. */
   sessionsEnded(p: { userId: number }): Promise<void>;
+  buildingModelChanged(p: BuildingModelChanged): void;
 }
 
 export const nullBroadcaster: Broadcaster = {
@@ -19,4 +21,5 @@ export const nullBroadcaster: Broadcaster = {
   buildingStackChanged: () => undefined,
   accessRevoked: async () => undefined,
   sessionsEnded: async () => undefined,
+  buildingModelChanged: () => undefined,
 };

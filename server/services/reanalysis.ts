@@ -4,9 +4,10 @@
 // and analysis inputs did not change meanwhile, and analyses any other stack itself.
 import type { AnalysisOptions, StackResult } from '../../shared/schema/results.ts';
 import type { ServerContext } from '../context.ts';
-import { analysisInputs, type AnalysisInputs } from './analysis.ts';
+import { ENGINE_VERSION } from '../../shared/engine/version.ts';
+import { analysisInputs, floorLoadsOf, type AnalysisInputs } from './analysis.ts';
 import { parseOptions } from './buildings.ts';
-import { parseDoc, type StackRow } from './stackRows.ts';
+import { parseDoc, placeOf, type StackRow } from './stackRows.ts';
 
 export interface Precomputed {
   /** Levels and sections the results were worked out with. */
@@ -16,7 +17,7 @@ export interface Precomputed {
 
 export function inputsKey(inputs: AnalysisInputs): string {
   const options = Object.entries(inputs.options).sort(([a], [b]) => a.localeCompare(b));
-  return JSON.stringify([[...inputs.levels], [...inputs.sections], options]);
+  return JSON.stringify([[...inputs.levels], [...inputs.sections], options, inputs.model ?? null]);
 }
 
 /** Worker-thread results under the new options when they ask for the critical buckling analysis; null otherwise. */
@@ -27,16 +28,16 @@ export async function precomputeReanalysis(ctx: ServerContext, buildingId: numbe
   const before = parseOptions(row.options);
   const options = { ...before, ...change };
   if (JSON.stringify(before) === JSON.stringify(options)) return null;
-  const rows = await ctx.db<StackRow>('stacks').where({ building_id: buildingId }).select('id', 'name', 'version', 'doc');
+  const rows = await ctx.db<StackRow>('stacks').where({ building_id: buildingId }).select('id', 'name', 'version', 'doc', 'grid_x', 'grid_y', 'web_along');
   const inputs = { ...(await analysisInputs(ctx.db, buildingId)), options };
   const analysed = await ctx.offThread.analyseBuilding({
-    stacks: rows.map((r) => ({ id: r.id, name: r.name, doc: parseDoc(r.doc) })),
+    stacks: rows.map((r) => ({ id: r.id, name: r.name, doc: parseDoc(r.doc), floorLoads: floorLoadsOf(inputs, placeOf(r)) })),
     options,
     levels: inputs.levels,
     sections: inputs.sections,
-  });
+  }, `building:${buildingId}`);
   const version = new Map(rows.map((r) => [r.id, r.version]));
-  const byStack = new Map(analysed.map((a) => [a.id, { version: version.get(a.id) ?? -1, results: JSON.parse(a.resultJson) as StackResult }]));
+  const byStack = new Map(analysed.map((a) => [a.id, { version: version.get(a.id) ?? -1, results: { ...(JSON.parse(a.resultJson) as StackResult), engineVersion: ENGINE_VERSION } }]));
   return { inputsKey: inputsKey(inputs), byStack };
 }
 

@@ -5,7 +5,8 @@ import type { Knex } from 'knex';
 import type { RevisionSnapshot, SnapshotStack } from '../../shared/schema/revisions.ts';
 import { getBuildingOptions } from './buildings.ts';
 import { listLevels } from './levels.ts';
-import { parseDoc, parseResults, type StackRow } from './stackRows.ts';
+import { readModel } from './buildingModelStore.ts';
+import { parseDoc, parseResults, placeOf, type StackRow } from './stackRows.ts';
 
 /** JSON with object keys in code-point order at every depth, so equal content gives equal text. */
 export function canonicalJson(value: unknown): string {
@@ -24,15 +25,24 @@ export const byStackName = (a: { name: string; id: number }, b: { name: string; 
   a.name.localeCompare(b.name, 'en', { numeric: true, sensitivity: 'base' }) || a.id - b.id;
 
 export async function snapshotStacks(db: Knex, buildingId: number): Promise<SnapshotStack[]> {
-  const rows = await db<StackRow>('stacks').where({ building_id: buildingId }).select('id', 'name', 'version', 'doc', 'results');
-  return rows.map((r) => ({ id: r.id, name: r.name, version: r.version, doc: parseDoc(r.doc), results: parseResults(r.results) })).sort(byStackName);
+  const rows = await db<StackRow>('stacks').where({ building_id: buildingId }).select('id', 'name', 'version', 'doc', 'results', 'grid_x', 'grid_y', 'web_along');
+  return rows
+    .map((r) => {
+      const stack: SnapshotStack = { id: r.id, name: r.name, version: r.version, doc: parseDoc(r.doc), results: parseResults(r.results) };
+      const { gridX, gridY, webAlong } = placeOf(r);
+      if (gridX !== null) stack.placement = { gridX, gridY, webAlong };
+      return stack;
+    })
+    .sort(byStackName);
 }
 
 export type SnapshotMeta = Omit<RevisionSnapshot, 'format' | 'options' | 'levels' | 'stacks'>;
 
 export async function takeSnapshot(db: Knex, meta: SnapshotMeta, stacks: SnapshotStack[]): Promise<{ snapshot: RevisionSnapshot; text: string; hash: string }> {
-  const [options, levels] = await Promise.all([getBuildingOptions(db, meta.building.id), listLevels(db, meta.building.id)]);
+  const [options, levels, stored] = await Promise.all([getBuildingOptions(db, meta.building.id), listLevels(db, meta.building.id), readModel(db, meta.building.id)]);
   const snapshot: RevisionSnapshot = { format: 1, ...meta, options, levels, stacks };
+  // What the derived loads came from; a building without a model freezes exactly as before.
+  if (stored.version > 0) snapshot.buildingModel = stored.model;
   const text = canonicalJson(snapshot);
   return { snapshot, text, hash: sha256Hex(text) };
 }

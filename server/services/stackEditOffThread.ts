@@ -5,9 +5,10 @@
 import type { Knex } from 'knex';
 import type { ServerContext } from '../context.ts';
 import { unprocessable } from '../errors.ts';
-import { analysisInputs } from './analysis.ts';
+import { ENGINE_VERSION } from '../../shared/engine/version.ts';
+import { analysisInputs, floorLoadsOf } from './analysis.ts';
 import { assertNoOverlap, commitDoc, type CommittedChange, type OpsInput } from './stackOps.ts';
-import type { StackRow } from './stackRows.ts';
+import { placeOf, type StackRow } from './stackRows.ts';
 
 /** Stored documents longer than this (characters of JSON, about 150 nodes) are edited off the main thread. */
 export const LARGE_DOC_CHARS = 20_000;
@@ -22,12 +23,14 @@ export const isLarge = (row: Pick<StackRow, 'doc'>): boolean => row.doc.length >
 
 export async function editOffThread(trx: Knex, row: StackRow, input: OpsInput, offThread: ServerContext['offThread']): Promise<CommittedChange> {
   const inputs = await analysisInputs(trx, row.building_id);
-  const outcome = await offThread.editLargeStack({ docText: row.doc, ops: input.ops, options: inputs.options, levels: inputs.levels, sections: inputs.sections });
+  const floorLoads = floorLoadsOf(inputs, placeOf(row));
+  const outcome = await offThread.editLargeStack({ docText: row.doc, ops: input.ops, options: inputs.options, levels: inputs.levels, sections: inputs.sections, floorLoads });
   // The result arrives as one message: let the event loop turn before storing it.
   await yieldToLoop();
   const touched = new Set(outcome.touched);
   // As on the main thread: a clash with an edit since baseVersion (409) is reported before a bad op (422).
   await assertNoOverlap(trx, row, input.baseVersion, touched);
   if ('opError' in outcome) throw unprocessable(outcome.opError.message, { opIndex: outcome.opError.opIndex, id: outcome.opError.id });
-  return commitDoc(trx, row, { doc: outcome.doc, ops: input.ops, touched, userId: input.userId, action: 'stack.edit' }, inputs, outcome.results);
+  const results = { ...outcome.results, engineVersion: ENGINE_VERSION };
+  return commitDoc(trx, row, { doc: outcome.doc, ops: input.ops, touched, userId: input.userId, action: 'stack.edit' }, inputs, results);
 }

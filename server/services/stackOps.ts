@@ -15,7 +15,7 @@ import { recordAudit } from './audit.ts';
 import { touchBuilding } from './buildings.ts';
 import { assertDocSound } from './docChecks.ts';
 import { diffDocs } from './docDiff.ts';
-import { assertUniqueIds, loadStackRow, parseDoc, type StackRow } from './stackRows.ts';
+import { assertUniqueIds, loadStackRow, parseDoc, placeOf, type StackRow } from './stackRows.ts';
 import type { OffThread } from '../offThread/pool.ts';
 import { editOffThread, isLarge, LARGE_STACK_LIFTS, yieldToLoop } from './stackEditOffThread.ts';
 
@@ -32,13 +32,13 @@ export interface CommittedChange {
 /** Stores doc as the next version of row; refuses (409) when another writer got there first. */
 export async function commitDoc(
   trx: Knex,
-  row: StackRow,
+  row: Pick<StackRow, 'id' | 'building_id' | 'version' | 'grid_x' | 'grid_y' | 'web_along'>,
   change: { doc: StackDocument; ops: Op[]; touched: Set<string>; userId: number | null; action: string },
   inputs: AnalysisInputs,
   /** Results worked out beforehand (on the worker thread) for exactly this document and these inputs. */
   precomputed?: StackResult,
 ): Promise<CommittedChange> {
-  const results = precomputed ?? analyse(change.doc, inputs);
+  const results = precomputed ?? analyse(change.doc, inputs, placeOf(row));
   const version = row.version + 1;
   const columns = { doc: JSON.stringify(change.doc), version, ...resultColumns(change.doc, results), updated_at: now() };
   // A large stack (results computed off the main thread) is encoded and written in separate turns of the loop.

@@ -5,7 +5,7 @@ import type { StackResult } from '../../shared/schema/results.ts';
 import { stackDocumentSchema, type StackDocument } from '../../shared/schema/stack.ts';
 import { isoTime, isPostgres } from '../db.ts';
 import { notFound, unprocessable } from '../errors.ts';
-import type { StackStatus } from './analysis.ts';
+import type { StackPlace, StackStatus } from './analysis.ts';
 
 export interface StackRow {
   id: number;
@@ -21,6 +21,16 @@ export interface StackRow {
   governing_section: string | null;
   lift_count: number;
   updated_at: unknown;
+  /** Grid line ids (docs/building-model.md); null off the grid. */
+  grid_x: string | null;
+  grid_y: string | null;
+  web_along: string | null;
+}
+
+/** Where a stored stack stands on the grid. */
+export function placeOf(row: Pick<StackRow, 'id' | 'grid_x' | 'grid_y' | 'web_along'>): StackPlace {
+  const onGrid = row.grid_x !== null && row.grid_y !== null;
+  return { stackId: row.id, gridX: onGrid ? row.grid_x : null, gridY: onGrid ? row.grid_y : null, webAlong: row.web_along === 'y' ? 'y' : 'x' };
 }
 
 /**
@@ -53,11 +63,18 @@ export function toSummary(row: StackRow): StackSummary {
     utilisation: row.utilisation === null ? null : Number(row.utilisation),
     status: row.status,
     updatedAt: isoTime(row.updated_at),
+    ...placementFields(row),
   };
 }
 
+/** A stack's place on the grid, for stacks on it only: replies about other stacks keep their shape (SPEC §7). */
+function placementFields(row: StackRow): { gridX?: string; gridY?: string; webAlong?: 'x' | 'y' } {
+  const { gridX, gridY, webAlong } = placeOf(row);
+  return gridX !== null && gridY !== null ? { gridX, gridY, webAlong } : {};
+}
+
 export function toDetail(row: StackRow): StackDetail {
-  return { id: row.id, buildingId: row.building_id, name: row.name, doc: parseDoc(row.doc), version: row.version, results: parseResults(row.results) };
+  return { id: row.id, buildingId: row.building_id, name: row.name, doc: parseDoc(row.doc), version: row.version, results: parseResults(row.results), ...placementFields(row) };
 }
 
 /** Ops address nodes and edges by id, so a document must not use one id twice. */

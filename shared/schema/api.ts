@@ -215,6 +215,10 @@ export interface StackSummary {
   utilisation: number | null;
   status: 'passes' | 'fails' | 'errors';
   updatedAt: string;
+  /** Grid line ids where the stack stands (docs/building-model.md); null off the grid. */
+  gridX?: string | null;
+  gridY?: string | null;
+  webAlong?: 'x' | 'y';
 }
 export interface StackDetail {
   id: number;
@@ -223,6 +227,9 @@ export interface StackDetail {
   doc: z.infer<typeof stackDocumentSchema>;
   version: number;
   results: StackResult;
+  gridX?: string | null;
+  gridY?: string | null;
+  webAlong?: 'x' | 'y';
 }
 
 export const companySectionSchema = z.object({ designation: z.string().trim().min(1).max(80), dims: sectionDimsSchema }).strict();

@@ -1,6 +1,7 @@
 // Imports and exports (docs/contracts.md §Imports): CSV columns, previews, problems and apply bodies. Both ends use
 // these.
 import { z } from 'zod';
+import type { FloorSpan, Grid } from './building.ts';
 import { categorySchema, sectionDimsSchema } from './stack.ts';
 
 /** Columns of the level-loads file, in the order the template writes them (kN per level). */
@@ -109,3 +110,22 @@ export const companySectionHitSchema = z.object({
   massPerMetre: z.number(),
 });
 export type CompanySectionHit = z.infer<typeof companySectionHitSchema>;
+
+/** The grid as CSV (docs/building-model.md): one line per row, x or y, its name and position. */
+export const GRID_COLUMNS = ['direction', 'name', 'position_m'] as const;
+/** Floor loads as CSV: a level by name, a build-up by name (empty: none) and how the floor spans. */
+export const FLOOR_LOAD_COLUMNS = ['level', 'buildup', 'span'] as const;
+
+export interface GridPreview {
+  fileHash: string;
+  /** The grid the file gives (edges kept), or null while the file has problems. */
+  grid: Grid | null;
+  rows: { row: number; direction: 'x' | 'y'; name: string; position: number; change: 'new' | 'moved' | 'same' }[];
+  problems: ImportProblem[];
+}
+
+export interface FloorLoadsPreview {
+  fileHash: string;
+  rows: { row: number; levelId: string; level: string; buildupId: string | null; buildup: string | null; span: FloorSpan; change: 'changed' | 'same' }[];
+  problems: ImportProblem[];
+}

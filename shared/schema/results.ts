@@ -176,6 +176,24 @@ export interface CriticalAxis {
   shape?: { elevations: number[]; displacements: number[] };
 }
 
+/** Loads a level's floor brought into a restraint or the cap of a stack on the grid (m², kN). */
+export interface FloorLoadUse {
+  nodeId: string;
+  levelId: string;
+  area: number;
+  gridArea: number;
+  Gk: number;
+  Qk: number;
+  category: string;
+  faces: Partial<Record<'yPlus' | 'yMinus' | 'zPlus' | 'zMinus', { Gk: number; Qk: number }>>;
+  /** Line loads within Gk and Qk. */
+  lineGk: number;
+  lineQk: number;
+  overrideReason?: string;
+  /** The node keeps loads set by hand; the figures above are what the floor would give. */
+  byHand: boolean;
+}
+
 export interface StackResult {
   errors: Issue[];
   warnings: Issue[];
@@ -187,6 +205,8 @@ export interface StackResult {
   /** The rules that produced these results (ENGINE_VERSION), set by the server when it stores them; absent in
    *  results stored before it was recorded. */
   engineVersion?: string;
+  /** Present for a stack on the building's grid: the loads derived from the floors (docs/building-model.md). */
+  floorLoads?: FloorLoadUse[];
 }
 
 export type StackStatus = 'passes' | 'fails' | 'errors';

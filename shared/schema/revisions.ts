@@ -1,6 +1,7 @@
 // Frozen revisions (docs/contracts.md §Revisions): the freeze body, the immutable snapshot, the API replies and the
 // comparison of two states of a building. Both ends use these; nothing is redeclared.
 import { z } from 'zod';
+import type { BuildingModel, StackPlacement } from './building.ts';
 import type { Level } from './api.ts';
 import type { AnalysisOptions, StackResult, StackStatus } from './results.ts';
 import type { NodeKind, StackDocument } from './stack.ts';
@@ -41,6 +42,8 @@ export interface SnapshotStack {
   version: number;
   doc: StackDocument;
   results: StackResult;
+  /** Where the stack stood on the grid, for a stack whose loads came from the floors (docs/building-model.md). */
+  placement?: StackPlacement;
 }
 
 /** Everything a revision freezes. Its canonical JSON (sorted keys) is what the hash covers. */
@@ -58,6 +61,8 @@ export interface RevisionSnapshot {
   options: AnalysisOptions;
   levels: Level[];
   stacks: SnapshotStack[];
+  /** The grid, build-ups, floor loads and areas set by hand the derived loads came from; absent when the building has none. */
+  buildingModel?: BuildingModel;
 }
 
 export type MailStatus = 'pending' | 'sent' | 'failed';

@@ -4,6 +4,7 @@ import { opsSchema, type Op } from './ops.ts';
 import type { StackDocument } from './stack.ts';
 import type { StackResult } from './results.ts';
 import type { ApiErrorBody } from './errors.ts';
+import type { BuildingModelChanged } from './building.ts';
 
 const stackId = z.number().int().positive();
 
@@ -65,4 +66,5 @@ export interface ServerToClientEvents {
   'access:revoked': (payload: { buildingId: number }) => void;
   /** The session behind this socket ended; the server closes the socket next (sign in again). */
   'session:ended': (payload: SessionEnded) => void;
+  'building:model-changed': (payload: BuildingModelChanged) => void;
 }

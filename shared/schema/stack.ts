@@ -56,6 +56,11 @@ export const faceReactionSchema = z.object({ Gk: load, Qk: load }).strict();
 export const restraintFacesSchema = z
   .object({ yPlus: faceReactionSchema.optional(), yMinus: faceReactionSchema.optional(), zPlus: faceReactionSchema.optional(), zMinus: faceReactionSchema.optional() })
   .strict();
+/**
+ * On a stack placed on the building's grid, a level with floor loads gives the loads of the restraint or
+ * cap on it (docs/building-model.md); true keeps the Gk, Qk, category and faces written here instead.
+ */
+const loadsByHand = z.boolean().optional();
 export const restraintDataSchema = z
   .object({
     elevation,
@@ -66,6 +71,7 @@ export const restraintDataSchema = z
     Qk: load,
     category: categorySchema,
     faces: restraintFacesSchema.optional(),
+    loadsByHand,
   })
   .strict();
 /** `faces`: roof beams on the cap's faces, as on a restraint; optional, so older documents stay valid. */
@@ -78,6 +84,7 @@ export const capDataSchema = z
     Qk: load,
     category: categorySchema,
     faces: restraintFacesSchema.optional(),
+    loadsByHand,
   })
   .strict();
 export const loadDataSchema = z.object({ label: z.string().max(120), Gk: load, Qk: load, category: categorySchema }).strict();

@@ -1,4 +1,5 @@
 // A building's live channel: stack results that change while the building page is open.
+import type { BuildingModelChanged } from '@shared/schema/building.ts';
 import type { BuildingStackChanged } from '@shared/schema/socket.ts';
 import { connectLive, type LiveSocket } from './live.ts';
 
@@ -12,6 +13,7 @@ export function watchBuilding(
   buildingId: number,
   onChange: (change: BuildingStackChanged) => void,
   onError: (message: string) => void,
+  onModelChange?: (change: BuildingModelChanged) => void,
 ): BuildingWatch {
   const socket: LiveSocket = connectLive(token);
   const join = () =>
@@ -21,6 +23,9 @@ export function watchBuilding(
   socket.on('connect', join);
   socket.on('building:stack-changed', (change) => {
     if (change.buildingId === buildingId) onChange(change);
+  });
+  socket.on('building:model-changed', (change) => {
+    if (change.buildingId === buildingId) onModelChange?.(change);
   });
   return {
     stop: () => {

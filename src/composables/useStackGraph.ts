@@ -122,6 +122,13 @@ export function useStackGraph(input: StackGraphInput) {
     const numbers = liftNumbers(doc);
     const spans = liftSpans(doc);
     const lifts = new Map((res?.lifts ?? []).map((l) => [l.liftId, l]));
+    // The analysis takes these nodes' loads from the floors (docs/building-model.md): the card shows those.
+    const floors = new Map((res?.floorLoads ?? []).map((u) => [u.nodeId, u]));
+    const shown = (n: (typeof doc.nodes)[number]) => {
+      const use = floors.get(n.id);
+      if (!use || use.byHand || (n.kind !== 'restraint' && n.kind !== 'cap')) return n.data;
+      return { ...n.data, Gk: use.Gk, Qk: use.Qk, category: use.category as typeof n.data.category };
+    };
     return doc.nodes.map((n) => ({
       id: n.id,
       type: n.kind,
@@ -131,7 +138,7 @@ export function useStackGraph(input: StackGraphInput) {
       connectable: !readOnly,
       data: {
         kind: n.kind,
-        value: n.data,
+        value: shown(n),
         title: nodeTitle(n, numbers),
         problems: problems.value.get(n.id) ?? [],
         utilisation: lifts.get(n.id)?.utilisation ?? null,
@@ -140,6 +147,7 @@ export function useStackGraph(input: StackGraphInput) {
         others: colleagues.value.get(n.id) ?? [],
         readOnly,
         compact: scale.value.compact,
+        ...(floors.has(n.id) ? { loadsFrom: floors.get(n.id)!.byHand ? ('hand' as const) : ('floor' as const) } : {}),
       } satisfies NodeView,
     }));
   });

@@ -4,6 +4,7 @@ import { computed, ref } from 'vue';
 import { defineStore } from 'pinia';
 import { ROLE_RANK, type Building, type BuildingSummary, type Level, type LevelMovePreview, type Member, type Role, type StackSummary } from '@shared/schema/api.ts';
 import type { AnalysisOptions } from '@shared/schema/results.ts';
+import type { Placement } from '@shared/schema/building.ts';
 import type { BuildingStackChanged } from '@shared/schema/socket.ts';
 import { buildingsApi, levelsApi, membersApi, type CreateBuildingBody, type CreateLevelBody, type UpdateLevelBody } from '@/api/buildings.ts';
 import { stacksApi, type CreateStackBody } from '@/api/stacks.ts';
@@ -171,6 +172,22 @@ export const useBuildingsStore = defineStore('buildings', () => {
     return attempt('Could not delete the stack', () => stacksApi.remove(stackId), () => (stacks.value = before));
   }
 
+  async function refreshStacks(): Promise<void> {
+    if (!current.value) return;
+    await attempt('Could not refresh the stacks', async () => {
+      stacks.value = await stacksApi.list(buildingId());
+    });
+  }
+
+  /** Stacks put on (or taken off) the grid: their lines and their names, which follow the lines. */
+  function applyPlacements(placements: readonly Placement[]): void {
+    const byId = new Map(placements.map((p) => [p.id, p]));
+    stacks.value = stacks.value.map((s) => {
+      const p = byId.get(s.id);
+      return p ? { ...s, name: p.name, gridX: p.gridX, gridY: p.gridY, webAlong: p.webAlong } : s;
+    });
+  }
+
   /** A result pushed on the live channel replaces the stack's figures in the table. */
   function applyStackChange(change: BuildingStackChanged): void {
     if (change.buildingId !== current.value?.id) return;
@@ -227,7 +244,7 @@ export const useBuildingsStore = defineStore('buildings', () => {
     list, listState, listError, loadList, createBuilding,
     current, levels, stacks, members, pageState, pageError, pageMissing, membersState, role, canEdit, isLead,
     open, saveOptions, addLevel, updateLevel, previewLevelMove, removeLevel,
-    stackNamed, createStack, renameStack, removeStack, applyStackChange,
+    stackNamed, createStack, renameStack, removeStack, applyStackChange, refreshStacks, applyPlacements,
     loadMembers, addMember, changeMemberRole, removeMember,
   };
 });

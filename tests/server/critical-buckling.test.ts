@@ -1,5 +1,6 @@
 // A building whose buckling lengths come from the critical buckling analysis: the option is stored and
 // re-analyses every stack, results carry αcr and the buckled shapes, and the package prints them (invented data).
+import { EMPTY_MODEL } from '../../shared/schema/building.ts';
 import { PDFParse } from 'pdf-parse';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type { Building, StackDetail } from '../../shared/schema/api.ts';
@@ -65,7 +66,7 @@ describe('buckling lengths from the critical buckling analysis', () => {
 });
 
 describe('results worked out on the worker thread before the options are stored', () => {
-  const inputs = { options: { combination: '6.10ab', annex: 'UK', imposedReduction: true, selfWeight: true, bucklingLengths: 'critical' } as const, levels: new Map([['1', 3.6]]), sections: new Map() };
+  const inputs = { options: { combination: '6.10ab', annex: 'UK', imposedReduction: true, selfWeight: true, bucklingLengths: 'critical' } as const, levels: new Map([['1', 3.6]]), sections: new Map(), model: EMPTY_MODEL };
   const results = { errors: [], warnings: [], lifts: [], governingLiftId: null, takeDown: [] };
   const pre = { inputsKey: inputsKey(inputs), byStack: new Map([[7, { version: 3, results }]]) };
   const row = (version: number) => ({ id: 7, building_id: 1, name: 'S', doc: '{}', version, results: '{}' }) as unknown as StackRow;

@@ -4,7 +4,7 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type { Level, StackDetail, StackSummary } from '../../shared/schema/api.ts';
 import { addMember, createBuilding, errorCode, listRoutes, registerUser, startTestServer, TEST_PASSWORD, type TestServer } from './helpers.ts';
 
-const TABLES = ['users', 'buildings', 'memberships', 'invitations', 'levels', 'stacks', 'stack_ops', 'audit_log', 'outbox', 'mail_log', 'mail_queue', 'revision_packages'];
+const TABLES = ['users', 'buildings', 'memberships', 'invitations', 'levels', 'stacks', 'stack_ops', 'audit_log', 'outbox', 'mail_log', 'mail_queue', 'revision_packages', 'building_models'];
 const HUGE = JSON.stringify({ name: 'x'.repeat(1_200_000) });
 
 interface Req {
@@ -38,7 +38,7 @@ describe('malformed input on every writing route', () => {
 
   async function snapshot(): Promise<string> {
     const parts: unknown[] = [];
-    for (const t of TABLES) parts.push(await s.ctx.db(t).select('*').orderBy('id'));
+    for (const t of TABLES) parts.push(await s.ctx.db(t).select('*').orderBy(t === 'building_models' ? 'building_id' : 'id'));
     return JSON.stringify(parts);
   }
 
@@ -221,8 +221,78 @@ describe('malformed input on every writing route', () => {
       path: () => `/stacks/${ids.stack}`,
       cases: () => [['a stack id that is not a number', { path: '/stacks/one' }]],
     },
+    {
+      name: 'PUT /api/buildings/:id/grid',
+      method: 'PUT',
+      path: () => `/buildings/${ids.building}/grid`,
+      cases: () => {
+        const line = (id: string, position: unknown) => ({ id, name: id, position });
+        const grid = (xLines: unknown[], extra: Record<string, unknown> = {}) => ({ grid: { x: { lines: xLines, ...extra }, y: { lines: [line('y1', 0)] } } });
+        return [
+          ['a position of 1e308', { body: grid([line('A', 1e308)]) }],
+          ['a position as a string', { body: grid([line('A', '6')]) }],
+          ['two lines of one name', { body: grid([line('A', 0), { id: 'A2', name: 'a', position: 6 }]) }],
+          ['two lines at one position', { body: grid([line('A', 0), line('B', 0.0004)]) }],
+          ['one id for two lines', { body: grid([line('A', 0), { id: 'A', name: 'B', position: 6 }]) }],
+          ['a negative edge distance', { body: grid([line('A', 0)], { edgeBefore: -1 }) }],
+          ['an id with spaces', { body: grid([line('A B', 0)]) }],
+          ['a building id of 1e308', { path: '/buildings/1e308/grid', body: grid([line('A', 0)]) }],
+        ];
+      },
+    },
+    {
+      name: 'PUT /api/buildings/:id/buildups',
+      method: 'PUT',
+      path: () => `/buildings/${ids.building}/buildups`,
+      cases: () => {
+        const buildup = (extra: Record<string, unknown>) => ({ id: 'b1', name: 'Office', permanent: [{ label: 'Slab', gk: 3.5 }], imposed: { qk: 2.5, category: 'B' }, ...extra });
+        return [
+          ['a negative load', { body: { buildups: [buildup({ permanent: [{ label: 'Slab', gk: -3 }] })] } }],
+          ['an unknown category', { body: { buildups: [buildup({ imposed: { qk: 2.5, category: 'Z' } })] } }],
+          ['a load of 1e308', { body: { buildups: [buildup({ imposed: { qk: 1e308, category: 'B' } })] } }],
+          ['partitions that are neither imposed nor permanent', { body: { buildups: [buildup({ partitions: { load: 1, as: 'both' } })] } }],
+          ['two build-ups of one id', { body: { buildups: [buildup({}), buildup({ name: 'Other' })] } }],
+          ['two build-ups of one name', { body: { buildups: [buildup({}), buildup({ id: 'b2', name: 'office' })] } }],
+        ];
+      },
+    },
+    {
+      name: 'PUT /api/buildings/:id/levels/:levelId/floor-load',
+      method: 'PUT',
+      path: () => `/buildings/${ids.building}/levels/${ids.level}/floor-load`,
+      cases: () => [
+        ['a build-up the building does not have', { body: { buildupId: 'nope' } }],
+        ['an unknown span', { body: { buildupId: null, span: 'diagonal' } }],
+        ['a line load on a line the grid does not have', { body: { buildupId: null, lines: [{ gridLineId: 'Q', label: 'Cladding', gk: 'NaN' }] } }],
+        ['a level of another building', { path: `/buildings/${ids.building}/levels/999999/floor-load`, body: { buildupId: null } }],
+        ['a level id that is not a number', { path: `/buildings/${ids.building}/levels/L1/floor-load`, body: { buildupId: null } }],
+      ],
+    },
+    {
+      name: 'PUT /api/stacks/:id/placement',
+      method: 'PUT',
+      path: () => `/stacks/${ids.stack}/placement`,
+      cases: () => [
+        ['one grid line without the other', { body: { gridX: 'A', gridY: null } }],
+        ['grid lines the building does not have', { body: { gridX: 'A', gridY: 'y1' } }],
+        ['an unknown web direction', { body: { gridX: null, gridY: null, webAlong: 'z' } }],
+        ['a stack id of 0', { path: '/stacks/0/placement', body: { gridX: null, gridY: null } }],
+      ],
+    },
+    {
+      name: 'PUT /api/stacks/:id/area-overrides',
+      method: 'PUT',
+      path: () => `/stacks/${ids.stack}/area-overrides`,
+      cases: () => [
+        ['an area and a factor', { body: { overrides: [{ levelId: ids.level, area: 10, factor: 0.5, reason: 'Void' }] } }],
+        ['no reason', { body: { overrides: [{ levelId: ids.level, factor: 0.5, reason: ' ' }] } }],
+        ['a negative factor', { body: { overrides: [{ levelId: ids.level, factor: -0.5, reason: 'Void' }] } }],
+        ['a level the building does not have', { body: { overrides: [{ levelId: '999999', factor: 0.5, reason: 'Void' }] } }],
+        ['two overrides of one level', { body: { overrides: [{ levelId: ids.level, factor: 0.5, reason: 'Void' }, { levelId: ids.level, area: 3, reason: 'Core' }] } }],
+      ],
+    },
     // Routes of colleagues' features: a JSON body where a CSV upload is expected, bad fields, bad ids.
-    ...['loads', 'loads/apply', 'sections', 'sections/apply'].map((kind) => ({
+    ...['loads', 'loads/apply', 'sections', 'sections/apply', 'grid', 'grid/apply', 'floor-loads', 'floor-loads/apply'].map((kind) => ({
       name: `POST /api/buildings/:id/imports/${kind}`,
       method: 'POST',
       path: () => `/buildings/${ids.building}/imports/${kind}`,

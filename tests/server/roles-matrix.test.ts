@@ -63,6 +63,8 @@ let unique = 0;
 const fresh = () => `matrix-${++unique}-${Date.now()}@example.test`;
 const template = { storeys: 2, storeyHeight: 3.5, sections: ['UKC 203x203x46'], Gk: 50, Qk: 20 };
 
+const MATRIX_GRID = { x: { lines: [{ id: 'A', name: 'A', position: 0 }] }, y: { lines: [{ id: 'y1', name: '1', position: 0 }] } };
+
 const MATRIX: Record<string, Case> = {
   'GET /api/health': { path: () => '/health', expect: all(200) },
   'POST /api/auth/register': { path: () => '/auth/register', body: () => ({ email: fresh(), password: 'long enough password', name: 'New' }), expect: all(202) },
@@ -93,6 +95,12 @@ const MATRIX: Record<string, Case> = {
   'PATCH /api/buildings/:id/levels/:levelId': { path: (f) => `/buildings/${f.buildingId}/levels/${f.levelId}`, body: () => ({ elevation: 41 }), expect: edit(200) },
   'POST /api/buildings/:id/levels/:levelId/preview': { path: (f) => `/buildings/${f.buildingId}/levels/${f.levelId}/preview`, body: () => ({ elevation: 42 }), expect: edit(200) },
   'DELETE /api/buildings/:id/levels/:levelId': { path: (f) => `/buildings/${f.buildingId}/levels/${f.levelId}`, expect: edit(204) },
+  'GET /api/buildings/:id/model': { path: (f) => `/buildings/${f.buildingId}/model`, expect: read },
+  'PUT /api/buildings/:id/grid': { path: (f) => `/buildings/${f.buildingId}/grid`, body: () => ({ grid: MATRIX_GRID }), expect: edit(200) },
+  'PUT /api/buildings/:id/buildups': { path: (f) => `/buildings/${f.buildingId}/buildups`, body: () => ({ buildups: [] }), expect: edit(200) },
+  'PUT /api/buildings/:id/levels/:levelId/floor-load': { path: (f) => `/buildings/${f.buildingId}/levels/${f.levelId}/floor-load`, body: () => ({ buildupId: null }), expect: edit(200) },
+  'PUT /api/stacks/:id/placement': { path: (f) => `/stacks/${f.stackId}/placement`, body: () => ({ gridX: null, gridY: null }), expect: edit(200) },
+  'PUT /api/stacks/:id/area-overrides': { path: (f) => `/stacks/${f.stackId}/area-overrides`, body: () => ({ overrides: [] }), expect: edit(200) },
   'GET /api/buildings/:id/stacks': { path: (f) => `/buildings/${f.buildingId}/stacks`, expect: read },
   'POST /api/buildings/:id/stacks': { path: (f) => `/buildings/${f.buildingId}/stacks`, body: () => ({ name: 'N/1', template }), expect: edit(201) },
   'GET /api/stacks/:id': { path: (f) => `/stacks/${f.stackId}`, expect: read },
@@ -111,6 +119,12 @@ const MATRIX: Record<string, Case> = {
   'POST /api/buildings/:id/imports/loads/apply': { path: (f) => `/buildings/${f.buildingId}/imports/loads/apply`, body: () => ({}), expect: edit(400) },
   'POST /api/buildings/:id/imports/sections': { path: (f) => `/buildings/${f.buildingId}/imports/sections`, body: () => ({}), expect: edit(400) },
   'POST /api/buildings/:id/imports/sections/apply': { path: (f) => `/buildings/${f.buildingId}/imports/sections/apply`, body: () => ({}), expect: edit(400) },
+  'POST /api/buildings/:id/imports/grid': { path: (f) => `/buildings/${f.buildingId}/imports/grid`, body: () => ({}), expect: edit(400) },
+  'POST /api/buildings/:id/imports/grid/apply': { path: (f) => `/buildings/${f.buildingId}/imports/grid/apply`, body: () => ({}), expect: edit(400) },
+  'POST /api/buildings/:id/imports/floor-loads': { path: (f) => `/buildings/${f.buildingId}/imports/floor-loads`, body: () => ({}), expect: edit(400) },
+  'POST /api/buildings/:id/imports/floor-loads/apply': { path: (f) => `/buildings/${f.buildingId}/imports/floor-loads/apply`, body: () => ({}), expect: edit(400) },
+  'GET /api/buildings/:id/grid.csv': { path: (f) => `/buildings/${f.buildingId}/grid.csv`, expect: read },
+  'GET /api/buildings/:id/floor-loads.csv': { path: (f) => `/buildings/${f.buildingId}/floor-loads.csv`, expect: read },
   'GET /api/buildings/:id/sections': { path: (f) => `/buildings/${f.buildingId}/sections`, expect: read },
   'GET /api/buildings/:id/imports/loads/template.csv': { path: (f) => `/buildings/${f.buildingId}/imports/loads/template.csv`, expect: read },
   'GET /api/buildings/:id/results.csv': { path: (f) => `/buildings/${f.buildingId}/results.csv`, expect: read },

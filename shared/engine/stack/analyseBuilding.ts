@@ -8,6 +8,8 @@ export interface BuildingStack<Id extends string | number> {
   id: Id;
   name: string;
   doc: StackDocument;
+  /** For a stack on the building's grid: what each level's floor brings into it (engine/building). */
+  floorLoads?: AnalysisContext['floorLoads'];
 }
 
 export function analyseBuilding<Id extends string | number>(
@@ -17,8 +19,8 @@ export function analyseBuilding<Id extends string | number>(
   context: AnalysisContext = {},
 ): BuildingResult<Id> {
   const shared: AnalysisContext = { ...context, levels: levels ?? context.levels };
-  const results: BuildingStackResult<Id>[] = stacks.map(({ id, name, doc }) => {
-    const result = analyseStack(doc, options, shared);
+  const results: BuildingStackResult<Id>[] = stacks.map(({ id, name, doc, floorLoads }) => {
+    const result = analyseStack(doc, options, floorLoads ? { ...shared, floorLoads } : shared);
     const governing = result.lifts.find((l) => l.liftId === result.governingLiftId);
     const utilisation = result.errors.length || !governing ? null : governing.utilisation;
     const status: StackStatus = utilisation === null ? 'errors' : utilisation > 1 ? 'fails' : 'passes';

@@ -2,6 +2,7 @@
 // a bad document, which is reported through `errors` instead.
 import { DEFAULT_ANALYSIS_OPTIONS, type AnalysisOptions, type Issue, type LiftResult, type StackResult } from '../../schema/results.ts';
 import type { StackDocument } from '../../schema/stack.ts';
+import { applyFloorLoads } from '../building/applyFloorLoads.ts';
 import { isEngineError } from '../errors.ts';
 import { withCriticalBuckling } from '../critical/withCriticalBuckling.ts';
 import { applyNominalMoments } from '../simple/applyNominalMoments.ts';
@@ -17,8 +18,14 @@ function withErrors(errors: Issue[], warnings: Issue[]): StackResult {
 
 export function analyseStack(doc: StackDocument, options: Partial<AnalysisOptions> = {}, context: AnalysisContext = {}): StackResult {
   const settings: AnalysisOptions = { ...DEFAULT_ANALYSIS_OPTIONS, ...options };
-  const { model, errors, warnings } = inspectStack(doc, context);
+  // Loads from the building's floors replace those typed on the nodes, for this analysis only
+  const floor = applyFloorLoads(doc, context.floorLoads);
+  const { model, errors, warnings } = inspectStack(floor.doc, context);
   if (!model) return withErrors(errors, warnings);
+  const entries = floor.areas.size === 0 ? model.entries : model.entries.map((e) => {
+    const loaded = floor.areas.get(e.nodeId);
+    return loaded ? { ...e, area: { [loaded.category]: loaded.area } } : e;
+  });
 
   // Self-weight is permanent load on the column below (docs/analysis-rules.md §Take-down)
   const weights = model.lifts.map((l) => ({
@@ -27,7 +34,7 @@ export function analyseStack(doc: StackDocument, options: Partial<AnalysisOption
     perMetre: settings.selfWeight ? selfWeightPerMetre(l.section.massPerMetre) : 0,
   }));
   const pieces = stackPieces(model, allLevelElevations(context.levels));
-  const { rows, sectionNEd } = takeDown(model.entries, weights, settings, pieces.flat().map((p) => p.from));
+  const { rows, sectionNEd } = takeDown(entries, weights, settings, pieces.flat().map((p) => p.from));
   // Buckling lengths from the elastic critical buckling analysis of the stack, when the building asks for it
   const critical = settings.bucklingLengths === 'critical' ? withCriticalBuckling(model, pieces, sectionNEd, context.sections) : null;
   if (critical?.errors.length) return withErrors(critical.errors, warnings);
@@ -46,7 +53,7 @@ export function analyseStack(doc: StackDocument, options: Partial<AnalysisOption
   }
   if (checkErrors.length) return withErrors(checkErrors, warnings);
   // Simple construction: nominal moments from the beam reactions on the column faces, and the combined check
-  const simple = applyNominalMoments(doc, model, lifts, settings, context.sections);
+  const simple = applyNominalMoments(floor.doc, model, lifts, settings, context.sections);
   warnings.push(...simple.warnings);
   if (simple.errors.length) return withErrors(simple.errors, warnings);
 
@@ -55,5 +62,6 @@ export function analyseStack(doc: StackDocument, options: Partial<AnalysisOption
   for (const lift of lifts) if (!governing || lift.utilisation > governing.utilisation) governing = lift;
   const result: StackResult = { errors: [], warnings, lifts, governingLiftId: governing?.liftId ?? null, takeDown: rows };
   if (critical?.result) critical.finish(result);
+  if (floor.uses.length) result.floorLoads = floor.uses;
   return result;
 }

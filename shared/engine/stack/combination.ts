@@ -3,6 +3,7 @@
 import type { AnalysisOptions } from '../../schema/results.ts';
 import type { Category } from '../../schema/stack.ts';
 import { CATEGORIES, GAMMA_G, GAMMA_Q, isReducibleCategory, psi0, xi } from './combinationFactors.ts';
+import { alphaA } from '../building/alphaA.ts';
 import { alphaN } from './imposedReduction.ts';
 
 export type CategoryValues = Partial<Record<Category, number>>;
@@ -13,6 +14,8 @@ export interface AxialState {
   sumQk: CategoryValues;
   /** Per category: the number of levels above the section that carry imposed load of it. */
   loadedLevels: CategoryValues;
+  /** Per category: the floor area (m²) above the section under that imposed load, where the floors give it. */
+  loadedArea?: CategoryValues;
 }
 
 export interface DesignForce {
@@ -33,11 +36,27 @@ export type Expression = '6.10' | '6.10a' | '6.10b';
 /** `expression`: only that expression of '6.10ab' (for checks that must use one combination throughout). */
 type Options = Pick<AnalysisOptions, 'combination' | 'annex' | 'imposedReduction'> & { expression?: Expression };
 
-/** Q_L*: the leading action, reduced by αn only for categories A–D (EN 1991-1-1 6.3.1.2(11), 6.2.2(2)). */
+/** The reduction of the leading action: αn, or under the UK annex αA where it is smaller. */
+function leadingReduction(state: AxialState, category: Category, options: Options): { factor: number; byArea: boolean } {
+  const byStoreys = alphaN(state.loadedLevels[category] ?? 0, options.annex, category);
+  const area = state.loadedArea?.[category] ?? 0;
+  // UK National Annex to EN 1991-1-1 NA.2.5–NA.2.6 (from memory): a column may take αA for the area it supports
+  // or αn for the storeys, not both. EN 1991-1-1 6.2.2(2) gives columns αn alone, so 'EN' keeps αn.
+  if (options.annex !== 'UK' || area <= 0) return { factor: byStoreys, byArea: false };
+  const byArea = alphaA(area, 'UK', category);
+  return byArea < byStoreys ? { factor: byArea, byArea: true } : { factor: byStoreys, byArea: false };
+}
+
+/** Q_L*: the leading action, reduced only for categories A–D (EN 1991-1-1 6.3.1.2(10)–(11), 6.2.2(2)). */
 function leadingValue(state: AxialState, category: Category, options: Options): number {
   const Q = state.sumQk[category] ?? 0;
   if (!options.imposedReduction || !isReducibleCategory(category)) return Q;
-  return alphaN(state.loadedLevels[category] ?? 0, options.annex, category) * Q;
+  return leadingReduction(state, category, options).factor * Q;
+}
+
+function leadingLabel(state: AxialState, category: Category, options: Options): string {
+  const reduced = options.imposedReduction && isReducibleCategory(category) && leadingReduction(state, category, options).byArea;
+  return reduced ? `leading ${category} (αA)` : `leading ${category}`;
 }
 
 /** γQ·ψ0,i·Q_i for each category, in CATEGORIES order: the accompanying values. */
@@ -75,7 +94,7 @@ export function designAxialForce(state: AxialState, options: Options): DesignFor
   if (options.combination === '6.10') {
     // EN 1990 eq. 6.10
     const { value, leading } = withLeading(permanent, state, accompanying, options);
-    return { NEd: value, leading, combination: leading ? `6.10, leading ${leading}` : '6.10, permanent only', ...reductionOf(state, leading, options) };
+    return { NEd: value, leading, combination: leading ? `6.10, ${leadingLabel(state, leading, options)}` : '6.10, permanent only', ...reductionOf(state, leading, options) };
   }
   // EN 1990 eq. 6.10a: every variable action at its combination value ψ0·Qk
   let a = permanent;
@@ -84,8 +103,8 @@ export function designAxialForce(state: AxialState, options: Options): DesignFor
   const b = withLeading(xi(options.annex) * permanent, state, accompanying, options);
   if (options.expression === '6.10a') return { NEd: a, leading: null, combination: '6.10a', ...reductionOf(state, null, options) };
   if (options.expression === '6.10b') {
-    return { NEd: b.value, leading: b.leading, combination: b.leading ? `6.10b, leading ${b.leading}` : '6.10b', ...reductionOf(state, b.leading, options) };
+    return { NEd: b.value, leading: b.leading, combination: b.leading ? `6.10b, ${leadingLabel(state, b.leading, options)}` : '6.10b', ...reductionOf(state, b.leading, options) };
   }
   if (a >= b.value) return { NEd: a, leading: null, combination: '6.10a', ...reductionOf(state, null, options) };
-  return { NEd: b.value, leading: b.leading, combination: b.leading ? `6.10b, leading ${b.leading}` : '6.10b', ...reductionOf(state, b.leading, options) };
+  return { NEd: b.value, leading: b.leading, combination: b.leading ? `6.10b, ${leadingLabel(state, b.leading, options)}` : '6.10b', ...reductionOf(state, b.leading, options) };
 }

@@ -1,6 +1,7 @@
 // What a stack's analysis may need from its building (docs/contracts.md §Stack document: restraints that refer to a
 // level).
 import type { SectionDims } from '../../schema/stack.ts';
+import type { DerivedLevelLoad } from '../building/stackFloorLoads.ts';
 
 export type LevelElevations = ReadonlyMap<string, number> | Readonly<Record<string, number>>;
 
@@ -14,6 +15,11 @@ export interface AnalysisContext {
    * read and write), so its shape need not be checked again; its meaning always is.
    */
   shapeChecked?: boolean;
+  /**
+   * For a stack on the building's grid: what each level's floor brings into it, by level id
+   * (engine/building/stackFloorLoads). Restraints and the cap on those levels take these loads.
+   */
+  floorLoads?: ReadonlyMap<string, DerivedLevelLoad>;
 }
 
 /** Elevations closer than this (m) are the same elevation. */

@@ -11,6 +11,8 @@ export interface LoadEntry {
   elevation: number;
   Gk: number;
   Qk: CategoryValues;
+  /** Floor area (m²) under the imposed load entering here, by category: for αA (docs/building-model.md). */
+  area?: CategoryValues;
 }
 
 /** Self-weight of one length of column (kN/m). */
@@ -58,6 +60,7 @@ export function axialStates(
   let sumGk = 0;
   const sumQk: CategoryValues = {};
   const loadedLevels: CategoryValues = {};
+  let loadedArea: CategoryValues | undefined;
   let next = 0;
   for (const qi of order) {
     const { elevation, includeEntriesAt } = queries[qi];
@@ -70,9 +73,16 @@ export function axialStates(
         if (Q <= 0) continue;
         sumQk[c] = (sumQk[c] ?? 0) + Q;
         loadedLevels[c] = (loadedLevels[c] ?? 0) + 1;
+        const area = entry.area?.[c];
+        if (area !== undefined) {
+          loadedArea ??= {};
+          loadedArea[c] = (loadedArea[c] ?? 0) + area;
+        }
       }
     }
-    states[qi] = { sumGk: sumGk + selfWeightAbove(weights, elevation), sumQk: { ...sumQk }, loadedLevels: { ...loadedLevels } };
+    const state: AxialState = { sumGk: sumGk + selfWeightAbove(weights, elevation), sumQk: { ...sumQk }, loadedLevels: { ...loadedLevels } };
+    if (loadedArea) state.loadedArea = { ...loadedArea };
+    states[qi] = state;
   }
   return states;
 }

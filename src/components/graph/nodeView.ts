@@ -28,6 +28,8 @@ export interface NodeView<K extends NodeKind = NodeKind> {
   readOnly: boolean;
   /** Drawn in the compressed (whole tall stack) drawing: one line, no details. */
   compact?: boolean;
+  /** Restraints and the cap of a stack on the grid, on a level with a floor load: where their loads come from. */
+  loadsFrom?: 'floor' | 'hand';
 }
 
 /** The part of a node's view that its frame draws, whatever its kind. */
