@@ -3,6 +3,7 @@
 import { DEFAULT_ANALYSIS_OPTIONS, type AnalysisOptions, type Issue, type LiftResult, type StackResult } from '../../schema/results.ts';
 import type { StackDocument } from '../../schema/stack.ts';
 import { isEngineError } from '../errors.ts';
+import { connectionChecks } from '../connections/connectionChecks.ts';
 import { withCriticalBuckling } from '../critical/withCriticalBuckling.ts';
 import { applyNominalMoments } from '../simple/applyNominalMoments.ts';
 import { checkLift } from './checkLift.ts';
@@ -55,5 +56,9 @@ export function analyseStack(doc: StackDocument, options: Partial<AnalysisOption
   for (const lift of lifts) if (!governing || lift.utilisation > governing.utilisation) governing = lift;
   const result: StackResult = { errors: [], warnings, lifts, governingLiftId: governing?.liftId ?? null, takeDown: rows };
   if (critical?.result) critical.finish(result);
+  // Splices and the base: additive results, never a change to the member checks above
+  const connections = connectionChecks(doc, model, weights, rows, settings);
+  result.splices = connections.splices;
+  if (connections.base) result.base = connections.base;
   return result;
 }
