@@ -3,6 +3,7 @@
 import type { Level } from '../../shared/schema/api.ts';
 import type { SnapshotStack } from '../../shared/schema/revisions.ts';
 import { summariseResult } from '../services/analysis.ts';
+import { drawConnectionChecks } from './connectionWorking.ts';
 import { drawBucklingShapes, SHAPE_MIN_HEIGHT } from './bucklingShape.ts';
 import { drawElevation } from './elevation.ts';
 import { governingShort, metres, ratio, liftName } from './format.ts';
@@ -68,4 +69,5 @@ export function drawStackSection(doc: Pdf, stack: SnapshotStack, levels: Level[]
   doc.y += 10;
   heading(doc, 'Member checks', 11);
   drawMemberChecks(doc, stack);
+  drawConnectionChecks(doc, stack);
 }

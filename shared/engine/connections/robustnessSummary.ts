@@ -1,5 +1,5 @@
 // The building's robustness at a glance: which splices meet the tying requirement of its consequence class.
-import type { BuildingResult, ConsequenceClass } from '../../schema/results.ts';
+import type { ConsequenceClass, StackResult } from '../../schema/results.ts';
 import { needsVerticalTies } from './tieForce.ts';
 
 export interface TieRow {
@@ -22,7 +22,12 @@ export interface RobustnessSummary {
   message: string;
 }
 
-export function robustnessSummary(building: BuildingResult, consequenceClass: ConsequenceClass | undefined): RobustnessSummary {
+/** The stacks of a building, as the overview (analyseBuilding) or a frozen revision carries them. */
+export interface AnalysedStacks {
+  stacks: readonly { id: string | number; name: string; result: StackResult }[];
+}
+
+export function robustnessSummary(building: AnalysedStacks, consequenceClass: ConsequenceClass | undefined): RobustnessSummary {
   const cc = consequenceClass ?? null;
   const required = cc !== null && needsVerticalTies(cc);
   const meeting: TieRow[] = [];
