@@ -10,6 +10,7 @@ import AnalysisOptionsDialog from '@/components/building/AnalysisOptionsDialog.v
 import { optionsSummary } from '@/components/building/optionsSummary.ts';
 import ConnectionChecks from '@/components/connections/ConnectionChecks.vue';
 import PropertiesPanel from '@/components/stack/PropertiesPanel.vue';
+import ResultsPanel from '@/components/stack/ResultsPanel.vue';
 
 // Two lifts with a splice at +5, a floor at +4 with 120/80 kN and a roof of 60/20 kN (invented).
 const doc: StackDocument = {
@@ -55,6 +56,19 @@ describe('splice and base checks in the results', () => {
     expect(clauses).toContain('EN 1993-1-8 Table 3.4');
     // T = 120 + 0.5 × 80 = 160 kN (EN 1991-1-7 A.6, ψ1 = 0.5)
     expect(w.find('[data-test="connection-working"] [data-clause="EN 1991-1-7 A.6(2), EN 1990 eq. 6.11b"]').text()).toContain('160');
+  });
+});
+
+describe('splices on the elevation', () => {
+  it('mark a failing splice, so it is seen beside the lifts', () => {
+    const weak = structuredClone(doc);
+    const splice = weak.nodes.find((n) => n.id === 'p1');
+    if (splice?.kind === 'splice') splice.data.detail = { plate: { width: 250, thickness: 12, grade: 'S275' }, bolts: { number: 1, diameter: 12, class: '8.8' } };
+    const results = analyseStack(weak, { consequenceClass: '2b' });
+    const w = mount(ResultsPanel, { props: { results, doc: weak, selectedLiftId: null, stale: false } });
+    expect(w.find('[data-splice-status]').attributes('data-splice-status')).toBe('fails');
+    const plain = mount(ResultsPanel, { props: { results: analyseStack(doc), doc, selectedLiftId: null, stale: false } });
+    expect(plain.find('[data-splice-status]').attributes('data-splice-status')).toBe('not-given');
   });
 });
 

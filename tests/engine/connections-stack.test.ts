@@ -2,7 +2,9 @@
 import { describe, expect, it } from 'vitest';
 import { robustnessSummary } from '../../shared/engine/connections/robustnessSummary.ts';
 import { analyseBuilding } from '../../shared/engine/stack/analyseBuilding.ts';
+import { sizeStack } from '../../shared/engine/sizing/sizeStack.ts';
 import { analyseStack } from '../../shared/engine/stack/analyseStack.ts';
+import { sizingRequestSchema } from '../../shared/schema/sizing.ts';
 import type { SpliceDetail, StackDocument } from '../../shared/schema/stack.ts';
 import { stackDocumentSchema } from '../../shared/schema/stack.ts';
 import { buildStack, withNode } from './stack-builder.ts';
@@ -85,5 +87,19 @@ describe('robustness summary', () => {
     expect(summary.notMeeting.map((r) => r.stackName)).toEqual(['A2']);
     expect(robustnessSummary(building, '2a')).toMatchObject({ tiesRequired: false, meeting: [], notMeeting: [] });
     expect(robustnessSummary(building, undefined).message).toContain('not given');
+  });
+});
+
+describe('splices after sizing', () => {
+  it('flags a detailed splice that the proposed sections leave failing, and keeps the proposal itself', () => {
+    // One M12 8.8 bolt a flange in class 2b: 64.7 kN against a 160 kN tie, whatever sections sizing proposes
+    const weak = detailed(doc, { ...DETAIL, bolts: { number: 1, diameter: 12, class: '8.8' } });
+    const request = sizingRequestSchema.parse({ series: 'UKC', grade: 'S355' });
+    const plain = sizeStack(doc, request, { consequenceClass: '2b' });
+    const sized = sizeStack(weak, request, { consequenceClass: '2b' });
+    expect(sized.lifts).toEqual(plain.lifts);
+    expect(sized.lifts.some((l) => l.status === 'proposed')).toBe(true);
+    expect(sized.spliceFlags?.[0]?.message).toMatch(/^Splice at \+5\.000 fails in tension with the proposed sections/);
+    expect(plain.spliceFlags).toBeUndefined();
   });
 });
