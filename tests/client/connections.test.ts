@@ -1,14 +1,18 @@
 // Splice and base checks on screen: listed with their working, "not given" until detailed, and proposed details
 // entered through the properties pane as one edit.
-import { afterEach, describe, expect, it } from 'vitest';
+import { afterEach, describe, expect, it, vi } from 'vitest';
 import { flushPromises, mount } from '@vue/test-utils';
 import { createPinia, setActivePinia } from 'pinia';
+import { robustnessSummary } from '@shared/engine/connections/robustnessSummary.ts';
+import { analyseBuilding } from '@shared/engine/stack/analyseBuilding.ts';
 import { analyseStack } from '@shared/engine/stack/analyseStack.ts';
 import type { Op } from '@shared/schema/ops.ts';
 import type { StackDocument } from '@shared/schema/stack.ts';
 import AnalysisOptionsDialog from '@/components/building/AnalysisOptionsDialog.vue';
+import RobustnessSummary from '@/components/building/RobustnessSummary.vue';
 import { optionsSummary } from '@/components/building/optionsSummary.ts';
 import ConnectionChecks from '@/components/connections/ConnectionChecks.vue';
+import { mockFetch } from './fetchMock.ts';
 import PropertiesPanel from '@/components/stack/PropertiesPanel.vue';
 import ResultsPanel from '@/components/stack/ResultsPanel.vue';
 
@@ -91,6 +95,22 @@ describe('splice and base details in the properties pane', () => {
     expect(ops).toEqual([{ op: 'updateNode', id: 's', data: { basePlate: { b: 475, l: 475, t: 25, grade: 'S275', grout: 25 } } }]);
     const viewer = mount(PropertiesPanel, { props: { doc, selection: ['s'], results: null, readOnly: true } });
     expect(viewer.find('[data-test="propose-detail"]').exists()).toBe(false);
+  });
+});
+
+describe('robustness summary on the building page', () => {
+  it('names each splice that does not meet the tie force and why', async () => {
+    setActivePinia(createPinia());
+    const summary = robustnessSummary(analyseBuilding([{ id: 7, name: 'C/3', doc }], undefined, { consequenceClass: '2b' }), '2b');
+    const requests = mockFetch({ 'GET /api/buildings/4/robustness': () => ({ status: 200, body: summary }) });
+    const options = { combination: '6.10ab', annex: 'UK', imposedReduction: true, selfWeight: true, consequenceClass: '2b' } as const;
+    const w = mount(RobustnessSummary, { props: { buildingId: 4, stacks: [], options } });
+    await flushPromises();
+    expect(requests.map((r) => r.url)).toEqual(['/api/buildings/4/robustness']);
+    expect(w.find('[data-test="robustness-message"]').text()).toContain('0 splice(s) meet the vertical tie force of EN 1991-1-7 A.6, 1 do not');
+    // Tie: 120 + 0.5 × 80 = 160 kN (EN 1991-1-7 A.6(2), accidental combination)
+    expect(w.find('[data-test="robustness-unmet"]').text()).toContain('C/3, splice +5.000: tie 160 kN, no detail given');
+    vi.unstubAllGlobals();
   });
 });
 

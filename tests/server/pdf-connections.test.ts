@@ -3,6 +3,7 @@
 import { PDFParse } from 'pdf-parse';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type { StackDetail } from '../../shared/schema/api.ts';
+import type { RobustnessSummary } from '../../shared/engine/connections/robustnessSummary.ts';
 import type { RevisionDetail } from '../../shared/schema/revisions.ts';
 import { startTestServer, type TestServer } from './helpers.ts';
 import { revisionFixture, type RevisionFixture } from './revisionsFixture.ts';
@@ -48,6 +49,21 @@ describe('the calculation package with splices and bases', () => {
     expect(detailed.results.splices?.length).toBeGreaterThan(0);
     for (const splice of detailed.results.splices ?? []) expect(splice.tieForce).not.toBeNull();
     expect(detailed.results.base?.status).not.toBe('not-given');
+  });
+
+  it('gives the robustness summary of the building to any member, listing the splices that meet the tie force and those that do not', async () => {
+    const r = await s.api('GET', `/buildings/${f.buildingId}/robustness`, { token: f.viewer.token });
+    expect(r.status).toBe(200);
+    const summary = r.body as RobustnessSummary;
+    expect(summary).toMatchObject({ consequenceClass: '2b', tiesRequired: true });
+    const spliceCount = (detailed.results.splices ?? []).length;
+    const detailedRows = [...summary.meeting, ...summary.notMeeting].filter((row) => row.stackId === detailed.id);
+    expect(detailedRows).toHaveLength(spliceCount);
+    // Stacks without a detail cannot show that they carry the tie
+    expect(summary.notMeeting.filter((row) => row.stackId !== detailed.id).every((row) => row.NtRd === null)).toBe(true);
+    const bad = await s.api('GET', '/buildings/abc/robustness', { token: f.viewer.token });
+    expect(bad.status).toBeGreaterThanOrEqual(400);
+    expect(bad.status).toBeLessThan(500);
   });
 
   it('prints the consequence class and the robustness line on the cover', () => {
