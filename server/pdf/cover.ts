@@ -1,6 +1,7 @@
 // Cover sheet: what was issued, when, by whom, on what basis, and the hash that identifies it.
 import type { RevisionSnapshot } from '../../shared/schema/revisions.ts';
-import { frozenDate } from './format.ts';
+import { robustnessSummary } from '../../shared/engine/connections/robustnessSummary.ts';
+import { frozenDate, metres } from './format.ts';
 import { COLOUR, FONT, FULL_WIDTH, MARGIN, SIZE } from './layout.ts';
 import type { Pdf } from './pdf.ts';
 import { hasCombined } from './utilisations.ts';
@@ -61,6 +62,12 @@ export function drawCover(doc: Pdf, s: RevisionSnapshot, hash: string): void {
   y = field(doc, 'Self-weight of columns', s.options.selfWeight ? 'included' : 'not included', y);
   y = field(doc, 'Nominal moments', nominalMomentsWords(s), y);
   y = field(doc, 'Member design', `EN 1993-1-1: classification (Table 5.2), cross-section resistance (6.2.4) and flexural buckling (6.3.1)${momentsOn(s) ? '; with nominal moments, bending resistance (6.2.5) and lateral-torsional buckling (6.3.2)' : ''}`, y);
+  y = field(doc, 'Consequence class', s.options.consequenceClass ? `${s.options.consequenceClass} (EN 1991-1-7 Annex A)` : 'not given', y);
+  const ties = robustnessSummary({ stacks: s.stacks.map((st) => ({ id: st.id, name: st.name, result: st.results })) }, s.options.consequenceClass);
+  y = field(doc, 'Robustness', ties.message + (ties.notMeeting.length ? `: ${ties.notMeeting.map((r) => `${r.stackName} ${metres(r.elevation)}`).join(', ')}` : ''), y, {
+    colour: ties.notMeeting.length ? COLOUR.fail : undefined,
+  });
+  y = field(doc, 'Foundation concrete', s.options.concreteClass ?? 'not given', y);
   y = field(doc, 'Engine version', s.engineVersion, y);
   y += 8;
   if (s.note) y = boxed(doc, 'NOTE', s.note, y, COLOUR.accent);
@@ -73,6 +80,6 @@ export function drawCover(doc: Pdf, s: RevisionSnapshot, hash: string): void {
   doc.font(FONT.bold).fontSize(SIZE.h2).fillColor(COLOUR.ink).text('Contents', MARGIN.left, doc.y + 22);
   doc.font(FONT.regular).fontSize(SIZE.body + 0.5).fillColor(COLOUR.ink);
   doc.text('1  Summary of stacks and levels', MARGIN.left + 8, doc.y + 4);
-  doc.text('2  Each stack: elevation, load take-down by level, member checks of every lift with their working', MARGIN.left + 8, doc.y + 2, { width: FULL_WIDTH - 8 });
+  doc.text('2  Each stack: elevation, load take-down by level, member checks of every lift, then its splices and base, with their working', MARGIN.left + 8, doc.y + 2, { width: FULL_WIDTH - 8 });
   doc.text('Units: m and kN for the stack; mm, N/mm², kN, kN·m, cm³ and cm⁴ in the member working. References to clauses and equations are in the right-hand margin.', MARGIN.left + 8, doc.y + 8, { width: FULL_WIDTH - 8 });
 }

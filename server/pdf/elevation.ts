@@ -60,7 +60,11 @@ export function drawElevation(doc: Pdf, stack: SnapshotStack, levels: Level[], b
   for (const splice of ofKind(nodes, 'splice')) {
     const y = yOf(splice.data.elevation);
     doc.moveTo(colX - 9, y).lineTo(colX + 9, y).lineWidth(1.2).stroke(COLOUR.ink);
-    doc.font(FONT.regular).fontSize(SIZE.small - 0.5).fillColor(COLOUR.muted).text(`splice ${metres(splice.data.elevation)}`, colX + 14, y - 3, { lineBreak: false });
+    // The splice's tension check beside it (docs/splices-and-bases.md): a failing splice is printed in the failing colour
+    const check = stack.results.splices?.find((c) => c.nodeId === splice.id);
+    const words = !check ? '' : check.status === 'fails' ? ' · FAILS' : check.status === 'passes' ? ` · ${ratio(check.utilisation ?? 0)}` : ' · detail not given';
+    const colour = check?.status === 'fails' ? COLOUR.fail : COLOUR.muted;
+    doc.font(FONT.regular).fontSize(SIZE.small - 0.5).fillColor(colour).text(`splice ${metres(splice.data.elevation)}${words}`, colX + 14, y - 3, { lineBreak: false });
   }
 
   // Restraints from the top down, labelled on the left unless they crowd the one above.

@@ -48,7 +48,7 @@ function governingPieceIndex(lift: LiftResult): number {
 }
 
 /** A bold title, a muted line under it with its reference in the margin, then the steps with theirs. */
-function drawWorking(doc: Pdf, title: string, basis: string, basisRef: string, steps: CalcStep[]): void {
+export function drawWorking(doc: Pdf, title: string, basis: string, basisRef: string, steps: CalcStep[]): void {
   ensureSpace(doc, 60);
   doc.font(FONT.bold).fontSize(SIZE.body).fillColor(COLOUR.ink).text(title, MARGIN.left, doc.y, { width: BODY.width, lineBreak: false });
   doc.font(FONT.regular).fontSize(SIZE.small).fillColor(COLOUR.muted).text(basis, MARGIN.left, doc.y + 1, { width: BODY.width, lineBreak: false });

@@ -4,6 +4,7 @@ import type { Level } from '../../shared/schema/api.ts';
 import { NO_FACE_REACTIONS_NOTE } from '../../shared/engine/simple/applyNominalMoments.ts';
 import type { SnapshotStack } from '../../shared/schema/revisions.ts';
 import { summariseResult } from '../services/analysis.ts';
+import { drawConnectionChecks } from './connectionWorking.ts';
 import { drawBucklingShapes, SHAPE_MIN_HEIGHT } from './bucklingShape.ts';
 import { drawElevation } from './elevation.ts';
 import { governingShort, metres, ratio, liftName } from './format.ts';
@@ -70,4 +71,5 @@ export function drawStackSection(doc: Pdf, stack: SnapshotStack, levels: Level[]
   doc.y += 10;
   heading(doc, 'Member checks', 11);
   drawMemberChecks(doc, stack);
+  drawConnectionChecks(doc, stack);
 }

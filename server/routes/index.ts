@@ -11,6 +11,7 @@ import { registerHealthRoutes } from './health.ts';
 import { registerImportRoutes } from './imports.ts';
 import { registerLevelRoutes } from './levels.ts';
 import { registerRevisionRoutes } from './revisions.ts';
+import { registerRobustnessRoutes } from './robustness.ts';
 import { registerSectionRoutes } from './sections.ts';
 import { registerSizingRoutes } from './sizing.ts';
 import { registerStackRoutes } from './stacks.ts';
@@ -28,6 +29,7 @@ export function createApiRouter(ctx: ServerContext): Router {
   registerSizingRoutes(router, ctx);
   registerImportRoutes(router, ctx);
   registerExportRoutes(router, ctx);
+  registerRobustnessRoutes(router, ctx);
   registerDevRoutes(router, ctx);
   registerAdminRoutes(router, ctx);
   return router;

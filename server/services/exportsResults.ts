@@ -1,7 +1,8 @@
 // Results as rows for download (docs/contracts.md §Imports): one row per lift, its governing piece's figures in kN
 // and m, read from the stored results of each stack's current version (never recomputed here).
 import type { Knex } from 'knex';
-import type { LiftResult, PieceCheck } from '../../shared/schema/results.ts';
+import { connectionRows } from '../../shared/connectionRows.ts';
+import type { LiftResult, PieceCheck, StackResult } from '../../shared/schema/results.ts';
 import { loadStackRow, parseResults, type StackRow } from './stackRows.ts';
 
 /** README §Safety: every copy of the results carries this. */
@@ -11,6 +12,8 @@ export { SAFETY_NOTE as RESULTS_NOTE } from '../../shared/safety.ts';
 export const RESULT_COLUMNS = [
   'stack', 'version', 'lift', 'bottom_m', 'top_m', 'section', 'grade', 'section_class',
   'NEd_kN', 'Lcr_y_m', 'Lcr_z_m', 'Nc_Rd_kN', 'Nb_y_Rd_kN', 'Nb_z_Rd_kN', 'utilisation', 'governing_check', 'status', 'governing_lift', 'note',
+  // Splice and base rows (docs/splices-and-bases.md): the tension to carry and the detail's resistance
+  'tension_kN', 'resistance_kN',
 ] as const;
 export type ResultColumn = (typeof RESULT_COLUMNS)[number];
 export type ResultRow = Partial<Record<ResultColumn, string | number>>;
@@ -29,6 +32,34 @@ export function stackResultRows(row: StackRow): ResultRow[] {
     return [{ ...base, status: 'errors', note: results.errors.map((e) => e.message).join('; ') }];
   }
   if (results.lifts.length === 0) return [{ ...base, status: 'errors', note: 'The stack has no lifts' }];
+  return [...liftRows(results, base), ...connectionResultRows(results, base)];
+}
+
+/** One row per splice and one for the base, after the lifts; "not given" until the engineer gives a detail. */
+function connectionResultRows(results: StackResult, base: ResultRow): ResultRow[] {
+  const number = (text: string): number | undefined => (text === '–' || text === '' ? undefined : Number(text));
+  const rows: ResultRow[] = [];
+  for (const r of connectionRows(results)) {
+    const splice = results.splices?.find((s) => s.nodeId === r.id);
+    const check = splice ?? results.base;
+    rows.push({
+      ...base,
+      lift: r.where,
+      bottom_m: check ? round(check.elevation, 3) : undefined,
+      section: splice ? `${splice.above} on ${splice.below}` : undefined,
+      NEd_kN: check ? round(check.NEd, 2) : undefined,
+      utilisation: check?.utilisation == null ? undefined : round(check.utilisation, 3),
+      governing_check: splice ? 'splice tension' : 'base plate',
+      status: r.status === 'not-given' ? 'not given' : r.status,
+      note: [r.fit, ...r.notes].join('; '),
+      tension_kN: splice ? round(splice.tension, 2) : number(r.tension),
+      resistance_kN: splice ? (splice.NtRd === null ? undefined : round(splice.NtRd, 2)) : results.base?.NjRd == null ? undefined : round(results.base.NjRd, 2),
+    });
+  }
+  return rows;
+}
+
+function liftRows(results: StackResult, base: ResultRow): ResultRow[] {
   return results.lifts.map((lift) => {
     const p = governingPiece(lift);
     const c = p?.check;

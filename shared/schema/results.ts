@@ -2,6 +2,7 @@
 // live channel and the calculation package. They are computed by our own code, so they are plain types, not zod
 // schemas.
 import { z } from 'zod';
+import { concreteClassSchema } from './stack.ts';
 
 export const analysisOptionsSchema = z
   .object({
@@ -13,10 +14,15 @@ export const analysisOptionsSchema = z
     nominalMoments: z.boolean().optional(),
     /** Where buckling lengths come from; absent means 'factors' (the table of factors per segment). */
     bucklingLengths: z.enum(['factors', 'critical']).optional(),
+    /** EN 1991-1-7 Annex A Table A.1; absent means not given (the tying check then says so). */
+    consequenceClass: z.enum(['1', '2a', '2b', '3']).optional(),
+    /** Concrete of the foundations under the base plates (EN 1992-1-1 Table 3.1); absent means not given. */
+    concreteClass: concreteClassSchema.optional(),
   })
   .strict();
 export type AnalysisOptions = z.infer<typeof analysisOptionsSchema>;
 export type Annex = AnalysisOptions['annex'];
+export type ConsequenceClass = NonNullable<AnalysisOptions['consequenceClass']>;
 
 export const DEFAULT_ANALYSIS_OPTIONS: AnalysisOptions = {
   combination: '6.10ab',
@@ -207,6 +213,60 @@ export interface StackResult {
   engineVersion?: string;
   /** Present for a stack on the building's grid: the loads derived from the floors (docs/building-model.md). */
   floorLoads?: FloorLoadUse[];
+  /** Splice checks, bottom to top (shared/engine/connections). Absent in results stored before they existed. */
+  splices?: SpliceCheck[];
+  /** Base plate check at the support. */
+  base?: BaseCheck;
+}
+
+/** 'not-given': the engineer has not given the detail (or the building the class) the check needs. */
+export type ConnectionStatus = 'passes' | 'fails' | 'not-given';
+
+/** One splice: the fit of the sections either side and its tension check (kN, mm). */
+export interface SpliceCheck {
+  nodeId: string;
+  elevation: number;
+  above: string;
+  below: string;
+  /** Null when a section is not an I section (the fit rules here are for I sections). */
+  sameSerialSize: boolean | null;
+  /** Pack under each flange cover plate on the upper column (mm), 0 when none. */
+  packThickness: number;
+  divisionPlate: boolean;
+  fit: string;
+  /** Design compression in the joint, its least value under permanent load alone (kN; compression positive). */
+  NEd: number;
+  NminEd: number;
+  /** EN 1991-1-7 A.6 vertical tie force (kN); null when the class does not ask for it or is not given. */
+  tieForce: number | null;
+  /** Tension the splice must carry (kN). */
+  tension: number;
+  /** Resistance of the given detail to tension (kN); null when no detail is given. */
+  NtRd: number | null;
+  utilisation: number | null;
+  status: ConnectionStatus;
+  /** Whether the splice meets the tying requirement: null when the class is not given or asks for no ties. */
+  meetsTie: boolean | null;
+  notes: string[];
+  steps: CalcStep[];
+}
+
+/** The base plate by the effective-area method (EN 1993-1-8 6.2.5), kN and mm. */
+export interface BaseCheck {
+  nodeId: string;
+  elevation: number;
+  NEd: number;
+  NminEd: number;
+  /** Some combination puts the base in tension: holding-down bolts must be designed for it. */
+  tension: boolean;
+  fjd: number | null;
+  c: number | null;
+  tRequired: number | null;
+  NjRd: number | null;
+  utilisation: number | null;
+  status: ConnectionStatus;
+  notes: string[];
+  steps: CalcStep[];
 }
 
 export type StackStatus = 'passes' | 'fails' | 'errors';

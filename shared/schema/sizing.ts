@@ -69,6 +69,8 @@ export interface StackSizing {
   /** Column mass, kg: as now, and with every proposed section (lifts without one keep theirs); null with errors. */
   massBefore: number | null;
   massAfter: number | null;
+  /** Detailed splices that fail, or need a division plate, with the proposed sections (flagged, not hidden). */
+  spliceFlags?: Issue[];
 }
 
 export interface StackSizingPreview extends StackSizing {

@@ -28,7 +28,25 @@ const kFactor = finite.positive().max(10);
 
 /** A building level a node sits on (docs/contracts.md §Stack document): its elevation then follows the level's. */
 const levelId = z.string().min(1).max(64).optional();
-export const supportDataSchema = z.object({ elevation, levelId, fixity: fixitySchema }).strict();
+/** Bolt diameters and property classes a splice detail may use (EN 1993-1-8 Table 3.1). */
+export const boltDiameterSchema = z.union([z.literal(12), z.literal(16), z.literal(20), z.literal(22), z.literal(24), z.literal(27), z.literal(30), z.literal(36)]);
+export const boltClassSchema = z.enum(['8.8', '10.9']);
+export const concreteClassSchema = z.enum(['C20/25', 'C25/30', 'C30/37', 'C35/45', 'C40/50', 'C45/55', 'C50/60']);
+/**
+ * A flange cover-plate splice (see docs/splices-and-bases.md): one plate on the outside of each flange,
+ * `bolts.number` bolts through each flange on each side of the joint. Optional, so older documents stay valid.
+ */
+export const spliceDetailSchema = z
+  .object({
+    plate: z.object({ width: mm, thickness: mm, grade: gradeSchema }).strict(),
+    bolts: z.object({ number: z.number().int().min(1).max(40), diameter: boltDiameterSchema, class: boltClassSchema }).strict(),
+  })
+  .strict();
+/** A base plate on a grout joint (EN 1993-1-8 6.2.5): b across the flanges, l along the depth (mm). */
+export const basePlateSchema = z
+  .object({ b: mm, l: mm, t: mm, grade: gradeSchema, grout: finite.min(0).max(MAX_DIMENSION_MM) })
+  .strict();
+export const supportDataSchema = z.object({ elevation, levelId, fixity: fixitySchema, basePlate: basePlateSchema.optional() }).strict();
 /**
  * Whether the engineer has chosen the lift's section: 'not-chosen' for a lift added with a placeholder
  * (the analysis refuses it), 'to-confirm' for a section copied when a lift was split (flagged until
@@ -45,7 +63,7 @@ export const liftDataSchema = z
     sectionStatus: sectionStatusSchema.optional(),
   })
   .strict();
-export const spliceDataSchema = z.object({ elevation }).strict();
+export const spliceDataSchema = z.object({ elevation, detail: spliceDetailSchema.optional() }).strict();
 /** Characteristic beam reaction on one face of the column (kN). */
 export const faceReactionSchema = z.object({ Gk: load, Qk: load }).strict();
 /**
@@ -115,6 +133,11 @@ export type Grade = z.infer<typeof gradeSchema>;
 export type Axes = z.infer<typeof axesSchema>;
 export type SectionStatus = z.infer<typeof sectionStatusSchema>;
 export type SectionDims = z.infer<typeof sectionDimsSchema>;
+export type SpliceDetail = z.infer<typeof spliceDetailSchema>;
+export type BasePlate = z.infer<typeof basePlateSchema>;
+export type BoltDiameter = z.infer<typeof boltDiameterSchema>;
+export type BoltClass = z.infer<typeof boltClassSchema>;
+export type ConcreteClass = z.infer<typeof concreteClassSchema>;
 export type SupportData = z.infer<typeof supportDataSchema>;
 export type LiftData = z.infer<typeof liftDataSchema>;
 export type SpliceData = z.infer<typeof spliceDataSchema>;

@@ -13,8 +13,10 @@ let viewer: AuthResponse;
 let buildingId: number;
 let stacks: StackSummary[];
 
-const HEADER = 'stack,version,lift,bottom_m,top_m,section,grade,section_class,NEd_kN,Lcr_y_m,Lcr_z_m,Nc_Rd_kN,Nb_y_Rd_kN,Nb_z_Rd_kN,utilisation,governing_check,status,governing_lift,note';
+const HEADER = 'stack,version,lift,bottom_m,top_m,section,grade,section_class,NEd_kN,Lcr_y_m,Lcr_z_m,Nc_Rd_kN,Nb_y_Rd_kN,Nb_z_Rd_kN,utilisation,governing_check,status,governing_lift,note,tension_kN,resistance_kN';
 const readCsv = (bytes: Buffer): Record<string, string>[] => parse(bytes.toString('utf8'), { columns: true });
+/** Splice and base rows follow the lifts of each stack (docs/splices-and-bases.md). */
+const isConnection = (row: Record<string, string>): boolean => row.governing_check === 'splice tension' || row.governing_check === 'base plate';
 
 beforeAll(async () => {
   s = await startTestServer();
@@ -42,7 +44,7 @@ describe('results as CSV', () => {
     expect(r.headers.get('content-type')).toMatch(/^text\/csv/);
     expect(r.headers.get('content-disposition')).toBe('attachment; filename=A_10-results.csv');
     expect(r.bytes.toString('utf8').split('\r\n')[0]).toBe(HEADER);
-    const rows = readCsv(r.bytes);
+    const rows = readCsv(r.bytes).filter((x) => !isConnection(x));
     const stored = await getStack(s, viewer.token, stacks[0]!.id);
     expect(rows.map((x) => x.lift)).toEqual(stored.results.lifts.map((l) => l.label));
     expect(rows.map((x) => x.lift)).toEqual(['L1', 'L2']);
@@ -69,6 +71,18 @@ describe('results as CSV', () => {
     // of the file.
     const u = Number(bottom.NEd_kN) / Math.min(Number(bottom.Nc_Rd_kN), Number(bottom.Nb_y_Rd_kN), Number(bottom.Nb_z_Rd_kN));
     expect(Number(bottom.utilisation)).toBeCloseTo(u, 3);
+  });
+
+  it('a stack downloads its splices and base after its lifts, as not given until detailed', async () => {
+    const r = await download(s, `/stacks/${stacks[0]!.id}/results.csv`, viewer.token);
+    const rows = readCsv(r.bytes).filter(isConnection);
+    const stored = await getStack(s, viewer.token, stacks[0]!.id);
+    expect(rows).toHaveLength((stored.results.splices ?? []).length + (stored.results.base ? 1 : 0));
+    expect(rows.map((x) => x.governing_check)).toEqual(['base plate', ...(stored.results.splices ?? []).map(() => 'splice tension')]);
+    for (const x of rows) expect(x).toMatchObject({ stack: 'A/10', status: 'not given', resistance_kN: '' });
+    // The base carries the design force at the bottom of the column, as the lowest lift's row
+    const bottomLift = readCsv(r.bytes).find((x) => x.lift === 'L1');
+    expect(Number(rows[0]!.NEd_kN)).toBeCloseTo(Number(bottomLift!.NEd_kN), 1);
   });
 
   it('a building downloads every stack in grid order, a stack with errors as one row with its message', async () => {

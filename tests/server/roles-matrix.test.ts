@@ -129,6 +129,7 @@ const MATRIX: Record<string, Case> = {
   'GET /api/buildings/:id/imports/loads/template.csv': { path: (f) => `/buildings/${f.buildingId}/imports/loads/template.csv`, expect: read },
   'GET /api/buildings/:id/results.csv': { path: (f) => `/buildings/${f.buildingId}/results.csv`, expect: read },
   'GET /api/buildings/:id/results.xlsx': { path: (f) => `/buildings/${f.buildingId}/results.xlsx`, expect: read },
+  'GET /api/buildings/:id/robustness': { path: (f) => `/buildings/${f.buildingId}/robustness`, expect: read },
   'GET /api/stacks/:id/results.csv': { path: (f) => `/stacks/${f.stackId}/results.csv`, expect: read },
   'GET /api/stacks/:id/results.xlsx': { path: (f) => `/stacks/${f.stackId}/results.xlsx`, expect: read },
   'POST /api/stacks/:id/sizing': { path: (f) => `/stacks/${f.stackId}/sizing`, body: () => ({ series: 'UKC', grade: 'S355' }), expect: edit(200) },

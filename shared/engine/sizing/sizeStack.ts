@@ -4,6 +4,7 @@ import { DEFAULT_ANALYSIS_OPTIONS, type AnalysisOptions } from '../../schema/res
 import type { LiftSizing, SizingRequest, StackSizing } from '../../schema/sizing.ts';
 import type { StackDocument } from '../../schema/stack.ts';
 import { allLevelElevations, type AnalysisContext } from '../stack/context.ts';
+import { splicesAfterSizing } from '../connections/splicesAfterSizing.ts';
 import { analyseStack } from '../stack/analyseStack.ts';
 import { inspectStack } from '../stack/inspectStack.ts';
 import { CLASS_4_REFUSAL } from '../simple/checkSimpleColumn.ts';
@@ -99,7 +100,9 @@ export function sizeStack(doc: StackDocument, request: SizingRequest, options: P
   const { picks, serial } = bestPicks(model, candidates, request, search);
   const now = moments ? analysedUtilisations(doc, model.lifts.length, settings, context) : currentUtilisations(model);
   const lifts = model.lifts.map((_, i) => withClass4Note(liftRow(model, i, picks[i], now[i], request), underMoments[i], picks[i], candidates));
+  const spliceFlags = splicesAfterSizing(doc, lifts, settings, context);
   return {
+    ...(spliceFlags.length ? { spliceFlags } : {}),
     errors: [],
     lifts,
     serialSize: serial,

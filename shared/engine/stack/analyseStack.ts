@@ -4,6 +4,7 @@ import { DEFAULT_ANALYSIS_OPTIONS, type AnalysisOptions, type Issue, type LiftRe
 import type { StackDocument } from '../../schema/stack.ts';
 import { applyFloorLoads } from '../building/applyFloorLoads.ts';
 import { isEngineError } from '../errors.ts';
+import { connectionChecks } from '../connections/connectionChecks.ts';
 import { withCriticalBuckling } from '../critical/withCriticalBuckling.ts';
 import { applyNominalMoments } from '../simple/applyNominalMoments.ts';
 import { checkLift } from './checkLift.ts';
@@ -63,5 +64,9 @@ export function analyseStack(doc: StackDocument, options: Partial<AnalysisOption
   const result: StackResult = { errors: [], warnings, lifts, governingLiftId: governing?.liftId ?? null, takeDown: rows };
   if (critical?.result) critical.finish(result);
   if (floor.uses.length) result.floorLoads = floor.uses;
+  // Splices and the base: additive results, never a change to the member checks above
+  const connections = connectionChecks(floor.doc, model, weights, rows, settings);
+  result.splices = connections.splices;
+  if (connections.base) result.base = connections.base;
   return result;
 }
