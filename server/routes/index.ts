@@ -9,6 +9,7 @@ import { registerHealthRoutes } from './health.ts';
 import { registerImportRoutes } from './imports.ts';
 import { registerLevelRoutes } from './levels.ts';
 import { registerRevisionRoutes } from './revisions.ts';
+import { registerScheduleRoutes } from './schedule.ts';
 import { registerSectionRoutes } from './sections.ts';
 import { registerSizingRoutes } from './sizing.ts';
 import { registerStackRoutes } from './stacks.ts';
@@ -25,6 +26,7 @@ export function createApiRouter(ctx: ServerContext): Router {
   registerSizingRoutes(router, ctx);
   registerImportRoutes(router, ctx);
   registerExportRoutes(router, ctx);
+  registerScheduleRoutes(router, ctx);
   registerDevRoutes(router, ctx);
   return router;
 }
