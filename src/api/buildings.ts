@@ -12,6 +12,7 @@ import type {
   updateLevelBodySchema,
   updateMemberBodySchema,
 } from '@shared/schema/api.ts';
+import type { ColumnSchedule } from '@shared/schedule/columnSchedule.ts';
 import { apiFetch } from './http.ts';
 
 export type CreateBuildingBody = z.output<typeof createBuildingBodySchema>;
@@ -45,4 +46,10 @@ export const levelsApi = {
   update: (buildingId: number, levelId: string, body: UpdateLevelBody) =>
     apiFetch<Level>('PATCH', `${b(buildingId)}/levels/${encodeURIComponent(levelId)}`, body),
   remove: (buildingId: number, levelId: string) => apiFetch<void>('DELETE', `${b(buildingId)}/levels/${encodeURIComponent(levelId)}`),
+};
+
+export const scheduleApi = {
+  get: (buildingId: number) => apiFetch<ColumnSchedule>('GET', `${b(buildingId)}/schedule`),
+  /** Path of a download, for downloadFile. */
+  file: (buildingId: number, format: 'csv' | 'xlsx' | 'dxf') => `${b(buildingId)}/schedule.${format}`,
 };

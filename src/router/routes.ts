@@ -34,6 +34,7 @@ export const routes: RouteRecordRaw[] = [
       { path: 'buildings', name: 'buildings', component: () => import('@/pages/BuildingsPage.vue') },
       { path: 'buildings/:id', name: 'building', component: () => import('@/pages/BuildingPage.vue') },
       { path: 'buildings/:id/revisions', name: 'revisions', component: () => import('@/pages/RevisionsPage.vue') },
+      { path: 'buildings/:id/schedule', name: 'schedule', component: () => import('@/pages/SchedulePage.vue') },
       { path: '/stacks/:id', name: 'stack', component: () => import('@/pages/StackPage.vue') },
       { path: 'outbox', name: 'outbox', component: () => import('@/pages/OutboxPage.vue'), beforeEnter: adminOnly },
     ],
