@@ -10,6 +10,7 @@ import { registerImportRoutes } from './imports.ts';
 import { registerLevelRoutes } from './levels.ts';
 import { registerRevisionRoutes } from './revisions.ts';
 import { registerScheduleRoutes } from './schedule.ts';
+import { registerStackHistoryRoutes } from './stackHistory.ts';
 import { registerSectionRoutes } from './sections.ts';
 import { registerSizingRoutes } from './sizing.ts';
 import { registerStackRoutes } from './stacks.ts';
@@ -27,6 +28,7 @@ export function createApiRouter(ctx: ServerContext): Router {
   registerImportRoutes(router, ctx);
   registerExportRoutes(router, ctx);
   registerScheduleRoutes(router, ctx);
+  registerStackHistoryRoutes(router, ctx);
   registerDevRoutes(router, ctx);
   return router;
 }
