@@ -4,6 +4,8 @@ import type { Knex } from 'knex';
 import type { Op } from '../../shared/schema/ops.ts';
 import { isoTime } from '../db.ts';
 import { describeOps } from '../../shared/history/describeOps.ts';
+import type { HistoryEntry, StackAsOf, StackHistory } from '../../shared/history/historyTypes.ts';
+import { stackOutline } from '../../shared/history/stackOutline.ts';
 import { applyOps } from '../../shared/ops/applyOps.ts';
 import { stackDocumentSchema, type StackDocument } from '../../shared/schema/stack.ts';
 import { notFound, unprocessable } from '../errors.ts';
@@ -30,22 +32,6 @@ export async function opsSince(db: Knex, stackId: number, since: number): Promis
     by: r.user_id !== null && r.name !== null ? { userId: r.user_id, name: r.name } : null,
     at: isoTime(r.created_at),
   }));
-}
-
-export interface HistoryEntry {
-  version: number;
-  by: { userId: number; name: string } | null;
-  at: string;
-  /** The kind of write, as the audit log names it (stack.create, stack.edit, level.update…). */
-  action: string;
-  /** What changed, in words; empty for a change that only rearranged nothing an engineer reads. */
-  changes: string[];
-}
-
-export interface StackHistory {
-  entries: HistoryEntry[];
-  /** False when earlier versions cannot be rebuilt: the stack's starting document was not kept (older stacks). */
-  complete: boolean;
 }
 
 interface AuditRow {
@@ -108,15 +94,19 @@ export async function stackHistory(db: Knex, stackId: number): Promise<StackHist
 }
 
 /** The document as it was at a version, rebuilt from the starting document and the stored ops (read only). */
-export async function stackAsOf(db: Knex, stackId: number, version: number): Promise<{ version: number; doc: StackDocument }> {
+export async function stackAsOf(db: Knex, stackId: number, version: number): Promise<StackAsOf> {
   const row = await loadStackRow(db, stackId);
   if (version > row.version) throw notFound('Version');
-  if (version === row.version) return { version, doc: parseDoc(row.doc) };
+  const levels = await levelNames(db, stackId);
+  if (version === row.version) {
+    const current = parseDoc(row.doc);
+    return { version, doc: current, outline: stackOutline(current, levels) };
+  }
   let doc = startingDoc(await auditRows(db, stackId));
   if (!doc) throw unprocessable('Earlier versions of this stack cannot be shown: its starting document was not kept', { version });
   for (const c of await opsSince(db, stackId, 0)) {
     if (c.version > version) break;
     doc = applyOps(doc, c.ops);
   }
-  return { version, doc };
+  return { version, doc, outline: stackOutline(doc, levels) };
 }

@@ -3,7 +3,7 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type { AuthResponse, StackDetail, StackSummary } from '../../shared/schema/api.ts';
 import type { StackDocument } from '../../shared/schema/stack.ts';
-import type { StackHistory } from '../../server/services/stackHistory.ts';
+import type { StackAsOf, StackHistory } from '../../shared/history/historyTypes.ts';
 import { getStack, nodeAt, seedBuilding } from '../fixtures/uploads.ts';
 import { addMember, createBuilding, registerUser, startTestServer, type TestServer } from './helpers.ts';
 
@@ -60,15 +60,22 @@ describe('a stack’s history', () => {
 
   it('shows the stack as it was at each version, and the current version as stored', async () => {
     const current = await getStack(s, viewer.token, stack.id);
-    const at = async (v: number) => {
+    const asOf = async (v: number) => {
       const r = await s.api('GET', `/stacks/${stack.id}/versions/${v}`, { token: viewer.token });
       expect(r.status).toBe(200);
-      return (r.body as { doc: StackDocument }).doc;
+      return r.body as StackAsOf;
     };
+    const at = async (v: number): Promise<StackDocument> => (await asOf(v)).doc;
     expect(await at(0)).toEqual(original.doc);
     const v1 = await at(1);
     const level3 = nodeAt(v1, 10.8);
     expect(level3?.kind === 'restraint' && level3.data.Gk).toBe(150);
+    // The outline reads bottom first: the support, the lifts and the floors named by their levels.
+    const outline = (await asOf(1)).outline;
+    expect(outline[0]).toMatchObject({ part: 'Support', where: 'Ground (+0.000)' });
+    expect(outline.find((o) => o.where === 'Level 3 (+10.800)')?.details).toMatch(/^Gk 150 kN, Qk 50 kN/);
+    expect((await asOf(0)).outline.find((o) => o.where === 'Level 3 (+10.800)')?.details).toMatch(/^Gk 100 kN/);
+    expect(outline.filter((o) => o.part === 'Lift').map((o) => o.where)).toEqual(['L1: +0.000 to +7.700', 'L2: +7.700 to +14.400']);
     // Replaying every stored op from the starting document gives exactly the stored current document.
     const rebuilt = await s.api('GET', `/stacks/${stack.id}/versions/${current.version - 1}`, { token: viewer.token });
     expect(rebuilt.status).toBe(200);
