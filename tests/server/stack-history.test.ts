@@ -29,7 +29,7 @@ beforeAll(async () => {
   const buildingId = (await createBuilding(s, lead.token, 'History block')).id;
   await addMember(s, lead.token, buildingId, engineer.user.email, 'engineer');
   await addMember(s, lead.token, buildingId, viewer.user.email, 'viewer');
-  ({ stacks: [stack] = [] } = await seedBuilding(s, lead.token, buildingId, ['A/1']));
+  stack = (await seedBuilding(s, lead.token, buildingId, ['A/1'])).stacks[0]!;
   original = await getStack(s, lead.token, stack.id);
 });
 
