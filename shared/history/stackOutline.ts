@@ -22,7 +22,7 @@ export function stackOutline(doc: StackDocument, levels: LevelNames): OutlineRow
         rows.push({ elevation: node.data.elevation, order: 0, row: { part: 'Support', where: at(node.data, levels), details: `${node.data.fixity} base` } });
         break;
       case 'splice':
-        rows.push({ elevation: node.data.elevation, order: 2, row: { part: 'Splice', where: formatElevation(node.data.elevation), details: '' } });
+        rows.push({ elevation: node.data.elevation, order: 0, row: { part: 'Splice', where: formatElevation(node.data.elevation), details: '' } });
         break;
       case 'restraint':
         rows.push({ elevation: node.data.elevation, order: 2, row: { part: 'Restraint', where: at(node.data, levels), details: `${loads(node.data)}; ${node.data.fixity}, axes ${node.data.axes}` } });

@@ -76,6 +76,8 @@ describe('a stack’s history', () => {
     expect(outline.find((o) => o.where === 'Level 3 (+10.800)')?.details).toMatch(/^Gk 150 kN, Qk 50 kN/);
     expect((await asOf(0)).outline.find((o) => o.where === 'Level 3 (+10.800)')?.details).toMatch(/^Gk 100 kN/);
     expect(outline.filter((o) => o.part === 'Lift').map((o) => o.where)).toEqual(['L1: +0.000 to +7.700', 'L2: +7.700 to +14.400']);
+    // A splice comes before the lift that starts on it.
+    expect(outline.findIndex((o) => o.part === 'Splice')).toBe(outline.findIndex((o) => o.where.startsWith('L2')) - 1);
     // Replaying every stored op from the starting document gives exactly the stored current document.
     const rebuilt = await s.api('GET', `/stacks/${stack.id}/versions/${current.version - 1}`, { token: viewer.token });
     expect(rebuilt.status).toBe(200);
