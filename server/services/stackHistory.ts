@@ -10,6 +10,7 @@ import { applyOps } from '../../shared/ops/applyOps.ts';
 import { stackDocumentSchema, type StackDocument } from '../../shared/schema/stack.ts';
 import { notFound, unprocessable } from '../errors.ts';
 import { loadStackRow, parseDoc } from './stackRows.ts';
+import { replaceDoc, type CommittedChange } from './stackOps.ts';
 
 export interface CommittedOps {
   version: number;
@@ -109,4 +110,14 @@ export async function stackAsOf(db: Knex, stackId: number, version: number): Pro
     doc = applyOps(doc, c.ops);
   }
   return { version, doc, outline: stackOutline(doc, levels) };
+}
+
+/**
+ * Makes an earlier version the current document again, as a new version through the one write path (recorded as the
+ * ops that turn the current document into the old one, so restoring is itself undone by restoring the version
+ * before it). Only from the current version, like any whole-document write; null when nothing differs.
+ */
+export async function restoreVersion(db: Knex, input: { stackId: number; version: number; baseVersion: number; userId: number }): Promise<CommittedChange | null> {
+  const { doc } = await stackAsOf(db, input.stackId, input.version);
+  return replaceDoc(db, { stackId: input.stackId, baseVersion: input.baseVersion, doc, userId: input.userId });
 }

@@ -18,4 +18,6 @@ export const stacksApi = {
 export const stackHistoryApi = {
   history: (stackId: number) => apiFetch<StackHistory>('GET', `/stacks/${stackId}/history`),
   asOf: (stackId: number, version: number) => apiFetch<StackAsOf>('GET', `/stacks/${stackId}/versions/${version}`),
+  restore: (stackId: number, version: number, baseVersion: number) =>
+    apiFetch<unknown>('POST', `/stacks/${stackId}/versions/${version}/restore`, { baseVersion }),
 };

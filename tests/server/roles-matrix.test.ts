@@ -91,6 +91,7 @@ const MATRIX: Record<string, Case> = {
   'GET /api/buildings/:id/schedule.dxf': { path: (f) => `/buildings/${f.buildingId}/schedule.dxf`, expect: read },
   'GET /api/stacks/:id/history': { path: (f) => `/stacks/${f.stackId}/history`, expect: read },
   'GET /api/stacks/:id/versions/:version': { path: (f) => `/stacks/${f.stackId}/versions/0`, expect: read },
+  'POST /api/stacks/:id/versions/:version/restore': { path: (f) => `/stacks/${f.stackId}/versions/0/restore`, body: (f) => ({ baseVersion: f.version }), expect: edit(200) },
   'POST /api/stacks/:id/sizing': { path: (f) => `/stacks/${f.stackId}/sizing`, body: () => ({ series: 'UKC', grade: 'S355' }), expect: edit(200) },
   'POST /api/buildings/:id/sizing': { path: (f) => `/buildings/${f.buildingId}/sizing`, body: () => ({ series: 'UKC', grade: 'S355' }), expect: edit(200) },
   'POST /api/buildings/:id/revisions': { path: (f) => `/buildings/${f.buildingId}/revisions`, body: () => ({ note: 'matrix', purpose: 'preliminary' }), expect: leadOnly(201) },

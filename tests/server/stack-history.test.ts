@@ -6,6 +6,7 @@ import type { StackDocument } from '../../shared/schema/stack.ts';
 import type { StackAsOf, StackHistory } from '../../shared/history/historyTypes.ts';
 import { getStack, nodeAt, seedBuilding } from '../fixtures/uploads.ts';
 import { addMember, createBuilding, registerUser, startTestServer, type TestServer } from './helpers.ts';
+import { connect, next, request } from './liveHelpers.ts';
 
 let s: TestServer;
 let lead: AuthResponse;
@@ -84,6 +85,43 @@ describe('a stack’s history', () => {
     expect(await at(current.version)).toEqual(current.doc);
     const replayed = (await s.ctx.db('stacks').where({ id: stack.id }).first<{ doc: string }>('doc'))!;
     expect(JSON.parse(replayed.doc)).toEqual(current.doc);
+  });
+
+  it('restores an earlier version as a new version, broadcast to the stack room, and restores back again', async () => {
+    const watcher = await connect(s.url, viewer.token);
+    try {
+      const joined = await request<{ version: number }>(watcher, 'stack:join', { stackId: stack.id });
+      expect(joined.ok).toBe(true);
+      const before = await getStack(s, engineer.token, stack.id);
+      const heard = next(watcher, 'stack:changed', (p) => p.stackId === stack.id);
+      const r = await s.api('POST', `/stacks/${stack.id}/versions/0/restore`, { token: engineer.token, body: { baseVersion: before.version } });
+      expect(r.status).toBe(200);
+      const restored = r.body as StackDetail;
+      expect(restored.version).toBe(before.version + 1);
+      expect(restored.doc).toEqual(original.doc);
+      expect(restored.results.lifts.map((l) => l.utilisation)).toEqual(original.results.lifts.map((l) => l.utilisation));
+      const change = await heard;
+      expect(change.version).toBe(restored.version);
+      expect(change.by.name).toBe(engineer.user.name);
+      // The history says what the restore changed back, in the same words as any edit.
+      const history = (await s.api('GET', `/stacks/${stack.id}/history`, { token: viewer.token })).body as StackHistory;
+      expect(history.entries[0]!.changes).toEqual(expect.arrayContaining(['Gk at Level 3 150 → 100 kN']));
+      // Undone by restoring the version before it.
+      const back = await s.api('POST', `/stacks/${stack.id}/versions/${before.version}/restore`, { token: engineer.token, body: { baseVersion: restored.version } });
+      expect(back.status).toBe(200);
+      expect((back.body as StackDetail).doc).toEqual(before.doc);
+    } finally {
+      watcher.disconnect();
+    }
+  });
+
+  it('refuses a restore from a stale version or by a viewer, and leaves the stack as it was', async () => {
+    const before = await getStack(s, engineer.token, stack.id);
+    const stale = await s.api('POST', `/stacks/${stack.id}/versions/0/restore`, { token: engineer.token, body: { baseVersion: before.version - 1 } });
+    expect(stale.status).toBe(409);
+    const viewed = await s.api('POST', `/stacks/${stack.id}/versions/0/restore`, { token: viewer.token, body: { baseVersion: before.version } });
+    expect(viewed.status).toBe(403);
+    expect(await getStack(s, engineer.token, stack.id)).toEqual(before);
   });
 
   it('refuses a version that does not exist and a malformed one, in the API error shape', async () => {
