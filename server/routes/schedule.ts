@@ -23,7 +23,10 @@ export function registerScheduleRoutes(router: Router, ctx: ServerContext): void
   });
   router.get('/buildings/:id/schedule.xlsx', auth, viewer, async (req, res) => {
     const { name, schedule } = await buildingSchedule(ctx.db, currentAccess(req).buildingId);
-    res.attachment(fileName(name, 'xlsx')).type(XLSX_TYPE).send(await scheduleXlsx(name, schedule));
+    res
+      .attachment(fileName(name, 'xlsx'))
+      .type(XLSX_TYPE)
+      .send(await scheduleXlsx(name, schedule));
   });
   router.get('/buildings/:id/schedule.dxf', auth, viewer, async (req, res) => {
     const { name, schedule } = await buildingSchedule(ctx.db, currentAccess(req).buildingId);

@@ -9,18 +9,47 @@ import { listLevels } from './levels.ts';
 import { parseDoc, parseResults, type StackRow } from './stackRows.ts';
 import { spreadsheetSafe, toCsv, type Cell } from './exportsFormats.ts';
 
-export async function buildingSchedule(db: Knex, buildingId: number): Promise<{ name: string; schedule: ColumnSchedule }> {
+export async function buildingSchedule(
+  db: Knex,
+  buildingId: number,
+): Promise<{ name: string; schedule: ColumnSchedule }> {
   const building = await db('buildings').where({ id: buildingId }).first<{ name: string }>('name');
   const rows = await db<StackRow>('stacks').where({ building_id: buildingId });
-  const stacks = rows.map((r) => ({ id: r.id, name: r.name, version: r.version, doc: parseDoc(r.doc), results: parseResults(r.results) }));
+  const stacks = rows.map((r) => ({
+    id: r.id,
+    name: r.name,
+    version: r.version,
+    doc: parseDoc(r.doc),
+    results: parseResults(r.results),
+  }));
   const levels = await listLevels(db, buildingId);
-  return { name: building.name, schedule: buildColumnSchedule(stacks, levels, await companySectionMap(db, buildingId)) };
+  return {
+    name: building.name,
+    schedule: buildColumnSchedule(stacks, levels, await companySectionMap(db, buildingId)),
+  };
 }
 
 /** Columns of the downloads, with their units. */
 export const SCHEDULE_COLUMNS = [
-  'stack', 'lift', 'from_level', 'to_level', 'bottom_m', 'top_m', 'length_m', 'section', 'series', 'grade',
-  'bottom_joint', 'base_fixity', 'splice_levels', 'utilisation', 'governing_check', 'status', 'mass_kg_per_m', 'mass_kg',
+  'stack',
+  'type',
+  'lift',
+  'from_level',
+  'to_level',
+  'bottom_m',
+  'top_m',
+  'length_m',
+  'section',
+  'series',
+  'grade',
+  'bottom_joint',
+  'base_fixity',
+  'splice_levels',
+  'utilisation',
+  'governing_check',
+  'status',
+  'mass_kg_per_m',
+  'mass_kg',
 ] as const;
 type ScheduleColumn = (typeof SCHEDULE_COLUMNS)[number];
 
@@ -29,6 +58,7 @@ const round = (n: number, places: number): number => Number(n.toFixed(places));
 export function scheduleCells(r: ScheduleRow): Record<ScheduleColumn, Cell> {
   return {
     stack: r.stack,
+    type: r.type,
     lift: r.lift,
     from_level: r.fromLevel,
     to_level: r.toLevel,
@@ -65,8 +95,14 @@ const gapLines = (s: ColumnSchedule): string[] => s.gaps.map((g) => `Not schedul
 
 export function scheduleCsv(s: ColumnSchedule): string {
   const table = toCsv(SCHEDULE_COLUMNS, s.rows.map(scheduleCells));
-  const tonnage = toCsv(['tonnage', 'tonnes'], tonnageLines(s).map(([what, t]) => ({ tonnage: what, tonnes: t })));
-  const notes = toCsv(['note'], [s.note, ...gapLines(s)].map((note) => ({ note })));
+  const tonnage = toCsv(
+    ['tonnage', 'tonnes'],
+    tonnageLines(s).map(([what, t]) => ({ tonnage: what, tonnes: t })),
+  );
+  const notes = toCsv(
+    ['note'],
+    [s.note, ...gapLines(s)].map((note) => ({ note })),
+  );
   return `${table}\r\n${tonnage}\r\n${notes}`;
 }
 
@@ -82,18 +118,23 @@ export async function scheduleXlsx(name: string, s: ColumnSchedule): Promise<Buf
     sheet.addRow(Object.fromEntries(SCHEDULE_COLUMNS.map((c) => [c, spreadsheetSafe(cells[c]) ?? null])));
   }
   const tonnage = book.addWorksheet('Tonnage');
-  tonnage.columns = [{ header: 'tonnage', key: 'what', width: 40 }, { header: 'tonnes', key: 't', width: 12 }];
+  tonnage.columns = [
+    { header: 'tonnage', key: 'what', width: 40 },
+    { header: 'tonnes', key: 't', width: 12 },
+  ];
   tonnage.getRow(1).font = { bold: true };
   for (const [what, t] of tonnageLines(s)) tonnage.addRow({ what: spreadsheetSafe(what), t });
   const notes = book.addWorksheet('Notes');
   notes.getColumn(1).width = 120;
-  for (const line of [`${name}: column schedule`, s.note, ...gapLines(s), `Exported ${new Date().toISOString()}`]) notes.addRow([spreadsheetSafe(line)]);
+  for (const line of [`${name}: column schedule`, s.note, ...gapLines(s), `Exported ${new Date().toISOString()}`])
+    notes.addRow([spreadsheetSafe(line)]);
   return Buffer.from(await book.xlsx.writeBuffer());
 }
 
 /** Columns of the drawn table: header, width (drawing units, mm at 1:1) and the cell text. */
 const DXF_COLUMNS: readonly { head: string; width: number; text: (r: ScheduleRow) => string }[] = [
   { head: 'Stack', width: 25, text: (r) => r.stack },
+  { head: 'Type', width: 12, text: (r) => r.type },
   { head: 'Lift', width: 12, text: (r) => r.lift },
   { head: 'From', width: 40, text: (r) => r.fromLevel },
   { head: 'To', width: 40, text: (r) => r.toLevel },

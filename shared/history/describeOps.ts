@@ -12,8 +12,18 @@ export type LevelNames = ReadonlyMap<string, string>;
 
 const UNITS: Record<string, string> = { Gk: ' kN', Qk: ' kN', elevation: ' m' };
 const FIELD_NAMES: Record<string, string> = {
-  section: 'Section', grade: 'Grade', kY: 'k about y', kZ: 'k about z', note: 'Note', elevation: 'Elevation',
-  levelId: 'Level', axes: 'Restrained axes', fixity: 'Fixity', category: 'Category', faces: 'Beam reactions by face', label: 'Label',
+  section: 'Section',
+  grade: 'Grade',
+  kY: 'k about y',
+  kZ: 'k about z',
+  note: 'Note',
+  elevation: 'Elevation',
+  levelId: 'Level',
+  axes: 'Restrained axes',
+  fixity: 'Fixity',
+  category: 'Category',
+  faces: 'Beam reactions by face',
+  label: 'Label',
 };
 
 function liftLabels(doc: StackDocument): Map<string, string> {
@@ -71,7 +81,9 @@ function describeOne(op: Op, doc: StackDocument, levels: LevelNames): string[] {
     }
     case 'addNode': {
       const after = { ...doc, nodes: [...doc.nodes, op.node] };
-      return [`Added ${nodeName(op.node, after, levels)}${op.node.kind === 'lift' ? ` (${value('section', op.node.data.section, levels)} ${op.node.data.grade})` : ''}`];
+      return [
+        `Added ${nodeName(op.node, after, levels)}${op.node.kind === 'lift' ? ` (${value('section', op.node.data.section, levels)} ${op.node.data.grade})` : ''}`,
+      ];
     }
     case 'removeNode': {
       const node = find(op.id);

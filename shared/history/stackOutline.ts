@@ -10,7 +10,8 @@ const at = (data: { elevation: number; levelId?: string }, levels: LevelNames): 
   const level = data.levelId ? levels.get(data.levelId) : undefined;
   return level ? `${level} (${formatElevation(data.elevation)})` : formatElevation(data.elevation);
 };
-const loads = (d: { Gk: number; Qk: number; category: string }) => `Gk ${d.Gk} kN, Qk ${d.Qk} kN, category ${d.category}`;
+const loads = (d: { Gk: number; Qk: number; category: string }) =>
+  `Gk ${d.Gk} kN, Qk ${d.Qk} kN, category ${d.category}`;
 
 export function stackOutline(doc: StackDocument, levels: LevelNames): OutlineRow[] {
   const { chain } = walkStackChain(buildStackGraph(doc).graph);
@@ -19,28 +20,59 @@ export function stackOutline(doc: StackDocument, levels: LevelNames): OutlineRow
   for (const node of doc.nodes) {
     switch (node.kind) {
       case 'support':
-        rows.push({ elevation: node.data.elevation, order: 0, row: { part: 'Support', where: at(node.data, levels), details: `${node.data.fixity} base` } });
+        rows.push({
+          elevation: node.data.elevation,
+          order: 0,
+          row: { part: 'Support', where: at(node.data, levels), details: `${node.data.fixity} base` },
+        });
         break;
       case 'splice':
-        rows.push({ elevation: node.data.elevation, order: 0, row: { part: 'Splice', where: formatElevation(node.data.elevation), details: '' } });
+        rows.push({
+          elevation: node.data.elevation,
+          order: 0,
+          row: { part: 'Splice', where: formatElevation(node.data.elevation), details: '' },
+        });
         break;
       case 'restraint':
-        rows.push({ elevation: node.data.elevation, order: 2, row: { part: 'Restraint', where: at(node.data, levels), details: `${loads(node.data)}; ${node.data.fixity}, axes ${node.data.axes}` } });
+        rows.push({
+          elevation: node.data.elevation,
+          order: 2,
+          row: {
+            part: 'Restraint',
+            where: at(node.data, levels),
+            details: `${loads(node.data)}; ${node.data.fixity}, axes ${node.data.axes}`,
+          },
+        });
         break;
       case 'cap':
-        rows.push({ elevation: node.data.elevation, order: 3, row: { part: 'Cap', where: at(node.data, levels), details: `${loads(node.data)}; ${node.data.fixity}` } });
+        rows.push({
+          elevation: node.data.elevation,
+          order: 3,
+          row: { part: 'Cap', where: at(node.data, levels), details: `${loads(node.data)}; ${node.data.fixity}` },
+        });
         break;
       case 'lift': {
         const link = lifts.get(node.id);
         const bottom = link && 'elevation' in link.below.data ? link.below.data.elevation : Number.NaN;
         const top = link?.above && 'elevation' in link.above.data ? link.above.data.elevation : Number.NaN;
-        const where = link ? `${link.name}: ${formatElevation(bottom)} to ${Number.isNaN(top) ? '?' : formatElevation(top)}` : 'not connected';
-        const section = typeof node.data.section === 'string' ? node.data.section : `${node.data.section.shape} by dimensions`;
-        rows.push({ elevation: Number.isNaN(bottom) ? Infinity : bottom, order: 1, row: { part: 'Lift', where, details: `${section} ${node.data.grade}` } });
+        const where = link
+          ? `${link.name}: ${formatElevation(bottom)} to ${Number.isNaN(top) ? '?' : formatElevation(top)}`
+          : 'not connected';
+        const section =
+          typeof node.data.section === 'string' ? node.data.section : `${node.data.section.shape} by dimensions`;
+        rows.push({
+          elevation: Number.isNaN(bottom) ? Infinity : bottom,
+          order: 1,
+          row: { part: 'Lift', where, details: `${section} ${node.data.grade}` },
+        });
         break;
       }
       case 'load':
-        rows.push({ elevation: Infinity, order: 4, row: { part: 'Load', where: node.data.label, details: loads(node.data) } });
+        rows.push({
+          elevation: Infinity,
+          order: 4,
+          row: { part: 'Load', where: node.data.label, details: loads(node.data) },
+        });
         break;
     }
   }

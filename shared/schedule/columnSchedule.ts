@@ -25,6 +25,8 @@ export interface ScheduleLevel {
 export interface ScheduleRow {
   stackId: number;
   stack: string;
+  /** Stacks with the same lifts (ends to the millimetre, sections, grades) and base share a type: T1, T2, … */
+  type: string;
   lift: string;
   /** Level (or level + offset) at the bottom and the top of the lift. */
   fromLevel: string;
@@ -64,8 +66,15 @@ export interface Tonnage {
   bySeriesGrade: { series: string; grade: string; mass: number }[];
 }
 
+/** A column type and the stacks built to it, so typical columns are drawn and fabricated once. */
+export interface ColumnType {
+  type: string;
+  stacks: string[];
+}
+
 export interface ColumnSchedule {
   rows: ScheduleRow[];
+  types: ColumnType[];
   gaps: ScheduleGap[];
   tonnage: Tonnage;
   note: string;
@@ -100,6 +109,25 @@ function splitByLevel(from: number, to: number, levels: readonly ScheduleLevel[]
   });
 }
 
+/** What makes two stacks the same column for the drawing office: every lift's ends, section and grade, and the base. */
+const signature = (rows: readonly ScheduleRow[]): string =>
+  rows.map((r) => `${r.bottom.toFixed(3)}|${r.top.toFixed(3)}|${r.section}|${r.grade}|${r.baseFixity}`).join(';');
+
+/** Numbers the types in schedule order and marks each row with its stack's type. */
+function groupTypes(rows: ScheduleRow[]): ColumnType[] {
+  const byStack = new Map<number, ScheduleRow[]>();
+  for (const r of rows) byStack.set(r.stackId, [...(byStack.get(r.stackId) ?? []), r]);
+  const types = new Map<string, ColumnType>();
+  for (const stackRows of byStack.values()) {
+    const key = signature(stackRows);
+    const type = types.get(key) ?? { type: `T${types.size + 1}`, stacks: [] };
+    type.stacks.push(stackRows[0]!.stack);
+    types.set(key, type);
+    for (const r of stackRows) r.type = type.type;
+  }
+  return [...types.values()];
+}
+
 export function buildColumnSchedule(
   stacks: readonly ScheduleStackInput[],
   levelsIn: readonly ScheduleLevel[],
@@ -128,7 +156,11 @@ export function buildColumnSchedule(
     for (const [index, lift] of lifts.entries()) {
       const node = doc.nodes.find((n) => n.id === lift.liftId);
       if (node?.kind !== 'lift') {
-        gaps.push({ stackId: stack.id, stack: stack.name, reason: `Lift ${lift.label ?? lift.liftId} is not in the stored document` });
+        gaps.push({
+          stackId: stack.id,
+          stack: stack.name,
+          reason: `Lift ${lift.label ?? lift.liftId} is not in the stored document`,
+        });
         continue;
       }
       const label = lift.label ?? lift.liftId;
@@ -144,6 +176,7 @@ export function buildColumnSchedule(
       rows.push({
         stackId: stack.id,
         stack: stack.name,
+        type: '',
         lift: label,
         fromLevel: describeElevation(lift.bottom, levels),
         toLevel: describeElevation(lift.top, levels),
@@ -172,7 +205,13 @@ export function buildColumnSchedule(
     }
   }
 
-  const byLevel = levels.length > 0 ? levels.map((l, i) => ({ level: l.name, mass: levelMass[i]! })) : [{ level: '(no levels)', mass: total }];
-  const bySeriesGrade = [...seriesGrade.values()].sort((a, b) => a.series.localeCompare(b.series) || a.grade.localeCompare(b.grade));
-  return { rows, gaps, tonnage: { total, byLevel, bySeriesGrade }, note: SAFETY_NOTE };
+  const byLevel =
+    levels.length > 0
+      ? levels.map((l, i) => ({ level: l.name, mass: levelMass[i]! }))
+      : [{ level: '(no levels)', mass: total }];
+  const bySeriesGrade = [...seriesGrade.values()].sort(
+    (a, b) => a.series.localeCompare(b.series) || a.grade.localeCompare(b.grade),
+  );
+  const types = groupTypes(rows);
+  return { rows, types, gaps, tonnage: { total, byLevel, bySeriesGrade }, note: SAFETY_NOTE };
 }

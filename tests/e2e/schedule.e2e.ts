@@ -16,11 +16,16 @@ describeInBrowser('column schedule and stack history', () => {
     const api = await page.evaluate(async () => {
       const headers = { Authorization: `Bearer ${localStorage.getItem('stanchion.token')}` };
       const id = location.pathname.split('/')[2];
-      return (await (await fetch(`/api/buildings/${id}/schedule`, { headers })).json()) as { rows: unknown[]; tonnage: { total: number } };
+      return (await (await fetch(`/api/buildings/${id}/schedule`, { headers })).json()) as {
+        rows: unknown[];
+        tonnage: { total: number };
+      };
     });
     expect(api.rows.length).toBeGreaterThan(0);
     await expect(table.locator('tbody tr').count()).resolves.toBe(api.rows.length);
-    await expect(page.locator('[data-test="tonnage-total"]').textContent()).resolves.toBe(`${(api.tonnage.total / 1000).toFixed(3)} t`);
+    await expect(page.locator('[data-test="tonnage-total"]').textContent()).resolves.toBe(
+      `${(api.tonnage.total / 1000).toFixed(3)} t`,
+    );
     await screenshot(page, 'column-schedule');
 
     await page.emulateMedia({ media: 'print' });

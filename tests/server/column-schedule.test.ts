@@ -27,9 +27,10 @@ const TABLE: Record<string, { h: number; b: number; tw: number; tf: number; r: n
 };
 
 /** Area of a rolled I: two flanges, the web between them and the four root fillets (each r² − πr²/4). */
-const iArea = (d: { h: number; b: number; tw: number; tf: number; r: number }) => 2 * d.b * d.tf + (d.h - 2 * d.tf) * d.tw + (4 - Math.PI) * d.r ** 2;
+const iArea = (d: { h: number; b: number; tw: number; tf: number; r: number }) =>
+  2 * d.b * d.tf + (d.h - 2 * d.tf) * d.tw + (4 - Math.PI) * d.r ** 2;
 // EN 1991-1-1 Table A.4: steel 77.0–78.5 kN/m³; 7850 kg/m³ is the density the tables' masses rest on.
-const kgPerMetre = (designation: string) => (iArea(TABLE[designation]!) * 1e-6) * 7850;
+const kgPerMetre = (designation: string) => iArea(TABLE[designation]!) * 1e-6 * 7850;
 
 beforeAll(async () => {
   s = await startTestServer();
@@ -40,12 +41,17 @@ beforeAll(async () => {
   ({ stacks } = await seedBuilding(s, lead.token, buildingId, ['A/10', 'A/2']));
   const other = await s.api('POST', `/buildings/${buildingId}/stacks`, {
     token: lead.token,
-    body: { name: 'C/1', template: { storeys: 4, storeyHeight: 3.6, spliceEvery: 4, sections: ['HE 200 B'], Gk: 60, Qk: 30 } },
+    body: {
+      name: 'C/1',
+      template: { storeys: 4, storeyHeight: 3.6, spliceEvery: 4, sections: ['HE 200 B'], Gk: 60, Qk: 30 },
+    },
   });
   expect(other.status).toBe(201);
   stacks.push(other.body as StackSummary);
   // A stack without lifts cannot be scheduled and is named as left out.
-  expect((await s.api('POST', `/buildings/${buildingId}/stacks`, { token: lead.token, body: { name: 'B/1' } })).status).toBe(201);
+  expect(
+    (await s.api('POST', `/buildings/${buildingId}/stacks`, { token: lead.token, body: { name: 'B/1' } })).status,
+  ).toBe(201);
 });
 
 afterAll(async () => {
@@ -66,14 +72,31 @@ describe('the column schedule', () => {
     const a2 = sch.rows.filter((r) => r.stack === 'A/2');
     expect(a2.map((r) => r.lift)).toEqual(['L1', 'L2']);
     // The template splices 0.5 m above every second floor (tests/fixtures/uploads.ts): at +7.700 m.
-    expect(a2[0]).toMatchObject({ fromLevel: 'Ground', toLevel: 'Level 2 + 0.500 m', section: 'UKC 254x254x89', grade: 'S355', bottomJoint: 'base' });
-    expect(a2[1]).toMatchObject({ fromLevel: 'Level 2 + 0.500 m', section: 'UKC 203x203x46', bottomJoint: 'splice', baseFixity: '' });
+    expect(a2[0]).toMatchObject({
+      fromLevel: 'Ground',
+      toLevel: 'Level 2 + 0.500 m',
+      section: 'UKC 254x254x89',
+      grade: 'S355',
+      bottomJoint: 'base',
+    });
+    expect(a2[1]).toMatchObject({
+      fromLevel: 'Level 2 + 0.500 m',
+      section: 'UKC 203x203x46',
+      bottomJoint: 'splice',
+      baseFixity: '',
+    });
     expect(a2[0]!.splices).toBe('Level 2 + 0.500 m');
     const stored = await getStack(s, viewer.token, stacks.find((x) => x.name === 'A/2')!.id);
     const support = stored.doc.nodes.find((n) => n.kind === 'support');
     expect(a2[0]!.baseFixity).toBe(support?.kind === 'support' ? support.data.fixity : 'missing');
     expect(a2.map((r) => r.utilisation)).toEqual(stored.results.lifts.map((l) => l.utilisation));
     expect(sch.rows.find((r) => r.stack === 'C/1')).toMatchObject({ series: 'HE B', splices: 'none' });
+    // A/2 and A/10 come from the same template: one type; C/1 differs in every lift.
+    expect(sch.types).toEqual([
+      { type: 'T1', stacks: ['A/2', 'A/10'] },
+      { type: 'T2', stacks: ['C/1'] },
+    ]);
+    expect(new Set(sch.rows.filter((r) => r.stack.startsWith('A/')).map((r) => r.type))).toEqual(new Set(['T1']));
   });
 
   it('tonnage equals Σ mass per metre × lift length worked from the section dimensions', async () => {
@@ -85,7 +108,8 @@ describe('the column schedule', () => {
       const detail = await getStack(s, viewer.token, summary.id);
       for (const lift of detail.results.lifts) {
         const node = detail.doc.nodes.find((n) => n.id === lift.liftId);
-        if (node?.kind !== 'lift' || typeof node.data.section !== 'string') throw new Error('lift without a catalogue section');
+        if (node?.kind !== 'lift' || typeof node.data.section !== 'string')
+          throw new Error('lift without a catalogue section');
         const designation = lift.section;
         independent += kgPerMetre(designation) * (lift.top - lift.bottom);
         nominal += TABLE[designation]!.nominal * (lift.top - lift.bottom);
@@ -120,7 +144,9 @@ describe('the column schedule', () => {
     expect(csv.headers.get('content-disposition')).toBe('attachment; filename=Schedule_block-column-schedule.csv');
     const [table, tonnage] = csv.bytes.toString('utf8').split('\r\n\r\n');
     const rows = parse(table!, { columns: true }) as Record<string, string>[];
-    expect(rows.map((r) => `${r.stack} ${r.lift} ${r.section}`)).toEqual(sch.rows.map((r) => `${r.stack} ${r.lift} ${r.section}`));
+    expect(rows.map((r) => `${r.stack} ${r.lift} ${r.section}`)).toEqual(
+      sch.rows.map((r) => `${r.stack} ${r.lift} ${r.section}`),
+    );
     const total = (parse(tonnage!, { columns: true }) as Record<string, string>[]).find((r) => r.tonnage === 'Total');
     expect(Number(total?.tonnes)).toBeCloseTo(sch.tonnage.total / 1000, 3);
     expect(csv.bytes.toString('utf8')).toContain('Not scheduled: B/1');
@@ -131,7 +157,7 @@ describe('the column schedule', () => {
     await book.xlsx.load(xlsx.bytes as unknown as ArrayBuffer);
     const sheet = book.getWorksheet('Column schedule')!;
     expect(sheet.rowCount).toBe(sch.rows.length + 1);
-    expect(String(sheet.getRow(2).getCell(8).value)).toBe(sch.rows[0]!.section);
+    expect(String(sheet.getRow(2).getCell(9).value)).toBe(sch.rows[0]!.section);
     expect(book.getWorksheet('Tonnage')!.getRow(2).getCell(2).value).toBeCloseTo(sch.tonnage.total / 1000, 3);
   });
 
@@ -141,14 +167,26 @@ describe('the column schedule', () => {
     expect(r.status).toBe(200);
     const dxf = new DxfParser().parseSync(r.bytes.toString('utf8'));
     expect(dxf).not.toBeNull();
-    const texts = dxf!.entities.filter((e) => e.type === 'TEXT') as unknown as { text: string; startPoint: { x: number; y: number } }[];
+    const texts = dxf!.entities.filter((e) => e.type === 'TEXT') as unknown as {
+      text: string;
+      startPoint: { x: number; y: number };
+    }[];
     const byLine = new Map<number, string[]>();
     for (const t of texts) byLine.set(t.startPoint.y, [...(byLine.get(t.startPoint.y) ?? []), t.text]);
     const lines = [...byLine.entries()].sort((a, b) => b[0] - a[0]).map(([, cells]) => cells);
     const header = lines.findIndex((cells) => cells.includes('Section') && cells.includes('Stack'));
     expect(header).toBeGreaterThanOrEqual(0);
     for (const [i, row] of sch.rows.entries()) {
-      expect(lines[header + 1 + i]).toEqual(expect.arrayContaining([row.stack, row.lift, row.section, row.grade, row.fromLevel, row.utilisation.toFixed(2)]));
+      expect(lines[header + 1 + i]).toEqual(
+        expect.arrayContaining([
+          row.stack,
+          row.lift,
+          row.section,
+          row.grade,
+          row.fromLevel,
+          row.utilisation.toFixed(2),
+        ]),
+      );
     }
     expect(texts.map((t) => t.text)).toContain(`Total: ${(sch.tonnage.total / 1000).toFixed(3)} t`);
     expect(dxf!.entities.filter((e) => e.type === 'LINE').length).toBeGreaterThan(sch.rows.length);

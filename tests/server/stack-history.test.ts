@@ -44,7 +44,10 @@ describe('a stack’s history', () => {
     const level3 = nodeAt(original.doc, 10.8)!;
     await edit(engineer.token, [{ op: 'updateNode', id: level3.id, data: { Gk: 150 } }]);
     const top = original.results.lifts.at(-1)!;
-    await edit(lead.token, [{ op: 'updateNode', id: top.liftId, data: { section: 'UKC 203x203x60' } }, { op: 'moveNode', id: top.liftId, position: { x: 40, y: 0 } }]);
+    await edit(lead.token, [
+      { op: 'updateNode', id: top.liftId, data: { section: 'UKC 203x203x60' } },
+      { op: 'moveNode', id: top.liftId, position: { x: 40, y: 0 } },
+    ]);
 
     const r = await s.api('GET', `/stacks/${stack.id}/history`, { token: viewer.token });
     expect(r.status).toBe(200);
@@ -52,10 +55,21 @@ describe('a stack’s history', () => {
     expect(history.complete).toBe(true);
     expect(history.entries.map((e) => e.version)).toEqual([2, 1, 0]);
     const [second, first, created] = history.entries;
-    expect(created).toMatchObject({ action: 'stack.create', by: { name: lead.user.name }, changes: ['Created the stack'] });
-    expect(first).toMatchObject({ action: 'stack.edit', by: { name: engineer.user.name }, changes: ['Gk at Level 3 100 → 150 kN'] });
+    expect(created).toMatchObject({
+      action: 'stack.create',
+      by: { name: lead.user.name },
+      changes: ['Created the stack'],
+    });
+    expect(first).toMatchObject({
+      action: 'stack.edit',
+      by: { name: engineer.user.name },
+      changes: ['Gk at Level 3 100 → 150 kN'],
+    });
     expect(second!.by?.name).toBe(lead.user.name);
-    expect(second!.changes).toEqual([`Section at lift ${top.label} UKC 203x203x46 → UKC 203x203x60`, 'Rearranged the drawing (1 part moved)']);
+    expect(second!.changes).toEqual([
+      `Section at lift ${top.label} UKC 203x203x46 → UKC 203x203x60`,
+      'Rearranged the drawing (1 part moved)',
+    ]);
     expect(Date.parse(second!.at)).toBeGreaterThanOrEqual(Date.parse(first!.at));
   });
 
@@ -76,7 +90,10 @@ describe('a stack’s history', () => {
     expect(outline[0]).toMatchObject({ part: 'Support', where: 'Ground (+0.000)' });
     expect(outline.find((o) => o.where === 'Level 3 (+10.800)')?.details).toMatch(/^Gk 150 kN, Qk 50 kN/);
     expect((await asOf(0)).outline.find((o) => o.where === 'Level 3 (+10.800)')?.details).toMatch(/^Gk 100 kN/);
-    expect(outline.filter((o) => o.part === 'Lift').map((o) => o.where)).toEqual(['L1: +0.000 to +7.700', 'L2: +7.700 to +14.400']);
+    expect(outline.filter((o) => o.part === 'Lift').map((o) => o.where)).toEqual([
+      'L1: +0.000 to +7.700',
+      'L2: +7.700 to +14.400',
+    ]);
     // A splice comes before the lift that starts on it.
     expect(outline.findIndex((o) => o.part === 'Splice')).toBe(outline.findIndex((o) => o.where.startsWith('L2')) - 1);
     // Replaying every stored op from the starting document gives exactly the stored current document.
@@ -94,12 +111,17 @@ describe('a stack’s history', () => {
       expect(joined.ok).toBe(true);
       const before = await getStack(s, engineer.token, stack.id);
       const heard = next(watcher, 'stack:changed', (p) => p.stackId === stack.id);
-      const r = await s.api('POST', `/stacks/${stack.id}/versions/0/restore`, { token: engineer.token, body: { baseVersion: before.version } });
+      const r = await s.api('POST', `/stacks/${stack.id}/versions/0/restore`, {
+        token: engineer.token,
+        body: { baseVersion: before.version },
+      });
       expect(r.status).toBe(200);
       const restored = r.body as StackDetail;
       expect(restored.version).toBe(before.version + 1);
       expect(restored.doc).toEqual(original.doc);
-      expect(restored.results.lifts.map((l) => l.utilisation)).toEqual(original.results.lifts.map((l) => l.utilisation));
+      expect(restored.results.lifts.map((l) => l.utilisation)).toEqual(
+        original.results.lifts.map((l) => l.utilisation),
+      );
       const change = await heard;
       expect(change.version).toBe(restored.version);
       expect(change.by.name).toBe(engineer.user.name);
@@ -107,7 +129,10 @@ describe('a stack’s history', () => {
       const history = (await s.api('GET', `/stacks/${stack.id}/history`, { token: viewer.token })).body as StackHistory;
       expect(history.entries[0]!.changes).toEqual(expect.arrayContaining(['Gk at Level 3 150 → 100 kN']));
       // Undone by restoring the version before it.
-      const back = await s.api('POST', `/stacks/${stack.id}/versions/${before.version}/restore`, { token: engineer.token, body: { baseVersion: restored.version } });
+      const back = await s.api('POST', `/stacks/${stack.id}/versions/${before.version}/restore`, {
+        token: engineer.token,
+        body: { baseVersion: restored.version },
+      });
       expect(back.status).toBe(200);
       expect((back.body as StackDetail).doc).toEqual(before.doc);
     } finally {
@@ -117,9 +142,15 @@ describe('a stack’s history', () => {
 
   it('refuses a restore from a stale version or by a viewer, and leaves the stack as it was', async () => {
     const before = await getStack(s, engineer.token, stack.id);
-    const stale = await s.api('POST', `/stacks/${stack.id}/versions/0/restore`, { token: engineer.token, body: { baseVersion: before.version - 1 } });
+    const stale = await s.api('POST', `/stacks/${stack.id}/versions/0/restore`, {
+      token: engineer.token,
+      body: { baseVersion: before.version - 1 },
+    });
     expect(stale.status).toBe(409);
-    const viewed = await s.api('POST', `/stacks/${stack.id}/versions/0/restore`, { token: viewer.token, body: { baseVersion: before.version } });
+    const viewed = await s.api('POST', `/stacks/${stack.id}/versions/0/restore`, {
+      token: viewer.token,
+      body: { baseVersion: before.version },
+    });
     expect(viewed.status).toBe(403);
     expect(await getStack(s, engineer.token, stack.id)).toEqual(before);
   });
