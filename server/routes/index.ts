@@ -12,6 +12,8 @@ import { registerImportRoutes } from './imports.ts';
 import { registerLevelRoutes } from './levels.ts';
 import { registerRevisionRoutes } from './revisions.ts';
 import { registerRobustnessRoutes } from './robustness.ts';
+import { registerScheduleRoutes } from './schedule.ts';
+import { registerStackHistoryRoutes } from './stackHistory.ts';
 import { registerSectionRoutes } from './sections.ts';
 import { registerSizingRoutes } from './sizing.ts';
 import { registerStackRoutes } from './stacks.ts';
@@ -30,6 +32,8 @@ export function createApiRouter(ctx: ServerContext): Router {
   registerImportRoutes(router, ctx);
   registerExportRoutes(router, ctx);
   registerRobustnessRoutes(router, ctx);
+  registerScheduleRoutes(router, ctx);
+  registerStackHistoryRoutes(router, ctx);
   registerDevRoutes(router, ctx);
   registerAdminRoutes(router, ctx);
   return router;

@@ -36,7 +36,7 @@ export async function createStack(db: Knex, buildingId: number, input: NewStack,
     const [row] = await trx('stacks')
       .insert({ building_id: buildingId, name: input.name, doc: JSON.stringify(doc), version: 0, ...resultColumns(doc, results), created_at: now(), updated_at: now() })
       .returning<{ id: number }[]>('id');
-    await recordAudit(trx, { userId: user.id, buildingId, stackId: row.id, action: 'stack.create', version: 0, detail: { name: input.name, from: input.template ? 'template' : input.doc ? 'document' : 'empty' } });
+    await recordAudit(trx, { userId: user.id, buildingId, stackId: row.id, action: 'stack.create', version: 0, detail: { name: input.name, from: input.template ? 'template' : input.doc ? 'document' : 'empty', doc } });
     await touchBuilding(trx, buildingId);
     return row.id;
   }));

@@ -13,6 +13,7 @@ import type {
   updateLevelBodySchema,
   updateMemberBodySchema,
 } from '@shared/schema/api.ts';
+import type { ColumnSchedule } from '@shared/schedule/columnSchedule.ts';
 import { apiFetch } from './http.ts';
 
 export type CreateBuildingBody = z.output<typeof createBuildingBodySchema>;
@@ -49,4 +50,10 @@ export const levelsApi = {
   /** What moving the level would do to the stacks; stores nothing. */
   previewMove: (buildingId: number, levelId: string, elevation: number) =>
     apiFetch<LevelMovePreview>('POST', `${b(buildingId)}/levels/${encodeURIComponent(levelId)}/preview`, { elevation }),
+};
+
+export const scheduleApi = {
+  get: (buildingId: number) => apiFetch<ColumnSchedule>('GET', `${b(buildingId)}/schedule`),
+  /** Path of a download, for downloadFile. */
+  file: (buildingId: number, format: 'csv' | 'xlsx' | 'dxf') => `${b(buildingId)}/schedule.${format}`,
 };

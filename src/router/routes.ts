@@ -45,6 +45,7 @@ export const routes: RouteRecordRaw[] = [
       { path: 'buildings/:id', name: 'building', component: () => import('@/pages/BuildingPage.vue') },
       { path: 'buildings/:id/revisions', name: 'revisions', component: () => import('@/pages/RevisionsPage.vue') },
       { path: 'buildings/:id/plan', name: 'plan', component: () => import('@/pages/PlanPage.vue') },
+      { path: 'buildings/:id/schedule', name: 'schedule', component: () => import('@/pages/SchedulePage.vue') },
       { path: '/stacks/:id', name: 'stack', component: () => import('@/pages/StackPage.vue') },
       { path: 'outbox', name: 'outbox', component: () => import('@/pages/OutboxPage.vue'), beforeEnter: adminOnly },
     ],

@@ -191,6 +191,20 @@ describe('malformed input on every writing route', () => {
       ],
     },
     {
+      name: 'POST /api/stacks/:id/versions/:version/restore',
+      method: 'POST',
+      path: () => `/stacks/${ids.stack}/versions/0/restore`,
+      cases: () => [
+        ['a missing baseVersion', { body: {} }],
+        ['a negative baseVersion', { body: { baseVersion: -1 } }],
+        ['NaN as a string for baseVersion', { body: { baseVersion: 'NaN' } }],
+        ['an unknown field', { body: { baseVersion: 0, doc } }],
+        ['a stale baseVersion', { body: { baseVersion: 7 } }],
+        ['a version that is not a number', { path: `/stacks/${ids.stack}/versions/abc/restore`, body: { baseVersion: 0 } }],
+        ['a version ahead of the stack', { path: `/stacks/${ids.stack}/versions/99/restore`, body: { baseVersion: 0 } }],
+      ],
+    },
+    {
       name: 'POST /api/stacks/:id/ops',
       method: 'POST',
       path: () => `/stacks/${ids.stack}/ops`,
