@@ -11,6 +11,12 @@ export default mergeConfig(
           extends: true,
           test: { name: 'server', environment: 'node', include: ['tests/server/**/*.test.ts'], testTimeout: 30_000, hookTimeout: 30_000 },
         },
+        // The bounded load test of docs/access.md: alone, so no other test file shares the cores while it
+        // measures the longest event-loop stall.
+        {
+          extends: true,
+          test: { name: 'load', environment: 'node', include: ['tests/load/**/*.test.ts'], testTimeout: 60_000, hookTimeout: 60_000, fileParallelism: false },
+        },
         // docs/live-protocol.md §Several processes: the same server tests on PostgreSQL and Redis, and the
         // two-process suite; run by scripts/testScale.ts only when TEST_DATABASE_URL and TEST_REDIS_URL are set.
         {

@@ -9,8 +9,8 @@ import type { StackDocument } from '../../shared/schema/stack.ts';
 import { stackFromTemplate } from '../../shared/ops/stackFromTemplate.ts';
 import { stackTemplateSchema } from '../../shared/schema/api.ts';
 import { upload } from '../fixtures/uploads.ts';
-import { createBuilding, registerUser, startTestServer, TEST_PASSWORD, type TestServer } from './helpers.ts';
-import { connect, request, type LiveClient } from './liveHelpers.ts';
+import { createBuilding, registerUser, startTestServer, TEST_PASSWORD, type TestServer } from '../server/helpers.ts';
+import { connect, request, type LiveClient } from '../server/liveHelpers.ts';
 
 /** The bound asked for: no single stall of the event loop longer than this. */
 const MAX_STALL_MS = 200;
