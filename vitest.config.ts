@@ -9,13 +9,26 @@ export default mergeConfig(
         { extends: true, test: { name: 'engine', environment: 'node', include: ['tests/engine/**/*.test.ts'] } },
         {
           extends: true,
-          test: { name: 'server', environment: 'node', include: ['tests/server/**/*.test.ts'], testTimeout: 30_000, hookTimeout: 30_000 },
+          test: {
+            name: 'server',
+            environment: 'node',
+            include: ['tests/server/**/*.test.ts'],
+            testTimeout: 30_000,
+            hookTimeout: 30_000,
+          },
         },
         // The bounded load test of docs/access.md: alone, so no other test file shares the cores while it
         // measures the longest event-loop stall.
         {
           extends: true,
-          test: { name: 'load', environment: 'node', include: ['tests/load/**/*.test.ts'], testTimeout: 60_000, hookTimeout: 60_000, fileParallelism: false },
+          test: {
+            name: 'load',
+            environment: 'node',
+            include: ['tests/load/**/*.test.ts'],
+            testTimeout: 60_000,
+            hookTimeout: 60_000,
+            fileParallelism: false,
+          },
         },
         // docs/live-protocol.md §Several processes: the same server tests on PostgreSQL and Redis, and the
         // two-process suite; run by scripts/testScale.ts only when TEST_DATABASE_URL and TEST_REDIS_URL are set.
@@ -32,11 +45,23 @@ export default mergeConfig(
         },
         {
           extends: true,
-          test: { name: 'scale', environment: 'node', include: ['tests/scale/**/*.test.ts'], testTimeout: 60_000, hookTimeout: 60_000, fileParallelism: false },
+          test: {
+            name: 'scale',
+            environment: 'node',
+            include: ['tests/scale/**/*.test.ts'],
+            testTimeout: 60_000,
+            hookTimeout: 60_000,
+            fileParallelism: false,
+          },
         },
         {
           extends: true,
-          test: { name: 'client', environment: 'happy-dom', include: ['tests/client/**/*.test.ts'], setupFiles: ['tests/client/setup.ts'] },
+          test: {
+            name: 'client',
+            environment: 'happy-dom',
+            include: ['tests/client/**/*.test.ts'],
+            setupFiles: ['tests/client/setup.ts'],
+          },
         },
         {
           extends: true,

@@ -37,19 +37,33 @@ export async function benchCritical(): Promise<void> {
   const { model } = inspectStack(tall);
   if (!model) throw new Error('bench stack is invalid');
   const pieces = stackPieces(model, allLevelElevations(undefined));
-  const weights = model.lifts.map((l) => ({ bottom: l.bottom, top: l.top, perMetre: selfWeightPerMetre(l.section.massPerMetre) }));
-  const { sectionNEd } = takeDown(model.entries, weights, options, pieces.flat().map((p) => p.from));
+  const weights = model.lifts.map((l) => ({
+    bottom: l.bottom,
+    top: l.top,
+    perMetre: selfWeightPerMetre(l.section.massPerMetre),
+  }));
+  const { sectionNEd } = takeDown(
+    model.entries,
+    weights,
+    options,
+    pieces.flat().map((p) => p.from),
+  );
   const solved = withCriticalBuckling(model, pieces, sectionNEd);
-  if (solved.errors.length || !solved.result) throw new Error(`bench stack cannot be solved: ${solved.errors[0]?.message}`);
+  if (solved.errors.length || !solved.result)
+    throw new Error(`bench stack cannot be solved: ${solved.errors[0]?.message}`);
   const dofs = solved.result.y.shape?.elevations.length ?? 0;
   const baseline = await time(() => analyseStack(tall), 200);
   const alone = await time(() => withCriticalBuckling(model, pieces, sectionNEd), 200);
   const whole = await time(() => analyseStack(tall, options), 200);
-  console.log(`baseline: analyseStack, 60 storeys, tabulated factors: median ${baseline.wall.toFixed(3)} ms wall, ${baseline.cpu.toFixed(3)} ms CPU`);
+  console.log(
+    `baseline: analyseStack, 60 storeys, tabulated factors: median ${baseline.wall.toFixed(3)} ms wall, ${baseline.cpu.toFixed(3)} ms CPU`,
+  );
   console.log(
     `critical buckling of the stack alone (both axes, ${pieces.flat().length} pieces, ${dofs} nodes per axis): median ${alone.wall.toFixed(2)} ms wall, ${alone.cpu.toFixed(2)} ms CPU, ${(alone.cpu / baseline.cpu).toFixed(1)}× analyseStack (target < 20 ms)`,
   );
-  console.log(`analyseStack, 60 storeys, critical buckling lengths: median ${whole.wall.toFixed(2)} ms wall, ${whole.cpu.toFixed(2)} ms CPU, ${(whole.cpu / baseline.cpu).toFixed(1)}× tabulated`);
+  console.log(
+    `analyseStack, 60 storeys, critical buckling lengths: median ${whole.wall.toFixed(2)} ms wall, ${whole.cpu.toFixed(2)} ms CPU, ${(whole.cpu / baseline.cpu).toFixed(1)}× tabulated`,
+  );
 
   const levels = new Map(Array.from({ length: 40 }, (_, i) => [`lv${i}`, i * 4] as const));
   const stacks = Array.from({ length: 400 }, (_, i) => ({ id: i, name: `S${i}`, doc: benchStackDocument(40, true) }));
@@ -58,7 +72,8 @@ export async function benchCritical(): Promise<void> {
     const task = { stacks, options, levels, sections: new Map() };
     const first = await offThread.analyseBuilding(task);
     const failed = first.filter((s) => s.status === 'errors');
-    if (failed.length) throw new Error(`${failed.length} bench stacks have errors: ${failed[0].resultJson.slice(0, 300)}`);
+    if (failed.length)
+      throw new Error(`${failed.length} bench stacks have errors: ${failed[0].resultJson.slice(0, 300)}`);
     const wall: number[] = [];
     const cpu: number[] = [];
     for (let i = 0; i < 5; i++) {
@@ -70,7 +85,9 @@ export async function benchCritical(): Promise<void> {
       const used = process.cpuUsage(startCpu);
       cpu.push((used.user + used.system) / 1000);
     }
-    console.log(`analyseBuilding on the worker thread, 400 stacks of 40 storeys, critical buckling lengths: median ${median(wall).toFixed(0)} ms wall, ${median(cpu).toFixed(0)} ms CPU, results back as JSON text (target < 5000 ms)`);
+    console.log(
+      `analyseBuilding on the worker thread, 400 stacks of 40 storeys, critical buckling lengths: median ${median(wall).toFixed(0)} ms wall, ${median(cpu).toFixed(0)} ms CPU, results back as JSON text (target < 5000 ms)`,
+    );
   } finally {
     await offThread.close();
   }

@@ -20,7 +20,8 @@ function usableDesignations(): string[] {
   const names: string[] = [];
   for (const entry of CATALOGUE) {
     try {
-      for (const grade of GRADES) checkCompression({ section: entry.designation, grade, LcrY: 3500, LcrZ: 3500, NEd: 1e5 });
+      for (const grade of GRADES)
+        checkCompression({ section: entry.designation, grade, LcrY: 3500, LcrZ: 3500, NEd: 1e5 });
       names.push(entry.designation);
     } catch (error) {
       // Sections the engine refuses (class 4 CHS) are left out of the timed set; they are tested elsewhere.
@@ -35,7 +36,13 @@ function timeChecks(names: readonly string[], steps: boolean): { perSecond: numb
   const start = performance.now();
   for (let i = 0; i < CHECKS_PER_ROUND; i++) {
     const r = checkCompression(
-      { section: names[i % names.length]!, grade: GRADES[i & 1]!, LcrY: 2500 + (i % 4000), LcrZ: 2500 + (i % 3000), NEd: 2e5 + (i % 1000) * 1e3 },
+      {
+        section: names[i % names.length]!,
+        grade: GRADES[i & 1]!,
+        LcrY: 2500 + (i % 4000),
+        LcrZ: 2500 + (i % 3000),
+        NEd: 2e5 + (i % 1000) * 1e3,
+      },
       { steps },
     );
     sink += r.utilisation + r.steps.length;
@@ -73,10 +80,14 @@ export async function benchEngine(): Promise<void> {
   }
   const checks = median(withSteps);
   const fmt = (n: number) => Math.round(n).toLocaleString('en-GB');
-  console.log(`engine: checkCompression on ${names.length} catalogue designations, ${ROUNDS} rounds of ${fmt(CHECKS_PER_ROUND)}, median`);
+  console.log(
+    `engine: checkCompression on ${names.length} catalogue designations, ${ROUNDS} rounds of ${fmt(CHECKS_PER_ROUND)}, median`,
+  );
   // Other processes on the machine slow every figure alike; the ratio to the bare χ loop is the stable one.
   console.log(`  load average at the end:  ${loadavg()[0]!.toFixed(1)}`);
-  console.log(`  with steps (normal call): ${fmt(checks)} checks/s${checks >= 1_000_000 ? '' : '  (below the 1,000,000/s target)'}`);
+  console.log(
+    `  with steps (normal call): ${fmt(checks)} checks/s${checks >= 1_000_000 ? '' : '  (below the 1,000,000/s target)'}`,
+  );
   console.log(`  steps: false:             ${fmt(median(withoutSteps))} checks/s`);
   console.log(`  bare χ loop (eq. 6.49):   ${fmt(median(bare))} evaluations/s`);
   console.log(`  ratio check / bare χ:     1 : ${(median(bare) / checks).toFixed(1)}`);

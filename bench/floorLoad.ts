@@ -51,11 +51,17 @@ function connect(url: string, token: string): Promise<Client> {
 
 function join(s: Client, event: 'building:join' | 'stack:join', payload: unknown): Promise<void> {
   return new Promise((resolve, reject) =>
-    (s.emit as unknown as (e: string, p: unknown, cb: (r: { ok: boolean }) => void) => void)(event, payload, (r) => (r.ok ? resolve() : reject(new Error(`${event} refused`)))),
+    (s.emit as unknown as (e: string, p: unknown, cb: (r: { ok: boolean }) => void) => void)(event, payload, (r) =>
+      r.ok ? resolve() : reject(new Error(`${event} refused`)),
+    ),
   );
 }
 
-const line = (prefix: string, i: number) => ({ id: `${prefix}${i}`, name: prefix === 'x' ? `X${i + 1}` : `${i + 1}`, position: i * 7.5 });
+const line = (prefix: string, i: number) => ({
+  id: `${prefix}${i}`,
+  name: prefix === 'x' ? `X${i + 1}` : `${i + 1}`,
+  position: i * 7.5,
+});
 const GRID: Grid = {
   x: { lines: Array.from({ length: SIDE }, (_, i) => line('x', i)), edgeBefore: 0.2, edgeAfter: 0.2 },
   y: { lines: Array.from({ length: SIDE }, (_, i) => line('y', i)), edgeBefore: 0.2, edgeAfter: 0.2 },
@@ -63,7 +69,10 @@ const GRID: Grid = {
 const buildup = (id: string, slab: number): Buildup => ({
   id,
   name: id,
-  permanent: [{ label: 'Slab', gk: slab }, { label: 'Finishes', gk: 1.2 }],
+  permanent: [
+    { label: 'Slab', gk: slab },
+    { label: 'Finishes', gk: 1.2 },
+  ],
   imposed: { qk: 2.5, category: 'B' },
   partitions: { load: 1, as: 'imposed' },
 });
@@ -71,22 +80,51 @@ const buildup = (id: string, slab: number): Buildup => ({
 async function setUp(url: string, token: string) {
   const building = await api<Building>(url, 'POST', '/buildings', token, { name: 'Floor-load bench' });
   const levels: Level[] = [];
-  for (let i = 0; i <= STOREYS; i++) levels.push(await api<Level>(url, 'POST', `/buildings/${building.id}/levels`, token, { name: `Level ${i}`, elevation: i * 4 }));
+  for (let i = 0; i <= STOREYS; i++)
+    levels.push(
+      await api<Level>(url, 'POST', `/buildings/${building.id}/levels`, token, {
+        name: `Level ${i}`,
+        elevation: i * 4,
+      }),
+    );
   await api(url, 'PUT', `/buildings/${building.id}/grid`, token, { grid: GRID });
-  await api(url, 'PUT', `/buildings/${building.id}/buildups`, token, { buildups: [buildup('office', 3.5), buildup('heavy', 4.5), buildup('roof', 3)] });
-  for (const level of levels.slice(1)) await api(url, 'PUT', `/buildings/${building.id}/levels/${level.id}/floor-load`, token, { buildupId: level === levels.at(-1) ? 'roof' : 'office' });
-  const template = { elevations: levels.map((l) => l.elevation), sections: ['UKC 356x406x393', 'UKC 356x406x235', 'UKC 305x305x158', 'UKC 254x254x107', 'UKC 203x203x71'], spliceEvery: 2 };
+  await api(url, 'PUT', `/buildings/${building.id}/buildups`, token, {
+    buildups: [buildup('office', 3.5), buildup('heavy', 4.5), buildup('roof', 3)],
+  });
+  for (const level of levels.slice(1))
+    await api(url, 'PUT', `/buildings/${building.id}/levels/${level.id}/floor-load`, token, {
+      buildupId: level === levels.at(-1) ? 'roof' : 'office',
+    });
+  const template = {
+    elevations: levels.map((l) => l.elevation),
+    sections: ['UKC 356x406x393', 'UKC 356x406x235', 'UKC 305x305x158', 'UKC 254x254x107', 'UKC 203x203x71'],
+    spliceEvery: 2,
+  };
   const stacks: StackSummary[] = [];
   for (let i = 0; i < SIDE * SIDE; i++) {
-    const stack = await api<StackSummary>(url, 'POST', `/buildings/${building.id}/stacks`, token, { name: `T${i}`, template });
-    await api(url, 'PUT', `/stacks/${stack.id}/placement`, token, { gridX: `x${i % SIDE}`, gridY: `y${Math.floor(i / SIDE)}` });
+    const stack = await api<StackSummary>(url, 'POST', `/buildings/${building.id}/stacks`, token, {
+      name: `T${i}`,
+      template,
+    });
+    await api(url, 'PUT', `/stacks/${stack.id}/placement`, token, {
+      gridX: `x${i % SIDE}`,
+      gridY: `y${Math.floor(i / SIDE)}`,
+    });
     stacks.push(stack);
   }
   return { building, levels, stacks, template };
 }
 
 /** ms from the PUT to the last update of the last client. */
-async function timeChange(url: string, token: string, buildingId: number, levelId: string, buildupId: string, stackIds: number[], clients: { building: Client[]; stacks: Client[] }): Promise<number> {
+async function timeChange(
+  url: string,
+  token: string,
+  buildingId: number,
+  levelId: string,
+  buildupId: string,
+  stackIds: number[],
+  clients: { building: Client[]; stacks: Client[] },
+): Promise<number> {
   const t0 = performance.now();
   const arrivals: Promise<number>[] = [];
   let heard = 0;
@@ -105,12 +143,21 @@ async function timeChange(url: string, token: string, buildingId: number, levelI
       }),
     );
   }
-  for (const c of clients.stacks) arrivals.push(new Promise((resolve) => c.once('stack:changed', () => resolve(performance.now() - t0))));
+  for (const c of clients.stacks)
+    arrivals.push(new Promise((resolve) => c.once('stack:changed', () => resolve(performance.now() - t0))));
   const lost = clients.building.concat(clients.stacks).filter((c) => !c.connected).length;
   if (lost) throw new Error(`${lost} bench clients lost their connection`);
   await api(url, 'PUT', `/buildings/${buildingId}/levels/${levelId}/floor-load`, token, { buildupId });
   const timeout = new Promise<never>((_, reject) =>
-    setTimeout(() => reject(new Error(`updates still missing after ${TIMEOUT_MS / 1000} s (${heard} of ${stackIds.length * clients.building.length} building-room updates heard)`)), TIMEOUT_MS),
+    setTimeout(
+      () =>
+        reject(
+          new Error(
+            `updates still missing after ${TIMEOUT_MS / 1000} s (${heard} of ${stackIds.length * clients.building.length} building-room updates heard)`,
+          ),
+        ),
+      TIMEOUT_MS,
+    ),
   );
   const times = await Promise.race([Promise.all(arrivals), timeout]);
   return Math.max(...times);
@@ -120,19 +167,36 @@ export async function benchFloorLoad(): Promise<void> {
   const server = await startBenchServer();
   const sockets: Client[] = [];
   try {
-    const { token } = await api<AuthResponse>(server.url, 'POST', '/auth/login', null, { email: 'engineer@stanchion.test', password: 'stanchion-demo' });
+    const { token } = await api<AuthResponse>(server.url, 'POST', '/auth/login', null, {
+      email: 'engineer@stanchion.test',
+      password: 'stanchion-demo',
+    });
     const setupStart = performance.now();
     const { building, levels, stacks, template } = await setUp(server.url, token);
-    console.log(`set-up: ${stacks.length} stacks of ${STOREYS} storeys on a ${SIDE} × ${SIDE} grid in ${((performance.now() - setupStart) / 1000).toFixed(1)} s`);
-    const buildingClients = await Promise.all(Array.from({ length: BUILDING_CLIENTS }, () => connect(server.url, token)));
+    console.log(
+      `set-up: ${stacks.length} stacks of ${STOREYS} storeys on a ${SIDE} × ${SIDE} grid in ${((performance.now() - setupStart) / 1000).toFixed(1)} s`,
+    );
+    const buildingClients = await Promise.all(
+      Array.from({ length: BUILDING_CLIENTS }, () => connect(server.url, token)),
+    );
     await Promise.all(buildingClients.map((c) => join(c, 'building:join', { buildingId: building.id })));
     const stackClients = await Promise.all(Array.from({ length: STACK_CLIENTS }, () => connect(server.url, token)));
-    await Promise.all(stackClients.map((c, i) => join(c, 'stack:join', { stackId: stacks[i * 37 % stacks.length].id })));
+    await Promise.all(
+      stackClients.map((c, i) => join(c, 'stack:join', { stackId: stacks[(i * 37) % stacks.length].id })),
+    );
     sockets.push(...buildingClients, ...stackClients);
     const level = levels[20];
     const samples: number[] = [];
     for (let i = 0; i < SAMPLES; i++) {
-      const ms = await timeChange(server.url, token, building.id, level.id, i % 2 === 0 ? 'heavy' : 'office', stacks.map((s) => s.id), { building: buildingClients, stacks: stackClients });
+      const ms = await timeChange(
+        server.url,
+        token,
+        building.id,
+        level.id,
+        i % 2 === 0 ? 'heavy' : 'office',
+        stacks.map((s) => s.id),
+        { building: buildingClients, stacks: stackClients },
+      );
       samples.push(ms);
     }
     samples.sort((a, b) => a - b);
@@ -142,7 +206,16 @@ export async function benchFloorLoad(): Promise<void> {
     const model = await api<BuildingModelReply>(server.url, 'GET', `/buildings/${building.id}/model`, token);
     const doc = stackFromTemplate({ ...template, grade: 'S355', baseFixity: 'pinned', Gk: 0, Qk: 0 }, levels);
     const elevations = new Map(levels.map((l) => [l.id, l.elevation]));
-    const input = stacks.map((s, i) => ({ id: s.id, name: s.name, doc, floorLoads: stackFloorLoads(model, { gridX: `x${i % SIDE}`, gridY: `y${Math.floor(i / SIDE)}`, webAlong: 'x' }, s.id) }));
+    const input = stacks.map((s, i) => ({
+      id: s.id,
+      name: s.name,
+      doc,
+      floorLoads: stackFloorLoads(
+        model,
+        { gridX: `x${i % SIDE}`, gridY: `y${Math.floor(i / SIDE)}`, webAlong: 'x' },
+        s.id,
+      ),
+    }));
     analyseBuilding(input, elevations, {}, { shapeChecked: true });
     const runs: number[] = [];
     for (let i = 0; i < 5; i++) {

@@ -49,14 +49,41 @@ async function freezeScenario(label: string, faces: RestraintFaces | null): Prom
   const server = await startServer({ port: 0, dataDir, logLevel: 'silent', env: {}, config: { bcryptRounds: 4 } });
   try {
     const { db } = server.ctx;
-    const lead = await registerUser(db, { email: 'lead@bench.test', name: 'Bench Lead', password: 'bench-password-1' }, 4, { verified: true });
+    const lead = await registerUser(
+      db,
+      { email: 'lead@bench.test', name: 'Bench Lead', password: 'bench-password-1' },
+      4,
+      { verified: true },
+    );
     const building = await createBuilding(db, lead, { name: 'Bench tower', reference: 'BENCH-40x30' });
-    for (let i = 0; i <= STOREYS; i++) await createLevel(db, building.id, { name: i === 0 ? 'Ground' : `Level ${i}`, elevation: Math.round(i * STOREY_HEIGHT * 1000) / 1000 }, lead);
-    const template = { storeys: STOREYS, storeyHeight: STOREY_HEIGHT, baseElevation: 0, spliceEvery: 2, sections: SECTIONS, grade: 'S355' as const, baseFixity: 'pinned' as const, Gk: 90, Qk: 45 };
+    for (let i = 0; i <= STOREYS; i++)
+      await createLevel(
+        db,
+        building.id,
+        { name: i === 0 ? 'Ground' : `Level ${i}`, elevation: Math.round(i * STOREY_HEIGHT * 1000) / 1000 },
+        lead,
+      );
+    const template = {
+      storeys: STOREYS,
+      storeyHeight: STOREY_HEIGHT,
+      baseElevation: 0,
+      spliceEvery: 2,
+      sections: SECTIONS,
+      grade: 'S355' as const,
+      baseFixity: 'pinned' as const,
+      Gk: 90,
+      Qk: 45,
+    };
     const levels = await listLevels(db, building.id);
     const plain = stackFromTemplate(template, levels);
     const doc = faces ? withFaces(plain, faces) : plain;
-    for (let i = 0; i < STACKS; i++) await createStack(db, building.id, { name: `${String.fromCharCode(65 + (i % 8))}/${Math.floor(i / 8) + 1}`, doc }, lead);
+    for (let i = 0; i < STACKS; i++)
+      await createStack(
+        db,
+        building.id,
+        { name: `${String.fromCharCode(65 + (i % 8))}/${Math.floor(i / 8) + 1}`, doc },
+        lead,
+      );
 
     const levelMap = new Map(levels.map((l) => [l.id, l.elevation]));
     const b0 = performance.now();
@@ -81,19 +108,31 @@ async function freezeScenario(label: string, faces: RestraintFaces | null): Prom
     const rev = (await res.json()) as RevisionDetail;
 
     const p0 = performance.now();
-    const pdf = await fetch(`${server.url}/api/revisions/${rev.id}/calc.pdf`, { headers: { Authorization: `Bearer ${token}` } });
+    const pdf = await fetch(`${server.url}/api/revisions/${rev.id}/calc.pdf`, {
+      headers: { Authorization: `Bearer ${token}` },
+    });
     const file = Buffer.from(await pdf.arrayBuffer());
     const pdfWall = performance.now() - p0;
     const bytes = file.length;
     // Page objects are written uncompressed by pdfkit.
     const pages = (file.toString('latin1').match(/\/Type \/Page\b/g) ?? []).length;
 
-    console.log(`building: ${STACKS} stacks × ${STOREYS} storeys (${levels.length} levels), ${rev.stacks.length} stacks frozen as ${rev.code}`);
+    console.log(
+      `building: ${STACKS} stacks × ${STOREYS} storeys (${levels.length} levels), ${rev.stacks.length} stacks frozen as ${rev.code}`,
+    );
     const cpuS = (cpu.user + cpu.system) / 1e6;
-    console.log(`freeze (answers once committed; the package is drawn and the mail sent after): ${(wall / 1000).toFixed(2)} s wall ${wall < 10_000 ? 'OK' : 'OVER'}, ${cpuS.toFixed(2)} s CPU of this process, its worker threads included ${cpuS < 10 ? 'OK' : 'OVER'} (target < 10 s; load average ${loadavg()[0].toFixed(1)}: on a busy machine CPU time is the fairer figure)`);
-    console.log(`longest stall of the server's event loop during the freeze: ${(loop.max / 1e6).toFixed(0)} ms (requests and live edits wait at most this long)`);
-    console.log(`package (GET calc.pdf at once after the freeze: waits for its one drawing, then served as stored): ${(pdfWall / 1000).toFixed(2)} s, ${(bytes / 1024).toFixed(0)} KiB, ${pages} pages`);
-    console.log(`baseline (engine, same 40 stacks once): ${baseline.toFixed(0)} ms → freeze is ${(wall / baseline).toFixed(0)}× the baseline`);
+    console.log(
+      `freeze (answers once committed; the package is drawn and the mail sent after): ${(wall / 1000).toFixed(2)} s wall ${wall < 10_000 ? 'OK' : 'OVER'}, ${cpuS.toFixed(2)} s CPU of this process, its worker threads included ${cpuS < 10 ? 'OK' : 'OVER'} (target < 10 s; load average ${loadavg()[0].toFixed(1)}: on a busy machine CPU time is the fairer figure)`,
+    );
+    console.log(
+      `longest stall of the server's event loop during the freeze: ${(loop.max / 1e6).toFixed(0)} ms (requests and live edits wait at most this long)`,
+    );
+    console.log(
+      `package (GET calc.pdf at once after the freeze: waits for its one drawing, then served as stored): ${(pdfWall / 1000).toFixed(2)} s, ${(bytes / 1024).toFixed(0)} KiB, ${pages} pages`,
+    );
+    console.log(
+      `baseline (engine, same 40 stacks once): ${baseline.toFixed(0)} ms → freeze is ${(wall / baseline).toFixed(0)}× the baseline`,
+    );
     console.log(`mail: ${rev.mail.sent} sent, ${rev.mail.failed} failed`);
   } finally {
     await server.close();

@@ -42,10 +42,18 @@ function connect(url: string, token: string): Promise<Client> {
 }
 
 function ack<T>(s: Client, event: 'stack:join' | 'stack:edit', payload: unknown): Promise<Reply<T>> {
-  return new Promise((resolve) => (s.emit as unknown as (e: string, p: unknown, cb: (r: Reply<T>) => void) => void)(event, payload, resolve));
+  return new Promise((resolve) =>
+    (s.emit as unknown as (e: string, p: unknown, cb: (r: Reply<T>) => void) => void)(event, payload, resolve),
+  );
 }
 
-async function roomLatency(url: string, token: string, stackId: number, clients: number, edits: number): Promise<{ p50: number; p95: number; baselineP50: number }> {
+async function roomLatency(
+  url: string,
+  token: string,
+  stackId: number,
+  clients: number,
+  edits: number,
+): Promise<{ p50: number; p95: number; baselineP50: number }> {
   const sockets = await Promise.all(Array.from({ length: clients }, () => connect(url, token)));
   const joins = await Promise.all(sockets.map((s) => ack<StackJoinAck>(s, 'stack:join', { stackId })));
   const first = joins[0]!;
@@ -58,9 +66,16 @@ async function roomLatency(url: string, token: string, stackId: number, clients:
   for (let i = 0; i < edits; i += 1) {
     const t0 = performance.now();
     const arrivals = watchers.map(
-      (w) => new Promise<void>((resolve) => w.once('stack:changed', () => (samples.push(performance.now() - t0), resolve()))),
+      (w) =>
+        new Promise<void>((resolve) =>
+          w.once('stack:changed', () => (samples.push(performance.now() - t0), resolve())),
+        ),
     );
-    const r = await ack<{ version: number }>(editor, 'stack:edit', { stackId, baseVersion: version, ops: [{ op: 'moveNode', id: nodeId, position: { x: i, y: i } }] });
+    const r = await ack<{ version: number }>(editor, 'stack:edit', {
+      stackId,
+      baseVersion: version,
+      ops: [{ op: 'moveNode', id: nodeId, position: { x: i, y: i } }],
+    });
     if (!r.ok) throw new Error(r.error.message);
     version = r.data.version;
     await Promise.all(arrivals);
@@ -84,7 +99,11 @@ async function sustainedEdits(url: string, token: string, stackId: number, secon
   let done = 0;
   const end = performance.now() + seconds * 1000;
   while (performance.now() < end) {
-    const r = await ack<{ version: number }>(s, 'stack:edit', { stackId, baseVersion: version, ops: [{ op: 'moveNode', id: nodeId, position: { x: done, y: 0 } }] });
+    const r = await ack<{ version: number }>(s, 'stack:edit', {
+      stackId,
+      baseVersion: version,
+      ops: [{ op: 'moveNode', id: nodeId, position: { x: done, y: 0 } }],
+    });
     if (!r.ok) throw new Error(r.error.message);
     version = r.data.version;
     done += 1;
@@ -96,7 +115,10 @@ async function sustainedEdits(url: string, token: string, stackId: number, secon
 export async function benchRealtime(): Promise<void> {
   const server = await startBenchServer();
   try {
-    const { token } = await api<AuthResponse>(server.url, 'POST', '/auth/login', null, { email: 'engineer@stanchion.test', password: 'stanchion-demo' });
+    const { token } = await api<AuthResponse>(server.url, 'POST', '/auth/login', null, {
+      email: 'engineer@stanchion.test',
+      password: 'stanchion-demo',
+    });
     const buildings = await api<{ id: number }[]>(server.url, 'GET', '/buildings', token);
     const stacks = await api<StackSummary[]>(server.url, 'GET', `/buildings/${buildings[0]!.id}/stacks`, token);
     const stackId = stacks[0]!.id;
@@ -107,7 +129,9 @@ export async function benchRealtime(): Promise<void> {
           `(bare ack round trip p50 ${r.baselineP50.toFixed(2)} ms; p50 ratio ×${(r.p50 / r.baselineP50).toFixed(1)})  target p95 < 25 ms at 20`,
       );
     }
-    console.log(`live edits sustained (one editor, ack before next): ${(await sustainedEdits(server.url, token, stackId, 3)).toFixed(0)} edits/s`);
+    console.log(
+      `live edits sustained (one editor, ack before next): ${(await sustainedEdits(server.url, token, stackId, 3)).toFixed(0)} edits/s`,
+    );
   } finally {
     server.stop();
   }

@@ -29,7 +29,14 @@ export function benchStackDocument(storeys: number, levelIds = false): StackDocu
   }
   for (let floor = 1; floor < storeys; floor++) {
     const id = `r${floor}`;
-    const data = { elevation: floor * 4, axes: floor % 3 === 0 ? ('z' as const) : ('both' as const), fixity: 'pinned' as const, Gk: 60, Qk: 30, category: floor % 5 === 0 ? ('E' as const) : ('B' as const) };
+    const data = {
+      elevation: floor * 4,
+      axes: floor % 3 === 0 ? ('z' as const) : ('both' as const),
+      fixity: 'pinned' as const,
+      Gk: 60,
+      Qk: 30,
+      category: floor % 5 === 0 ? ('E' as const) : ('B' as const),
+    };
     nodes.push({ id, kind: 'restraint', data: levelIds ? { ...data, levelId: `lv${floor}` } : data });
     link(id, `l${Math.floor((floor - 1) / 2)}`);
   }
@@ -62,12 +69,16 @@ export async function benchStack(): Promise<void> {
   const check = analyseStack(tall);
   if (check.errors.length) throw new Error(`bench stack is invalid: ${check.errors[0].message}`);
   const one = time(() => analyseStack(tall), 500);
-  console.log(`analyseStack, 60 storeys: median ${one.wall.toFixed(3)} ms wall, ${one.cpu.toFixed(3)} ms CPU (target < 1 ms)`);
+  console.log(
+    `analyseStack, 60 storeys: median ${one.wall.toFixed(3)} ms wall, ${one.cpu.toFixed(3)} ms CPU (target < 1 ms)`,
+  );
 
   const levels = new Map(Array.from({ length: 40 }, (_, i) => [`lv${i}`, i * 4] as const));
   const stacks = Array.from({ length: 400 }, (_, i) => ({ id: i, name: `S${i}`, doc: benchStackDocument(40, true) }));
   const building = time(() => analyseBuilding(stacks, levels, {}), 15);
-  console.log(`analyseBuilding, 400 stacks of 40 storeys: median ${building.wall.toFixed(1)} ms wall, ${building.cpu.toFixed(1)} ms CPU (target < 200 ms)`);
+  console.log(
+    `analyseBuilding, 400 stacks of 40 storeys: median ${building.wall.toFixed(1)} ms wall, ${building.cpu.toFixed(1)} ms CPU (target < 200 ms)`,
+  );
   // As the server calls the engine: documents read back through stackDocumentSchema need no second shape check.
   const parsed = time(() => analyseBuilding(stacks, levels, {}, { shapeChecked: true }), 15);
   console.log(

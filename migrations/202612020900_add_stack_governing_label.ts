@@ -12,11 +12,15 @@ export async function up(knex: Knex): Promise<void> {
   await knex.schema.alterTable('stacks', (t) => {
     t.string('governing_lift_label', 40).nullable();
   });
-  const rows = await knex('stacks').whereNotNull('governing_lift_id').select<{ id: number; results: string; governing_lift_id: string }[]>('id', 'results', 'governing_lift_id');
+  const rows = await knex('stacks')
+    .whereNotNull('governing_lift_id')
+    .select<{ id: number; results: string; governing_lift_id: string }[]>('id', 'results', 'governing_lift_id');
   for (const row of rows) {
     const lifts = (JSON.parse(row.results) as { lifts?: StoredLift[] }).lifts ?? [];
     const lift = lifts.find((l) => l.liftId === row.governing_lift_id);
-    await knex('stacks').where({ id: row.id }).update({ governing_lift_label: lift?.label ?? row.governing_lift_id });
+    await knex('stacks')
+      .where({ id: row.id })
+      .update({ governing_lift_label: lift?.label ?? row.governing_lift_id });
   }
 }
 

@@ -5,7 +5,9 @@
 import type { Knex } from 'knex';
 
 export async function renameDuplicates(knex: Knex, table: 'stacks' | 'levels'): Promise<void> {
-  const rows = await knex(table).orderBy('id').select<{ id: number; building_id: number; name: string }[]>('id', 'building_id', 'name');
+  const rows = await knex(table)
+    .orderBy('id')
+    .select<{ id: number; building_id: number; name: string }[]>('id', 'building_id', 'name');
   const fold = (s: string) => s.toLowerCase();
   // Every name's first holder keeps it; the later holders are renamed to names nobody holds.
   const taken = new Map<number, Set<string>>();
@@ -33,7 +35,9 @@ export async function renameDuplicates(knex: Knex, table: 'stacks' | 'levels'): 
       detail: JSON.stringify({ from: r.name, to: name }),
       created_at: new Date().toISOString(),
     });
-    console.warn(`migration: ${table} ${r.id} in building ${r.building_id} renamed from "${r.name}" to "${name}" (a duplicate name)`);
+    console.warn(
+      `migration: ${table} ${r.id} in building ${r.building_id} renamed from "${r.name}" to "${name}" (a duplicate name)`,
+    );
   }
 }
 

@@ -51,7 +51,9 @@ function buildClient(vite: string): Promise<void> {
     // The local Vite, run by this Node: never a download through npx.
     const child = spawn(process.execPath, [vite, 'build'], { cwd: root, stdio: 'inherit' });
     child.on('error', reject);
-    child.on('exit', (code) => (code === 0 ? resolvePromise() : reject(new Error(`vite build exited with code ${code}`))));
+    child.on('exit', (code) =>
+      code === 0 ? resolvePromise() : reject(new Error(`vite build exited with code ${code}`)),
+    );
   });
 }
 
@@ -61,10 +63,13 @@ if (process.argv[1] && import.meta.url === pathToFileURL(resolve(process.argv[1]
   const vite = viteScript(root);
   const step = clientStep(root, vite !== null);
   if (step === 'missing') {
-    log.fatal('dist/ is missing and Vite is not installed (a production install): run `npm run build` where the dev dependencies are installed and ship dist/, or run `npm install`');
+    log.fatal(
+      'dist/ is missing and Vite is not installed (a production install): run `npm run build` where the dev dependencies are installed and ship dist/, or run `npm install`',
+    );
     process.exit(1);
   }
-  if (step === 'serve-stale') log.warn('dist/ is older than the client sources and Vite is not installed: serving the existing build');
+  if (step === 'serve-stale')
+    log.warn('dist/ is older than the client sources and Vite is not installed: serving the existing build');
   if (step === 'build' && vite) {
     log.info('Building the client (dist/ is missing or older than its sources)…');
     await buildClient(vite);

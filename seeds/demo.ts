@@ -17,15 +17,26 @@ export const DEMO_USERS = {
 export const DEMO_BUILDING = { name: 'Demo office block', reference: 'DEMO-001' };
 /** Ground, six suspended floors and a roof, 3.8 m apart (invented). */
 export const DEMO_STOREY_HEIGHT = 3.8;
-export const DEMO_LEVELS: { name: string; elevation: number }[] = ['Ground', 'Level 1', 'Level 2', 'Level 3', 'Level 4', 'Level 5', 'Level 6', 'Roof'].map(
-  (name, i) => ({ name, elevation: Math.round(i * DEMO_STOREY_HEIGHT * 1000) / 1000 }),
-);
+export const DEMO_LEVELS: { name: string; elevation: number }[] = [
+  'Ground',
+  'Level 1',
+  'Level 2',
+  'Level 3',
+  'Level 4',
+  'Level 5',
+  'Level 6',
+  'Roof',
+].map((name, i) => ({ name, elevation: Math.round(i * DEMO_STOREY_HEIGHT * 1000) / 1000 }));
 
 /** Invented stacks: an internal, an edge and a corner column, with floor loads per level in kN. */
 export const DEMO_STACKS: { name: string; template: StackTemplate }[] = [
   {
     name: 'C/4',
-    template: demoTemplate({ Gk: 240, Qk: 120, sections: ['UKC 305x305x118', 'UKC 254x254x89', 'UKC 203x203x60', 'UKC 203x203x46'] }),
+    template: demoTemplate({
+      Gk: 240,
+      Qk: 120,
+      sections: ['UKC 305x305x118', 'UKC 254x254x89', 'UKC 203x203x60', 'UKC 203x203x46'],
+    }),
   },
   {
     name: 'B/2',
@@ -38,7 +49,15 @@ export const DEMO_STACKS: { name: string; template: StackTemplate }[] = [
 ];
 
 function demoTemplate(p: Pick<StackTemplate, 'Gk' | 'Qk' | 'sections'> & { spliceEvery?: number }): StackTemplate {
-  return { storeys: 7, storeyHeight: DEMO_STOREY_HEIGHT, baseElevation: 0, spliceEvery: 2, grade: 'S355', baseFixity: 'pinned', ...p };
+  return {
+    storeys: 7,
+    storeyHeight: DEMO_STOREY_HEIGHT,
+    baseElevation: 0,
+    spliceEvery: 2,
+    grade: 'S355',
+    baseFixity: 'pinned',
+    ...p,
+  };
 }
 
 export async function seedDemoIfEmpty(db: Knex, bcryptRounds: number): Promise<boolean> {
@@ -51,12 +70,20 @@ export async function seedDemoIfEmpty(db: Knex, bcryptRounds: number): Promise<b
 export async function seedDemo(db: Knex, bcryptRounds: number): Promise<{ buildingId: number }> {
   const accounts: Partial<Record<keyof typeof DEMO_USERS, User>> = {};
   for (const key of Object.keys(DEMO_USERS) as (keyof typeof DEMO_USERS)[]) {
-    accounts[key] = await registerUser(db, { ...DEMO_USERS[key], password: DEMO_PASSWORD }, bcryptRounds, { verified: true });
+    accounts[key] = await registerUser(db, { ...DEMO_USERS[key], password: DEMO_PASSWORD }, bcryptRounds, {
+      verified: true,
+    });
   }
   const lead = accounts.lead as User;
   const users = { lead: lead.id, engineer: accounts.engineer?.id, viewer: accounts.viewer?.id };
   const [building] = await db('buildings')
-    .insert({ ...DEMO_BUILDING, options: JSON.stringify({}), created_by: users.lead, created_at: now(), updated_at: now() })
+    .insert({
+      ...DEMO_BUILDING,
+      options: JSON.stringify({}),
+      created_by: users.lead,
+      created_at: now(),
+      updated_at: now(),
+    })
     .returning<{ id: number }[]>('id');
   for (const role of ['lead', 'engineer', 'viewer'] as const) {
     await db('memberships').insert({ building_id: building.id, user_id: users[role], role, created_at: now() });

@@ -77,7 +77,10 @@ export const DEFAULT_LIMITS: Limits = {
 export const publicUrlSchema = z
   .string()
   .url('PUBLIC_URL must be an absolute URL')
-  .refine((u) => URL.canParse(u) && /^https?:$/.test(new URL(u).protocol), 'PUBLIC_URL must start with http:// or https://')
+  .refine(
+    (u) => URL.canParse(u) && /^https?:$/.test(new URL(u).protocol),
+    'PUBLIC_URL must start with http:// or https://',
+  )
   .transform((u) => u.replace(/\/+$/, ''));
 
 const intFromEnv = (fallback: number, min: number, max: number) =>
@@ -87,7 +90,10 @@ const envSchema = z.object({
   PORT: intFromEnv(3000, 0, 65535),
   DATA_DIR: z.string().min(1).default('./data'),
   DATABASE_URL: z.string().min(1).optional(),
-  DATABASE_SCHEMA: z.string().regex(/^[a-z_][a-z0-9_]{0,62}$/, 'DATABASE_SCHEMA must be a plain lower-case identifier').optional(),
+  DATABASE_SCHEMA: z
+    .string()
+    .regex(/^[a-z_][a-z0-9_]{0,62}$/, 'DATABASE_SCHEMA must be a plain lower-case identifier')
+    .optional(),
   REDIS_URL: z.string().min(1).optional(),
   REDIS_PREFIX: z.string().min(1).max(100).default('stanchion'),
   JWT_SECRET: z.string().min(16, 'JWT_SECRET must be at least 16 characters').optional(),
@@ -146,7 +152,13 @@ export function loadConfig(env: NodeJS.ProcessEnv = process.env, overrides: Conf
     redisPrefix: e.REDIS_PREFIX,
     smtpUrl: e.SMTP_URL ?? null,
     mailFrom: e.MAIL_FROM,
-    mail: { timeoutMs: e.MAIL_TIMEOUT_MS, retryBaseMs: e.MAIL_RETRY_BASE_MS, maxAttempts: e.MAIL_MAX_ATTEMPTS, pollMs: e.MAIL_POLL_MS, leaseMs: e.MAIL_LEASE_MS ?? 4 * e.MAIL_TIMEOUT_MS + 120_000 },
+    mail: {
+      timeoutMs: e.MAIL_TIMEOUT_MS,
+      retryBaseMs: e.MAIL_RETRY_BASE_MS,
+      maxAttempts: e.MAIL_MAX_ATTEMPTS,
+      pollMs: e.MAIL_POLL_MS,
+      leaseMs: e.MAIL_LEASE_MS ?? 4 * e.MAIL_TIMEOUT_MS + 120_000,
+    },
     logLevel: e.LOG_LEVEL,
     bcryptRounds: e.BCRYPT_ROUNDS,
     loginRateLimit: { windowMs: e.LOGIN_RATE_WINDOW_MS, max: e.LOGIN_RATE_LIMIT },
@@ -168,6 +180,8 @@ export function loadConfig(env: NodeJS.ProcessEnv = process.env, overrides: Conf
 }
 
 function readVersion(): string {
-  const pkg = z.object({ version: z.string() }).safeParse(JSON.parse(readFileSync(fileURLToPath(new URL('../package.json', import.meta.url)), 'utf8')));
+  const pkg = z
+    .object({ version: z.string() })
+    .safeParse(JSON.parse(readFileSync(fileURLToPath(new URL('../package.json', import.meta.url)), 'utf8')));
   return pkg.success ? pkg.data.version : '0.0.0';
 }

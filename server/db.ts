@@ -12,7 +12,9 @@ export function databaseKind(config: Pick<Config, 'databaseUrl'>): DatabaseKind 
   return config.databaseUrl ? 'postgres' : 'sqlite';
 }
 
-export function createDb(config: Pick<Config, 'databaseUrl' | 'dataDir'> & Partial<Pick<Config, 'databaseSchema'>>): Knex {
+export function createDb(
+  config: Pick<Config, 'databaseUrl' | 'dataDir'> & Partial<Pick<Config, 'databaseSchema'>>,
+): Knex {
   if (config.databaseUrl) {
     return knex({
       client: 'pg',
@@ -62,7 +64,8 @@ export async function rollbackAll(db: Knex): Promise<void> {
 /** Timestamps come back as strings from SQLite and as Date from PostgreSQL. */
 export function isoTime(value: unknown): string {
   if (value instanceof Date) return value.toISOString();
-  if (typeof value === 'string') return new Date(value.includes('T') ? value : `${value.replace(' ', 'T')}Z`).toISOString();
+  if (typeof value === 'string')
+    return new Date(value.includes('T') ? value : `${value.replace(' ', 'T')}Z`).toISOString();
   return new Date(0).toISOString();
 }
 

@@ -20,6 +20,9 @@ export const unauthenticated = (message = 'Sign in to continue') => new HttpErro
 export const forbidden = (message = 'Your role does not allow this') => new HttpError(403, 'forbidden', message);
 export const notFound = (what = 'Resource') => new HttpError(404, 'not_found', `${what} not found`);
 export const conflict = (message: string, details?: unknown) => new HttpError(409, 'conflict', message, details);
-export const unprocessable = (message: string, details?: unknown) => new HttpError(422, 'unprocessable', message, details);
-export const unavailable = (message: string, retryAfterSeconds: number) => new HttpError(503, 'unavailable', message, undefined, retryAfterSeconds);
-export const busy = (message: string, retryAfterSeconds: number) => new HttpError(503, 'busy', message, undefined, retryAfterSeconds);
+export const unprocessable = (message: string, details?: unknown) =>
+  new HttpError(422, 'unprocessable', message, details);
+export const unavailable = (message: string, retryAfterSeconds: number) =>
+  new HttpError(503, 'unavailable', message, undefined, retryAfterSeconds);
+export const busy = (message: string, retryAfterSeconds: number) =>
+  new HttpError(503, 'busy', message, undefined, retryAfterSeconds);

@@ -2,7 +2,9 @@
 import { startServer } from './server.ts';
 
 const server = await startServer({ seed: true });
-server.ctx.log.info(`Stanchion listening on ${server.url} (database: ${server.ctx.config.databaseUrl ? 'postgres' : 'sqlite'})`);
+server.ctx.log.info(
+  `Stanchion listening on ${server.url} (database: ${server.ctx.config.databaseUrl ? 'postgres' : 'sqlite'})`,
+);
 
 for (const signal of ['SIGINT', 'SIGTERM'] as const) {
   process.once(signal, () => {

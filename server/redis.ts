@@ -32,7 +32,10 @@ export function createRedisClient(url: string, role: string, log: Logger, opts: 
   client.on('error', (err: unknown) => {
     if (lost) return;
     lost = true;
-    log.warn({ err, role }, 'Redis connection lost: live rooms serve this process only and sign-in answers 503 until it returns');
+    log.warn(
+      { err, role },
+      'Redis connection lost: live rooms serve this process only and sign-in answers 503 until it returns',
+    );
   });
   client.on('ready', () => {
     if (!lost) return;
@@ -58,13 +61,21 @@ export async function connectBounded(client: RedisClient, ms: number, log: Logge
   const ok = await Promise.race([ready, timedOut]);
   clearTimeout(timer);
   if (!ok) {
-    log.error({ role, waitedMs: ms }, 'REDIS UNREACHABLE AT START: serving degraded (live rooms on this process only, sign-in answers 503) and reconnecting in the background');
+    log.error(
+      { role, waitedMs: ms },
+      'REDIS UNREACHABLE AT START: serving degraded (live rooms on this process only, sign-in answers 503) and reconnecting in the background',
+    );
   }
   return ok;
 }
 
 /** Runs a Redis command with a time bound; rejects with `onFail()`'s error when Redis is away or slow. */
-export async function boundedCommand<T>(client: RedisClient, run: () => Promise<T>, onFail: () => Error, ms = REDIS_COMMAND_TIMEOUT_MS): Promise<T> {
+export async function boundedCommand<T>(
+  client: RedisClient,
+  run: () => Promise<T>,
+  onFail: () => Error,
+  ms = REDIS_COMMAND_TIMEOUT_MS,
+): Promise<T> {
   if (!client.isReady) throw onFail();
   const work = run();
   let timer: NodeJS.Timeout | undefined;
@@ -98,7 +109,8 @@ export function safePublisher(client: RedisClient, log: Logger): RedisClient {
       if (prop === 'publish') {
         return (...args: Parameters<RedisClient['publish']>) =>
           target.publish(...args).catch((err: unknown) => {
-            if (!warned) log.warn({ err }, 'Redis publish failed: broadcasts reach this process only until Redis returns');
+            if (!warned)
+              log.warn({ err }, 'Redis publish failed: broadcasts reach this process only until Redis returns');
             warned = true;
             return 0;
           });

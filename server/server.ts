@@ -59,7 +59,16 @@ export async function startServer(opts: StartOptions = {}): Promise<RunningServe
   const mailer = await createMailer(config, db, log.child({ name: 'mail' }));
   const redis = config.redisUrl ? await connectRedis(config.redisUrl, log.child({ name: 'redis' })) : null;
   const offThread = createOffThread();
-  const ctx: ServerContext = { db, config, log, mailer, broadcaster: nullBroadcaster, redis, offThread, outbox: { kick: () => undefined } };
+  const ctx: ServerContext = {
+    db,
+    config,
+    log,
+    mailer,
+    broadcaster: nullBroadcaster,
+    redis,
+    offThread,
+    outbox: { kick: () => undefined },
+  };
   const app = createApp(ctx);
   const httpServer = createServer(app);
   const realtime = await attachRealtime(httpServer, ctx);

@@ -30,7 +30,11 @@ export function connectionRows(result: StackResult | null): ConnectionRow[] {
     rows.push({
       id: b.nodeId,
       where: `Base at ${formatElevation(b.elevation)}`,
-      fit: b.tension ? 'In tension: holding-down bolts to be designed for it' : b.tRequired === null ? 'Base plate' : `Base plate, t ≥ ${b.tRequired.toFixed(1)} mm`,
+      fit: b.tension
+        ? 'In tension: holding-down bolts to be designed for it'
+        : b.tRequired === null
+          ? 'Base plate'
+          : `Base plate, t ≥ ${b.tRequired.toFixed(1)} mm`,
       NEd: kN(b.NEd),
       tension: b.tension ? kN(-b.NminEd) : '0',
       resistance: kN(b.NjRd),
@@ -51,7 +55,8 @@ export function connectionRows(result: StackResult | null): ConnectionRow[] {
       resistance: kN(s.NtRd),
       utilisation: s.utilisation === null ? '–' : s.utilisation.toFixed(2),
       status: s.status,
-      statusText: statusText(s.status) + (s.meetsTie === true ? ', meets the tie' : s.meetsTie === false ? ', tie not met' : ''),
+      statusText:
+        statusText(s.status) + (s.meetsTie === true ? ', meets the tie' : s.meetsTie === false ? ', tie not met' : ''),
       notes: s.notes,
       steps: s.steps,
     });

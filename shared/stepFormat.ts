@@ -27,5 +27,7 @@ export function formatStep(step: CalcStep): { value: string; unit: string } {
   if (step.symbol.startsWith('γ')) return { value: step.value.toFixed(2), unit: step.unit };
   if (step.unit === 'mm' && step.symbol.startsWith('Lcr')) return { value: (step.value / 1e3).toFixed(3), unit: 'm' };
   const printed = PRINTED[step.unit];
-  return printed ? { value: figures(step.value / printed[0]), unit: printed[1] } : { value: figures(step.value), unit: step.unit };
+  return printed
+    ? { value: figures(step.value / printed[0]), unit: printed[1] }
+    : { value: figures(step.value), unit: step.unit };
 }

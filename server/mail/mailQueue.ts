@@ -57,19 +57,41 @@ export async function enqueueMail(db: Knex, mails: NewMail[]): Promise<void> {
 export async function claimDue(db: Knex, owner: string, leaseMs: number, limit: number): Promise<QueuedMail[]> {
   const t = Date.now();
   const due = (q: Knex.QueryBuilder) =>
-    q.where((w) => w.where({ status: 'pending' }).andWhere('next_attempt_at', '<=', t)).orWhere((w) => w.where({ status: 'sending' }).andWhere('claimed_until', '<', t));
-  const candidates = await db('mail_queue').where(due).orderBy('next_attempt_at').orderBy('id').limit(limit).pluck<number[]>('id');
+    q
+      .where((w) => w.where({ status: 'pending' }).andWhere('next_attempt_at', '<=', t))
+      .orWhere((w) => w.where({ status: 'sending' }).andWhere('claimed_until', '<', t));
+  const candidates = await db('mail_queue')
+    .where(due)
+    .orderBy('next_attempt_at')
+    .orderBy('id')
+    .limit(limit)
+    .pluck<number[]>('id');
   const won: QueuedMail[] = [];
   for (const id of candidates) {
     // Re-checked in the UPDATE itself: of two processes racing for a row, one matches and one does not.
-    const n = await db('mail_queue').where({ id }).andWhere(due).update({ status: 'sending', claimed_by: owner, claimed_until: t + leaseMs, updated_at: now() });
-    if (n === 1) won.push(await db<QueuedMail>('mail_queue').where({ id }).first().then((r) => r as QueuedMail));
+    const n = await db('mail_queue')
+      .where({ id })
+      .andWhere(due)
+      .update({ status: 'sending', claimed_by: owner, claimed_until: t + leaseMs, updated_at: now() });
+    if (n === 1)
+      won.push(
+        await db<QueuedMail>('mail_queue')
+          .where({ id })
+          .first()
+          .then((r) => r as QueuedMail),
+      );
   }
   return won;
 }
 
 /** Outcome of one attempt; a failure is retried after `retryInMs`, or given up (null). */
-export async function recordAttempt(db: Knex, mail: QueuedMail, owner: string, error: string | null, retryInMs: number | null): Promise<QueueStatus> {
+export async function recordAttempt(
+  db: Knex,
+  mail: QueuedMail,
+  owner: string,
+  error: string | null,
+  retryInMs: number | null,
+): Promise<QueueStatus> {
   const status: QueueStatus = error === null ? 'sent' : retryInMs === null ? 'failed' : 'pending';
   await db('mail_queue')
     .where({ id: mail.id, claimed_by: owner })
@@ -97,12 +119,19 @@ export async function requeueFailed(db: Knex, revisionId: number): Promise<numbe
  * ran out while the message was being prepared and another process took the row): then do not send.
  */
 export async function renewClaim(db: Knex, mail: QueuedMail, owner: string, leaseMs: number): Promise<boolean> {
-  const n = await db('mail_queue').where({ id: mail.id, claimed_by: owner, status: 'sending' }).update({ claimed_until: Date.now() + leaseMs, updated_at: now() });
+  const n = await db('mail_queue')
+    .where({ id: mail.id, claimed_by: owner, status: 'sending' })
+    .update({ claimed_until: Date.now() + leaseMs, updated_at: now() });
   return n === 1;
 }
 
 /** Revisions whose packages due mail will attach: drawn before any row is claimed. */
 export async function dueAttachments(db: Knex, limit: number): Promise<number[]> {
-  const rows = await db('mail_queue').where({ status: 'pending' }).andWhere('next_attempt_at', '<=', Date.now()).whereNotNull('attach_revision_id').distinct('attach_revision_id').limit(limit);
+  const rows = await db('mail_queue')
+    .where({ status: 'pending' })
+    .andWhere('next_attempt_at', '<=', Date.now())
+    .whereNotNull('attach_revision_id')
+    .distinct('attach_revision_id')
+    .limit(limit);
   return rows.map((r: { attach_revision_id: number }) => r.attach_revision_id);
 }

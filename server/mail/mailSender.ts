@@ -29,18 +29,37 @@ export function retryDelay(retryBaseMs: number, attempts: number): number {
 }
 
 async function messageOf(ctx: ServerContext, mail: QueuedMail): Promise<MailMessage> {
-  const message: MailMessage = { to: mail.to, subject: mail.subject, text: mail.text, ...(mail.html ? { html: mail.html } : {}) };
+  const message: MailMessage = {
+    to: mail.to,
+    subject: mail.subject,
+    text: mail.text,
+    ...(mail.html ? { html: mail.html } : {}),
+  };
   if (mail.attach_revision_id === null) return message;
   const pkg = await issuedPackage(ctx, mail.attach_revision_id);
   const { snapshot } = await loadSnapshot(ctx.db, mail.attach_revision_id);
-  return { ...message, attachments: [{ filename: packageFilename(snapshot), content: pkg.bytes, contentType: 'application/pdf' }] };
+  return {
+    ...message,
+    attachments: [{ filename: packageFilename(snapshot), content: pkg.bytes, contentType: 'application/pdf' }],
+  };
 }
 
-async function reportToRecipient(ctx: ServerContext, mail: QueuedMail, status: QueueStatus, error: string | null): Promise<void> {
+async function reportToRecipient(
+  ctx: ServerContext,
+  mail: QueuedMail,
+  status: QueueStatus,
+  error: string | null,
+): Promise<void> {
   if (mail.recipient_id === null) return;
-  await ctx.db('revision_recipients')
+  await ctx
+    .db('revision_recipients')
     .where({ id: mail.recipient_id })
-    .update({ status: status === 'sending' ? 'pending' : status, attempts: ctx.db.raw('attempts + 1'), error: status === 'sent' ? null : error, updated_at: now() });
+    .update({
+      status: status === 'sending' ? 'pending' : status,
+      attempts: ctx.db.raw('attempts + 1'),
+      error: status === 'sent' ? null : error,
+      updated_at: now(),
+    });
 }
 
 export function startMailSender(ctx: ServerContext, log: Logger): MailSender {
@@ -76,7 +95,9 @@ export function startMailSender(ctx: ServerContext, log: Logger): MailSender {
       again = false;
       // Packages are drawn before any row is claimed, so a claim's lease covers only the SMTP exchange.
       for (const revisionId of await dueAttachments(ctx.db, BATCH)) {
-        await issuedPackage(ctx, revisionId).catch((err: unknown) => log.warn({ err, revisionId }, 'package for mail not drawn; the send will report it'));
+        await issuedPackage(ctx, revisionId).catch((err: unknown) =>
+          log.warn({ err, revisionId }, 'package for mail not drawn; the send will report it'),
+        );
       }
       const batch = await claimDue(ctx.db, owner, leaseMs, BATCH);
       for (const mail of batch) {

@@ -82,7 +82,14 @@ export async function createMailer(
   };
 }
 
-async function logMail(db: Knex, log: Logger, m: MailMessage, status: 'sent' | 'failed', attempts: number, error: string | null): Promise<void> {
+async function logMail(
+  db: Knex,
+  log: Logger,
+  m: MailMessage,
+  status: 'sent' | 'failed',
+  attempts: number,
+  error: string | null,
+): Promise<void> {
   try {
     await db('mail_log').insert({ to: m.to, subject: m.subject, status, attempts, error, created_at: now() });
   } catch (e) {

@@ -7,13 +7,23 @@ import type { MailMessage } from './mailer.ts';
 
 /** User-chosen text as a quotation: control characters and line breaks removed, at most 80 characters. */
 export function quoted(text: string): string {
-  // eslint-disable-next-line no-control-regex
-  const flat = text.replace(/[\u0000-\u001f\u007f-\u009f\u2028\u2029]+/g, ' ').replace(/\s+/g, ' ').trim();
+  // Cc: the C0 and C1 control characters (U+0000–U+001F, U+007F–U+009F)
+  const flat = text
+    .replace(/[\p{Cc}\u2028\u2029]+/gu, ' ')
+    .replace(/\s+/g, ' ')
+    .trim();
   const short = flat.length > 80 ? `${flat.slice(0, 79)}…` : flat;
   return `“${short}”`;
 }
 
-export function invitationMessage(p: { to: string; buildingName: string; inviterName: string; role: Role; link: string; days: number }): MailMessage {
+export function invitationMessage(p: {
+  to: string;
+  buildingName: string;
+  inviterName: string;
+  role: Role;
+  link: string;
+  days: number;
+}): MailMessage {
   const text =
     `You have been invited to a building in Stanchion as ${p.role}.\n\n` +
     `Building name, as its lead wrote it: ${quoted(p.buildingName)}\n` +

@@ -5,7 +5,9 @@ import type { OutboxMessage } from '../../shared/schema/outbox.ts';
 import { isoTime } from '../db.ts';
 import { notFound } from '../errors.ts';
 
-const storedAttachments = z.array(z.object({ filename: z.string(), contentType: z.string(), size: z.number(), content: z.string() }));
+const storedAttachments = z.array(
+  z.object({ filename: z.string(), contentType: z.string(), size: z.number(), content: z.string() }),
+);
 
 interface OutboxRow {
   id: number;
@@ -25,12 +27,18 @@ export async function listOutbox(db: Knex): Promise<OutboxMessage[]> {
     subject: r.subject,
     text: r.text,
     html: r.html,
-    attachments: storedAttachments.parse(JSON.parse(r.attachments)).map(({ filename, contentType, size }) => ({ filename, contentType, size })),
+    attachments: storedAttachments
+      .parse(JSON.parse(r.attachments))
+      .map(({ filename, contentType, size }) => ({ filename, contentType, size })),
     createdAt: isoTime(r.created_at),
   }));
 }
 
-export async function getOutboxAttachment(db: Knex, id: number, index: number): Promise<{ filename: string; contentType: string; content: Buffer }> {
+export async function getOutboxAttachment(
+  db: Knex,
+  id: number,
+  index: number,
+): Promise<{ filename: string; contentType: string; content: Buffer }> {
   const row = await db<OutboxRow>('outbox').where({ id }).first();
   const a = row && Number.isInteger(index) ? storedAttachments.parse(JSON.parse(row.attachments))[index] : undefined;
   if (!a) throw notFound('Attachment');

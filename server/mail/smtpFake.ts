@@ -44,7 +44,10 @@ export async function startSmtpFake(db: Knex): Promise<SmtpFake> {
             created_at: now(),
           });
         })
-        .then(() => callback(), (err: Error) => callback(err));
+        .then(
+          () => callback(),
+          (err: Error) => callback(err),
+        );
     },
   });
   await new Promise<void>((resolve, reject) => {

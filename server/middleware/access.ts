@@ -20,13 +20,19 @@ export const buildingFromParam: BuildingOf = async (db, req) => {
 
 /** The building of the stack named by :id on /api/stacks/:id/... routes. */
 export const buildingOfStack: BuildingOf = async (db, req) => {
-  const row = await db('stacks').where({ id: idParam(req) }).first<{ building_id: number } | undefined>('building_id');
+  const row = await db('stacks')
+    .where({ id: idParam(req) })
+    .first<{ building_id: number } | undefined>('building_id');
   return row ? row.building_id : null;
 };
 
 export { roleIn };
 
-export function requireRole(ctx: ServerContext, minRole: Role, buildingOf: BuildingOf = buildingFromParam): RequestHandler {
+export function requireRole(
+  ctx: ServerContext,
+  minRole: Role,
+  buildingOf: BuildingOf = buildingFromParam,
+): RequestHandler {
   return async (req: Request, _res: Response, next: NextFunction) => {
     const user = currentUser(req);
     const buildingId = await buildingOf(ctx.db, req);

@@ -33,7 +33,10 @@ export function requireAuth(ctx: ServerContext): RequestHandler {
     const token = bearerToken(req.headers.authorization);
     if (!token) throw unauthenticated();
     // The session version is checked on every request: signing out or a password change ends older tokens.
-    const { tokenVersion: _version, ...user } = await userForSession(ctx.db, verifySession(ctx.config.jwtSecret, token));
+    const { tokenVersion: _version, ...user } = await userForSession(
+      ctx.db,
+      verifySession(ctx.config.jwtSecret, token),
+    );
     req.user = user;
     next();
   };

@@ -36,7 +36,9 @@ export const errorHandler: ErrorRequestHandler = (err: unknown, req, res, next) 
   if (err instanceof ZodError) {
     const first = err.issues[0];
     const where = first && first.path.length ? `${first.path.map(String).join('.')}: ` : '';
-    res.status(400).json(body('validation_failed', `Invalid input (${where}${first?.message ?? 'invalid'})`, zodDetails(err)));
+    res
+      .status(400)
+      .json(body('validation_failed', `Invalid input (${where}${first?.message ?? 'invalid'})`, zodDetails(err)));
     return;
   }
   if (err instanceof HttpError) {
@@ -50,7 +52,11 @@ export const errorHandler: ErrorRequestHandler = (err: unknown, req, res, next) 
     } else if (err.type === 'entity.parse.failed') {
       res.status(400).json(body('bad_request', 'The request body is not valid JSON'));
     } else if (err.code?.startsWith('Z_')) {
-      res.status(400).json(body('bad_request', 'The request body could not be decompressed: it does not match its Content-Encoding'));
+      res
+        .status(400)
+        .json(
+          body('bad_request', 'The request body could not be decompressed: it does not match its Content-Encoding'),
+        );
     } else {
       res.status(err.status).json(body('bad_request', 'The request body could not be read'));
     }

@@ -24,7 +24,14 @@ export const byBodyEmail: LimitKey = (req) => {
 const made = new WeakMap<ServerContext, Map<string, RequestHandler>>();
 
 /** One limiter per name and server: routes naming the same limit share its count (so they must share its key). */
-export function limiter(ctx: ServerContext, name: string, limit: Limit, key: LimitKey, message: string, opts: { onlyFailures?: boolean } = {}): RequestHandler {
+export function limiter(
+  ctx: ServerContext,
+  name: string,
+  limit: Limit,
+  key: LimitKey,
+  message: string,
+  opts: { onlyFailures?: boolean } = {},
+): RequestHandler {
   const mine = made.get(ctx) ?? new Map<string, RequestHandler>();
   made.set(ctx, mine);
   const known = mine.get(name);
@@ -34,12 +41,27 @@ export function limiter(ctx: ServerContext, name: string, limit: Limit, key: Lim
   return handler;
 }
 
-function makeLimiter(ctx: ServerContext, name: string, limit: Limit, key: LimitKey, message: string, opts: { onlyFailures?: boolean }): RequestHandler {
+function makeLimiter(
+  ctx: ServerContext,
+  name: string,
+  limit: Limit,
+  key: LimitKey,
+  message: string,
+  opts: { onlyFailures?: boolean },
+): RequestHandler {
   const { redis } = ctx;
   const minutes = Math.max(1, Math.round(limit.windowMs / 60_000));
   return rateLimit({
     // Fails safe while Redis is away: a 503 at once, never a crash or a long wait (docs/faults.md).
-    ...(redis ? { store: signInLimitStore(redis, `${ctx.config.redisPrefix}#${name}:`, name === 'login' ? 'Sign-in' : 'This action') } : {}),
+    ...(redis
+      ? {
+          store: signInLimitStore(
+            redis,
+            `${ctx.config.redisPrefix}#${name}:`,
+            name === 'login' ? 'Sign-in' : 'This action',
+          ),
+        }
+      : {}),
     windowMs: limit.windowMs,
     limit: limit.max,
     standardHeaders: 'draft-8',
@@ -47,6 +69,9 @@ function makeLimiter(ctx: ServerContext, name: string, limit: Limit, key: LimitK
     skipSuccessfulRequests: opts.onlyFailures ?? false,
     skip: (req) => key(req) === null,
     keyGenerator: (req) => key(req) ?? '',
-    handler: (_req, _res, next) => next(new HttpError(429, 'rate_limited', `${message}; try again within ${minutes} minute${minutes === 1 ? '' : 's'}`)),
+    handler: (_req, _res, next) =>
+      next(
+        new HttpError(429, 'rate_limited', `${message}; try again within ${minutes} minute${minutes === 1 ? '' : 's'}`),
+      ),
   });
 }

@@ -26,6 +26,10 @@ function findNul(value: unknown, path: string): string | null {
 
 export const refuseNul: RequestHandler = (req, _res, next) => {
   const where = findNul(req.body, 'body');
-  if (where) throw badRequest(`${where.replace(/^body\.?/, '') || 'The body'} contains a NUL character, which cannot be stored`, { path: where });
+  if (where)
+    throw badRequest(
+      `${where.replace(/^body\.?/, '') || 'The body'} contains a NUL character, which cannot be stored`,
+      { path: where },
+    );
   next();
 };

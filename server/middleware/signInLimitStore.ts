@@ -10,7 +10,6 @@ import { boundedCommand } from '../redis.ts';
 
 type SendCommand = Extract<ConstructorParameters<typeof RedisStore>[0], { sendCommand: unknown }>['sendCommand'];
 
-
 /**
  * RedisStore keeps the promise of its script load from start-up; when Redis was away then, that
  * promise stays rejected for ever. This store loads the scripts again after a failed load.
@@ -47,7 +46,12 @@ class RecoveringRedisStore extends RedisStore {
 
 /** `what`: the action refused while the counter is away, named in the 503 ("Sign-in", "Registration"…). */
 export function signInLimitStore(redis: RedisClient, prefix: string, what = 'Sign-in'): RedisStore {
-  const unavailable = () => unavailableError(`${what} is briefly unavailable (the shared counter cannot be reached); try again in a minute`, 30);
-  const sendCommand = (...args: string[]) => boundedCommand(redis, () => redis.sendCommand(args), unavailable) as ReturnType<SendCommand>;
+  const unavailable = () =>
+    unavailableError(
+      `${what} is briefly unavailable (the shared counter cannot be reached); try again in a minute`,
+      30,
+    );
+  const sendCommand = (...args: string[]) =>
+    boundedCommand(redis, () => redis.sendCommand(args), unavailable) as ReturnType<SendCommand>;
   return new RecoveringRedisStore({ sendCommand, prefix });
 }

@@ -16,7 +16,11 @@ export const compare = ({ password, hash: stored }) => bcrypt.compareSync(passwo
 
 /** The estimator's score (0–4) with its feedback; built on first use (about 0.1 s to index the dictionaries). */
 export async function rate({ password, personal }) {
-  estimator ??= new ZxcvbnFactory({ dictionary: { ...common.dictionary, ...en.dictionary }, graphs: common.adjacencyGraphs, translations: en.translations });
+  estimator ??= new ZxcvbnFactory({
+    dictionary: { ...common.dictionary, ...en.dictionary },
+    graphs: common.adjacencyGraphs,
+    translations: en.translations,
+  });
   const r = await estimator.check(password, personal);
   return { score: r.score, warning: r.feedback.warning ?? null, suggestions: r.feedback.suggestions };
 }

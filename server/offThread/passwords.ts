@@ -5,7 +5,8 @@
 import { Piscina } from 'piscina';
 
 /** The process's flags, less those a worker thread refuses (a server started with `node --input-type=module -e`). */
-export const workerExecArgv = (): string[] => process.execArgv.filter((a) => !a.startsWith('--input-type') && a !== '-e' && a !== '--eval');
+export const workerExecArgv = (): string[] =>
+  process.execArgv.filter((a) => !a.startsWith('--input-type') && a !== '-e' && a !== '--eval');
 
 let pool: Piscina | null = null;
 function passwords(): Piscina {
@@ -19,9 +20,11 @@ function passwords(): Piscina {
   return pool;
 }
 
-export const hashOffThread = (password: string, rounds: number): Promise<string> => passwords().run({ password, rounds }, { name: 'hash' }) as Promise<string>;
+export const hashOffThread = (password: string, rounds: number): Promise<string> =>
+  passwords().run({ password, rounds }, { name: 'hash' }) as Promise<string>;
 
-export const compareOffThread = (password: string, hash: string): Promise<boolean> => passwords().run({ password, hash }, { name: 'compare' }) as Promise<boolean>;
+export const compareOffThread = (password: string, hash: string): Promise<boolean> =>
+  passwords().run({ password, hash }, { name: 'compare' }) as Promise<boolean>;
 
 export interface Rating {
   score: number;
@@ -29,4 +32,5 @@ export interface Rating {
   suggestions: string[];
 }
 
-export const rateOffThread = (password: string, personal: string[]): Promise<Rating> => passwords().run({ password, personal }, { name: 'rate' }) as Promise<Rating>;
+export const rateOffThread = (password: string, personal: string[]): Promise<Rating> =>
+  passwords().run({ password, personal }, { name: 'rate' }) as Promise<Rating>;

@@ -9,7 +9,15 @@ import type { RevisionSnapshot } from '../../shared/schema/revisions.ts';
 import { busy } from '../errors.ts';
 import { FairQueue, QueueFullError, type FairQueueLimits } from './fairQueue.ts';
 import { workerExecArgv } from './passwords.ts';
-import type { AnalysedStack, BuildingAnalysisTask, BuildingSizingOutcome, BuildingSizingTask, EditOutcome, EditTask, PackageTask } from './tasks.ts';
+import type {
+  AnalysedStack,
+  BuildingAnalysisTask,
+  BuildingSizingOutcome,
+  BuildingSizingTask,
+  EditOutcome,
+  EditTask,
+  PackageTask,
+} from './tasks.ts';
 
 export interface OffThread {
   /** `mark`, when given, is printed on every page (a re-drawn copy says so). */
@@ -30,7 +38,8 @@ export function createOffThread(limits: FairQueueLimits = OFF_THREAD_LIMITS): Of
     try {
       return queue.run(key, task);
     } catch (e) {
-      if (e instanceof QueueFullError) throw busy('The server is busy with long work (packages, sizing); try again shortly', e.retryAfterSeconds);
+      if (e instanceof QueueFullError)
+        throw busy('The server is busy with long work (packages, sizing); try again shortly', e.retryAfterSeconds);
       throw e;
     }
   };
@@ -55,11 +64,15 @@ export function createOffThread(limits: FairQueueLimits = OFF_THREAD_LIMITS): Of
     async renderPackage(snapshot, hash, mark) {
       const task: PackageTask = { snapshot, hash, ...(mark ? { mark } : {}) };
       // A Buffer crosses the thread boundary as a plain Uint8Array.
-      const bytes = (await enqueue(`building:${snapshot.building.id}`, () => pool.run(task, { name: 'renderPackage' }))) as Uint8Array;
+      const bytes = (await enqueue(`building:${snapshot.building.id}`, () =>
+        pool.run(task, { name: 'renderPackage' }),
+      )) as Uint8Array;
       return Buffer.from(bytes.buffer, bytes.byteOffset, bytes.byteLength);
     },
-    sizeBuilding: (task, key = 'sizing') => enqueue(key, () => pool.run(task, { name: 'sizeWholeBuilding' }) as Promise<BuildingSizingOutcome>),
-    analyseBuilding: (task, key = 'analysis') => enqueue(key, () => pool.run(task, { name: 'analyseWholeBuilding' }) as Promise<AnalysedStack[]>),
+    sizeBuilding: (task, key = 'sizing') =>
+      enqueue(key, () => pool.run(task, { name: 'sizeWholeBuilding' }) as Promise<BuildingSizingOutcome>),
+    analyseBuilding: (task, key = 'analysis') =>
+      enqueue(key, () => pool.run(task, { name: 'analyseWholeBuilding' }) as Promise<AnalysedStack[]>),
     editLargeStack: (task) => edits.run(task, { name: 'editLargeStack' }) as Promise<EditOutcome>,
     close: async () => {
       await Promise.all([pool.destroy(), edits.destroy()]);

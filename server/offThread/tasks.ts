@@ -40,9 +40,16 @@ export interface BuildingSizingTask {
 }
 
 /** The engine's refusal crosses the thread as data: an Error's own fields do not survive the trip. */
-export type BuildingSizingOutcome = { sizing: BuildingSizing<Omit<SizingStack, 'doc'>> } | { refused: { message: string; code: string } };
+export type BuildingSizingOutcome =
+  { sizing: BuildingSizing<Omit<SizingStack, 'doc'>> } | { refused: { message: string; code: string } };
 
-export function sizeWholeBuilding({ stacks, request, options, levels, sections }: BuildingSizingTask): BuildingSizingOutcome {
+export function sizeWholeBuilding({
+  stacks,
+  request,
+  options,
+  levels,
+  sections,
+}: BuildingSizingTask): BuildingSizingOutcome {
   try {
     return { sizing: sizeBuilding(stacks, request, options, { levels, sections }) };
   } catch (error) {

@@ -9,8 +9,16 @@ import type { Pdf } from './pdf.ts';
 export const SHAPE_MIN_HEIGHT = 140;
 
 function drawAxis(doc: Pdf, axis: CriticalAxis, title: string, box: Box): void {
-  doc.font(FONT.bold).fontSize(SIZE.table).fillColor(COLOUR.ink).text(title, box.x, box.y, { width: box.width, lineBreak: false });
-  doc.font(FONT.regular).fontSize(SIZE.small).fillColor(COLOUR.muted).text(`αcr = ${axis.alphaCr.toFixed(2)}`, box.x, box.y + 10, { width: box.width, lineBreak: false });
+  doc
+    .font(FONT.bold)
+    .fontSize(SIZE.table)
+    .fillColor(COLOUR.ink)
+    .text(title, box.x, box.y, { width: box.width, lineBreak: false });
+  doc
+    .font(FONT.regular)
+    .fontSize(SIZE.small)
+    .fillColor(COLOUR.muted)
+    .text(`αcr = ${axis.alphaCr.toFixed(2)}`, box.x, box.y + 10, { width: box.width, lineBreak: false });
   const shape = axis.shape;
   if (!shape || shape.elevations.length < 2) return;
   const top = box.y + 24;
@@ -23,9 +31,16 @@ function drawAxis(doc: Pdf, axis: CriticalAxis, title: string, box: Box): void {
   doc.lineWidth(0.5).strokeColor(COLOUR.rule).moveTo(mid, yOf(z0)).lineTo(mid, top).stroke();
   // Held points: no lateral displacement there, drawn as short ticks.
   shape.elevations.forEach((z, i) => {
-    if (shape.displacements[i] === 0) doc.moveTo(mid - 4, yOf(z)).lineTo(mid + 4, yOf(z)).stroke();
+    if (shape.displacements[i] === 0)
+      doc
+        .moveTo(mid - 4, yOf(z))
+        .lineTo(mid + 4, yOf(z))
+        .stroke();
   });
-  doc.lineWidth(1).strokeColor(COLOUR.accent).moveTo(mid + shape.displacements[0] * amplitude, yOf(z0));
+  doc
+    .lineWidth(1)
+    .strokeColor(COLOUR.accent)
+    .moveTo(mid + shape.displacements[0] * amplitude, yOf(z0));
   shape.elevations.forEach((z, i) => doc.lineTo(mid + shape.displacements[i] * amplitude, yOf(z)));
   doc.stroke();
 }
@@ -33,7 +48,12 @@ function drawAxis(doc: Pdf, axis: CriticalAxis, title: string, box: Box): void {
 /** Both axes side by side in `box`. */
 export function drawBucklingShapes(doc: Pdf, critical: NonNullable<StackResult['criticalBuckling']>, box: Box): void {
   doc.font(FONT.regular).fontSize(SIZE.small).fillColor(COLOUR.muted);
-  doc.text('Buckled shapes from the critical buckling analysis of the stack (EN 1993-1-1 5.2.1(3)); αcr on the design forces.', box.x, box.y, { width: box.width });
+  doc.text(
+    'Buckled shapes from the critical buckling analysis of the stack (EN 1993-1-1 5.2.1(3)); αcr on the design forces.',
+    box.x,
+    box.y,
+    { width: box.width },
+  );
   const y = doc.y + 4;
   const half = (box.width - 10) / 2;
   const height = box.y + box.height - y;

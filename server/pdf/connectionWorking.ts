@@ -34,11 +34,25 @@ export function drawConnectionChecks(doc: Pdf, stack: SnapshotStack): void {
     doc,
     MARGIN.left,
     COLUMNS,
-    rows.map((r) => [r.where, r.fit, r.NEd, r.tension, r.resistance, r.utilisation, { text: r.statusText, bold: r.status === 'fails', colour: r.status === 'fails' ? COLOUR.fail : undefined }]),
+    rows.map((r) => [
+      r.where,
+      r.fit,
+      r.NEd,
+      r.tension,
+      r.resistance,
+      r.utilisation,
+      { text: r.statusText, bold: r.status === 'fails', colour: r.status === 'fails' ? COLOUR.fail : undefined },
+    ]),
   );
   doc.y += 8;
   for (const r of rows) {
     if (r.steps.length === 0 && r.notes.length === 0) continue;
-    drawWorking(doc, `${r.where}: ${r.statusText}`, r.notes.join(' · '), r.id === stack.results.base?.nodeId ? 'EN 1993-1-8 6.2.5' : 'EN 1991-1-7 A.6, EN 1993-1-8 3.6', r.steps);
+    drawWorking(
+      doc,
+      `${r.where}: ${r.statusText}`,
+      r.notes.join(' · '),
+      r.id === stack.results.base?.nodeId ? 'EN 1993-1-8 6.2.5' : 'EN 1991-1-7 A.6, EN 1993-1-8 3.6',
+      r.steps,
+    );
   }
 }

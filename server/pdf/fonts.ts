@@ -27,6 +27,8 @@ function unshaped(font: Font): Font {
 let loaded: Record<string, Font> | null = null;
 
 export function bundledFonts(): Record<string, Font> {
-  loaded ??= Object.fromEntries(Object.entries(FONT_FILES).map(([name, file]) => [name, unshaped(create(readFileSync(file)))]));
+  loaded ??= Object.fromEntries(
+    Object.entries(FONT_FILES).map(([name, file]) => [name, unshaped(create(readFileSync(file)))]),
+  );
   return loaded;
 }

@@ -26,7 +26,12 @@ export const governingWords: Record<GoverningMode, string> = {
 };
 
 /** For narrow columns headed "Mode"; N+M is the combined check, explained beside each such table. */
-export const governingShort: Record<GoverningMode, string> = { 'cross-section': 'section', 'flexural-y': 'y-y', 'flexural-z': 'z-z', combined: 'N+M' };
+export const governingShort: Record<GoverningMode, string> = {
+  'cross-section': 'section',
+  'flexural-y': 'y-y',
+  'flexural-z': 'z-z',
+  combined: 'N+M',
+};
 
 /** How the package names a lift: its label (L1, L2, … from the bottom), never its internal node id. */
 export const liftName = (lift: { liftId: string; label?: string }): string => lift.label ?? 'lift';

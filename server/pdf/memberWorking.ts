@@ -22,18 +22,32 @@ const STEP_COLUMNS: Column[] = [
 function otherCheck(lift: LiftResult): string {
   const { axial, combined } = liftUtilisations(lift);
   if (combined === null) return '';
-  return lift.governing === 'combined' ? ` · axial check alone ${ratio(axial)}` : ` · combined check ${ratio(combined)}`;
+  return lift.governing === 'combined'
+    ? ` · axial check alone ${ratio(axial)}`
+    : ` · combined check ${ratio(combined)}`;
 }
 
 function liftHeading(doc: Pdf, lift: LiftResult, governing: boolean): void {
   ensureSpace(doc, 120);
   const y = doc.y;
-  doc.font(FONT.bold).fontSize(SIZE.h2).fillColor(COLOUR.ink).text(`Lift ${liftName(lift)}   ${lift.section} ${lift.grade}`, MARGIN.left + 9, y, { width: BODY.width - 9, lineBreak: false });
+  doc
+    .font(FONT.bold)
+    .fontSize(SIZE.h2)
+    .fillColor(COLOUR.ink)
+    .text(`Lift ${liftName(lift)}   ${lift.section} ${lift.grade}`, MARGIN.left + 9, y, {
+      width: BODY.width - 9,
+      lineBreak: false,
+    });
   const words = `${metres(lift.bottom)} to ${metres(lift.top)} m · utilisation ${ratio(lift.utilisation)}, ${governingWords[lift.governing]}${otherCheck(lift)}${governing ? ' · governing lift of the stack' : ''}${lift.utilisation > 1 ? ' · FAILS' : ''}`;
-  doc.font(FONT.regular).fontSize(SIZE.body).fillColor(lift.utilisation > 1 ? COLOUR.fail : COLOUR.muted);
+  doc
+    .font(FONT.regular)
+    .fontSize(SIZE.body)
+    .fillColor(lift.utilisation > 1 ? COLOUR.fail : COLOUR.muted);
   // Wrapped by hand: pdfkit's line wrapper on every lift is a large share of a big package's time.
   const lines = wrapLines(doc, words, BODY.width - 9);
-  lines.forEach((line, k) => textIn(doc, line.text, MARGIN.left + 9, y + 14 + k * 10, BODY.width - 9, 'left', line.width));
+  lines.forEach((line, k) =>
+    textIn(doc, line.text, MARGIN.left + 9, y + 14 + k * 10, BODY.width - 9, 'left', line.width),
+  );
   const bottom = y + 14 + lines.length * 10;
   doc.rect(MARGIN.left, y, 3, bottom - y).fill(utilisationColour(lift.utilisation));
   doc.y = bottom + 6;
@@ -50,8 +64,16 @@ function governingPieceIndex(lift: LiftResult): number {
 /** A bold title, a muted line under it with its reference in the margin, then the steps with theirs. */
 export function drawWorking(doc: Pdf, title: string, basis: string, basisRef: string, steps: CalcStep[]): void {
   ensureSpace(doc, 60);
-  doc.font(FONT.bold).fontSize(SIZE.body).fillColor(COLOUR.ink).text(title, MARGIN.left, doc.y, { width: BODY.width, lineBreak: false });
-  doc.font(FONT.regular).fontSize(SIZE.small).fillColor(COLOUR.muted).text(basis, MARGIN.left, doc.y + 1, { width: BODY.width, lineBreak: false });
+  doc
+    .font(FONT.bold)
+    .fontSize(SIZE.body)
+    .fillColor(COLOUR.ink)
+    .text(title, MARGIN.left, doc.y, { width: BODY.width, lineBreak: false });
+  doc
+    .font(FONT.regular)
+    .fontSize(SIZE.small)
+    .fillColor(COLOUR.muted)
+    .text(basis, MARGIN.left, doc.y + 1, { width: BODY.width, lineBreak: false });
   reference(doc, basisRef, doc.y - 9);
   doc.y += 6;
   const rows = steps.map((step) => {
@@ -81,16 +103,29 @@ export function drawLiftCheck(doc: Pdf, lift: LiftResult, governing: boolean, wi
 
   const piece = lift.pieces[gi];
   if (!piece) return;
-  const title = piece.combined ? `Axial working for the governing piece, ${metres(piece.from)} to ${metres(piece.to)} m` : `Working for the governing piece, ${metres(piece.from)} to ${metres(piece.to)} m`;
-  drawWorking(doc, title, `checked with NEd = ${kN(Math.max(piece.NEdY, piece.NEdZ))} kN, E = 210 000 N/mm²`, 'EN 1993-1-1 3.2.6 (E)', piece.check.steps);
+  const title = piece.combined
+    ? `Axial working for the governing piece, ${metres(piece.from)} to ${metres(piece.to)} m`
+    : `Working for the governing piece, ${metres(piece.from)} to ${metres(piece.to)} m`;
+  drawWorking(
+    doc,
+    title,
+    `checked with NEd = ${kN(Math.max(piece.NEdY, piece.NEdZ))} kN, E = 210 000 N/mm²`,
+    'EN 1993-1-1 3.2.6 (E)',
+    piece.check.steps,
+  );
   drawCombinedWorking(doc, piece);
 }
 
 export function drawMemberChecks(doc: Pdf, stack: SnapshotStack): void {
   const withCombined = hasCombined(stack.results);
   if (withCombined) {
-    doc.font(FONT.regular).fontSize(SIZE.small).fillColor(COLOUR.muted).text(COMBINED_LEGEND, MARGIN.left, doc.y, { width: BODY.width });
+    doc
+      .font(FONT.regular)
+      .fontSize(SIZE.small)
+      .fillColor(COLOUR.muted)
+      .text(COMBINED_LEGEND, MARGIN.left, doc.y, { width: BODY.width });
     doc.y += 8;
   }
-  for (const lift of stack.results.lifts) drawLiftCheck(doc, lift, lift.liftId === stack.results.governingLiftId, withCombined);
+  for (const lift of stack.results.lifts)
+    drawLiftCheck(doc, lift, lift.liftId === stack.results.governingLiftId, withCombined);
 }

@@ -6,7 +6,6 @@ import { COLOUR, FONT, MARGIN, PAGE, SIZE } from './layout.ts';
 import type { Pdf } from './pdf.ts';
 import { textIn, wrapLines } from './table.ts';
 
-
 /** Remembers which part of the package each page belongs to, for the running header. */
 export function trackSections(doc: Pdf): { set(title: string): void; titles: string[] } {
   let current = '';
@@ -20,7 +19,13 @@ export function trackSections(doc: Pdf): { set(title: string): void; titles: str
   };
 }
 
-export function drawPageFurniture(doc: Pdf, s: RevisionSnapshot, hash: string, sectionTitles: string[], mark?: string): void {
+export function drawPageFurniture(
+  doc: Pdf,
+  s: RevisionSnapshot,
+  hash: string,
+  sectionTitles: string[],
+  mark?: string,
+): void {
   const { start, count } = doc.bufferedPageRange();
   const width = PAGE.width - MARGIN.left - MARGIN.right;
   const left = `${s.building.name}${s.building.reference ? ` (${s.building.reference})` : ''}`;
@@ -34,7 +39,10 @@ export function drawPageFurniture(doc: Pdf, s: RevisionSnapshot, hash: string, s
     doc.page.margins.bottom = 0;
 
     const headerY = 30;
-    doc.font(FONT.bold).fontSize(SIZE.small + 0.5).fillColor(COLOUR.accent);
+    doc
+      .font(FONT.bold)
+      .fontSize(SIZE.small + 0.5)
+      .fillColor(COLOUR.accent);
     textIn(doc, left, MARGIN.left, headerY, width * 0.6);
     doc.font(FONT.regular).fillColor(COLOUR.muted);
     textIn(doc, right, MARGIN.left, headerY, width, 'right');
@@ -43,17 +51,33 @@ export function drawPageFurniture(doc: Pdf, s: RevisionSnapshot, hash: string, s
       doc.font(FONT.bold).fillColor(COLOUR.ink);
       textIn(doc, section, MARGIN.left, headerY + 10, width, 'right');
     }
-    doc.moveTo(MARGIN.left, headerY + 22).lineTo(PAGE.width - MARGIN.right, headerY + 22).lineWidth(0.5).stroke(COLOUR.rule);
+    doc
+      .moveTo(MARGIN.left, headerY + 22)
+      .lineTo(PAGE.width - MARGIN.right, headerY + 22)
+      .lineWidth(0.5)
+      .stroke(COLOUR.rule);
     if (mark) {
-      doc.font(FONT.bold).fontSize(SIZE.small + 0.5).fillColor(COLOUR.fail);
+      doc
+        .font(FONT.bold)
+        .fontSize(SIZE.small + 0.5)
+        .fillColor(COLOUR.fail);
       textIn(doc, mark, MARGIN.left, headerY - 14, width);
     }
 
     const footerY = PAGE.height - MARGIN.bottom + 16;
-    doc.moveTo(MARGIN.left, footerY - 6).lineTo(PAGE.width - MARGIN.right, footerY - 6).lineWidth(0.5).stroke(COLOUR.rule);
+    doc
+      .moveTo(MARGIN.left, footerY - 6)
+      .lineTo(PAGE.width - MARGIN.right, footerY - 6)
+      .lineWidth(0.5)
+      .stroke(COLOUR.rule);
     doc.font(FONT.regular).fontSize(SIZE.small).fillColor(COLOUR.muted);
-    noteLines.forEach((line, k) => textIn(doc, line.text, MARGIN.left, footerY + k * 8.5, width - 90, 'left', line.width));
-    doc.font(FONT.bold).fontSize(SIZE.small + 0.5).fillColor(COLOUR.ink);
+    noteLines.forEach((line, k) =>
+      textIn(doc, line.text, MARGIN.left, footerY + k * 8.5, width - 90, 'left', line.width),
+    );
+    doc
+      .font(FONT.bold)
+      .fontSize(SIZE.small + 0.5)
+      .fillColor(COLOUR.ink);
     textIn(doc, `Page ${i - start + 1} of ${count}`, PAGE.width - MARGIN.right - 80, footerY, 80, 'right');
     doc.font(FONT.regular).fontSize(SIZE.small).fillColor(COLOUR.muted);
     textIn(doc, `snapshot ${hash.slice(0, 12)}`, PAGE.width - MARGIN.right - 80, footerY + 10, 80, 'right');

@@ -22,7 +22,11 @@ const forceColumns = (kWidth: number): Column[] => [
   { header: 'Lcr,z', unit: 'm', width: 34, align: 'right' },
 ];
 
-const AXIAL_COLUMNS: Column[] = [...forceColumns(26), { header: 'Util.', width: 30, align: 'right' }, { header: 'Check', width: 56 }];
+const AXIAL_COLUMNS: Column[] = [
+  ...forceColumns(26),
+  { header: 'Util.', width: 30, align: 'right' },
+  { header: 'Check', width: 56 },
+];
 
 /** Same width as the axial layout (the body width), so both sit clear of the reference column. */
 const COMBINED_COLUMNS: Column[] = [
@@ -40,7 +44,9 @@ const LCR_REF = BUCKLING_LENGTH_RULE;
 /** Lengths from the critical buckling analysis: the equivalent length and, beside it, the tabulated factor. */
 const CRITICAL_REF = 'Lcr = π√(EI/Ncr), Ncr = αcr·NEd, EN 1993-1-1 6.3.1.2(1)';
 const tabulated = (p: PieceCheck): string | null =>
-  p.tableKY === undefined && p.tableKZ === undefined ? null : `tabulated ky ${p.tableKY?.toFixed(2) ?? '–'}, kz ${p.tableKZ?.toFixed(2) ?? '–'}`;
+  p.tableKY === undefined && p.tableKZ === undefined
+    ? null
+    : `tabulated ky ${p.tableKY?.toFixed(2) ?? '–'}, kz ${p.tableKZ?.toFixed(2) ?? '–'}`;
 
 function utilisationCell(u: number | null, governs: boolean): Cell {
   if (u === null) return { text: '–', colour: COLOUR.muted };
@@ -49,15 +55,33 @@ function utilisationCell(u: number | null, governs: boolean): Cell {
 
 export function drawPieceTable(doc: Pdf, lift: LiftResult, governingPiece: number, withCombined: boolean): void {
   const rows = lift.pieces.map((p) => {
-    const common: Cell[] = [metres(p.from), metres(p.to), kN(p.NEd), kN(p.NEdY), kN(p.NEdZ), p.kY.toFixed(2), metres(p.LcrY), p.kZ.toFixed(2), metres(p.LcrZ)];
+    const common: Cell[] = [
+      metres(p.from),
+      metres(p.to),
+      kN(p.NEd),
+      kN(p.NEdY),
+      kN(p.NEdZ),
+      p.kY.toFixed(2),
+      metres(p.LcrY),
+      p.kZ.toFixed(2),
+      metres(p.LcrZ),
+    ];
     if (!withCombined) return [...common, utilisationCell(p.utilisation, true), governingWords[p.governing]];
     const combinedGoverns = p.governing === 'combined';
-    return [...common, utilisationCell(axialOf(p), !combinedGoverns), utilisationCell(combinedOf(p), combinedGoverns), governingShort[p.governing]];
+    return [
+      ...common,
+      utilisationCell(axialOf(p), !combinedGoverns),
+      utilisationCell(combinedOf(p), combinedGoverns),
+      governingShort[p.governing],
+    ];
   });
   const critical = lift.pieces.some((p) => tabulated(p) !== null);
   const refs = lift.pieces.map((p, i) => {
     if (!critical) return i === 0 ? LCR_REF : null;
     return [i === 0 ? CRITICAL_REF : null, tabulated(p)].filter(Boolean).join('; ') || null;
   });
-  drawTable(doc, MARGIN.left, withCombined ? COMBINED_COLUMNS : AXIAL_COLUMNS, rows, { refs, shade: (i) => (i === governingPiece ? COLOUR.band : null) });
+  drawTable(doc, MARGIN.left, withCombined ? COMBINED_COLUMNS : AXIAL_COLUMNS, rows, {
+    refs,
+    shade: (i) => (i === governingPiece ? COLOUR.band : null),
+  });
 }

@@ -29,40 +29,59 @@ const LIFT_COLUMNS: Column[] = [
 
 function momentsLine(stack: SnapshotStack, included: boolean): string {
   if (!included) return 'Nominal moments: not included in this revision (axial checks only).';
-  if (!hasCombined(stack.results)) return 'Nominal moments: included, but no beam reactions are given on the column faces of this stack (axial checks only).';
+  if (!hasCombined(stack.results))
+    return 'Nominal moments: included, but no beam reactions are given on the column faces of this stack (axial checks only).';
   return 'Nominal moments: included, from the beam reactions on the column faces; the combined check (N+M) is printed beside the axial check.';
 }
 
-export function drawStackSection(doc: Pdf, stack: SnapshotStack, levels: Level[], index: number, momentsIncluded: boolean): void {
+export function drawStackSection(
+  doc: Pdf,
+  stack: SnapshotStack,
+  levels: Level[],
+  index: number,
+  momentsIncluded: boolean,
+): void {
   doc.addPage();
   doc.y = MARGIN.top;
   heading(doc, `2.${index + 1}  Stack ${stack.name}`);
   const sum = summariseResult(stack.doc, stack.results);
   const line = `${stack.results.lifts.length} lifts · governing lift ${sum.governingLiftLabel ?? '–'} (${sum.governingSection ?? '–'}) · utilisation ${ratio(sum.utilisation)} · document version ${stack.version}`;
-  doc.font(FONT.regular).fontSize(SIZE.body).fillColor(COLOUR.muted).text(line, MARGIN.left, doc.y, { width: FULL_WIDTH });
+  doc
+    .font(FONT.regular)
+    .fontSize(SIZE.body)
+    .fillColor(COLOUR.muted)
+    .text(line, MARGIN.left, doc.y, { width: FULL_WIDTH });
   doc.text(momentsLine(stack, momentsIncluded), MARGIN.left, doc.y + 2, { width: FULL_WIDTH });
   // The line above already says when no face reactions give a moment
-  for (const w of stack.results.warnings.filter((x) => x.message !== NO_FACE_REACTIONS_NOTE.message)) doc.fillColor(COLOUR.near).text(`Note: ${w.message}`, MARGIN.left, doc.y + 2, { width: FULL_WIDTH });
+  for (const w of stack.results.warnings.filter((x) => x.message !== NO_FACE_REACTIONS_NOTE.message))
+    doc.fillColor(COLOUR.near).text(`Note: ${w.message}`, MARGIN.left, doc.y + 2, { width: FULL_WIDTH });
   const top = doc.y + 16;
 
   const height = Math.min(CONTENT_BOTTOM - top - 40, 560);
   drawElevation(doc, stack, levels, { x: MARGIN.left, y: top + 10, width: ELEVATION_WIDTH, height });
 
   doc.y = top;
-  const rows = [...stack.results.lifts].reverse().map((l) => [
-    { text: liftName(l), bold: l.liftId === stack.results.governingLiftId },
-    metres(l.bottom),
-    metres(l.top),
-    l.section,
-    l.grade,
-    { text: ratio(l.utilisation), colour: utilisationColour(l.utilisation), bold: true },
-    governingShort[l.governing],
-  ]);
+  const rows = [...stack.results.lifts]
+    .reverse()
+    .map((l) => [
+      { text: liftName(l), bold: l.liftId === stack.results.governingLiftId },
+      metres(l.bottom),
+      metres(l.top),
+      l.section,
+      l.grade,
+      { text: ratio(l.utilisation), colour: utilisationColour(l.utilisation), bold: true },
+      governingShort[l.governing],
+    ]);
   drawTable(doc, MARGIN.left + ELEVATION_WIDTH + 10, LIFT_COLUMNS, rows);
   const critical = stack.results.criticalBuckling;
   const room = top + 10 + height - (doc.y + 16);
   if (critical && room >= SHAPE_MIN_HEIGHT) {
-    drawBucklingShapes(doc, critical, { x: MARGIN.left + ELEVATION_WIDTH + 10, y: doc.y + 16, width: FULL_WIDTH - ELEVATION_WIDTH - 10, height: Math.min(room, 320) });
+    drawBucklingShapes(doc, critical, {
+      x: MARGIN.left + ELEVATION_WIDTH + 10,
+      y: doc.y + 16,
+      width: FULL_WIDTH - ELEVATION_WIDTH - 10,
+      height: Math.min(room, 320),
+    });
   }
 
   doc.addPage();

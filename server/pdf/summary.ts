@@ -13,7 +13,11 @@ export function heading(doc: Pdf, text: string, size: number = SIZE.h1): void {
 }
 
 export function reference(doc: Pdf, text: string, y: number): void {
-  doc.font(FONT.regular).fontSize(SIZE.small).fillColor(COLOUR.accent).text(text, REF_COLUMN.x, y + 1, { width: REF_COLUMN.width, lineBreak: false });
+  doc
+    .font(FONT.regular)
+    .fontSize(SIZE.small)
+    .fillColor(COLOUR.accent)
+    .text(text, REF_COLUMN.x, y + 1, { width: REF_COLUMN.width, lineBreak: false });
 }
 
 const STATUS_WORDS = { passes: 'passes', fails: 'FAILS', errors: 'errors' } as const;
@@ -56,10 +60,16 @@ export function drawSummary(doc: Pdf, s: RevisionSnapshot): void {
   });
   drawTable(doc, MARGIN.left, columns, rows);
   const noteY = doc.y;
-  doc.font(FONT.regular).fontSize(SIZE.small).fillColor(COLOUR.muted).text(
-    'Axial: the largest of NEd/Nc,Rd, NEd,y/Nb,y,Rd and NEd,z/Nb,z,Rd. N+M: the combined check of a column in simple construction, NEd/Nb,min,Rd + My,Ed/Mb,Rd + 1.5·Mz,Ed/Mz,Rd, where beam reactions on the column faces give nominal moments (– where none act). Utilisation: the larger of the two, over the pieces of the governing lift; Governs names the check (section, y-y or z-z buckling, N+M). A lift passes when it does not exceed 1.0.',
-    MARGIN.left, noteY, { width: BODY.width },
-  );
+  doc
+    .font(FONT.regular)
+    .fontSize(SIZE.small)
+    .fillColor(COLOUR.muted)
+    .text(
+      'Axial: the largest of NEd/Nc,Rd, NEd,y/Nb,y,Rd and NEd,z/Nb,z,Rd. N+M: the combined check of a column in simple construction, NEd/Nb,min,Rd + My,Ed/Mb,Rd + 1.5·Mz,Ed/Mz,Rd, where beam reactions on the column faces give nominal moments (– where none act). Utilisation: the larger of the two, over the pieces of the governing lift; Governs names the check (section, y-y or z-z buckling, N+M). A lift passes when it does not exceed 1.0.',
+      MARGIN.left,
+      noteY,
+      { width: BODY.width },
+    );
   reference(doc, 'EN 1993-1-1 6.2.4, 6.3.1.1', noteY);
   reference(doc, 'EN 1993-1-1 6.3.2 (Mb,Rd), 6.2.5', noteY + 8);
   doc.y += 16;

@@ -18,7 +18,15 @@ export type Cell = string | { text: string; colour?: string; bold?: boolean };
  * One line of text inside [x, x + width], aligned by hand and cut with an ellipsis when too long.
  * Without a width pdfkit skips its line wrapper, which is most of the cost of a large package.
  */
-export function textIn(doc: Pdf, text: string, x: number, y: number, width: number, align: Column['align'] = 'left', measured?: number): void {
+export function textIn(
+  doc: Pdf,
+  text: string,
+  x: number,
+  y: number,
+  width: number,
+  align: Column['align'] = 'left',
+  measured?: number,
+): void {
   let t = text;
   let w = measured ?? doc.widthOfString(t);
   if (w > width) {
@@ -54,7 +62,11 @@ function drawHeader(doc: Pdf, x: number, columns: Column[]): void {
     }
     cx += c.width;
   }
-  doc.moveTo(x, y + ROW_HEIGHT * 2 + 2).lineTo(x + width, y + ROW_HEIGHT * 2 + 2).lineWidth(0.6).stroke(COLOUR.ink);
+  doc
+    .moveTo(x, y + ROW_HEIGHT * 2 + 2)
+    .lineTo(x + width, y + ROW_HEIGHT * 2 + 2)
+    .lineWidth(0.6)
+    .stroke(COLOUR.ink);
   doc.y = y + ROW_HEIGHT * 2 + 4;
 }
 
@@ -97,7 +109,12 @@ function setRefStyle(doc: Pdf): void {
 }
 
 /** Lines of each wrapping cell and of the reference; null for cells drawn on one line. */
-function measureRow(doc: Pdf, columns: Column[], row: Cell[], ref: string | null | undefined): { cells: (Line[] | null)[]; ref: Line[]; height: number } {
+function measureRow(
+  doc: Pdf,
+  columns: Column[],
+  row: Cell[],
+  ref: string | null | undefined,
+): { cells: (Line[] | null)[]; ref: Line[]; height: number } {
   let extra = 0;
   const cells = row.map((cell, j) => {
     const c = columns[j];
@@ -144,15 +161,24 @@ export function drawTable(doc: Pdf, x: number, columns: Column[], rows: Cell[][]
         style = next;
       }
       const lines = measured.cells[j];
-      if (lines) lines.forEach((line, k) => textIn(doc, line.text, cx + 3, y + 1 + k * LINE.cell, c.width - 6, c.align, line.width));
+      if (lines)
+        lines.forEach((line, k) =>
+          textIn(doc, line.text, cx + 3, y + 1 + k * LINE.cell, c.width - 6, c.align, line.width),
+        );
       else if (text) textIn(doc, text, cx + 3, y + 1, c.width - 6, c.align);
       cx += c.width;
     });
     if (measured.ref.length > 0) {
       setRefStyle(doc);
-      measured.ref.forEach((line, k) => textIn(doc, line.text, REF_COLUMN.x, y + 1.5 + k * LINE.ref, REF_COLUMN.width, 'left', line.width));
+      measured.ref.forEach((line, k) =>
+        textIn(doc, line.text, REF_COLUMN.x, y + 1.5 + k * LINE.ref, REF_COLUMN.width, 'left', line.width),
+      );
     }
-    doc.moveTo(x, y + measured.height - 1).lineTo(x + width, y + measured.height - 1).lineWidth(0.25).stroke(COLOUR.rule);
+    doc
+      .moveTo(x, y + measured.height - 1)
+      .lineTo(x + width, y + measured.height - 1)
+      .lineWidth(0.25)
+      .stroke(COLOUR.rule);
     doc.y = y + measured.height;
   });
   doc.y += 6;

@@ -20,4 +20,5 @@ export function liftUtilisations(lift: LiftResult): LiftUtilisations {
   return { axial: largest(lift.pieces.map(axialOf)), combined: largest(lift.pieces.map(combinedOf)) };
 }
 
-export const hasCombined = (results: StackResult): boolean => results.lifts.some((l) => l.pieces.some((p) => p.combined));
+export const hasCombined = (results: StackResult): boolean =>
+  results.lifts.some((l) => l.pieces.some((p) => p.combined));

@@ -33,7 +33,10 @@ export function socketBroadcaster(io: LiveServer, opts: { sharedRooms?: boolean 
     },
     async sessionsEnded({ userId }) {
       if (isShuttingDown(io)) return;
-      io.to(userRoom(userId)).emit('session:ended', { reason: 'signed-out', message: 'You have signed out on this or another device; sign in again' });
+      io.to(userRoom(userId)).emit('session:ended', {
+        reason: 'signed-out',
+        message: 'You have signed out on this or another device; sign in again',
+      });
       io.in(userRoom(userId)).disconnectSockets(true);
     },
     buildingModelChanged(payload) {

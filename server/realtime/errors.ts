@@ -9,10 +9,18 @@ export function toErrorBody(err: unknown, log: Logger): ApiErrorBody {
   if (err instanceof ZodError) {
     const details = err.issues.map((i) => ({ path: i.path.join('.'), message: i.message }));
     const first = details[0];
-    return { error: { code: 'validation_failed', message: first ? `${first.path || 'payload'}: ${first.message}` : 'Invalid payload', details } };
+    return {
+      error: {
+        code: 'validation_failed',
+        message: first ? `${first.path || 'payload'}: ${first.message}` : 'Invalid payload',
+        details,
+      },
+    };
   }
   if (err instanceof HttpError) {
-    return { error: { code: err.code, message: err.message, ...(err.details === undefined ? {} : { details: err.details }) } };
+    return {
+      error: { code: err.code, message: err.message, ...(err.details === undefined ? {} : { details: err.details }) },
+    };
   }
   log.error({ err }, 'live channel handler failed');
   return { error: { code: 'internal', message: 'Something went wrong on the server; the edit was not applied' } };

@@ -22,7 +22,13 @@ import { assertSessionLive } from './session.ts';
 import type { LiveServer, LiveSocket } from './types.ts';
 
 /** The one access policy, as REST applies it (services/accessPolicy.ts), for the socket's user. */
-async function accessTo(ctx: ServerContext, socket: LiveSocket, buildingId: number | null, what: string, minRole: Role): Promise<void> {
+async function accessTo(
+  ctx: ServerContext,
+  socket: LiveSocket,
+  buildingId: number | null,
+  what: string,
+  minRole: Role,
+): Promise<void> {
   await checkAccess(ctx.db, socket.data.user, buildingId, what, minRole);
 }
 
@@ -41,7 +47,12 @@ async function buildingExists(ctx: ServerContext, buildingId: number): Promise<n
  * the payload, runs it, and answers through the acknowledgement with
  * `{ ok: true, data }` or the error shape. A client that sends no acknowledgement is still served.
  */
-function handle<S extends ZodType, T>(guard: () => Promise<void>, log: Logger, schema: S, run: (payload: ReturnType<S['parse']>) => Promise<T>) {
+function handle<S extends ZodType, T>(
+  guard: () => Promise<void>,
+  log: Logger,
+  schema: S,
+  run: (payload: ReturnType<S['parse']>) => Promise<T>,
+) {
   return async (raw: unknown, ack?: unknown): Promise<void> => {
     const reply = typeof ack === 'function' ? (ack as Ack<T>) : () => undefined;
     try {
@@ -115,7 +126,8 @@ export function registerHandlers(ctx: ServerContext, io: LiveServer, socket: Liv
     const stacks = [...socket.rooms].filter((r) => r.startsWith('stack:')).map((r) => Number(r.slice('stack:'.length)));
     // Presence is recomputed once the socket has actually left its rooms.
     socket.once('disconnect', () => {
-      for (const stackId of stacks) void broadcastPresence(io, stackId).catch((err: unknown) => log.warn({ err }, 'presence update failed'));
+      for (const stackId of stacks)
+        void broadcastPresence(io, stackId).catch((err: unknown) => log.warn({ err }, 'presence update failed'));
     });
   });
 }

@@ -28,7 +28,10 @@ export interface Realtime {
 async function useRedis(io: LiveServer, url: string, prefix: string, log: Logger): Promise<() => Promise<void>> {
   const pub = createRedisClient(url, 'live-publish', log, { queueWhileOffline: false });
   const sub = createRedisClient(url, 'live-subscribe', log, { queueWhileOffline: true });
-  await Promise.all([connectBounded(pub, REDIS_START_WAIT_MS, log, 'live-publish'), connectBounded(sub, REDIS_START_WAIT_MS, log, 'live-subscribe')]);
+  await Promise.all([
+    connectBounded(pub, REDIS_START_WAIT_MS, log, 'live-publish'),
+    connectBounded(sub, REDIS_START_WAIT_MS, log, 'live-subscribe'),
+  ]);
   io.adapter(createAdapter(safePublisher(pub, log), sub, { key: `${prefix}#live`, requestsTimeout: 3000 }));
   return async () => {
     await Promise.allSettled([closeRedis(pub), closeRedis(sub)]);
@@ -40,7 +43,10 @@ const MAX_TIMER_MS = 2 ** 31 - 1;
 
 /** Closes the socket when its token expires: a socket never outlives the session that opened it. */
 function endAtExpiry(socket: LiveSocket): void {
-  const timer = setTimeout(() => endSession(socket, 'expired'), Math.min(Math.max(0, socket.data.expiresAt - Date.now()), MAX_TIMER_MS));
+  const timer = setTimeout(
+    () => endSession(socket, 'expired'),
+    Math.min(Math.max(0, socket.data.expiresAt - Date.now()), MAX_TIMER_MS),
+  );
   socket.once('disconnect', () => clearTimeout(timer));
 }
 
@@ -56,7 +62,8 @@ export async function attachRealtime(httpServer: HttpServer, ctx: ServerContext)
   io.use(async (socket, next) => {
     try {
       const auth: unknown = socket.handshake.auth;
-      const token = auth && typeof auth === 'object' && 'token' in auth && typeof auth.token === 'string' ? auth.token : null;
+      const token =
+        auth && typeof auth === 'object' && 'token' in auth && typeof auth.token === 'string' ? auth.token : null;
       if (!token) throw new HttpError(401, 'unauthenticated', 'Sign in to continue');
       const claims = verifySession(ctx.config.jwtSecret, token);
       const { tokenVersion, ...user } = await userForSession(ctx.db, claims);
@@ -71,7 +78,9 @@ export async function attachRealtime(httpServer: HttpServer, ctx: ServerContext)
     }
   });
 
-  const closeLiveRedis = ctx.config.redisUrl ? await useRedis(io, ctx.config.redisUrl, ctx.config.redisPrefix, log) : null;
+  const closeLiveRedis = ctx.config.redisUrl
+    ? await useRedis(io, ctx.config.redisUrl, ctx.config.redisPrefix, log)
+    : null;
   io.on('connection', (socket) => {
     void socket.join(userRoom(socket.data.user.id));
     endAtExpiry(socket);

@@ -22,7 +22,8 @@ export function endSession(socket: LiveSocket, reason: keyof typeof MESSAGES): v
 export async function assertSessionLive(ctx: ServerContext, socket: LiveSocket): Promise<void> {
   let reason: keyof typeof MESSAGES | null = null;
   if (Date.now() >= socket.data.expiresAt) reason = 'expired';
-  else if ((await tokenVersionOf(ctx.db, socket.data.user.id).catch(() => -1)) !== socket.data.tokenVersion) reason = 'signed-out';
+  else if ((await tokenVersionOf(ctx.db, socket.data.user.id).catch(() => -1)) !== socket.data.tokenVersion)
+    reason = 'signed-out';
   if (reason === null) return;
   const why = reason;
   // After the acknowledgement carrying the refusal has gone out.

@@ -17,7 +17,15 @@ import { parseBody } from '../middleware/validate.ts';
 import { accountExistsMessage, verificationMessage } from '../mail/messages.ts';
 import { assertStrongPassword, rate } from '../services/passwordStrength.ts';
 import { readVerification, signToken, signVerification } from '../services/tokens.ts';
-import { changePassword, endSessions, findUserByEmail, hashPassword, registerUser, verifyEmail, verifyLogin } from '../services/users.ts';
+import {
+  changePassword,
+  endSessions,
+  findUserByEmail,
+  hashPassword,
+  registerUser,
+  verifyEmail,
+  verifyLogin,
+} from '../services/users.ts';
 import type { User } from '../../shared/schema/api.ts';
 
 export function registerAuthRoutes(router: Router, ctx: ServerContext): void {
@@ -25,19 +33,46 @@ export function registerAuthRoutes(router: Router, ctx: ServerContext): void {
   const { limits } = config;
   // Counted per client address (req.ip: the proxy's client with TRUST_PROXY set, docs/access.md). Only
   // failed attempts count, and the window ends: the right password is never locked out for longer.
-  const loginLimiter = limiter(ctx, 'login', config.loginRateLimit, byClient, 'Too many failed sign-in attempts', { onlyFailures: true });
+  const loginLimiter = limiter(ctx, 'login', config.loginRateLimit, byClient, 'Too many failed sign-in attempts', {
+    onlyFailures: true,
+  });
   const registerLimits = [
-    limiter(ctx, 'register-client', limits.registerPerClient, byClient, 'Too many registrations from this network address'),
-    limiter(ctx, 'register-address', limits.registerPerAddress, byBodyEmail, 'Too many registrations for this e-mail address'),
+    limiter(
+      ctx,
+      'register-client',
+      limits.registerPerClient,
+      byClient,
+      'Too many registrations from this network address',
+    ),
+    limiter(
+      ctx,
+      'register-address',
+      limits.registerPerAddress,
+      byBodyEmail,
+      'Too many registrations for this e-mail address',
+    ),
   ];
   const verificationLimits = [
     limiter(ctx, 'mail-user', limits.mailPerUser, byUser, 'Too many e-mails sent from this account'),
-    limiter(ctx, 'verify-recipient', limits.mailPerRecipient, (req) => (req.user ? req.user.email : null), 'Too many e-mails to this address'),
+    limiter(
+      ctx,
+      'verify-recipient',
+      limits.mailPerRecipient,
+      (req) => (req.user ? req.user.email : null),
+      'Too many e-mails to this address',
+    ),
   ];
   const strengthLimit = limiter(ctx, 'strength', limits.strengthPerClient, byClient, 'Too many password checks');
   const link = (path: string) => `${config.publicUrl}${path}`;
   const sendVerification = (user: Pick<User, 'id' | 'email'>) =>
-    ctx.mailer.sendMail(verificationMessage({ to: user.email, link: link(`/verify-email?token=${encodeURIComponent(signVerification(config.jwtSecret, user.id, user.email))}`) }));
+    ctx.mailer.sendMail(
+      verificationMessage({
+        to: user.email,
+        link: link(
+          `/verify-email?token=${encodeURIComponent(signVerification(config.jwtSecret, user.id, user.email))}`,
+        ),
+      }),
+    );
 
   // The same answer whether or not the address has an account: a new one gets a verification link, an
   // existing one a note that it already has an account. No token until the address is verified.

@@ -12,7 +12,14 @@ import type { ServerContext } from '../context.ts';
 import { currentAccess, currentUser, requireAuth } from '../middleware/auth.ts';
 import { buildingOfStack, requireRole } from '../middleware/access.ts';
 import { idParam, parseBody } from '../middleware/validate.ts';
-import { getModel, placeStack, putAreaOverrides, putBuildups, putFloorLoad, putGrid } from '../services/buildingModel.ts';
+import {
+  getModel,
+  placeStack,
+  putAreaOverrides,
+  putBuildups,
+  putFloorLoad,
+  putGrid,
+} from '../services/buildingModel.ts';
 
 export function registerBuildingModelRoutes(router: Router, ctx: ServerContext): void {
   const auth = requireAuth(ctx);

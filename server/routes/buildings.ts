@@ -1,7 +1,14 @@
 // Buildings and their members. Parse, call a service, respond.
 import type { Router } from 'express';
 import { z } from 'zod';
-import { addMemberBodySchema, createBuildingBodySchema, emailSchema, idParamSchema, updateBuildingBodySchema, updateMemberBodySchema } from '../../shared/schema/api.ts';
+import {
+  addMemberBodySchema,
+  createBuildingBodySchema,
+  emailSchema,
+  idParamSchema,
+  updateBuildingBodySchema,
+  updateMemberBodySchema,
+} from '../../shared/schema/api.ts';
 import type { ServerContext } from '../context.ts';
 import { currentAccess, currentUser, requireAuth } from '../middleware/auth.ts';
 import { requireRole } from '../middleware/access.ts';
@@ -11,7 +18,14 @@ import { canRead } from '../services/accessPolicy.ts';
 import { findUserById } from '../services/users.ts';
 import { createBuilding, getBuilding, listBuildings } from '../services/buildings.ts';
 import { updateBuilding } from '../services/buildingUpdate.ts';
-import { addMember, cancelInvitation, listMembers, removeMember, updateInvitationRole, updateMemberRole } from '../services/members.ts';
+import {
+  addMember,
+  cancelInvitation,
+  listMembers,
+  removeMember,
+  updateInvitationRole,
+  updateMemberRole,
+} from '../services/members.ts';
 
 export function registerBuildingRoutes(router: Router, ctx: ServerContext): void {
   const auth = requireAuth(ctx);
@@ -47,7 +61,11 @@ export function registerBuildingRoutes(router: Router, ctx: ServerContext): void
   router.post('/buildings/:id/members', auth, lead, ...inviteLimits, async (req, res) => {
     const { email, role } = parseBody(addMemberBodySchema, req);
     const settings = { link: `${ctx.config.publicUrl}/sign-in`, days: ctx.config.invitationDays };
-    res.status(201).json(await addMember(ctx.db, ctx.outbox, currentAccess(req).buildingId, email, role, currentUser(req), settings));
+    res
+      .status(201)
+      .json(
+        await addMember(ctx.db, ctx.outbox, currentAccess(req).buildingId, email, role, currentUser(req), settings),
+      );
   });
   // :memberId is the user id of a member, or the e-mail address of a pending invitation.
   router.patch('/buildings/:id/members/:memberId', auth, lead, async (req, res) => {
@@ -80,7 +98,10 @@ async function revokeLiveAccess(ctx: ServerContext, buildingId: number, userId: 
 }
 
 const memberKeySchema = z.union([
-  z.string().regex(/^\d+$/).transform((s) => ({ userId: idParamSchema.parse(s) })),
+  z
+    .string()
+    .regex(/^\d+$/)
+    .transform((s) => ({ userId: idParamSchema.parse(s) })),
   emailSchema.transform((email) => ({ email })),
 ]);
 function memberKey(value: unknown): { userId: number } | { email: string } {

@@ -6,7 +6,13 @@ import { currentAccess, requireAuth } from '../middleware/auth.ts';
 import { buildingOfStack, requireRole } from '../middleware/access.ts';
 import { idParam } from '../middleware/validate.ts';
 import { safeFileName, toCsv, toXlsx } from '../services/exportsFormats.ts';
-import { buildingResults, RESULT_COLUMNS, RESULTS_NOTE, stackResults, type ResultRow } from '../services/exportsResults.ts';
+import {
+  buildingResults,
+  RESULT_COLUMNS,
+  RESULTS_NOTE,
+  stackResults,
+  type ResultRow,
+} from '../services/exportsResults.ts';
 import { loadsTemplateCsv } from '../services/exportsTemplate.ts';
 import { floorLoadsCsv, gridCsv } from '../services/importsModel.ts';
 
@@ -16,10 +22,17 @@ function sendCsv(res: Response, fileName: string, text: string): void {
   res.attachment(fileName).type('text/csv; charset=utf-8').send(text);
 }
 
-async function sendResults(res: Response, format: 'csv' | 'xlsx', table: { name: string; rows: ResultRow[] }): Promise<void> {
+async function sendResults(
+  res: Response,
+  format: 'csv' | 'xlsx',
+  table: { name: string; rows: ResultRow[] },
+): Promise<void> {
   const fileName = `${safeFileName(table.name)}-results.${format}`;
   if (format === 'csv') return sendCsv(res, fileName, toCsv(RESULT_COLUMNS, table.rows));
-  res.attachment(fileName).type(XLSX_TYPE).send(await toXlsx(table.name, RESULT_COLUMNS, table.rows, RESULTS_NOTE));
+  res
+    .attachment(fileName)
+    .type(XLSX_TYPE)
+    .send(await toXlsx(table.name, RESULT_COLUMNS, table.rows, RESULTS_NOTE));
 }
 
 export function registerExportRoutes(router: Router, ctx: ServerContext): void {

@@ -27,11 +27,23 @@ const receiveFile: RequestHandler = (req: Request, res: Response, next: NextFunc
   receive(req, res, (err: unknown) => {
     if (err === undefined || err === null) return next();
     if (err instanceof multer.MulterError && err.code === 'LIMIT_FILE_SIZE') {
-      return next(new HttpError(413, 'payload_too_large', `The file is larger than ${megabytes} MB; split it and import the parts one by one`, {
-        problems: [{ row: 0, column: null, message: `The file is larger than ${megabytes} MB` }],
-      }));
+      return next(
+        new HttpError(
+          413,
+          'payload_too_large',
+          `The file is larger than ${megabytes} MB; split it and import the parts one by one`,
+          {
+            problems: [{ row: 0, column: null, message: `The file is larger than ${megabytes} MB` }],
+          },
+        ),
+      );
     }
-    if (err instanceof multer.MulterError) return next(badRequest(`The upload was refused: ${err.message}${err.field ? ` (${err.field})` : ''}; send one CSV file in the form field "file"`));
+    if (err instanceof multer.MulterError)
+      return next(
+        badRequest(
+          `The upload was refused: ${err.message}${err.field ? ` (${err.field})` : ''}; send one CSV file in the form field "file"`,
+        ),
+      );
     // busboy's own errors are malformed multipart bodies: the client's fault, never a 500.
     return next(badRequest(`The upload could not be read: ${err instanceof Error ? err.message : String(err)}`));
   });

@@ -7,7 +7,13 @@ import { currentAccess, currentUser, requireAuth } from '../middleware/auth.ts';
 import { requireRole } from '../middleware/access.ts';
 import { byUser, limiter } from '../middleware/rateLimits.ts';
 import { idParam, parseBody, parseQuery } from '../middleware/validate.ts';
-import { buildingOfRevisionId, freezeRevision, getRevision, listRevisions, loadSnapshot } from '../services/revisions.ts';
+import {
+  buildingOfRevisionId,
+  freezeRevision,
+  getRevision,
+  listRevisions,
+  loadSnapshot,
+} from '../services/revisions.ts';
 import { compareRevisions } from '../services/revisionsCompare.ts';
 import { packageFilename, resendRevisionMail } from '../services/revisionsMail.ts';
 import { issuedPackage, packageCopy, redrawCopy } from '../services/revisionPackages.ts';
@@ -33,19 +39,33 @@ export function registerRevisionRoutes(router: Router, ctx: ServerContext): void
   const revisionViewer = requireRole(ctx, 'viewer', ofRevision);
   const revisionLead = requireRole(ctx, 'lead', ofRevision);
   // Both send an e-mail to every member.
-  const mailLimit = limiter(ctx, 'mail-user', ctx.config.limits.mailPerUser, byUser, 'Too many e-mails sent from this account');
+  const mailLimit = limiter(
+    ctx,
+    'mail-user',
+    ctx.config.limits.mailPerUser,
+    byUser,
+    'Too many e-mails sent from this account',
+  );
 
   router.post('/buildings/:id/revisions', stampArrival, auth, requireRole(ctx, 'lead'), mailLimit, async (req, res) => {
     const body = parseBody(freezeBodySchema, req);
     const { buildingId } = currentAccess(req);
     // Results of older rules are brought up to date first: the revision names the current engine version.
     await reanalyseOutdated(ctx, buildingId, currentUser(req));
-    const { id } = await freezeRevision(ctx.db, buildingId, { ...body, link: revisionsLink(ctx, buildingId), engineVersion: ENGINE_VERSION }, currentUser(req), arrivals.get(req) ?? now());
+    const { id } = await freezeRevision(
+      ctx.db,
+      buildingId,
+      { ...body, link: revisionsLink(ctx, buildingId), engineVersion: ENGINE_VERSION },
+      currentUser(req),
+      arrivals.get(req) ?? now(),
+    );
     // Committed, with the package due and the e-mails queued: answer now. The package is drawn once in
     // the background (or by the mail sender, or the first download, whichever comes first).
     res.status(201).json(await getRevision(ctx.db, id));
     void issuedPackage(ctx, id)
-      .catch((err: unknown) => req.log.warn({ err, revisionId: id }, 'package not drawn yet; the mail sender or the first download draws it'))
+      .catch((err: unknown) =>
+        req.log.warn({ err, revisionId: id }, 'package not drawn yet; the mail sender or the first download draws it'),
+      )
       .finally(() => ctx.outbox.kick());
   });
   router.get('/buildings/:id/revisions', auth, requireRole(ctx, 'viewer'), async (req, res) => {
@@ -65,7 +85,10 @@ export function registerRevisionRoutes(router: Router, ctx: ServerContext): void
     const pkg = await packageCopy(ctx, id, copy);
     const { snapshot } = await loadSnapshot(ctx.db, id);
     res.setHeader('X-Package-SHA256', pkg.sha256);
-    res.attachment(packageFilename(snapshot).replace(/\.pdf$/, copy ? `-redrawn-copy-${copy}.pdf` : '.pdf')).type('application/pdf').send(pkg.bytes);
+    res
+      .attachment(packageFilename(snapshot).replace(/\.pdf$/, copy ? `-redrawn-copy-${copy}.pdf` : '.pdf'))
+      .type('application/pdf')
+      .send(pkg.bytes);
   });
   router.post('/revisions/:id/resend', auth, revisionLead, mailLimit, async (req, res) => {
     const id = idParam(req);

@@ -1,7 +1,12 @@
 // Stacks: members read; engineers create and edit; leads delete.
 import type { Router } from 'express';
 import { z } from 'zod';
-import { applyOpsBodySchema, createStackBodySchema, patchStackBodySchema, putStackBodySchema } from '../../shared/schema/api.ts';
+import {
+  applyOpsBodySchema,
+  createStackBodySchema,
+  patchStackBodySchema,
+  putStackBodySchema,
+} from '../../shared/schema/api.ts';
 import type { ServerContext } from '../context.ts';
 import { currentAccess, currentUser, requireAuth } from '../middleware/auth.ts';
 import { buildingOfStack, requireRole } from '../middleware/access.ts';

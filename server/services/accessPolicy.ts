@@ -8,7 +8,9 @@ import { ROLE_RANK, type Role, type User } from '../../shared/schema/api.ts';
 import { forbidden, notFound } from '../errors.ts';
 
 export async function roleIn(db: Knex, buildingId: number, userId: number): Promise<Role | null> {
-  const row = await db('memberships').where({ building_id: buildingId, user_id: userId }).first<{ role: Role } | undefined>('role');
+  const row = await db('memberships')
+    .where({ building_id: buildingId, user_id: userId })
+    .first<{ role: Role } | undefined>('role');
   return row ? row.role : null;
 }
 
@@ -17,7 +19,13 @@ export async function roleIn(db: Knex, buildingId: number, userId: number): Prom
  * gives. `what` names the thing asked for in the 404 ("Building", "Stack", …); buildingId null means it
  * does not exist.
  */
-export async function checkAccess(db: Knex, user: Pick<User, 'id' | 'isAdmin'>, buildingId: number | null, what: string, minRole: Role): Promise<Role | null> {
+export async function checkAccess(
+  db: Knex,
+  user: Pick<User, 'id' | 'isAdmin'>,
+  buildingId: number | null,
+  what: string,
+  minRole: Role,
+): Promise<Role | null> {
   if (buildingId === null) throw notFound(what);
   const role = await roleIn(db, buildingId, user.id);
   if (role === null) {

@@ -29,9 +29,16 @@ export interface StackPlace extends StackPlacement {
 
 export async function analysisInputs(db: Knex, buildingId: number): Promise<AnalysisInputs> {
   const options = await getBuildingOptions(db, buildingId);
-  const rows = await db('levels').where({ building_id: buildingId }).select<{ id: number; elevation: number }[]>('id', 'elevation');
+  const rows = await db('levels')
+    .where({ building_id: buildingId })
+    .select<{ id: number; elevation: number }[]>('id', 'elevation');
   const levels = new Map(rows.map((r) => [String(r.id), Number(r.elevation)]));
-  return { options, levels, sections: await companySectionMap(db, buildingId), model: (await readModel(db, buildingId)).model };
+  return {
+    options,
+    levels,
+    sections: await companySectionMap(db, buildingId),
+    model: (await readModel(db, buildingId)).model,
+  };
 }
 
 /** What each level's floor brings into a stack on the grid; undefined for a stack off the grid. */
@@ -41,7 +48,12 @@ export function floorLoadsOf(inputs: AnalysisInputs, place?: StackPlace) {
 
 /** The results as stored: marked with the rules that produced them, so results of older rules can be found. */
 export function analyse(doc: StackDocument, inputs: AnalysisInputs, place?: StackPlace): StackResult {
-  const options = { levels: inputs.levels, sections: inputs.sections, shapeChecked: true, floorLoads: floorLoadsOf(inputs, place) };
+  const options = {
+    levels: inputs.levels,
+    sections: inputs.sections,
+    shapeChecked: true,
+    floorLoads: floorLoadsOf(inputs, place),
+  };
   return { ...analyseStack(doc, inputs.options, options), engineVersion: ENGINE_VERSION };
 }
 

@@ -3,7 +3,15 @@
 // re-analyses every stack whose derived loads it can change; the live rooms hear after commit.
 import type { Knex } from 'knex';
 import type { User } from '../../shared/schema/api.ts';
-import type { AreaOverride, Buildup, BuildingModel, BuildingModelReply, Grid, Placement, StackPlacement } from '../../shared/schema/building.ts';
+import type {
+  AreaOverride,
+  Buildup,
+  BuildingModel,
+  BuildingModelReply,
+  Grid,
+  Placement,
+  StackPlacement,
+} from '../../shared/schema/building.ts';
 import type { StackDocument } from '../../shared/schema/stack.ts';
 import type { ServerContext } from '../context.ts';
 import { now } from '../db.ts';
@@ -31,8 +39,8 @@ type PlaceRow = Pick<StackRow, (typeof PLACE_COLUMNS)[number]>;
 const onGrid = (row: Pick<StackRow, 'grid_x' | 'grid_y'>) => row.grid_x !== null && row.grid_y !== null;
 
 /** A stack uses a level when a restraint, its cap or support sits on it; found in the stored text, no parse needed. */
-const usesLevel = (row: Pick<StackRow, 'doc'>, levelId: string) => row.doc.includes(`"levelId":${JSON.stringify(levelId)}`);
-
+const usesLevel = (row: Pick<StackRow, 'doc'>, levelId: string) =>
+  row.doc.includes(`"levelId":${JSON.stringify(levelId)}`);
 
 interface ModelChange {
   version: number;
@@ -41,18 +49,33 @@ interface ModelChange {
   placements?: Placement[];
 }
 
-async function reanalyse(trx: Knex, buildingId: number, rows: ModelRow[], userId: number, action: string): Promise<CommittedChange[]> {
+async function reanalyse(
+  trx: Knex,
+  buildingId: number,
+  rows: ModelRow[],
+  userId: number,
+  action: string,
+): Promise<CommittedChange[]> {
   if (rows.length === 0) return [];
   const inputs = await analysisInputs(trx, buildingId);
   const changes: CommittedChange[] = [];
-  for (const row of rows) changes.push(await commitDoc(trx, row, { doc: storedDoc(row), ops: [], touched: new Set(), userId, action }, inputs));
+  for (const row of rows)
+    changes.push(
+      await commitDoc(trx, row, { doc: storedDoc(row), ops: [], touched: new Set(), userId, action }, inputs),
+    );
   return changes;
 }
 
 function broadcast(ctx: ServerContext, buildingId: number, change: ModelChange, user: User): void {
   const by = { userId: user.id, name: user.name };
   try {
-    ctx.broadcaster.buildingModelChanged({ buildingId, version: change.version, model: change.model, by, ...(change.placements ? { placements: change.placements } : {}) });
+    ctx.broadcaster.buildingModelChanged({
+      buildingId,
+      version: change.version,
+      model: change.model,
+      by,
+      ...(change.placements ? { placements: change.placements } : {}),
+    });
   } catch (e) {
     // The change is committed; a failed notification must not turn it into an error reply.
     console.error(`broadcast of building ${buildingId} model v${change.version} failed`, e);
@@ -73,7 +96,12 @@ async function storeAndReanalyse(
 ): Promise<ModelChange> {
   const stored = await writeModel(trx, buildingId, next, version);
   await recordAudit(trx, { userId: user.id, buildingId, action, version: stored, detail });
-  const rows = (await trx<StackRow>('stacks').where({ building_id: buildingId }).orderBy('id').select<ModelRow[]>(...ROW_COLUMNS)).filter(affected);
+  const rows = (
+    await trx<StackRow>('stacks')
+      .where({ building_id: buildingId })
+      .orderBy('id')
+      .select<ModelRow[]>(...ROW_COLUMNS)
+  ).filter(affected);
   return { version: stored, model: next, changes: await reanalyse(trx, buildingId, rows, user.id, action) };
 }
 
@@ -83,27 +111,50 @@ const gridRef = (grid: Grid, gridX: string, gridY: string): string | null => {
   return x && y ? `${x.name}/${y.name}` : null;
 };
 
-const toPlacement = (r: PlaceRow): Placement => ({ id: r.id, name: r.name, gridX: r.grid_x, gridY: r.grid_y, webAlong: r.web_along === 'y' ? 'y' : 'x' });
+const toPlacement = (r: PlaceRow): Placement => ({
+  id: r.id,
+  name: r.name,
+  gridX: r.grid_x,
+  gridY: r.grid_y,
+  webAlong: r.web_along === 'y' ? 'y' : 'x',
+});
 
-export async function putGrid(ctx: ServerContext, buildingId: number, grid: Grid, user: User): Promise<BuildingModelReply> {
+export async function putGrid(
+  ctx: ServerContext,
+  buildingId: number,
+  grid: Grid,
+  user: User,
+): Promise<BuildingModelReply> {
   const change = await ctx.db.transaction(async (trx) => {
     const { model, version } = await readModel(trx, buildingId, { lock: true });
-    const stacks = await trx<StackRow>('stacks').where({ building_id: buildingId }).orderBy('id').select<PlaceRow[]>(...PLACE_COLUMNS);
+    const stacks = await trx<StackRow>('stacks')
+      .where({ building_id: buildingId })
+      .orderBy('id')
+      .select<PlaceRow[]>(...PLACE_COLUMNS);
     const placed = stacks.filter(onGrid);
     const lost = placed.filter((s) => gridRef(grid, s.grid_x!, s.grid_y!) === null);
     if (lost.length) {
-      throw conflict(`Stacks ${lost.map((s) => s.name).join(', ')} stand on grid lines this grid no longer has; take them off the grid first`, { stacks: lost.map((s) => s.id) });
+      throw conflict(
+        `Stacks ${lost.map((s) => s.name).join(', ')} stand on grid lines this grid no longer has; take them off the grid first`,
+        { stacks: lost.map((s) => s.id) },
+      );
     }
     const ids = new Set([...grid.x.lines, ...grid.y.lines].map((l) => l.id));
     const orphan = model.floors.flatMap((f) => f.lines).find((l) => !ids.has(l.gridLineId));
-    if (orphan) throw conflict(`The line load "${orphan.label}" is on a grid line this grid no longer has; remove it first`, { gridLineId: orphan.gridLineId });
+    if (orphan)
+      throw conflict(`The line load "${orphan.label}" is on a grid line this grid no longer has; remove it first`, {
+        gridLineId: orphan.gridLineId,
+      });
     // A stack on the grid is named by its lines, so renaming a line renames its stacks.
     const names = new Map(stacks.map((s) => [s.id, s.name]));
     for (const s of placed) names.set(s.id, gridRef(grid, s.grid_x!, s.grid_y!)!);
     const seen = new Map<string, number>();
     for (const [id, name] of names) {
       const other = seen.get(name.toLowerCase());
-      if (other !== undefined) throw conflict(`Two stacks would be called ${name}; rename one before renaming the grid lines`, { stacks: [other, id] });
+      if (other !== undefined)
+        throw conflict(`Two stacks would be called ${name}; rename one before renaming the grid lines`, {
+          stacks: [other, id],
+        });
       seen.set(name.toLowerCase(), id);
     }
     for (const s of placed) {
@@ -114,23 +165,41 @@ export async function putGrid(ctx: ServerContext, buildingId: number, grid: Grid
       }
     }
     const next: BuildingModel = { ...model, grid };
-    const result = await storeAndReanalyse(trx, buildingId, next, version, user, 'building.grid', onGrid, { x: grid.x.lines.length, y: grid.y.lines.length });
+    const result = await storeAndReanalyse(trx, buildingId, next, version, user, 'building.grid', onGrid, {
+      x: grid.x.lines.length,
+      y: grid.y.lines.length,
+    });
     return { ...result, placements: stacks.map(toPlacement) };
   });
   broadcast(ctx, buildingId, change, user);
   return { ...change.model, version: change.version };
 }
 
-export async function putBuildups(ctx: ServerContext, buildingId: number, buildups: Buildup[], user: User): Promise<BuildingModelReply> {
+export async function putBuildups(
+  ctx: ServerContext,
+  buildingId: number,
+  buildups: Buildup[],
+  user: User,
+): Promise<BuildingModelReply> {
   const change = await ctx.db.transaction(async (trx) => {
     const { model, version } = await readModel(trx, buildingId, { lock: true });
     const ids = new Set(buildups.map((b) => b.id));
     const orphan = model.floors.find((f) => !ids.has(f.buildupId));
-    if (orphan) throw conflict(`Build-up ${orphan.buildupId} is used by a level's floor load; give that level another build-up first`, { levelId: orphan.levelId });
-    const changed = new Set(buildups.filter((b) => JSON.stringify(b) !== JSON.stringify(model.buildups.find((o) => o.id === b.id))).map((b) => b.id));
+    if (orphan)
+      throw conflict(
+        `Build-up ${orphan.buildupId} is used by a level's floor load; give that level another build-up first`,
+        { levelId: orphan.levelId },
+      );
+    const changed = new Set(
+      buildups
+        .filter((b) => JSON.stringify(b) !== JSON.stringify(model.buildups.find((o) => o.id === b.id)))
+        .map((b) => b.id),
+    );
     const levels = model.floors.filter((f) => changed.has(f.buildupId)).map((f) => f.levelId);
     const affected = (row: ModelRow) => onGrid(row) && levels.some((l) => usesLevel(row, l));
-    return storeAndReanalyse(trx, buildingId, { ...model, buildups }, version, user, 'building.buildups', affected, { buildups: buildups.length });
+    return storeAndReanalyse(trx, buildingId, { ...model, buildups }, version, user, 'building.buildups', affected, {
+      buildups: buildups.length,
+    });
   });
   broadcast(ctx, buildingId, change, user);
   return { ...change.model, version: change.version };
@@ -144,18 +213,35 @@ export interface FloorLoadInput {
 
 function assertEdgeLines(grid: Grid, lines: FloorLoadInput['lines']): void {
   for (const line of lines) {
-    const dir = grid.x.lines.some((l) => l.id === line.gridLineId) ? grid.x : grid.y.lines.some((l) => l.id === line.gridLineId) ? grid.y : null;
-    if (!dir) throw unprocessable(`The line load "${line.label}" names grid line ${line.gridLineId}, which the grid does not have`, { gridLineId: line.gridLineId });
+    const dir = grid.x.lines.some((l) => l.id === line.gridLineId)
+      ? grid.x
+      : grid.y.lines.some((l) => l.id === line.gridLineId)
+        ? grid.y
+        : null;
+    if (!dir)
+      throw unprocessable(
+        `The line load "${line.label}" names grid line ${line.gridLineId}, which the grid does not have`,
+        { gridLineId: line.gridLineId },
+      );
     const positions = dir.lines.map((l) => l.position);
     const own = dir.lines.find((l) => l.id === line.gridLineId)!.position;
     if (own !== Math.min(...positions) && own !== Math.max(...positions)) {
-      throw unprocessable(`The line load "${line.label}" must be on an edge grid line (the first or last of its direction)`, { gridLineId: line.gridLineId });
+      throw unprocessable(
+        `The line load "${line.label}" must be on an edge grid line (the first or last of its direction)`,
+        { gridLineId: line.gridLineId },
+      );
     }
   }
 }
 
 /** A level's floor load; `buildupId: null` takes it away (stacks on that level keep their typed loads again). */
-export async function putFloorLoad(ctx: ServerContext, buildingId: number, levelId: number, input: FloorLoadInput, user: User): Promise<BuildingModelReply> {
+export async function putFloorLoad(
+  ctx: ServerContext,
+  buildingId: number,
+  levelId: number,
+  input: FloorLoadInput,
+  user: User,
+): Promise<BuildingModelReply> {
   const key = String(levelId);
   const change = await ctx.db.transaction(async (trx) => {
     const level = await trx('levels').where({ id: levelId, building_id: buildingId }).first('id');
@@ -164,25 +250,37 @@ export async function putFloorLoad(ctx: ServerContext, buildingId: number, level
     const others = model.floors.filter((f) => f.levelId !== key);
     let floors = others;
     if (input.buildupId !== null) {
-      if (!model.buildups.some((b) => b.id === input.buildupId)) throw unprocessable(`The building has no build-up ${input.buildupId}`, { buildupId: input.buildupId });
+      if (!model.buildups.some((b) => b.id === input.buildupId))
+        throw unprocessable(`The building has no build-up ${input.buildupId}`, { buildupId: input.buildupId });
       assertEdgeLines(model.grid, input.lines);
       floors = [...others, { levelId: key, buildupId: input.buildupId, span: input.span, lines: input.lines }];
     }
     const affected = (row: ModelRow) => onGrid(row) && usesLevel(row, key);
-    return storeAndReanalyse(trx, buildingId, { ...model, floors }, version, user, 'level.floor-load', affected, { levelId, ...input });
+    return storeAndReanalyse(trx, buildingId, { ...model, floors }, version, user, 'level.floor-load', affected, {
+      levelId,
+      ...input,
+    });
   });
   broadcast(ctx, buildingId, change, user);
   return { ...change.model, version: change.version };
 }
 
-export async function putAreaOverrides(ctx: ServerContext, stackId: number, overrides: AreaOverride[], user: User): Promise<BuildingModelReply> {
+export async function putAreaOverrides(
+  ctx: ServerContext,
+  stackId: number,
+  overrides: AreaOverride[],
+  user: User,
+): Promise<BuildingModelReply> {
   const row = await loadStackRow(ctx.db, stackId);
   const buildingId = row.building_id;
-  const levelIds = new Set((await ctx.db('levels').where({ building_id: buildingId }).select<{ id: number }[]>('id')).map((l) => String(l.id)));
+  const levelIds = new Set(
+    (await ctx.db('levels').where({ building_id: buildingId }).select<{ id: number }[]>('id')).map((l) => String(l.id)),
+  );
   const seen = new Set<string>();
   for (const o of overrides) {
     if (!levelIds.has(o.levelId)) throw unprocessable(`The building has no level ${o.levelId}`, { levelId: o.levelId });
-    if (seen.has(o.levelId)) throw unprocessable(`Level ${o.levelId} has two areas set by hand; give one`, { levelId: o.levelId });
+    if (seen.has(o.levelId))
+      throw unprocessable(`Level ${o.levelId} has two areas set by hand; give one`, { levelId: o.levelId });
     seen.add(o.levelId);
   }
   const change = await ctx.db.transaction(async (trx) => {
@@ -190,37 +288,70 @@ export async function putAreaOverrides(ctx: ServerContext, stackId: number, over
     const byStack = { ...model.overrides };
     if (overrides.length) byStack[String(stackId)] = overrides;
     else delete byStack[String(stackId)];
-    return storeAndReanalyse(trx, buildingId, { ...model, overrides: byStack }, version, user, 'stack.area-overrides', (r) => r.id === stackId, { stackId, overrides: overrides.length });
+    return storeAndReanalyse(
+      trx,
+      buildingId,
+      { ...model, overrides: byStack },
+      version,
+      user,
+      'stack.area-overrides',
+      (r) => r.id === stackId,
+      { stackId, overrides: overrides.length },
+    );
   });
   broadcast(ctx, buildingId, change, user);
   return { ...change.model, version: change.version };
 }
 
 /** Puts a stack on a crossing of the grid (named after its lines) or takes it off (it keeps its name). */
-export async function placeStack(ctx: ServerContext, stackId: number, placement: StackPlacement, user: User): Promise<Placement> {
+export async function placeStack(
+  ctx: ServerContext,
+  stackId: number,
+  placement: StackPlacement,
+  user: User,
+): Promise<Placement> {
   const change = await ctx.db.transaction(async (trx) => {
     const row = await loadStackRow(trx, stackId, { lock: true });
     const buildingId = row.building_id;
     const { model, version } = await readModel(trx, buildingId);
     let name = row.name;
     if (placement.gridX !== null && placement.gridY !== null) {
-      if (!model.grid.x.lines.some((l) => l.id === placement.gridX)) throw unprocessable(`The grid has no x line ${placement.gridX}`, { gridX: placement.gridX });
-      if (!model.grid.y.lines.some((l) => l.id === placement.gridY)) throw unprocessable(`The grid has no y line ${placement.gridY}`, { gridY: placement.gridY });
+      if (!model.grid.x.lines.some((l) => l.id === placement.gridX))
+        throw unprocessable(`The grid has no x line ${placement.gridX}`, { gridX: placement.gridX });
+      if (!model.grid.y.lines.some((l) => l.id === placement.gridY))
+        throw unprocessable(`The grid has no y line ${placement.gridY}`, { gridY: placement.gridY });
       const taken = await trx('stacks')
         .where({ building_id: buildingId, grid_x: placement.gridX, grid_y: placement.gridY })
         .whereNot({ id: stackId })
         .first<{ name: string } | undefined>('name');
       if (taken) throw conflict(`Stack ${taken.name} already stands there`);
       name = gridRef(model.grid, placement.gridX, placement.gridY)!;
-      const clash = await trx('stacks').where({ building_id: buildingId }).whereNot({ id: stackId }).whereRaw('lower(name) = ?', [name.toLowerCase()]).first<{ id: number } | undefined>('id');
-      if (clash) throw conflict(`This building already has a stack called "${name}"; rename it first`, { id: clash.id });
+      const clash = await trx('stacks')
+        .where({ building_id: buildingId })
+        .whereNot({ id: stackId })
+        .whereRaw('lower(name) = ?', [name.toLowerCase()])
+        .first<{ id: number } | undefined>('id');
+      if (clash)
+        throw conflict(`This building already has a stack called "${name}"; rename it first`, { id: clash.id });
     }
     const columns = { grid_x: placement.gridX, grid_y: placement.gridY, web_along: placement.webAlong, name };
-    await trx('stacks').where({ id: stackId }).update({ ...columns, updated_at: now() });
+    await trx('stacks')
+      .where({ id: stackId })
+      .update({ ...columns, updated_at: now() });
     const placed = { ...row, ...columns };
     const inputs = await analysisInputs(trx, buildingId);
-    const committed = await commitDoc(trx, placed, { doc: storedDoc(placed), ops: [], touched: new Set(), userId: user.id, action: 'stack.place' }, inputs);
-    const placements = (await trx<StackRow>('stacks').where({ building_id: buildingId }).orderBy('id').select<PlaceRow[]>(...PLACE_COLUMNS)).map(toPlacement);
+    const committed = await commitDoc(
+      trx,
+      placed,
+      { doc: storedDoc(placed), ops: [], touched: new Set(), userId: user.id, action: 'stack.place' },
+      inputs,
+    );
+    const placements = (
+      await trx<StackRow>('stacks')
+        .where({ building_id: buildingId })
+        .orderBy('id')
+        .select<PlaceRow[]>(...PLACE_COLUMNS)
+    ).map(toPlacement);
     return { version, model, changes: [committed], placements, placement: toPlacement(placed), buildingId };
   });
   broadcast(ctx, change.buildingId, change, user);

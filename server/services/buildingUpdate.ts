@@ -11,7 +11,12 @@ import { broadcastChange, commitDoc, type CommittedChange } from './stackOps.ts'
 import { precomputedFor, precomputeReanalysis } from './reanalysis.ts';
 import { parseDoc, type StackRow } from './stackRows.ts';
 
-export async function updateBuilding(ctx: ServerContext, id: number, input: Partial<BuildingInput>, user: User): Promise<Building> {
+export async function updateBuilding(
+  ctx: ServerContext,
+  id: number,
+  input: Partial<BuildingInput>,
+  user: User,
+): Promise<Building> {
   // The heavy analysis (critical buckling of every stack) runs on the worker thread, outside the transaction.
   const precomputed = await precomputeReanalysis(ctx, id, input.options);
   const changes = await ctx.db.transaction(async (trx) => {
@@ -29,7 +34,13 @@ export async function updateBuilding(ctx: ServerContext, id: number, input: Part
     if (!optionsChanged) return changes;
     const inputs = await analysisInputs(trx, id);
     for (const stack of await trx<StackRow>('stacks').where({ building_id: id })) {
-      const change = { doc: parseDoc(stack.doc), ops: [], touched: new Set<string>(), userId: user.id, action: 'building.reanalyse' };
+      const change = {
+        doc: parseDoc(stack.doc),
+        ops: [],
+        touched: new Set<string>(),
+        userId: user.id,
+        action: 'building.reanalyse',
+      };
       changes.push(await commitDoc(trx, stack, change, inputs, precomputedFor(precomputed, inputs, stack)));
     }
     return changes;

@@ -24,11 +24,21 @@ async function stackStats(db: Knex, buildingIds: number[]): Promise<Map<number, 
   const rows = await db('stacks')
     .whereIn('building_id', buildingIds)
     .groupBy('building_id')
-    .select<{ building_id: number; n: number | string; worst: number | null }[]>('building_id', db.raw('count(*) as n'), db.raw('max(utilisation) as worst'));
-  return new Map(rows.map((r) => [r.building_id, { n: Number(r.n), worst: r.worst === null ? null : Number(r.worst) }]));
+    .select<{ building_id: number; n: number | string; worst: number | null }[]>(
+      'building_id',
+      db.raw('count(*) as n'),
+      db.raw('max(utilisation) as worst'),
+    );
+  return new Map(
+    rows.map((r) => [r.building_id, { n: Number(r.n), worst: r.worst === null ? null : Number(r.worst) }]),
+  );
 }
 
-function summary(row: BuildingRow, role: Role, stats: { n: number; worst: number | null } | undefined): BuildingSummary {
+function summary(
+  row: BuildingRow,
+  role: Role,
+  stats: { n: number; worst: number | null } | undefined,
+): BuildingSummary {
   return {
     id: row.id,
     name: row.name,
@@ -47,10 +57,20 @@ export async function listBuildings(db: Knex, user: User): Promise<BuildingSumma
       this.on('m.building_id', '=', 'b.id').andOn('m.user_id', '=', db.raw('?', [user.id]));
     })
     .orderBy('b.name')
-    .select<(BuildingRow & { role: Role | null })[]>('b.id', 'b.name', 'b.reference', 'b.options', 'b.updated_at', 'm.role');
+    .select<(BuildingRow & { role: Role | null })[]>(
+      'b.id',
+      'b.name',
+      'b.reference',
+      'b.options',
+      'b.updated_at',
+      'm.role',
+    );
   if (!user.isAdmin) q.whereNotNull('m.role');
   const rows = await q;
-  const stats = await stackStats(db, rows.map((r) => r.id));
+  const stats = await stackStats(
+    db,
+    rows.map((r) => r.id),
+  );
   return rows.map((r) => summary(r, r.role ?? 'viewer', stats.get(r.id)));
 }
 
@@ -78,10 +98,22 @@ export async function createBuilding(db: Knex, user: User, input: BuildingInput)
   const id = await db.transaction(async (trx) => {
     const options = { ...DEFAULT_ANALYSIS_OPTIONS, ...input.options };
     const [row] = await trx('buildings')
-      .insert({ name: input.name, reference: input.reference ?? '', options: JSON.stringify(options), created_by: user.id, created_at: now(), updated_at: now() })
+      .insert({
+        name: input.name,
+        reference: input.reference ?? '',
+        options: JSON.stringify(options),
+        created_by: user.id,
+        created_at: now(),
+        updated_at: now(),
+      })
       .returning<{ id: number }[]>('id');
     await trx('memberships').insert({ building_id: row.id, user_id: user.id, role: 'lead', created_at: now() });
-    await recordAudit(trx, { userId: user.id, buildingId: row.id, action: 'building.create', detail: { name: input.name, options } });
+    await recordAudit(trx, {
+      userId: user.id,
+      buildingId: row.id,
+      action: 'building.create',
+      detail: { name: input.name, options },
+    });
     return row.id;
   });
   return getBuilding(db, id, 'lead');

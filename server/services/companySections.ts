@@ -17,7 +17,9 @@ const parseDims = (text: string): SectionDims => sectionDimsSchema.parse(JSON.pa
 
 /** designation → dimensions, for the engine context of an analysis. */
 export async function companySectionMap(db: Knex, buildingId: number): Promise<Map<string, SectionDims>> {
-  const rows = await db('company_sections').where({ building_id: buildingId }).select<CompanySectionRow[]>('designation', 'dims');
+  const rows = await db('company_sections')
+    .where({ building_id: buildingId })
+    .select<CompanySectionRow[]>('designation', 'dims');
   return new Map(rows.map((r) => [r.designation, parseDims(r.dims)]));
 }
 
@@ -33,10 +35,23 @@ export async function listCompanySections(db: Knex, buildingId: number, q = ''):
 }
 
 /** Adds or replaces sections by designation; runs inside the caller's transaction. */
-export async function upsertCompanySections(trx: Knex, buildingId: number, sections: readonly { designation: string; dims: SectionDims }[]): Promise<void> {
+export async function upsertCompanySections(
+  trx: Knex,
+  buildingId: number,
+  sections: readonly { designation: string; dims: SectionDims }[],
+): Promise<void> {
   for (const s of sections) {
     const dims = JSON.stringify(s.dims);
-    const updated = await trx('company_sections').where({ building_id: buildingId, designation: s.designation }).update({ dims, updated_at: now() });
-    if (updated === 0) await trx('company_sections').insert({ building_id: buildingId, designation: s.designation, dims, created_at: now(), updated_at: now() });
+    const updated = await trx('company_sections')
+      .where({ building_id: buildingId, designation: s.designation })
+      .update({ dims, updated_at: now() });
+    if (updated === 0)
+      await trx('company_sections').insert({
+        building_id: buildingId,
+        designation: s.designation,
+        dims,
+        created_at: now(),
+        updated_at: now(),
+      });
   }
 }

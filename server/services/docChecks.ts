@@ -10,9 +10,12 @@ import { assertUniqueIds } from './stackRows.ts';
 function assertEdgesJoinNodes(doc: StackDocument): void {
   const nodes = new Set(doc.nodes.map((n) => n.id));
   for (const e of doc.edges) {
-    if (!nodes.has(e.source)) throw unprocessable(`Connection ${e.id}: its source ${e.source} does not exist`, { id: e.id });
-    if (!nodes.has(e.target)) throw unprocessable(`Connection ${e.id}: its target ${e.target} does not exist`, { id: e.id });
-    if (e.source === e.target) throw unprocessable(`Connection ${e.id}: an edge cannot join a node to itself`, { id: e.id });
+    if (!nodes.has(e.source))
+      throw unprocessable(`Connection ${e.id}: its source ${e.source} does not exist`, { id: e.id });
+    if (!nodes.has(e.target))
+      throw unprocessable(`Connection ${e.id}: its target ${e.target} does not exist`, { id: e.id });
+    if (e.source === e.target)
+      throw unprocessable(`Connection ${e.id}: an edge cannot join a node to itself`, { id: e.id });
   }
 }
 
@@ -42,14 +45,26 @@ function assertNoLoop(doc: StackDocument): void {
 }
 
 /** Nodes this write touches may only name levels the building has (untouched ones are left as they are). */
-function assertLevelsExist(doc: StackDocument, levels: ReadonlyMap<string, number>, touched: ReadonlySet<string>): void {
+function assertLevelsExist(
+  doc: StackDocument,
+  levels: ReadonlyMap<string, number>,
+  touched: ReadonlySet<string>,
+): void {
   for (const n of doc.nodes) {
     if (!touched.has(n.id) || !('levelId' in n.data) || n.data.levelId === undefined) continue;
-    if (!levels.has(n.data.levelId)) throw unprocessable(`Node ${n.id} sits on level ${n.data.levelId}, which this building no longer has`, { id: n.id, levelId: n.data.levelId });
+    if (!levels.has(n.data.levelId))
+      throw unprocessable(`Node ${n.id} sits on level ${n.data.levelId}, which this building no longer has`, {
+        id: n.id,
+        levelId: n.data.levelId,
+      });
   }
 }
 
-export function assertDocSound(doc: StackDocument, levels: ReadonlyMap<string, number>, touched: ReadonlySet<string>): void {
+export function assertDocSound(
+  doc: StackDocument,
+  levels: ReadonlyMap<string, number>,
+  touched: ReadonlySet<string>,
+): void {
   assertUniqueIds(doc);
   assertEdgesJoinNodes(doc);
   assertNoLoop(doc);

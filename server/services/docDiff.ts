@@ -35,7 +35,8 @@ export function diffDocs(before: StackDocument, after: StackDocument): Op[] {
       continue;
     }
     if (!same(old.data, next.data)) updates.push({ op: 'updateNode', id, data: { ...next.data } });
-    if (next.position && !same(old.position, next.position)) moves.push({ op: 'moveNode', id, position: next.position });
+    if (next.position && !same(old.position, next.position))
+      moves.push({ op: 'moveNode', id, position: next.position });
   }
   for (const [id, node] of newNodes) if (!oldNodes.has(id)) addNodes.push({ op: 'addNode', node });
 

@@ -8,13 +8,22 @@ export type Cell = string | number | undefined;
  * Text that a spreadsheet would run as a formula (= + - @ first) gets a leading apostrophe, which
  * spreadsheets show as text; readCsv takes it off again, so names still round-trip.
  */
-export const spreadsheetSafe = (cell: Cell): Cell => (typeof cell === 'string' && /^[=+\-@\t\r]/.test(cell) ? `'${cell}` : cell);
+export const spreadsheetSafe = (cell: Cell): Cell =>
+  typeof cell === 'string' && /^[=+\-@\t\r]/.test(cell) ? `'${cell}` : cell;
 
 export function toCsv(columns: readonly string[], rows: readonly Partial<Record<string, Cell>>[]): string {
-  return stringify(rows.map((r) => columns.map((c) => spreadsheetSafe(r[c]) ?? '')), { header: true, columns: [...columns], record_delimiter: 'windows' });
+  return stringify(
+    rows.map((r) => columns.map((c) => spreadsheetSafe(r[c]) ?? '')),
+    { header: true, columns: [...columns], record_delimiter: 'windows' },
+  );
 }
 
-export async function toXlsx(sheet: string, columns: readonly string[], rows: readonly Partial<Record<string, Cell>>[], note: string): Promise<Buffer> {
+export async function toXlsx(
+  sheet: string,
+  columns: readonly string[],
+  rows: readonly Partial<Record<string, Cell>>[],
+  note: string,
+): Promise<Buffer> {
   const book = new ExcelJS.Workbook();
   book.creator = 'Stanchion';
   const ws = book.addWorksheet(sheet.replace(/[\\/?*[\]:]/g, '-').slice(0, 31) || 'Results');
@@ -30,4 +39,5 @@ export async function toXlsx(sheet: string, columns: readonly string[], rows: re
 }
 
 /** A file name safe in a Content-Disposition header. */
-export const safeFileName = (name: string): string => name.replace(/[^A-Za-z0-9._-]+/g, '_').replace(/^_+|_+$/g, '') || 'export';
+export const safeFileName = (name: string): string =>
+  name.replace(/[^A-Za-z0-9._-]+/g, '_').replace(/^_+|_+$/g, '') || 'export';

@@ -10,10 +10,28 @@ export { SAFETY_NOTE as RESULTS_NOTE } from '../../shared/safety.ts';
 
 /** Header of each column, with its unit. */
 export const RESULT_COLUMNS = [
-  'stack', 'version', 'lift', 'bottom_m', 'top_m', 'section', 'grade', 'section_class',
-  'NEd_kN', 'Lcr_y_m', 'Lcr_z_m', 'Nc_Rd_kN', 'Nb_y_Rd_kN', 'Nb_z_Rd_kN', 'utilisation', 'governing_check', 'status', 'governing_lift', 'note',
+  'stack',
+  'version',
+  'lift',
+  'bottom_m',
+  'top_m',
+  'section',
+  'grade',
+  'section_class',
+  'NEd_kN',
+  'Lcr_y_m',
+  'Lcr_z_m',
+  'Nc_Rd_kN',
+  'Nb_y_Rd_kN',
+  'Nb_z_Rd_kN',
+  'utilisation',
+  'governing_check',
+  'status',
+  'governing_lift',
+  'note',
   // Splice and base rows (docs/splices-and-bases.md): the tension to carry and the detail's resistance
-  'tension_kN', 'resistance_kN',
+  'tension_kN',
+  'resistance_kN',
 ] as const;
 export type ResultColumn = (typeof RESULT_COLUMNS)[number];
 export type ResultRow = Partial<Record<ResultColumn, string | number>>;
@@ -23,7 +41,10 @@ const kN = (newtons: number): number => round(newtons / 1000, 2);
 
 /** The piece that sets the lift's utilisation (the lowest one on a tie). */
 const governingPiece = (lift: LiftResult): PieceCheck | undefined =>
-  lift.pieces.reduce<PieceCheck | undefined>((worst, p) => (!worst || p.utilisation > worst.utilisation ? p : worst), undefined);
+  lift.pieces.reduce<PieceCheck | undefined>(
+    (worst, p) => (!worst || p.utilisation > worst.utilisation ? p : worst),
+    undefined,
+  );
 
 export function stackResultRows(row: StackRow): ResultRow[] {
   const results = parseResults(row.results);
@@ -53,7 +74,13 @@ function connectionResultRows(results: StackResult, base: ResultRow): ResultRow[
       status: r.status === 'not-given' ? 'not given' : r.status,
       note: [r.fit, ...r.notes].join('; '),
       tension_kN: splice ? round(splice.tension, 2) : number(r.tension),
-      resistance_kN: splice ? (splice.NtRd === null ? undefined : round(splice.NtRd, 2)) : results.base?.NjRd == null ? undefined : round(results.base.NjRd, 2),
+      resistance_kN: splice
+        ? splice.NtRd === null
+          ? undefined
+          : round(splice.NtRd, 2)
+        : results.base?.NjRd == null
+          ? undefined
+          : round(results.base.NjRd, 2),
     });
   }
   return rows;
@@ -86,7 +113,8 @@ function liftRows(results: StackResult, base: ResultRow): ResultRow[] {
   });
 }
 
-const byName = (a: StackRow, b: StackRow) => a.name.localeCompare(b.name, 'en', { numeric: true, sensitivity: 'base' }) || a.id - b.id;
+const byName = (a: StackRow, b: StackRow) =>
+  a.name.localeCompare(b.name, 'en', { numeric: true, sensitivity: 'base' }) || a.id - b.id;
 
 export async function stackResults(db: Knex, stackId: number): Promise<{ name: string; rows: ResultRow[] }> {
   const row = await loadStackRow(db, stackId);

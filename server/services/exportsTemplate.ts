@@ -7,7 +7,9 @@ import { buildingLevels, buildingStacks, floorLoadOf, nodesAtLevel } from './imp
 
 export async function loadsTemplateCsv(db: Knex, buildingId: number): Promise<string> {
   const [stacks, levels] = await Promise.all([buildingStacks(db, buildingId), buildingLevels(db, buildingId)]);
-  stacks.sort((a, b) => a.row.name.localeCompare(b.row.name, 'en', { numeric: true, sensitivity: 'base' }) || a.row.id - b.row.id);
+  stacks.sort(
+    (a, b) => a.row.name.localeCompare(b.row.name, 'en', { numeric: true, sensitivity: 'base' }) || a.row.id - b.row.id,
+  );
   const rows: Record<string, Cell>[] = [];
   for (const stack of stacks) {
     for (const level of levels) {
@@ -15,7 +17,13 @@ export async function loadsTemplateCsv(db: Knex, buildingId: number): Promise<st
       if (nodes.length !== 1) continue;
       const load = floorLoadOf(nodes[0]!);
       // String(n) is the shortest text that reads back as the same number, so the round trip is exact.
-      rows.push({ stack: stack.row.name, level: level.name, Gk_kN: String(load.Gk), Qk_kN: String(load.Qk), category: load.category });
+      rows.push({
+        stack: stack.row.name,
+        level: level.name,
+        Gk_kN: String(load.Gk),
+        Qk_kN: String(load.Qk),
+        category: load.category,
+      });
     }
   }
   return toCsv(LOAD_COLUMNS, rows);

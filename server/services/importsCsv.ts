@@ -3,7 +3,12 @@
 import { createHash } from 'node:crypto';
 import { CsvError, parse, type Options } from 'csv-parse';
 import { parse as parseSync } from 'csv-parse/sync';
-import { MAX_IMPORT_LINE_CHARS, MAX_IMPORT_ROWS, MAX_LISTED_PROBLEMS, type ImportProblem } from '../../shared/schema/imports.ts';
+import {
+  MAX_IMPORT_LINE_CHARS,
+  MAX_IMPORT_ROWS,
+  MAX_LISTED_PROBLEMS,
+  type ImportProblem,
+} from '../../shared/schema/imports.ts';
 
 export interface CsvRow {
   /** Line of the file the row ends on (the header is line 1). */
@@ -27,7 +32,13 @@ const lineOfOffset = (buf: Buffer, offset: number): number => {
 function decodeText(buf: Buffer): { text: string } | { problem: ImportProblem } {
   const nul = buf.indexOf(0);
   if (nul >= 0) {
-    return { problem: { row: lineOfOffset(buf, nul), column: null, message: 'The file holds binary data, not text; save it as CSV (comma-separated values) and try again' } };
+    return {
+      problem: {
+        row: lineOfOffset(buf, nul),
+        column: null,
+        message: 'The file holds binary data, not text; save it as CSV (comma-separated values) and try again',
+      },
+    };
   }
   const decoder = new TextDecoder('utf-8', { fatal: true });
   try {
@@ -42,7 +53,13 @@ function decodeText(buf: Buffer): { text: string } | { problem: ImportProblem } 
       try {
         decoder.decode(buf.subarray(start, stop));
       } catch {
-        return { problem: { row: line, column: null, message: 'This line is not UTF-8 text; save the file as CSV UTF-8 and try again' } };
+        return {
+          problem: {
+            row: line,
+            column: null,
+            message: 'This line is not UTF-8 text; save the file as CSV UTF-8 and try again',
+          },
+        };
       }
       start = stop + 1;
       line += 1;
@@ -61,18 +78,28 @@ function headerProblems(header: string[], columns: readonly string[], required: 
   const expected = columns.join(',');
   if (header.length === 1) {
     for (const [sep, name] of OTHER_SEPARATORS) {
-      if (header[0]!.includes(sep)) return [{ row: 1, column: null, message: `The columns are separated by ${name}; separate them by commas: ${expected}` }];
+      if (header[0]!.includes(sep))
+        return [
+          {
+            row: 1,
+            column: null,
+            message: `The columns are separated by ${name}; separate them by commas: ${expected}`,
+          },
+        ];
     }
   }
   const problems: ImportProblem[] = [];
   const seen = new Set<string>();
   for (const name of header) {
     const known = columns.find((c) => c.toLowerCase() === name.toLowerCase());
-    if (!known) problems.push({ row: 1, column: name, message: `Unknown column "${name}"; the columns are ${expected}` });
+    if (!known)
+      problems.push({ row: 1, column: name, message: `Unknown column "${name}"; the columns are ${expected}` });
     else if (seen.has(known)) problems.push({ row: 1, column: known, message: `Column ${known} appears twice` });
     else seen.add(known);
   }
-  for (const name of required) if (!seen.has(name)) problems.push({ row: 1, column: name, message: `Column ${name} is missing; the columns are ${expected}` });
+  for (const name of required)
+    if (!seen.has(name))
+      problems.push({ row: 1, column: name, message: `Column ${name} is missing; the columns are ${expected}` });
   return problems;
 }
 
@@ -141,16 +168,24 @@ async function parseInSlices(text: string, options: Options): Promise<unknown[]>
 function shapeProblem(text: string, width: number, expected: string): ImportProblem | null {
   let lines = 0;
   let line = 0;
-  for (let start = 0; start < text.length; ) {
+  for (let start = 0; start < text.length;) {
     const end = text.indexOf('\n', start);
     const stop = end < 0 ? text.length : end;
     line += 1;
     if (stop - start > MAX_IMPORT_LINE_CHARS) {
-      return { row: line, column: null, message: `This line is longer than ${MAX_IMPORT_LINE_CHARS} characters; a row holds ${width} short values: ${expected}` };
+      return {
+        row: line,
+        column: null,
+        message: `This line is longer than ${MAX_IMPORT_LINE_CHARS} characters; a row holds ${width} short values: ${expected}`,
+      };
     }
     if (stop - start > 1 || (stop > start && text[start] !== '\r')) lines += 1;
     if (lines > MAX_IMPORT_ROWS + 1) {
-      return { row: line, column: null, message: `The file has more than ${MAX_IMPORT_ROWS} rows; at most ${MAX_IMPORT_ROWS} can be imported at once` };
+      return {
+        row: line,
+        column: null,
+        message: `The file has more than ${MAX_IMPORT_ROWS} rows; at most ${MAX_IMPORT_ROWS} can be imported at once`,
+      };
     }
     start = stop + 1;
   }
@@ -161,12 +196,26 @@ function shapeProblem(text: string, width: number, expected: string): ImportProb
  * Parses the file: UTF-8 text, comma-separated, a header row naming `columns` (any order, any case),
  * at least the `required` ones, then at most MAX_IMPORT_ROWS data rows of the header's width.
  */
-export async function readCsv(buf: Buffer, columns: readonly string[], required: readonly string[] = columns): Promise<CsvRead> {
+export async function readCsv(
+  buf: Buffer,
+  columns: readonly string[],
+  required: readonly string[] = columns,
+): Promise<CsvRead> {
   const expected = columns.join(',');
   const decoded = decodeText(buf);
   if ('problem' in decoded) return { ok: false, problems: [decoded.problem], rows: [] };
   if (decoded.text.replace(/^\uFEFF/, '').trim() === '') {
-    return { ok: false, problems: [{ row: 1, column: null, message: `The file is empty; it needs a header row (${expected}) and one row per entry` }], rows: [] };
+    return {
+      ok: false,
+      problems: [
+        {
+          row: 1,
+          column: null,
+          message: `The file is empty; it needs a header row (${expected}) and one row per entry`,
+        },
+      ],
+      rows: [],
+    };
   }
 
   const shape = shapeProblem(decoded.text, columns.length, expected);
@@ -188,8 +237,19 @@ export async function readCsv(buf: Buffer, columns: readonly string[], required:
     })) as typeof records;
   } catch (e) {
     if (e instanceof CsvError && e.code === 'CSV_MAX_RECORD_SIZE') {
-      const line = typeof (e as CsvError & { lines?: unknown }).lines === 'number' ? (e as CsvError & { lines: number }).lines : 1;
-      return { ok: false, problems: [{ row: line, column: null, message: `This line is longer than ${MAX_IMPORT_LINE_CHARS} characters; a row holds ${columns.length} short values: ${expected}` }], rows: [] };
+      const line =
+        typeof (e as CsvError & { lines?: unknown }).lines === 'number' ? (e as CsvError & { lines: number }).lines : 1;
+      return {
+        ok: false,
+        problems: [
+          {
+            row: line,
+            column: null,
+            message: `This line is longer than ${MAX_IMPORT_LINE_CHARS} characters; a row holds ${columns.length} short values: ${expected}`,
+          },
+        ],
+        rows: [],
+      };
     }
     if (e instanceof CsvError) {
       // The parser stops at the first bad row; reading the lines one by one finds every other one too, so
@@ -204,20 +264,41 @@ export async function readCsv(buf: Buffer, columns: readonly string[], required:
   const [head, ...data] = records;
   const header = head!.record;
   if (header.length > columns.length * 2) {
-    return { ok: false, problems: [{ row: 1, column: null, message: `The header has ${header.length} columns; the columns are ${expected}` }], rows: [] };
+    return {
+      ok: false,
+      problems: [
+        { row: 1, column: null, message: `The header has ${header.length} columns; the columns are ${expected}` },
+      ],
+      rows: [],
+    };
   }
   const problems = headerProblems(header, columns, required);
   if (problems.length > 0) return { ok: false, problems, rows: [] };
-  if (data.length === 0) return { ok: false, problems: [{ row: 2, column: null, message: 'The file has a header but no rows' }], rows: [] };
+  if (data.length === 0)
+    return { ok: false, problems: [{ row: 2, column: null, message: 'The file has a header but no rows' }], rows: [] };
   if (data.length > MAX_IMPORT_ROWS) {
-    return { ok: false, problems: [{ row: MAX_IMPORT_ROWS + 2, column: null, message: `The file has more than ${MAX_IMPORT_ROWS} rows; at most ${MAX_IMPORT_ROWS} can be imported at once` }], rows: [] };
+    return {
+      ok: false,
+      problems: [
+        {
+          row: MAX_IMPORT_ROWS + 2,
+          column: null,
+          message: `The file has more than ${MAX_IMPORT_ROWS} rows; at most ${MAX_IMPORT_ROWS} can be imported at once`,
+        },
+      ],
+      rows: [],
+    };
   }
 
   const names = header.map((h) => columns.find((c) => c.toLowerCase() === h.toLowerCase())!);
   const rows: CsvRow[] = [];
   for (const { info, record } of data) {
     if (record.length !== names.length) {
-      problems.push({ row: info.lines, column: null, message: `This row has ${record.length} values; the header has ${names.length}` });
+      problems.push({
+        row: info.lines,
+        column: null,
+        message: `This row has ${record.length} values; the header has ${names.length}`,
+      });
       continue;
     }
     const cells: Record<string, string> = {};
@@ -235,7 +316,11 @@ export async function readCsv(buf: Buffer, columns: readonly string[], required:
 export function listProblems<T extends { problems: ImportProblem[] }>(preview: T): T & { problemsOmitted?: number } {
   const omitted = preview.problems.length - MAX_LISTED_PROBLEMS;
   if (omitted <= 0) return preview;
-  const more = { row: 0, column: null, message: `… and ${omitted} more problem${omitted === 1 ? '' : 's'} not listed; fix these and upload the file again` };
+  const more = {
+    row: 0,
+    column: null,
+    message: `… and ${omitted} more problem${omitted === 1 ? '' : 's'} not listed; fix these and upload the file again`,
+  };
   return { ...preview, problems: [...preview.problems.slice(0, MAX_LISTED_PROBLEMS), more], problemsOmitted: omitted };
 }
 
@@ -246,7 +331,14 @@ export const problemCount = (preview: { problems: ImportProblem[]; problemsOmitt
 const NUMBER = /^[+-]?(\d+(\.\d*)?|\.\d+)([eE][+-]?\d+)?$/;
 
 /** A number cell in [min, max], or the problem with it. */
-export function numberCell(row: CsvRow, column: string, unit: string, min: number, max: number, problems: ImportProblem[]): number | null {
+export function numberCell(
+  row: CsvRow,
+  column: string,
+  unit: string,
+  min: number,
+  max: number,
+  problems: ImportProblem[],
+): number | null {
   const text = row.cells[column] ?? '';
   const fail = (message: string) => {
     problems.push({ row: row.line, column, message });
@@ -256,10 +348,15 @@ export function numberCell(row: CsvRow, column: string, unit: string, min: numbe
   if (!NUMBER.test(text)) return fail(`"${text}" is not a number (use a point for decimals, e.g. 12.5)`);
   const value = Number(text);
   if (!Number.isFinite(value)) return fail(`"${text}" is not a finite number`);
-  if (value < min) return fail(min === 0 ? `${column} must not be negative` : `${column} must be at least ${min} ${unit}`);
+  if (value < min)
+    return fail(min === 0 ? `${column} must not be negative` : `${column} must be at least ${min} ${unit}`);
   if (value > max) return fail(`${column} must be at most ${max} ${unit}`);
   return value;
 }
 
 /** The file's own problems and those found in its readable rows, in the order of the file. */
-export const byRow = (problems: ImportProblem[]): ImportProblem[] => problems.map((p, i) => [p, i] as const).sort(([a, i], [b, j]) => a.row - b.row || i - j).map(([p]) => p);
+export const byRow = (problems: ImportProblem[]): ImportProblem[] =>
+  problems
+    .map((p, i) => [p, i] as const)
+    .sort(([a, i], [b, j]) => a.row - b.row || i - j)
+    .map(([p]) => p);

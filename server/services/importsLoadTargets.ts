@@ -28,7 +28,11 @@ export async function buildingStacks(db: Knex, buildingId: number): Promise<Stac
 }
 
 export async function buildingLevels(db: Knex, buildingId: number): Promise<LevelRef[]> {
-  const rows = await db('levels').where({ building_id: buildingId }).orderBy('elevation').orderBy('id').select<LevelRef[]>('id', 'name', 'elevation');
+  const rows = await db('levels')
+    .where({ building_id: buildingId })
+    .orderBy('elevation')
+    .orderBy('id')
+    .select<LevelRef[]>('id', 'name', 'elevation');
   return rows.map((r) => ({ id: Number(r.id), name: r.name, elevation: Number(r.elevation) }));
 }
 
@@ -36,9 +40,17 @@ export async function buildingLevels(db: Knex, buildingId: number): Promise<Leve
 export function nodesAtLevel(doc: StackDocument, level: LevelRef): LoadedNode[] {
   const key = String(level.id);
   const near = (z: number) => Math.abs(z - level.elevation) < SAME_ELEVATION_M;
-  return doc.nodes.filter((n): n is LoadedNode => (n.kind === 'restraint' || n.kind === 'cap') && (n.data.levelId === key || near(n.data.elevation)));
+  return doc.nodes.filter(
+    (n): n is LoadedNode =>
+      (n.kind === 'restraint' || n.kind === 'cap') && (n.data.levelId === key || near(n.data.elevation)),
+  );
 }
 
-export const floorLoadOf = (node: LoadedNode): FloorLoad => ({ Gk: node.data.Gk, Qk: node.data.Qk, category: node.data.category });
+export const floorLoadOf = (node: LoadedNode): FloorLoad => ({
+  Gk: node.data.Gk,
+  Qk: node.data.Qk,
+  category: node.data.category,
+});
 
-export const sameLoad = (a: FloorLoad, b: FloorLoad): boolean => a.Gk === b.Gk && a.Qk === b.Qk && a.category === b.category;
+export const sameLoad = (a: FloorLoad, b: FloorLoad): boolean =>
+  a.Gk === b.Gk && a.Qk === b.Qk && a.category === b.category;

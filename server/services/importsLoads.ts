@@ -2,7 +2,14 @@
 // would change, and an apply that writes every stack in one transaction or nothing.
 import type { Knex } from 'knex';
 import type { User } from '../../shared/schema/api.ts';
-import { LOAD_COLUMNS, type ApplyResult, type ImportProblem, type LoadChange, type LoadsPreview, type PreviewBasis } from '../../shared/schema/imports.ts';
+import {
+  LOAD_COLUMNS,
+  type ApplyResult,
+  type ImportProblem,
+  type LoadChange,
+  type LoadsPreview,
+  type PreviewBasis,
+} from '../../shared/schema/imports.ts';
 import type { Op } from '../../shared/schema/ops.ts';
 import { categorySchema, MAX_LOAD_KN, type Category } from '../../shared/schema/stack.ts';
 import { applyOps as applyOpsToDoc, touchedIds } from '../../shared/ops/applyOps.ts';
@@ -10,13 +17,29 @@ import type { ServerContext } from '../context.ts';
 import { conflict, unprocessable } from '../errors.ts';
 import { analysisInputs } from './analysis.ts';
 import { byRow, fileHash, listProblems, numberCell, problemCount, readCsv, type CsvRow } from './importsCsv.ts';
-import { buildingLevels, buildingStacks, floorLoadOf, nodesAtLevel, sameLoad, type LevelRef, type StackRef } from './importsLoadTargets.ts';
+import {
+  buildingLevels,
+  buildingStacks,
+  floorLoadOf,
+  nodesAtLevel,
+  sameLoad,
+  type LevelRef,
+  type StackRef,
+} from './importsLoadTargets.ts';
 import { broadcastChange, commitDoc, type CommittedChange } from './stackOps.ts';
 
 const CATEGORIES = categorySchema.options.join(', ');
 
 /** The one item of `items` named `name` (exactly, else ignoring case), or the problem with it. */
-function byName<T>(items: readonly T[], nameOf: (t: T) => string, name: string, what: string, row: CsvRow, column: string, problems: ImportProblem[]): T | null {
+function byName<T>(
+  items: readonly T[],
+  nameOf: (t: T) => string,
+  name: string,
+  what: string,
+  row: CsvRow,
+  column: string,
+  problems: ImportProblem[],
+): T | null {
   const fail = (message: string) => {
     problems.push({ row: row.line, column, message });
     return null;
@@ -33,13 +56,28 @@ function categoryCell(row: CsvRow, problems: ImportProblem[]): Category | null {
   const text = row.cells.category ?? '';
   const parsed = categorySchema.safeParse(text.toUpperCase());
   if (parsed.success) return parsed.data;
-  problems.push({ row: row.line, column: 'category', message: text === '' ? `category is empty; use one of ${CATEGORIES}` : `"${text}" is not an imposed-load category; use one of ${CATEGORIES} (EN 1991-1-1 Table 6.1; H = roofs)` });
+  problems.push({
+    row: row.line,
+    column: 'category',
+    message:
+      text === ''
+        ? `category is empty; use one of ${CATEGORIES}`
+        : `"${text}" is not an imposed-load category; use one of ${CATEGORIES} (EN 1991-1-1 Table 6.1; H = roofs)`,
+  });
   return null;
 }
 
 /** Checks every row of the file against the building as it is in `db` now. */
 export async function previewLoads(db: Knex, buildingId: number, file: Buffer): Promise<LoadsPreview> {
-  const empty: LoadsPreview = { kind: 'loads', fileHash: fileHash(file), rows: 0, unchanged: 0, changes: [], problems: [], basis: [] };
+  const empty: LoadsPreview = {
+    kind: 'loads',
+    fileHash: fileHash(file),
+    rows: 0,
+    unchanged: 0,
+    changes: [],
+    problems: [],
+    basis: [],
+  };
   const read = await readCsv(file, LOAD_COLUMNS);
   if (!read.ok && read.rows.length === 0) return listProblems({ ...empty, problems: read.problems });
 
@@ -60,9 +98,10 @@ export async function previewLoads(db: Knex, buildingId: number, file: Buffer): 
 
     const nodes = nodesAtLevel(stack.doc, level);
     if (nodes.length !== 1) {
-      const message = nodes.length === 0
-        ? `Stack ${stack.row.name} has no restraint at level ${level.name}`
-        : `Stack ${stack.row.name} has ${nodes.length} restraints at level ${level.name}; set their loads in the stack editor`;
+      const message =
+        nodes.length === 0
+          ? `Stack ${stack.row.name} has no restraint at level ${level.name}`
+          : `Stack ${stack.row.name} has ${nodes.length} restraints at level ${level.name}; set their loads in the stack editor`;
       problems.push({ row: row.line, column: 'level', message });
       continue;
     }
@@ -70,7 +109,11 @@ export async function previewLoads(db: Knex, buildingId: number, file: Buffer): 
     const key = `${stack.row.id}/${node.id}`;
     const first = firstRowOf.get(key);
     if (first !== undefined) {
-      problems.push({ row: row.line, column: 'level', message: `Row ${first} already gives the loads of stack ${stack.row.name} at level ${level.name}` });
+      problems.push({
+        row: row.line,
+        column: 'level',
+        message: `Row ${first} already gives the loads of stack ${stack.row.name} at level ${level.name}`,
+      });
       continue;
     }
     firstRowOf.set(key, row.line);
@@ -79,14 +122,24 @@ export async function previewLoads(db: Knex, buildingId: number, file: Buffer): 
     const after = { Gk, Qk, category };
     const current = floorLoadOf(node);
     if (sameLoad(current, after)) unchanged += 1;
-    else changes.push({ row: row.line, stack: stack.row.name, stackId: stack.row.id, level: level.name, restraintId: node.id, before: current, after });
+    else
+      changes.push({
+        row: row.line,
+        stack: stack.row.name,
+        stackId: stack.row.id,
+        level: level.name,
+        restraintId: node.id,
+        before: current,
+        after,
+      });
   }
   const changed = new Set(changes.map((c) => c.stackId));
   const basis = stacks.filter((s) => changed.has(s.row.id)).map((s) => ({ stackId: s.row.id, version: s.row.version }));
   return listProblems({ ...empty, rows: read.rows.length, unchanged, changes, problems: byRow(problems), basis });
 }
 
-export const problemsMessage = (n: number): string => `The file has ${n} problem${n === 1 ? '' : 's'}; nothing was changed`;
+export const problemsMessage = (n: number): string =>
+  `The file has ${n} problem${n === 1 ? '' : 's'}; nothing was changed`;
 
 /** 409 when a stack of the preview has moved on since, or the preview did not cover it. */
 function assertBasis(basis: PreviewBasis, current: PreviewBasis): void {
@@ -103,10 +156,17 @@ export interface ApplyFields {
 }
 
 /** Writes every change of the file in one transaction, then tells the live rooms. */
-export async function applyLoads(ctx: ServerContext, buildingId: number, file: Buffer, fields: ApplyFields, user: User): Promise<ApplyResult> {
+export async function applyLoads(
+  ctx: ServerContext,
+  buildingId: number,
+  file: Buffer,
+  fields: ApplyFields,
+  user: User,
+): Promise<ApplyResult> {
   const committed = await ctx.db.transaction(async (trx) => {
     const preview = await previewLoads(trx, buildingId, file);
-    if (fields.fileHash && fields.fileHash !== preview.fileHash) throw conflict('This is not the file that was previewed; preview it again');
+    if (fields.fileHash && fields.fileHash !== preview.fileHash)
+      throw conflict('This is not the file that was previewed; preview it again');
     if (preview.problems.length > 0) throw unprocessable(problemsMessage(problemCount(preview)), preview);
     if (fields.basis) assertBasis(fields.basis, preview.basis);
 
@@ -122,10 +182,20 @@ export async function applyLoads(ctx: ServerContext, buildingId: number, file: B
       const ops = opsByStack.get(stack.row.id);
       if (!ops) continue;
       const doc = applyOpsToDoc(stack.doc, ops);
-      done.push(await commitDoc(trx, stack.row, { doc, ops, touched: touchedIds(stack.doc, ops), userId: user.id, action: 'import.loads' }, inputs));
+      done.push(
+        await commitDoc(
+          trx,
+          stack.row,
+          { doc, ops, touched: touchedIds(stack.doc, ops), userId: user.id, action: 'import.loads' },
+          inputs,
+        ),
+      );
     }
     return { done, applied: preview.changes.length };
   });
   for (const c of committed.done) broadcastChange(ctx, c, { userId: user.id, name: user.name });
-  return { applied: committed.applied, stacks: committed.done.map((c) => ({ stackId: c.stackId, version: c.version })) };
+  return {
+    applied: committed.applied,
+    stacks: committed.done.map((c) => ({ stackId: c.stackId, version: c.version })),
+  };
 }

@@ -4,7 +4,13 @@
 import type { Knex } from 'knex';
 import type { User } from '../../shared/schema/api.ts';
 import { gridSchema, type BuildingModel, type FloorLoad, type Grid } from '../../shared/schema/building.ts';
-import { FLOOR_LOAD_COLUMNS, GRID_COLUMNS, type FloorLoadsPreview, type GridPreview, type ImportProblem } from '../../shared/schema/imports.ts';
+import {
+  FLOOR_LOAD_COLUMNS,
+  GRID_COLUMNS,
+  type FloorLoadsPreview,
+  type GridPreview,
+  type ImportProblem,
+} from '../../shared/schema/imports.ts';
 import type { ServerContext } from '../context.ts';
 import { conflict, unprocessable } from '../errors.ts';
 import { putFloorLoad, putGrid } from './buildingModel.ts';
@@ -50,12 +56,20 @@ export async function previewGrid(db: Knex, buildingId: number, file: Buffer): P
   for (const row of read.rows) {
     const direction = lower(row.cells.direction ?? '');
     if (direction !== 'x' && direction !== 'y') {
-      problems.push({ row: row.line, column: 'direction', message: `"${row.cells.direction ?? ''}" is not a direction; use x or y` });
+      problems.push({
+        row: row.line,
+        column: 'direction',
+        message: `"${row.cells.direction ?? ''}" is not a direction; use x or y`,
+      });
       continue;
     }
     const name = (row.cells.name ?? '').trim();
     if (!name || name.length > 20) {
-      problems.push({ row: row.line, column: 'name', message: name ? 'name must be at most 20 characters' : 'name is empty' });
+      problems.push({
+        row: row.line,
+        column: 'name',
+        message: name ? 'name must be at most 20 characters' : 'name is empty',
+      });
       continue;
     }
     const position = numberCell(row, 'position_m', 'm', -10_000, 10_000, problems);
@@ -66,7 +80,11 @@ export async function previewGrid(db: Knex, buildingId: number, file: Buffer): P
       continue;
     }
     if (lines.some((l) => Math.abs(l.position - position) < 0.001)) {
-      problems.push({ row: row.line, column: 'position_m', message: `${name} is at the position of another ${direction} line` });
+      problems.push({
+        row: row.line,
+        column: 'position_m',
+        message: `${name} is at the position of another ${direction} line`,
+      });
       continue;
     }
     const existing = current[direction].lines.find((l) => lower(l.name) === lower(name));
@@ -77,15 +95,28 @@ export async function previewGrid(db: Knex, buildingId: number, file: Buffer): P
       ids.add(id);
     }
     lines.push({ id, name, position });
-    rows.push({ row: row.line, direction, name, position, change: !existing ? 'new' : existing.position === position ? 'same' : 'moved' });
+    rows.push({
+      row: row.line,
+      direction,
+      name,
+      position,
+      change: !existing ? 'new' : existing.position === position ? 'same' : 'moved',
+    });
   }
   const valid = problems.length === 0 && gridSchema.safeParse(next).success;
   return { fileHash: hash, grid: valid ? next : null, rows, problems };
 }
 
-export async function applyGrid(ctx: ServerContext, buildingId: number, file: Buffer, hash: string | undefined, user: User): Promise<BuildingModel> {
+export async function applyGrid(
+  ctx: ServerContext,
+  buildingId: number,
+  file: Buffer,
+  hash: string | undefined,
+  user: User,
+): Promise<BuildingModel> {
   const preview = await previewGrid(ctx.db, buildingId, file);
-  if (preview.problems.length > 0 || !preview.grid) throw unprocessable(problemsMessage(preview.problems.length), preview);
+  if (preview.problems.length > 0 || !preview.grid)
+    throw unprocessable(problemsMessage(preview.problems.length), preview);
   if (hash && hash !== preview.fileHash) throw conflict('The file is not the one previewed; preview it again');
   const { version: _version, ...model } = await putGrid(ctx, buildingId, preview.grid, user);
   return model;
@@ -103,7 +134,11 @@ export async function previewFloorLoads(db: Knex, buildingId: number, file: Buff
   for (const row of read.rows) {
     const level = levels.find((l) => lower(l.name) === lower(row.cells.level ?? ''));
     if (!level) {
-      problems.push({ row: row.line, column: 'level', message: `The building has no level "${row.cells.level ?? ''}"` });
+      problems.push({
+        row: row.line,
+        column: 'level',
+        message: `The building has no level "${row.cells.level ?? ''}"`,
+      });
       continue;
     }
     if (seen.has(level.id)) {
@@ -119,18 +154,36 @@ export async function previewFloorLoads(db: Knex, buildingId: number, file: Buff
     }
     const spanText = lower(row.cells.span ?? '') || 'two-way';
     if (spanText !== 'two-way' && spanText !== 'x' && spanText !== 'y') {
-      problems.push({ row: row.line, column: 'span', message: `"${row.cells.span}" is not a span; use two-way, x or y` });
+      problems.push({
+        row: row.line,
+        column: 'span',
+        message: `"${row.cells.span}" is not a span; use two-way, x or y`,
+      });
       continue;
     }
     const before = model.floors.find((f) => f.levelId === level.id);
     const after = buildup?.id ?? null;
     const same = (before?.buildupId ?? null) === after && (after === null || before?.span === spanText);
-    rows.push({ row: row.line, levelId: level.id, level: level.name, buildupId: after, buildup: buildup?.name ?? null, span: spanText, change: same ? 'same' : 'changed' });
+    rows.push({
+      row: row.line,
+      levelId: level.id,
+      level: level.name,
+      buildupId: after,
+      buildup: buildup?.name ?? null,
+      span: spanText,
+      change: same ? 'same' : 'changed',
+    });
   }
   return { fileHash: hash, rows, problems };
 }
 
-export async function applyFloorLoads(ctx: ServerContext, buildingId: number, file: Buffer, hash: string | undefined, user: User): Promise<{ applied: number }> {
+export async function applyFloorLoads(
+  ctx: ServerContext,
+  buildingId: number,
+  file: Buffer,
+  hash: string | undefined,
+  user: User,
+): Promise<{ applied: number }> {
   const preview = await previewFloorLoads(ctx.db, buildingId, file);
   if (preview.problems.length > 0) throw unprocessable(problemsMessage(preview.problems.length), preview);
   if (hash && hash !== preview.fileHash) throw conflict('The file is not the one previewed; preview it again');
@@ -140,7 +193,13 @@ export async function applyFloorLoads(ctx: ServerContext, buildingId: number, fi
     if (row.change === 'same') continue;
     // Line loads on the level are kept when it keeps a floor load.
     const lines: FloorLoad['lines'] = model.floors.find((f) => f.levelId === row.levelId)?.lines ?? [];
-    await putFloorLoad(ctx, buildingId, Number(row.levelId), { buildupId: row.buildupId, span: row.span, lines: row.buildupId === null ? [] : lines }, user);
+    await putFloorLoad(
+      ctx,
+      buildingId,
+      Number(row.levelId),
+      { buildupId: row.buildupId, span: row.span, lines: row.buildupId === null ? [] : lines },
+      user,
+    );
     applied += 1;
   }
   return { applied };

@@ -5,7 +5,13 @@ import { designationKey, findSection } from '../../shared/catalogue/index.ts';
 import { isEngineError } from '../../shared/engine/errors.ts';
 import { validateDims } from '../../shared/engine/validateDims.ts';
 import type { User } from '../../shared/schema/api.ts';
-import { SECTION_COLUMNS, type ApplyResult, type ImportProblem, type SectionChange, type SectionsPreview } from '../../shared/schema/imports.ts';
+import {
+  SECTION_COLUMNS,
+  type ApplyResult,
+  type ImportProblem,
+  type SectionChange,
+  type SectionsPreview,
+} from '../../shared/schema/imports.ts';
 import type { Op } from '../../shared/schema/ops.ts';
 import { MAX_DIMENSION_MM, sectionDimsSchema, type SectionDims } from '../../shared/schema/stack.ts';
 import { applyOps as applyOpsToDoc, touchedIds } from '../../shared/ops/applyOps.ts';
@@ -19,7 +25,11 @@ import { buildingStacks } from './importsLoadTargets.ts';
 import { broadcastChange, commitDoc, type CommittedChange } from './stackOps.ts';
 
 const DIMS_BY_SHAPE = { I: ['h', 'b', 'tw', 'tf', 'r'], RHS: ['h', 'b', 't'], CHS: ['d', 't'] } as const;
-const MAKES = { I: ['rolled', 'welded'], RHS: ['hot-finished', 'cold-formed'], CHS: ['hot-finished', 'cold-formed'] } as const;
+const MAKES = {
+  I: ['rolled', 'welded'],
+  RHS: ['hot-finished', 'cold-formed'],
+  CHS: ['hot-finished', 'cold-formed'],
+} as const;
 const ALL_DIMS = ['h', 'b', 'tw', 'tf', 'r', 'd', 't'] as const;
 type Shape = keyof typeof DIMS_BY_SHAPE;
 
@@ -27,7 +37,11 @@ function shapeCell(row: CsvRow, problems: ImportProblem[]): { shape: Shape; squa
   const text = (row.cells.shape ?? '').toUpperCase();
   if (text === 'I' || text === 'RHS' || text === 'CHS') return { shape: text, square: false };
   if (text === 'SHS') return { shape: 'RHS', square: true };
-  problems.push({ row: row.line, column: 'shape', message: `"${row.cells.shape ?? ''}" is not a shape; use I, SHS, RHS or CHS` });
+  problems.push({
+    row: row.line,
+    column: 'shape',
+    message: `"${row.cells.shape ?? ''}" is not a shape; use I, SHS, RHS or CHS`,
+  });
   return null;
 }
 
@@ -38,7 +52,12 @@ function dimsOf(row: CsvRow, problems: ImportProblem[]): SectionDims | null {
   if (!kind) return null;
   const make = (row.cells.make ?? '').toLowerCase();
   const makes: readonly string[] = MAKES[kind.shape];
-  if (!makes.includes(make)) problems.push({ row: row.line, column: 'make', message: `"${row.cells.make ?? ''}" is not a make of ${kind.shape} sections; use ${makes.join(' or ')}` });
+  if (!makes.includes(make))
+    problems.push({
+      row: row.line,
+      column: 'make',
+      message: `"${row.cells.make ?? ''}" is not a make of ${kind.shape} sections; use ${makes.join(' or ')}`,
+    });
 
   const used: readonly string[] = DIMS_BY_SHAPE[kind.shape];
   const dims: Record<string, number> = {};
@@ -46,7 +65,12 @@ function dimsOf(row: CsvRow, problems: ImportProblem[]): SectionDims | null {
     const column = `${d}_mm`;
     const text = row.cells[column] ?? '';
     if (!used.includes(d)) {
-      if (text !== '') problems.push({ row: row.line, column, message: `${column} is not a dimension of ${kind.shape} sections; leave it empty` });
+      if (text !== '')
+        problems.push({
+          row: row.line,
+          column,
+          message: `${column} is not a dimension of ${kind.shape} sections; leave it empty`,
+        });
       continue;
     }
     // A square hollow section may give its side once; a welded I section may have no root radius.
@@ -58,13 +82,22 @@ function dimsOf(row: CsvRow, problems: ImportProblem[]): SectionDims | null {
     }
   }
   if (kind.square && dims.h !== undefined && dims.b !== undefined && dims.h !== dims.b) {
-    problems.push({ row: row.line, column: 'b_mm', message: 'An SHS has equal sides; use RHS for a rectangular section' });
+    problems.push({
+      row: row.line,
+      column: 'b_mm',
+      message: 'An SHS has equal sides; use RHS for a rectangular section',
+    });
   }
   if (problems.length > before) return null;
 
   const parsed = sectionDimsSchema.safeParse({ shape: kind.shape, make, ...dims });
   if (!parsed.success) {
-    for (const issue of parsed.error.issues) problems.push({ row: row.line, column: issue.path.length ? `${String(issue.path[0])}_mm` : null, message: issue.message });
+    for (const issue of parsed.error.issues)
+      problems.push({
+        row: row.line,
+        column: issue.path.length ? `${String(issue.path[0])}_mm` : null,
+        message: issue.message,
+      });
     return null;
   }
   try {
@@ -77,11 +110,23 @@ function dimsOf(row: CsvRow, problems: ImportProblem[]): SectionDims | null {
 }
 
 export async function previewSections(db: Knex, buildingId: number, file: Buffer): Promise<SectionsPreview> {
-  const empty: SectionsPreview = { kind: 'sections', fileHash: fileHash(file), rows: 0, unchanged: 0, changes: [], problems: [] };
+  const empty: SectionsPreview = {
+    kind: 'sections',
+    fileHash: fileHash(file),
+    rows: 0,
+    unchanged: 0,
+    changes: [],
+    problems: [],
+  };
   const read = await readCsv(file, SECTION_COLUMNS, ['designation', 'shape', 'make']);
   if (!read.ok && read.rows.length === 0) return listProblems({ ...empty, problems: read.problems });
 
-  const existing = new Map([...(await companySectionMap(db, buildingId))].map(([designation, dims]) => [designationKey(designation), { designation, dims }]));
+  const existing = new Map(
+    [...(await companySectionMap(db, buildingId))].map(([designation, dims]) => [
+      designationKey(designation),
+      { designation, dims },
+    ]),
+  );
   // Rows of the wrong width are reported together with the problems of every other row.
   const problems: ImportProblem[] = read.ok ? [] : [...read.problems];
   const changes: SectionChange[] = [];
@@ -92,40 +137,80 @@ export async function previewSections(db: Knex, buildingId: number, file: Buffer
     const name = row.cells.designation ?? '';
     const key = designationKey(name);
     if (name === '') problems.push({ row: row.line, column: 'designation', message: 'designation is empty' });
-    else if (name.length > 80) problems.push({ row: row.line, column: 'designation', message: 'designation is longer than 80 characters' });
-    else if (findSection(name)) problems.push({ row: row.line, column: 'designation', message: `"${name}" is a standard section in the catalogue; give your own section another name` });
-    else if (firstRowOf.has(key)) problems.push({ row: row.line, column: 'designation', message: `Row ${firstRowOf.get(key)} already defines "${name}"` });
+    else if (name.length > 80)
+      problems.push({ row: row.line, column: 'designation', message: 'designation is longer than 80 characters' });
+    else if (findSection(name))
+      problems.push({
+        row: row.line,
+        column: 'designation',
+        message: `"${name}" is a standard section in the catalogue; give your own section another name`,
+      });
+    else if (firstRowOf.has(key))
+      problems.push({
+        row: row.line,
+        column: 'designation',
+        message: `Row ${firstRowOf.get(key)} already defines "${name}"`,
+      });
     firstRowOf.set(key, firstRowOf.get(key) ?? row.line);
     const dims = dimsOf(row, problems);
     if (!dims || problems.length > before) continue;
     const current = existing.get(key);
     if (current && JSON.stringify(current.dims) === JSON.stringify(dims)) unchanged += 1;
-    else changes.push({ row: row.line, designation: current?.designation ?? name, before: current?.dims ?? null, after: dims });
+    else
+      changes.push({
+        row: row.line,
+        designation: current?.designation ?? name,
+        before: current?.dims ?? null,
+        after: dims,
+      });
   }
   return listProblems({ ...empty, rows: read.rows.length, unchanged, changes, problems: byRow(problems) });
 }
 
 /** Writes the sections, then re-analyses (as an edit of their lifts) the stacks that use a changed one. */
-export async function applySections(ctx: ServerContext, buildingId: number, file: Buffer, fields: { fileHash?: string }, user: User): Promise<ApplyResult> {
+export async function applySections(
+  ctx: ServerContext,
+  buildingId: number,
+  file: Buffer,
+  fields: { fileHash?: string },
+  user: User,
+): Promise<ApplyResult> {
   const committed = await ctx.db.transaction(async (trx) => {
     const preview = await previewSections(trx, buildingId, file);
-    if (fields.fileHash && fields.fileHash !== preview.fileHash) throw conflict('This is not the file that was previewed; preview it again');
+    if (fields.fileHash && fields.fileHash !== preview.fileHash)
+      throw conflict('This is not the file that was previewed; preview it again');
     if (preview.problems.length > 0) throw unprocessable(problemsMessage(problemCount(preview)), preview);
-    await upsertCompanySections(trx, buildingId, preview.changes.map((c) => ({ designation: c.designation, dims: c.after })));
+    await upsertCompanySections(
+      trx,
+      buildingId,
+      preview.changes.map((c) => ({ designation: c.designation, dims: c.after })),
+    );
 
     const changedKeys = new Set(preview.changes.map((c) => designationKey(c.designation)));
     const inputs = await analysisInputs(trx, buildingId);
     const done: CommittedChange[] = [];
     for (const stack of await buildingStacks(trx, buildingId)) {
       const ops: Op[] = stack.doc.nodes.flatMap((n): Op[] =>
-        n.kind === 'lift' && typeof n.data.section === 'string' && changedKeys.has(designationKey(n.data.section)) ? [{ op: 'updateNode', id: n.id, data: { section: n.data.section } }] : [],
+        n.kind === 'lift' && typeof n.data.section === 'string' && changedKeys.has(designationKey(n.data.section))
+          ? [{ op: 'updateNode', id: n.id, data: { section: n.data.section } }]
+          : [],
       );
       if (ops.length === 0) continue;
       const doc = applyOpsToDoc(stack.doc, ops);
-      done.push(await commitDoc(trx, stack.row, { doc, ops, touched: touchedIds(stack.doc, ops), userId: user.id, action: 'import.sections' }, inputs));
+      done.push(
+        await commitDoc(
+          trx,
+          stack.row,
+          { doc, ops, touched: touchedIds(stack.doc, ops), userId: user.id, action: 'import.sections' },
+          inputs,
+        ),
+      );
     }
     return { done, applied: preview.changes.length };
   });
   for (const c of committed.done) broadcastChange(ctx, c, { userId: user.id, name: user.name });
-  return { applied: committed.applied, stacks: committed.done.map((c) => ({ stackId: c.stackId, version: c.version })) };
+  return {
+    applied: committed.applied,
+    stacks: committed.done.map((c) => ({ stackId: c.stackId, version: c.version })),
+  };
 }

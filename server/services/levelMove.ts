@@ -31,7 +31,13 @@ function floorOf(z: number, levels: ReadonlyMap<string, number>): string | null 
 }
 
 /** Ops that carry one stack's document along with the level; empty when the stack does not use the level. */
-export function followLevel(doc: StackDocument, levelId: string, from: number, to: number, levels: ReadonlyMap<string, number>): Op[] {
+export function followLevel(
+  doc: StackDocument,
+  levelId: string,
+  from: number,
+  to: number,
+  levels: ReadonlyMap<string, number>,
+): Op[] {
   const delta = to - from;
   return doc.nodes.flatMap((n): Op[] => {
     if ((n.kind === 'restraint' || n.kind === 'cap' || n.kind === 'support') && n.data.levelId === levelId) {
@@ -44,7 +50,13 @@ export function followLevel(doc: StackDocument, levelId: string, from: number, t
   });
 }
 
-export async function planLevelMove(db: Knex, buildingId: number, levelId: string, from: number, to: number): Promise<LevelMovePlan> {
+export async function planLevelMove(
+  db: Knex,
+  buildingId: number,
+  levelId: string,
+  from: number,
+  to: number,
+): Promise<LevelMovePlan> {
   const before = await analysisInputs(db, buildingId);
   const inputs: AnalysisInputs = { ...before, levels: new Map(before.levels).set(levelId, to) };
   const rows = await db<StackRow>('stacks').where({ building_id: buildingId }).orderBy('name');
@@ -56,9 +68,13 @@ export async function planLevelMove(db: Knex, buildingId: number, levelId: strin
     if (!ops.length) continue;
     const moved = applyOps(doc, ops);
     const known = new Set(analyse(doc, before).errors.map((e) => e.message));
-    const breaks = analyse(moved, inputs).errors.map((e) => e.message).filter((m) => !known.has(m));
+    const breaks = analyse(moved, inputs)
+      .errors.map((e) => e.message)
+      .filter((m) => !known.has(m));
     moves.push({ row, doc: moved, ops });
-    const splices = ops.filter((op) => op.op === 'updateNode' && doc.nodes.find((n) => n.id === op.id)?.kind === 'splice').length;
+    const splices = ops.filter(
+      (op) => op.op === 'updateNode' && doc.nodes.find((n) => n.id === op.id)?.kind === 'splice',
+    ).length;
     preview.stacks.push({ stackId: row.id, name: row.name, nodes: ops.length - splices, splices, breaks });
   }
   return { moves, inputs, preview };

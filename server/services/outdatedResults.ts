@@ -20,7 +20,20 @@ export async function reanalyseOutdated(ctx: ServerContext, buildingId: number, 
     if (outdated.length === 0) return done;
     const inputs = await analysisInputs(trx, buildingId);
     for (const stack of outdated) {
-      done.push(await commitDoc(trx, stack, { doc: parseDoc(stack.doc), ops: [], touched: new Set<string>(), userId: user.id, action: 'engine.reanalyse' }, inputs));
+      done.push(
+        await commitDoc(
+          trx,
+          stack,
+          {
+            doc: parseDoc(stack.doc),
+            ops: [],
+            touched: new Set<string>(),
+            userId: user.id,
+            action: 'engine.reanalyse',
+          },
+          inputs,
+        ),
+      );
     }
     return done;
   });
@@ -36,14 +49,22 @@ export async function reanalyseOutdated(ctx: ServerContext, buildingId: number, 
 export async function reanalyseOutdatedOnStart(db: Knex): Promise<number> {
   // Stored results are compact JSON with engineVersion as their last key (analysis.ts)
   const marked = `%"engineVersion":"${ENGINE_VERSION}"}`;
-  const rows = await db<StackRow>('stacks').whereNot('results', 'like', marked).select<{ id: number; building_id: number }[]>('id', 'building_id');
+  const rows = await db<StackRow>('stacks')
+    .whereNot('results', 'like', marked)
+    .select<{ id: number; building_id: number }[]>('id', 'building_id');
   let done = 0;
   for (const { id, building_id: buildingId } of rows) {
     try {
       await db.transaction(async (trx) => {
         const row = await trx<StackRow>('stacks').where({ id }).first();
         if (!row || parseResults(row.results).engineVersion === ENGINE_VERSION) return;
-        const change = { doc: parseDoc(row.doc), ops: [], touched: new Set<string>(), userId: null, action: 'engine.reanalyse' };
+        const change = {
+          doc: parseDoc(row.doc),
+          ops: [],
+          touched: new Set<string>(),
+          userId: null,
+          action: 'engine.reanalyse',
+        };
         await commitDoc(trx, row, change, await analysisInputs(trx, buildingId));
         done++;
       });

@@ -21,28 +21,55 @@ export function inputsKey(inputs: AnalysisInputs): string {
 }
 
 /** Worker-thread results under the new options when they ask for the critical buckling analysis; null otherwise. */
-export async function precomputeReanalysis(ctx: ServerContext, buildingId: number, change: Partial<AnalysisOptions> | undefined): Promise<Precomputed | null> {
+export async function precomputeReanalysis(
+  ctx: ServerContext,
+  buildingId: number,
+  change: Partial<AnalysisOptions> | undefined,
+): Promise<Precomputed | null> {
   if (change?.bucklingLengths !== 'critical') return null;
   const row = await ctx.db('buildings').where({ id: buildingId }).first<{ options: string } | undefined>('options');
   if (!row) return null;
   const before = parseOptions(row.options);
   const options = { ...before, ...change };
   if (JSON.stringify(before) === JSON.stringify(options)) return null;
-  const rows = await ctx.db<StackRow>('stacks').where({ building_id: buildingId }).select('id', 'name', 'version', 'doc', 'grid_x', 'grid_y', 'web_along');
+  const rows = await ctx
+    .db<StackRow>('stacks')
+    .where({ building_id: buildingId })
+    .select('id', 'name', 'version', 'doc', 'grid_x', 'grid_y', 'web_along');
   const inputs = { ...(await analysisInputs(ctx.db, buildingId)), options };
-  const analysed = await ctx.offThread.analyseBuilding({
-    stacks: rows.map((r) => ({ id: r.id, name: r.name, doc: parseDoc(r.doc), floorLoads: floorLoadsOf(inputs, placeOf(r)) })),
-    options,
-    levels: inputs.levels,
-    sections: inputs.sections,
-  }, `building:${buildingId}`);
+  const analysed = await ctx.offThread.analyseBuilding(
+    {
+      stacks: rows.map((r) => ({
+        id: r.id,
+        name: r.name,
+        doc: parseDoc(r.doc),
+        floorLoads: floorLoadsOf(inputs, placeOf(r)),
+      })),
+      options,
+      levels: inputs.levels,
+      sections: inputs.sections,
+    },
+    `building:${buildingId}`,
+  );
   const version = new Map(rows.map((r) => [r.id, r.version]));
-  const byStack = new Map(analysed.map((a) => [a.id, { version: version.get(a.id) ?? -1, results: { ...(JSON.parse(a.resultJson) as StackResult), engineVersion: ENGINE_VERSION } }]));
+  const byStack = new Map(
+    analysed.map((a) => [
+      a.id,
+      {
+        version: version.get(a.id) ?? -1,
+        results: { ...(JSON.parse(a.resultJson) as StackResult), engineVersion: ENGINE_VERSION },
+      },
+    ]),
+  );
   return { inputsKey: inputsKey(inputs), byStack };
 }
 
 /** The precomputed result for a stack row, if it still holds for it. */
-export function precomputedFor(pre: Precomputed | null, inputs: AnalysisInputs, stack: StackRow): StackResult | undefined {
+export function precomputedFor(
+  pre: Precomputed | null,
+  inputs: AnalysisInputs,
+  stack: StackRow,
+): StackResult | undefined {
   if (!pre || pre.inputsKey !== inputsKey(inputs)) return undefined;
   const found = pre.byStack.get(stack.id);
   return found && found.version === stack.version ? found.results : undefined;

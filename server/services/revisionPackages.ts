@@ -34,9 +34,17 @@ export interface StoredPackage {
 const sha256 = (b: Buffer) => createHash('sha256').update(b).digest('hex');
 
 export const packageTampered = (copy: number) =>
-  new HttpError(500, 'package_tampered', `The stored package${copy ? ` (copy ${copy})` : ''} of this revision does not match its SHA-256: it was changed after it was drawn. A lead can have a re-drawn copy made, marked as such.`);
+  new HttpError(
+    500,
+    'package_tampered',
+    `The stored package${copy ? ` (copy ${copy})` : ''} of this revision does not match its SHA-256: it was changed after it was drawn. A lead can have a re-drawn copy made, marked as such.`,
+  );
 export const packageMissing = (copy: number) =>
-  new HttpError(500, 'package_missing', `The stored package${copy ? ` (copy ${copy})` : ''} of this revision has been lost. A lead can have a re-drawn copy made, marked as such.`);
+  new HttpError(
+    500,
+    'package_missing',
+    `The stored package${copy ? ` (copy ${copy})` : ''} of this revision has been lost. A lead can have a re-drawn copy made, marked as such.`,
+  );
 
 async function packageRow(db: Knex, revisionId: number, copy: number): Promise<PackageRow | undefined> {
   return db<PackageRow>('revision_packages').where({ revision_id: revisionId, copy }).first();
@@ -78,7 +86,9 @@ async function readOrDraw(ctx: ServerContext, revisionId: number): Promise<Store
   } else {
     const reason = 'drawn on first need: the revision was frozen before packages were stored';
     try {
-      await ctx.db('revision_packages').insert({ revision_id: revisionId, copy: 0, reason, ...fields, created_at: now() });
+      await ctx
+        .db('revision_packages')
+        .insert({ revision_id: revisionId, copy: 0, reason, ...fields, created_at: now() });
     } catch (e) {
       // Another process stored its drawing first; that one is kept and read below.
       if (!isUniqueViolation(e)) throw e;
@@ -119,14 +129,33 @@ export async function redrawCopy(ctx: ServerContext, revisionId: number, user: U
   if (!fault) throw conflict('The issued package is intact; only a tampered or lost package may be re-drawn');
   const { snapshot, hash } = await loadSnapshot(ctx.db, revisionId);
   const at = now();
-  const copies = await ctx.db('revision_packages').where({ revision_id: revisionId }).max<{ m: number | null }[]>({ m: 'copy' });
+  const copies = await ctx
+    .db('revision_packages')
+    .where({ revision_id: revisionId })
+    .max<{ m: number | null }[]>({ m: 'copy' });
   const copy = Number(copies[0]?.m ?? 0) + 1;
   const bytes = await ctx.offThread.renderPackage(snapshot, hash, redrawnMark(snapshot.code, copy, at));
   const reason = `re-drawn by ${user.name}: ${fault.code}`;
   await onUniqueViolation(
-    () => ctx.db('revision_packages').insert({ revision_id: revisionId, copy, bytes, sha256: sha256(bytes), size: bytes.length, reason, drawn_by: user.id, drawn_at: at, created_at: at }),
+    () =>
+      ctx.db('revision_packages').insert({
+        revision_id: revisionId,
+        copy,
+        bytes,
+        sha256: sha256(bytes),
+        size: bytes.length,
+        reason,
+        drawn_by: user.id,
+        drawn_at: at,
+        created_at: at,
+      }),
     () => conflict('Another re-drawn copy was made at the same moment; reload'),
   );
-  await recordAudit(ctx.db, { userId: user.id, buildingId: snapshot.building.id, action: 'revision.redraw', detail: { revisionId, copy, reason } });
+  await recordAudit(ctx.db, {
+    userId: user.id,
+    buildingId: snapshot.building.id,
+    action: 'revision.redraw',
+    detail: { revisionId, copy, reason },
+  });
   return { copy, bytes, sha256: sha256(bytes), reason };
 }

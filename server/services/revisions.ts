@@ -38,7 +38,22 @@ export interface RevisionRow {
   worst_utilisation: number | null;
   failing_lifts: number;
 }
-const SUMMARY_COLUMNS = ['id', 'building_id', 'code', 'purpose', 'note', 'acknowledgement', 'hash', 'engine_version', 'frozen_by', 'frozen_by_name', 'frozen_at', 'stack_count', 'worst_utilisation', 'failing_lifts'];
+const SUMMARY_COLUMNS = [
+  'id',
+  'building_id',
+  'code',
+  'purpose',
+  'note',
+  'acknowledgement',
+  'hash',
+  'engine_version',
+  'frozen_by',
+  'frozen_by_name',
+  'frozen_at',
+  'stack_count',
+  'worst_utilisation',
+  'failing_lifts',
+];
 
 export interface FreezeInput {
   /** Where the e-mail's link points (the revisions page of the building). */
@@ -64,15 +79,27 @@ interface FailingLift {
 function validationReasons(stacks: SnapshotStack[]): FreezeRefusal['reasons'] {
   const reasons: FreezeRefusal['reasons'] = [];
   for (const s of stacks) {
-    for (const e of s.results.errors) reasons.push({ stackId: s.id, stack: s.name, ...(e.nodeId ? { nodeId: e.nodeId } : {}), message: e.message });
-    if (s.results.errors.length === 0 && s.results.lifts.length === 0) reasons.push({ stackId: s.id, stack: s.name, message: 'The stack has no lifts to check' });
+    for (const e of s.results.errors)
+      reasons.push({ stackId: s.id, stack: s.name, ...(e.nodeId ? { nodeId: e.nodeId } : {}), message: e.message });
+    if (s.results.errors.length === 0 && s.results.lifts.length === 0)
+      reasons.push({ stackId: s.id, stack: s.name, message: 'The stack has no lifts to check' });
   }
   return reasons;
 }
 
 // EN 1993-1-1 6.3.1.1(1): NEd/Nb,Rd ≤ 1.0; a lift above 1.0 fails.
 const failingLifts = (stacks: SnapshotStack[]): FailingLift[] =>
-  stacks.flatMap((s) => s.results.lifts.filter((l) => l.utilisation > 1).map((l) => ({ stack: s.name, liftId: l.liftId, label: l.label ?? 'lift', section: l.section, utilisation: l.utilisation })));
+  stacks.flatMap((s) =>
+    s.results.lifts
+      .filter((l) => l.utilisation > 1)
+      .map((l) => ({
+        stack: s.name,
+        liftId: l.liftId,
+        label: l.label ?? 'lift',
+        section: l.section,
+        utilisation: l.utilisation,
+      })),
+  );
 
 function acknowledgementText(failing: FailingLift[], user: User): string {
   const list = failing.map((f) => `${f.stack} ${f.label} (${f.section}, ${f.utilisation.toFixed(3)})`).join('; ');
@@ -93,34 +120,76 @@ async function nextCode(trx: Knex, buildingId: number, purpose: RevisionPurpose)
  * exact: parallel or retried freezes give one revision. Without it, `arrivedAt` (when the request
  * reached this process) catches the requests that arrived before another freeze committed.
  */
-export async function freezeRevision(db: Knex, buildingId: number, input: FreezeInput, user: User, arrivedAt: string): Promise<{ id: number; snapshot: RevisionSnapshot; hash: string }> {
-  return onUniqueViolation(() => freezeIn(db, buildingId, input, user, arrivedAt), () => conflict('Another freeze of this building took the same revision code at the same moment; reload the revisions'));
+export async function freezeRevision(
+  db: Knex,
+  buildingId: number,
+  input: FreezeInput,
+  user: User,
+  arrivedAt: string,
+): Promise<{ id: number; snapshot: RevisionSnapshot; hash: string }> {
+  return onUniqueViolation(
+    () => freezeIn(db, buildingId, input, user, arrivedAt),
+    () =>
+      conflict('Another freeze of this building took the same revision code at the same moment; reload the revisions'),
+  );
 }
 
-async function freezeIn(db: Knex, buildingId: number, input: FreezeInput, user: User, arrivedAt: string): Promise<{ id: number; snapshot: RevisionSnapshot; hash: string }> {
+async function freezeIn(
+  db: Knex,
+  buildingId: number,
+  input: FreezeInput,
+  user: User,
+  arrivedAt: string,
+): Promise<{ id: number; snapshot: RevisionSnapshot; hash: string }> {
   return db.transaction(async (trx) => {
     const buildingQuery = trx('buildings').where({ id: buildingId });
     if (isPostgres(trx)) buildingQuery.forUpdate();
-    const building = await buildingQuery.first<{ id: number; name: string; reference: string } | undefined>('id', 'name', 'reference');
+    const building = await buildingQuery.first<{ id: number; name: string; reference: string } | undefined>(
+      'id',
+      'name',
+      'reference',
+    );
     if (!building) throw notFound('Building');
-    const unseen = await trx('revisions').where({ building_id: buildingId }).andWhere('frozen_at', '>=', arrivedAt).orderBy('id', 'desc').first<{ id: number; code: string } | undefined>('id', 'code');
-    const newest = await trx('revisions').where({ building_id: buildingId }).orderBy('id', 'desc').first<{ id: number; code: string } | undefined>('id', 'code');
+    const unseen = await trx('revisions')
+      .where({ building_id: buildingId })
+      .andWhere('frozen_at', '>=', arrivedAt)
+      .orderBy('id', 'desc')
+      .first<{ id: number; code: string } | undefined>('id', 'code');
+    const newest = await trx('revisions')
+      .where({ building_id: buildingId })
+      .orderBy('id', 'desc')
+      .first<{ id: number; code: string } | undefined>('id', 'code');
     if (input.afterRevisionId !== undefined && (newest?.id ?? null) !== input.afterRevisionId) {
       if (!newest) throw conflict('The revision this freeze was based on does not exist; reload the revisions');
-      throw conflict(`Revision ${newest.code} is newer than the one this freeze was based on; check it, and freeze again only if another revision is needed`, { revisionId: newest.id });
+      throw conflict(
+        `Revision ${newest.code} is newer than the one this freeze was based on; check it, and freeze again only if another revision is needed`,
+        { revisionId: newest.id },
+      );
     }
     if (unseen) {
-      throw conflict(`Revision ${unseen.code} was frozen while this freeze was on its way; check it, and freeze again only if another revision is needed`, { revisionId: unseen.id });
+      throw conflict(
+        `Revision ${unseen.code} was frozen while this freeze was on its way; check it, and freeze again only if another revision is needed`,
+        { revisionId: unseen.id },
+      );
     }
     const stacks = await snapshotStacks(trx, buildingId);
-    if (stacks.length === 0) throw unprocessable('The building has no stacks to freeze', { reasons: [] } satisfies FreezeRefusal);
+    if (stacks.length === 0)
+      throw unprocessable('The building has no stacks to freeze', { reasons: [] } satisfies FreezeRefusal);
     const reasons = validationReasons(stacks);
-    if (reasons.length > 0) throw unprocessable(`${reasons.length} problem${reasons.length === 1 ? '' : 's'} must be fixed before freezing`, { reasons } satisfies FreezeRefusal);
+    if (reasons.length > 0)
+      throw unprocessable(`${reasons.length} problem${reasons.length === 1 ? '' : 's'} must be fixed before freezing`, {
+        reasons,
+      } satisfies FreezeRefusal);
     const failing = failingLifts(stacks);
     if (failing.length > 0 && (!input.acknowledgeFailingLifts || input.note.trim() === '')) {
       const message = `${failing.length} lift${failing.length === 1 ? '' : 's'} exceed utilisation 1.0: acknowledge this and say why in the note to freeze anyway`;
       throw unprocessable(message, {
-        reasons: failing.map((f) => ({ stackId: stacks.find((s) => s.name === f.stack)?.id ?? 0, stack: f.stack, nodeId: f.liftId, message: `Lift ${f.label} (${f.section}) has utilisation ${f.utilisation.toFixed(3)}` })),
+        reasons: failing.map((f) => ({
+          stackId: stacks.find((s) => s.name === f.stack)?.id ?? 0,
+          stack: f.stack,
+          nodeId: f.liftId,
+          message: `Lift ${f.label} (${f.section}) has utilisation ${f.utilisation.toFixed(3)}`,
+        })),
       } satisfies FreezeRefusal);
     }
     const code = await nextCode(trx, buildingId, input.purpose);
@@ -128,10 +197,21 @@ async function freezeIn(db: Knex, buildingId: number, input: FreezeInput, user: 
     const acknowledgement = failing.length > 0 ? acknowledgementText(failing, user) : null;
     const { snapshot, text, hash } = await takeSnapshot(
       trx,
-      { building, code, purpose: input.purpose, note: input.note, acknowledgement, frozenAt, frozenBy: { id: user.id, name: user.name, email: user.email }, engineVersion: input.engineVersion },
+      {
+        building,
+        code,
+        purpose: input.purpose,
+        note: input.note,
+        acknowledgement,
+        frozenAt,
+        frozenBy: { id: user.id, name: user.name, email: user.email },
+        engineVersion: input.engineVersion,
+      },
       stacks,
     );
-    const utilisations = stacks.map((s) => summariseResult(s.doc, s.results).utilisation).filter((u): u is number => u !== null);
+    const utilisations = stacks
+      .map((s) => summariseResult(s.doc, s.results).utilisation)
+      .filter((u): u is number => u !== null);
     const [row] = await trx('revisions')
       .insert({
         building_id: buildingId,
@@ -159,22 +239,49 @@ async function freezeIn(db: Knex, buildingId: number, input: FreezeInput, user: 
     await trx('revision_packages').insert({ revision_id: row.id, copy: 0, created_at: frozenAt });
     for (const m of members) {
       const [recipient] = await trx('revision_recipients')
-        .insert({ revision_id: row.id, user_id: m.id, email: m.email, name: m.name, status: 'pending', attempts: 0, updated_at: frozenAt })
+        .insert({
+          revision_id: row.id,
+          user_id: m.id,
+          email: m.email,
+          name: m.name,
+          status: 'pending',
+          attempts: 0,
+          updated_at: frozenAt,
+        })
         .returning<{ id: number }[]>('id');
-      await enqueueMail(trx, [{ kind: 'revision', message: revisionMessage(snapshot, hash, m.email, input.link), attachRevisionId: row.id, recipientId: recipient.id, buildingId }]);
+      await enqueueMail(trx, [
+        {
+          kind: 'revision',
+          message: revisionMessage(snapshot, hash, m.email, input.link),
+          attachRevisionId: row.id,
+          recipientId: recipient.id,
+          buildingId,
+        },
+      ]);
     }
-    await recordAudit(trx, { userId: user.id, buildingId, action: 'revision.freeze', detail: { revisionId: row.id, code, hash, failingLifts: failing.length } });
+    await recordAudit(trx, {
+      userId: user.id,
+      buildingId,
+      action: 'revision.freeze',
+      detail: { revisionId: row.id, code, hash, failingLifts: failing.length },
+    });
     return { id: row.id, snapshot, hash };
   });
 }
 
 async function mailCounts(db: Knex, revisionIds: number[]): Promise<Map<number, Record<MailStatus, number>>> {
-  const counts = new Map<number, Record<MailStatus, number>>(revisionIds.map((id) => [id, { pending: 0, sent: 0, failed: 0 }]));
+  const counts = new Map<number, Record<MailStatus, number>>(
+    revisionIds.map((id) => [id, { pending: 0, sent: 0, failed: 0 }]),
+  );
   if (revisionIds.length === 0) return counts;
   const rows = await db('revision_recipients')
     .whereIn('revision_id', revisionIds)
     .groupBy('revision_id', 'status')
-    .select<{ revision_id: number; status: MailStatus; n: number | string }[]>('revision_id', 'status', db.raw('count(*) as n'));
+    .select<{ revision_id: number; status: MailStatus; n: number | string }[]>(
+      'revision_id',
+      'status',
+      db.raw('count(*) as n'),
+    );
   for (const r of rows) {
     const c = counts.get(r.revision_id);
     if (c) c[r.status] = Number(r.n);
@@ -200,29 +307,44 @@ function toSummary(row: RevisionRow, mail: Record<MailStatus, number>): Revision
 }
 
 export async function listRevisions(db: Knex, buildingId: number): Promise<RevisionSummary[]> {
-  const rows = await db('revisions').where({ building_id: buildingId }).orderBy('id', 'desc').select<RevisionRow[]>(SUMMARY_COLUMNS);
-  const counts = await mailCounts(db, rows.map((r) => r.id));
+  const rows = await db('revisions')
+    .where({ building_id: buildingId })
+    .orderBy('id', 'desc')
+    .select<RevisionRow[]>(SUMMARY_COLUMNS);
+  const counts = await mailCounts(
+    db,
+    rows.map((r) => r.id),
+  );
   return rows.map((r) => toSummary(r, counts.get(r.id) ?? { pending: 0, sent: 0, failed: 0 }));
 }
 
 async function loadRevisionRow(db: Knex, id: number): Promise<RevisionRow> {
-  const row = await db('revisions').where({ id }).first<RevisionRow | undefined>(...SUMMARY_COLUMNS);
+  const row = await db('revisions')
+    .where({ id })
+    .first<RevisionRow | undefined>(...SUMMARY_COLUMNS);
   if (!row) throw notFound('Revision');
   return row;
 }
 
 /** The snapshot as frozen; a text whose hash no longer matches is refused rather than printed. */
 export async function loadSnapshot(db: Knex, id: number): Promise<{ snapshot: RevisionSnapshot; hash: string }> {
-  const row = await db('revisions').where({ id }).first<{ snapshot: string; hash: string } | undefined>('snapshot', 'hash');
+  const row = await db('revisions')
+    .where({ id })
+    .first<{ snapshot: string; hash: string } | undefined>('snapshot', 'hash');
   if (!row) throw notFound('Revision');
-  if (sha256Hex(row.snapshot) !== row.hash) throw new Error(`Revision ${id}: the stored snapshot does not match its hash`);
+  if (sha256Hex(row.snapshot) !== row.hash)
+    throw new Error(`Revision ${id}: the stored snapshot does not match its hash`);
   // Written by freezeRevision from validated documents and our engine's results.
   return { snapshot: JSON.parse(row.snapshot) as RevisionSnapshot, hash: row.hash };
 }
 
 export async function getRevision(db: Knex, id: number): Promise<RevisionDetail> {
   const row = await loadRevisionRow(db, id);
-  const [{ snapshot }, counts, recipients] = await Promise.all([loadSnapshot(db, id), mailCounts(db, [id]), listRecipients(db, id)]);
+  const [{ snapshot }, counts, recipients] = await Promise.all([
+    loadSnapshot(db, id),
+    mailCounts(db, [id]),
+    listRecipients(db, id),
+  ]);
   return {
     ...toSummary(row, counts.get(id) ?? { pending: 0, sent: 0, failed: 0 }),
     engineVersion: row.engine_version,
@@ -231,7 +353,16 @@ export async function getRevision(db: Knex, id: number): Promise<RevisionDetail>
     levels: snapshot.levels,
     stacks: snapshot.stacks.map((s) => {
       const sum = summariseResult(s.doc, s.results);
-      return { id: s.id, name: s.name, version: s.version, governingLiftId: sum.governingLiftId, governingLiftLabel: sum.governingLiftLabel, governingSection: sum.governingSection, utilisation: sum.utilisation, status: sum.status };
+      return {
+        id: s.id,
+        name: s.name,
+        version: s.version,
+        governingLiftId: sum.governingLiftId,
+        governingLiftLabel: sum.governingLiftLabel,
+        governingSection: sum.governingSection,
+        utilisation: sum.utilisation,
+        status: sum.status,
+      };
     }),
     recipients,
   };

@@ -4,7 +4,16 @@ import type { Knex } from 'knex';
 import type { Level } from '../../shared/schema/api.ts';
 import { formatElevation } from '../../shared/engine/index.ts';
 import type { AnalysisOptions } from '../../shared/schema/results.ts';
-import type { CompareQuery, FieldChange, FieldValue, LiftUtilisationChange, NodeChange, RevisionComparison, SnapshotStack, StackComparison } from '../../shared/schema/revisions.ts';
+import type {
+  CompareQuery,
+  FieldChange,
+  FieldValue,
+  LiftUtilisationChange,
+  NodeChange,
+  RevisionComparison,
+  SnapshotStack,
+  StackComparison,
+} from '../../shared/schema/revisions.ts';
 import type { StackNode } from '../../shared/schema/stack.ts';
 import { notFound } from '../errors.ts';
 import { getBuildingOptions } from './buildings.ts';
@@ -23,11 +32,14 @@ interface BuildingState {
 /** Utilisations closer than this print the same to three decimals and are not reported as changed. */
 const UTILISATION_TOLERANCE = 5e-4;
 
-const asValue = (v: unknown): FieldValue => (v === undefined ? null : typeof v === 'string' || typeof v === 'number' ? v : JSON.stringify(v));
+const asValue = (v: unknown): FieldValue =>
+  v === undefined ? null : typeof v === 'string' || typeof v === 'number' ? v : JSON.stringify(v);
 
 function fieldChanges(before: Record<string, unknown>, after: Record<string, unknown>): FieldChange[] {
   const keys = [...new Set([...Object.keys(before), ...Object.keys(after)])].sort();
-  return keys.map((field) => ({ field, from: asValue(before[field]), to: asValue(after[field]) })).filter((c) => c.from !== c.to);
+  return keys
+    .map((field) => ({ field, from: asValue(before[field]), to: asValue(after[field]) }))
+    .filter((c) => c.from !== c.to);
 }
 
 /** L1, L2, … by lift id, from the results of both states (the later one wins). */
@@ -58,7 +70,9 @@ function compareNodes(before: StackNode[], after: StackNode[], lifts: LiftLabels
   const old = new Map(before.map((n) => [n.id, n]));
   const next = new Map(after.map((n) => [n.id, n]));
   const changes: NodeChange[] = [];
-  for (const n of before) if (!next.has(n.id)) changes.push({ nodeId: n.id, kind: n.kind, label: nodeLabel(n, lifts), change: 'removed', fields: [] });
+  for (const n of before)
+    if (!next.has(n.id))
+      changes.push({ nodeId: n.id, kind: n.kind, label: nodeLabel(n, lifts), change: 'removed', fields: [] });
   for (const n of after) {
     const o = old.get(n.id);
     if (!o) {
@@ -66,12 +80,17 @@ function compareNodes(before: StackNode[], after: StackNode[], lifts: LiftLabels
       continue;
     }
     const fields = fieldChanges({ kind: o.kind, ...o.data }, { kind: n.kind, ...n.data });
-    if (fields.length > 0) changes.push({ nodeId: n.id, kind: n.kind, label: nodeLabel(n, lifts), change: 'changed', fields });
+    if (fields.length > 0)
+      changes.push({ nodeId: n.id, kind: n.kind, label: nodeLabel(n, lifts), change: 'changed', fields });
   }
   return changes;
 }
 
-function compareLifts(before: SnapshotStack | undefined, after: SnapshotStack | undefined, labels: LiftLabels): LiftUtilisationChange[] {
+function compareLifts(
+  before: SnapshotStack | undefined,
+  after: SnapshotStack | undefined,
+  labels: LiftLabels,
+): LiftUtilisationChange[] {
   const old = new Map((before?.results.lifts ?? []).map((l) => [l.liftId, l]));
   const next = new Map((after?.results.lifts ?? []).map((l) => [l.liftId, l]));
   const ids = [...new Set([...old.keys(), ...next.keys()])];
@@ -79,9 +98,21 @@ function compareLifts(before: SnapshotStack | undefined, after: SnapshotStack | 
     .map((liftId) => {
       const o = old.get(liftId);
       const n = next.get(liftId);
-      return { liftId, label: labels.get(liftId) ?? liftId, section: { from: o?.section ?? null, to: n?.section ?? null }, from: o?.utilisation ?? null, to: n?.utilisation ?? null };
+      return {
+        liftId,
+        label: labels.get(liftId) ?? liftId,
+        section: { from: o?.section ?? null, to: n?.section ?? null },
+        from: o?.utilisation ?? null,
+        to: n?.utilisation ?? null,
+      };
     })
-    .filter((c) => c.section.from !== c.section.to || c.from === null || c.to === null || Math.abs(c.from - c.to) > UTILISATION_TOLERANCE);
+    .filter(
+      (c) =>
+        c.section.from !== c.section.to ||
+        c.from === null ||
+        c.to === null ||
+        Math.abs(c.from - c.to) > UTILISATION_TOLERANCE,
+    );
 }
 
 export function compareStates(from: BuildingState, to: BuildingState): RevisionComparison {
@@ -96,7 +127,13 @@ export function compareStates(from: BuildingState, to: BuildingState): RevisionC
     const labels = liftLabels(o, n);
     const nodes = compareNodes(o?.doc.nodes ?? [], n?.doc.nodes ?? [], labels);
     const lifts = compareLifts(o, n, labels);
-    const change = !o ? 'added' : !n ? 'removed' : nodes.length > 0 || lifts.length > 0 || o.name !== n.name ? 'changed' : null;
+    const change = !o
+      ? 'added'
+      : !n
+        ? 'removed'
+        : nodes.length > 0 || lifts.length > 0 || o.name !== n.name
+          ? 'changed'
+          : null;
     if (change) stacks.push({ stackId: s.id, name: s.name, change, nodes: change === 'changed' ? nodes : [], lifts });
     else unchangedStacks += 1;
   }
@@ -119,7 +156,11 @@ async function revisionState(db: Knex, buildingId: number, id: number): Promise<
 }
 
 async function currentState(db: Knex, buildingId: number): Promise<BuildingState> {
-  const [stacks, levels, options] = await Promise.all([snapshotStacks(db, buildingId), listLevels(db, buildingId), getBuildingOptions(db, buildingId)]);
+  const [stacks, levels, options] = await Promise.all([
+    snapshotStacks(db, buildingId),
+    listLevels(db, buildingId),
+    getBuildingOptions(db, buildingId),
+  ]);
   return { id: null, code: 'current', stacks, levels, options };
 }
 

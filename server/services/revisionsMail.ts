@@ -15,7 +15,12 @@ export const packageFilename = (s: Pick<RevisionSnapshot, 'building' | 'code'>) 
   `${(s.building.reference || s.building.name).replace(/[^A-Za-z0-9._-]+/g, '-')}-${s.code}-calculations.pdf`;
 
 /** The message without its attachment: the sender attaches the stored package when it sends. */
-export function revisionMessage(s: RevisionSnapshot, hash: string, to: string, link: string): Omit<MailMessage, 'attachments'> {
+export function revisionMessage(
+  s: RevisionSnapshot,
+  hash: string,
+  to: string,
+  link: string,
+): Omit<MailMessage, 'attachments'> {
   const purpose = s.purpose === 'construction' ? 'for construction' : 'preliminary';
   const issue = s.purpose === 'construction' ? 'for construction' : 'as a preliminary issue';
   const stacks = `${s.stacks.length} stack${s.stacks.length === 1 ? '' : 's'}`;
@@ -24,7 +29,8 @@ export function revisionMessage(s: RevisionSnapshot, hash: string, to: string, l
   const ack = s.acknowledgement ? `\n${s.acknowledgement}\n` : '';
   const text =
     `${s.frozenBy.name} has frozen revision ${s.code} of "${s.building.name}" (${stacks}) ${issue}.\n` +
-    note + ack +
+    note +
+    ack +
     `\nThe calculation package is attached. Revisions of the building: ${link}\n` +
     `Snapshot SHA-256: ${hash}\n`;
   const html =
@@ -39,16 +45,33 @@ export function revisionMessage(s: RevisionSnapshot, hash: string, to: string, l
  * Sends again to every recipient not yet reached: failed sends go back in the queue, and recipients
  * with no send queued (revisions frozen before the outbox existed) get one. Returns how many.
  */
-export async function resendRevisionMail(ctx: ServerContext, revisionId: number, snapshot: RevisionSnapshot, hash: string, link: string): Promise<number> {
+export async function resendRevisionMail(
+  ctx: ServerContext,
+  revisionId: number,
+  snapshot: RevisionSnapshot,
+  hash: string,
+  link: string,
+): Promise<number> {
   const n = await ctx.db.transaction(async (trx: Knex) => {
     let queued = await requeueFailed(trx, revisionId);
-    const open = await trx('mail_queue').where({ attach_revision_id: revisionId }).whereIn('status', ['pending', 'sending']).pluck<number[]>('recipient_id');
+    const open = await trx('mail_queue')
+      .where({ attach_revision_id: revisionId })
+      .whereIn('status', ['pending', 'sending'])
+      .pluck<number[]>('recipient_id');
     const waiting = new Set(open);
     for (const row of await recipientRows(trx, revisionId)) {
       if (row.status === 'sent') continue;
       await trx('revision_recipients').where({ id: row.id }).update({ status: 'pending', updated_at: now() });
       if (waiting.has(row.id)) continue;
-      await enqueueMail(trx, [{ kind: 'revision', message: revisionMessage(snapshot, hash, row.email, link), attachRevisionId: revisionId, recipientId: row.id, buildingId: snapshot.building.id }]);
+      await enqueueMail(trx, [
+        {
+          kind: 'revision',
+          message: revisionMessage(snapshot, hash, row.email, link),
+          attachRevisionId: revisionId,
+          recipientId: row.id,
+          buildingId: snapshot.building.id,
+        },
+      ]);
       queued += 1;
     }
     return queued;

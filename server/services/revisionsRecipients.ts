@@ -19,11 +19,23 @@ export async function recipientRows(db: Knex, revisionId: number): Promise<Recip
 }
 
 export async function listRecipients(db: Knex, revisionId: number): Promise<RevisionRecipient[]> {
-  return (await recipientRows(db, revisionId)).map((r) => ({ email: r.email, name: r.name, status: r.status, attempts: r.attempts, error: r.error, updatedAt: r.updated_at }));
+  return (await recipientRows(db, revisionId)).map((r) => ({
+    email: r.email,
+    name: r.name,
+    status: r.status,
+    attempts: r.attempts,
+    error: r.error,
+    updatedAt: r.updated_at,
+  }));
 }
 
 export async function recordDelivery(db: Knex, row: RecipientRow, sent: boolean, error: string | null): Promise<void> {
   await db('revision_recipients')
     .where({ id: row.id })
-    .update({ status: sent ? 'sent' : 'failed', attempts: row.attempts + 1, error: sent ? null : error ?? 'The mail server did not accept the message', updated_at: now() });
+    .update({
+      status: sent ? 'sent' : 'failed',
+      attempts: row.attempts + 1,
+      error: sent ? null : (error ?? 'The mail server did not accept the message'),
+      updated_at: now(),
+    });
 }

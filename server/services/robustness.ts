@@ -8,7 +8,10 @@ import { parseResults } from './stackRows.ts';
 export async function buildingRobustness(db: Knex, buildingId: number): Promise<RobustnessSummary> {
   const building = await db('buildings').where({ id: buildingId }).first<{ options: string } | undefined>('options');
   if (!building) throw notFound('Building');
-  const rows = await db('stacks').where({ building_id: buildingId }).orderBy('name').select<{ id: number; name: string; results: string }[]>('id', 'name', 'results');
+  const rows = await db('stacks')
+    .where({ building_id: buildingId })
+    .orderBy('name')
+    .select<{ id: number; name: string; results: string }[]>('id', 'name', 'results');
   const stacks = rows.map((r) => ({ id: r.id, name: r.name, result: parseResults(r.results) }));
   return robustnessSummary({ stacks }, parseOptions(building.options).consequenceClass);
 }

@@ -14,5 +14,9 @@ export function findSections(q: string, series: Series | undefined, limit: numbe
   return pool
     .filter((e) => !series || e.series === series)
     .slice(0, limit)
-    .map((e) => ({ designation: e.designation, series: e.series, massPerMetre: e.massPerMetre ?? sectionProperties(e.dims).massPerMetre }));
+    .map((e) => ({
+      designation: e.designation,
+      series: e.series,
+      massPerMetre: e.massPerMetre ?? sectionProperties(e.dims).massPerMetre,
+    }));
 }

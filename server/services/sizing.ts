@@ -19,19 +19,39 @@ function engineRefusal<T>(run: () => T): T {
   }
 }
 
-export async function stackSizingPreview(db: Knex, stackId: number, request: SizingRequest): Promise<StackSizingPreview> {
+export async function stackSizingPreview(
+  db: Knex,
+  stackId: number,
+  request: SizingRequest,
+): Promise<StackSizingPreview> {
   const row = await loadStackRow(db, stackId);
   const inputs = await analysisInputs(db, row.building_id);
   const doc = withDerivedLoads(parseDoc(row.doc), inputs, placeOf(row));
-  const sizing = engineRefusal(() => sizeStack(doc, request, inputs.options, { levels: inputs.levels, sections: inputs.sections }));
+  const sizing = engineRefusal(() =>
+    sizeStack(doc, request, inputs.options, { levels: inputs.levels, sections: inputs.sections }),
+  );
   return { stackId: row.id, name: row.name, version: row.version, ...sizing };
 }
 
 /** Every stack of a building, sized on the worker thread (a large building takes seconds). */
-export async function buildingSizingPreview(ctx: ServerContext, buildingId: number, request: SizingRequest): Promise<BuildingSizingPreview> {
-  const rows = await ctx.db<StackRow>('stacks').where({ building_id: buildingId }).orderBy('name').orderBy('id').select('id', 'name', 'version', 'doc', 'grid_x', 'grid_y', 'web_along');
+export async function buildingSizingPreview(
+  ctx: ServerContext,
+  buildingId: number,
+  request: SizingRequest,
+): Promise<BuildingSizingPreview> {
+  const rows = await ctx
+    .db<StackRow>('stacks')
+    .where({ building_id: buildingId })
+    .orderBy('name')
+    .orderBy('id')
+    .select('id', 'name', 'version', 'doc', 'grid_x', 'grid_y', 'web_along');
   const { model, ...inputs } = await analysisInputs(ctx.db, buildingId);
-  const stacks = rows.map((r) => ({ stackId: r.id, name: r.name, version: r.version, doc: withDerivedLoads(parseDoc(r.doc), { model, ...inputs }, placeOf(r)) }));
+  const stacks = rows.map((r) => ({
+    stackId: r.id,
+    name: r.name,
+    version: r.version,
+    doc: withDerivedLoads(parseDoc(r.doc), { model, ...inputs }, placeOf(r)),
+  }));
   const outcome = await ctx.offThread.sizeBuilding({ stacks, request, ...inputs }, `building:${buildingId}`);
   if ('refused' in outcome) throw unprocessable(outcome.refused.message, { code: outcome.refused.code });
   return { buildingId, ...outcome.sizing };

@@ -25,10 +25,18 @@ export const byStackName = (a: { name: string; id: number }, b: { name: string; 
   a.name.localeCompare(b.name, 'en', { numeric: true, sensitivity: 'base' }) || a.id - b.id;
 
 export async function snapshotStacks(db: Knex, buildingId: number): Promise<SnapshotStack[]> {
-  const rows = await db<StackRow>('stacks').where({ building_id: buildingId }).select('id', 'name', 'version', 'doc', 'results', 'grid_x', 'grid_y', 'web_along');
+  const rows = await db<StackRow>('stacks')
+    .where({ building_id: buildingId })
+    .select('id', 'name', 'version', 'doc', 'results', 'grid_x', 'grid_y', 'web_along');
   return rows
     .map((r) => {
-      const stack: SnapshotStack = { id: r.id, name: r.name, version: r.version, doc: parseDoc(r.doc), results: parseResults(r.results) };
+      const stack: SnapshotStack = {
+        id: r.id,
+        name: r.name,
+        version: r.version,
+        doc: parseDoc(r.doc),
+        results: parseResults(r.results),
+      };
       const { gridX, gridY, webAlong } = placeOf(r);
       if (gridX !== null) stack.placement = { gridX, gridY, webAlong };
       return stack;
@@ -38,8 +46,16 @@ export async function snapshotStacks(db: Knex, buildingId: number): Promise<Snap
 
 export type SnapshotMeta = Omit<RevisionSnapshot, 'format' | 'options' | 'levels' | 'stacks'>;
 
-export async function takeSnapshot(db: Knex, meta: SnapshotMeta, stacks: SnapshotStack[]): Promise<{ snapshot: RevisionSnapshot; text: string; hash: string }> {
-  const [options, levels, stored] = await Promise.all([getBuildingOptions(db, meta.building.id), listLevels(db, meta.building.id), readModel(db, meta.building.id)]);
+export async function takeSnapshot(
+  db: Knex,
+  meta: SnapshotMeta,
+  stacks: SnapshotStack[],
+): Promise<{ snapshot: RevisionSnapshot; text: string; hash: string }> {
+  const [options, levels, stored] = await Promise.all([
+    getBuildingOptions(db, meta.building.id),
+    listLevels(db, meta.building.id),
+    readModel(db, meta.building.id),
+  ]);
   const snapshot: RevisionSnapshot = { format: 1, ...meta, options, levels, stacks };
   // What the derived loads came from; a building without a model freezes exactly as before.
   if (stored.version > 0) snapshot.buildingModel = stored.model;

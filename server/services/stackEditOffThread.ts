@@ -21,16 +21,35 @@ export const LARGE_STACK_LIFTS = 10;
 
 export const isLarge = (row: Pick<StackRow, 'doc'>): boolean => row.doc.length > LARGE_DOC_CHARS;
 
-export async function editOffThread(trx: Knex, row: StackRow, input: OpsInput, offThread: ServerContext['offThread']): Promise<CommittedChange> {
+export async function editOffThread(
+  trx: Knex,
+  row: StackRow,
+  input: OpsInput,
+  offThread: ServerContext['offThread'],
+): Promise<CommittedChange> {
   const inputs = await analysisInputs(trx, row.building_id);
   const floorLoads = floorLoadsOf(inputs, placeOf(row));
-  const outcome = await offThread.editLargeStack({ docText: row.doc, ops: input.ops, options: inputs.options, levels: inputs.levels, sections: inputs.sections, floorLoads });
+  const outcome = await offThread.editLargeStack({
+    docText: row.doc,
+    ops: input.ops,
+    options: inputs.options,
+    levels: inputs.levels,
+    sections: inputs.sections,
+    floorLoads,
+  });
   // The result arrives as one message: let the event loop turn before storing it.
   await yieldToLoop();
   const touched = new Set(outcome.touched);
   // As on the main thread: a clash with an edit since baseVersion (409) is reported before a bad op (422).
   await assertNoOverlap(trx, row, input.baseVersion, touched);
-  if ('opError' in outcome) throw unprocessable(outcome.opError.message, { opIndex: outcome.opError.opIndex, id: outcome.opError.id });
+  if ('opError' in outcome)
+    throw unprocessable(outcome.opError.message, { opIndex: outcome.opError.opIndex, id: outcome.opError.id });
   const results = { ...outcome.results, engineVersion: ENGINE_VERSION };
-  return commitDoc(trx, row, { doc: outcome.doc, ops: input.ops, touched, userId: input.userId, action: 'stack.edit' }, inputs, results);
+  return commitDoc(
+    trx,
+    row,
+    { doc: outcome.doc, ops: input.ops, touched, userId: input.userId, action: 'stack.edit' },
+    inputs,
+    results,
+  );
 }

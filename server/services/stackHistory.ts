@@ -25,7 +25,13 @@ export async function opsSince(db: Knex, stackId: number, since: number): Promis
     .where('o.stack_id', stackId)
     .andWhere('o.version', '>', since)
     .orderBy('o.version')
-    .select<{ version: number; ops: string; user_id: number | null; name: string | null; created_at: unknown }[]>('o.version', 'o.ops', 'o.user_id', 'u.name', 'o.created_at');
+    .select<{ version: number; ops: string; user_id: number | null; name: string | null; created_at: unknown }[]>(
+      'o.version',
+      'o.ops',
+      'o.user_id',
+      'u.name',
+      'o.created_at',
+    );
   return rows.map((r) => ({
     version: r.version,
     // Stored by stackOps after validation.
@@ -71,15 +77,26 @@ async function levelNames(db: Knex, stackId: number): Promise<Map<string, string
 
 /** Every version of the stack, newest first, with who made it, when, and what changed in words. */
 export async function stackHistory(db: Knex, stackId: number): Promise<StackHistory> {
-  const [audit, committed, levels] = await Promise.all([auditRows(db, stackId), opsSince(db, stackId, 0), levelNames(db, stackId)]);
+  const [audit, committed, levels] = await Promise.all([
+    auditRows(db, stackId),
+    opsSince(db, stackId, 0),
+    levelNames(db, stackId),
+  ]);
   const actionOf = new Map(audit.filter((r) => r.version !== null).map((r) => [Number(r.version), r.action]));
   const created = audit.find((r) => r.action === 'stack.create');
   let doc = startingDoc(audit);
   const complete = doc !== null;
   const entries: HistoryEntry[] = [];
   if (created) {
-    const by = created.user_id !== null && created.name !== null ? { userId: created.user_id, name: created.name } : null;
-    entries.push({ version: 0, by, at: isoTime(created.created_at), action: 'stack.create', changes: ['Created the stack'] });
+    const by =
+      created.user_id !== null && created.name !== null ? { userId: created.user_id, name: created.name } : null;
+    entries.push({
+      version: 0,
+      by,
+      at: isoTime(created.created_at),
+      action: 'stack.create',
+      changes: ['Created the stack'],
+    });
   }
   for (const c of committed) {
     let changes: string[];
@@ -87,7 +104,9 @@ export async function stackHistory(db: Knex, stackId: number): Promise<StackHist
       changes = describeOps(doc, c.ops, levels);
       doc = applyOps(doc, c.ops);
     } else {
-      changes = [`${c.ops.length} change${c.ops.length === 1 ? '' : 's'} (not described: the stack's starting document was not kept)`];
+      changes = [
+        `${c.ops.length} change${c.ops.length === 1 ? '' : 's'} (not described: the stack's starting document was not kept)`,
+      ];
     }
     entries.push({ version: c.version, by: c.by, at: c.at, action: actionOf.get(c.version) ?? 'stack.edit', changes });
   }
@@ -104,7 +123,10 @@ export async function stackAsOf(db: Knex, stackId: number, version: number): Pro
     return { version, doc: current, outline: stackOutline(current, levels) };
   }
   let doc = startingDoc(await auditRows(db, stackId));
-  if (!doc) throw unprocessable('Earlier versions of this stack cannot be shown: its starting document was not kept', { version });
+  if (!doc)
+    throw unprocessable('Earlier versions of this stack cannot be shown: its starting document was not kept', {
+      version,
+    });
   for (const c of await opsSince(db, stackId, 0)) {
     if (c.version > version) break;
     doc = applyOps(doc, c.ops);
@@ -117,7 +139,10 @@ export async function stackAsOf(db: Knex, stackId: number, version: number): Pro
  * ops that turn the current document into the old one, so restoring is itself undone by restoring the version
  * before it). Only from the current version, like any whole-document write; null when nothing differs.
  */
-export async function restoreVersion(db: Knex, input: { stackId: number; version: number; baseVersion: number; userId: number }): Promise<CommittedChange | null> {
+export async function restoreVersion(
+  db: Knex,
+  input: { stackId: number; version: number; baseVersion: number; userId: number },
+): Promise<CommittedChange | null> {
   const { doc } = await stackAsOf(db, input.stackId, input.version);
   return replaceDoc(db, { stackId: input.stackId, baseVersion: input.baseVersion, doc, userId: input.userId });
 }

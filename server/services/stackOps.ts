@@ -10,7 +10,14 @@ import { applyOps as applyOpsToDoc, OpError, touchedIds } from '../../shared/ops
 import type { ServerContext } from '../context.ts';
 import { now } from '../db.ts';
 import { conflict, unprocessable } from '../errors.ts';
-import { analyse, analysisInputs, resultColumns, summariseResult, type AnalysisInputs, type ResultSummary } from './analysis.ts';
+import {
+  analyse,
+  analysisInputs,
+  resultColumns,
+  summariseResult,
+  type AnalysisInputs,
+  type ResultSummary,
+} from './analysis.ts';
 import { recordAudit } from './audit.ts';
 import { touchBuilding } from './buildings.ts';
 import { assertDocSound } from './docChecks.ts';
@@ -40,12 +47,18 @@ export async function commitDoc(
 ): Promise<CommittedChange> {
   const results = precomputed ?? analyse(change.doc, inputs, placeOf(row));
   const version = row.version + 1;
-  const columns = { doc: JSON.stringify(change.doc), version, ...resultColumns(change.doc, results), updated_at: now() };
+  const columns = {
+    doc: JSON.stringify(change.doc),
+    version,
+    ...resultColumns(change.doc, results),
+    updated_at: now(),
+  };
   // A large stack (results computed off the main thread) is encoded and written in separate turns of the loop.
   if (precomputed) await yieldToLoop();
   const updated = await trx('stacks').where({ id: row.id, version: row.version }).update(columns);
   if (precomputed) await yieldToLoop();
-  if (updated === 0) throw conflict('The stack was changed by someone else; reload and try again', { version: row.version });
+  if (updated === 0)
+    throw conflict('The stack was changed by someone else; reload and try again', { version: row.version });
   await trx('stack_ops').insert({
     stack_id: row.id,
     version,
@@ -54,20 +67,48 @@ export async function commitDoc(
     user_id: change.userId,
     created_at: now(),
   });
-  await recordAudit(trx, { userId: change.userId, buildingId: row.building_id, stackId: row.id, action: change.action, version, detail: { ops: change.ops.length } });
+  await recordAudit(trx, {
+    userId: change.userId,
+    buildingId: row.building_id,
+    stackId: row.id,
+    action: change.action,
+    version,
+    detail: { ops: change.ops.length },
+  });
   await touchBuilding(trx, row.building_id);
-  return { stackId: row.id, buildingId: row.building_id, version, doc: change.doc, results, ops: change.ops, summary: summariseResult(change.doc, results) };
+  return {
+    stackId: row.id,
+    buildingId: row.building_id,
+    version,
+    doc: change.doc,
+    results,
+    ops: change.ops,
+    summary: summariseResult(change.doc, results),
+  };
 }
 
-export async function assertNoOverlap(trx: Knex, row: StackRow, baseVersion: number, touched: Set<string>): Promise<void> {
-  if (baseVersion > row.version) throw conflict(`Version ${baseVersion} of this stack does not exist yet`, { version: row.version });
+export async function assertNoOverlap(
+  trx: Knex,
+  row: StackRow,
+  baseVersion: number,
+  touched: Set<string>,
+): Promise<void> {
+  if (baseVersion > row.version)
+    throw conflict(`Version ${baseVersion} of this stack does not exist yet`, { version: row.version });
   if (baseVersion === row.version) return;
-  const since = await trx('stack_ops').where('stack_id', row.id).andWhere('version', '>', baseVersion).select<{ touched: string }[]>('touched');
-  if (since.length < row.version - baseVersion) throw conflict('This edit is based on a version too old to merge; reload the stack', { version: row.version });
+  const since = await trx('stack_ops')
+    .where('stack_id', row.id)
+    .andWhere('version', '>', baseVersion)
+    .select<{ touched: string }[]>('touched');
+  if (since.length < row.version - baseVersion)
+    throw conflict('This edit is based on a version too old to merge; reload the stack', { version: row.version });
   const clashes = new Set<string>();
   for (const r of since) for (const id of JSON.parse(r.touched) as string[]) if (touched.has(id)) clashes.add(id);
   if (clashes.size > 0) {
-    throw conflict(`Someone else has changed ${[...clashes].join(', ')} since version ${baseVersion}`, { version: row.version, ids: [...clashes] });
+    throw conflict(`Someone else has changed ${[...clashes].join(', ')} since version ${baseVersion}`, {
+      version: row.version,
+      ids: [...clashes],
+    });
   }
 }
 
@@ -97,7 +138,12 @@ export async function applyOps(db: Knex, input: OpsInput): Promise<CommittedChan
     }
     const inputs = await analysisInputs(trx, row.building_id);
     assertDocSound(next, inputs.levels, touched);
-    return commitDoc(trx, row, { doc: next, ops: input.ops, touched, userId: input.userId, action: 'stack.edit' }, inputs);
+    return commitDoc(
+      trx,
+      row,
+      { doc: next, ops: input.ops, touched, userId: input.userId, action: 'stack.edit' },
+      inputs,
+    );
   });
 }
 
@@ -105,11 +151,17 @@ export async function applyOps(db: Knex, input: OpsInput): Promise<CommittedChan
  * Replaces the whole document (REST PUT). Only on the current version: a whole document cannot be
  * merged. Recorded as the ops that turn the old document into the new one.
  */
-export async function replaceDoc(db: Knex, input: { stackId: number; baseVersion: number; doc: StackDocument; userId: number | null }): Promise<CommittedChange | null> {
+export async function replaceDoc(
+  db: Knex,
+  input: { stackId: number; baseVersion: number; doc: StackDocument; userId: number | null },
+): Promise<CommittedChange | null> {
   assertUniqueIds(input.doc);
   return db.transaction(async (trx) => {
     const row = await loadStackRow(trx, input.stackId, { lock: true });
-    if (input.baseVersion !== row.version) throw conflict(`The stack is at version ${row.version}, not ${input.baseVersion}; reload and try again`, { version: row.version });
+    if (input.baseVersion !== row.version)
+      throw conflict(`The stack is at version ${row.version}, not ${input.baseVersion}; reload and try again`, {
+        version: row.version,
+      });
     const before = parseDoc(row.doc);
     const ops = diffDocs(before, input.doc);
     if (ops.length === 0) return null;
@@ -122,7 +174,14 @@ export async function replaceDoc(db: Knex, input: { stackId: number; baseVersion
 
 export function broadcastChange(ctx: ServerContext, c: CommittedChange, by: { userId: number; name: string }): void {
   try {
-    ctx.broadcaster.stackChanged({ buildingId: c.buildingId, stackId: c.stackId, version: c.version, ops: c.ops, results: c.results, by });
+    ctx.broadcaster.stackChanged({
+      buildingId: c.buildingId,
+      stackId: c.stackId,
+      version: c.version,
+      ops: c.ops,
+      results: c.results,
+      by,
+    });
     ctx.broadcaster.buildingStackChanged({
       buildingId: c.buildingId,
       stackId: c.stackId,
@@ -140,11 +199,14 @@ export function broadcastChange(ctx: ServerContext, c: CommittedChange, by: { us
 }
 
 /** applyOps then broadcast: what the REST ops route and the live channel call. */
-export async function editStack(ctx: ServerContext, input: Omit<OpsInput, 'userId'>, user: User): Promise<CommittedChange> {
+export async function editStack(
+  ctx: ServerContext,
+  input: Omit<OpsInput, 'userId'>,
+  user: User,
+): Promise<CommittedChange> {
   const change = await applyOps(ctx.db, { ...input, userId: user.id, offThread: ctx.offThread });
   // Storing a large stack and encoding its broadcast are each tens of milliseconds: not in one turn.
   if (change.results.lifts.length > LARGE_STACK_LIFTS) await yieldToLoop();
   broadcastChange(ctx, change, { userId: user.id, name: user.name });
   return change;
 }
-

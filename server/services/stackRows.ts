@@ -30,7 +30,12 @@ export interface StackRow {
 /** Where a stored stack stands on the grid. */
 export function placeOf(row: Pick<StackRow, 'id' | 'grid_x' | 'grid_y' | 'web_along'>): StackPlace {
   const onGrid = row.grid_x !== null && row.grid_y !== null;
-  return { stackId: row.id, gridX: onGrid ? row.grid_x : null, gridY: onGrid ? row.grid_y : null, webAlong: row.web_along === 'y' ? 'y' : 'x' };
+  return {
+    stackId: row.id,
+    gridX: onGrid ? row.grid_x : null,
+    gridY: onGrid ? row.grid_y : null,
+    webAlong: row.web_along === 'y' ? 'y' : 'x',
+  };
 }
 
 /**
@@ -74,14 +79,23 @@ function placementFields(row: StackRow): { gridX?: string; gridY?: string; webAl
 }
 
 export function toDetail(row: StackRow): StackDetail {
-  return { id: row.id, buildingId: row.building_id, name: row.name, doc: parseDoc(row.doc), version: row.version, results: parseResults(row.results), ...placementFields(row) };
+  return {
+    id: row.id,
+    buildingId: row.building_id,
+    name: row.name,
+    doc: parseDoc(row.doc),
+    version: row.version,
+    results: parseResults(row.results),
+    ...placementFields(row),
+  };
 }
 
 /** Ops address nodes and edges by id, so a document must not use one id twice. */
 export function assertUniqueIds(doc: StackDocument): void {
   const seen = new Set<string>();
   for (const item of [...doc.nodes, ...doc.edges]) {
-    if (seen.has(item.id)) throw unprocessable(`The id "${item.id}" is used more than once in the document`, { id: item.id });
+    if (seen.has(item.id))
+      throw unprocessable(`The id "${item.id}" is used more than once in the document`, { id: item.id });
     seen.add(item.id);
   }
 }

@@ -28,28 +28,56 @@ export interface NewStack {
 }
 
 export async function createStack(db: Knex, buildingId: number, input: NewStack, user: User): Promise<StackSummary> {
-  const id = await withNameGuard('stack', input.name, () => db.transaction(async (trx) => {
-    await assertNameFree(trx, 'stack', buildingId, input.name);
-    const doc = input.template ? stackFromTemplate(input.template, await listLevels(trx, buildingId)) : (input.doc ?? { nodes: [], edges: [] });
-    assertUniqueIds(doc);
-    const results = analyse(doc, await analysisInputs(trx, buildingId));
-    const [row] = await trx('stacks')
-      .insert({ building_id: buildingId, name: input.name, doc: JSON.stringify(doc), version: 0, ...resultColumns(doc, results), created_at: now(), updated_at: now() })
-      .returning<{ id: number }[]>('id');
-    await recordAudit(trx, { userId: user.id, buildingId, stackId: row.id, action: 'stack.create', version: 0, detail: { name: input.name, from: input.template ? 'template' : input.doc ? 'document' : 'empty', doc } });
-    await touchBuilding(trx, buildingId);
-    return row.id;
-  }));
+  const id = await withNameGuard('stack', input.name, () =>
+    db.transaction(async (trx) => {
+      await assertNameFree(trx, 'stack', buildingId, input.name);
+      const doc = input.template
+        ? stackFromTemplate(input.template, await listLevels(trx, buildingId))
+        : (input.doc ?? { nodes: [], edges: [] });
+      assertUniqueIds(doc);
+      const results = analyse(doc, await analysisInputs(trx, buildingId));
+      const [row] = await trx('stacks')
+        .insert({
+          building_id: buildingId,
+          name: input.name,
+          doc: JSON.stringify(doc),
+          version: 0,
+          ...resultColumns(doc, results),
+          created_at: now(),
+          updated_at: now(),
+        })
+        .returning<{ id: number }[]>('id');
+      await recordAudit(trx, {
+        userId: user.id,
+        buildingId,
+        stackId: row.id,
+        action: 'stack.create',
+        version: 0,
+        detail: { name: input.name, from: input.template ? 'template' : input.doc ? 'document' : 'empty', doc },
+      });
+      await touchBuilding(trx, buildingId);
+      return row.id;
+    }),
+  );
   return toSummary(await loadStackRow(db, id));
 }
 
 export async function renameStack(db: Knex, id: number, name: string, user: User): Promise<StackSummary> {
-  await withNameGuard('stack', name, () => db.transaction(async (trx) => {
-    const row = await loadStackRow(trx, id);
-    await assertNameFree(trx, 'stack', row.building_id, name, id);
-    await trx('stacks').where({ id }).update({ name, updated_at: now() });
-    await recordAudit(trx, { userId: user.id, buildingId: row.building_id, stackId: id, action: 'stack.rename', version: row.version, detail: { from: row.name, to: name } });
-  }));
+  await withNameGuard('stack', name, () =>
+    db.transaction(async (trx) => {
+      const row = await loadStackRow(trx, id);
+      await assertNameFree(trx, 'stack', row.building_id, name, id);
+      await trx('stacks').where({ id }).update({ name, updated_at: now() });
+      await recordAudit(trx, {
+        userId: user.id,
+        buildingId: row.building_id,
+        stackId: id,
+        action: 'stack.rename',
+        version: row.version,
+        detail: { from: row.name, to: name },
+      });
+    }),
+  );
   return toSummary(await loadStackRow(db, id));
 }
 
@@ -57,7 +85,14 @@ export async function deleteStack(db: Knex, id: number, user: User): Promise<voi
   await db.transaction(async (trx) => {
     const row = await loadStackRow(trx, id);
     await trx('stacks').where({ id }).delete();
-    await recordAudit(trx, { userId: user.id, buildingId: row.building_id, stackId: id, action: 'stack.delete', version: row.version, detail: { name: row.name } });
+    await recordAudit(trx, {
+      userId: user.id,
+      buildingId: row.building_id,
+      stackId: id,
+      action: 'stack.delete',
+      version: row.version,
+      detail: { name: row.name },
+    });
     await touchBuilding(trx, row.building_id);
   });
 }

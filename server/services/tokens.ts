@@ -25,7 +25,12 @@ export interface SessionClaims {
 /** lifetimeSeconds: shorter sessions for tests of expiry; TOKEN_LIFETIME otherwise. */
 export function signToken(secret: string, userId: number, tokenVersion = 0, lifetimeSeconds?: number): string {
   const expiresIn = lifetimeSeconds ?? TOKEN_LIFETIME;
-  return jwt.sign({ tv: tokenVersion }, secret, { subject: String(userId), expiresIn, algorithm: 'HS256', audience: SESSION });
+  return jwt.sign({ tv: tokenVersion }, secret, {
+    subject: String(userId),
+    expiresIn,
+    algorithm: 'HS256',
+    audience: SESSION,
+  });
 }
 
 /** The claims of a valid session token; a bad, expired or foreign token is a 401. */
@@ -48,7 +53,12 @@ export function verifyToken(secret: string, token: string): number {
 }
 
 export function signVerification(secret: string, userId: number, email: string): string {
-  return jwt.sign({ email }, secret, { subject: String(userId), expiresIn: VERIFY_LIFETIME, algorithm: 'HS256', audience: VERIFY });
+  return jwt.sign({ email }, secret, {
+    subject: String(userId),
+    expiresIn: VERIFY_LIFETIME,
+    algorithm: 'HS256',
+    audience: VERIFY,
+  });
 }
 
 /** The account and address a verification link was made for; an old or altered link is a 422. */
@@ -58,7 +68,11 @@ export function readVerification(secret: string, token: string): { userId: numbe
     payload = jwt.verify(token, secret, { algorithms: ['HS256'], audience: VERIFY });
   } catch (e) {
     const expired = e instanceof jwt.TokenExpiredError;
-    throw unprocessable(expired ? 'This verification link has expired; sign in and ask for a new one' : 'This verification link is not valid');
+    throw unprocessable(
+      expired
+        ? 'This verification link has expired; sign in and ask for a new one'
+        : 'This verification link is not valid',
+    );
   }
   const claims = verifyClaimsSchema.safeParse(payload);
   if (!claims.success) throw unprocessable('This verification link is not valid');

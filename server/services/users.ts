@@ -42,7 +42,8 @@ export async function userForSession(db: Knex, claims: SessionClaims): Promise<U
   const row = await db<UserRow>('users').where({ id: claims.userId }).first();
   if (!row) throw unauthenticated('This account no longer exists');
   const tokenVersion = Number(row.token_version);
-  if (tokenVersion !== claims.tokenVersion) throw unauthenticated('This session has ended (signed out or password changed); sign in again');
+  if (tokenVersion !== claims.tokenVersion)
+    throw unauthenticated('This session has ended (signed out or password changed); sign in again');
   return { ...toUser(row), tokenVersion };
 }
 
@@ -76,18 +77,36 @@ const comparePassword = (password: string, hash: string): Promise<boolean> => co
  * Creates the account. Unverified by default: invitations wait until the owner follows the verification
  * link (verifyEmail). The demo seed and scripts create verified accounts.
  */
-export async function registerUser(db: Knex, input: NewUser, rounds: number, opts: { verified?: boolean; hash?: string } = {}): Promise<User> {
+export async function registerUser(
+  db: Knex,
+  input: NewUser,
+  rounds: number,
+  opts: { verified?: boolean; hash?: string } = {},
+): Promise<User> {
   const hash = opts.hash ?? (await hashPassword(input.password, rounds));
   return db.transaction(async (trx) => {
     const taken = await trx('users').where({ email: input.email }).first('id');
     if (taken) throw conflict('An account with this e-mail address already exists');
     const verifiedAt = opts.verified ? now() : null;
     const [row] = await trx('users')
-      .insert({ email: input.email, name: input.name, password_hash: hash, is_admin: input.isAdmin ?? false, email_verified_at: verifiedAt, created_at: now() })
+      .insert({
+        email: input.email,
+        name: input.name,
+        password_hash: hash,
+        is_admin: input.isAdmin ?? false,
+        email_verified_at: verifiedAt,
+        created_at: now(),
+      })
       .returning<{ id: number }[]>('id');
     if (opts.verified) await acceptInvitations(trx, row.id, input.email);
     await recordAudit(trx, { userId: row.id, action: 'user.register', detail: { email: input.email } });
-    return { id: row.id, email: input.email, name: input.name, isAdmin: input.isAdmin ?? false, emailVerified: Boolean(opts.verified) };
+    return {
+      id: row.id,
+      email: input.email,
+      name: input.name,
+      isAdmin: input.isAdmin ?? false,
+      emailVerified: Boolean(opts.verified),
+    };
   });
 }
 
@@ -115,7 +134,12 @@ export function dummyHash(rounds: number): Promise<string> {
 }
 export const WRONG_CREDENTIALS = 'E-mail address or password is wrong';
 
-export async function verifyLogin(db: Knex, email: string, password: string, rounds: number): Promise<User & { tokenVersion: number }> {
+export async function verifyLogin(
+  db: Knex,
+  email: string,
+  password: string,
+  rounds: number,
+): Promise<User & { tokenVersion: number }> {
   const row = await db<UserRow>('users').where({ email }).first();
   const ok = await comparePassword(password, row?.password_hash ?? (await dummyHash(rounds)));
   // bcrypt reads 72 bytes: a longer attempt would match on its first 72 alone. Never a stored password.
@@ -125,10 +149,17 @@ export async function verifyLogin(db: Knex, email: string, password: string, rou
 }
 
 /** Checks the current password, stores the new one and ends every other session. */
-export async function changePassword(db: Knex, userId: number, current: string, next: string, rounds: number): Promise<number> {
+export async function changePassword(
+  db: Knex,
+  userId: number,
+  current: string,
+  next: string,
+  rounds: number,
+): Promise<number> {
   const row = await db<UserRow>('users').where({ id: userId }).first();
   if (!row) throw unauthenticated('This account no longer exists');
-  const currentOk = (await comparePassword(current, row.password_hash)) && Buffer.byteLength(current, 'utf8') <= MAX_PASSWORD_BYTES;
+  const currentOk =
+    (await comparePassword(current, row.password_hash)) && Buffer.byteLength(current, 'utf8') <= MAX_PASSWORD_BYTES;
   if (!currentOk) throw unprocessable('The current password is wrong', { field: 'currentPassword' });
   const hash = await hashPassword(next, rounds);
   await db('users').where({ id: userId }).update({ password_hash: hash });

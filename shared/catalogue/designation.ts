@@ -5,7 +5,15 @@ export function formatMm(n: number): string {
   return String(Math.round(n * 100) / 100);
 }
 
-const SERIES_ALIASES: Readonly<Record<string, string>> = { UC: 'UKC', UB: 'UKB', UKC: 'UKC', UKB: 'UKB', SHS: 'SHS', RHS: 'RHS', CHS: 'CHS' };
+const SERIES_ALIASES: Readonly<Record<string, string>> = {
+  UC: 'UKC',
+  UB: 'UKB',
+  UKC: 'UKC',
+  UKB: 'UKB',
+  SHS: 'SHS',
+  RHS: 'RHS',
+  CHS: 'CHS',
+};
 
 /**
  * Canonical lookup key of a designation: upper case, one separator "X" between dimensions (× * x),

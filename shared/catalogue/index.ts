@@ -42,7 +42,10 @@ export function findSection(designation: string): CatalogueEntry | undefined {
  * A catalogue designation, a company section from `extra`, or dimensions, as a designation and
  * its dimensions. Throws EngineError 'unknown_section' or 'invalid_input'.
  */
-export function resolveSection(section: string | SectionDims, extra?: ReadonlyMap<string, SectionDims>): { designation: string; dims: SectionDims } {
+export function resolveSection(
+  section: string | SectionDims,
+  extra?: ReadonlyMap<string, SectionDims>,
+): { designation: string; dims: SectionDims } {
   if (typeof section !== 'string') {
     const dims = validateDims(section);
     return { designation: dimsDesignation(dims), dims };
@@ -53,7 +56,10 @@ export function resolveSection(section: string | SectionDims, extra?: ReadonlyMa
   if (entry) return { designation: entry.designation, dims: entry.dims };
   const hints = searchSections(section.replace(/x?[\d.]*$/i, ''), 3).map((e) => e.designation);
   const hint = hints.length > 0 ? ` Similar: ${hints.join(', ')}.` : '';
-  throw new EngineError('unknown_section', `"${section}" is not a section in the catalogue or in this building's own sections.${hint}`);
+  throw new EngineError(
+    'unknown_section',
+    `"${section}" is not a section in the catalogue or in this building's own sections.${hint}`,
+  );
 }
 
 function findExtra(extra: ReadonlyMap<string, SectionDims>, designation: string): SectionDims | undefined {
@@ -70,7 +76,9 @@ export function searchSections(prefix: string, limit = 20): CatalogueEntry[] {
   // "HEB 3" is the start of "HE 3xx B", which no plain prefix test can see
   const euro = /^HE ?([ABM]) ?(\d*)$/.exec(key.replace(/^HE (\d*) ?([ABM])$/, 'HE $2 $1'));
   for (const [full, size, entry] of KEYS) {
-    const match = euro ? entry.series === `HE ${euro[1]}` && size.startsWith(euro[2]!) : full.startsWith(key) || size.startsWith(key);
+    const match = euro
+      ? entry.series === `HE ${euro[1]}` && size.startsWith(euro[2]!)
+      : full.startsWith(key) || size.startsWith(key);
     if (match) {
       hits.push(entry);
       if (hits.length >= limit) break;

@@ -12,8 +12,10 @@ export function checkLength(name: string, value: number): void {
 }
 
 export function checkAxialForce(NEd: number): void {
-  if (typeof NEd !== 'number' || !Number.isFinite(NEd)) throw new EngineError('invalid_input', `NEd must be a finite force (N), got ${String(NEd)}.`);
-  if (NEd < 0) throw new EngineError('invalid_input', `NEd = ${NEd} N is tension; only compression (NEd ≥ 0) is checked here.`);
+  if (typeof NEd !== 'number' || !Number.isFinite(NEd))
+    throw new EngineError('invalid_input', `NEd must be a finite force (N), got ${String(NEd)}.`);
+  if (NEd < 0)
+    throw new EngineError('invalid_input', `NEd = ${NEd} N is tension; only compression (NEd ≥ 0) is checked here.`);
 }
 
 /** Partial factors: every National Annex uses values from 1.0 upwards; anything outside 1.0–2.0 is a slip. */
@@ -24,9 +26,14 @@ export function checkPartialFactor(name: string, value: number): void {
 }
 
 export function checkGrade(grade: Grade): void {
-  if (!GRADES.has(grade)) throw new EngineError('invalid_input', `Unknown steel grade "${String(grade)}": expected one of ${[...GRADES].join(', ')}.`);
+  if (!GRADES.has(grade))
+    throw new EngineError(
+      'invalid_input',
+      `Unknown steel grade "${String(grade)}": expected one of ${[...GRADES].join(', ')}.`,
+    );
 }
 
 export function checkAnnex(annex: Annex): void {
-  if (annex !== 'UK' && annex !== 'EN') throw new EngineError('invalid_input', `Unknown annex "${String(annex)}": expected "UK" or "EN".`);
+  if (annex !== 'UK' && annex !== 'EN')
+    throw new EngineError('invalid_input', `Unknown annex "${String(annex)}": expected "UK" or "EN".`);
 }

@@ -31,13 +31,22 @@ function classOf(ratio: number, limits: readonly [number, number, number]): Sect
   return 4;
 }
 
-function element(name: string, kind: ClassifiedElement['kind'], c: number, t: number, limits: readonly [number, number, number], count: number): ClassifiedElement {
+function element(
+  name: string,
+  kind: ClassifiedElement['kind'],
+  c: number,
+  t: number,
+  limits: readonly [number, number, number],
+  count: number,
+): ClassifiedElement {
   const ratio = c / t;
   return { element: name, kind, c, t, ratio, limits, sectionClass: classOf(ratio, limits), count };
 }
 
 /** Plate widths c that Table 5.2 measures, without the limits. */
-export function compressedElements(dims: SectionDims): Array<Pick<ClassifiedElement, 'element' | 'kind' | 'c' | 't' | 'count'>> {
+export function compressedElements(
+  dims: SectionDims,
+): Array<Pick<ClassifiedElement, 'element' | 'kind' | 'c' | 't' | 'count'>> {
   if (dims.shape === 'I') {
     // Welded sections: c is measured from the web face (weld size taken as 0)
     const r = dims.make === 'rolled' ? dims.r : 0;
@@ -74,6 +83,11 @@ export function classifySection(dims: SectionDims, epsilon: number): Classificat
     return element(p.element, p.kind, p.c, p.t, limits, p.count);
   });
   let governing = elements[0]!;
-  for (const e of elements) if (e.sectionClass > governing.sectionClass || (e.sectionClass === governing.sectionClass && e.ratio / e.limits[2] > governing.ratio / governing.limits[2])) governing = e;
+  for (const e of elements)
+    if (
+      e.sectionClass > governing.sectionClass ||
+      (e.sectionClass === governing.sectionClass && e.ratio / e.limits[2] > governing.ratio / governing.limits[2])
+    )
+      governing = e;
   return { sectionClass: governing.sectionClass, governing, elements };
 }

@@ -13,7 +13,11 @@ export interface ElementReduction {
 }
 
 /** Reduction factor ρ of a plate in uniform compression, ψ = 1 (EN 1993-1-5 4.4(2)). */
-export function plateReduction(ratio: number, epsilon: number, kind: 'internal' | 'outstand'): { kSigma: number; lambdaP: number; rho: number } {
+export function plateReduction(
+  ratio: number,
+  epsilon: number,
+  kind: 'internal' | 'outstand',
+): { kSigma: number; lambdaP: number; rho: number } {
   // EN 1993-1-5 Table 4.1 (internal, ψ = 1) and Table 4.2 (outstand, ψ = 1)
   const kSigma = kind === 'internal' ? 4.0 : 0.43;
   // EN 1993-1-5 4.4(2): λ̄p = (b̄/t) / (28.4 ε √kσ)
@@ -34,7 +38,12 @@ export function plateReduction(ratio: number, epsilon: number, kind: 'internal' 
  * EN 1993-1-5 4.4): each class 4 element keeps ρ·c of its width c. Doubly symmetric sections
  * have no shift of the neutral axis, so no additional moment arises (EN 1993-1-1 6.2.2.5(4)).
  */
-export function effectiveArea(dims: SectionDims, A: number, classification: Classification, epsilon: number): { Aeff: number; reductions: ElementReduction[] } {
+export function effectiveArea(
+  dims: SectionDims,
+  A: number,
+  classification: Classification,
+  epsilon: number,
+): { Aeff: number; reductions: ElementReduction[] } {
   if (classification.sectionClass < 4) return { Aeff: A, reductions: [] };
   if (dims.shape === 'CHS') {
     throw new EngineError(

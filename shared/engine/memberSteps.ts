@@ -14,11 +14,29 @@ interface MemberInput {
   gammaM1: number;
 }
 
-const axisLabels = (a: 'y' | 'z') => ({ Lcr: `Lcr,${a}`, Ncr: `Ncr,${a}`, lambda: `λ̄${a}`, phi: `Φ${a}`, chi: `χ${a}`, Nb: `Nb,${a},Rd` });
+const axisLabels = (a: 'y' | 'z') => ({
+  Lcr: `Lcr,${a}`,
+  Ncr: `Ncr,${a}`,
+  lambda: `λ̄${a}`,
+  phi: `Φ${a}`,
+  chi: `χ${a}`,
+  Nb: `Nb,${a},Rd`,
+});
 const LABELS = { y: axisLabels('y'), z: axisLabels('z') };
 const IGNORED = 'buckling may be ignored (λ̄ ≤ 0.2 or NEd/Ncr ≤ 0.04)';
 
-function pushAxisSteps(out: CalcStep[], axis: 'y' | 'z', Lcr: number, Ncr: number, lambdaBar: number, alpha: number, chi: number, NbRd: number, NEd: number, class4: boolean): void {
+function pushAxisSteps(
+  out: CalcStep[],
+  axis: 'y' | 'z',
+  Lcr: number,
+  Ncr: number,
+  lambdaBar: number,
+  alpha: number,
+  chi: number,
+  NbRd: number,
+  NEd: number,
+  class4: boolean,
+): void {
   const s = LABELS[axis];
   const ignored = lambdaBar <= 0.2 || NEd <= 0.04 * Ncr;
   out.push(
@@ -37,7 +55,11 @@ function pushAxisSteps(out: CalcStep[], axis: 'y' | 'z', Lcr: number, Ncr: numbe
 const GAMMA_M0_1: CalcStep = Object.freeze({ symbol: 'γM0', value: 1, unit: '', clause: 'EN 1993-1-1 6.1(1)' });
 const GAMMA_M1_1: CalcStep = Object.freeze({ symbol: 'γM1', value: 1, unit: '', clause: 'EN 1993-1-1 6.1(1)' });
 
-const GOVERNED_BY = { 'cross-section': 'governed by the cross-section resistance', 'flexural-y': 'governed by flexural buckling about y-y', 'flexural-z': 'governed by flexural buckling about z-z' } as const;
+const GOVERNED_BY = {
+  'cross-section': 'governed by the cross-section resistance',
+  'flexural-y': 'governed by flexural buckling about y-y',
+  'flexural-z': 'governed by flexural buckling about z-z',
+} as const;
 
 /** The section working followed by the length- and load-dependent working of one check. */
 export function memberSteps(g: GradeData, res: CompressionResult, input: MemberInput): CalcStep[] {
@@ -52,7 +74,13 @@ export function memberSteps(g: GradeData, res: CompressionResult, input: MemberI
   pushAxisSteps(out, 'z', input.LcrZ, res.NcrZ, res.lambdaBarZ, g.alphaZ, res.chiZ, res.NbRdZ, input.NEd, class4);
   out.push(
     { symbol: 'NEd', value: input.NEd, unit: 'N', clause: 'EN 1990 6.4.3.2', description: 'design axial force' },
-    { symbol: 'utilisation', value: res.utilisation, unit: '', clause: 'EN 1993-1-1 eq. 6.9, 6.46', description: GOVERNED_BY[res.governing] },
+    {
+      symbol: 'utilisation',
+      value: res.utilisation,
+      unit: '',
+      clause: 'EN 1993-1-1 eq. 6.9, 6.46',
+      description: GOVERNED_BY[res.governing],
+    },
   );
   return out;
 }

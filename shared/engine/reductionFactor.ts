@@ -18,7 +18,10 @@ export function reductionFactorFromAlpha(lambdaBar: number, alpha: number): numb
 /** Flexural buckling reduction factor χ (EN 1993-1-1 eq. 6.49), never above 1. */
 export function reductionFactor(lambdaBar: number, curve: BucklingCurve): number {
   if (!Number.isFinite(lambdaBar) || lambdaBar < 0) {
-    throw new EngineError('invalid_input', `Non-dimensional slenderness must be a finite number ≥ 0, got ${lambdaBar}.`);
+    throw new EngineError(
+      'invalid_input',
+      `Non-dimensional slenderness must be a finite number ≥ 0, got ${lambdaBar}.`,
+    );
   }
   return reductionFactorFromAlpha(lambdaBar, imperfectionFactor(curve));
 }

@@ -14,7 +14,10 @@ export function validateDims(input: unknown): SectionDims {
   if (!parsed.success) {
     const issue = parsed.error.issues[0];
     const where = issue && issue.path.length > 0 ? `${issue.path.join('.')}: ` : '';
-    throw new EngineError('invalid_input', `Section dimensions are not valid (${where}${issue?.message ?? 'unknown problem'}).`);
+    throw new EngineError(
+      'invalid_input',
+      `Section dimensions are not valid (${where}${issue?.message ?? 'unknown problem'}).`,
+    );
   }
   const dims = parsed.data;
   const fail = (why: string): never => {
@@ -23,12 +26,15 @@ export function validateDims(input: unknown): SectionDims {
   if (dims.shape === 'I') {
     const { h, b, tw, tf } = dims;
     const r = dims.make === 'rolled' ? dims.r : 0;
-    if (h - 2 * tf - 2 * r <= 0) fail(`the flanges and root radii (2×${fmt(tf)} + 2×${fmt(r)} mm) leave no web in a depth of ${fmt(h)} mm`);
-    if (tw + 2 * r >= b) fail(`the web and root radii (${fmt(tw)} + 2×${fmt(r)} mm) are as wide as the flange (${fmt(b)} mm)`);
+    if (h - 2 * tf - 2 * r <= 0)
+      fail(`the flanges and root radii (2×${fmt(tf)} + 2×${fmt(r)} mm) leave no web in a depth of ${fmt(h)} mm`);
+    if (tw + 2 * r >= b)
+      fail(`the web and root radii (${fmt(tw)} + 2×${fmt(r)} mm) are as wide as the flange (${fmt(b)} mm)`);
   } else if (dims.shape === 'RHS') {
     const { h, b, t } = dims;
     const { outer } = cornerRadii(dims);
-    if (Math.min(h, b) <= 2 * outer) fail(`a wall ${fmt(t)} mm thick with its corner radii does not fit in ${fmt(Math.min(h, b))} mm`);
+    if (Math.min(h, b) <= 2 * outer)
+      fail(`a wall ${fmt(t)} mm thick with its corner radii does not fit in ${fmt(Math.min(h, b))} mm`);
   } else if (dims.t * 2 >= dims.d) {
     fail(`a wall ${fmt(dims.t)} mm thick leaves no bore in a tube of ${fmt(dims.d)} mm diameter`);
   }

@@ -66,9 +66,11 @@ export function yieldStrengthSource(product: Product, annex: Annex): string {
  * standard (as the UK National Annex to EN 1993-1-1 NA.2.4 directs); annex 'EN' reads Table 3.1.
  */
 export function yieldStrength(grade: Grade, t: number, product: Product, annex: Annex = 'UK'): number {
-  if (!Number.isFinite(t) || t <= 0) throw new EngineError('invalid_input', `Thickness must be a finite number above zero, got ${t} mm.`);
+  if (!Number.isFinite(t) || t <= 0)
+    throw new EngineError('invalid_input', `Thickness must be a finite number above zero, got ${t} mm.`);
   const source = SOURCES[annex]?.[product];
-  if (!source) throw new EngineError('invalid_input', `Unknown annex "${String(annex)}" or product "${String(product)}".`);
+  if (!source)
+    throw new EngineError('invalid_input', `Unknown annex "${String(annex)}" or product "${String(product)}".`);
   const [bands, name] = source;
   for (const [maxT, values] of bands) {
     if (t <= maxT) {
@@ -77,5 +79,8 @@ export function yieldStrength(grade: Grade, t: number, product: Product, annex: 
       return fy;
     }
   }
-  throw new EngineError('unsupported', `${name} gives no yield strength for ${grade} at a thickness of ${t} mm (${product} product).`);
+  throw new EngineError(
+    'unsupported',
+    `${name} gives no yield strength for ${grade} at a thickness of ${t} mm (${product} product).`,
+  );
 }

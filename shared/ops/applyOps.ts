@@ -1,7 +1,13 @@
 // Applying edit operations to a stack document (docs/contracts.md §Edits). Pure: the server applies committed edits
 // with it and the client applies its own edits optimistically with the same code.
 import type { Op } from '../schema/ops.ts';
-import { nodeDataSchemas, stackNodeSchema, type StackDocument, type StackEdge, type StackNode } from '../schema/stack.ts';
+import {
+  nodeDataSchemas,
+  stackNodeSchema,
+  type StackDocument,
+  type StackEdge,
+  type StackNode,
+} from '../schema/stack.ts';
 
 /** An op that cannot be applied: which one, on which id, and why in plain words. */
 export class OpError extends Error {

@@ -21,18 +21,22 @@ function levelAt(levels: readonly Level[], elevation: number): string | undefine
 }
 
 /** The elevations of a template's base, each floor and its top (m), bottom first. */
-export function templateFloors(t: Pick<StackTemplate, 'elevations' | 'storeys' | 'storeyHeight' | 'baseElevation'>): number[] {
+export function templateFloors(
+  t: Pick<StackTemplate, 'elevations' | 'storeys' | 'storeyHeight' | 'baseElevation'>,
+): number[] {
   if (t.elevations) return t.elevations.map(round);
   const { storeys, storeyHeight } = t;
   // stackTemplateSchema refuses a body with neither; this guards a caller that skipped it.
-  if (storeys === undefined || storeyHeight === undefined) throw new Error('A template needs elevations, or storeys and a storey height');
+  if (storeys === undefined || storeyHeight === undefined)
+    throw new Error('A template needs elevations, or storeys and a storey height');
   return Array.from({ length: storeys + 1 }, (_, k) => round((t.baseElevation ?? 0) + k * storeyHeight));
 }
 
 /** The floors each lift spans, as indexes into the floors: a splice every n storeys, the top lift taking what is left. */
 export function liftFloorRanges(storeys: number, spliceEvery: number): { bottom: number; top: number }[] {
   const ranges: { bottom: number; top: number }[] = [];
-  for (let bottom = 0; bottom < storeys; bottom += spliceEvery) ranges.push({ bottom, top: Math.min(bottom + spliceEvery, storeys) });
+  for (let bottom = 0; bottom < storeys; bottom += spliceEvery)
+    ranges.push({ bottom, top: Math.min(bottom + spliceEvery, storeys) });
   return ranges;
 }
 
@@ -67,7 +71,12 @@ export function stackFromTemplate(t: StackTemplate, levels: readonly Level[] = [
     const levelId = levelAt(levels, elevation);
     return levelId ? { levelId } : {};
   };
-  nodes.push({ id: 'support', kind: 'support', data: { elevation: floors[0], ...onLevel(floors[0]), fixity: t.baseFixity }, position: at(CHAIN_X, floors[0]) });
+  nodes.push({
+    id: 'support',
+    kind: 'support',
+    data: { elevation: floors[0], ...onLevel(floors[0]), fixity: t.baseFixity },
+    position: at(CHAIN_X, floors[0]),
+  });
   let below = 'support';
   let belowElevation = floors[0];
   ranges.forEach(({ bottom, top }, i) => {
@@ -75,11 +84,24 @@ export function stackFromTemplate(t: StackTemplate, levels: readonly Level[] = [
     const topElevation = last ? floors[storeys] : spliceElevation(floors[top], floors[top + 1]);
     const liftId = `lift-${i + 1}`;
     const section = t.sections[Math.min(i, t.sections.length - 1)];
-    nodes.push({ id: liftId, kind: 'lift', data: { section, grade: t.grade }, position: at(CHAIN_X, (belowElevation + topElevation) / 2) });
+    nodes.push({
+      id: liftId,
+      kind: 'lift',
+      data: { section, grade: t.grade },
+      position: at(CHAIN_X, (belowElevation + topElevation) / 2),
+    });
     link(below, liftId);
     const above = last ? 'cap' : `splice-${i + 1}`;
     if (last) {
-      const data = { elevation: topElevation, ...onLevel(topElevation), fixity: 'pinned' as const, Gk: t.Gk, Qk: t.Qk, category: 'H' as const, ...givenFaces(t.roofFaces) };
+      const data = {
+        elevation: topElevation,
+        ...onLevel(topElevation),
+        fixity: 'pinned' as const,
+        Gk: t.Gk,
+        Qk: t.Qk,
+        category: 'H' as const,
+        ...givenFaces(t.roofFaces),
+      };
       nodes.push({ id: 'cap', kind: 'cap', data, position: at(CHAIN_X, topElevation) });
     } else {
       nodes.push({ id: above, kind: 'splice', data: { elevation: topElevation }, position: at(CHAIN_X, topElevation) });
@@ -92,7 +114,16 @@ export function stackFromTemplate(t: StackTemplate, levels: readonly Level[] = [
       nodes.push({
         id,
         kind: 'restraint',
-        data: { elevation, ...onLevel(elevation), axes: 'both', fixity: 'pinned', Gk: t.Gk, Qk: t.Qk, category: 'B', ...givenFaces(t.faces) },
+        data: {
+          elevation,
+          ...onLevel(elevation),
+          axes: 'both',
+          fixity: 'pinned',
+          Gk: t.Gk,
+          Qk: t.Qk,
+          category: 'B',
+          ...givenFaces(t.faces),
+        },
         position: at(RESTRAINT_X, elevation),
       });
       link(id, liftId);

@@ -19,7 +19,8 @@ export const MIN_LIFT_M = 0.3;
 export type NewId = (prefix: 'lift' | 'splice' | 'restraint' | 'edge') => string;
 
 type ChainEnd = NodeOf<'support'> | NodeOf<'splice'> | NodeOf<'cap'>;
-const isEnd = (n: StackNode | undefined): n is ChainEnd => n?.kind === 'support' || n?.kind === 'splice' || n?.kind === 'cap';
+const isEnd = (n: StackNode | undefined): n is ChainEnd =>
+  n?.kind === 'support' || n?.kind === 'splice' || n?.kind === 'cap';
 
 interface LiftSpan {
   lift: NodeOf<'lift'>;
@@ -43,7 +44,8 @@ function liftSpan(doc: StackDocument, liftId: string): LiftSpan {
   const below = doc.edges.map((e) => (e.target === liftId ? byId.get(e.source) : undefined)).find(isEnd);
   const up = doc.edges.find((e) => e.source === liftId && isEnd(byId.get(e.target)));
   const above = up ? byId.get(up.target) : undefined;
-  if (!below || !up || !isEnd(above)) throw new StructuralEditError('The lift must stand on the support or a splice and carry a splice or the cap');
+  if (!below || !up || !isEnd(above))
+    throw new StructuralEditError('The lift must stand on the support or a splice and carry a splice or the cap');
   return { lift, below, above, upEdge: up.id };
 }
 
@@ -65,11 +67,20 @@ function checkInside(z: number, bottom: number, top: number, what: string): void
 }
 
 /** Moves each restraint to the lift whose span now holds it (at the splice itself it stays on the lower lift). */
-function reattach(restraints: { node: NodeOf<'restraint'>; edgeId: string; on: string }[], z: number, lower: string, upper: string, newId: NewId): Op[] {
+function reattach(
+  restraints: { node: NodeOf<'restraint'>; edgeId: string; on: string }[],
+  z: number,
+  lower: string,
+  upper: string,
+  newId: NewId,
+): Op[] {
   return restraints.flatMap(({ node, edgeId, on }): Op[] => {
     const target = node.data.elevation > z ? upper : lower;
     if (target === on) return [];
-    return [{ op: 'removeEdge', id: edgeId }, { op: 'addEdge', edge: { id: newId('edge'), source: node.id, target } }];
+    return [
+      { op: 'removeEdge', id: edgeId },
+      { op: 'addEdge', edge: { id: newId('edge'), source: node.id, target } },
+    ];
   });
 }
 
@@ -77,7 +88,12 @@ function reattach(restraints: { node: NodeOf<'restraint'>; edgeId: string; on: s
  * Splits a lift at `elevation`: a splice there and a new upper lift with the same section and grade,
  * marked 'to-confirm' until the engineer confirms it. Restraints above the splice move to the new lift.
  */
-export function splitLiftOps(doc: StackDocument, liftId: string, elevation: number, newId: NewId): { ops: Op[]; spliceId: string; upperId: string } {
+export function splitLiftOps(
+  doc: StackDocument,
+  liftId: string,
+  elevation: number,
+  newId: NewId,
+): { ops: Op[]; spliceId: string; upperId: string } {
   const { lift, below, above, upEdge } = liftSpan(doc, liftId);
   checkInside(elevation, below.data.elevation, above.data.elevation, 'The splice');
   const spliceId = newId('splice');
@@ -90,13 +106,22 @@ export function splitLiftOps(doc: StackDocument, liftId: string, elevation: numb
     { op: 'addEdge', edge: { id: newId('edge'), source: liftId, target: spliceId } },
     { op: 'addEdge', edge: { id: newId('edge'), source: spliceId, target: upperId } },
     { op: 'addEdge', edge: { id: newId('edge'), source: upperId, target: above.id } },
-    ...reattach(restraintsOn(doc, liftId).map((r) => ({ ...r, on: liftId })), elevation, liftId, upperId, newId),
+    ...reattach(
+      restraintsOn(doc, liftId).map((r) => ({ ...r, on: liftId })),
+      elevation,
+      liftId,
+      upperId,
+      newId,
+    ),
   ];
   return { ops, spliceId, upperId };
 }
 
 /** The lifts on either side of a splice. */
-function spliceLifts(doc: StackDocument, spliceId: string): { splice: NodeOf<'splice'>; lower: LiftSpan; upper: LiftSpan } {
+function spliceLifts(
+  doc: StackDocument,
+  spliceId: string,
+): { splice: NodeOf<'splice'>; lower: LiftSpan; upper: LiftSpan } {
   const splice = nodeOf(doc, spliceId);
   if (splice.kind !== 'splice') throw new StructuralEditError('Pick a splice');
   const lowerId = doc.edges.find((e) => e.target === spliceId && nodeOf(doc, e.source).kind === 'lift')?.source;
@@ -113,7 +138,10 @@ export function joinLiftsOps(doc: StackDocument, spliceId: string, newId: NewId)
     { op: 'removeNode', id: spliceId },
     { op: 'removeNode', id: upper.lift.id },
     { op: 'addEdge', edge: { id: newId('edge'), source: lower.lift.id, target: upper.above.id } },
-    ...moved.map(({ node }): Op => ({ op: 'addEdge', edge: { id: newId('edge'), source: node.id, target: lower.lift.id } })),
+    ...moved.map(({ node }): Op => ({
+      op: 'addEdge',
+      edge: { id: newId('edge'), source: node.id, target: lower.lift.id },
+    })),
   ];
   return { ops, liftId: lower.lift.id };
 }
@@ -126,7 +154,10 @@ export function moveSpliceOps(doc: StackDocument, spliceId: string, elevation: n
     ...restraintsOn(doc, lower.lift.id).map((r) => ({ ...r, on: lower.lift.id })),
     ...restraintsOn(doc, upper.lift.id).map((r) => ({ ...r, on: upper.lift.id })),
   ];
-  return [{ op: 'updateNode', id: spliceId, data: { elevation } }, ...reattach(restraints, elevation, lower.lift.id, upper.lift.id, newId)];
+  return [
+    { op: 'updateNode', id: spliceId, data: { elevation } },
+    ...reattach(restraints, elevation, lower.lift.id, upper.lift.id, newId),
+  ];
 }
 
 export interface LevelRef {
@@ -149,11 +180,20 @@ function liftSpans(doc: StackDocument): LiftSpan[] {
 }
 
 /** A floor restraint (both axes, pinned, no load yet) on the level, attached to the lift that spans it. */
-export function addFloorRestraintOps(doc: StackDocument, level: LevelRef, newId: NewId): { ops: Op[]; restraintId: string } {
-  const taken = doc.nodes.find((n) => n.kind === 'restraint' && (n.data.levelId === level.id || Math.abs(n.data.elevation - level.elevation) < 1e-6));
+export function addFloorRestraintOps(
+  doc: StackDocument,
+  level: LevelRef,
+  newId: NewId,
+): { ops: Op[]; restraintId: string } {
+  const taken = doc.nodes.find(
+    (n) =>
+      n.kind === 'restraint' && (n.data.levelId === level.id || Math.abs(n.data.elevation - level.elevation) < 1e-6),
+  );
   if (taken) throw new StructuralEditError(`There is already a restraint at ${level.name}`);
   const spans = liftSpans(doc);
-  const holder = spans.find((s) => level.elevation > s.below.data.elevation && level.elevation <= s.above.data.elevation);
+  const holder = spans.find(
+    (s) => level.elevation > s.below.data.elevation && level.elevation <= s.above.data.elevation,
+  );
   if (!holder) throw new StructuralEditError(`No lift spans ${level.name} (${formatElevation(level.elevation)} m)`);
   const restraintId = newId('restraint');
   const ops: Op[] = [
@@ -162,7 +202,15 @@ export function addFloorRestraintOps(doc: StackDocument, level: LevelRef, newId:
       node: {
         id: restraintId,
         kind: 'restraint',
-        data: { elevation: level.elevation, levelId: level.id, axes: 'both', fixity: 'pinned', Gk: 0, Qk: 0, category: 'B' },
+        data: {
+          elevation: level.elevation,
+          levelId: level.id,
+          axes: 'both',
+          fixity: 'pinned',
+          Gk: 0,
+          Qk: 0,
+          category: 'B',
+        },
       },
     },
     { op: 'addEdge', edge: { id: newId('edge'), source: restraintId, target: holder.lift.id } },
@@ -172,7 +220,10 @@ export function addFloorRestraintOps(doc: StackDocument, level: LevelRef, newId:
 
 /** The lift that spans an elevation (for the split command started from an elevation rather than a lift). */
 export function liftAt(doc: StackDocument, elevation: number): string | null {
-  return liftSpans(doc).find((s) => elevation > s.below.data.elevation && elevation < s.above.data.elevation)?.lift.id ?? null;
+  return (
+    liftSpans(doc).find((s) => elevation > s.below.data.elevation && elevation < s.above.data.elevation)?.lift.id ??
+    null
+  );
 }
 
 /**
@@ -182,7 +233,10 @@ export function liftAt(doc: StackDocument, elevation: number): string | null {
 export function moveRestraintOps(doc: StackDocument, restraintId: string, elevation: number, newId: NewId): Op[] {
   const node = nodeOf(doc, restraintId);
   if (node.kind !== 'restraint') throw new StructuralEditError('Pick a restraint');
-  if (node.data.levelId) throw new StructuralEditError('This restraint sits on a level and moves with it: move the level, or untie the restraint first');
+  if (node.data.levelId)
+    throw new StructuralEditError(
+      'This restraint sits on a level and moves with it: move the level, or untie the restraint first',
+    );
   const holder = liftSpans(doc).find((s) => elevation > s.below.data.elevation && elevation <= s.above.data.elevation);
   if (!holder) throw new StructuralEditError(`No lift spans ${formatElevation(elevation)} m`);
   const edge = doc.edges.find((e) => e.source === restraintId && nodeOf(doc, e.target).kind === 'lift');

@@ -1,7 +1,14 @@
 // Request and response bodies of the REST API (docs/contracts.md §REST routes). Both ends use these; nothing is
 // redeclared.
 import { z } from 'zod';
-import { stackDocumentSchema, gradeSchema, fixitySchema, sectionDimsSchema, restraintFacesSchema, MAX_ELEVATION_M } from './stack.ts';
+import {
+  stackDocumentSchema,
+  gradeSchema,
+  fixitySchema,
+  sectionDimsSchema,
+  restraintFacesSchema,
+  MAX_ELEVATION_M,
+} from './stack.ts';
 import { opsSchema } from './ops.ts';
 import { analysisOptionsSchema, type AnalysisOptions, type StackResult } from './results.ts';
 
@@ -24,7 +31,10 @@ export const passwordSchema = z
   .min(10, 'must be at least 10 characters')
   .max(200)
   .refine((p) => p.trim().length >= 10, 'must hold at least 10 characters besides spaces')
-  .refine((p) => utf8Length(p) <= MAX_PASSWORD_BYTES, `must be at most ${MAX_PASSWORD_BYTES} bytes (about 72 letters, fewer with accents or symbols)`);
+  .refine(
+    (p) => utf8Length(p) <= MAX_PASSWORD_BYTES,
+    `must be at most ${MAX_PASSWORD_BYTES} bytes (about 72 letters, fewer with accents or symbols)`,
+  );
 export const idParamSchema = z.coerce.number().int().positive().max(Number.MAX_SAFE_INTEGER);
 
 export const registerBodySchema = z
@@ -32,9 +42,15 @@ export const registerBodySchema = z
   .strict();
 export const loginBodySchema = z.object({ email: emailSchema, password: z.string().min(1).max(200) }).strict();
 export const verifyEmailBodySchema = z.object({ token: z.string().min(1).max(2000) }).strict();
-export const changePasswordBodySchema = z.object({ currentPassword: z.string().min(1).max(200), newPassword: passwordSchema }).strict();
+export const changePasswordBodySchema = z
+  .object({ currentPassword: z.string().min(1).max(200), newPassword: passwordSchema })
+  .strict();
 export const passwordStrengthBodySchema = z
-  .object({ password: z.string().max(200), email: z.string().max(254).optional(), name: z.string().max(100).optional() })
+  .object({
+    password: z.string().max(200),
+    email: z.string().max(254).optional(),
+    name: z.string().max(100).optional(),
+  })
   .strict();
 
 /** How guessable a password is: score 0 (very) to 4 (very unlikely), as the estimator rates it. */
@@ -69,10 +85,18 @@ export interface AuthResponse {
 const name = z.string().trim().min(1).max(120);
 
 export const createBuildingBodySchema = z
-  .object({ name, reference: z.string().trim().max(60).optional(), options: analysisOptionsSchema.partial().optional() })
+  .object({
+    name,
+    reference: z.string().trim().max(60).optional(),
+    options: analysisOptionsSchema.partial().optional(),
+  })
   .strict();
 export const updateBuildingBodySchema = z
-  .object({ name: name.optional(), reference: z.string().trim().max(60).optional(), options: analysisOptionsSchema.partial().optional() })
+  .object({
+    name: name.optional(),
+    reference: z.string().trim().max(60).optional(),
+    options: analysisOptionsSchema.partial().optional(),
+  })
   .strict();
 
 export interface BuildingSummary {
@@ -114,7 +138,10 @@ export const LEVEL_ELEVATION_RANGE = { min: -100, max: 900 } as const;
 const levelElevationSchema = z
   .number()
   .finite()
-  .min(LEVEL_ELEVATION_RANGE.min, `must be at least ${LEVEL_ELEVATION_RANGE.min} m: a level deeper than that is not a building level`)
+  .min(
+    LEVEL_ELEVATION_RANGE.min,
+    `must be at least ${LEVEL_ELEVATION_RANGE.min} m: a level deeper than that is not a building level`,
+  )
   .max(LEVEL_ELEVATION_RANGE.max, `must be at most ${LEVEL_ELEVATION_RANGE.max} m: no building stands that tall`);
 export const createLevelBodySchema = z
   .object({ name: z.string().trim().min(1).max(60), elevation: levelElevationSchema })
@@ -152,7 +179,11 @@ export const stackTemplateSchema = z
     /** Regular templates only; 0 when left out. */
     baseElevation: z.number().finite().min(-100).max(100).optional(),
     /** Base, every floor and the top (m), rising; replaces storeys, storeyHeight and baseElevation. */
-    elevations: z.array(z.number().finite().min(-MAX_ELEVATION_M).max(MAX_ELEVATION_M)).min(2).max(MAX_TEMPLATE_STOREYS + 1).optional(),
+    elevations: z
+      .array(z.number().finite().min(-MAX_ELEVATION_M).max(MAX_ELEVATION_M))
+      .min(2)
+      .max(MAX_TEMPLATE_STOREYS + 1)
+      .optional(),
     spliceEvery: z.number().int().min(1).max(10).default(2),
     /** Section per lift, bottom first; the last one repeats for the remaining lifts. */
     sections: z.array(z.string().trim().min(1).max(80)).min(1).max(120),
@@ -176,7 +207,8 @@ export const stackTemplateSchema = z
     }
     // Elevations fix every floor, so a storey height or base elevation beside them could only disagree.
     if (t.storeyHeight !== undefined) issue('storeyHeight', 'must be left out when elevations are given');
-    if (t.baseElevation !== undefined) issue('baseElevation', 'must be left out when elevations are given (the first elevation is the base)');
+    if (t.baseElevation !== undefined)
+      issue('baseElevation', 'must be left out when elevations are given (the first elevation is the base)');
     if (t.storeys !== undefined && t.storeys !== t.elevations.length - 1) {
       issue('storeys', `must be one less than the number of elevations (${t.elevations.length - 1}), or left out`);
     }
@@ -193,12 +225,14 @@ export const stackTemplateSchema = z
 export type StackTemplate = z.infer<typeof stackTemplateSchema>;
 
 export const createStackBodySchema = z
-  .object({ name: z.string().trim().min(1).max(40), doc: stackDocumentSchema.optional(), template: stackTemplateSchema.optional() })
+  .object({
+    name: z.string().trim().min(1).max(40),
+    doc: stackDocumentSchema.optional(),
+    template: stackTemplateSchema.optional(),
+  })
   .strict()
   .refine((b) => !(b.doc && b.template), 'give either doc or template, not both');
-export const putStackBodySchema = z
-  .object({ doc: stackDocumentSchema, baseVersion: z.number().int().min(0) })
-  .strict();
+export const putStackBodySchema = z.object({ doc: stackDocumentSchema, baseVersion: z.number().int().min(0) }).strict();
 export const patchStackBodySchema = z.object({ name: z.string().trim().min(1).max(40) }).strict();
 export const applyOpsBodySchema = z.object({ ops: opsSchema, baseVersion: z.number().int().min(0) }).strict();
 
@@ -232,5 +266,7 @@ export interface StackDetail {
   webAlong?: 'x' | 'y';
 }
 
-export const companySectionSchema = z.object({ designation: z.string().trim().min(1).max(80), dims: sectionDimsSchema }).strict();
+export const companySectionSchema = z
+  .object({ designation: z.string().trim().min(1).max(80), dims: sectionDimsSchema })
+  .strict();
 export type CompanySection = z.infer<typeof companySectionSchema>;

@@ -10,11 +10,18 @@ export const MAX_PLAN_M = 10_000;
 export const MAX_AREA_LOAD = 1000;
 export const MAX_GRID_LINES = 200;
 
-const id = z.string().trim().min(1).max(64).regex(/^[A-Za-z0-9_.:-]+$/, 'may hold only letters, digits and _ . : -');
+const id = z
+  .string()
+  .trim()
+  .min(1)
+  .max(64)
+  .regex(/^[A-Za-z0-9_.:-]+$/, 'may hold only letters, digits and _ . : -');
 const label = z.string().trim().min(1).max(60);
 const areaLoad = finite.min(0, 'must not be negative').max(MAX_AREA_LOAD);
 
-export const gridLineSchema = z.object({ id, name: z.string().trim().min(1).max(20), position: finite.min(-MAX_PLAN_M).max(MAX_PLAN_M) }).strict();
+export const gridLineSchema = z
+  .object({ id, name: z.string().trim().min(1).max(20), position: finite.min(-MAX_PLAN_M).max(MAX_PLAN_M) })
+  .strict();
 
 /**
  * One family of grid lines. `x` lines stand at positions along plan x (named A, B, C… by custom), `y` lines
@@ -39,14 +46,20 @@ export const gridSchema = z
       const positions: number[] = [];
       grid[dir].lines.forEach((line, i) => {
         const path = [dir, 'lines', i];
-        if (ids.has(line.id)) ctx.addIssue({ code: 'custom', path: [...path, 'id'], message: `is used by another grid line (${line.id})` });
+        if (ids.has(line.id))
+          ctx.addIssue({ code: 'custom', path: [...path, 'id'], message: `is used by another grid line (${line.id})` });
         ids.add(line.id);
         const key = line.name.toLowerCase();
-        if (names.has(key)) ctx.addIssue({ code: 'custom', path: [...path, 'name'], message: `${line.name} names two ${dir} lines` });
+        if (names.has(key))
+          ctx.addIssue({ code: 'custom', path: [...path, 'name'], message: `${line.name} names two ${dir} lines` });
         names.add(key);
         // Grid positions print to the millimetre, so two lines closer than that cannot be told apart.
         if (positions.some((p) => Math.abs(p - line.position) < 0.001)) {
-          ctx.addIssue({ code: 'custom', path: [...path, 'position'], message: `${line.name} is at the position of another ${dir} line` });
+          ctx.addIssue({
+            code: 'custom',
+            path: [...path, 'position'],
+            message: `${line.name} is at the position of another ${dir} line`,
+          });
         }
         positions.push(line.position);
       });
@@ -111,13 +124,19 @@ export type FloorSpan = z.infer<typeof floorSpanSchema>;
 export type FloorLoad = z.infer<typeof floorLoadSchema>;
 export type AreaOverride = z.infer<typeof areaOverrideSchema>;
 
-export const EMPTY_GRID: Grid = { x: { lines: [], edgeBefore: 0, edgeAfter: 0 }, y: { lines: [], edgeBefore: 0, edgeAfter: 0 } };
+export const EMPTY_GRID: Grid = {
+  x: { lines: [], edgeBefore: 0, edgeAfter: 0 },
+  y: { lines: [], edgeBefore: 0, edgeAfter: 0 },
+};
 
 /** Where a stack stands: on the crossing of an x line and a y line; `webAlong` says how its web runs in plan. */
 export const stackPlacementSchema = z
   .object({ gridX: id.nullable(), gridY: id.nullable(), webAlong: z.enum(['x', 'y']).default('x') })
   .strict()
-  .refine((p) => (p.gridX === null) === (p.gridY === null), 'give both grid lines, or neither to take the stack off the grid');
+  .refine(
+    (p) => (p.gridX === null) === (p.gridY === null),
+    'give both grid lines, or neither to take the stack off the grid',
+  );
 export type StackPlacement = z.infer<typeof stackPlacementSchema>;
 
 /** The whole model of a building, as the analysis and a frozen revision hold it. */
@@ -148,14 +167,20 @@ export const putBuildupsBodySchema = z
     const ids = new Set<string>();
     const names = new Set<string>();
     body.buildups.forEach((b, i) => {
-      if (ids.has(b.id)) ctx.addIssue({ code: 'custom', path: ['buildups', i, 'id'], message: `is used by another build-up (${b.id})` });
-      if (names.has(b.name.toLowerCase())) ctx.addIssue({ code: 'custom', path: ['buildups', i, 'name'], message: `${b.name} names two build-ups` });
+      if (ids.has(b.id))
+        ctx.addIssue({ code: 'custom', path: ['buildups', i, 'id'], message: `is used by another build-up (${b.id})` });
+      if (names.has(b.name.toLowerCase()))
+        ctx.addIssue({ code: 'custom', path: ['buildups', i, 'name'], message: `${b.name} names two build-ups` });
       ids.add(b.id);
       names.add(b.name.toLowerCase());
     });
   });
 export const putFloorLoadBodySchema = z
-  .object({ buildupId: id.nullable(), span: floorSpanSchema.default('two-way'), lines: z.array(lineLoadSchema).max(20).default([]) })
+  .object({
+    buildupId: id.nullable(),
+    span: floorSpanSchema.default('two-way'),
+    lines: z.array(lineLoadSchema).max(20).default([]),
+  })
   .strict();
 export const putAreaOverridesBodySchema = z.object({ overrides: z.array(areaOverrideSchema).max(500) }).strict();
 

@@ -7,7 +7,18 @@ import { categorySchema, sectionDimsSchema } from './stack.ts';
 /** Columns of the level-loads file, in the order the template writes them (kN per level). */
 export const LOAD_COLUMNS = ['stack', 'level', 'Gk_kN', 'Qk_kN', 'category'] as const;
 /** Columns of the company-sections file; dimensions in mm, unused ones left empty. */
-export const SECTION_COLUMNS = ['designation', 'shape', 'make', 'h_mm', 'b_mm', 'tw_mm', 'tf_mm', 'r_mm', 'd_mm', 't_mm'] as const;
+export const SECTION_COLUMNS = [
+  'designation',
+  'shape',
+  'make',
+  'h_mm',
+  'b_mm',
+  'tw_mm',
+  'tf_mm',
+  'r_mm',
+  'd_mm',
+  't_mm',
+] as const;
 
 /** Largest upload accepted, bytes. */
 export const MAX_IMPORT_BYTES = 2 * 1024 * 1024;
@@ -19,7 +30,11 @@ export const MAX_IMPORT_LINE_CHARS = 4096;
 export const MAX_LISTED_PROBLEMS = 100;
 
 /** One thing wrong with an uploaded file. row is the file's line number (the header is row 1). */
-export const importProblemSchema = z.object({ row: z.number().int().min(0), column: z.string().nullable(), message: z.string() });
+export const importProblemSchema = z.object({
+  row: z.number().int().min(0),
+  column: z.string().nullable(),
+  message: z.string(),
+});
 export type ImportProblem = z.infer<typeof importProblemSchema>;
 
 export const floorLoadSchema = z.object({ Gk: z.number(), Qk: z.number(), category: categorySchema });
@@ -38,7 +53,9 @@ export const loadChangeSchema = z.object({
 export type LoadChange = z.infer<typeof loadChangeSchema>;
 
 /** The version of each stack a preview was computed against; apply refuses (409) when one has moved. */
-export const previewBasisSchema = z.array(z.object({ stackId: z.number().int().positive(), version: z.number().int().min(0) })).max(10_000);
+export const previewBasisSchema = z
+  .array(z.object({ stackId: z.number().int().positive(), version: z.number().int().min(0) }))
+  .max(10_000);
 export type PreviewBasis = z.infer<typeof previewBasisSchema>;
 
 export const loadsPreviewSchema = z.object({
@@ -78,7 +95,10 @@ export type SectionsPreview = z.infer<typeof sectionsPreviewSchema>;
 /** Text fields sent beside the file when applying: the preview's hash and basis, as JSON text. */
 export const applyFieldsSchema = z
   .object({
-    fileHash: z.string().regex(/^[0-9a-f]{64}$/).optional(),
+    fileHash: z
+      .string()
+      .regex(/^[0-9a-f]{64}$/)
+      .optional(),
     basis: z
       .string()
       .max(500_000)
@@ -126,6 +146,14 @@ export interface GridPreview {
 
 export interface FloorLoadsPreview {
   fileHash: string;
-  rows: { row: number; levelId: string; level: string; buildupId: string | null; buildup: string | null; span: FloorSpan; change: 'changed' | 'same' }[];
+  rows: {
+    row: number;
+    levelId: string;
+    level: string;
+    buildupId: string | null;
+    buildup: string | null;
+    span: FloorSpan;
+    change: 'changed' | 'same';
+  }[];
   problems: ImportProblem[];
 }

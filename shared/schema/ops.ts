@@ -6,7 +6,13 @@ export const opSchema = z.discriminatedUnion('op', [
   z.object({ op: z.literal('addNode'), node: stackNodeSchema }).strict(),
   // Shallow merge into the node's data; the merged data is validated against the node kind's schema.
   z.object({ op: z.literal('updateNode'), id: nodeIdSchema, data: z.record(z.string(), z.unknown()) }).strict(),
-  z.object({ op: z.literal('moveNode'), id: nodeIdSchema, position: z.object({ x: z.number().finite(), y: z.number().finite() }).strict() }).strict(),
+  z
+    .object({
+      op: z.literal('moveNode'),
+      id: nodeIdSchema,
+      position: z.object({ x: z.number().finite(), y: z.number().finite() }).strict(),
+    })
+    .strict(),
   z.object({ op: z.literal('removeNode'), id: nodeIdSchema }).strict(),
   z.object({ op: z.literal('addEdge'), edge: stackEdgeSchema }).strict(),
   z.object({ op: z.literal('removeEdge'), id: nodeIdSchema }).strict(),

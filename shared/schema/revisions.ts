@@ -30,7 +30,9 @@ export type FreezeBody = z.input<typeof freezeBodySchema>;
 export const compareQuerySchema = z
   .object({
     from: z.coerce.number().int().positive().max(Number.MAX_SAFE_INTEGER),
-    to: z.union([z.literal('current'), z.coerce.number().int().positive().max(Number.MAX_SAFE_INTEGER)]).default('current'),
+    to: z
+      .union([z.literal('current'), z.coerce.number().int().positive().max(Number.MAX_SAFE_INTEGER)])
+      .default('current'),
   })
   .strict();
 export type CompareQuery = z.infer<typeof compareQuerySchema>;

@@ -18,7 +18,17 @@ export const gradeSchema = z.enum(['S235', 'S275', 'S355', 'S420', 'S460']);
 export const axesSchema = z.enum(['both', 'y', 'z']);
 
 export const sectionDimsSchema = z.discriminatedUnion('shape', [
-  z.object({ shape: z.literal('I'), make: z.enum(['rolled', 'welded']), h: mm, b: mm, tw: mm, tf: mm, r: finite.min(0).max(MAX_DIMENSION_MM) }).strict(),
+  z
+    .object({
+      shape: z.literal('I'),
+      make: z.enum(['rolled', 'welded']),
+      h: mm,
+      b: mm,
+      tw: mm,
+      tf: mm,
+      r: finite.min(0).max(MAX_DIMENSION_MM),
+    })
+    .strict(),
   z.object({ shape: z.literal('RHS'), make: z.enum(['hot-finished', 'cold-formed']), h: mm, b: mm, t: mm }).strict(),
   z.object({ shape: z.literal('CHS'), make: z.enum(['hot-finished', 'cold-formed']), d: mm, t: mm }).strict(),
 ]);
@@ -29,7 +39,16 @@ const kFactor = finite.positive().max(10);
 /** A building level a node sits on (docs/contracts.md §Stack document): its elevation then follows the level's. */
 const levelId = z.string().min(1).max(64).optional();
 /** Bolt diameters and property classes a splice detail may use (EN 1993-1-8 Table 3.1). */
-export const boltDiameterSchema = z.union([z.literal(12), z.literal(16), z.literal(20), z.literal(22), z.literal(24), z.literal(27), z.literal(30), z.literal(36)]);
+export const boltDiameterSchema = z.union([
+  z.literal(12),
+  z.literal(16),
+  z.literal(20),
+  z.literal(22),
+  z.literal(24),
+  z.literal(27),
+  z.literal(30),
+  z.literal(36),
+]);
 export const boltClassSchema = z.enum(['8.8', '10.9']);
 export const concreteClassSchema = z.enum(['C20/25', 'C25/30', 'C30/37', 'C35/45', 'C40/50', 'C45/55', 'C50/60']);
 /**
@@ -39,14 +58,18 @@ export const concreteClassSchema = z.enum(['C20/25', 'C25/30', 'C30/37', 'C35/45
 export const spliceDetailSchema = z
   .object({
     plate: z.object({ width: mm, thickness: mm, grade: gradeSchema }).strict(),
-    bolts: z.object({ number: z.number().int().min(1).max(40), diameter: boltDiameterSchema, class: boltClassSchema }).strict(),
+    bolts: z
+      .object({ number: z.number().int().min(1).max(40), diameter: boltDiameterSchema, class: boltClassSchema })
+      .strict(),
   })
   .strict();
 /** A base plate on a grout joint (EN 1993-1-8 6.2.5): b across the flanges, l along the depth (mm). */
 export const basePlateSchema = z
   .object({ b: mm, l: mm, t: mm, grade: gradeSchema, grout: finite.min(0).max(MAX_DIMENSION_MM) })
   .strict();
-export const supportDataSchema = z.object({ elevation, levelId, fixity: fixitySchema, basePlate: basePlateSchema.optional() }).strict();
+export const supportDataSchema = z
+  .object({ elevation, levelId, fixity: fixitySchema, basePlate: basePlateSchema.optional() })
+  .strict();
 /**
  * Whether the engineer has chosen the lift's section: 'not-chosen' for a lift added with a placeholder
  * (the analysis refuses it), 'to-confirm' for a section copied when a lift was split (flagged until
@@ -72,7 +95,12 @@ export const faceReactionSchema = z.object({ Gk: load, Qk: load }).strict();
  * Optional, so older documents stay valid. The restraint's own Gk/Qk remain the total entering the column.
  */
 export const restraintFacesSchema = z
-  .object({ yPlus: faceReactionSchema.optional(), yMinus: faceReactionSchema.optional(), zPlus: faceReactionSchema.optional(), zMinus: faceReactionSchema.optional() })
+  .object({
+    yPlus: faceReactionSchema.optional(),
+    yMinus: faceReactionSchema.optional(),
+    zPlus: faceReactionSchema.optional(),
+    zMinus: faceReactionSchema.optional(),
+  })
   .strict();
 /**
  * On a stack placed on the building's grid, a level with floor loads gives the loads of the restraint or
@@ -105,9 +133,15 @@ export const capDataSchema = z
     loadsByHand,
   })
   .strict();
-export const loadDataSchema = z.object({ label: z.string().max(120), Gk: load, Qk: load, category: categorySchema }).strict();
+export const loadDataSchema = z
+  .object({ label: z.string().max(120), Gk: load, Qk: load, category: categorySchema })
+  .strict();
 
-export const nodeIdSchema = z.string().min(1).max(64).regex(/^[A-Za-z0-9_.:-]+$/, 'may hold only letters, digits and _ . : -');
+export const nodeIdSchema = z
+  .string()
+  .min(1)
+  .max(64)
+  .regex(/^[A-Za-z0-9_.:-]+$/, 'may hold only letters, digits and _ . : -');
 const positionSchema = z.object({ x: finite.min(-1e6).max(1e6), y: finite.min(-1e6).max(1e6) }).strict();
 const nodeBase = { id: nodeIdSchema, position: positionSchema.optional() };
 

@@ -1,7 +1,14 @@
 // Sign-in, registration, verification of the address, sign-out and the current user (docs/contracts.md §REST routes,
 // docs/access.md).
 import type { z } from 'zod';
-import type { AuthResponse, PasswordStrength, RegisterResponse, User, loginBodySchema, registerBodySchema } from '@shared/schema/api.ts';
+import type {
+  AuthResponse,
+  PasswordStrength,
+  RegisterResponse,
+  User,
+  loginBodySchema,
+  registerBodySchema,
+} from '@shared/schema/api.ts';
 import { apiFetch } from './http.ts';
 
 export type LoginBody = z.output<typeof loginBodySchema>;
@@ -15,6 +22,7 @@ export const authApi = {
   resendVerification: () => apiFetch<RegisterResponse>('POST', '/auth/verify/resend'),
   /** Ends every session of the account, on every device. */
   logout: () => apiFetch<void>('POST', '/auth/logout'),
-  passwordStrength: (body: { password: string; email?: string; name?: string }) => apiFetch<PasswordStrength>('POST', '/auth/password-strength', body),
+  passwordStrength: (body: { password: string; email?: string; name?: string }) =>
+    apiFetch<PasswordStrength>('POST', '/auth/password-strength', body),
   me: () => apiFetch<User>('GET', '/me'),
 };

@@ -28,11 +28,16 @@ const b = (id: number) => `/buildings/${id}`;
 export const buildingModelApi = {
   get: (buildingId: number) => apiFetch<BuildingModelReply>('GET', `${b(buildingId)}/model`),
   putGrid: (buildingId: number, grid: Grid) => apiFetch<BuildingModelReply>('PUT', `${b(buildingId)}/grid`, { grid }),
-  putBuildups: (buildingId: number, buildups: Buildup[]) => apiFetch<BuildingModelReply>('PUT', `${b(buildingId)}/buildups`, { buildups }),
+  putBuildups: (buildingId: number, buildups: Buildup[]) =>
+    apiFetch<BuildingModelReply>('PUT', `${b(buildingId)}/buildups`, { buildups }),
   putFloorLoad: (buildingId: number, levelId: string, body: FloorLoadBody) =>
     apiFetch<BuildingModelReply>('PUT', `${b(buildingId)}/levels/${encodeURIComponent(levelId)}/floor-load`, body),
-  place: (stackId: number, placement: StackPlacement) => apiFetch<Placement>('PUT', `/stacks/${stackId}/placement`, placement),
-  previewCsv: (buildingId: number, kind: ModelCsvKind, file: File) => apiFetch<GridPreview | FloorLoadsPreview>('POST', `${b(buildingId)}/imports/${kind}`, form(file)),
-  applyCsv: (buildingId: number, kind: ModelCsvKind, file: File, fileHash: string) => apiFetch<unknown>('POST', `${b(buildingId)}/imports/${kind}/apply`, form(file, fileHash)),
-  putAreaOverrides: (stackId: number, overrides: AreaOverride[]) => apiFetch<BuildingModelReply>('PUT', `/stacks/${stackId}/area-overrides`, { overrides }),
+  place: (stackId: number, placement: StackPlacement) =>
+    apiFetch<Placement>('PUT', `/stacks/${stackId}/placement`, placement),
+  previewCsv: (buildingId: number, kind: ModelCsvKind, file: File) =>
+    apiFetch<GridPreview | FloorLoadsPreview>('POST', `${b(buildingId)}/imports/${kind}`, form(file)),
+  applyCsv: (buildingId: number, kind: ModelCsvKind, file: File, fileHash: string) =>
+    apiFetch<unknown>('POST', `${b(buildingId)}/imports/${kind}/apply`, form(file, fileHash)),
+  putAreaOverrides: (stackId: number, overrides: AreaOverride[]) =>
+    apiFetch<BuildingModelReply>('PUT', `/stacks/${stackId}/area-overrides`, { overrides }),
 };

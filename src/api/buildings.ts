@@ -46,7 +46,8 @@ export const levelsApi = {
   create: (buildingId: number, body: CreateLevelBody) => apiFetch<Level>('POST', `${b(buildingId)}/levels`, body),
   update: (buildingId: number, levelId: string, body: UpdateLevelBody) =>
     apiFetch<Level>('PATCH', `${b(buildingId)}/levels/${encodeURIComponent(levelId)}`, body),
-  remove: (buildingId: number, levelId: string) => apiFetch<void>('DELETE', `${b(buildingId)}/levels/${encodeURIComponent(levelId)}`),
+  remove: (buildingId: number, levelId: string) =>
+    apiFetch<void>('DELETE', `${b(buildingId)}/levels/${encodeURIComponent(levelId)}`),
   /** What moving the level would do to the stacks; stores nothing. */
   previewMove: (buildingId: number, levelId: string, elevation: number) =>
     apiFetch<LevelMovePreview>('POST', `${b(buildingId)}/levels/${encodeURIComponent(levelId)}/preview`, { elevation }),

@@ -36,7 +36,11 @@ export function notifyUnauthorised(): void {
   unauthorisedListeners.forEach((l) => l());
 }
 
-export async function apiFetch<T>(method: 'GET' | 'POST' | 'PUT' | 'PATCH' | 'DELETE', path: string, body?: unknown): Promise<T> {
+export async function apiFetch<T>(
+  method: 'GET' | 'POST' | 'PUT' | 'PATCH' | 'DELETE',
+  path: string,
+  body?: unknown,
+): Promise<T> {
   const headers: Record<string, string> = { Accept: 'application/json' };
   const token = getToken();
   if (token) headers.Authorization = `Bearer ${token}`;
@@ -58,7 +62,12 @@ export async function apiFetch<T>(method: 'GET' | 'POST' | 'PUT' | 'PATCH' | 'DE
   if (!res.ok) {
     if (res.status === 401) notifyUnauthorised();
     const err = (json as ApiErrorBody | undefined)?.error;
-    throw new ApiError(res.status, err?.code ?? 'internal', err?.message ?? `Request failed (${res.status})`, err?.details);
+    throw new ApiError(
+      res.status,
+      err?.code ?? 'internal',
+      err?.message ?? `Request failed (${res.status})`,
+      err?.details,
+    );
   }
   return json as T;
 }

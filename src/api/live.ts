@@ -49,7 +49,12 @@ export function joinStack(socket: LiveSocket, stackId: number): Promise<StackJoi
   return answer(socket.timeout(ACK_TIMEOUT_MS).emitWithAck('stack:join', { stackId }));
 }
 
-export function sendEdit(socket: LiveSocket, stackId: number, baseVersion: number, ops: Op[]): Promise<{ version: number }> {
+export function sendEdit(
+  socket: LiveSocket,
+  stackId: number,
+  baseVersion: number,
+  ops: Op[],
+): Promise<{ version: number }> {
   return answer(socket.timeout(ACK_TIMEOUT_MS).emitWithAck('stack:edit', { stackId, baseVersion, ops }));
 }
 

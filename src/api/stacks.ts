@@ -10,7 +10,8 @@ export type PatchStackBody = z.output<typeof patchStackBodySchema>;
 
 export const stacksApi = {
   list: (buildingId: number) => apiFetch<StackSummary[]>('GET', `/buildings/${buildingId}/stacks`),
-  create: (buildingId: number, body: CreateStackBody) => apiFetch<Pick<StackSummary, 'id' | 'name'>>('POST', `/buildings/${buildingId}/stacks`, body),
+  create: (buildingId: number, body: CreateStackBody) =>
+    apiFetch<Pick<StackSummary, 'id' | 'name'>>('POST', `/buildings/${buildingId}/stacks`, body),
   rename: (stackId: number, body: PatchStackBody) => apiFetch<StackSummary>('PATCH', `/stacks/${stackId}`, body),
   remove: (stackId: number) => apiFetch<void>('DELETE', `/stacks/${stackId}`),
 };

@@ -32,7 +32,11 @@ export function copySelection(doc: StackDocument, ids: readonly string[]): Clip 
 }
 
 /** Ops that add a copy of the clip to `doc`; `drawnAt` gives where a node without a stored position is drawn. */
-export function pasteOps(doc: StackDocument, clip: Clip, drawnAt: (id: string) => XY | undefined): { ops: Op[]; newIds: string[] } {
+export function pasteOps(
+  doc: StackDocument,
+  clip: Clip,
+  drawnAt: (id: string) => XY | undefined,
+): { ops: Op[]; newIds: string[] } {
   const taken = new Set([...doc.nodes.map((n) => n.id), ...doc.edges.map((e) => e.id)]);
   const renamed = new Map<string, string>();
   const ops: Op[] = [];
@@ -40,7 +44,11 @@ export function pasteOps(doc: StackDocument, clip: Clip, drawnAt: (id: string) =
     const id = newId(node.kind, taken);
     renamed.set(node.id, id);
     const at = node.position ?? drawnAt(node.id) ?? { x: 0, y: 0 };
-    const copy = { ...structuredClone(node), id, position: { x: at.x + PASTE_OFFSET.x, y: at.y + PASTE_OFFSET.y } } as StackNode;
+    const copy = {
+      ...structuredClone(node),
+      id,
+      position: { x: at.x + PASTE_OFFSET.x, y: at.y + PASTE_OFFSET.y },
+    } as StackNode;
     ops.push({ op: 'addNode', node: copy });
   }
   for (const edge of clip.edges) {

@@ -7,7 +7,10 @@ import { layoutByElevation, type XY } from '@/components/graph/layoutByElevation
 /** Re-creates a node exactly as it was, with the edges that touched it. */
 function restoreNode(node: StackNode, edges: StackEdge[]): Op[] {
   const touching = edges.filter((e) => e.source === node.id || e.target === node.id);
-  return [{ op: 'addNode', node: structuredClone(node) }, ...touching.map((edge): Op => ({ op: 'addEdge', edge: { ...edge } }))];
+  return [
+    { op: 'addNode', node: structuredClone(node) },
+    ...touching.map((edge): Op => ({ op: 'addEdge', edge: { ...edge } })),
+  ];
 }
 
 function inverseOf(op: Op, before: StackDocument, drawnAt: (id: string) => XY | undefined): Op[] {
@@ -45,7 +48,12 @@ function inverseOf(op: Op, before: StackDocument, drawnAt: (id: string) => XY | 
  * Ops that undo `ops` applied to `before`. Each op is inverted against the document as it stood just
  * before that op, so a batch that touches one node twice is undone correctly; they run in reverse.
  */
-export function inverseOps(before: StackDocument, ops: Op[], apply: (doc: StackDocument, ops: Op[]) => StackDocument, drawnAt: (id: string) => XY | undefined = () => undefined): Op[] {
+export function inverseOps(
+  before: StackDocument,
+  ops: Op[],
+  apply: (doc: StackDocument, ops: Op[]) => StackDocument,
+  drawnAt: (id: string) => XY | undefined = () => undefined,
+): Op[] {
   const inverses: Op[][] = [];
   let doc = before;
   for (const op of ops) {

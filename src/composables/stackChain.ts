@@ -75,7 +75,9 @@ export function kindWord(kind: NodeKind): string {
 export function liftNumbers(doc: StackDocument): Map<string, string> {
   const spans = liftSpans(doc);
   const lifts = doc.nodes.filter((n) => n.kind === 'lift');
-  const sorted = [...lifts].sort((a, b) => (spans.get(a.id)?.bottom ?? Infinity) - (spans.get(b.id)?.bottom ?? Infinity));
+  const sorted = [...lifts].sort(
+    (a, b) => (spans.get(a.id)?.bottom ?? Infinity) - (spans.get(b.id)?.bottom ?? Infinity),
+  );
   return new Map(sorted.map((n, i) => [n.id, `L${i + 1}`]));
 }
 

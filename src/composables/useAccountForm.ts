@@ -8,7 +8,12 @@ import { fieldErrors, type FieldInfo } from '@/components/common/formErrors.ts';
 import { redirectTarget } from '@/router/redirect.ts';
 
 /** after: 'redirect' goes on to the page asked for; 'stay' leaves the page to show what happened. */
-export function useAccountForm<T>(schema: ZodType<T>, labels: Record<string, FieldInfo>, send: (body: T) => Promise<unknown>, after: 'redirect' | 'stay' = 'redirect') {
+export function useAccountForm<T>(
+  schema: ZodType<T>,
+  labels: Record<string, FieldInfo>,
+  send: (body: T) => Promise<unknown>,
+  after: 'redirect' | 'stay' = 'redirect',
+) {
   const route = useRoute();
   const router = useRouter();
   const errors = ref<Record<string, string>>({});

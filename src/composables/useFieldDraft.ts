@@ -39,7 +39,9 @@ export function useFieldDraft(opts: FieldDraftOptions) {
       const lost = mine.has(f.key) && mine.get(f.key) === old[f.key];
       if (!typing && !lost) continue;
       const yours = typing ? `what you typed (${draft[f.key]})` : `your ${shown(mine.get(f.key), f.places)}`;
-      opts.onOverwritten(`${who} changed ${f.label} to ${shown(value[f.key], f.places)} while you were editing it; ${yours} was replaced`);
+      opts.onOverwritten(
+        `${who} changed ${f.label} to ${shown(value[f.key], f.places)} while you were editing it; ${yours} was replaced`,
+      );
       mine.delete(f.key);
     }
   }

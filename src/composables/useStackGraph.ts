@@ -8,8 +8,23 @@ import type { PresenceUser } from '@shared/schema/socket.ts';
 import type { Level } from '@shared/schema/api.ts';
 import type { StackDocument, StackEdge, StackNode } from '@shared/schema/stack.ts';
 import { moveRestraintOps, moveSpliceOps } from '@shared/ops/structuralEdits.ts';
-import { COMPACT_LINE_PX, FULL_SCALE, PX_PER_METRE, layoutByElevation, type GraphScale, type XY } from '@/components/graph/layoutByElevation.ts';
-import { HANDLE, LEVEL_LINE_X, colleagueColour, type Colleague, type LevelView, type NodeProblem, type NodeView } from '@/components/graph/nodeView.ts';
+import {
+  COMPACT_LINE_PX,
+  FULL_SCALE,
+  PX_PER_METRE,
+  layoutByElevation,
+  type GraphScale,
+  type XY,
+} from '@/components/graph/layoutByElevation.ts';
+import {
+  HANDLE,
+  LEVEL_LINE_X,
+  colleagueColour,
+  type Colleague,
+  type LevelView,
+  type NodeProblem,
+  type NodeView,
+} from '@/components/graph/nodeView.ts';
 import { snapElevation } from '@/components/graph/snapElevation.ts';
 import { drawingElevations, liftNumbers, liftSpans, nodeTitle, nodesById } from './stackChain.ts';
 import { newId } from './clipboardOps.ts';
@@ -34,7 +49,8 @@ function handlesFor(edge: StackEdge, byId: Map<string, StackNode>): { sourceHand
   const fromSide = source === 'restraint' || source === 'load';
   return {
     sourceHandle: fromSide ? HANDLE.side : HANDLE.up,
-    targetHandle: source === 'load' ? HANDLE.load : target === 'lift' && source === 'restraint' ? HANDLE.side : HANDLE.below,
+    targetHandle:
+      source === 'load' ? HANDLE.load : target === 'lift' && source === 'restraint' ? HANDLE.side : HANDLE.below,
   };
 }
 
@@ -80,7 +96,8 @@ export function useStackGraph(input: StackGraphInput) {
   const colleagues = computed(() => {
     const out = new Map<string, Colleague[]>();
     for (const u of toValue(input.others)) {
-      for (const id of u.selection) out.set(id, [...(out.get(id) ?? []), { name: u.name, colour: colleagueColour(u.userId) }]);
+      for (const id of u.selection)
+        out.set(id, [...(out.get(id) ?? []), { name: u.name, colour: colleagueColour(u.userId) }]);
     }
     return out;
   });
@@ -207,11 +224,16 @@ export function useStackGraph(input: StackGraphInput) {
         const dropped = -(position.y + (scale.value.compact ? COMPACT_LINE_PX / 2 : 0)) / scale.value.pxPerMetre;
         const z = vertical ? snapElevation(dropped, levels.value, offset) : null;
         let y = was.y;
-        if (z !== null && (node.kind === 'splice' || node.kind === 'restraint') && Math.abs(z - node.data.elevation) >= 0.001) {
+        if (
+          z !== null &&
+          (node.kind === 'splice' || node.kind === 'restraint') &&
+          Math.abs(z - node.data.elevation) >= 0.001
+        ) {
           ops.push(...(node.kind === 'splice' ? moveSpliceOps(doc, id, z, make) : moveRestraintOps(doc, id, z, make)));
           y = Math.round(-z * PX_PER_METRE);
         }
-        if (x !== node.position?.x || (node.position && y !== node.position.y)) ops.push({ op: 'moveNode', id, position: { x, y } });
+        if (x !== node.position?.x || (node.position && y !== node.position.y))
+          ops.push({ op: 'moveNode', id, position: { x, y } });
       }
     } finally {
       redraw.value++;

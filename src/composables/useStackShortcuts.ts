@@ -17,7 +17,9 @@ function typingInField(target: EventTarget | null): boolean {
 }
 
 /** Ctrl/⌘+Z undo, Ctrl/⌘+Shift+Z or Ctrl+Y redo, Ctrl/⌘+C/V copy/paste, Delete/Backspace, Ctrl/⌘+A, Escape. */
-export function shortcutFor(e: Pick<KeyboardEvent, 'key' | 'ctrlKey' | 'metaKey' | 'shiftKey'>): keyof StackShortcuts | null {
+export function shortcutFor(
+  e: Pick<KeyboardEvent, 'key' | 'ctrlKey' | 'metaKey' | 'shiftKey'>,
+): keyof StackShortcuts | null {
   const mod = e.ctrlKey || e.metaKey;
   const key = e.key.toLowerCase();
   if (mod && key === 'z') return e.shiftKey ? 'redo' : 'undo';

@@ -3,7 +3,14 @@
 // the results never go blank half-way.
 import { computed } from 'vue';
 import { useQuasar } from 'quasar';
-import { addFloorRestraintOps, joinLiftsOps, liftAt, splitLiftOps, StructuralEditError, type NewId } from '@shared/ops/structuralEdits.ts';
+import {
+  addFloorRestraintOps,
+  joinLiftsOps,
+  liftAt,
+  splitLiftOps,
+  StructuralEditError,
+  type NewId,
+} from '@shared/ops/structuralEdits.ts';
 import type { Op } from '@shared/schema/ops.ts';
 import type { StackDocument } from '@shared/schema/stack.ts';
 import { formatElevation, levelWord } from '@shared/wording.ts';
@@ -25,7 +32,9 @@ export function useStructuralEdits() {
   const stack = useStackStore();
   const notify = useNotifyStore();
 
-  const selected = computed(() => (stack.selection.length === 1 ? stack.doc?.nodes.find((n) => n.id === stack.selection[0]) : undefined));
+  const selected = computed(() =>
+    stack.selection.length === 1 ? stack.doc?.nodes.find((n) => n.id === stack.selection[0]) : undefined,
+  );
   const selectedKind = computed(() => selected.value?.kind ?? null);
 
   function run(build: (doc: StackDocument) => { ops: Op[]; select: string }, label: string): void {
@@ -64,27 +73,37 @@ export function useStructuralEdits() {
   function join(): void {
     const splice = selected.value;
     if (splice?.kind !== 'splice') return;
-    run((d) => {
-      const r = joinLiftsOps(d, splice.id, idMaker(d));
-      return { ops: r.ops, select: r.liftId };
-    }, `Join the lifts at ${formatElevation(splice.data.elevation)}`);
+    run(
+      (d) => {
+        const r = joinLiftsOps(d, splice.id, idMaker(d));
+        return { ops: r.ops, select: r.liftId };
+      },
+      `Join the lifts at ${formatElevation(splice.data.elevation)}`,
+    );
   }
 
   /** Levels a lift of this stack spans that have no floor restraint yet: where "add a floor" can go. */
   const freeLevels = computed(() => {
     const doc = stack.doc;
     if (!doc) return [];
-    const taken = new Set(doc.nodes.flatMap((n) => (n.kind === 'restraint' ? [n.data.levelId ?? '', n.data.elevation.toFixed(3)] : [])));
-    return stack.levels.filter((l) => !taken.has(l.id) && !taken.has(l.elevation.toFixed(3)) && liftAt(doc, l.elevation) !== null);
+    const taken = new Set(
+      doc.nodes.flatMap((n) => (n.kind === 'restraint' ? [n.data.levelId ?? '', n.data.elevation.toFixed(3)] : [])),
+    );
+    return stack.levels.filter(
+      (l) => !taken.has(l.id) && !taken.has(l.elevation.toFixed(3)) && liftAt(doc, l.elevation) !== null,
+    );
   });
 
   function addFloor(levelId: string): void {
     const level = stack.levels.find((l) => l.id === levelId);
     if (!level) return;
-    run((d) => {
-      const r = addFloorRestraintOps(d, level, idMaker(d));
-      return { ops: r.ops, select: r.restraintId };
-    }, `Add a floor restraint at ${levelWord(level.name)}`);
+    run(
+      (d) => {
+        const r = addFloorRestraintOps(d, level, idMaker(d));
+        return { ops: r.ops, select: r.restraintId };
+      },
+      `Add a floor restraint at ${levelWord(level.name)}`,
+    );
   }
 
   return { selectedKind, split, join, freeLevels, addFloor };

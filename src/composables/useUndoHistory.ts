@@ -51,6 +51,12 @@ export function useUndoHistory() {
     canRedo: computed(() => redoStack.value.length > 0),
     undoLabel: computed(() => undoStack.value.at(-1)?.label ?? null),
     redoLabel: computed(() => redoStack.value.at(-1)?.label ?? null),
-    record, pushUndo, pushRedo, popUndo, popRedo, forget, clear,
+    record,
+    pushUndo,
+    pushRedo,
+    popUndo,
+    popRedo,
+    forget,
+    clear,
   };
 }

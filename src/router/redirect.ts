@@ -4,6 +4,7 @@ import type { LocationQueryValue, RouteLocationRaw } from 'vue-router';
 export function redirectTarget(value: LocationQueryValue | LocationQueryValue[] | undefined): RouteLocationRaw {
   const path = Array.isArray(value) ? value[0] : value;
   // Only same-site paths: "//host" or "/\host" would leave the app.
-  if (typeof path === 'string' && path.startsWith('/') && !path.startsWith('//') && !path.startsWith('/\\')) return path;
+  if (typeof path === 'string' && path.startsWith('/') && !path.startsWith('//') && !path.startsWith('/\\'))
+    return path;
   return { name: 'buildings' };
 }

@@ -25,8 +25,18 @@ export const routes: RouteRecordRaw[] = [
       // The bare root matched this layout with no page in it (a blank screen when signed out): it is the
       // sign-in page, which sends a signed-in person on to the buildings list.
       { path: '', redirect: { name: 'sign-in' } },
-      { path: 'sign-in', name: 'sign-in', component: () => import('@/pages/SignInPage.vue'), meta: { public: true, guestOnly: true } },
-      { path: 'register', name: 'register', component: () => import('@/pages/RegisterPage.vue'), meta: { public: true, guestOnly: true } },
+      {
+        path: 'sign-in',
+        name: 'sign-in',
+        component: () => import('@/pages/SignInPage.vue'),
+        meta: { public: true, guestOnly: true },
+      },
+      {
+        path: 'register',
+        name: 'register',
+        component: () => import('@/pages/RegisterPage.vue'),
+        meta: { public: true, guestOnly: true },
+      },
     ],
   },
   {
@@ -34,7 +44,14 @@ export const routes: RouteRecordRaw[] = [
     path: '/verify-email',
     component: () => import('@/layouts/AuthLayout.vue'),
     meta: { public: true },
-    children: [{ path: '', name: 'verify-email', component: () => import('@/pages/VerifyEmailPage.vue'), meta: { public: true } }],
+    children: [
+      {
+        path: '',
+        name: 'verify-email',
+        component: () => import('@/pages/VerifyEmailPage.vue'),
+        meta: { public: true },
+      },
+    ],
   },
   {
     path: '/',
@@ -50,5 +67,10 @@ export const routes: RouteRecordRaw[] = [
       { path: 'outbox', name: 'outbox', component: () => import('@/pages/OutboxPage.vue'), beforeEnter: adminOnly },
     ],
   },
-  { path: '/:pathMatch(.*)*', name: 'not-found', component: () => import('@/pages/NotFoundPage.vue'), meta: { public: true } },
+  {
+    path: '/:pathMatch(.*)*',
+    name: 'not-found',
+    component: () => import('@/pages/NotFoundPage.vue'),
+    meta: { public: true },
+  },
 ];

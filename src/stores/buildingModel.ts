@@ -2,7 +2,16 @@
 // Writes go to the server, which re-analyses the stacks they affect; the reply (or the live channel) is the truth.
 import { ref } from 'vue';
 import { defineStore } from 'pinia';
-import { EMPTY_MODEL, type AreaOverride, type Buildup, type BuildingModel, type BuildingModelChanged, type BuildingModelReply, type Grid, type StackPlacement } from '@shared/schema/building.ts';
+import {
+  EMPTY_MODEL,
+  type AreaOverride,
+  type Buildup,
+  type BuildingModel,
+  type BuildingModelChanged,
+  type BuildingModelReply,
+  type Grid,
+  type StackPlacement,
+} from '@shared/schema/building.ts';
 import { buildingModelApi, type FloorLoadBody } from '@/api/buildingModel.ts';
 import { useBuildingsStore } from './buildings.ts';
 import { useNotifyStore } from './notify.ts';
@@ -36,7 +45,11 @@ export const useBuildingModelStore = defineStore('buildingModel', () => {
     }
   }
 
-  async function write(context: string, work: (id: number) => Promise<BuildingModelReply>, done?: string): Promise<boolean> {
+  async function write(
+    context: string,
+    work: (id: number) => Promise<BuildingModelReply>,
+    done?: string,
+  ): Promise<boolean> {
     if (buildingId.value === null) return false;
     try {
       take(await work(buildingId.value));
@@ -48,15 +61,23 @@ export const useBuildingModelStore = defineStore('buildingModel', () => {
     }
   }
 
-  const saveGrid = (grid: Grid) => write('Could not save the grid', async (id) => {
-    const reply = await buildingModelApi.putGrid(id, grid);
-    // Renamed grid lines rename the stacks on them
-    await buildings.refreshStacks();
-    return reply;
-  }, 'Grid saved');
-  const saveBuildups = (buildups: Buildup[]) => write('Could not save the build-ups', (id) => buildingModelApi.putBuildups(id, buildups), 'Build-ups saved');
-  const saveFloorLoad = (levelId: string, body: FloorLoadBody) => write('Could not save the floor load', (id) => buildingModelApi.putFloorLoad(id, levelId, body));
-  const saveAreaOverrides = (stackId: number, overrides: AreaOverride[]) => write('Could not save the areas set by hand', () => buildingModelApi.putAreaOverrides(stackId, overrides));
+  const saveGrid = (grid: Grid) =>
+    write(
+      'Could not save the grid',
+      async (id) => {
+        const reply = await buildingModelApi.putGrid(id, grid);
+        // Renamed grid lines rename the stacks on them
+        await buildings.refreshStacks();
+        return reply;
+      },
+      'Grid saved',
+    );
+  const saveBuildups = (buildups: Buildup[]) =>
+    write('Could not save the build-ups', (id) => buildingModelApi.putBuildups(id, buildups), 'Build-ups saved');
+  const saveFloorLoad = (levelId: string, body: FloorLoadBody) =>
+    write('Could not save the floor load', (id) => buildingModelApi.putFloorLoad(id, levelId, body));
+  const saveAreaOverrides = (stackId: number, overrides: AreaOverride[]) =>
+    write('Could not save the areas set by hand', () => buildingModelApi.putAreaOverrides(stackId, overrides));
 
   async function place(stackId: number, placement: StackPlacement): Promise<boolean> {
     try {
@@ -78,5 +99,16 @@ export const useBuildingModelStore = defineStore('buildingModel', () => {
     if (change.placements) buildings.applyPlacements(change.placements);
   }
 
-  return { buildingId, model, version, load, saveGrid, saveBuildups, saveFloorLoad, saveAreaOverrides, place, applyModelChange };
+  return {
+    buildingId,
+    model,
+    version,
+    load,
+    saveGrid,
+    saveBuildups,
+    saveFloorLoad,
+    saveAreaOverrides,
+    place,
+    applyModelChange,
+  };
 });

@@ -2,11 +2,27 @@
 // Actions report failures through the notifier and answer whether they succeeded, so forms can stay open.
 import { computed, ref } from 'vue';
 import { defineStore } from 'pinia';
-import { ROLE_RANK, type Building, type BuildingSummary, type Level, type LevelMovePreview, type Member, type Role, type StackSummary } from '@shared/schema/api.ts';
+import {
+  ROLE_RANK,
+  type Building,
+  type BuildingSummary,
+  type Level,
+  type LevelMovePreview,
+  type Member,
+  type Role,
+  type StackSummary,
+} from '@shared/schema/api.ts';
 import type { AnalysisOptions } from '@shared/schema/results.ts';
 import type { Placement } from '@shared/schema/building.ts';
 import type { BuildingStackChanged } from '@shared/schema/socket.ts';
-import { buildingsApi, levelsApi, membersApi, type CreateBuildingBody, type CreateLevelBody, type UpdateLevelBody } from '@/api/buildings.ts';
+import {
+  buildingsApi,
+  levelsApi,
+  membersApi,
+  type CreateBuildingBody,
+  type CreateLevelBody,
+  type UpdateLevelBody,
+} from '@/api/buildings.ts';
 import { stacksApi, type CreateStackBody } from '@/api/stacks.ts';
 import { describeError, isNotFound, useNotifyStore } from './notify.ts';
 
@@ -79,7 +95,11 @@ export const useBuildingsStore = defineStore('buildings', () => {
     }
     pageState.value = 'loading';
     try {
-      const [building, buildingLevels, buildingStacks] = await Promise.all([buildingsApi.get(id), levelsApi.list(id), stacksApi.list(id)]);
+      const [building, buildingLevels, buildingStacks] = await Promise.all([
+        buildingsApi.get(id),
+        levelsApi.list(id),
+        stacksApi.list(id),
+      ]);
       current.value = building;
       levels.value = [...buildingLevels].sort(byElevation);
       stacks.value = buildingStacks;
@@ -135,7 +155,11 @@ export const useBuildingsStore = defineStore('buildings', () => {
   async function removeLevel(levelId: string): Promise<boolean> {
     const before = levels.value;
     levels.value = levels.value.filter((l) => l.id !== levelId);
-    return attempt('Could not delete the level', () => levelsApi.remove(buildingId(), levelId), () => (levels.value = before));
+    return attempt(
+      'Could not delete the level',
+      () => levelsApi.remove(buildingId(), levelId),
+      () => (levels.value = before),
+    );
   }
 
   /** The stack of this building that already has a grid reference, read as a person reads it ("c/4 " is
@@ -163,13 +187,21 @@ export const useBuildingsStore = defineStore('buildings', () => {
     }
     const before = stacks.value;
     stacks.value = stacks.value.map((s) => (s.id === stackId ? { ...s, name } : s));
-    return attempt('Could not rename the stack', () => stacksApi.rename(stackId, { name }).then(() => undefined), () => (stacks.value = before));
+    return attempt(
+      'Could not rename the stack',
+      () => stacksApi.rename(stackId, { name }).then(() => undefined),
+      () => (stacks.value = before),
+    );
   }
 
   async function removeStack(stackId: number): Promise<boolean> {
     const before = stacks.value;
     stacks.value = stacks.value.filter((s) => s.id !== stackId);
-    return attempt('Could not delete the stack', () => stacksApi.remove(stackId), () => (stacks.value = before));
+    return attempt(
+      'Could not delete the stack',
+      () => stacksApi.remove(stackId),
+      () => (stacks.value = before),
+    );
   }
 
   async function refreshStacks(): Promise<void> {
@@ -231,20 +263,56 @@ export const useBuildingsStore = defineStore('buildings', () => {
   async function changeMemberRole(member: Member, memberRole: Role): Promise<boolean> {
     const before = members.value;
     members.value = members.value.map((m) => (memberKey(m) === memberKey(member) ? { ...m, role: memberRole } : m));
-    return attempt('Could not change the role', () => membersApi.update(buildingId(), memberKey(member), { role: memberRole }).then(() => undefined), () => (members.value = before));
+    return attempt(
+      'Could not change the role',
+      () => membersApi.update(buildingId(), memberKey(member), { role: memberRole }).then(() => undefined),
+      () => (members.value = before),
+    );
   }
 
   async function removeMember(member: Member): Promise<boolean> {
     const before = members.value;
     members.value = members.value.filter((m) => memberKey(m) !== memberKey(member));
-    return attempt('Could not remove the member', () => membersApi.remove(buildingId(), memberKey(member)), () => (members.value = before));
+    return attempt(
+      'Could not remove the member',
+      () => membersApi.remove(buildingId(), memberKey(member)),
+      () => (members.value = before),
+    );
   }
 
   return {
-    list, listState, listError, loadList, createBuilding,
-    current, levels, stacks, members, pageState, pageError, pageMissing, membersState, role, canEdit, isLead,
-    open, saveOptions, addLevel, updateLevel, previewLevelMove, removeLevel,
-    stackNamed, createStack, renameStack, removeStack, applyStackChange, refreshStacks, applyPlacements,
-    loadMembers, addMember, changeMemberRole, removeMember,
+    list,
+    listState,
+    listError,
+    loadList,
+    createBuilding,
+    current,
+    levels,
+    stacks,
+    members,
+    pageState,
+    pageError,
+    pageMissing,
+    membersState,
+    role,
+    canEdit,
+    isLead,
+    open,
+    saveOptions,
+    addLevel,
+    updateLevel,
+    previewLevelMove,
+    removeLevel,
+    stackNamed,
+    createStack,
+    renameStack,
+    removeStack,
+    applyStackChange,
+    refreshStacks,
+    applyPlacements,
+    loadMembers,
+    addMember,
+    changeMemberRole,
+    removeMember,
   };
 });

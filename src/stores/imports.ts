@@ -40,7 +40,9 @@ export const useImportsStore = defineStore('imports', () => {
   /** A failure that is not about a row: the file too large, a stale preview, the network. */
   const failure = ref('');
 
-  const canApply = computed(() => state.value === 'checked' && problems.value.length === 0 && (preview.value?.changes.length ?? 0) > 0);
+  const canApply = computed(
+    () => state.value === 'checked' && problems.value.length === 0 && (preview.value?.changes.length ?? 0) > 0,
+  );
 
   function reset(forBuilding: number, forKind: ImportKind): void {
     buildingId.value = forBuilding;
@@ -108,11 +110,14 @@ export const useImportsStore = defineStore('imports', () => {
       const result = applyResultSchema.parse(await apiFetch<unknown>('POST', path('/apply'), form(fields)));
       state.value = 'applied';
       const what = kind.value === 'loads' ? 'level load' : 'section';
-      notify.success(`Imported ${result.applied} ${what}${result.applied === 1 ? '' : 's'}; ${result.stacks.length} stack${result.stacks.length === 1 ? '' : 's'} re-analysed`);
+      notify.success(
+        `Imported ${result.applied} ${what}${result.applied === 1 ? '' : 's'}; ${result.stacks.length} stack${result.stacks.length === 1 ? '' : 's'} re-analysed`,
+      );
       return true;
     } catch (e) {
       takeError(e);
-      if (e instanceof ApiError && e.status === 409) failure.value = `${e.message}. Check the file again before importing.`;
+      if (e instanceof ApiError && e.status === 409)
+        failure.value = `${e.message}. Check the file again before importing.`;
       return false;
     }
   }
@@ -132,13 +137,33 @@ export const useImportsStore = defineStore('imports', () => {
   /** The building's own sections matching q, then the catalogue's, for the section pickers. */
   async function searchSections(q: string, series?: string, forBuilding?: number | null): Promise<SectionHit[]> {
     if (!forBuilding || (series && series !== 'Company')) return searchCatalogue(q, series);
-    const ownQuery = apiFetch<unknown>('GET', `/buildings/${forBuilding}/sections?${new URLSearchParams({ q }).toString()}`);
+    const ownQuery = apiFetch<unknown>(
+      'GET',
+      `/buildings/${forBuilding}/sections?${new URLSearchParams({ q }).toString()}`,
+    );
     const [own, catalogue] = await Promise.all([ownQuery, series === 'Company' ? [] : searchCatalogue(q)]);
-    const hits: SectionHit[] = z.array(companySectionHitSchema).parse(own).map((h) => ({ designation: h.designation, series: h.series, massPerMetre: h.massPerMetre }));
+    const hits: SectionHit[] = z
+      .array(companySectionHitSchema)
+      .parse(own)
+      .map((h) => ({ designation: h.designation, series: h.series, massPerMetre: h.massPerMetre }));
     return [...hits, ...catalogue];
   }
 
-  return { buildingId, kind, file, preview, problems, state, failure, canApply, reset, check, apply, download, searchSections };
+  return {
+    buildingId,
+    kind,
+    file,
+    preview,
+    problems,
+    state,
+    failure,
+    canApply,
+    reset,
+    check,
+    apply,
+    download,
+    searchSections,
+  };
 });
 
 /** The section pickers of the building page: the open building's own sections, then the catalogue. */

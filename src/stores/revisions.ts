@@ -2,7 +2,13 @@
 // resending, the package download and the comparison of two states.
 import { ref } from 'vue';
 import { defineStore } from 'pinia';
-import type { FreezeBody, FreezeRefusal, RevisionComparison, RevisionDetail, RevisionSummary } from '@shared/schema/revisions.ts';
+import type {
+  FreezeBody,
+  FreezeRefusal,
+  RevisionComparison,
+  RevisionDetail,
+  RevisionSummary,
+} from '@shared/schema/revisions.ts';
 import { ApiError, apiFetch } from '@/api/http.ts';
 import { downloadFile } from '@/api/download.ts';
 import { describeError, useNotifyStore } from './notify.ts';
@@ -47,10 +53,15 @@ export const useRevisionsStore = defineStore('revisions', () => {
     if (buildingId.value === null) throw new Error('No building is open');
     // The newest revision this page shows: a doubled or retried request then cannot freeze twice.
     const afterRevisionId = list.value.reduce<number | null>((m, r) => (m === null || r.id > m ? r.id : m), null);
-    const created = await apiFetch<RevisionDetail>('POST', `/buildings/${buildingId.value}/revisions`, { afterRevisionId, ...body });
+    const created = await apiFetch<RevisionDetail>('POST', `/buildings/${buildingId.value}/revisions`, {
+      afterRevisionId,
+      ...body,
+    });
     detail.value = created;
     list.value = [created, ...list.value.filter((r) => r.id !== created.id)];
-    notify.success(`Revision ${created.code} frozen; e-mail to ${created.recipients.length} member${created.recipients.length === 1 ? '' : 's'} is on its way`);
+    notify.success(
+      `Revision ${created.code} frozen; e-mail to ${created.recipients.length} member${created.recipients.length === 1 ? '' : 's'} is on its way`,
+    );
     return created;
   }
 
@@ -67,7 +78,8 @@ export const useRevisionsStore = defineStore('revisions', () => {
       const updated = await apiFetch<RevisionDetail>('POST', `/revisions/${id}/resend`);
       detail.value = updated;
       list.value = list.value.map((r) => (r.id === id ? updated : r));
-      if (updated.mail.failed > 0) notify.error(new Error(`${updated.mail.failed} e-mails still failed`), `Revision ${updated.code}`);
+      if (updated.mail.failed > 0)
+        notify.error(new Error(`${updated.mail.failed} e-mails still failed`), `Revision ${updated.code}`);
       else notify.success(`Revision ${updated.code}: every member has the e-mail`);
     } catch (e) {
       notify.error(e, 'Could not send the e-mails again');
@@ -93,7 +105,10 @@ export const useRevisionsStore = defineStore('revisions', () => {
     if (buildingId.value === null) return;
     comparing.value = true;
     try {
-      comparison.value = await apiFetch<RevisionComparison>('GET', `/buildings/${buildingId.value}/revisions/compare?from=${from}&to=${to}`);
+      comparison.value = await apiFetch<RevisionComparison>(
+        'GET',
+        `/buildings/${buildingId.value}/revisions/compare?from=${from}&to=${to}`,
+      );
     } catch (e) {
       notify.error(e, 'Could not compare');
     } finally {
@@ -101,5 +116,20 @@ export const useRevisionsStore = defineStore('revisions', () => {
     }
   }
 
-  return { buildingId, list, state, error, detail, comparison, comparing, downloading, load, freeze, open, resend, download, compare };
+  return {
+    buildingId,
+    list,
+    state,
+    error,
+    detail,
+    comparison,
+    comparing,
+    downloading,
+    load,
+    freeze,
+    open,
+    resend,
+    download,
+    compare,
+  };
 });

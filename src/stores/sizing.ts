@@ -45,7 +45,9 @@ export const useSizingStore = defineStore('sizing', () => {
       if (target.kind === 'stack') {
         previews.value = [await apiFetch<StackSizingPreview>('POST', `/stacks/${target.id}/sizing`, request)];
       } else {
-        previews.value = (await apiFetch<BuildingSizingPreview>('POST', `/buildings/${target.id}/sizing`, request)).stacks;
+        previews.value = (
+          await apiFetch<BuildingSizingPreview>('POST', `/buildings/${target.id}/sizing`, request)
+        ).stacks;
       }
       chosen.value = allSelectable(previews.value);
       state.value = 'ready';
@@ -71,7 +73,10 @@ export const useSizingStore = defineStore('sizing', () => {
     const stack = useStackStore();
     if (stack.stackId !== preview.stackId) return false;
     const ops = acceptOps(preview, chosen.value);
-    return ops.length > 0 && stack.edit(ops, ops.length === 1 ? 'Apply the proposed section' : `Apply ${ops.length} proposed sections`);
+    return (
+      ops.length > 0 &&
+      stack.edit(ops, ops.length === 1 ? 'Apply the proposed section' : `Apply ${ops.length} proposed sections`)
+    );
   }
 
   /** Each stack of a building on the version the preview was made on; a stack changed since is refused and reported. */
@@ -111,5 +116,20 @@ export const useSizingStore = defineStore('sizing', () => {
     }
   }
 
-  return { scope, state, error, previews, chosen, applying, rows, totals, chosenCount, reset, propose, choose, chooseAll, accept };
+  return {
+    scope,
+    state,
+    error,
+    previews,
+    chosen,
+    applying,
+    rows,
+    totals,
+    chosenCount,
+    reset,
+    propose,
+    choose,
+    chooseAll,
+    accept,
+  };
 });

@@ -217,13 +217,19 @@ export const useStackStore = defineStore('stack', () => {
     }
     if (c.version > version.value + 1) return void join();
     const head = pending.value[0];
-    const mine = head && (head.version === c.version || (head.state === 'sent' && c.by.userId === me && JSON.stringify(head.ops) === JSON.stringify(c.ops)));
+    const mine =
+      head &&
+      (head.version === c.version ||
+        (head.state === 'sent' && c.by.userId === me && JSON.stringify(head.ops) === JSON.stringify(c.ops)));
     if (mine) {
       commitHead(c.version);
     } else {
       const next = tryApply(confirmed.value, c.ops);
       if (!next) return void join();
-      lastChange.value = { nodeIds: new Set(c.ops.flatMap((op) => (op.op === 'updateNode' || op.op === 'removeNode' ? [op.id] : []))), by: c.by.name };
+      lastChange.value = {
+        nodeIds: new Set(c.ops.flatMap((op) => (op.op === 'updateNode' || op.op === 'removeNode' ? [op.id] : []))),
+        by: c.by.name,
+      };
       confirmed.value = next;
       version.value = c.version;
     }
@@ -294,9 +300,35 @@ export const useStackStore = defineStore('stack', () => {
   }
 
   return {
-    stackId, name, buildingId, buildingName, levels, lastChange, role, state, loadError, loadMissing, link, doc, version, results, selection, presence, others,
-    canEdit, isViewer, saving,
-    canUndo: history.canUndo, canRedo: history.canRedo, undoLabel: history.undoLabel, redoLabel: history.redoLabel,
-    open, close, edit, undo, redo, select,
+    stackId,
+    name,
+    buildingId,
+    buildingName,
+    levels,
+    lastChange,
+    role,
+    state,
+    loadError,
+    loadMissing,
+    link,
+    doc,
+    version,
+    results,
+    selection,
+    presence,
+    others,
+    canEdit,
+    isViewer,
+    saving,
+    canUndo: history.canUndo,
+    canRedo: history.canRedo,
+    undoLabel: history.undoLabel,
+    redoLabel: history.redoLabel,
+    open,
+    close,
+    edit,
+    undo,
+    redo,
+    select,
   };
 });

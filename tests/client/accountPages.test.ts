@@ -42,7 +42,12 @@ describe('account pages', () => {
   });
 
   it('registers without starting a session and says where the link went', async () => {
-    const requests = mockFetch({ 'POST /api/auth/register': () => ({ status: 202, body: { status: 'verification-sent', email: 'ana@example.test' } }) });
+    const requests = mockFetch({
+      'POST /api/auth/register': () => ({
+        status: 202,
+        body: { status: 'verification-sent', email: 'ana@example.test' },
+      }),
+    });
     const { wrapper, router } = await mountAt('/register', RegisterPage);
     await wrapper.find('input[data-test="name"]').setValue('Ana Example');
     await wrapper.find('input[data-test="email"]').setValue('Ana@Example.test');
@@ -60,19 +65,27 @@ describe('account pages', () => {
   it("shows the server's rating of the password as it is typed", async () => {
     vi.useFakeTimers();
     const requests = mockFetch({
-      'POST /api/auth/password-strength': () => ({ status: 200, body: { score: 1, required: 3, acceptable: false, warning: 'This is a very common password.', suggestions: [] } }),
+      'POST /api/auth/password-strength': () => ({
+        status: 200,
+        body: { score: 1, required: 3, acceptable: false, warning: 'This is a very common password.', suggestions: [] },
+      }),
     });
     const { wrapper } = await mountAt('/register', RegisterPage);
     await wrapper.find('input[data-test="password"]').setValue('password1234');
     await vi.advanceTimersByTimeAsync(500);
     await flushPromises();
     expect(requests.map((r) => r.url)).toEqual(['/api/auth/password-strength']);
-    expect(wrapper.find('[data-test="strength"]').text()).toContain('Too easy to guess: This is a very common password.');
+    expect(wrapper.find('[data-test="strength"]').text()).toContain(
+      'Too easy to guess: This is a very common password.',
+    );
   });
 
   it('follows the verification link and says the address is confirmed', async () => {
     const requests = mockFetch({
-      'POST /api/auth/verify': () => ({ status: 200, body: { id: 3, email: 'ana@example.test', name: 'Ana', isAdmin: false, emailVerified: true } }),
+      'POST /api/auth/verify': () => ({
+        status: 200,
+        body: { id: 3, email: 'ana@example.test', name: 'Ana', isAdmin: false, emailVerified: true },
+      }),
     });
     const { wrapper } = await mountAt('/verify-email?token=abc.def.ghi', VerifyEmailPage);
     await vi.waitFor(async () => {
@@ -84,7 +97,12 @@ describe('account pages', () => {
   });
 
   it("shows the server's refusal of an old link", async () => {
-    mockFetch({ 'POST /api/auth/verify': () => ({ status: 422, body: { error: { code: 'unprocessable', message: 'This verification link has expired' } } }) });
+    mockFetch({
+      'POST /api/auth/verify': () => ({
+        status: 422,
+        body: { error: { code: 'unprocessable', message: 'This verification link has expired' } },
+      }),
+    });
     const { wrapper } = await mountAt('/verify-email?token=old', VerifyEmailPage);
     await vi.waitFor(async () => {
       await flushPromises();
@@ -99,7 +117,9 @@ describe('account pages', () => {
     setActivePinia(createPinia());
     const auth = useAuthStore();
     await auth.signOut();
-    expect(requests.map((r) => [r.method, r.url, r.authorization])).toEqual([['POST', '/api/auth/logout', 'Bearer tok-1']]);
+    expect(requests.map((r) => [r.method, r.url, r.authorization])).toEqual([
+      ['POST', '/api/auth/logout', 'Bearer tok-1'],
+    ]);
     expect(getToken()).toBeNull();
     expect(auth.isSignedIn).toBe(false);
   });

@@ -8,12 +8,17 @@ import AnalysisOptionsDialog from '@/components/building/AnalysisOptionsDialog.v
 async function mountDialog(editable: boolean) {
   const pinia = createPinia();
   setActivePinia(pinia);
-  const w = mount(AnalysisOptionsDialog, { props: { modelValue: true, editable }, global: { plugins: [pinia] }, attachTo: document.body });
+  const w = mount(AnalysisOptionsDialog, {
+    props: { modelValue: true, editable },
+    global: { plugins: [pinia] },
+    attachTo: document.body,
+  });
   await flushPromises();
   return w;
 }
 const caption = () => document.querySelector('[data-test="options-caption"]')?.textContent?.trim() ?? '';
-const buttons = () => [...document.querySelectorAll('.q-dialog .q-card__actions .q-btn')].map((b) => b.textContent?.trim());
+const buttons = () =>
+  [...document.querySelectorAll('.q-dialog .q-card__actions .q-btn')].map((b) => b.textContent?.trim());
 
 afterEach(() => {
   document.body.innerHTML = '';
@@ -53,6 +58,8 @@ describe('buckling lengths option', () => {
     const { optionsSummary } = await import('@/components/building/optionsSummary.ts');
     const base = { combination: '6.10ab', annex: 'UK', imposedReduction: true, selfWeight: true } as const;
     expect(optionsSummary(base)).toContain('tabulated buckling-length factors');
-    expect(optionsSummary({ ...base, bucklingLengths: 'critical' })).toContain('buckling lengths from a critical buckling analysis');
+    expect(optionsSummary({ ...base, bucklingLengths: 'critical' })).toContain(
+      'buckling lengths from a critical buckling analysis',
+    );
   });
 });

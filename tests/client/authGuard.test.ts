@@ -64,7 +64,10 @@ describe('route guard and sign-out on 401', () => {
     setToken('tok-1');
     mockFetch({
       'GET /api/me': () => ({ status: 200, body: user }),
-      'GET /api/buildings': () => ({ status: 401, body: { error: { code: 'unauthenticated', message: 'Your session has ended' } } }),
+      'GET /api/buildings': () => ({
+        status: 401,
+        body: { error: { code: 'unauthenticated', message: 'Your session has ended' } },
+      }),
     });
     const router = makeRouter();
     await router.push('/buildings');

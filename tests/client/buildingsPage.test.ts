@@ -44,12 +44,28 @@ describe('buildings page', () => {
       'GET /api/buildings': () =>
         fail
           ? { status: 500, body: { error: { code: 'internal', message: 'The database is not answering' } } }
-          : { status: 200, body: [{ id: 1, name: 'Demo block', reference: 'D-1', role: 'lead', stackCount: 2, worstUtilisation: 0.7, updatedAt: '2026-03-14T09:05:00Z' }] },
+          : {
+              status: 200,
+              body: [
+                {
+                  id: 1,
+                  name: 'Demo block',
+                  reference: 'D-1',
+                  role: 'lead',
+                  stackCount: 2,
+                  worstUtilisation: 0.7,
+                  updatedAt: '2026-03-14T09:05:00Z',
+                },
+              ],
+            },
     });
     const wrapper = await mountPage();
     expect(wrapper.find('[role="alert"]').text()).toContain('The database is not answering');
     fail = false;
-    await wrapper.findAll('button').find((b) => b.text().includes('Try again'))!.trigger('click');
+    await wrapper
+      .findAll('button')
+      .find((b) => b.text().includes('Try again'))!
+      .trigger('click');
     await flushPromises();
     expect(requests).toHaveLength(2);
     expect(wrapper.find('[role="alert"]').exists()).toBe(false);

@@ -24,7 +24,11 @@ const doc: StackDocument = {
     { id: 'p1', kind: 'splice', data: { elevation: 5 } },
     { id: 'l2', kind: 'lift', data: { section: 'UKC 254x254x73', grade: 'S355' } },
     { id: 'c', kind: 'cap', data: { elevation: 9, fixity: 'pinned', Gk: 60, Qk: 20, category: 'H' } },
-    { id: 'r1', kind: 'restraint', data: { elevation: 4, axes: 'both', fixity: 'pinned', Gk: 120, Qk: 80, category: 'A' } },
+    {
+      id: 'r1',
+      kind: 'restraint',
+      data: { elevation: 4, axes: 'both', fixity: 'pinned', Gk: 120, Qk: 80, category: 'A' },
+    },
   ],
   edges: [
     { id: 'e1', source: 's', target: 'l1' },
@@ -50,7 +54,11 @@ describe('splice and base checks in the results', () => {
   it('opens the working of a detailed splice with its clauses', async () => {
     const detailed = structuredClone(doc);
     const splice = detailed.nodes.find((n) => n.id === 'p1');
-    if (splice?.kind === 'splice') splice.data.detail = { plate: { width: 250, thickness: 12, grade: 'S275' }, bolts: { number: 4, diameter: 20, class: '8.8' } };
+    if (splice?.kind === 'splice')
+      splice.data.detail = {
+        plate: { width: 250, thickness: 12, grade: 'S275' },
+        bolts: { number: 4, diameter: 20, class: '8.8' },
+      };
     const w = mount(ConnectionChecks, { props: { results: analyseStack(detailed, { consequenceClass: '2b' }) } });
     expect(w.find('[data-connection="p1"] [data-status]').attributes('data-status')).toBe('passes');
     expect(w.find('[data-connection="p1"]').text()).toContain('meets the tie');
@@ -59,7 +67,9 @@ describe('splice and base checks in the results', () => {
     expect(clauses).toContain('EN 1991-1-7 A.6(2), EN 1990 eq. 6.11b');
     expect(clauses).toContain('EN 1993-1-8 Table 3.4');
     // T = 120 + 0.5 × 80 = 160 kN (EN 1991-1-7 A.6, ψ1 = 0.5)
-    expect(w.find('[data-test="connection-working"] [data-clause="EN 1991-1-7 A.6(2), EN 1990 eq. 6.11b"]').text()).toContain('160');
+    expect(
+      w.find('[data-test="connection-working"] [data-clause="EN 1991-1-7 A.6(2), EN 1990 eq. 6.11b"]').text(),
+    ).toContain('160');
   });
 });
 
@@ -67,11 +77,17 @@ describe('splices on the elevation', () => {
   it('mark a failing splice, so it is seen beside the lifts', () => {
     const weak = structuredClone(doc);
     const splice = weak.nodes.find((n) => n.id === 'p1');
-    if (splice?.kind === 'splice') splice.data.detail = { plate: { width: 250, thickness: 12, grade: 'S275' }, bolts: { number: 1, diameter: 12, class: '8.8' } };
+    if (splice?.kind === 'splice')
+      splice.data.detail = {
+        plate: { width: 250, thickness: 12, grade: 'S275' },
+        bolts: { number: 1, diameter: 12, class: '8.8' },
+      };
     const results = analyseStack(weak, { consequenceClass: '2b' });
     const w = mount(ResultsPanel, { props: { results, doc: weak, selectedLiftId: null, stale: false } });
     expect(w.find('[data-splice-status]').attributes('data-splice-status')).toBe('fails');
-    const plain = mount(ResultsPanel, { props: { results: analyseStack(doc), doc, selectedLiftId: null, stale: false } });
+    const plain = mount(ResultsPanel, {
+      props: { results: analyseStack(doc), doc, selectedLiftId: null, stale: false },
+    });
     expect(plain.find('[data-splice-status]').attributes('data-splice-status')).toBe('not-given');
   });
 });
@@ -83,7 +99,16 @@ describe('splice and base details in the properties pane', () => {
     const [ops] = w.emitted('edit')?.[0] as [Op[], string];
     // UKC 254x254x73: b = 254.6 → 250 mm plates; tf = 14.2 → at least 7.1 and 10 mm → 10 mm (common practice, no source)
     expect(ops).toEqual([
-      { op: 'updateNode', id: 'p1', data: { detail: { plate: { width: 250, thickness: 10, grade: 'S275' }, bolts: { number: 4, diameter: 20, class: '8.8' } } } },
+      {
+        op: 'updateNode',
+        id: 'p1',
+        data: {
+          detail: {
+            plate: { width: 250, thickness: 10, grade: 'S275' },
+            bolts: { number: 4, diameter: 20, class: '8.8' },
+          },
+        },
+      },
     ]);
   });
 
@@ -92,7 +117,9 @@ describe('splice and base details in the properties pane', () => {
     await w.find('[data-test="base-plate"] [data-test="propose-detail"]').trigger('click');
     const [ops] = w.emitted('edit')?.[0] as [Op[], string];
     // UKC 254x254x89: b 256.3, h 260.3 → 456.3, 460.3 → 475 × 475 (next 25 mm)
-    expect(ops).toEqual([{ op: 'updateNode', id: 's', data: { basePlate: { b: 475, l: 475, t: 25, grade: 'S275', grout: 25 } } }]);
+    expect(ops).toEqual([
+      { op: 'updateNode', id: 's', data: { basePlate: { b: 475, l: 475, t: 25, grade: 'S275', grout: 25 } } },
+    ]);
     const viewer = mount(PropertiesPanel, { props: { doc, selection: ['s'], results: null, readOnly: true } });
     expect(viewer.find('[data-test="propose-detail"]').exists()).toBe(false);
   });
@@ -101,15 +128,28 @@ describe('splice and base details in the properties pane', () => {
 describe('robustness summary on the building page', () => {
   it('names each splice that does not meet the tie force and why', async () => {
     setActivePinia(createPinia());
-    const summary = robustnessSummary(analyseBuilding([{ id: 7, name: 'C/3', doc }], undefined, { consequenceClass: '2b' }), '2b');
+    const summary = robustnessSummary(
+      analyseBuilding([{ id: 7, name: 'C/3', doc }], undefined, { consequenceClass: '2b' }),
+      '2b',
+    );
     const requests = mockFetch({ 'GET /api/buildings/4/robustness': () => ({ status: 200, body: summary }) });
-    const options = { combination: '6.10ab', annex: 'UK', imposedReduction: true, selfWeight: true, consequenceClass: '2b' } as const;
+    const options = {
+      combination: '6.10ab',
+      annex: 'UK',
+      imposedReduction: true,
+      selfWeight: true,
+      consequenceClass: '2b',
+    } as const;
     const w = mount(RobustnessSummary, { props: { buildingId: 4, stacks: [], options } });
     await flushPromises();
     expect(requests.map((r) => r.url)).toEqual(['/api/buildings/4/robustness']);
-    expect(w.find('[data-test="robustness-message"]').text()).toContain('0 splice(s) meet the vertical tie force of EN 1991-1-7 A.6, 1 do not');
+    expect(w.find('[data-test="robustness-message"]').text()).toContain(
+      '0 splice(s) meet the vertical tie force of EN 1991-1-7 A.6, 1 do not',
+    );
     // Tie: 120 + 0.5 × 80 = 160 kN (EN 1991-1-7 A.6(2), accidental combination)
-    expect(w.find('[data-test="robustness-unmet"]').text()).toContain('C/3, splice +5.000: tie 160 kN, no detail given');
+    expect(w.find('[data-test="robustness-unmet"]').text()).toContain(
+      'C/3, splice +5.000: tie 160 kN, no detail given',
+    );
     vi.unstubAllGlobals();
   });
 });
@@ -124,6 +164,8 @@ describe('building classes', () => {
     w.unmount();
     const base = { combination: '6.10ab', annex: 'UK', imposedReduction: true, selfWeight: true } as const;
     expect(optionsSummary(base)).toContain('consequence class not given');
-    expect(optionsSummary({ ...base, consequenceClass: '2b', concreteClass: 'C30/37' })).toContain('consequence class 2b · foundations C30/37');
+    expect(optionsSummary({ ...base, consequenceClass: '2b', concreteClass: 'C30/37' })).toContain(
+      'consequence class 2b · foundations C30/37',
+    );
   });
 });

@@ -6,12 +6,16 @@ import { describe, expect, it } from 'vitest';
 import { dispositionFilename } from '@/api/download.ts';
 
 describe('dispositionFilename', () => {
-  it.each(['A_10-results.csv', 'REF-1-P01-calculations.pdf', 'level loads.csv', 'say "hello".txt', 'Stütze C-4.pdf', 'plan 3½.csv'])(
-    'reads back %s from the header res.attachment() writes',
-    (name) => {
-      expect(dispositionFilename(create(name))).toBe(name);
-    },
-  );
+  it.each([
+    'A_10-results.csv',
+    'REF-1-P01-calculations.pdf',
+    'level loads.csv',
+    'say "hello".txt',
+    'Stütze C-4.pdf',
+    'plan 3½.csv',
+  ])('reads back %s from the header res.attachment() writes', (name) => {
+    expect(dispositionFilename(create(name))).toBe(name);
+  });
 
   it('is null when the header names no file', () => {
     expect(dispositionFilename('')).toBeNull();

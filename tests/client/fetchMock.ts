@@ -24,7 +24,9 @@ export function mockFetch(routes: Record<string, Handler>): RecordedRequest[] {
     };
     requests.push(req);
     const handler = routes[`${method} ${url}`];
-    const res = handler ? handler(req) : { status: 404, body: { error: { code: 'not_found', message: `No route ${method} ${url}` } } };
+    const res = handler
+      ? handler(req)
+      : { status: 404, body: { error: { code: 'not_found', message: `No route ${method} ${url}` } } };
     return new Response(res.body === undefined ? null : JSON.stringify(res.body), {
       status: res.status,
       headers: { 'Content-Type': 'application/json' },

@@ -35,7 +35,9 @@ describe('a field a colleague changed while it was being edited', () => {
     f.value.value = { ...base, Gk: 120 };
     await nextTick();
     expect(f.notices).toHaveLength(1);
-    expect(f.notices[0]).toMatch(/^Ana Example changed Permanent load Gk to 120(\.0+)? while you were editing it; what you typed \(150\) was replaced$/);
+    expect(f.notices[0]).toMatch(
+      /^Ana Example changed Permanent load Gk to 120(\.0+)? while you were editing it; what you typed \(150\) was replaced$/,
+    );
     f.scope.stop();
   });
 
@@ -47,7 +49,11 @@ describe('a field a colleague changed while it was being edited', () => {
     f.changedBy.value = 'Ben Sample';
     f.value.value = { ...base, Qk: 60 };
     await nextTick();
-    expect(f.notices).toEqual([expect.stringMatching(/^Ben Sample changed Imposed load Qk to 60(\.0+)? while you were editing it; your 55(\.0+)? was replaced$/)]);
+    expect(f.notices).toEqual([
+      expect.stringMatching(
+        /^Ben Sample changed Imposed load Qk to 60(\.0+)? while you were editing it; your 55(\.0+)? was replaced$/,
+      ),
+    ]);
     f.scope.stop();
   });
 

@@ -8,13 +8,45 @@ import type { StackDocument } from '@shared/schema/stack.ts';
 import PropertiesPanel from '@/components/stack/PropertiesPanel.vue';
 
 const doc = (loadsByHand?: boolean): StackDocument => ({
-  nodes: [{ id: 'r1', kind: 'restraint', data: { elevation: 4, levelId: '2', axes: 'both', fixity: 'pinned', Gk: 0, Qk: 0, category: 'A', ...(loadsByHand ? { loadsByHand } : {}) } }],
+  nodes: [
+    {
+      id: 'r1',
+      kind: 'restraint',
+      data: {
+        elevation: 4,
+        levelId: '2',
+        axes: 'both',
+        fixity: 'pinned',
+        Gk: 0,
+        Qk: 0,
+        category: 'A',
+        ...(loadsByHand ? { loadsByHand } : {}),
+      },
+    },
+  ],
   edges: [],
 });
 const use = (byHand: boolean): FloorLoadUse => ({
-  nodeId: 'r1', levelId: '2', area: 25.3125, gridArea: 25.3125, Gk: 126.5625, Qk: 63.28125, category: 'B', faces: { yPlus: { Gk: 60, Qk: 30 } }, lineGk: 0, lineQk: 0, byHand,
+  nodeId: 'r1',
+  levelId: '2',
+  area: 25.3125,
+  gridArea: 25.3125,
+  Gk: 126.5625,
+  Qk: 63.28125,
+  category: 'B',
+  faces: { yPlus: { Gk: 60, Qk: 30 } },
+  lineGk: 0,
+  lineQk: 0,
+  byHand,
 });
-const results = (byHand: boolean): StackResult => ({ errors: [], warnings: [], lifts: [], governingLiftId: null, takeDown: [], floorLoads: [use(byHand)] });
+const results = (byHand: boolean): StackResult => ({
+  errors: [],
+  warnings: [],
+  lifts: [],
+  governingLiftId: null,
+  takeDown: [],
+  floorLoads: [use(byHand)],
+});
 
 afterEach(() => {
   document.body.innerHTML = '';
@@ -22,11 +54,14 @@ afterEach(() => {
 
 function mountPanel(byHand: boolean) {
   setActivePinia(createPinia());
-  return mount(PropertiesPanel, { props: { doc: doc(byHand), selection: ['r1'], results: results(byHand), readOnly: false }, attachTo: document.body });
+  return mount(PropertiesPanel, {
+    props: { doc: doc(byHand), selection: ['r1'], results: results(byHand), readOnly: false },
+    attachTo: document.body,
+  });
 }
 
 describe('loads of a restraint on a floor with floor loads', () => {
-  it('shows the floor\'s loads in locked fields and offers to set them by hand with those figures', async () => {
+  it("shows the floor's loads in locked fields and offers to set them by hand with those figures", async () => {
     const w = mountPanel(false);
     expect(w.get('[data-test="floor-load-note"]').text()).toContain('Loads from the floor of this level');
     const gk = w.get('input[data-field="Gk"]');
@@ -34,11 +69,17 @@ describe('loads of a restraint on a floor with floor loads', () => {
     expect(gk.attributes('readonly')).toBeDefined();
     await w.get('[data-test="set-loads-by-hand"]').trigger('click');
     const [ops] = w.emitted('edit')![0] as unknown as [{ op: string; data: Record<string, unknown> }[]];
-    expect(ops[0].data).toMatchObject({ loadsByHand: true, Gk: 126.5625, Qk: 63.28125, category: 'B', faces: { yPlus: { Gk: 60, Qk: 30 } } });
+    expect(ops[0].data).toMatchObject({
+      loadsByHand: true,
+      Gk: 126.5625,
+      Qk: 63.28125,
+      category: 'B',
+      faces: { yPlus: { Gk: 60, Qk: 30 } },
+    });
     w.unmount();
   });
 
-  it('marks loads set by hand, keeps the fields open and offers the floor\'s loads back', async () => {
+  it("marks loads set by hand, keeps the fields open and offers the floor's loads back", async () => {
     const w = mountPanel(true);
     const note = w.get('[data-test="floor-load-note"]');
     expect(note.attributes('data-by-hand')).toBe('true');

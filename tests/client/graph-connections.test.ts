@@ -15,8 +15,16 @@ const doc: StackDocument = {
     { id: 'sp', kind: 'splice', data: { elevation: 8 } },
     { id: 'l2', kind: 'lift', data: { section: 'UKC 203x203x46', grade: 'S355' } },
     { id: 'cap', kind: 'cap', data: { elevation: 12, fixity: 'pinned', Gk: 50, Qk: 10, category: 'H' } },
-    { id: 'r4', kind: 'restraint', data: { elevation: 4, axes: 'both', fixity: 'pinned', Gk: 100, Qk: 40, category: 'B' } },
-    { id: 'r10', kind: 'restraint', data: { elevation: 10, axes: 'both', fixity: 'pinned', Gk: 100, Qk: 40, category: 'B' } },
+    {
+      id: 'r4',
+      kind: 'restraint',
+      data: { elevation: 4, axes: 'both', fixity: 'pinned', Gk: 100, Qk: 40, category: 'B' },
+    },
+    {
+      id: 'r10',
+      kind: 'restraint',
+      data: { elevation: 10, axes: 'both', fixity: 'pinned', Gk: 100, Qk: 40, category: 'B' },
+    },
     { id: 'ld', kind: 'load', data: { label: 'Façade', Gk: 12, Qk: 0, category: 'A' } },
     { id: 'l3', kind: 'lift', data: { section: 'UKC 152x152x23', grade: 'S275' } },
   ],

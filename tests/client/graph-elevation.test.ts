@@ -11,12 +11,20 @@ import { useStackGraph } from '@/composables/useStackGraph.ts';
 import { buildStack } from '../engine/stack-builder.ts';
 
 // Invented: levels every 4 m; two lifts spliced at +4.5, floors at +4 (free) and +8 (on level L2)
-const levels: Level[] = [0, 4, 8, 12].map((elevation, i) => ({ id: `lv${i}`, name: i === 0 ? 'Ground' : `Level ${i}`, elevation }));
-const doc = buildStack({ lifts: [{ top: 4.5 }, { top: 12 }], floors: [{ elevation: 4 }, { elevation: 8, levelId: 'lv2' }] });
+const levels: Level[] = [0, 4, 8, 12].map((elevation, i) => ({
+  id: `lv${i}`,
+  name: i === 0 ? 'Ground' : `Level ${i}`,
+  elevation,
+}));
+const doc = buildStack({
+  lifts: [{ top: 4.5 }, { top: 12 }],
+  floors: [{ elevation: 4 }, { elevation: 8, levelId: 'lv2' }],
+});
 // A stored position far from its elevation: only its sideways place is kept
 doc.nodes.find((n) => n.id === 'p1')!.position = { x: 30, y: 900 };
 
-const graphOf = (d = doc) => useStackGraph({ doc: d, results: null, selection: [], others: [], readOnly: false, levels });
+const graphOf = (d = doc) =>
+  useStackGraph({ doc: d, results: null, selection: [], others: [], readOnly: false, levels });
 const at = (z: number) => -z * PX_PER_METRE;
 
 describe('snapElevation', () => {

@@ -14,7 +14,11 @@ const doc: StackDocument = {
   nodes: [
     { id: 'sup', kind: 'support', data: { elevation: 0, fixity: 'pinned' } },
     { id: 'l1', kind: 'lift', data: { section: 'UKC 203x203x46', grade: 'S355', kY: 0.85, note: 'base detail' } },
-    { id: 'r1', kind: 'restraint', data: { elevation: 2, axes: 'z', fixity: 'pinned', Gk: 120, Qk: 45.5, category: 'B' } },
+    {
+      id: 'r1',
+      kind: 'restraint',
+      data: { elevation: 2, axes: 'z', fixity: 'pinned', Gk: 120, Qk: 45.5, category: 'B' },
+    },
     { id: 'cap', kind: 'cap', data: { elevation: 4, fixity: 'pinned', Gk: 80, Qk: 20, category: 'H' } },
     { id: 'ld', kind: 'load', data: { label: 'Plant', Gk: 15, Qk: 5, category: 'E' } },
   ],
@@ -30,7 +34,10 @@ function mountGraph(results: StackResult | null, others: { userId: number; name:
   const Host = defineComponent({
     setup() {
       const { nodes, edges } = useStackGraph({ doc, results, selection: ['r1'], others, readOnly: false });
-      return () => h('div', { style: 'width: 800px; height: 600px' }, [h(VueFlow, { nodes: nodes.value, edges: edges.value, nodeTypes })]);
+      return () =>
+        h('div', { style: 'width: 800px; height: 600px' }, [
+          h(VueFlow, { nodes: nodes.value, edges: edges.value, nodeTypes }),
+        ]);
     },
   });
   return mount(Host, { attachTo: document.body });
@@ -60,7 +67,18 @@ describe('graph node components', () => {
     const results: StackResult = {
       errors: [{ nodeId: 'r1', message: 'Restraint at +2.000 is outside the lift it is attached to' }],
       warnings: [],
-      lifts: [{ liftId: 'l1', bottom: 0, top: 4, section: 'UKC 203x203x46', grade: 'S355', utilisation: 0.91, governing: 'flexural-z', pieces: [] }],
+      lifts: [
+        {
+          liftId: 'l1',
+          bottom: 0,
+          top: 4,
+          section: 'UKC 203x203x46',
+          grade: 'S355',
+          utilisation: 0.91,
+          governing: 'flexural-z',
+          pieces: [],
+        },
+      ],
       governingLiftId: 'l1',
       takeDown: [],
     };
@@ -88,7 +106,10 @@ describe('graph node components', () => {
 
 describe('stack graph', () => {
   it('draws every edge of the document although its connection rules refuse a second one like it', async () => {
-    const w = mount(StackGraph, { props: { doc, results: null, selection: [], others: [], readOnly: false }, attachTo: document.body });
+    const w = mount(StackGraph, {
+      props: { doc, results: null, selection: [], others: [], readOnly: false },
+      attachTo: document.body,
+    });
     await flushPromises();
     // new results make Vue Flow take the edges again, now with the connection rules in force
     await w.setProps({ results: { errors: [], warnings: [], lifts: [], governingLiftId: null, takeDown: [] } });
@@ -99,15 +120,25 @@ describe('stack graph', () => {
   });
 
   it('names the zoom and fit buttons, which the graph library draws as bare icons', async () => {
-    const w = mount(StackGraph, { props: { doc, results: null, selection: [], others: [], readOnly: true }, attachTo: document.body });
+    const w = mount(StackGraph, {
+      props: { doc, results: null, selection: [], others: [], readOnly: true },
+      attachTo: document.body,
+    });
     await flushPromises();
     const names = w.findAll('.vue-flow__controls-button').map((b) => b.text());
-    expect(names.map((n) => n.replace(/^(add|remove|fit_screen)/, ''))).toEqual(['Zoom in', 'Zoom out', 'Show the whole stack']);
+    expect(names.map((n) => n.replace(/^(add|remove|fit_screen)/, ''))).toEqual([
+      'Zoom in',
+      'Zoom out',
+      'Show the whole stack',
+    ]);
     w.unmount();
   });
 
   it('gives a viewer no palette', async () => {
-    const w = mount(StackGraph, { props: { doc, results: null, selection: [], others: [], readOnly: true }, attachTo: document.body });
+    const w = mount(StackGraph, {
+      props: { doc, results: null, selection: [], others: [], readOnly: true },
+      attachTo: document.body,
+    });
     await flushPromises();
     expect(w.find('.node-palette').exists()).toBe(false);
     w.unmount();

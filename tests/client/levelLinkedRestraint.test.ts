@@ -7,7 +7,15 @@ import type { StackDocument } from '@shared/schema/stack.ts';
 import PropertiesPanel from '@/components/stack/PropertiesPanel.vue';
 
 // Invented demo values.
-const onLevel = { elevation: 3.8, levelId: '2', axes: 'both', fixity: 'pinned', Gk: 160, Qk: 80, category: 'B' } as const;
+const onLevel = {
+  elevation: 3.8,
+  levelId: '2',
+  axes: 'both',
+  fixity: 'pinned',
+  Gk: 160,
+  Qk: 80,
+  category: 'B',
+} as const;
 const doc = (data: Record<string, unknown>): StackDocument => ({
   nodes: [
     { id: 'l1', kind: 'lift', data: { section: 'UKC 203x203x46', grade: 'S355' } },
@@ -24,7 +32,9 @@ afterEach(() => {
 
 describe('a restraint tied to a level', () => {
   it('shows its elevation read-only, saying that the level sets it', () => {
-    const w = mount(PropertiesPanel, { props: { doc: doc(onLevel), selection: ['r1'], results: null, readOnly: false } });
+    const w = mount(PropertiesPanel, {
+      props: { doc: doc(onLevel), selection: ['r1'], results: null, readOnly: false },
+    });
     expect(elevationInput(w).attributes('readonly')).toBeDefined();
     expect(w.text()).toContain('Set by its level');
     expect(w.find('[data-test="untie-level"]').exists()).toBe(true);
@@ -38,17 +48,28 @@ describe('a restraint tied to a level', () => {
   });
 
   it('unties it in one edit that keeps every other value and its edge to the lift', async () => {
-    const w = mount(PropertiesPanel, { props: { doc: doc(onLevel), selection: ['r1'], results: null, readOnly: false } });
+    const w = mount(PropertiesPanel, {
+      props: { doc: doc(onLevel), selection: ['r1'], results: null, readOnly: false },
+    });
     await w.find('[data-test="untie-level"]').trigger('click');
     const [ops, label] = w.emitted('edit')?.[0] as [Op[], string];
     const added = ops.find((o) => o.op === 'addNode');
-    expect(added && added.op === 'addNode' && added.node.data).toEqual({ elevation: 3.8, axes: 'both', fixity: 'pinned', Gk: 160, Qk: 80, category: 'B' });
+    expect(added && added.op === 'addNode' && added.node.data).toEqual({
+      elevation: 3.8,
+      axes: 'both',
+      fixity: 'pinned',
+      Gk: 160,
+      Qk: 80,
+      category: 'B',
+    });
     expect(ops).toContainEqual({ op: 'addEdge', edge: { id: 'e1', source: 'r1', target: 'l1' } });
     expect(label).toBe('Untie Restraint +3.800 from its level');
   });
 
   it('offers no untie button to a viewer, nor advice to do what a viewer cannot', () => {
-    const w = mount(PropertiesPanel, { props: { doc: doc(onLevel), selection: ['r1'], results: null, readOnly: true } });
+    const w = mount(PropertiesPanel, {
+      props: { doc: doc(onLevel), selection: ['r1'], results: null, readOnly: true },
+    });
     expect(w.find('[data-test="untie-level"]').exists()).toBe(false);
     expect(w.text()).toContain('Set by its level');
     expect(w.text()).not.toContain('untie it');
@@ -74,7 +95,9 @@ describe('a cap and a support on levels', () => {
     ['cap', 'c'],
     ['support', 's'],
   ])('locks the %s elevation to its level and unties it in one edit', async (_kind, id) => {
-    const w = mount(PropertiesPanel, { props: { doc: chain(cap, support), selection: [id], results: null, readOnly: false } });
+    const w = mount(PropertiesPanel, {
+      props: { doc: chain(cap, support), selection: [id], results: null, readOnly: false },
+    });
     expect(elevationInput(w).attributes('readonly')).toBeDefined();
     expect(w.text()).toContain('Set by its level');
     await w.find('[data-test="untie-level"]').trigger('click');

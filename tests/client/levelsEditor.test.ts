@@ -88,7 +88,9 @@ describe('levels editor', () => {
     const requests = mockFetch({});
     const wrapper = mountEditor();
     await addLevel(wrapper, 'level 1 ', '7.2');
-    expect(wrapper.find('[data-test="level-clash"]').text()).toBe('There is already a level named "Level 1" (at +3.600 m)');
+    expect(wrapper.find('[data-test="level-clash"]').text()).toBe(
+      'There is already a level named "Level 1" (at +3.600 m)',
+    );
     expect(requests).toHaveLength(0);
   });
 
@@ -114,7 +116,9 @@ describe('levels editor', () => {
     });
     const wrapper = mountEditor();
     await addLevel(wrapper, 'Level 2', '7,2');
-    expect(requests.map((r) => [r.method, r.url, r.body])).toEqual([['POST', '/api/buildings/7/levels', { name: 'Level 2', elevation: 7.2 }]]);
+    expect(requests.map((r) => [r.method, r.url, r.body])).toEqual([
+      ['POST', '/api/buildings/7/levels', { name: 'Level 2', elevation: 7.2 }],
+    ]);
     const rows = wrapper.findAll('[data-test="level-row"]').map((r) => r.text());
     expect(rows[0]).toContain('Level 2');
     expect(rows[0]).toContain('+7.200 m');

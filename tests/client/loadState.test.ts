@@ -13,7 +13,10 @@ import { mockFetch } from './fetchMock.ts';
 const Stub = defineComponent(() => () => h('div'));
 
 async function mountState(props: Record<string, unknown>) {
-  const router = createRouter({ history: createMemoryHistory(), routes: [{ path: '/buildings', name: 'buildings', component: Stub }] });
+  const router = createRouter({
+    history: createMemoryHistory(),
+    routes: [{ path: '/buildings', name: 'buildings', component: Stub }],
+  });
   await router.push('/buildings');
   return mount(LoadState, { props: { state: 'error', ...props }, global: { plugins: [router] } });
 }
@@ -43,7 +46,10 @@ describe('opening a building', () => {
     expect(store.pageState).toBe('error');
     expect(store.pageMissing).toBe(true);
 
-    vi.stubGlobal('fetch', vi.fn(async () => Promise.reject(new TypeError('Failed to fetch'))));
+    vi.stubGlobal(
+      'fetch',
+      vi.fn(async () => Promise.reject(new TypeError('Failed to fetch'))),
+    );
     await store.open(998);
     await flushPromises();
     expect(store.pageState).toBe('error');

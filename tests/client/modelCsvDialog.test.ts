@@ -16,7 +16,10 @@ const refused: GridPreview = {
 };
 const clean: GridPreview = {
   fileHash: HASH,
-  grid: { x: { lines: [{ id: 'x1', name: 'A', position: 0 }], edgeBefore: 0, edgeAfter: 0 }, y: { lines: [{ id: 'y1', name: '1', position: 0 }], edgeBefore: 0, edgeAfter: 0 } },
+  grid: {
+    x: { lines: [{ id: 'x1', name: 'A', position: 0 }], edgeBefore: 0, edgeAfter: 0 },
+    y: { lines: [{ id: 'y1', name: '1', position: 0 }], edgeBefore: 0, edgeAfter: 0 },
+  },
   rows: [
     { row: 2, direction: 'x', name: 'A', position: 0, change: 'new' },
     { row: 3, direction: 'y', name: '1', position: 0, change: 'new' },
@@ -26,13 +29,19 @@ const clean: GridPreview = {
 
 async function mountDialog() {
   setActivePinia(createPinia());
-  const w = mount(ModelCsvDialog, { props: { modelValue: true, buildingId: 7, kind: 'grid' }, attachTo: document.body });
+  const w = mount(ModelCsvDialog, {
+    props: { modelValue: true, buildingId: 7, kind: 'grid' },
+    attachTo: document.body,
+  });
   await flushPromises();
   return w;
 }
 
 async function pick(w: Awaited<ReturnType<typeof mountDialog>>) {
-  w.findComponent({ name: 'QFile' }).vm.$emit('update:modelValue', new File(['direction,name,position_m\n'], 'grid.csv', { type: 'text/csv' }));
+  w.findComponent({ name: 'QFile' }).vm.$emit(
+    'update:modelValue',
+    new File(['direction,name,position_m\n'], 'grid.csv', { type: 'text/csv' }),
+  );
   await flushPromises();
 }
 
@@ -45,7 +54,12 @@ afterEach(() => {
 
 describe('grid import dialog', () => {
   it('lists the problems of a refused file by row and keeps Import off', async () => {
-    mockFetch({ 'POST /api/buildings/7/imports/grid': () => ({ status: 422, body: { error: { code: 'unprocessable', message: 'The file has 1 problem', details: refused } } }) });
+    mockFetch({
+      'POST /api/buildings/7/imports/grid': () => ({
+        status: 422,
+        body: { error: { code: 'unprocessable', message: 'The file has 1 problem', details: refused } },
+      }),
+    });
     const w = await mountDialog();
     await pick(w);
     expect(document.body.querySelector('[data-test="import-problems"]')?.textContent).toContain('Row 3');
@@ -57,11 +71,16 @@ describe('grid import dialog', () => {
     const sent = mockFetch({
       'POST /api/buildings/7/imports/grid': () => ({ status: 200, body: clean }),
       'POST /api/buildings/7/imports/grid/apply': () => ({ status: 200, body: {} }),
-      'GET /api/buildings/7/model': () => ({ status: 200, body: { grid: clean.grid, buildups: [], floors: [], overrides: {}, version: 2 } }),
+      'GET /api/buildings/7/model': () => ({
+        status: 200,
+        body: { grid: clean.grid, buildups: [], floors: [], overrides: {}, version: 2 },
+      }),
     });
     const w = await mountDialog();
     await pick(w);
-    const rows = [...document.body.querySelectorAll('[data-test="model-csv-preview"] tbody tr')].map((r) => r.textContent);
+    const rows = [...document.body.querySelectorAll('[data-test="model-csv-preview"] tbody tr')].map(
+      (r) => r.textContent,
+    );
     expect(rows).toHaveLength(2);
     expect(rows[0]).toContain('A');
     apply().click();

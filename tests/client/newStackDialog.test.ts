@@ -59,13 +59,19 @@ function openStore(levels: Level[] = []) {
 
 async function mountDialog(levels: Level[] = []) {
   const { pinia, store } = openStore(levels);
-  const w = mount(NewStackDialog, { props: { modelValue: true }, global: { plugins: [pinia] }, attachTo: document.body });
+  const w = mount(NewStackDialog, {
+    props: { modelValue: true },
+    global: { plugins: [pinia] },
+    attachTo: document.body,
+  });
   await flushPromises();
   return { w, store };
 }
 
 const field = (label: string) => {
-  const input = [...document.querySelectorAll<HTMLInputElement>('.q-dialog input')].find((i) => i.getAttribute('aria-label') === label);
+  const input = [...document.querySelectorAll<HTMLInputElement>('.q-dialog input')].find(
+    (i) => i.getAttribute('aria-label') === label,
+  );
   if (!input) throw new Error(`no field ${label}`);
   return input;
 };
@@ -80,7 +86,8 @@ async function submit() {
   await flushPromises();
 }
 const dialogText = () => document.querySelector('.q-dialog')?.textContent ?? '';
-const fieldLabels = () => [...document.querySelectorAll('.q-dialog .q-field__label')].map((l) => l.textContent?.trim() ?? '');
+const fieldLabels = () =>
+  [...document.querySelectorAll('.q-dialog .q-field__label')].map((l) => l.textContent?.trim() ?? '');
 const liftLabels = () => fieldLabels().filter((l) => l.startsWith('Lift '));
 const levelsToggle = () => document.querySelector<HTMLElement>('.q-dialog [data-test="floors-at-levels"]');
 
@@ -133,7 +140,7 @@ describe('new stack dialog', () => {
 });
 
 describe("new stack at the building's levels", () => {
-  it('offers the levels by default: no storey fields, lifts named by their levels, and the levels\' elevations sent', async () => {
+  it("offers the levels by default: no storey fields, lifts named by their levels, and the levels' elevations sent", async () => {
     const requests = mockFetch(created());
     const { w } = await mountDialog(LEVELS);
     expect(levelsToggle()?.getAttribute('aria-checked')).toBe('true');
@@ -141,13 +148,24 @@ describe("new stack at the building's levels", () => {
     expect(fieldLabels()).not.toContain('Storey height (m)');
     expect(fieldLabels()).not.toContain('Base elevation (m)');
     // Four storeys spliced every 2: two lifts, Ground to Level 2 and Level 2 to Roof.
-    expect(liftLabels()).toEqual(['Lift 1: Ground +0.000 to Level 2 +8.000 m', 'Lift 2: Level 2 +8.000 to Roof +15.700 m']);
+    expect(liftLabels()).toEqual([
+      'Lift 1: Ground +0.000 to Level 2 +8.000 m',
+      'Lift 2: Level 2 +8.000 to Roof +15.700 m',
+    ]);
     expect(dialogText()).toContain('4 storeys between them');
     await fillAndCreate(w);
     const post = requests.find((r) => r.method === 'POST');
     expect(post?.body).toEqual({
       name: 'F/3',
-      template: { elevations: [0, 4.5, 8, 11.5, 15.7], spliceEvery: 2, sections: ['UKC 203x203x46', 'UKC 203x203x46'], grade: 'S355', baseFixity: 'pinned', Gk: 150, Qk: 90 },
+      template: {
+        elevations: [0, 4.5, 8, 11.5, 15.7],
+        spliceEvery: 2,
+        sections: ['UKC 203x203x46', 'UKC 203x203x46'],
+        grade: 'S355',
+        baseFixity: 'pinned',
+        Gk: 150,
+        Qk: 90,
+      },
     });
     expect(w.emitted('created')).toEqual([[12]]);
     w.unmount();
@@ -162,7 +180,8 @@ describe("new stack at the building's levels", () => {
     roof.vm.$emit('change', { faces: { yPlus: { Gk: 30, Qk: 10 } } });
     await flushPromises();
     await fillAndCreate(w);
-    const template = (requests.find((r) => r.method === 'POST')?.body as { template: Record<string, unknown> }).template;
+    const template = (requests.find((r) => r.method === 'POST')?.body as { template: Record<string, unknown> })
+      .template;
     expect(template).toMatchObject({ faces: { yPlus: { Gk: 40, Qk: 25 } }, roofFaces: { yPlus: { Gk: 30, Qk: 10 } } });
     w.unmount();
   });
@@ -183,7 +202,9 @@ describe("new stack at the building's levels", () => {
     await flushPromises();
     expect(liftLabels()).toEqual(['Lift 1: Level 1 +4.500 to Level 3 +11.500 m']);
     await fillAndCreate(w);
-    expect((requests.find((r) => r.method === 'POST')?.body as { template: { elevations: number[] } }).template.elevations).toEqual([4.5, 8, 11.5]);
+    expect(
+      (requests.find((r) => r.method === 'POST')?.body as { template: { elevations: number[] } }).template.elevations,
+    ).toEqual([4.5, 8, 11.5]);
     w.unmount();
   });
 
@@ -195,7 +216,8 @@ describe("new stack at the building's levels", () => {
     expect(fieldLabels()).toEqual(expect.arrayContaining(['Storeys', 'Storey height (m)', 'Base elevation (m)']));
     expect(liftLabels()).toEqual(['Lift 1: +0.000 to +7.200 m', 'Lift 2: +7.200 to +14.400 m']);
     await fillAndCreate(w);
-    const template = (requests.find((r) => r.method === 'POST')?.body as { template: Record<string, unknown> }).template;
+    const template = (requests.find((r) => r.method === 'POST')?.body as { template: Record<string, unknown> })
+      .template;
     expect(template).toMatchObject({ storeys: 4, storeyHeight: 3.6, baseElevation: 0 });
     expect(template).not.toHaveProperty('elevations');
     w.unmount();

@@ -39,7 +39,10 @@ describe('the outbox route and menu entry', () => {
   });
 
   it('sends a signed-in user who is not a site admin to the buildings list, without asking for the outbox', async () => {
-    const requests = mockFetch({ 'GET /api/me': () => ({ status: 200, body: engineer }), 'GET /api/buildings': () => ({ status: 200, body: [] }) });
+    const requests = mockFetch({
+      'GET /api/me': () => ({ status: 200, body: engineer }),
+      'GET /api/buildings': () => ({ status: 200, body: [] }),
+    });
     const router = makeRouter();
     await router.push('/outbox');
     expect(router.currentRoute.value.name).toBe('buildings');
@@ -63,7 +66,17 @@ describe('the outbox route and menu entry', () => {
       'GET /api/me': () => ({ status: 200, body: admin }),
       'GET /api/dev/outbox': () => ({
         status: 200,
-        body: [{ id: 9, to: 'ana@example.test', subject: 'Welcome to Stanchion', text: 'Hello', html: null, attachments: [], createdAt: '2026-03-14T09:05:00.000Z' }],
+        body: [
+          {
+            id: 9,
+            to: 'ana@example.test',
+            subject: 'Welcome to Stanchion',
+            text: 'Hello',
+            html: null,
+            attachments: [],
+            createdAt: '2026-03-14T09:05:00.000Z',
+          },
+        ],
       }),
     });
     const router = makeRouter();

@@ -43,7 +43,10 @@ afterEach(() => {
 });
 
 async function mountPage() {
-  const router = createRouter({ history: createMemoryHistory(), routes: [{ path: '/outbox', name: 'outbox', component: OutboxPage }] });
+  const router = createRouter({
+    history: createMemoryHistory(),
+    routes: [{ path: '/outbox', name: 'outbox', component: OutboxPage }],
+  });
   await router.push('/outbox');
   // QPage must sit inside a QLayout; a minimal host gives it one.
   const Host = defineComponent(() => () => h(QLayout, null, () => h(QPageContainer, null, () => h(OutboxPage))));
@@ -118,7 +121,12 @@ describe('the outbox page', () => {
   });
 
   it("shows the server's refusal with a way to try again", async () => {
-    mockFetch({ 'GET /api/dev/outbox': () => ({ status: 403, body: { error: { code: 'forbidden', message: 'Only a site admin may do this' } } }) });
+    mockFetch({
+      'GET /api/dev/outbox': () => ({
+        status: 403,
+        body: { error: { code: 'forbidden', message: 'Only a site admin may do this' } },
+      }),
+    });
     const wrapper = await mountPage();
     expect(wrapper.find('[role="alert"]').text()).toContain('Only a site admin may do this');
     expect(wrapper.findAll('button').some((b) => b.text().includes('Try again'))).toBe(true);

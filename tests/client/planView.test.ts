@@ -10,11 +10,32 @@ import { freeCrossings, planStacks, tributaryRect } from '@/components/plan/plan
 
 // Invented grid: A 0, B 6, C 13.5 m by 1 0, 2 7.5 m; 0.5 m of slab beyond A.
 const GRID: Grid = {
-  x: { lines: [{ id: 'A', name: 'A', position: 0 }, { id: 'B', name: 'B', position: 6 }, { id: 'C', name: 'C', position: 13.5 }], edgeBefore: 0.5, edgeAfter: 0 },
-  y: { lines: [{ id: 'y1', name: '1', position: 0 }, { id: 'y2', name: '2', position: 7.5 }], edgeBefore: 0, edgeAfter: 0 },
+  x: {
+    lines: [
+      { id: 'A', name: 'A', position: 0 },
+      { id: 'B', name: 'B', position: 6 },
+      { id: 'C', name: 'C', position: 13.5 },
+    ],
+    edgeBefore: 0.5,
+    edgeAfter: 0,
+  },
+  y: {
+    lines: [
+      { id: 'y1', name: '1', position: 0 },
+      { id: 'y2', name: '2', position: 7.5 },
+    ],
+    edgeBefore: 0,
+    edgeAfter: 0,
+  },
 };
 
-const stack = (id: number, name: string, gridX: string | null, gridY: string | null, utilisation: number | null): StackSummary => ({
+const stack = (
+  id: number,
+  name: string,
+  gridX: string | null,
+  gridY: string | null,
+  utilisation: number | null,
+): StackSummary => ({
   id,
   buildingId: 1,
   name,

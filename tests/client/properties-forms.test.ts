@@ -113,14 +113,20 @@ describe('lift form', () => {
     expect(w.find('input[data-field="kY"]').exists()).toBe(false);
     expect(w.find('textarea[data-field="note"]').exists()).toBe(false);
     expect(w.find('[data-field="series"]').exists()).toBe(false);
-    expect(w.find('[data-test="k-caption"]').text()).toContain('worked out from the restraints and fixities (none set by hand)');
+    expect(w.find('[data-test="k-caption"]').text()).toContain(
+      'worked out from the restraints and fixities (none set by hand)',
+    );
     expect(w.find('[data-test="k-caption"]').text()).not.toContain('Leave blank');
   });
 
   it('shows a viewer the factors and the reason that were set by hand', () => {
-    const w = mount(LiftForm, { props: { value: { ...lift, kZ: 0.85, note: 'Base fixed into the pile cap' }, readOnly: true } });
+    const w = mount(LiftForm, {
+      props: { value: { ...lift, kZ: 0.85, note: 'Base fixed into the pile cap' }, readOnly: true },
+    });
     expect((w.find('input[data-field="kZ"]').element as HTMLInputElement).value).toBe('0.85');
-    expect((w.find('textarea[data-field="note"]').element as HTMLTextAreaElement).value).toBe('Base fixed into the pile cap');
+    expect((w.find('textarea[data-field="note"]').element as HTMLTextAreaElement).value).toBe(
+      'Base fixed into the pile cap',
+    );
   });
 
   it('names the grade without tying it to one product standard (hollow sections take fy from another)', () => {
@@ -132,10 +138,19 @@ describe('lift form', () => {
 describe('section picker', () => {
   it('searches the catalogue on the server with the typed text and the series', async () => {
     const requests = mockFetch({
-      'GET /api/sections?q=203&series=UKC': () => ({ status: 200, body: [{ designation: 'UKC 203x203x46', series: 'UKC', massPerMetre: 46.1 }] }),
-      'GET /api/sections?q=203': () => ({ status: 200, body: [{ designation: 'UKC 203x203x46', series: 'UKC', massPerMetre: 46.1 }] }),
+      'GET /api/sections?q=203&series=UKC': () => ({
+        status: 200,
+        body: [{ designation: 'UKC 203x203x46', series: 'UKC', massPerMetre: 46.1 }],
+      }),
+      'GET /api/sections?q=203': () => ({
+        status: 200,
+        body: [{ designation: 'UKC 203x203x46', series: 'UKC', massPerMetre: 46.1 }],
+      }),
     });
-    const w = mount(SectionPicker, { props: { modelValue: 'UKC 203x203x46', readOnly: false }, attachTo: document.body });
+    const w = mount(SectionPicker, {
+      props: { modelValue: 'UKC 203x203x46', readOnly: false },
+      attachTo: document.body,
+    });
     const select = w.findAllComponents({ name: 'QSelect' })[1];
     (select.vm as unknown as { filter: (t: string, keepClosed: boolean) => void }).filter('203', true);
     await flushPromises();
@@ -159,7 +174,13 @@ describe('properties panel', () => {
   });
 
   it('shows the problems the analysis found on the selected node', () => {
-    const results = { errors: [{ nodeId: 'r1', message: 'Restraint R1 is not attached to a lift' }], warnings: [], lifts: [], governingLiftId: null, takeDown: [] };
+    const results = {
+      errors: [{ nodeId: 'r1', message: 'Restraint R1 is not attached to a lift' }],
+      warnings: [],
+      lifts: [],
+      governingLiftId: null,
+      takeDown: [],
+    };
     const w = mount(PropertiesPanel, { props: { doc, selection: ['r1'], results, readOnly: false } });
     expect(w.text()).toContain('Restraint R1 is not attached to a lift');
   });

@@ -38,7 +38,9 @@ describe('restraint face reactions form', () => {
   });
 
   it('shows a viewer only the faces that carry a reaction, without advice on filling them in', () => {
-    const w = mount(RestraintFacesForm, { props: { value: { ...restraint, faces: { zPlus: { Gk: 30, Qk: 20 } } }, readOnly: true } });
+    const w = mount(RestraintFacesForm, {
+      props: { value: { ...restraint, faces: { zPlus: { Gk: 30, Qk: 20 } } }, readOnly: true },
+    });
     expect(w.findAll('input').map((i) => i.attributes('data-field'))).toEqual(['faces.zPlus.Gk', 'faces.zPlus.Qk']);
     expect(w.find('[data-test="faces-caption"]').text()).not.toContain('Leave a face empty');
     const none = mount(RestraintFacesForm, { props: { value: restraint, readOnly: true } });
@@ -47,7 +49,9 @@ describe('restraint face reactions form', () => {
   });
 
   it('shows the stored faces and sends nothing when they did not change', async () => {
-    const w = mount(RestraintFacesForm, { props: { value: { ...restraint, faces: { zPlus: { Gk: 30, Qk: 20 } } }, readOnly: false } });
+    const w = mount(RestraintFacesForm, {
+      props: { value: { ...restraint, faces: { zPlus: { Gk: 30, Qk: 20 } } }, readOnly: false },
+    });
     expect((w.find('input[data-field="faces.zPlus.Qk"]').element as HTMLInputElement).value).toBe('20');
     await typeInto(w, 'faces.zPlus.Gk', '30');
     expect(w.emitted('change')).toBeUndefined();
@@ -60,7 +64,19 @@ describe('results rows', () => {
       { id: 's', kind: 'support', data: { elevation: 0, fixity: 'pinned' } },
       { id: 'l1', kind: 'lift', data: { section: 'UKC 254x254x73', grade: 'S355' } },
       { id: 'c', kind: 'cap', data: { elevation: 9, fixity: 'pinned', Gk: 100, Qk: 40, category: 'H' } },
-      { id: 'r1', kind: 'restraint', data: { elevation: 4.5, axes: 'both', fixity: 'pinned', Gk: 150, Qk: 60, category: 'A', ...(faces ? { faces } : {}) } },
+      {
+        id: 'r1',
+        kind: 'restraint',
+        data: {
+          elevation: 4.5,
+          axes: 'both',
+          fixity: 'pinned',
+          Gk: 150,
+          Qk: 60,
+          category: 'A',
+          ...(faces ? { faces } : {}),
+        },
+      },
     ],
     edges: [
       { id: 'e1', source: 's', target: 'l1' },
@@ -123,20 +139,32 @@ describe('the note when nominal moments are on but no face reactions are given',
       { id: 'e2', source: 'l1', target: 'c' },
     ],
   };
-  const mountPanel = (results: ReturnType<typeof analyseStack>) => mount(ResultsPanel, { props: { results, doc: plainDoc, selectedLiftId: null, stale: false } });
+  const mountPanel = (results: ReturnType<typeof analyseStack>) =>
+    mount(ResultsPanel, { props: { results, doc: plainDoc, selectedLiftId: null, stale: false } });
 
   it('says so in the results header and in the combined column’s tooltip', async () => {
     const w = mountPanel(analyseStack(plainDoc));
     expect(w.find('[data-test="moments-note"]').text()).toContain('Axial only: no beam reactions given');
-    expect(w.find('[data-test="moments-note"]').attributes('aria-label')).toContain('no beam reactions are given on the column faces');
+    expect(w.find('[data-test="moments-note"]').attributes('aria-label')).toContain(
+      'no beam reactions are given on the column faces',
+    );
     expect(w.find('[data-test="stack-warnings"]').exists()).toBe(false);
     const table = w.findComponent(ResultsTable);
     expect(table.props('combinedNote')).toContain('the combined check is not made');
   });
 
   it('is silent with the option off, and once a face reaction is given', () => {
-    expect(mountPanel(analyseStack(plainDoc, { nominalMoments: false })).find('[data-test="moments-note"]').exists()).toBe(false);
-    const faced: StackDocument = { ...plainDoc, nodes: plainDoc.nodes.map((n) => (n.kind === 'cap' ? { ...n, data: { ...n.data, faces: { yPlus: { Gk: 60, Qk: 20 } } } } : n)) };
+    expect(
+      mountPanel(analyseStack(plainDoc, { nominalMoments: false }))
+        .find('[data-test="moments-note"]')
+        .exists(),
+    ).toBe(false);
+    const faced: StackDocument = {
+      ...plainDoc,
+      nodes: plainDoc.nodes.map((n) =>
+        n.kind === 'cap' ? { ...n, data: { ...n.data, faces: { yPlus: { Gk: 60, Qk: 20 } } } } : n,
+      ),
+    };
     const w = mountPanel(analyseStack(faced));
     expect(w.find('[data-test="moments-note"]').exists()).toBe(false);
     // The combined column names the combination that governs

@@ -48,7 +48,20 @@ describe('results table', () => {
     expect(results.errors).toEqual([]);
     const w = mountPanel();
     const heads = w.findAll('thead th').map((t) => t.text());
-    for (const h of ['Section', 'Grade', 'NEd (kN)', 'Lcr,y (m)', 'Lcr,z (m)', 'λ̄y', 'λ̄z', 'χy', 'χz', 'Nb,Rd (kN)', 'Utilisation', 'Governed by'])
+    for (const h of [
+      'Section',
+      'Grade',
+      'NEd (kN)',
+      'Lcr,y (m)',
+      'Lcr,z (m)',
+      'λ̄y',
+      'λ̄z',
+      'χy',
+      'χz',
+      'Nb,Rd (kN)',
+      'Utilisation',
+      'Governed by',
+    ])
       expect(heads).toContain(h);
     expect(w.findAll('tbody tr[data-lift]')).toHaveLength(2);
   });
@@ -58,7 +71,9 @@ describe('results table', () => {
     const governing = w.find('tr.results-table__governing');
     expect(governing.attributes('data-lift')).toBe(results.governingLiftId);
     expect(w.findAll('tr.results-table__governing')).toHaveLength(1);
-    expect(w.find('[data-governing-summary]').text()).toContain(results.lifts.find((l) => l.liftId === results.governingLiftId)?.section);
+    expect(w.find('[data-governing-summary]').text()).toContain(
+      results.lifts.find((l) => l.liftId === results.governingLiftId)?.section,
+    );
   });
 
   it('shows Nb,Rd in kN and a χ that agrees with its λ̄ by EN 1993-1-1 eq. 6.49', () => {
@@ -70,7 +85,10 @@ describe('results table', () => {
     const phi = 0.5 * (1 + alpha * (row.lambdaBarZ - 0.2) + row.lambdaBarZ ** 2);
     expect(row.chiZ).toBeCloseTo(Math.min(1, 1 / (phi + Math.sqrt(phi ** 2 - row.lambdaBarZ ** 2))), 4);
     const w = mountPanel();
-    const cells = w.find(`tr[data-lift="${row.liftId}"]`).findAll('td').map((c) => c.text());
+    const cells = w
+      .find(`tr[data-lift="${row.liftId}"]`)
+      .findAll('td')
+      .map((c) => c.text());
     expect(cells).toContain(row.NbRd.toFixed(0));
   });
 
@@ -106,7 +124,13 @@ describe('results table', () => {
   });
 
   it('lists the problems instead of results when the stack cannot be checked', () => {
-    const broken: StackResult = { errors: [{ nodeId: 'l2', message: 'Lift L2 has no node above it' }], warnings: [], lifts: [], governingLiftId: null, takeDown: [] };
+    const broken: StackResult = {
+      errors: [{ nodeId: 'l2', message: 'Lift L2 has no node above it' }],
+      warnings: [],
+      lifts: [],
+      governingLiftId: null,
+      takeDown: [],
+    };
     const w = mountPanel(null, broken);
     expect(w.find('[role="alert"]').text()).toContain('Lift L2 has no node above it');
     expect(w.find('.results-table').exists()).toBe(false);
@@ -141,7 +165,8 @@ describe('elevation drawing', () => {
   it('stops the level lines at the bar, so they never strike through the lift names beside it', () => {
     const w = mountPanel();
     const nameX = Math.min(...w.findAll('.stack-elevation__lift text').map((t) => Number(t.attributes('x'))));
-    for (const line of w.findAll('.stack-elevation__level line')) expect(Number(line.attributes('x2'))).toBeLessThan(nameX);
+    for (const line of w.findAll('.stack-elevation__level line'))
+      expect(Number(line.attributes('x2'))).toBeLessThan(nameX);
   });
 });
 
@@ -155,14 +180,18 @@ describe('buckling curve plot', () => {
   });
 
   it("sets a curve's name clear above the end of its line", () => {
-    const w = mount(BucklingCurvePlot, { props: { marks: [{ axis: 'z-z', curve: 'b', lambdaBar: 0.8, chi: 0.6622 }] } });
+    const w = mount(BucklingCurvePlot, {
+      props: { marks: [{ axis: 'z-z', curve: 'b', lambdaBar: 0.8, chi: 0.6622 }] },
+    });
     const points = w.find('polyline').attributes('points')!.trim().split(' ');
     const endY = Number(points[points.length - 1].split(',')[1]);
     expect(endY - Number(w.find('.curve-plot__name').attributes('y'))).toBeGreaterThanOrEqual(10);
   });
 
   it("marks the lift's λ̄ and χ on the curve", () => {
-    const w = mount(BucklingCurvePlot, { props: { marks: [{ axis: 'z-z', curve: 'c', lambdaBar: 0.8, chi: 0.6622 }] } });
+    const w = mount(BucklingCurvePlot, {
+      props: { marks: [{ axis: 'z-z', curve: 'c', lambdaBar: 0.8, chi: 0.6622 }] },
+    });
     expect(w.find('[data-mark="z-z"]').text()).toContain('λ̄ = 0.800, χ = 0.662');
     expect(w.findAll('polyline')).toHaveLength(1);
   });

@@ -22,7 +22,15 @@ const summary: RevisionSummary = {
   failingLifts: 0,
   mail: { pending: 0, sent: 3, failed: 0 },
 };
-const detail: RevisionDetail = { ...summary, engineVersion: '0.1.0', acknowledgement: null, options: { combination: '6.10ab', annex: 'UK', imposedReduction: true, selfWeight: true }, levels: [], stacks: [], recipients: [] };
+const detail: RevisionDetail = {
+  ...summary,
+  engineVersion: '0.1.0',
+  acknowledgement: null,
+  options: { combination: '6.10ab', annex: 'UK', imposedReduction: true, selfWeight: true },
+  levels: [],
+  stacks: [],
+  recipients: [],
+};
 
 let pinia: Pinia;
 beforeEach(() => {
@@ -40,7 +48,11 @@ const byTest = (name: string) => document.body.querySelector<HTMLElement>(`[data
 describe('the freeze dialog', () => {
   it('keeps Freeze disabled while lifts fail until the acknowledgement is ticked, then sends it with the note', async () => {
     const requests = mockFetch({ 'POST /api/buildings/7/revisions': () => ({ status: 201, body: detail }) });
-    const wrapper = mount(FreezeDialog, { props: { modelValue: true, failingStacks: ['C/3'] }, attachTo: document.body, global: { plugins: [pinia] } });
+    const wrapper = mount(FreezeDialog, {
+      props: { modelValue: true, failingStacks: ['C/3'] },
+      attachTo: document.body,
+      global: { plugins: [pinia] },
+    });
     await flushPromises();
     expect(byTest('failing')?.textContent).toContain('C/3');
     expect(byTest('freeze')?.hasAttribute('disabled')).toBe(true);
@@ -58,14 +70,23 @@ describe('the freeze dialog', () => {
     await flushPromises();
     expect(requests.filter((r) => r.method === 'POST')).toHaveLength(1);
     // afterRevisionId: the newest revision the page shows (none here), so a doubled request cannot freeze twice.
-    expect(requests[0].body).toEqual({ afterRevisionId: null, note: 'C/3 is being re-sized', purpose: 'preliminary', acknowledgeFailingLifts: true });
+    expect(requests[0].body).toEqual({
+      afterRevisionId: null,
+      note: 'C/3 is being re-sized',
+      purpose: 'preliminary',
+      acknowledgeFailingLifts: true,
+    });
     expect(wrapper.emitted('frozen')?.[0]).toEqual([detail]);
     wrapper.unmount();
   });
 
   it('does not send a failing-lifts freeze without a note saying why', async () => {
     const requests = mockFetch({});
-    const wrapper = mount(FreezeDialog, { props: { modelValue: true, failingStacks: ['C/3'] }, attachTo: document.body, global: { plugins: [pinia] } });
+    const wrapper = mount(FreezeDialog, {
+      props: { modelValue: true, failingStacks: ['C/3'] },
+      attachTo: document.body,
+      global: { plugins: [pinia] },
+    });
     await flushPromises();
     byTest('acknowledge')?.click();
     await flushPromises();
@@ -80,10 +101,20 @@ describe('the freeze dialog', () => {
     mockFetch({
       'POST /api/buildings/7/revisions': () => ({
         status: 422,
-        body: { error: { code: 'unprocessable', message: '1 problem must be fixed before freezing', details: { reasons: [{ stackId: 4, stack: 'D/4', message: 'Lift L2 has no node above it' }] } } },
+        body: {
+          error: {
+            code: 'unprocessable',
+            message: '1 problem must be fixed before freezing',
+            details: { reasons: [{ stackId: 4, stack: 'D/4', message: 'Lift L2 has no node above it' }] },
+          },
+        },
       }),
     });
-    const wrapper = mount(FreezeDialog, { props: { modelValue: true, failingStacks: [] }, attachTo: document.body, global: { plugins: [pinia] } });
+    const wrapper = mount(FreezeDialog, {
+      props: { modelValue: true, failingStacks: [] },
+      attachTo: document.body,
+      global: { plugins: [pinia] },
+    });
     await flushPromises();
     byTest('freeze')?.click();
     await flushPromises();
@@ -108,12 +139,30 @@ describe('the comparison view', () => {
           stackId: 3,
           name: 'B/2',
           change: 'changed',
-          nodes: [{ nodeId: 'lift-1', kind: 'lift', label: 'Lift L1', change: 'changed', fields: [{ field: 'section', from: 'UKC 254x254x73', to: 'UKC 305x305x97' }] }],
-          lifts: [{ liftId: 'lift-1', label: 'L1', section: { from: 'UKC 254x254x73', to: 'UKC 305x305x97' }, from: 0.84, to: 0.61 }],
+          nodes: [
+            {
+              nodeId: 'lift-1',
+              kind: 'lift',
+              label: 'Lift L1',
+              change: 'changed',
+              fields: [{ field: 'section', from: 'UKC 254x254x73', to: 'UKC 305x305x97' }],
+            },
+          ],
+          lifts: [
+            {
+              liftId: 'lift-1',
+              label: 'L1',
+              section: { from: 'UKC 254x254x73', to: 'UKC 305x305x97' },
+              from: 0.84,
+              to: 0.61,
+            },
+          ],
         },
       ],
     };
-    const requests = mockFetch({ 'GET /api/buildings/7/revisions/compare?from=11&to=current': () => ({ status: 200, body: comparison }) });
+    const requests = mockFetch({
+      'GET /api/buildings/7/revisions/compare?from=11&to=current': () => ({ status: 200, body: comparison }),
+    });
     const wrapper = mount(CompareView, { props: { revisions: [summary] }, global: { plugins: [pinia] } });
     await wrapper.find('[data-test="run-compare"]').trigger('click');
     await flushPromises();
@@ -132,25 +181,46 @@ describe('the comparison view', () => {
       from: { id: 11, code: 'P01' },
       to: { id: null, code: 'current' },
       unchangedStacks: 0,
-      levels: [{ field: 'Roof (id lv-9)', from: 26.6, to: 27 }, { field: 'Level 3', from: 11.4, to: 11.5 }],
+      levels: [
+        { field: 'Roof (id lv-9)', from: 26.6, to: 27 },
+        { field: 'Level 3', from: 11.4, to: 11.5 },
+      ],
       options: [{ field: 'selfWeight', from: 'true', to: 'false' }],
       stacks: [
         {
           stackId: 3,
           name: 'B/2',
           change: 'changed',
-          nodes: [{ nodeId: 'r5', kind: 'restraint', label: 'Restraint at +19.000', change: 'changed', fields: [{ field: 'Gk', from: 240, to: 400 }, { field: 'elevation', from: 19, to: 19.5 }] }],
+          nodes: [
+            {
+              nodeId: 'r5',
+              kind: 'restraint',
+              label: 'Restraint at +19.000',
+              change: 'changed',
+              fields: [
+                { field: 'Gk', from: 240, to: 400 },
+                { field: 'elevation', from: 19, to: 19.5 },
+              ],
+            },
+          ],
           lifts: [],
         },
       ],
     };
-    mockFetch({ 'GET /api/buildings/7/revisions/compare?from=11&to=current': () => ({ status: 200, body: comparison }) });
+    mockFetch({
+      'GET /api/buildings/7/revisions/compare?from=11&to=current': () => ({ status: 200, body: comparison }),
+    });
     const wrapper = mount(CompareView, { props: { revisions: [summary] }, global: { plugins: [pinia] } });
     await wrapper.find('[data-test="run-compare"]').trigger('click');
     await flushPromises();
-    expect(wrapper.find('[data-test="node-change"]').text()).toContain('Gk: 240 → 400 kN; elevation: +19.000 → +19.500 m');
+    expect(wrapper.find('[data-test="node-change"]').text()).toContain(
+      'Gk: 240 → 400 kN; elevation: +19.000 → +19.500 m',
+    );
     expect(wrapper.find('[data-test="option-change"]').text()).toBe('Analysis option self-weight: on → off');
     // A level named "Level 3" reads "Level 3", never "Level Level 3"
-    expect(wrapper.findAll('[data-test="level-change"]').map((w) => w.text())).toEqual(['Level Roof: +26.600 → +27.000 m', 'Level 3: +11.400 → +11.500 m']);
+    expect(wrapper.findAll('[data-test="level-change"]').map((w) => w.text())).toEqual([
+      'Level Roof: +26.600 → +27.000 m',
+      'Level 3: +11.400 → +11.500 m',
+    ]);
   });
 });

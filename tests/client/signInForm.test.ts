@@ -62,7 +62,14 @@ describe('sign-in form', () => {
     const requests = mockFetch({ 'POST /api/auth/login': () => ({ status: 200, body: { token: 'tok-123', user } }) });
     const { wrapper, router } = await mountSignIn('/buildings/7');
     await fillAndSubmit(wrapper, '  Ana@Example.TEST ', 'correct horse');
-    expect(requests).toEqual([{ method: 'POST', url: '/api/auth/login', body: { email: 'ana@example.test', password: 'correct horse' }, authorization: null }]);
+    expect(requests).toEqual([
+      {
+        method: 'POST',
+        url: '/api/auth/login',
+        body: { email: 'ana@example.test', password: 'correct horse' },
+        authorization: null,
+      },
+    ]);
     expect(getToken()).toBe('tok-123');
     expect(router.currentRoute.value.fullPath).toBe('/buildings/7');
   });
@@ -76,7 +83,10 @@ describe('sign-in form', () => {
 
   it("shows the server's message and stays on the page when the password is wrong", async () => {
     mockFetch({
-      'POST /api/auth/login': () => ({ status: 401, body: { error: { code: 'unauthenticated', message: 'E-mail or password is wrong' } } }),
+      'POST /api/auth/login': () => ({
+        status: 401,
+        body: { error: { code: 'unauthenticated', message: 'E-mail or password is wrong' } },
+      }),
     });
     const { wrapper, router } = await mountSignIn();
     await fillAndSubmit(wrapper, 'ana@example.test', 'wrong password');

@@ -6,12 +6,27 @@ import { createPinia, setActivePinia } from 'pinia';
 import type { LiftSizing, StackSizingPreview } from '@shared/schema/sizing.ts';
 import SizingForm from '@/components/sizing/SizingForm.vue';
 import SizingPreviewTable from '@/components/sizing/SizingPreviewTable.vue';
-import { acceptOps, allSelectable, formatMass, massTotals, previewRows, rowKey } from '@/components/sizing/sizingRows.ts';
+import {
+  acceptOps,
+  allSelectable,
+  formatMass,
+  massTotals,
+  previewRows,
+  rowKey,
+} from '@/components/sizing/sizingRows.ts';
 import { useSizingStore } from '@/stores/sizing.ts';
 import { useStackStore } from '@/stores/stack.ts';
 import { mockFetch } from './fetchMock.ts';
 
-function lift(id: string, name: string, bottom: number, top: number, before: [string, number], after: [string, number] | null, status: LiftSizing['status']): LiftSizing {
+function lift(
+  id: string,
+  name: string,
+  bottom: number,
+  top: number,
+  before: [string, number],
+  after: [string, number] | null,
+  status: LiftSizing['status'],
+): LiftSizing {
   return {
     liftId: id,
     name,
@@ -20,19 +35,42 @@ function lift(id: string, name: string, bottom: number, top: number, before: [st
     before: { section: before[0], grade: 'S355', massPerMetre: before[1], utilisation: 0.5 },
     after: after ? { section: after[0], grade: 'S355', massPerMetre: after[1], utilisation: 0.9 } : null,
     status,
-    ...(status === 'none' ? { message: 'No section passes: no UKC section in S355 has a utilisation at or below 1.00' } : {}),
+    ...(status === 'none'
+      ? { message: 'No section passes: no UKC section in S355 has a utilisation at or below 1.00' }
+      : {}),
   };
 }
 
 function preview(stackId: number, name: string, lifts: LiftSizing[], version = 3): StackSizingPreview {
   const mass = (pick: (l: LiftSizing) => number) => lifts.reduce((sum, l) => sum + pick(l) * (l.top - l.bottom), 0);
-  return { stackId, name, version, errors: [], lifts, serialSize: null, complete: lifts.every((l) => l.after), massBefore: mass((l) => l.before.massPerMetre), massAfter: mass((l) => (l.after ?? l.before).massPerMetre) };
+  return {
+    stackId,
+    name,
+    version,
+    errors: [],
+    lifts,
+    serialSize: null,
+    complete: lifts.every((l) => l.after),
+    massBefore: mass((l) => l.before.massPerMetre),
+    massAfter: mass((l) => (l.after ?? l.before).massPerMetre),
+  };
 }
 
 // Two 8 m lifts: the bottom one lighter (100 → 60 kg/m), the top one kept, and a second stack whose
 // bottom lift has no passing section.
-const A = preview(1, 'A/1', [lift('l1', 'L1', 0, 8, ['UKC 254x254x107', 100], ['UKC 203x203x60', 60], 'proposed'), lift('l2', 'L2', 8, 16, ['UKC 203x203x46', 46], ['UKC 203x203x46', 46], 'unchanged')]);
-const B = preview(2, 'B/1', [lift('l1', 'L1', 0, 4, ['UKC 152x152x23', 23], null, 'none'), lift('l2', 'L2', 4, 8, ['UKC 203x203x71', 71], ['UKC 152x152x30', 30], 'proposed')], 7);
+const A = preview(1, 'A/1', [
+  lift('l1', 'L1', 0, 8, ['UKC 254x254x107', 100], ['UKC 203x203x60', 60], 'proposed'),
+  lift('l2', 'L2', 8, 16, ['UKC 203x203x46', 46], ['UKC 203x203x46', 46], 'unchanged'),
+]);
+const B = preview(
+  2,
+  'B/1',
+  [
+    lift('l1', 'L1', 0, 4, ['UKC 152x152x23', 23], null, 'none'),
+    lift('l2', 'L2', 4, 8, ['UKC 203x203x71', 71], ['UKC 152x152x30', 30], 'proposed'),
+  ],
+  7,
+);
 
 describe('sizing preview rows', () => {
   it('lists lifts from the top down and lets only changed sections be ticked', () => {
@@ -53,7 +91,9 @@ describe('sizing preview rows', () => {
   });
 
   it('builds updateNode ops with section and grade for the ticked lifts of one stack only', () => {
-    expect(acceptOps(A, new Set([rowKey(1, 'l1'), rowKey(2, 'l2')]))).toEqual([{ op: 'updateNode', id: 'l1', data: { section: 'UKC 203x203x60', grade: 'S355' } }]);
+    expect(acceptOps(A, new Set([rowKey(1, 'l1'), rowKey(2, 'l2')]))).toEqual([
+      { op: 'updateNode', id: 'l1', data: { section: 'UKC 203x203x60', grade: 'S355' } },
+    ]);
     expect(acceptOps(A, new Set([rowKey(2, 'l1')]))).toEqual([]);
   });
 
@@ -66,11 +106,21 @@ describe('sizing preview rows', () => {
 describe('sizing preview table', () => {
   it('shows old and new sections, says clearly when no section passes, and reports a tick', async () => {
     const chosen = allSelectable([A, B]);
-    const wrapper = mount(SizingPreviewTable, { props: { rows: previewRows([A, B]), previews: [A, B], chosen, totals: massTotals([A, B], chosen), showStack: true } });
+    const wrapper = mount(SizingPreviewTable, {
+      props: {
+        rows: previewRows([A, B]),
+        previews: [A, B],
+        chosen,
+        totals: massTotals([A, B], chosen),
+        showStack: true,
+      },
+    });
     const first = wrapper.find(`[data-test="row-${rowKey(1, 'l1')}"]`);
     expect(first.text()).toContain('UKC 254x254x107');
     expect(first.text()).toContain('UKC 203x203x60');
-    expect(wrapper.find(`[data-test="row-${rowKey(2, 'l1')}"] [data-test="no-proposal"]`).text()).toContain('No section passes');
+    expect(wrapper.find(`[data-test="row-${rowKey(2, 'l1')}"] [data-test="no-proposal"]`).text()).toContain(
+      'No section passes',
+    );
     expect(wrapper.find(`[data-test="row-${rowKey(2, 'l1')}"] .q-checkbox`).exists()).toBe(false);
     expect(wrapper.find('[data-test="sizing-totals"]').text()).toContain('1\u2009544 kg');
     await first.find('.q-checkbox').trigger('click');
@@ -81,9 +131,19 @@ describe('sizing preview table', () => {
 describe('sizing preview notes', () => {
   it('shows beside a proposed section why lighter ones were passed over', () => {
     const note = 'Class 4 sections were not considered: this lift carries nominal moments.';
-    const withNote = preview(3, 'C/1', [{ ...lift('l1', 'L1', 0, 8, ['SHS 200x200x10', 57.8], ['SHS 180x180x6.3', 34], 'proposed'), message: note }]);
+    const withNote = preview(3, 'C/1', [
+      { ...lift('l1', 'L1', 0, 8, ['SHS 200x200x10', 57.8], ['SHS 180x180x6.3', 34], 'proposed'), message: note },
+    ]);
     const chosen = allSelectable([withNote]);
-    const wrapper = mount(SizingPreviewTable, { props: { rows: previewRows([withNote]), previews: [withNote], chosen, totals: massTotals([withNote], chosen), showStack: false } });
+    const wrapper = mount(SizingPreviewTable, {
+      props: {
+        rows: previewRows([withNote]),
+        previews: [withNote],
+        chosen,
+        totals: massTotals([withNote], chosen),
+        showStack: false,
+      },
+    });
     expect(wrapper.find(`[data-test="row-${rowKey(3, 'l1')}"] [data-test="proposal-note"]`).text()).toBe(note);
     expect(wrapper.find(`[data-test="row-${rowKey(3, 'l1')}"]`).text()).toContain('SHS 180x180x6.3');
   });
@@ -95,7 +155,9 @@ describe('sizing form', () => {
     await wrapper.find('input[data-test="target"]').setValue('0.9');
     await wrapper.find('form').trigger('submit');
     await flushPromises();
-    expect(wrapper.emitted('propose')?.[0]).toEqual([{ series: 'UKC', grade: 'S355', target: 0.9, noUpwardIncrease: true, sameSerialSize: false }]);
+    expect(wrapper.emitted('propose')?.[0]).toEqual([
+      { series: 'UKC', grade: 'S355', target: 0.9, noUpwardIncrease: true, sameSerialSize: false },
+    ]);
     await wrapper.find('input[data-test="target"]').setValue('1.2');
     await wrapper.find('form').trigger('submit');
     await flushPromises();
@@ -115,7 +177,10 @@ describe('sizing store', () => {
 
   it('accepts a building stack by stack over REST on the previewed version, ticked lifts only', async () => {
     const requests = mockFetch({
-      'POST /api/buildings/9/sizing': () => ({ status: 200, body: { buildingId: 9, stacks: [A, B], massBefore: 1544, massAfter: 1060 } }),
+      'POST /api/buildings/9/sizing': () => ({
+        status: 200,
+        body: { buildingId: 9, stacks: [A, B], massBefore: 1544, massAfter: 1060 },
+      }),
       'POST /api/stacks/1/ops': () => ({ status: 200, body: { version: 4 } }),
       'POST /api/stacks/2/ops': () => ({ status: 200, body: { version: 8 } }),
     });
@@ -127,13 +192,22 @@ describe('sizing store', () => {
     expect(await sizing.accept()).toBe(true);
     const ops = requests.filter((r) => r.url.endsWith('/ops'));
     expect(ops.map((r) => r.url)).toEqual(['/api/stacks/1/ops']);
-    expect(ops[0].body).toEqual({ baseVersion: 3, ops: [{ op: 'updateNode', id: 'l1', data: { section: 'UKC 203x203x60', grade: 'S355' } }] });
+    expect(ops[0].body).toEqual({
+      baseVersion: 3,
+      ops: [{ op: 'updateNode', id: 'l1', data: { section: 'UKC 203x203x60', grade: 'S355' } }],
+    });
   });
 
   it('reports a stack changed since the preview and shows a fresh preview', async () => {
     const requests = mockFetch({
-      'POST /api/buildings/9/sizing': () => ({ status: 200, body: { buildingId: 9, stacks: [A, B], massBefore: 1544, massAfter: 1060 } }),
-      'POST /api/stacks/1/ops': () => ({ status: 409, body: { error: { code: 'conflict', message: 'Someone else has changed l1 since version 3' } } }),
+      'POST /api/buildings/9/sizing': () => ({
+        status: 200,
+        body: { buildingId: 9, stacks: [A, B], massBefore: 1544, massAfter: 1060 },
+      }),
+      'POST /api/stacks/1/ops': () => ({
+        status: 409,
+        body: { error: { code: 'conflict', message: 'Someone else has changed l1 since version 3' } },
+      }),
       'POST /api/stacks/2/ops': () => ({ status: 200, body: { version: 8 } }),
     });
     const sizing = useSizingStore();
@@ -153,12 +227,19 @@ describe('sizing store', () => {
     await sizing.propose({ kind: 'stack', id: 1 }, request);
     expect(await sizing.accept()).toBe(true);
     expect(edit).toHaveBeenCalledTimes(1);
-    expect(edit.mock.calls[0][0]).toEqual([{ op: 'updateNode', id: 'l1', data: { section: 'UKC 203x203x60', grade: 'S355' } }]);
+    expect(edit.mock.calls[0][0]).toEqual([
+      { op: 'updateNode', id: 'l1', data: { section: 'UKC 203x203x60', grade: 'S355' } },
+    ]);
     expect(edit.mock.calls[0][1]).toBe('Apply the proposed section');
   });
 
   it('shows the server’s refusal of a request', async () => {
-    mockFetch({ 'POST /api/stacks/1/sizing': () => ({ status: 422, body: { error: { code: 'unprocessable', message: 'Not in the UKC series: UKB 457x191x67' } } }) });
+    mockFetch({
+      'POST /api/stacks/1/sizing': () => ({
+        status: 422,
+        body: { error: { code: 'unprocessable', message: 'Not in the UKC series: UKB 457x191x67' } },
+      }),
+    });
     const sizing = useSizingStore();
     await sizing.propose({ kind: 'stack', id: 1 }, { ...request, allowed: ['UKB 457x191x67'] });
     expect(sizing.state).toBe('error');

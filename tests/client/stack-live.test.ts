@@ -56,7 +56,8 @@ async function register(label: string): Promise<AuthResponse> {
   await api('POST', '/auth/register', null, { email, password, name: `${label} person` });
   const db = new Database(join(dataDir, 'stanchion.sqlite'), { readonly: true });
   try {
-    const mail = db.prepare('SELECT text FROM outbox WHERE "to" = ? ORDER BY id DESC').get(email) as { text: string } | undefined;
+    const mail = db.prepare('SELECT text FROM outbox WHERE "to" = ? ORDER BY id DESC').get(email) as
+      { text: string } | undefined;
     const token = /verify-email\?token=(\S+)/.exec(mail?.text ?? '')?.[1];
     if (!token) throw new Error(`no verification link for ${email}`);
     await api('POST', '/auth/verify', null, { token: decodeURIComponent(token) });
@@ -93,7 +94,10 @@ beforeAll(async () => {
   colleague = await register('colleague');
   viewer = await register('viewer');
   building = await api<Building>('POST', '/buildings', engineer.token, { name: 'Invented office block' });
-  await api('POST', `/buildings/${building.id}/members`, engineer.token, { email: colleague.user.email, role: 'engineer' });
+  await api('POST', `/buildings/${building.id}/members`, engineer.token, {
+    email: colleague.user.email,
+    role: 'engineer',
+  });
   await api('POST', `/buildings/${building.id}/members`, engineer.token, { email: viewer.user.email, role: 'viewer' });
   const created = await api<{ id: number }>('POST', `/buildings/${building.id}/stacks`, engineer.token, {
     name: 'B/2',
@@ -134,10 +138,17 @@ describe('stack store on the live channel', () => {
     if (!lift) throw new Error('template has a lift');
     const before = store.version;
     const u0 = store.results?.lifts.find((l) => l.liftId === lift.id)?.utilisation ?? 0;
-    expect(store.edit([{ op: 'updateNode', id: lift.id, data: { section: 'UKC 152x152x23' } }], 'Change section')).toBe(true);
+    expect(store.edit([{ op: 'updateNode', id: lift.id, data: { section: 'UKC 152x152x23' } }], 'Change section')).toBe(
+      true,
+    );
     // optimistic: visible before the server answers
     expect(store.doc?.nodes.find((n) => n.id === lift.id)?.data).toMatchObject({ section: 'UKC 152x152x23' });
-    await until(() => !store.saving && store.version === before + 1 && store.results?.lifts.find((l) => l.liftId === lift.id)?.section === 'UKC 152x152x23');
+    await until(
+      () =>
+        !store.saving &&
+        store.version === before + 1 &&
+        store.results?.lifts.find((l) => l.liftId === lift.id)?.section === 'UKC 152x152x23',
+    );
     // a lighter section works harder under the same load
     expect(store.results?.lifts.find((l) => l.liftId === lift.id)?.utilisation).toBeGreaterThan(u0);
     store.close();
@@ -147,10 +158,15 @@ describe('stack store on the live channel', () => {
     const store = await openAs(engineer);
     const restraints = store.doc?.nodes.filter((n) => n.kind === 'restraint') ?? [];
     const before = store.version;
-    for (const [i, r] of restraints.entries()) store.edit([{ op: 'updateNode', id: r.id, data: { Gk: 150 + i } }], 'Change Gk');
+    for (const [i, r] of restraints.entries())
+      store.edit([{ op: 'updateNode', id: r.id, data: { Gk: 150 + i } }], 'Change Gk');
     await until(() => !store.saving);
     expect(store.version).toBe(before + restraints.length);
-    const { doc } = await api<{ doc: { nodes: { id: string; data: { Gk?: number } }[] } }>('GET', `/stacks/${stackId}`, engineer.token);
+    const { doc } = await api<{ doc: { nodes: { id: string; data: { Gk?: number } }[] } }>(
+      'GET',
+      `/stacks/${stackId}`,
+      engineer.token,
+    );
     restraints.forEach((r, i) => expect(doc.nodes.find((n) => n.id === r.id)?.data.Gk).toBe(150 + i));
     store.close();
   });
@@ -177,7 +193,11 @@ describe('stack store on the live channel', () => {
     await until(() => !store.saving);
     store.undo();
     await until(() => !store.saving);
-    const { doc } = await api<{ doc: { nodes: { id: string; data: { elevation?: number } }[] } }>('GET', `/stacks/${stackId}`, engineer.token);
+    const { doc } = await api<{ doc: { nodes: { id: string; data: { elevation?: number } }[] } }>(
+      'GET',
+      `/stacks/${stackId}`,
+      engineer.token,
+    );
     expect(doc.nodes.find((n) => n.id === splice.id)?.data.elevation).toBe(z);
     expect(store.canRedo).toBe(true);
     store.close();

@@ -7,10 +7,50 @@ import StacksTable from '@/components/building/StacksTable.vue';
 // scale: common practice, no source.
 const base = { buildingId: 7, version: 3, updatedAt: '2026-03-14T09:05:00.000Z' };
 const stacks: StackSummary[] = [
-  { ...base, id: 1, name: 'A/1', liftCount: 2, governingLiftId: 'n-a1', governingLiftLabel: 'L1', governingSection: 'UKC 254x254x89', utilisation: 0.62, status: 'passes' },
-  { ...base, id: 2, name: 'B/2', liftCount: 3, governingLiftId: 'n-b2', governingLiftLabel: 'L2', governingSection: 'UKC 203x203x46', utilisation: 0.92, status: 'passes' },
-  { ...base, id: 3, name: 'C/3', liftCount: 2, governingLiftId: 'n-c1', governingLiftLabel: 'L1', governingSection: 'HE 200 A', utilisation: 1.14, status: 'fails' },
-  { ...base, id: 4, name: 'D/4', liftCount: 1, governingLiftId: null, governingLiftLabel: null, governingSection: null, utilisation: null, status: 'errors' },
+  {
+    ...base,
+    id: 1,
+    name: 'A/1',
+    liftCount: 2,
+    governingLiftId: 'n-a1',
+    governingLiftLabel: 'L1',
+    governingSection: 'UKC 254x254x89',
+    utilisation: 0.62,
+    status: 'passes',
+  },
+  {
+    ...base,
+    id: 2,
+    name: 'B/2',
+    liftCount: 3,
+    governingLiftId: 'n-b2',
+    governingLiftLabel: 'L2',
+    governingSection: 'UKC 203x203x46',
+    utilisation: 0.92,
+    status: 'passes',
+  },
+  {
+    ...base,
+    id: 3,
+    name: 'C/3',
+    liftCount: 2,
+    governingLiftId: 'n-c1',
+    governingLiftLabel: 'L1',
+    governingSection: 'HE 200 A',
+    utilisation: 1.14,
+    status: 'fails',
+  },
+  {
+    ...base,
+    id: 4,
+    name: 'D/4',
+    liftCount: 1,
+    governingLiftId: null,
+    governingLiftLabel: null,
+    governingSection: null,
+    utilisation: null,
+    status: 'errors',
+  },
 ];
 
 function rowOf(wrapper: ReturnType<typeof mount>, name: string) {

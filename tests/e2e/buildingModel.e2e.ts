@@ -3,7 +3,16 @@
 // engineer makes that floor heavier, the plan view open in a second browser recolours the stack.
 import { expect, it } from 'vitest';
 import type { Page } from 'playwright-core';
-import { DEMO, describeInBrowser, graphNode, openDemoBuilding, properties, screenshot, selectNode, useAppAndBrowser } from './harness.ts';
+import {
+  DEMO,
+  describeInBrowser,
+  graphNode,
+  openDemoBuilding,
+  properties,
+  screenshot,
+  selectNode,
+  useAppAndBrowser,
+} from './harness.ts';
 
 describeInBrowser('grid, floor loads and the plan view', () => {
   const session = useAppAndBrowser();
@@ -17,7 +26,7 @@ describeInBrowser('grid, floor loads and the plan view', () => {
     await page.locator('.q-menu .q-item').filter({ hasText: option }).first().click();
   }
 
-  it('derives a placed stack\'s loads from the floor and recolours it live in a second browser', async () => {
+  it("derives a placed stack's loads from the floor and recolours it live in a second browser", async () => {
     const engineer = await session.pageAs(DEMO.engineer);
     await openDemoBuilding(engineer);
 

@@ -1,7 +1,16 @@
 // A lead switches the demo building to buckling lengths from the critical buckling analysis and sees,
 // in a stack's results, the buckled shape of the stack beside the selected lift's working.
 import { expect, it } from 'vitest';
-import { DEMO, describeInBrowser, liftRow, openDemoBuilding, openStack, results, screenshot, useAppAndBrowser } from './harness.ts';
+import {
+  DEMO,
+  describeInBrowser,
+  liftRow,
+  openDemoBuilding,
+  openStack,
+  results,
+  screenshot,
+  useAppAndBrowser,
+} from './harness.ts';
 
 describeInBrowser('buckling lengths from the critical buckling analysis', () => {
   const session = useAppAndBrowser();
@@ -13,7 +22,9 @@ describeInBrowser('buckling lengths from the critical buckling analysis', () => 
     await page.getByRole('radio', { name: /^Critical buckling analysis/ }).click();
     await page.getByRole('button', { name: 'Save' }).click();
     await page.getByText('Analysis options saved').waitFor();
-    await expect.poll(() => page.getByText('buckling lengths from a critical buckling analysis').count(), { timeout: 10_000 }).toBeGreaterThan(0);
+    await expect
+      .poll(() => page.getByText('buckling lengths from a critical buckling analysis').count(), { timeout: 10_000 })
+      .toBeGreaterThan(0);
     await openStack(page, 'C/4');
     await liftRow(page, 'L1').click();
     const plot = results(page).locator('[data-test="buckled-shape"]');

@@ -5,14 +5,7 @@ import { expect, it } from 'vitest';
 import { PDFParse } from 'pdf-parse';
 import type { AuthResponse } from '../../shared/schema/api.ts';
 import type { OutboxMessage } from '../../shared/schema/outbox.ts';
-import {
-  DEMO,
-  DEMO_PASSWORD,
-  describeInBrowser,
-  openDemoBuilding,
-  screenshot,
-  useAppAndBrowser,
-} from './harness.ts';
+import { DEMO, DEMO_PASSWORD, describeInBrowser, openDemoBuilding, screenshot, useAppAndBrowser } from './harness.ts';
 
 describeInBrowser('freezing a revision', () => {
   const session = useAppAndBrowser();
@@ -30,7 +23,10 @@ describeInBrowser('freezing a revision', () => {
     await row.waitFor({ timeout: 30_000 });
     await screenshot(page, 'revisions-page');
 
-    const [download] = await Promise.all([page.waitForEvent('download'), row.getByRole('button', { name: /Download the package of P01/ }).click()]);
+    const [download] = await Promise.all([
+      page.waitForEvent('download'),
+      row.getByRole('button', { name: /Download the package of P01/ }).click(),
+    ]);
     const pdf = readFileSync(await download.path());
     expect(pdf.subarray(0, 5).toString()).toBe('%PDF-');
     const parser = new PDFParse({ data: new Uint8Array(pdf) });
@@ -42,11 +38,18 @@ describeInBrowser('freezing a revision', () => {
     expect(text).toMatch(/design aid/i);
 
     const admin = (await (
-      await fetch(`${session.app.url}/api/auth/login`, { method: 'POST', headers: { 'Content-Type': 'application/json' }, body: JSON.stringify({ email: DEMO.admin, password: DEMO_PASSWORD }) })
+      await fetch(`${session.app.url}/api/auth/login`, {
+        method: 'POST',
+        headers: { 'Content-Type': 'application/json' },
+        body: JSON.stringify({ email: DEMO.admin, password: DEMO_PASSWORD }),
+      })
     ).json()) as AuthResponse;
-    const outbox = (await (await fetch(`${session.app.url}/api/dev/outbox`, { headers: { Authorization: `Bearer ${admin.token}` } })).json()) as OutboxMessage[];
+    const outbox = (await (
+      await fetch(`${session.app.url}/api/dev/outbox`, { headers: { Authorization: `Bearer ${admin.token}` } })
+    ).json()) as OutboxMessage[];
     const issued = outbox.filter((m) => m.subject.includes('P01'));
     expect(issued.map((m) => m.to).sort()).toEqual([DEMO.engineer, DEMO.lead, DEMO.viewer].sort());
-    for (const m of issued) expect(m.attachments.some((a) => a.contentType === 'application/pdf' && a.size > 10_000)).toBe(true);
+    for (const m of issued)
+      expect(m.attachments.some((a) => a.contentType === 'application/pdf' && a.size > 10_000)).toBe(true);
   });
 });

@@ -12,8 +12,15 @@ async function createStack(page: Page, name: string, template: object): Promise<
   const buildingId = Number(new URL(page.url()).pathname.split('/')[2]);
   const created = await page.evaluate(
     async ({ buildingId, body }) => {
-      const headers = { Authorization: `Bearer ${localStorage.getItem('stanchion.token')}`, 'Content-Type': 'application/json' };
-      const res = await fetch(`/api/buildings/${buildingId}/stacks`, { method: 'POST', headers, body: JSON.stringify(body) });
+      const headers = {
+        Authorization: `Bearer ${localStorage.getItem('stanchion.token')}`,
+        'Content-Type': 'application/json',
+      };
+      const res = await fetch(`/api/buildings/${buildingId}/stacks`, {
+        method: 'POST',
+        headers,
+        body: JSON.stringify(body),
+      });
       return { status: res.status, body: (await res.json()) as StackSummary };
     },
     { buildingId, body: { name, template } },
@@ -22,7 +29,8 @@ async function createStack(page: Page, name: string, template: object): Promise<
   return created.body.id;
 }
 
-const graphZoom = (page: Page) => page.locator('.vue-flow__transformationpane').evaluate((el) => new DOMMatrix(getComputedStyle(el).transform).a);
+const graphZoom = (page: Page) =>
+  page.locator('.vue-flow__transformationpane').evaluate((el) => new DOMMatrix(getComputedStyle(el).transform).a);
 
 /** Each label of a kind: its text, its size on screen (computed font size × zoom) and its drawn box. */
 async function labels(page: Page, kind: string): Promise<{ text: string; px: number; box: Box }[]> {
@@ -31,31 +39,52 @@ async function labels(page: Page, kind: string): Promise<{ text: string; px: num
     (els, z) =>
       els.map((el) => {
         const r = el.getBoundingClientRect();
-        return { text: el.textContent?.trim() ?? '', px: parseFloat(getComputedStyle(el).fontSize) * z, box: { x: r.x, y: r.y, width: r.width, height: r.height } };
+        return {
+          text: el.textContent?.trim() ?? '',
+          px: parseFloat(getComputedStyle(el).fontSize) * z,
+          box: { x: r.x, y: r.y, width: r.width, height: r.height },
+        };
       }),
     zoom,
   );
 }
 
-const inside = (b: Box, outer: Box) => b.x >= outer.x - 1 && b.y >= outer.y - 1 && b.x + b.width <= outer.x + outer.width + 1 && b.y + b.height <= outer.y + outer.height + 1;
-const overlap = (a: Box, b: Box) => a.x < b.x + b.width && b.x < a.x + a.width && a.y < b.y + b.height - 0.5 && b.y < a.y + a.height - 0.5;
+const inside = (b: Box, outer: Box) =>
+  b.x >= outer.x - 1 &&
+  b.y >= outer.y - 1 &&
+  b.x + b.width <= outer.x + outer.width + 1 &&
+  b.y + b.height <= outer.y + outer.height + 1;
+const overlap = (a: Box, b: Box) =>
+  a.x < b.x + b.width && b.x < a.x + a.width && a.y < b.y + b.height - 0.5 && b.y < a.y + a.height - 0.5;
 
 describeInBrowser('the graph at true elevation', () => {
   const session = useAppAndBrowser();
 
-  for (const size of [{ width: 1280, height: 720 }, { width: 1920, height: 1080 }]) {
+  for (const size of [
+    { width: 1280, height: 720 },
+    { width: 1920, height: 1080 },
+  ]) {
     it(`Fit on a 40-storey stack names every lift and splice readably at ${size.width}×${size.height}`, async () => {
       const page = await session.pageAs(DEMO.engineer);
       await page.setViewportSize(size);
       await openDemoBuilding(page);
-      const id = await createStack(page, `T/40-${size.width}`, { storeys: 40, storeyHeight: 3.5, spliceEvery: 2, sections: ['UKC 305x305x240', 'UKC 254x254x73'], Gk: 120, Qk: 60 });
+      const id = await createStack(page, `T/40-${size.width}`, {
+        storeys: 40,
+        storeyHeight: 3.5,
+        spliceEvery: 2,
+        sections: ['UKC 305x305x240', 'UKC 254x254x73'],
+        Gk: 120,
+        Qk: 60,
+      });
       await page.goto(`${session.app.url}/stacks/${id}`);
       await results(page).getByText('governs').first().waitFor();
       await page.getByRole('button', { name: 'Fit', exact: true }).click();
       await page.getByRole('button', { name: 'Full scale' }).waitFor();
       const pane = await page.getByRole('region', { name: 'Stack graph' }).boundingBox();
       if (!pane) throw new Error('no graph pane');
-      await expect.poll(async () => (await labels(page, 'lift')).every((l) => inside(l.box, pane)), { timeout: 5000 }).toBe(true);
+      await expect
+        .poll(async () => (await labels(page, 'lift')).every((l) => inside(l.box, pane)), { timeout: 5000 })
+        .toBe(true);
 
       const lifts = await labels(page, 'lift');
       const splices = await labels(page, 'splice');
@@ -69,7 +98,8 @@ describeInBrowser('the graph at true elevation', () => {
       }
       const all = [...lifts, ...splices];
       for (let i = 0; i < all.length; i++) {
-        for (let j = i + 1; j < all.length; j++) expect(overlap(all[i].box, all[j].box), `${all[i].text} clear of ${all[j].text}`).toBe(false);
+        for (let j = i + 1; j < all.length; j++)
+          expect(overlap(all[i].box, all[j].box), `${all[i].text} clear of ${all[j].text}`).toBe(false);
       }
       // The connections stay drawn: one edge up the spine per lift end
       expect(await page.locator('.vue-flow__edge').count()).toBeGreaterThanOrEqual(39);

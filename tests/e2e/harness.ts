@@ -19,7 +19,8 @@ if (!haveChromium) {
       `!! (or set CHROMIUM_PATH). CI installs it in .ci/run, so CI always runs them.\n${bar}\n`,
   );
 }
-if (haveChromium && !haveBuild) throw new Error('Browser tests need the built client: run `npm run build` first (npm test does).');
+if (haveChromium && !haveBuild)
+  throw new Error('Browser tests need the built client: run `npm run build` first (npm test does).');
 
 /** `describe` when a browser is available, `describe.skip` (with the notice above) when not. */
 export const describeInBrowser = haveChromium ? describe : describe.skip;

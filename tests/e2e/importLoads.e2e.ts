@@ -2,20 +2,17 @@
 // the building changes.
 import { expect, it } from 'vitest';
 import type { Page } from 'playwright-core';
-import {
-  DEMO,
-  describeInBrowser,
-  openDemoBuilding,
-  screenshot,
-  useAppAndBrowser,
-} from './harness.ts';
+import { DEMO, describeInBrowser, openDemoBuilding, screenshot, useAppAndBrowser } from './harness.ts';
 
 /** Every stack's version, read with the signed-in user's own token. */
 async function stackVersions(page: Page): Promise<Record<string, number>> {
   return page.evaluate(async () => {
     const headers = { Authorization: `Bearer ${localStorage.getItem('stanchion.token')}` };
     const id = location.pathname.split('/')[2];
-    const stacks = (await (await fetch(`/api/buildings/${id}/stacks`, { headers })).json()) as { name: string; version: number }[];
+    const stacks = (await (await fetch(`/api/buildings/${id}/stacks`, { headers })).json()) as {
+      name: string;
+      version: number;
+    }[];
     return Object.fromEntries(stacks.map((s) => [s.name, s.version]));
   });
 }
@@ -29,10 +26,20 @@ describeInBrowser('importing level loads', () => {
     const before = await stackVersions(page);
     await page.getByRole('button', { name: 'Import loads' }).click();
     const dialog = page.locator('[data-test="import-dialog"]');
-    const csv = ['stack,level,Gk_kN,Qk_kN,category', 'C/4,Level 1,260,130,B', 'B/2,Level 2,lots,90,B', 'A/1,Level 3,180,90,B'].join('\n');
-    await dialog.locator('input[type="file"]').setInputFiles({ name: 'loads.csv', mimeType: 'text/csv', buffer: Buffer.from(csv) });
+    const csv = [
+      'stack,level,Gk_kN,Qk_kN,category',
+      'C/4,Level 1,260,130,B',
+      'B/2,Level 2,lots,90,B',
+      'A/1,Level 3,180,90,B',
+    ].join('\n');
+    await dialog
+      .locator('input[type="file"]')
+      .setInputFiles({ name: 'loads.csv', mimeType: 'text/csv', buffer: Buffer.from(csv) });
     // Row 3 of the file (the header is row 1) has text where Gk belongs.
-    await dialog.getByText(/problem/).first().waitFor({ timeout: 10_000 });
+    await dialog
+      .getByText(/problem/)
+      .first()
+      .waitFor({ timeout: 10_000 });
     await dialog.getByText('Row 3', { exact: true }).waitFor();
     await expect(dialog.getByText(/Gk_kN.*not a number/).count()).resolves.toBe(1);
     await expect(dialog.locator('[data-test="import-apply"]').isDisabled()).resolves.toBe(true);

@@ -1,7 +1,15 @@
 // Moving a level in a real browser: the engineer sees which stacks follow before saving, then the stacks
 // follow it with no errors (their floors on the level and the splices above it move with it).
 import { expect, it } from 'vitest';
-import { DEMO, describeInBrowser, openDemoBuilding, openStack, results, screenshot, useAppAndBrowser } from './harness.ts';
+import {
+  DEMO,
+  describeInBrowser,
+  openDemoBuilding,
+  openStack,
+  results,
+  screenshot,
+  useAppAndBrowser,
+} from './harness.ts';
 
 describeInBrowser('moving a level', () => {
   const session = useAppAndBrowser();
@@ -10,13 +18,17 @@ describeInBrowser('moving a level', () => {
     const page = await session.pageAs(DEMO.engineer);
     await openDemoBuilding(page);
     await page.getByRole('button', { name: 'Change Level 2' }).click();
-    const row = page.locator('[data-test="level-row"]').filter({ has: page.locator('input[data-test="level-elevation"]') });
+    const row = page
+      .locator('[data-test="level-row"]')
+      .filter({ has: page.locator('input[data-test="level-elevation"]') });
     await row.locator('input[data-test="level-elevation"]').fill('7.900');
     await row.getByRole('button', { name: 'Save' }).click();
 
     const dialog = page.getByRole('dialog');
     await dialog.getByText('Move Level 2 to +7.900 m').waitFor();
-    const affected = (await dialog.locator('[data-test="affected-stack"]').allInnerTexts()).map((t) => t.split('\n')[0].trim());
+    const affected = (await dialog.locator('[data-test="affected-stack"]').allInnerTexts()).map((t) =>
+      t.split('\n')[0].trim(),
+    );
     expect(affected.sort()).toEqual(['Stack A/1', 'Stack B/2', 'Stack C/4']);
     expect(await dialog.innerText()).toContain('splice');
     await screenshot(page, 'level-move-preview');

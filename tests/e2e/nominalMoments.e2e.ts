@@ -1,7 +1,16 @@
 // Nominal moments on screen: the note when a stack has no face reactions, and roof beams given when a
 // stack is created, checked with the combination named in the results table (demo data, invented).
 import { expect, it } from 'vitest';
-import { DEMO, describeInBrowser, liftRow, openDemoBuilding, openStack, results, screenshot, useAppAndBrowser } from './harness.ts';
+import {
+  DEMO,
+  describeInBrowser,
+  liftRow,
+  openDemoBuilding,
+  openStack,
+  results,
+  screenshot,
+  useAppAndBrowser,
+} from './harness.ts';
 
 describeInBrowser('nominal moments on the stack page', () => {
   const session = useAppAndBrowser();
@@ -40,7 +49,9 @@ describeInBrowser('nominal moments on the stack page', () => {
     await results(page).getByText('governs').first().waitFor();
     expect(await results(page).locator('[data-test="moments-note"]').count()).toBe(0);
     // The roof moment goes into the top storey, which belongs to the top lift
-    await expect.poll(async () => liftRow(page, `L${lifts}`).innerText(), { timeout: 10_000 }).toMatch(/\d\.\d\d \(6\.10[ab]\)/);
+    await expect
+      .poll(async () => liftRow(page, `L${lifts}`).innerText(), { timeout: 10_000 })
+      .toMatch(/\d\.\d\d \(6\.10[ab]\)/);
     await screenshot(page, 'stack-with-roof-beams');
   });
 });

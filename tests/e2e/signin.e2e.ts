@@ -1,14 +1,7 @@
 // The built app, served by the real server, signs in the demo engineer and lists buildings,
 // loading nothing from any origin but its own (fonts and icons are served by the app).
 import { expect, it } from 'vitest';
-import {
-  DEMO,
-  describeInBrowser,
-  newContext,
-  screenshot,
-  signIn,
-  useAppAndBrowser,
-} from './harness.ts';
+import { DEMO, describeInBrowser, newContext, screenshot, signIn, useAppAndBrowser } from './harness.ts';
 
 describeInBrowser('sign-in and the buildings list', () => {
   const session = useAppAndBrowser();
@@ -39,7 +32,10 @@ describeInBrowser('sign-in and the buildings list', () => {
     await page.getByLabel('E-mail').fill(DEMO.engineer);
     await page.getByLabel('Password').fill('not-the-password');
     await page.getByRole('button', { name: 'Sign in' }).click();
-    await page.getByText(/e-mail address or password is wrong/i).first().waitFor({ timeout: 10_000 });
+    await page
+      .getByText(/e-mail address or password is wrong/i)
+      .first()
+      .waitFor({ timeout: 10_000 });
     expect(new URL(page.url()).pathname).toBe('/sign-in');
     await context.close();
   });

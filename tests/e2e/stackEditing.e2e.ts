@@ -2,9 +2,21 @@
 // join two lifts at a splice. Each is one edit, so the results never go blank between steps.
 import { expect, it } from 'vitest';
 import type { Page } from 'playwright-core';
-import { DEMO, describeInBrowser, openDemoBuilding, openStack, properties, results, screenshot, useAppAndBrowser } from './harness.ts';
+import {
+  DEMO,
+  describeInBrowser,
+  openDemoBuilding,
+  openStack,
+  properties,
+  results,
+  screenshot,
+  useAppAndBrowser,
+} from './harness.ts';
 
-const liftRows = (page: Page) => results(page).locator('tbody tr').filter({ has: page.locator('td:first-child', { hasText: /^\s*L\d+/ }) });
+const liftRows = (page: Page) =>
+  results(page)
+    .locator('tbody tr')
+    .filter({ has: page.locator('td:first-child', { hasText: /^\s*L\d+/ }) });
 
 async function liftCountBecomes(page: Page, n: number): Promise<void> {
   await expect.poll(() => liftRows(page).count(), { timeout: 10_000 }).toBe(n);
@@ -52,7 +64,10 @@ describeInBrowser('structural edits on the stack page', () => {
     await openStack(page, 'B/2');
     const before = await liftRows(page).count();
     await selectOnGraph(page, '.vue-flow__node-splice');
-    await properties(page).getByText(/splice/i).first().waitFor();
+    await properties(page)
+      .getByText(/splice/i)
+      .first()
+      .waitFor();
     await page.getByRole('button', { name: 'Join' }).click();
     await liftCountBecomes(page, before - 1);
     await screenshot(page, 'stack-join-lifts');
@@ -65,9 +80,18 @@ describeInBrowser('structural edits on the stack page', () => {
     // Imposed load large beside the permanent (invented): eq. 6.10b with a leading imposed load governs, so αn applies.
     const buildingId = Number(new URL(page.url()).pathname.split('/')[2]);
     const status = await page.evaluate(async (id) => {
-      const headers = { Authorization: `Bearer ${localStorage.getItem('stanchion.token')}`, 'Content-Type': 'application/json' };
+      const headers = {
+        Authorization: `Bearer ${localStorage.getItem('stanchion.token')}`,
+        'Content-Type': 'application/json',
+      };
       const template = { storeys: 6, storeyHeight: 3.8, sections: ['UKC 305x305x198'], Gk: 60, Qk: 200 };
-      return (await fetch(`/api/buildings/${id}/stacks`, { method: 'POST', headers, body: JSON.stringify({ name: 'T/1', template }) })).status;
+      return (
+        await fetch(`/api/buildings/${id}/stacks`, {
+          method: 'POST',
+          headers,
+          body: JSON.stringify({ name: 'T/1', template }),
+        })
+      ).status;
     }, buildingId);
     expect(status).toBe(201);
     await page.reload();

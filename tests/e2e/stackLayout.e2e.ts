@@ -6,7 +6,17 @@ import path from 'node:path';
 import { expect, it } from 'vitest';
 import type { Locator, Page } from 'playwright-core';
 import type { StackSummary, StackTemplate } from '../../shared/schema/api.ts';
-import { DEMO, describeInBrowser, graphNode, liftRow, openDemoBuilding, openStack, properties, results, useAppAndBrowser } from './harness.ts';
+import {
+  DEMO,
+  describeInBrowser,
+  graphNode,
+  liftRow,
+  openDemoBuilding,
+  openStack,
+  properties,
+  results,
+  useAppAndBrowser,
+} from './harness.ts';
 
 const SMALL = { width: 1280, height: 720 };
 const LARGE = { width: 1920, height: 1080 };
@@ -23,7 +33,11 @@ async function box(locator: Locator): Promise<Box> {
   if (!b) throw new Error(`${String(locator)} is not drawn`);
   return b;
 }
-const inside = (b: Box, outer: Box) => b.x >= outer.x - 1 && b.y >= outer.y - 1 && b.x + b.width <= outer.x + outer.width + 1 && b.y + b.height <= outer.y + outer.height + 1;
+const inside = (b: Box, outer: Box) =>
+  b.x >= outer.x - 1 &&
+  b.y >= outer.y - 1 &&
+  b.x + b.width <= outer.x + outer.width + 1 &&
+  b.y + b.height <= outer.y + outer.height + 1;
 
 /** Turns the mouse wheel over an element until nothing more moves, as a person scrolling to the end. */
 async function wheelToEnd(page: Page, over: Locator): Promise<void> {
@@ -41,8 +55,14 @@ async function expectToolbarInView(page: Page): Promise<void> {
   for (const name of ['Undo', 'Fit']) {
     const button = page.getByRole('button', { name, exact: true });
     const b = await box(button);
-    expect(inside(b, viewport), `${name} at ${JSON.stringify(b)} inside the ${viewport.width}×${viewport.height} window`).toBe(true);
-    const onTop = await button.evaluate((el, at) => el.contains(document.elementFromPoint(at.x, at.y)), { x: b.x + b.width / 2, y: b.y + b.height / 2 });
+    expect(
+      inside(b, viewport),
+      `${name} at ${JSON.stringify(b)} inside the ${viewport.width}×${viewport.height} window`,
+    ).toBe(true);
+    const onTop = await button.evaluate((el, at) => el.contains(document.elementFromPoint(at.x, at.y)), {
+      x: b.x + b.width / 2,
+      y: b.y + b.height / 2,
+    });
     expect(onTop, `${name} is not covered`).toBe(true);
   }
 }
@@ -55,7 +75,9 @@ async function expectEndInView(page: Page, locator: Locator): Promise<void> {
 
 /** The graph's zoom, read from Vue Flow's transformation pane. */
 async function graphZoom(page: Page): Promise<number> {
-  return page.locator('.vue-flow__transformationpane').evaluate((el) => new DOMMatrix(getComputedStyle(el).transform).a);
+  return page
+    .locator('.vue-flow__transformationpane')
+    .evaluate((el) => new DOMMatrix(getComputedStyle(el).transform).a);
 }
 
 /** Creates a stack from a template through the real API with the signed-in person's token. */
@@ -63,8 +85,15 @@ async function createTallStack(page: Page, name: string, template: Partial<Stack
   const buildingId = Number(new URL(page.url()).pathname.split('/')[2]);
   const created = await page.evaluate(
     async ({ buildingId, body }) => {
-      const headers = { Authorization: `Bearer ${localStorage.getItem('stanchion.token')}`, 'Content-Type': 'application/json' };
-      const res = await fetch(`/api/buildings/${buildingId}/stacks`, { method: 'POST', headers, body: JSON.stringify(body) });
+      const headers = {
+        Authorization: `Bearer ${localStorage.getItem('stanchion.token')}`,
+        'Content-Type': 'application/json',
+      };
+      const res = await fetch(`/api/buildings/${buildingId}/stacks`, {
+        method: 'POST',
+        headers,
+        body: JSON.stringify(body),
+      });
       return { status: res.status, body: (await res.json()) as StackSummary };
     },
     { buildingId, body: { name, template } },
@@ -130,12 +159,20 @@ describeInBrowser('stack page layout', () => {
     await page.setViewportSize(SMALL);
     await openDemoBuilding(page);
     // A light bottom lift under heavy ones above: the bottom lift governs, far from the top of the stack.
-    const id = await createTallStack(page, 'T/30', { storeys: 30, storeyHeight: 3.5, sections: ['UKC 254x254x73', 'UKC 305x305x240'], Gk: 200, Qk: 100 });
+    const id = await createTallStack(page, 'T/30', {
+      storeys: 30,
+      storeyHeight: 3.5,
+      sections: ['UKC 254x254x73', 'UKC 305x305x240'],
+      Gk: 200,
+      Qk: 100,
+    });
     await page.goto(`${session.app.url}/stacks/${id}`);
     await results(page).getByText('governs').first().waitFor();
     const governing = page.locator('.vue-flow__node').filter({ has: page.locator('.node-card--governing') });
     await expect.poll(() => governing.count()).toBe(1);
-    await expect.poll(async () => inside(await box(governing), await box(graphPane(page))), { timeout: 5000 }).toBe(true);
+    await expect
+      .poll(async () => inside(await box(governing), await box(graphPane(page))), { timeout: 5000 })
+      .toBe(true);
     expect(await governing.getAttribute('data-id')).toBe('lift-1');
     expect(await graphZoom(page)).toBeGreaterThanOrEqual(0.7);
     await viewShot(page, 'stack-layout-1280-tall-governing');
@@ -149,10 +186,13 @@ describeInBrowser('stack page layout', () => {
     // Fit: the cap and the support both inside the pane.
     await page.getByRole('button', { name: 'Fit', exact: true }).click();
     await expect
-      .poll(async () => {
-        const pane = await box(graphPane(page));
-        return inside(await box(graphNode(page, 'cap')), pane) && inside(await box(graphNode(page, 'support')), pane);
-      }, { timeout: 5000 })
+      .poll(
+        async () => {
+          const pane = await box(graphPane(page));
+          return inside(await box(graphNode(page, 'cap')), pane) && inside(await box(graphNode(page, 'support')), pane);
+        },
+        { timeout: 5000 },
+      )
       .toBe(true);
     await viewShot(page, 'stack-layout-1280-tall-fit');
   });
@@ -162,10 +202,18 @@ describeInBrowser('stack page layout', () => {
     await page.setViewportSize(SMALL);
     await openDemoBuilding(page);
     // An unknown section: the stack cannot be checked, so there is no governing lift to show.
-    const id = await createTallStack(page, 'T/31', { storeys: 30, storeyHeight: 3.5, sections: ['NO SUCH SECTION'], Gk: 200, Qk: 100 });
+    const id = await createTallStack(page, 'T/31', {
+      storeys: 30,
+      storeyHeight: 3.5,
+      sections: ['NO SUCH SECTION'],
+      Gk: 200,
+      Qk: 100,
+    });
     await page.goto(`${session.app.url}/stacks/${id}`);
     await results(page).getByText('cannot be checked').waitFor();
-    await expect.poll(async () => inside(await box(graphNode(page, 'cap')), await box(graphPane(page))), { timeout: 5000 }).toBe(true);
+    await expect
+      .poll(async () => inside(await box(graphNode(page, 'cap')), await box(graphPane(page))), { timeout: 5000 })
+      .toBe(true);
     expect(await graphZoom(page)).toBeGreaterThanOrEqual(0.7);
     await viewShot(page, 'stack-layout-1280-tall-top');
 
@@ -182,7 +230,9 @@ describeInBrowser('stack page layout', () => {
     await page.setViewportSize(LARGE);
     await page.reload();
     await results(page).getByText('cannot be checked').waitFor();
-    await expect.poll(async () => inside(await box(graphNode(page, 'cap')), await box(graphPane(page))), { timeout: 5000 }).toBe(true);
+    await expect
+      .poll(async () => inside(await box(graphNode(page, 'cap')), await box(graphPane(page))), { timeout: 5000 })
+      .toBe(true);
     await viewShot(page, 'stack-layout-1920-tall-top');
   });
   it('keeps the divider between the graph and the results where the person left it', async () => {
@@ -201,9 +251,13 @@ describeInBrowser('stack page layout', () => {
     expect(before.height - dragged.height).toBeGreaterThan(100);
 
     // The splitter hands over its new place when the drag has ended; the page keeps it in this browser.
-    await expect.poll(() => page.evaluate(() => localStorage.getItem('stanchion.stackPage.graphShare')), { timeout: 5000 }).not.toBeNull();
+    await expect
+      .poll(() => page.evaluate(() => localStorage.getItem('stanchion.stackPage.graphShare')), { timeout: 5000 })
+      .not.toBeNull();
     await page.reload();
     await results(page).getByText('governs').first().waitFor();
-    await expect.poll(async () => Math.abs((await box(graphPane(page))).height - dragged.height), { timeout: 5000 }).toBeLessThan(3);
+    await expect
+      .poll(async () => Math.abs((await box(graphPane(page))).height - dragged.height), { timeout: 5000 })
+      .toBeLessThan(3);
   });
 });

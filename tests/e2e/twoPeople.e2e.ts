@@ -36,7 +36,9 @@ describeInBrowser('two people on one stack', () => {
     await pickSection(engineer, 'UKC 203x203x46');
     const t0 = Date.now();
     await liftRow(lead, 'L2').filter({ hasText: 'UKC 203x203x46' }).waitFor({ timeout: 2000 });
-    await expect.poll(() => liftUtilisation(lead, 'L2'), { timeout: 2000 - (Date.now() - t0), interval: 50 }).toBeGreaterThan(before);
+    await expect
+      .poll(() => liftUtilisation(lead, 'L2'), { timeout: 2000 - (Date.now() - t0), interval: 50 })
+      .toBeGreaterThan(before);
     expect(Date.now() - t0).toBeLessThan(2000);
     expect(await liftUtilisation(lead, 'L2')).toBe(await liftUtilisation(engineer, 'L2'));
     await screenshot(engineer, 'two-people-engineer');

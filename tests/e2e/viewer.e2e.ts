@@ -28,10 +28,17 @@ describeInBrowser('a viewer', () => {
     await openStack(page, 'C/4');
     await page.getByText('read only').first().waitFor();
     await expect(page.locator('.vue-flow__node').count()).resolves.toBeGreaterThan(5);
-    await expect(results(page).getByText(/design aid/).count()).resolves.toBeGreaterThan(0);
+    await expect(
+      results(page)
+        .getByText(/design aid/)
+        .count(),
+    ).resolves.toBeGreaterThan(0);
     // The working of a lift is open to a viewer.
     await liftRow(page, 'L3').click();
-    await page.getByText(/EN 1993-1-1/).first().waitFor();
+    await page
+      .getByText(/EN 1993-1-1/)
+      .first()
+      .waitFor();
     // Forms are read-only and nothing offers to delete.
     await selectNode(page, 'restraint-1');
     const gk = properties(page).getByLabel('Permanent load Gk (kN)');
@@ -46,7 +53,11 @@ describeInBrowser('a viewer', () => {
       const headers = { Authorization: `Bearer ${token}`, 'Content-Type': 'application/json' };
       const id = location.pathname.split('/').pop();
       const before = await (await fetch(`/api/stacks/${id}`, { headers })).json();
-      const put = await fetch(`/api/stacks/${id}`, { method: 'PUT', headers, body: JSON.stringify({ doc: before.doc, baseVersion: before.version }) });
+      const put = await fetch(`/api/stacks/${id}`, {
+        method: 'PUT',
+        headers,
+        body: JSON.stringify({ doc: before.doc, baseVersion: before.version }),
+      });
       const ops = await fetch(`/api/stacks/${id}/ops`, {
         method: 'POST',
         headers,

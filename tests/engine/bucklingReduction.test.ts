@@ -50,7 +50,8 @@ describe('reductionFactor', () => {
   });
 
   it('stays below the elastic limit 1/λ̄² so that Nb,Rd never exceeds Ncr (Euler bound, common practice, no source)', () => {
-    for (const curve of CURVES) for (const l of [1.2, 1.5, 2, 3, 4]) expect(reductionFactor(l, curve)).toBeLessThan(1 / (l * l));
+    for (const curve of CURVES)
+      for (const l of [1.2, 1.5, 2, 3, 4]) expect(reductionFactor(l, curve)).toBeLessThan(1 / (l * l));
   });
 
   it('orders the curves: a0 ≥ a ≥ b ≥ c ≥ d at any slenderness (EN 1993-1-1 Figure 6.4)', () => {
@@ -68,7 +69,15 @@ describe('reductionFactor', () => {
 });
 
 describe('bucklingCurve (EN 1993-1-1 Table 6.2)', () => {
-  const rolled = (h: number, b: number, tf: number): SectionDims => ({ shape: 'I', make: 'rolled', h, b, tw: 10, tf, r: 10 });
+  const rolled = (h: number, b: number, tf: number): SectionDims => ({
+    shape: 'I',
+    make: 'rolled',
+    h,
+    b,
+    tw: 10,
+    tf,
+    r: 10,
+  });
 
   it('rolled I with h/b > 1.2 and tf ≤ 40: a about y, b about z; a0 and a0 in S460', () => {
     expect(bucklingCurve(rolled(450, 190, 14.6), 'S355')).toMatchObject({ y: 'a', z: 'b' });
@@ -93,7 +102,9 @@ describe('bucklingCurve (EN 1993-1-1 Table 6.2)', () => {
   });
 
   it('rolled I with h/b > 1.2 and tf > 100 has no row and is refused as unsupported', () => {
-    expect(() => bucklingCurve(rolled(1200, 400, 110), 'S355')).toThrow(expect.objectContaining({ code: 'unsupported' }));
+    expect(() => bucklingCurve(rolled(1200, 400, 110), 'S355')).toThrow(
+      expect.objectContaining({ code: 'unsupported' }),
+    );
   });
 
   it('welded I: b and c up to tf = 40, c and d above, for every grade', () => {

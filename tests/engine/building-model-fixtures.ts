@@ -50,7 +50,10 @@ export const ROOF: Buildup = {
   imposed: { qk: 0.6, category: 'H' },
 };
 
-export function officeModel(levels: { floors: string[]; roof?: string }, lines: BuildingModel['floors'][number]['lines'] = []): BuildingModel {
+export function officeModel(
+  levels: { floors: string[]; roof?: string },
+  lines: BuildingModel['floors'][number]['lines'] = [],
+): BuildingModel {
   return {
     grid: GRID,
     buildups: [OFFICE, ROOF],

@@ -14,14 +14,24 @@ const FLOORS = ['L1', 'L2', 'L3', 'L4', 'L5'] as const;
 /** Three lifts spliced 0.5 m above L2 and L4; every floor and the cap sit on their levels; no load typed. */
 function sixStoreys(): StackDocument {
   const doc = buildStack({
-    lifts: [{ top: 8, section: 'UKC 305x305x118' }, { top: 15, section: 'UKC 254x254x89' }, { top: 21.5, section: 'UKC 203x203x60' }],
+    lifts: [
+      { top: 8, section: 'UKC 305x305x118' },
+      { top: 15, section: 'UKC 254x254x89' },
+      { top: 21.5, section: 'UKC 203x203x60' },
+    ],
     floors: FLOORS.map((levelId, i) => ({ id: `r${i + 1}`, elevation: LEVELS[levelId], levelId, Gk: 0, Qk: 0 })),
   });
   return { ...doc, nodes: doc.nodes.map((n) => (n.kind === 'cap' ? { ...n, data: { ...n.data, levelId: 'L6' } } : n)) };
 }
 
 const model = officeModel({ floors: [...FLOORS], roof: 'L6' });
-const OPTIONS = { combination: '6.10ab', annex: 'UK', imposedReduction: true, selfWeight: false, nominalMoments: false } as const;
+const OPTIONS = {
+  combination: '6.10ab',
+  annex: 'UK',
+  imposedReduction: true,
+  selfWeight: false,
+  nominalMoments: false,
+} as const;
 
 /**
  * Independent hand working (UK NA to EN 1990: 6.10a and 6.10b with ξ = 0.925; ψ0 = 0.7 for B and for roofs H;
@@ -74,23 +84,37 @@ describe('a six-storey stack loaded from the floors', () => {
   it('leaves the stored document as it was: derived loads are not copied into it', () => {
     const doc = sixStoreys();
     analyseStack(doc, OPTIONS, { levels: LEVELS, floorLoads });
-    expect(doc.nodes.filter((n) => n.kind === 'restraint').every((n) => n.kind === 'restraint' && n.data.Gk === 0 && !n.data.faces)).toBe(true);
+    expect(
+      doc.nodes
+        .filter((n) => n.kind === 'restraint')
+        .every((n) => n.kind === 'restraint' && n.data.Gk === 0 && !n.data.faces),
+    ).toBe(true);
   });
 
   it('keeps a restraint whose loads were set by hand, and says what the floor would give', () => {
     const doc = sixStoreys();
-    const byHand: StackDocument = { ...doc, nodes: doc.nodes.map((n) => (n.id === 'r5' && n.kind === 'restraint' ? { ...n, data: { ...n.data, Gk: 500, Qk: 0, loadsByHand: true } } : n)) };
+    const byHand: StackDocument = {
+      ...doc,
+      nodes: doc.nodes.map((n) =>
+        n.id === 'r5' && n.kind === 'restraint' ? { ...n, data: { ...n.data, Gk: 500, Qk: 0, loadsByHand: true } } : n,
+      ),
+    };
     const r = analyseStack(byHand, OPTIONS, { levels: LEVELS, floorLoads });
     const row = r.takeDown.find((t) => t.nodeId === 'r5')!;
     expect(row.Gk).toBe(500);
-    expect(r.floorLoads?.find((u) => u.nodeId === 'r5')).toMatchObject({ byHand: true, Gk: expect.closeTo(278.4375, 9) });
+    expect(r.floorLoads?.find((u) => u.nodeId === 'r5')).toMatchObject({
+      byHand: true,
+      Gk: expect.closeTo(278.4375, 9),
+    });
   });
 });
 
 describe('nominal moments from derived face reactions', () => {
   // Edge column D/2 with cladding on D: more load on the web faces than balance, and the −x flange face
   // loaded with nothing on +x beyond the cantilever's share, so the faces are out of balance both ways.
-  const edgeModel = officeModel({ floors: [...FLOORS], roof: 'L6' }, [{ gridLineId: 'D', label: 'Cladding', gk: 8, qk: 0 }]);
+  const edgeModel = officeModel({ floors: [...FLOORS], roof: 'L6' }, [
+    { gridLineId: 'D', label: 'Cladding', gk: 8, qk: 0 },
+  ]);
   const floorLoads = stackFloorLoads(edgeModel, { gridX: 'D', gridY: 'y2', webAlong: 'x' }, 2);
   const withMoments = { ...OPTIONS, nominalMoments: true };
 
@@ -110,7 +134,10 @@ describe('nominal moments from derived face reactions', () => {
       nodes: typed.nodes.map((n) => {
         if (n.kind !== 'restraint' && n.kind !== 'cap') return n;
         const f = byLevel(n.data.levelId)!;
-        return { ...n, data: { ...n.data, Gk: f.Gk, Qk: f.Qk, category: f.category, faces: f.faces, loadsByHand: true } } as typeof n;
+        return {
+          ...n,
+          data: { ...n.data, Gk: f.Gk, Qk: f.Qk, category: f.category, faces: f.faces, loadsByHand: true },
+        } as typeof n;
       }),
     };
     // Without imposed-load reduction: αA needs the floor area, which loads typed by hand do not carry.

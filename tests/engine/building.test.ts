@@ -5,7 +5,11 @@ import { buildStack } from './stack-builder.ts';
 // Invented building: levels at +0.000, +4.000 and +8.000; three stacks named by grid reference.
 const levels = { ground: 0, first: 4, roof: 8 };
 const stack = (capGk: number) =>
-  buildStack({ lifts: [{ top: 8, section: 'UKC 203x203x46' }], floors: [{ elevation: 4, levelId: 'first', Gk: 100, Qk: 40 }], cap: { Gk: capGk, Qk: 20 } });
+  buildStack({
+    lifts: [{ top: 8, section: 'UKC 203x203x46' }],
+    floors: [{ elevation: 4, levelId: 'first', Gk: 100, Qk: 40 }],
+    cap: { Gk: capGk, Qk: 20 },
+  });
 const broken = { nodes: stack(10).nodes.filter((n) => n.kind !== 'cap'), edges: stack(10).edges };
 
 describe('analyseBuilding', () => {
@@ -19,7 +23,7 @@ describe('analyseBuilding', () => {
     { combination: '6.10ab', annex: 'UK' },
   );
 
-  it("gives each stack its governing lift, utilisation and status", () => {
+  it('gives each stack its governing lift, utilisation and status', () => {
     expect(result.stacks.map((s) => [s.id, s.name, s.governingLiftId, s.status])).toEqual([
       [1, 'A/1', 'l1', 'passes'],
       [2, 'B/1', 'l1', 'fails'],
@@ -44,17 +48,29 @@ describe('analyseBuilding', () => {
     const doc = stack(100);
     const tied = {
       edges: doc.edges,
-      nodes: doc.nodes.map((n) => (n.kind === 'cap' ? { ...n, data: { ...n.data, levelId: 'roof' } } : n.kind === 'support' ? { ...n, data: { ...n.data, levelId: 'ground' } } : n)),
+      nodes: doc.nodes.map((n) =>
+        n.kind === 'cap'
+          ? { ...n, data: { ...n.data, levelId: 'roof' } }
+          : n.kind === 'support'
+            ? { ...n, data: { ...n.data, levelId: 'ground' } }
+            : n,
+      ),
     };
-    const lifted = analyseBuilding([{ id: 'y', name: 'F/1', doc: tied }], { ...levels, ground: -0.5, roof: 8.6 }, {}).stacks[0].result;
+    const lifted = analyseBuilding([{ id: 'y', name: 'F/1', doc: tied }], { ...levels, ground: -0.5, roof: 8.6 }, {})
+      .stacks[0].result;
     expect(lifted.errors).toEqual([]);
     expect(lifted.takeDown.map((r) => r.elevation)).toEqual([8.6, 4]);
     expect([lifted.lifts[0].bottom, lifted.lifts[0].top]).toEqual([-0.5, 8.6]);
-    expect(lifted.lifts[0].pieces.map((p) => [p.from, p.to])).toEqual([[-0.5, 4], [4, 8.6]]);
+    expect(lifted.lifts[0].pieces.map((p) => [p.from, p.to])).toEqual([
+      [-0.5, 4],
+      [4, 8.6],
+    ]);
     // A level the building no longer has: the node keeps its own elevation, with a warning on it.
     const lost = analyseBuilding([{ id: 'z', name: 'G/1', doc: tied }], { first: 4 }, {}).stacks[0].result;
     expect(lost.lifts[0].top).toBe(8);
-    expect(lost.warnings.filter((w) => /refers to a level the building no longer has/.test(w.message)).map((w) => w.message)).toEqual([
+    expect(
+      lost.warnings.filter((w) => /refers to a level the building no longer has/.test(w.message)).map((w) => w.message),
+    ).toEqual([
       'Cap at +8.000 refers to a level the building no longer has; its own elevation is used',
       'Support at +0.000 refers to a level the building no longer has; its own elevation is used',
     ]);

@@ -53,10 +53,22 @@ describe('UKB rows against the published dimension table', () => {
 // stored copy shows only these two columns, so b, tw, tf and r are checked through the mass: a
 // mistyped one moves the mass computed from them.
 const IPE_PUBLISHED: readonly [string, number, number][] = [
-  ['IPE 100', 8.1, 100], ['IPE 120', 10.4, 120], ['IPE 140', 12.9, 140], ['IPE 160', 15.8, 160],
-  ['IPE 180', 18.8, 180], ['IPE 200', 22.4, 200], ['IPE 220', 26.2, 220], ['IPE 240', 30.7, 240],
-  ['IPE 270', 36.1, 270], ['IPE 300', 42.2, 300], ['IPE 330', 49.1, 330], ['IPE 360', 57.1, 360],
-  ['IPE 400', 66.3, 400], ['IPE 450', 77.6, 450], ['IPE 500', 90.7, 500], ['IPE 550', 106, 550],
+  ['IPE 100', 8.1, 100],
+  ['IPE 120', 10.4, 120],
+  ['IPE 140', 12.9, 140],
+  ['IPE 160', 15.8, 160],
+  ['IPE 180', 18.8, 180],
+  ['IPE 200', 22.4, 200],
+  ['IPE 220', 26.2, 220],
+  ['IPE 240', 30.7, 240],
+  ['IPE 270', 36.1, 270],
+  ['IPE 300', 42.2, 300],
+  ['IPE 330', 49.1, 330],
+  ['IPE 360', 57.1, 360],
+  ['IPE 400', 66.3, 400],
+  ['IPE 450', 77.6, 450],
+  ['IPE 500', 90.7, 500],
+  ['IPE 550', 106, 550],
   ['IPE 600', 122, 600],
 ];
 

@@ -1,5 +1,12 @@
 import { describe, expect, it } from 'vitest';
-import { CATALOGUE, findSection, listSeries, resolveSection, searchSections, sectionsInSeries } from '../../shared/catalogue/index.ts';
+import {
+  CATALOGUE,
+  findSection,
+  listSeries,
+  resolveSection,
+  searchSections,
+  sectionsInSeries,
+} from '../../shared/catalogue/index.ts';
 import { EngineError } from '../../shared/engine/errors.ts';
 import { sectionProperties } from '../../shared/engine/sectionProperties.ts';
 import type { SectionDims } from '../../shared/schema/stack.ts';
@@ -38,10 +45,14 @@ describe('catalogue coverage', () => {
     expect(sectionsInSeries('UKC').length).toBeGreaterThanOrEqual(43);
     expect(sectionsInSeries('UKB').length).toBeGreaterThanOrEqual(30);
     for (const s of ['HE A', 'HE B'] as const) {
-      expect(sectionsInSeries(s).map((e) => e.designation)).toEqual(expect.arrayContaining([`HE 100 ${s.at(-1)}`, `HE 600 ${s.at(-1)}`]));
+      expect(sectionsInSeries(s).map((e) => e.designation)).toEqual(
+        expect.arrayContaining([`HE 100 ${s.at(-1)}`, `HE 600 ${s.at(-1)}`]),
+      );
       expect(sectionsInSeries(s)).toHaveLength(19);
     }
-    expect(sectionsInSeries('HE M').map((e) => e.designation)).toEqual(expect.arrayContaining(['HE 100 M', 'HE 400 M']));
+    expect(sectionsInSeries('HE M').map((e) => e.designation)).toEqual(
+      expect.arrayContaining(['HE 100 M', 'HE 400 M']),
+    );
     expect(sectionsInSeries('IPE').map((e) => e.designation)).toEqual(expect.arrayContaining(['IPE 100', 'IPE 600']));
     const hollow = ['SHS', 'RHS', 'CHS'].flatMap((s) => sectionsInSeries(s));
     expect(hollow.length).toBeGreaterThanOrEqual(60);
@@ -55,7 +66,15 @@ describe('catalogue coverage', () => {
 
 describe('findSection', () => {
   it('finds the designations written as in the product tables', () => {
-    for (const d of ['UKC 203x203x46', 'HE 300 B', 'SHS 200x200x10', 'CHS 219.1x8.0', 'IPE 300', 'RHS 300x200x10', 'UKB 457x191x67']) {
+    for (const d of [
+      'UKC 203x203x46',
+      'HE 300 B',
+      'SHS 200x200x10',
+      'CHS 219.1x8.0',
+      'IPE 300',
+      'RHS 300x200x10',
+      'UKB 457x191x67',
+    ]) {
       expect(findSection(d)?.designation).toBe(d);
     }
   });
@@ -107,11 +126,15 @@ describe('resolveSection', () => {
   it('names a section given by dimensions after its plates', () => {
     const dims: SectionDims = { shape: 'I', make: 'welded', h: 300, b: 200, tw: 8, tf: 12, r: 0 };
     expect(resolveSection(dims).designation).toBe('I 300x200x8x12 (welded)');
-    expect(resolveSection({ shape: 'RHS', make: 'cold-formed', h: 150, b: 100, t: 6 }).designation).toBe('RHS 150x100x6 (cold-formed)');
+    expect(resolveSection({ shape: 'RHS', make: 'cold-formed', h: 150, b: 100, t: 6 }).designation).toBe(
+      'RHS 150x100x6 (cold-formed)',
+    );
   });
 
   it("prefers the building's own sections and matches their names loosely", () => {
-    const own = new Map<string, SectionDims>([['Col-A', { shape: 'I', make: 'welded', h: 400, b: 300, tw: 10, tf: 20, r: 0 }]]);
+    const own = new Map<string, SectionDims>([
+      ['Col-A', { shape: 'I', make: 'welded', h: 400, b: 300, tw: 10, tf: 20, r: 0 }],
+    ]);
     expect(resolveSection('Col-A', own).dims).toEqual(own.get('Col-A'));
     expect(resolveSection('col-a', own).dims).toEqual(own.get('Col-A'));
   });
@@ -124,6 +147,8 @@ describe('resolveSection', () => {
   });
 
   it('throws invalid_input for dimensions that cannot exist', () => {
-    expect(() => resolveSection({ shape: 'CHS', make: 'hot-finished', d: 100, t: -1 })).toThrow(expect.objectContaining({ code: 'invalid_input' }));
+    expect(() => resolveSection({ shape: 'CHS', make: 'hot-finished', d: 100, t: -1 })).toThrow(
+      expect.objectContaining({ code: 'invalid_input' }),
+    );
   });
 });

@@ -14,8 +14,16 @@ import type { Axes, Category, Fixity, Grade } from '../../shared/schema/stack.ts
 import { buildStack, type FloorSpec, type LiftSpec } from './stack-builder.ts';
 
 type Annex = AnalysisOptions['annex'];
-interface Entry { elevation: number; Gk: number; Qk: number; category: Category }
-interface Point { elevation: number; fixity: Fixity | 'free' }
+interface Entry {
+  elevation: number;
+  Gk: number;
+  Qk: number;
+  category: Category;
+}
+interface Point {
+  elevation: number;
+  fixity: Fixity | 'free';
+}
 
 /** EN 1990 Table A1.1; UK NA Table NA.A1.1 gives roofs 0.7. */
 const psi0 = (c: Category, annex: Annex) => (c === 'E' ? 1.0 : c === 'H' ? (annex === 'UK' ? 0.7 : 0) : 0.7);
@@ -31,8 +39,12 @@ function kFactor(lower: Fixity | 'free', upper: Fixity | 'free'): number {
   if (upper === 'free') return 2.0;
   const ends = [lower, upper].sort().join('–');
   const table: Record<string, number> = {
-    'pinned–pinned': 1.0, 'partial–pinned': 1.0, 'partial–partial': 0.85,
-    'fixed–pinned': 0.85, 'fixed–partial': 0.85, 'fixed–fixed': 0.7,
+    'pinned–pinned': 1.0,
+    'partial–pinned': 1.0,
+    'partial–partial': 0.85,
+    'fixed–pinned': 0.85,
+    'fixed–partial': 0.85,
+    'fixed–fixed': 0.7,
   };
   return table[ends]!;
 }
@@ -73,7 +85,14 @@ function generator(seed: number) {
   return { next, pick: <T>(items: readonly T[]): T => items[Math.floor(next() * items.length)]! };
 }
 
-const SECTIONS = ['UKC 203x203x46', 'UKC 254x254x89', 'UKC 305x305x118', 'HE 300 B', 'SHS 200x200x10', 'UKC 356x368x129'];
+const SECTIONS = [
+  'UKC 203x203x46',
+  'UKC 254x254x89',
+  'UKC 305x305x118',
+  'HE 300 B',
+  'SHS 200x200x10',
+  'UKC 356x368x129',
+];
 const FIXITIES: readonly Fixity[] = ['pinned', 'partial', 'fixed'];
 
 describe('analyseStack against an independent hand working of the analysis rules (invented stacks)', () => {
@@ -105,7 +124,12 @@ describe('analyseStack against an independent hand working of the analysis rules
       }
       const baseFixity = g.pick(FIXITIES);
       const capFixity: Fixity | 'free' = g.next() < 0.15 ? 'free' : g.pick(FIXITIES);
-      const cap = { fixity: capFixity, Gk: Math.round(g.next() * 100), Qk: Math.round(g.next() * 30), category: g.pick<Category>(['H', 'H', 'A']) };
+      const cap = {
+        fixity: capFixity,
+        Gk: Math.round(g.next() * 100),
+        Qk: Math.round(g.next() * 30),
+        category: g.pick<Category>(['H', 'H', 'A']),
+      };
       const options: AnalysisOptions = {
         annex: g.pick<Annex>(['UK', 'EN']),
         combination: g.pick<AnalysisOptions['combination']>(['6.10', '6.10ab']),
@@ -127,17 +151,28 @@ describe('analyseStack against an independent hand working of the analysis rules
       // Self-weight: section mass × 9.81 N/kg on the column below (docs/analysis-rules.md §Take-down)
       let bottom = 0;
       const weights = lifts.map((l) => {
-        const perMetre = options.selfWeight ? (sectionProperties(findSection(l.section as string)!.dims).massPerMetre * 9.81) / 1000 : 0;
+        const perMetre = options.selfWeight
+          ? (sectionProperties(findSection(l.section as string)!.dims).massPerMetre * 9.81) / 1000
+          : 0;
         const w = { bottom, top: l.top, perMetre };
         bottom = l.top;
         return w;
       });
-      const weightAbove = (z: number) => weights.reduce((s, w) => s + (w.top > z ? w.perMetre * (w.top - Math.max(z, w.bottom)) : 0), 0);
+      const weightAbove = (z: number) =>
+        weights.reduce((s, w) => s + (w.top > z ? w.perMetre * (w.top - Math.max(z, w.bottom)) : 0), 0);
       // The force below a floor is never less than above it (DEVELOPERS.md, engine conventions: αn steps)
-      const NEdAt = (z: number) => Math.max(designForce(z, entries, weightAbove(z), options), ...entries.filter((e) => e.elevation > z).map((e) => designForce(e.elevation + 1e-7, entries, weightAbove(e.elevation), options)));
+      const NEdAt = (z: number) =>
+        Math.max(
+          designForce(z, entries, weightAbove(z), options),
+          ...entries
+            .filter((e) => e.elevation > z)
+            .map((e) => designForce(e.elevation + 1e-7, entries, weightAbove(e.elevation), options)),
+        );
       const points = (axis: 'y' | 'z'): Point[] => [
         { elevation: 0, fixity: baseFixity },
-        ...floors.filter((f) => f.axes === 'both' || f.axes === axis).map((f) => ({ elevation: f.elevation, fixity: f.fixity ?? 'pinned' })),
+        ...floors
+          .filter((f) => f.axes === 'both' || f.axes === axis)
+          .map((f) => ({ elevation: f.elevation, fixity: f.fixity ?? 'pinned' })),
         { elevation: top, fixity: capFixity },
       ];
       const segmentOf = (axis: 'y' | 'z', middle: number) => {
@@ -156,15 +191,30 @@ describe('analyseStack against an independent hand working of the analysis rules
           const LcrZ = kFactor(sz.lower.fixity, sz.upper.fixity) * (sz.upper.elevation - sz.lower.elevation);
           // docs/analysis-rules.md §Pieces: the largest NEd of the lift's pieces inside the same segment
           const inSegment = (s: { lower: Point; upper: Point }) =>
-            Math.max(...lift.pieces.filter((q) => (q.from + q.to) / 2 > s.lower.elevation && (q.from + q.to) / 2 < s.upper.elevation).map((q) => NEdAt(q.from)));
+            Math.max(
+              ...lift.pieces
+                .filter((q) => (q.from + q.to) / 2 > s.lower.elevation && (q.from + q.to) / 2 < s.upper.elevation)
+                .map((q) => NEdAt(q.from)),
+            );
           const NEd = NEdAt(piece.from);
           const NEdY = inSegment(sy);
           const NEdZ = inSegment(sz);
           const check = checkCompression(
-            { section: spec.section!, grade: spec.grade!, LcrY: LcrY * 1000, LcrZ: LcrZ * 1000, NEd: Math.max(NEdY, NEdZ) * 1000, annex: options.annex },
+            {
+              section: spec.section!,
+              grade: spec.grade!,
+              LcrY: LcrY * 1000,
+              LcrZ: LcrZ * 1000,
+              NEd: Math.max(NEdY, NEdZ) * 1000,
+              annex: options.annex,
+            },
             { steps: false },
           );
-          const utilisation = Math.max((NEd * 1000) / check.NcRd, (NEdY * 1000) / check.NbRdY, (NEdZ * 1000) / check.NbRdZ);
+          const utilisation = Math.max(
+            (NEd * 1000) / check.NcRd,
+            (NEdY * 1000) / check.NbRdY,
+            (NEdZ * 1000) / check.NbRdZ,
+          );
           expect(piece.NEd).toBeCloseTo(NEd, 6);
           expect(piece.NEdY).toBeCloseTo(NEdY, 6);
           expect(piece.NEdZ).toBeCloseTo(NEdZ, 6);

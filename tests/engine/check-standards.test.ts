@@ -147,7 +147,8 @@ describe('catalogue rows against the handbook tables', () => {
   for (const [designation, A, I, Wpl, It] of HOLLOW) {
     it(`${designation} (EN 10210-2 corners 1.5t / 1.0t) gives A, I, Wpl and It within 1% of the table`, () => {
       const p = sectionProperties(dimsOf(designation));
-      const within = (actual: number, expected: number) => expect(Math.abs(actual / expected - 1)).toBeLessThanOrEqual(0.01);
+      const within = (actual: number, expected: number) =>
+        expect(Math.abs(actual / expected - 1)).toBeLessThanOrEqual(0.01);
       within(p.A / 1e2, A);
       within(p.Iy / 1e4, I);
       within(p.WplY / 1e3, Wpl);

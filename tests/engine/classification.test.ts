@@ -7,7 +7,8 @@ import { yieldStrength } from '../../shared/engine/yieldStrength.ts';
 import type { Grade, SectionDims } from '../../shared/schema/stack.ts';
 
 const dimsOf = (d: string): SectionDims => findSection(d)!.dims;
-const classIn = (designation: string, grade: Grade) => checkCompression({ section: designation, grade, LcrY: 1000, LcrZ: 1000, NEd: 0 });
+const classIn = (designation: string, grade: Grade) =>
+  checkCompression({ section: designation, grade, LcrY: 1000, LcrZ: 1000, NEd: 0 });
 
 describe('yieldStrength by thickness', () => {
   it('annex UK reads EN 10025-2 Table 7 for rolled sections and plates', () => {
@@ -51,13 +52,19 @@ describe('classification in compression (EN 1993-1-1 Table 5.2): the class chang
   it('UKC 203x203x46 flange: c/t = 8.0 is class 1 in S275 (9ε = 8.32) and class 2 in S355 (10ε = 8.14)', () => {
     // c = (203.6 − 7.2 − 2·10.2)/2 = 88.0 mm, c/tf = 88.0/11.0 = 8.00 (Table 5.2 sheet 2, hand arithmetic)
     expect(classIn('UKC 203x203x46', 'S275')).toMatchObject({ sectionClass: 1 });
-    expect(classIn('UKC 203x203x46', 'S355')).toMatchObject({ sectionClass: 2, classGoverningElement: 'flange outstand' });
+    expect(classIn('UKC 203x203x46', 'S355')).toMatchObject({
+      sectionClass: 2,
+      classGoverningElement: 'flange outstand',
+    });
   });
 
   it('UKC 152x152x23 flange: c/t = 9.65 is class 2 in S235 and class 3 in S275', () => {
     // c = (152.2 − 5.8 − 15.2)/2 = 65.6 mm, c/tf = 65.6/6.8 = 9.65; S275: 10ε = 9.24 < 9.65 ≤ 14ε = 12.9
     expect(classIn('UKC 152x152x23', 'S235')).toMatchObject({ sectionClass: 2 });
-    expect(classIn('UKC 152x152x23', 'S275')).toMatchObject({ sectionClass: 3, classGoverningElement: 'flange outstand' });
+    expect(classIn('UKC 152x152x23', 'S275')).toMatchObject({
+      sectionClass: 3,
+      classGoverningElement: 'flange outstand',
+    });
   });
 
   it('UKB 254x146x43 web: c/t = 30.4 is class 1 in S275 (33ε = 30.5) and class 2 in S355 (38ε = 30.9)', () => {

@@ -22,11 +22,18 @@ const doc = buildStack({
   ],
   cap: { Gk: 60, Qk: 20, category: 'H' },
 });
-const DETAIL: SpliceDetail = { plate: { width: 250, thickness: 12, grade: 'S275' }, bolts: { number: 4, diameter: 20, class: '8.8' } };
+const DETAIL: SpliceDetail = {
+  plate: { width: 250, thickness: 12, grade: 'S275' },
+  bolts: { number: 4, diameter: 20, class: '8.8' },
+};
 const detailed = (d: StackDocument, detail: SpliceDetail): StackDocument =>
   withNode(d, 'p1', (n) => (n.kind === 'splice' ? { ...n, data: { ...n.data, detail } } : n));
 const withBase = (d: StackDocument): StackDocument =>
-  withNode(d, 's', (n) => (n.kind === 'support' ? { ...n, data: { ...n.data, basePlate: { b: 400, l: 400, t: 25, grade: 'S275', grout: 40 } } } : n));
+  withNode(d, 's', (n) =>
+    n.kind === 'support'
+      ? { ...n, data: { ...n.data, basePlate: { b: 400, l: 400, t: 25, grade: 'S275', grout: 40 } } }
+      : n,
+  );
 
 describe('connections in the stack analysis', () => {
   it('keeps old documents valid and shows the new checks as not given', () => {
@@ -34,7 +41,13 @@ describe('connections in the stack analysis', () => {
     const result = analyseStack(doc);
     expect(result.errors).toEqual([]);
     expect(result.splices).toHaveLength(1);
-    expect(result.splices?.[0]).toMatchObject({ status: 'not-given', NtRd: null, tieForce: null, meetsTie: null, sameSerialSize: true });
+    expect(result.splices?.[0]).toMatchObject({
+      status: 'not-given',
+      NtRd: null,
+      tieForce: null,
+      meetsTie: null,
+      sameSerialSize: true,
+    });
     expect(result.base).toMatchObject({ status: 'not-given', tension: false });
   });
 
@@ -63,15 +76,24 @@ describe('connections in the stack analysis', () => {
     expect(strong?.NtRd).toBeCloseTo(752.64, 6);
     expect(strong).toMatchObject({ status: 'passes', meetsTie: true });
     // One M12 8.8 a flange: 2 × 0.6 × 800 × 84.3 / 1.25 = 64.7 kN < 160 kN
-    const weak = analyseStack(detailed(doc, { ...DETAIL, bolts: { number: 1, diameter: 12, class: '8.8' } }), { consequenceClass: '3' }).splices?.[0];
+    const weak = analyseStack(detailed(doc, { ...DETAIL, bolts: { number: 1, diameter: 12, class: '8.8' } }), {
+      consequenceClass: '3',
+    }).splices?.[0];
     expect(weak?.NtRd).toBeCloseTo((2 * 0.6 * 800 * 84.3) / 1.25 / 1e3, 6);
     expect(weak).toMatchObject({ status: 'fails', meetsTie: false });
     expect(weak?.notes.some((n) => n.includes('systematic risk assessment'))).toBe(true);
   });
 
   it('asks no tie in classes 1 and 2a, and calls an undetailed 2b splice unmet', () => {
-    expect(analyseStack(detailed(doc, DETAIL), { consequenceClass: '2a' }).splices?.[0]).toMatchObject({ tieForce: null, meetsTie: null, tension: 0 });
-    expect(analyseStack(doc, { consequenceClass: '2b' }).splices?.[0]).toMatchObject({ status: 'not-given', meetsTie: false });
+    expect(analyseStack(detailed(doc, DETAIL), { consequenceClass: '2a' }).splices?.[0]).toMatchObject({
+      tieForce: null,
+      meetsTie: null,
+      tension: 0,
+    });
+    expect(analyseStack(doc, { consequenceClass: '2b' }).splices?.[0]).toMatchObject({
+      status: 'not-given',
+      meetsTie: false,
+    });
   });
 });
 

@@ -1,6 +1,11 @@
 // Splice, base and tie checks against EN clauses and published tabulations, worked by hand below.
 import { describe, expect, it } from 'vitest';
-import { boltShearResistance, boltTensionResistance, holeDiameter, packingReduction } from '../../shared/engine/connections/boltResistance.ts';
+import {
+  boltShearResistance,
+  boltTensionResistance,
+  holeDiameter,
+  packingReduction,
+} from '../../shared/engine/connections/boltResistance.ts';
 import { checkBasePlate } from '../../shared/engine/connections/checkBasePlate.ts';
 import { designCompressiveStrength } from '../../shared/engine/connections/concreteStrength.ts';
 import { effectiveBearingArea, widthForArea } from '../../shared/engine/connections/effectiveBearingArea.ts';
@@ -61,12 +66,20 @@ describe('cover plates in tension, EN 1993-1-1 6.2.3', () => {
 
   it('gives a splice the lesser of its bolt group and its two plates', () => {
     // 4 bolts M20 8.8 a flange, no packs: 2 × 4 × 94 080 = 752 640 N; plates 2 × 912 168 = 1 824 336 N
-    const s = spliceTensionResistance({ plate: { width: 250, thickness: 15, grade: 'S275' }, bolts: { number: 4, diameter: 20, class: '8.8' } }, 0, 'UK');
+    const s = spliceTensionResistance(
+      { plate: { width: 250, thickness: 15, grade: 'S275' }, bolts: { number: 4, diameter: 20, class: '8.8' } },
+      0,
+      'UK',
+    );
     expect(s.boltGroup).toBeCloseTo(752_640, 6);
     expect(s.plates).toBeCloseTo(1_824_336, 6);
     expect(s.NtRd).toBeCloseTo(752_640, 6);
     // 10 mm packs: βp = 180/190, bolts 752 640 × 0.947368 = 713 027 N
-    const packed = spliceTensionResistance({ plate: { width: 250, thickness: 15, grade: 'S275' }, bolts: { number: 4, diameter: 20, class: '8.8' } }, 10, 'UK');
+    const packed = spliceTensionResistance(
+      { plate: { width: 250, thickness: 15, grade: 'S275' }, bolts: { number: 4, diameter: 20, class: '8.8' } },
+      10,
+      'UK',
+    );
     expect(packed.NtRd).toBeCloseTo((752_640 * 180) / 190, 3);
   });
 });
@@ -85,7 +98,12 @@ describe('vertical tie force, EN 1991-1-7 A.6', () => {
   });
 
   it('is asked for from consequence class 2b (EN 1991-1-7 A.4(1), A.6)', () => {
-    expect([needsVerticalTies('1'), needsVerticalTies('2a'), needsVerticalTies('2b'), needsVerticalTies('3')]).toEqual([false, false, true, true]);
+    expect([needsVerticalTies('1'), needsVerticalTies('2a'), needsVerticalTies('2b'), needsVerticalTies('3')]).toEqual([
+      false,
+      false,
+      true,
+      true,
+    ]);
   });
 });
 
@@ -109,7 +127,13 @@ describe('concrete and the base plate, EN 1992-1-1 3.1.6 and EN 1993-1-8 6.2.5',
     // Aeff: B = 254.6 + 2c = 366.27, L = 254.1 + 2c = 365.77 (both within the plate), flange strips tf + 2c = 125.87,
     // web 254.1 − 28.4 − 2c = 114.03 long and 8.6 + 2c = 120.27 wide: 2 × 366.27 × 125.87 + 114.03 × 120.27 = 105 917 mm²
     // Nj,Rd = 105 917 × 11.333 = 1 200 400 N
-    const check = checkBasePlate(800_000, UKC_254_73, { b: 400, l: 400, t: 20, grade: 'S275', grout: 30 }, 'C30/37', 'UK');
+    const check = checkBasePlate(
+      800_000,
+      UKC_254_73,
+      { b: 400, l: 400, t: 20, grade: 'S275', grout: 30 },
+      'C30/37',
+      'UK',
+    );
     expect(check.fjd).toBeCloseTo(34 / 3, 8);
     expect(check.c).toBeCloseTo(20 * Math.sqrt(265 / 34), 8);
     expect(check.c).toBeCloseTo(55.836, 2);
@@ -128,7 +152,13 @@ describe('concrete and the base plate, EN 1992-1-1 3.1.6 and EN 1993-1-8 6.2.5',
 
   it('flags a grout joint thicker than 0.2·min(b, l) and a plate too small for the force', () => {
     // 0.2 × 300 = 60 mm < 70 mm of grout; 300 × 300 × 11.333 = 1 020 000 N < 1 500 000 N
-    const check = checkBasePlate(1_500_000, UKC_254_73, { b: 300, l: 300, t: 40, grade: 'S355', grout: 70 }, 'C30/37', 'UK');
+    const check = checkBasePlate(
+      1_500_000,
+      UKC_254_73,
+      { b: 300, l: 300, t: 40, grade: 'S355', grout: 70 },
+      'C30/37',
+      'UK',
+    );
     expect(check.notes.some((n) => n.startsWith('The grout is thicker'))).toBe(true);
     expect(check.tRequired).toBeNull();
     expect(widthForArea(UKC_254_73, 300 * 300 + 1, { b: 300, l: 300 })).toBeNull();

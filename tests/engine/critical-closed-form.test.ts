@@ -84,7 +84,9 @@ describe('single span against Euler (Timoshenko & Gere, Theory of Elastic Stabil
   const L = 4;
 
   it('pinned–pinned: Ncr = π²EI/L² within 0.5 %', () => {
-    expect(Math.abs(alphaCr(column([{ L, N: 1 }], 'pinned', 'pinned')) / ((Math.PI ** 2 * EI) / L ** 2) - 1)).toBeLessThan(0.005);
+    expect(
+      Math.abs(alphaCr(column([{ L, N: 1 }], 'pinned', 'pinned')) / ((Math.PI ** 2 * EI) / L ** 2) - 1),
+    ).toBeLessThan(0.005);
   });
 
   it('fixed–pinned: k = 0.699 (first root of tan u = u is 4.4934) within 0.5 %', () => {
@@ -124,7 +126,19 @@ describe('single span against Euler (Timoshenko & Gere, Theory of Elastic Stabil
 describe('continuous columns', () => {
   it('two equal spans with equal forces, pinned at the ends and held at the middle: k = 1.0 for each span (within 0.5 %)', () => {
     // Each span buckles as a pinned–pinned column; the middle joint rotates freely (antisymmetric mode).
-    const k = kOf(alphaCr(column([{ L: 4, N: 1 }, { L: 4, N: 1 }], 'pinned', 'pinned')), 4);
+    const k = kOf(
+      alphaCr(
+        column(
+          [
+            { L: 4, N: 1 },
+            { L: 4, N: 1 },
+          ],
+          'pinned',
+          'pinned',
+        ),
+      ),
+      4,
+    );
     expect(Math.abs(k - 1)).toBeLessThan(0.005);
   });
 
@@ -133,21 +147,41 @@ describe('continuous columns', () => {
     // equilibrium (slope-deflection, far ends pinned): S(u1)·EI/L1 + S(u2)·EI/L2 = 0.
     const L1 = 4;
     const L2 = 3;
-    const f = (N: number): number => pinnedFarEnd(L1 * Math.sqrt((1.5 * N) / EI)) / L1 + pinnedFarEnd(L2 * Math.sqrt(N / EI)) / L2;
+    const f = (N: number): number =>
+      pinnedFarEnd(L1 * Math.sqrt((1.5 * N) / EI)) / L1 + pinnedFarEnd(L2 * Math.sqrt(N / EI)) / L2;
     const eulerLower = (Math.PI ** 2 * EI) / L1 ** 2 / 1.5;
     const N = firstRoot(f, 1, 3 * eulerLower);
     // Hand check of the bracket: the lower span alone (pinned–pinned) would buckle at N = eulerLower;
     // the shorter, lighter upper span restrains it, so N lies above it.
     expect(N).toBeGreaterThan(eulerLower);
-    const found = alphaCr(column([{ L: L1, N: 1.5 }, { L: L2, N: 1 }], 'pinned', 'pinned'));
+    const found = alphaCr(
+      column(
+        [
+          { L: L1, N: 1.5 },
+          { L: L2, N: 1 },
+        ],
+        'pinned',
+        'pinned',
+      ),
+    );
     expect(Math.abs(found / N - 1)).toBeLessThan(0.005);
   });
 
   it('two equal spans with a step in section (EI and 2EI): αcr from the same equation', () => {
     const L = 4;
-    const f = (N: number): number => (2 * EI * pinnedFarEnd(L * Math.sqrt(N / (2 * EI)))) / L + (EI * pinnedFarEnd(L * Math.sqrt(N / EI))) / L;
+    const f = (N: number): number =>
+      (2 * EI * pinnedFarEnd(L * Math.sqrt(N / (2 * EI)))) / L + (EI * pinnedFarEnd(L * Math.sqrt(N / EI))) / L;
     const N = firstRoot(f, 1, (4 * Math.PI ** 2 * EI) / L ** 2);
-    const found = alphaCr(column([{ L, N: 1, EI: 2 * EI }, { L, N: 1 }], 'pinned', 'pinned'));
+    const found = alphaCr(
+      column(
+        [
+          { L, N: 1, EI: 2 * EI },
+          { L, N: 1 },
+        ],
+        'pinned',
+        'pinned',
+      ),
+    );
     expect(Math.abs(found / N - 1)).toBeLessThan(0.005);
     // The weaker span alone would buckle at π²EI/L²; the stiffer one restrains it.
     expect(found).toBeGreaterThan((Math.PI ** 2 * EI) / L ** 2);
@@ -165,8 +199,26 @@ describe('what the analysis cannot solve', () => {
   });
 
   it('ignores a span in tension when another is compressed (tension only stiffens)', () => {
-    const alone = alphaCr(column([{ L: 4, N: 1 }, { L: 4, N: 0 }], 'pinned', 'pinned'));
-    const pulled = alphaCr(column([{ L: 4, N: 1 }, { L: 4, N: -1 }], 'pinned', 'pinned'));
+    const alone = alphaCr(
+      column(
+        [
+          { L: 4, N: 1 },
+          { L: 4, N: 0 },
+        ],
+        'pinned',
+        'pinned',
+      ),
+    );
+    const pulled = alphaCr(
+      column(
+        [
+          { L: 4, N: 1 },
+          { L: 4, N: -1 },
+        ],
+        'pinned',
+        'pinned',
+      ),
+    );
     expect(pulled).toBeGreaterThan(alone);
   });
 });

@@ -2,7 +2,14 @@
 // CholeskyDecomposition and EigenvalueDecomposition on the same matrices.
 import { CholeskyDecomposition, EigenvalueDecomposition, Matrix } from 'ml-matrix';
 import { describe, expect, it } from 'vitest';
-import { addBand, bandCholesky, bandMatrix, bandMultiply, solveLower, solveUpper } from '../../shared/engine/critical/bandMatrix.ts';
+import {
+  addBand,
+  bandCholesky,
+  bandMatrix,
+  bandMultiply,
+  solveLower,
+  solveUpper,
+} from '../../shared/engine/critical/bandMatrix.ts';
 import { largestEigenpair } from '../../shared/engine/critical/largestEigenpair.ts';
 
 /** A symmetric positive definite band matrix with half-bandwidth 3 (diagonally dominant), as band and dense. */

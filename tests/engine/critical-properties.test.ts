@@ -34,10 +34,17 @@ const alpha = (c: BeamColumn): number => {
   return s.alphaCr;
 };
 
-const spans = fc.array(fc.record({ L: fc.double({ min: 2.5, max: 6, noNaN: true }), N: fc.double({ min: 50, max: 5000, noNaN: true }), EI: fc.double({ min: 2000, max: 60000, noNaN: true }) }), {
-  minLength: 1,
-  maxLength: 6,
-});
+const spans = fc.array(
+  fc.record({
+    L: fc.double({ min: 2.5, max: 6, noNaN: true }),
+    N: fc.double({ min: 50, max: 5000, noNaN: true }),
+    EI: fc.double({ min: 2000, max: 60000, noNaN: true }),
+  }),
+  {
+    minLength: 1,
+    maxLength: 6,
+  },
+);
 
 describe('critical buckling properties', () => {
   it('αcr scales inversely with the forces (linear buckling)', () => {

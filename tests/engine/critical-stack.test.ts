@@ -26,8 +26,12 @@ describe('analyseStack with bucklingLengths: critical', () => {
     // EN 1990 eq. 6.10a/b with Qk = 0: NEd = 1.35·Gk (Table A1.2(B))
     expect(piece.NEd).toBeCloseTo(1.35 * 500, 9);
     // Euler, Ncr = π²EI/L² (Timoshenko & Gere, Theory of Elastic Stability, ch. 2; from memory)
-    expect(Math.abs(result.criticalBuckling.y.alphaCr / ((Math.PI ** 2 * EIy) / 16 / piece.NEd) - 1)).toBeLessThan(0.005);
-    expect(Math.abs(result.criticalBuckling.z.alphaCr / ((Math.PI ** 2 * EIz) / 16 / piece.NEd) - 1)).toBeLessThan(0.005);
+    expect(Math.abs(result.criticalBuckling.y.alphaCr / ((Math.PI ** 2 * EIy) / 16 / piece.NEd) - 1)).toBeLessThan(
+      0.005,
+    );
+    expect(Math.abs(result.criticalBuckling.z.alphaCr / ((Math.PI ** 2 * EIz) / 16 / piece.NEd) - 1)).toBeLessThan(
+      0.005,
+    );
     expect(Math.abs(piece.LcrY / 4 - 1)).toBeLessThan(0.005);
     expect(Math.abs(piece.kZ - 1)).toBeLessThan(0.005);
     expect(piece.tableKY).toBe(1);
@@ -61,7 +65,9 @@ describe('analyseStack with bucklingLengths: critical', () => {
   });
 
   it('takes k ≈ 0.699 with a fixed base and a pinned cap (table 0.85), without a warning', () => {
-    const result = solved(analyseStack(buildStack({ base: { fixity: 'fixed' }, lifts: [{ top: 4 }], cap: { Gk: 500 } }), CRITICAL));
+    const result = solved(
+      analyseStack(buildStack({ base: { fixity: 'fixed' }, lifts: [{ top: 4 }], cap: { Gk: 500 } }), CRITICAL),
+    );
     const piece = result.lifts[0].pieces[0];
     // fixed–pinned: first root of tan u = u, u = 4.4934, k = π/u (Timoshenko & Gere ch. 2; from memory)
     expect(Math.abs(piece.kY / (Math.PI / 4.4934) - 1)).toBeLessThan(0.005);
@@ -83,7 +89,9 @@ describe('analyseStack with bucklingLengths: critical', () => {
     const result = solved(analyseStack(doc, CRITICAL));
     const upper = result.lifts[1].pieces[0];
     expect(upper.kY).toBeGreaterThan(2);
-    expect(result.warnings.some((w) => w.nodeId === 'l2' && /longer buckling length about y-y/.test(w.message))).toBe(true);
+    expect(result.warnings.some((w) => w.nodeId === 'l2' && /longer buckling length about y-y/.test(w.message))).toBe(
+      true,
+    );
     expect(result.warnings.some((w) => w.nodeId === 'l1' && /longer buckling length/.test(w.message))).toBe(false);
   });
 
@@ -127,7 +135,15 @@ describe('analyseStack with bucklingLengths: critical', () => {
 });
 
 describe('the default leaves results as they were', () => {
-  const doc = buildStack({ base: { fixity: 'fixed' }, lifts: [{ top: 8 }, { top: 14 }], floors: [{ elevation: 4, Gk: 300, Qk: 100 }, { elevation: 8, Gk: 300, Qk: 100 }], cap: { Gk: 100, Qk: 20 } });
+  const doc = buildStack({
+    base: { fixity: 'fixed' },
+    lifts: [{ top: 8 }, { top: 14 }],
+    floors: [
+      { elevation: 4, Gk: 300, Qk: 100 },
+      { elevation: 8, Gk: 300, Qk: 100 },
+    ],
+    cap: { Gk: 100, Qk: 20 },
+  });
 
   it('is the same with no option and with tabulated factors, and carries no critical result', () => {
     const plain = analyseStack(doc);

@@ -44,7 +44,9 @@ describe('what a floor brings into a column', () => {
   });
 
   it('turning the web along y swaps flange and web faces', () => {
-    const l1 = stackFloorLoads(officeModel({ floors: ['L1'] }), { gridX: 'B', gridY: 'y2', webAlong: 'y' }, 7).get('L1')!;
+    const l1 = stackFloorLoads(officeModel({ floors: ['L1'] }), { gridX: 'B', gridY: 'y2', webAlong: 'y' }, 7).get(
+      'L1',
+    )!;
     expect(l1.faces.zPlus!.Gk).toBeCloseTo(5.5 * 14.0625, 9);
     expect(l1.faces.yPlus!.Gk).toBeCloseTo(5.5 * 12.65625, 9);
   });
@@ -84,7 +86,9 @@ describe('what a floor brings into a column', () => {
   });
 
   it('a stack off the grid gets nothing', () => {
-    expect(stackFloorLoads(officeModel({ floors: ['L1'] }), { gridX: null, gridY: null, webAlong: 'x' }, 1).size).toBe(0);
+    expect(stackFloorLoads(officeModel({ floors: ['L1'] }), { gridX: null, gridY: null, webAlong: 'x' }, 1).size).toBe(
+      0,
+    );
   });
 });
 
@@ -109,7 +113,10 @@ describe('αA, the reduction for the area carried (EN 1991-1-1 6.3.1.2(10))', ()
     const g = designAxialForce({ sumGk: 100, sumQk: { B: 100 }, loadedLevels: { B: 3 }, loadedArea: { B: 150 } }, UK);
     expect(g.combination).toBe('6.10b, leading B');
     // The EN annex gives columns αn alone (EN 1991-1-1 6.2.2(2)): 0.85·135 + 1.5·1.0·100 = 264.75 with ξ 0.85
-    const h = designAxialForce({ sumGk: 100, sumQk: { B: 100 }, loadedLevels: { B: 1 }, loadedArea: { B: 200 } }, { ...UK, annex: 'EN' });
+    const h = designAxialForce(
+      { sumGk: 100, sumQk: { B: 100 }, loadedLevels: { B: 1 }, loadedArea: { B: 200 } },
+      { ...UK, annex: 'EN' },
+    );
     expect(h.NEd).toBeCloseTo(264.75, 9);
   });
 });

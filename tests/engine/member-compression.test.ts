@@ -10,53 +10,81 @@ describe('checkCompression: Nb,Rd against hand-worked examples (EN 1993-1-1 6.3.
   // Each case works EN 1993-1-1 eq. 6.47–6.50 by hand from the handbook A and I (SCI P363 for UK and
   // hollow sections, EN 10365 for HE/IPE; from memory), E = 210 000 N/mm², γM1 = 1.0:
   // Ncr = π²EI/Lcr², λ̄ = √(A·fy/Ncr), Φ = 0.5[1 + α(λ̄ − 0.2) + λ̄²], χ = 1/(Φ + √(Φ² − λ̄²)), Nb,Rd = χ·A·fy.
-  const cases: ReadonlyArray<{ name: string; input: CompressionInput; axis: 'y' | 'z'; lambda: number; chi: number; NbRd: number }> = [
+  const cases: ReadonlyArray<{
+    name: string;
+    input: CompressionInput;
+    axis: 'y' | 'z';
+    lambda: number;
+    chi: number;
+    NbRd: number;
+  }> = [
     {
       // A = 5870 mm², Iz = 1548 cm⁴, fy = 355 (tf = 11), curve c (α 0.49):
       // Ncr = π²·210000·1548e4/4000² = 2 005 257 N; λ̄ = √(5870·355/2005257) = 1.0194; χ = 0.5288; Nb = 1 101 854 N
       name: 'UKC 203x203x46 S355, Lcr = 4.0 m, minor axis',
       input: { section: 'UKC 203x203x46', grade: 'S355', LcrY: 4000, LcrZ: 4000, NEd: 1e6 },
-      axis: 'z', lambda: 1.0194, chi: 0.5288, NbRd: 1_101_854,
+      axis: 'z',
+      lambda: 1.0194,
+      chi: 0.5288,
+      NbRd: 1_101_854,
     },
     {
       // Iy = 4568 cm⁴, curve b (α 0.34): Ncr = 5 917 321 N; λ̄ = 0.5934; χ = 0.8403; Nb = 1 751 146 N
       name: 'UKC 203x203x46 S355, Lcr = 4.0 m, major axis',
       input: { section: 'UKC 203x203x46', grade: 'S355', LcrY: 4000, LcrZ: 4000, NEd: 1e6 },
-      axis: 'y', lambda: 0.5934, chi: 0.8403, NbRd: 1_751_146,
+      axis: 'y',
+      lambda: 0.5934,
+      chi: 0.8403,
+      NbRd: 1_751_146,
     },
     {
       // A = 11 300 mm², Iz = 4857 cm⁴, fy = 265 (tf = 17.3 > 16, EN 10025-2), curve c:
       // Ncr = 4 026 680 N; λ̄ = 0.8624; χ = 0.6231; Nb = 1 865 931 N
       name: 'UKC 254x254x89 S275, Lcr = 5.0 m, minor axis, fy reduced by thickness',
       input: { section: 'UKC 254x254x89', grade: 'S275', LcrY: 5000, LcrZ: 5000, NEd: 1e6 },
-      axis: 'z', lambda: 0.8624, chi: 0.6231, NbRd: 1_865_931,
+      axis: 'z',
+      lambda: 0.8624,
+      chi: 0.6231,
+      NbRd: 1_865_931,
     },
     {
       // A = 14 910 mm², Iz = 8563 cm⁴, fy = 235 (Table 3.1, t ≤ 40), curve c:
       // Ncr = 4 929 950 N; λ̄ = 0.8430; χ = 0.6352; Nb = 2 225 529 N
       name: 'HE 300 B S235 under annex EN, Lcr = 6.0 m, minor axis',
       input: { section: 'HE 300 B', grade: 'S235', LcrY: 6000, LcrZ: 6000, NEd: 1e6, annex: 'EN' },
-      axis: 'z', lambda: 0.843, chi: 0.6352, NbRd: 2_225_529,
+      axis: 'z',
+      lambda: 0.843,
+      chi: 0.6352,
+      NbRd: 2_225_529,
     },
     {
       // A = 7490 mm², I = 4470 cm⁴, fy = 355, hot-finished curve a (α 0.21):
       // Ncr = 3 705 839 N; λ̄ = 0.8471; χ = 0.7677; Nb = 2 041 370 N
       name: 'SHS 200x200x10 S355, Lcr = 5.0 m',
       input: { section: 'SHS 200x200x10', grade: 'S355', LcrY: 5000, LcrZ: 5000, NEd: 1e6 },
-      axis: 'z', lambda: 0.8471, chi: 0.7677, NbRd: 2_041_370,
+      axis: 'z',
+      lambda: 0.8471,
+      chi: 0.7677,
+      NbRd: 2_041_370,
     },
     {
       // A = 5310 mm², I = 2960 cm⁴, curve a: Ncr = 3 834 341 N; λ̄ = 0.7012; χ = 0.8472; Nb = 1 597 005 N
       name: 'CHS 219.1x8.0 S355, Lcr = 4.0 m',
       input: { section: 'CHS 219.1x8.0', grade: 'S355', LcrY: 4000, LcrZ: 4000, NEd: 1e6 },
-      axis: 'y', lambda: 0.7012, chi: 0.8472, NbRd: 1_597_005,
+      axis: 'y',
+      lambda: 0.7012,
+      chi: 0.8472,
+      NbRd: 1_597_005,
     },
     {
       // A = 12 300 mm², Iz = 7308 cm⁴, fy = 460 (tf = 15.4 ≤ 16), S460 row of Table 6.2: curve a:
       // Ncr = 3 091 160 N; λ̄ = 1.3529; χ = 0.4417; Nb = 2 499 081 N
       name: 'UKC 305x305x97 S460, Lcr = 7.0 m, minor axis',
       input: { section: 'UKC 305x305x97', grade: 'S460', LcrY: 7000, LcrZ: 7000, NEd: 1e6 },
-      axis: 'z', lambda: 1.3529, chi: 0.4417, NbRd: 2_499_081,
+      axis: 'z',
+      lambda: 1.3529,
+      chi: 0.4417,
+      NbRd: 2_499_081,
     },
     {
       // IPE 300 in S275 is class 2 (web c/tw = 248.6/7.1 = 35.0 ≤ 38ε = 35.1); in S355 it would be class 4.
@@ -64,13 +92,19 @@ describe('checkCompression: Nb,Rd against hand-worked examples (EN 1993-1-1 6.3.
       // Ncr = 2 706 060 N; λ̄ = 0.7394; Φ = 0.8300; χ = 0.8285; Nb = 1 225 698 N
       name: 'IPE 300 S275, Lcr,y = 8.0 m, major axis',
       input: { section: 'IPE 300', grade: 'S275', LcrY: 8000, LcrZ: 2000, NEd: 1e6 },
-      axis: 'y', lambda: 0.7394, chi: 0.8285, NbRd: 1_225_698,
+      axis: 'y',
+      lambda: 0.7394,
+      chi: 0.8285,
+      NbRd: 1_225_698,
     },
     {
       // Iz = 603.8 cm⁴, curve b: Ncr = 3 128 615 N; λ̄ = 0.6877; Φ = 0.8194; χ = 0.7906; Nb = 1 169 732 N
       name: 'IPE 300 S275, Lcr,z = 2.0 m, minor axis',
       input: { section: 'IPE 300', grade: 'S275', LcrY: 8000, LcrZ: 2000, NEd: 1e6 },
-      axis: 'z', lambda: 0.6877, chi: 0.7906, NbRd: 1_169_732,
+      axis: 'z',
+      lambda: 0.6877,
+      chi: 0.7906,
+      NbRd: 1_169_732,
     },
   ];
 
@@ -101,7 +135,15 @@ describe('checkCompression: Nb,Rd against hand-worked examples (EN 1993-1-1 6.3.
 
   it('partial factors divide the resistances: Nc,Rd by γM0 and Nb,Rd by γM1', () => {
     const base = checkCompression({ section: 'HE 200 B', grade: 'S355', LcrY: 4000, LcrZ: 4000, NEd: 1e5 });
-    const factored = checkCompression({ section: 'HE 200 B', grade: 'S355', LcrY: 4000, LcrZ: 4000, NEd: 1e5, gammaM0: 1.05, gammaM1: 1.1 });
+    const factored = checkCompression({
+      section: 'HE 200 B',
+      grade: 'S355',
+      LcrY: 4000,
+      LcrZ: 4000,
+      NEd: 1e5,
+      gammaM0: 1.05,
+      gammaM1: 1.1,
+    });
     expect(factored.NcRd).toBeCloseTo(base.NcRd / 1.05, 6);
     expect(factored.NbRdZ).toBeCloseTo(base.NbRdZ / 1.1, 6);
   });
@@ -119,8 +161,20 @@ describe('checkCompression: utilisation and the buckling-may-be-ignored rule (EN
 
   it('χ = 1 when NEd/Ncr ≤ 0.04 and the reduction returns just above it', () => {
     const probe = checkCompression({ section: 'UKB 254x102x22', grade: 'S275', LcrY: 6000, LcrZ: 6000, NEd: 0 });
-    const at = checkCompression({ section: 'UKB 254x102x22', grade: 'S275', LcrY: 6000, LcrZ: 6000, NEd: 0.04 * probe.NcrZ });
-    const above = checkCompression({ section: 'UKB 254x102x22', grade: 'S275', LcrY: 6000, LcrZ: 6000, NEd: 0.041 * probe.NcrZ });
+    const at = checkCompression({
+      section: 'UKB 254x102x22',
+      grade: 'S275',
+      LcrY: 6000,
+      LcrZ: 6000,
+      NEd: 0.04 * probe.NcrZ,
+    });
+    const above = checkCompression({
+      section: 'UKB 254x102x22',
+      grade: 'S275',
+      LcrY: 6000,
+      LcrZ: 6000,
+      NEd: 0.041 * probe.NcrZ,
+    });
     expect(at.chiZ).toBe(1);
     expect(above.chiZ).toBeLessThan(0.5);
     expect(at.steps.find((s) => s.symbol === 'χz')?.clause).toBe('EN 1993-1-1 6.3.1.2(4)');
@@ -145,7 +199,30 @@ describe('checkCompression: working (steps)', () => {
   it('lists every intermediate value with a unit field and a clause', () => {
     const r = checkCompression({ section: 'UKC 254x254x73', grade: 'S355', LcrY: 5000, LcrZ: 3500, NEd: 1.2e6 });
     const symbols = r.steps.map((s) => s.symbol);
-    for (const s of ['A', 'Iy', 'Iz', 'fy', 'ε', 'class', 'curve y-y', 'curve z-z', 'αy', 'αz', 'Nc,Rd', 'Ncr,y', 'Ncr,z', 'λ̄y', 'λ̄z', 'Φy', 'Φz', 'χy', 'χz', 'Nb,y,Rd', 'Nb,z,Rd', 'utilisation']) {
+    for (const s of [
+      'A',
+      'Iy',
+      'Iz',
+      'fy',
+      'ε',
+      'class',
+      'curve y-y',
+      'curve z-z',
+      'αy',
+      'αz',
+      'Nc,Rd',
+      'Ncr,y',
+      'Ncr,z',
+      'λ̄y',
+      'λ̄z',
+      'Φy',
+      'Φz',
+      'χy',
+      'χz',
+      'Nb,y,Rd',
+      'Nb,z,Rd',
+      'utilisation',
+    ]) {
       expect(symbols).toContain(s);
     }
     for (const step of r.steps) {
@@ -180,13 +257,24 @@ describe('checkCompression: sections given by dimensions and company sections', 
   });
 
   it('a cold-formed SHS takes curve c and the EN 10219-1 yield strength', () => {
-    const r = checkCompression({ section: { shape: 'RHS', make: 'cold-formed', h: 150, b: 150, t: 8 }, grade: 'S355', LcrY: 4000, LcrZ: 4000, NEd: 1e6 });
+    const r = checkCompression({
+      section: { shape: 'RHS', make: 'cold-formed', h: 150, b: 150, t: 8 },
+      grade: 'S355',
+      LcrY: 4000,
+      LcrZ: 4000,
+      NEd: 1e6,
+    });
     expect([r.curveY, r.curveZ, r.fy]).toEqual(['c', 'c', 355]);
   });
 
   it('uses the building own section named in extraSections', () => {
-    const extra = new Map<string, SectionDims>([['Core column', { shape: 'I', make: 'welded', h: 500, b: 400, tw: 15, tf: 30, r: 0 }]]);
-    const r = checkCompression({ section: 'Core column', grade: 'S355', LcrY: 4000, LcrZ: 4000, NEd: 5e6 }, { extraSections: extra });
+    const extra = new Map<string, SectionDims>([
+      ['Core column', { shape: 'I', make: 'welded', h: 500, b: 400, tw: 15, tf: 30, r: 0 }],
+    ]);
+    const r = checkCompression(
+      { section: 'Core column', grade: 'S355', LcrY: 4000, LcrZ: 4000, NEd: 5e6 },
+      { extraSections: extra },
+    );
     expect(r.A).toBeCloseTo(2 * 400 * 30 + 440 * 15, 6);
   });
 });
@@ -203,10 +291,22 @@ describe('checkCompression: refuses bad input with a typed engine error', () => 
     ['an unknown grade', { grade: 'S690' as CompressionInput['grade'] }, 'invalid_input'],
     ['an unknown annex', { annex: 'US' as CompressionInput['annex'] }, 'invalid_input'],
     ['a partial factor below 1.0', { gammaM1: 0.9 }, 'invalid_input'],
-    ['impossible dimensions', { section: { shape: 'RHS', make: 'hot-finished', h: 100, b: 100, t: 40 } }, 'invalid_input'],
+    [
+      'impossible dimensions',
+      { section: { shape: 'RHS', make: 'hot-finished', h: 100, b: 100, t: 40 } },
+      'invalid_input',
+    ],
     ['a class 4 circular hollow section (EN 1993-1-6)', { section: 'CHS 508x10', grade: 'S460' }, 'unsupported'],
-    ['a welded section with class 4 flanges', { section: { shape: 'I', make: 'welded', h: 400, b: 400, tw: 10, tf: 8, r: 0 } }, 'unsupported'],
-    ['a cold-formed wall thicker than EN 10219-1 covers', { section: { shape: 'RHS', make: 'cold-formed', h: 500, b: 500, t: 45 } }, 'unsupported'],
+    [
+      'a welded section with class 4 flanges',
+      { section: { shape: 'I', make: 'welded', h: 400, b: 400, tw: 10, tf: 8, r: 0 } },
+      'unsupported',
+    ],
+    [
+      'a cold-formed wall thicker than EN 10219-1 covers',
+      { section: { shape: 'RHS', make: 'cold-formed', h: 500, b: 500, t: 45 } },
+      'unsupported',
+    ],
   ];
   for (const [what, change, code] of bad) {
     it(`${code} for ${what}`, () => {
@@ -224,7 +324,17 @@ describe('checkCompression: refuses bad input with a typed engine error', () => 
 
 describe('shared/engine/index.ts', () => {
   it('exports the contract names of the member check', () => {
-    for (const name of ['imperfectionFactor', 'reductionFactor', 'sectionProperties', 'checkCompression', 'yieldStrength', 'classifySection', 'effectiveArea', 'bucklingCurve', 'EngineError']) {
+    for (const name of [
+      'imperfectionFactor',
+      'reductionFactor',
+      'sectionProperties',
+      'checkCompression',
+      'yieldStrength',
+      'classifySection',
+      'effectiveArea',
+      'bucklingCurve',
+      'EngineError',
+    ]) {
       expect(typeof (engine as Record<string, unknown>)[name]).toBe('function');
     }
   });
@@ -232,7 +342,9 @@ describe('shared/engine/index.ts', () => {
 
 describe('checkCompression: memoised section data stays correct', () => {
   it("re-reads a building's own section when the map now holds other dimensions under that name", () => {
-    const sections = new Map<string, SectionDims>([['C1', { shape: 'I', make: 'welded', h: 400, b: 300, tw: 10, tf: 20, r: 0 }]]);
+    const sections = new Map<string, SectionDims>([
+      ['C1', { shape: 'I', make: 'welded', h: 400, b: 300, tw: 10, tf: 20, r: 0 }],
+    ]);
     const input: CompressionInput = { section: 'C1', grade: 'S355', LcrY: 4000, LcrZ: 4000, NEd: 1e6 };
     const before = checkCompression(input, { extraSections: sections });
     sections.set('C1', { shape: 'I', make: 'welded', h: 400, b: 300, tw: 10, tf: 25, r: 0 });
@@ -241,8 +353,20 @@ describe('checkCompression: memoised section data stays correct', () => {
   });
 
   it('keeps sections given by dimensions apart even when their designations round alike', () => {
-    const a = checkCompression({ section: { shape: 'CHS', make: 'hot-finished', d: 200, t: 8.001 }, grade: 'S355', LcrY: 3000, LcrZ: 3000, NEd: 1e5 });
-    const b = checkCompression({ section: { shape: 'CHS', make: 'hot-finished', d: 200, t: 8.004 }, grade: 'S355', LcrY: 3000, LcrZ: 3000, NEd: 1e5 });
+    const a = checkCompression({
+      section: { shape: 'CHS', make: 'hot-finished', d: 200, t: 8.001 },
+      grade: 'S355',
+      LcrY: 3000,
+      LcrZ: 3000,
+      NEd: 1e5,
+    });
+    const b = checkCompression({
+      section: { shape: 'CHS', make: 'hot-finished', d: 200, t: 8.004 },
+      grade: 'S355',
+      LcrY: 3000,
+      LcrZ: 3000,
+      NEd: 1e5,
+    });
     expect(b.A).toBeGreaterThan(a.A);
   });
 });
@@ -255,6 +379,8 @@ describe('checkCompression: the heaviest columns', () => {
   });
 
   it('UKC 356x406x900 is refused: h/b > 1.2 with tf > 100 mm has no row in Table 6.2', () => {
-    expect(() => checkCompression({ section: 'UKC 356x406x900', grade: 'S355', LcrY: 5000, LcrZ: 5000, NEd: 1e7 })).toThrow(/Table 6.2/);
+    expect(() =>
+      checkCompression({ section: 'UKC 356x406x900', grade: 'S355', LcrY: 5000, LcrZ: 5000, NEd: 1e7 }),
+    ).toThrow(/Table 6.2/);
   });
 });

@@ -42,13 +42,20 @@ describe('checkCompression invariants over the catalogue', () => {
 
   it('a longer member is never stronger about either axis', () => {
     fc.assert(
-      fc.property(designation, grade, length, fc.double({ min: 1, max: 3, noNaN: true }), force, (section, g, L, factor, NEd) => {
-        const short = tryCheck({ section, grade: g, LcrY: L, LcrZ: L, NEd });
-        const long = tryCheck({ section, grade: g, LcrY: L * factor, LcrZ: L * factor, NEd });
-        if (!short || !long) return;
-        expect(long.NbRdY).toBeLessThanOrEqual(short.NbRdY * (1 + 1e-12));
-        expect(long.NbRdZ).toBeLessThanOrEqual(short.NbRdZ * (1 + 1e-12));
-      }),
+      fc.property(
+        designation,
+        grade,
+        length,
+        fc.double({ min: 1, max: 3, noNaN: true }),
+        force,
+        (section, g, L, factor, NEd) => {
+          const short = tryCheck({ section, grade: g, LcrY: L, LcrZ: L, NEd });
+          const long = tryCheck({ section, grade: g, LcrY: L * factor, LcrZ: L * factor, NEd });
+          if (!short || !long) return;
+          expect(long.NbRdY).toBeLessThanOrEqual(short.NbRdY * (1 + 1e-12));
+          expect(long.NbRdZ).toBeLessThanOrEqual(short.NbRdZ * (1 + 1e-12));
+        },
+      ),
       { numRuns: 300 },
     );
   });

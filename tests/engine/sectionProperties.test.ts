@@ -42,7 +42,10 @@ describe('sectionProperties against handbook section tables (within 1%)', () => 
       const got = { A: p.A / 1e2, Iy: p.Iy / 1e4, Iz: p.Iz / 1e4, iy: p.iy / 10, iz: p.iz / 10 };
       const published = { A, Iy, Iz, iy, iz };
       for (const key of Object.keys(published) as Array<keyof typeof published>) {
-        expect(within(got[key], published[key]), `${key}: computed ${got[key].toFixed(2)}, published ${published[key]}`).toBe(true);
+        expect(
+          within(got[key], published[key]),
+          `${key}: computed ${got[key].toFixed(2)}, published ${published[key]}`,
+        ).toBe(true);
       }
     });
   }

@@ -10,7 +10,8 @@ import { pieceMoments } from '../../shared/engine/simple/pieceMoments.ts';
 import { DEFAULT_ANALYSIS_OPTIONS } from '../../shared/schema/results.ts';
 import type { SectionDims } from '../../shared/schema/stack.ts';
 
-const within = (actual: number, expected: number, tolerance = 0.01) => expect(Math.abs(actual / expected - 1)).toBeLessThanOrEqual(tolerance);
+const within = (actual: number, expected: number, tolerance = 0.01) =>
+  expect(Math.abs(actual / expected - 1)).toBeLessThanOrEqual(tolerance);
 
 // The method: NEd/Nb,min,Rd + My,Ed/Mb,Rd + 1.5·Mz,Ed/Mz,Rd ≤ 1 with λ̄LT = 0.9·λ̄z for rolled I/H columns and
 // χLT by EN 1993-1-1 6.3.2.3 (NCCI SN048b, verification of columns in simple construction, a simplified
@@ -37,10 +38,26 @@ describe('worked example: edge column in simple construction, UKC 254x254x73 S35
   const dims = sectionData(section).dims;
   const props = sectionData(section).props;
   const lifts = [{ bottom: 0, top: 9, dims, Iy: props.Iy, Iz: props.Iz }];
-  const floors = [{ nodeId: 'r1', elevation: 4.5, category: 'A' as const, faces: { yPlus: { Gk: 60, Qk: 40 }, zPlus: { Gk: 30, Qk: 20 }, zMinus: { Gk: 20, Qk: 15 } } }];
+  const floors = [
+    {
+      nodeId: 'r1',
+      elevation: 4.5,
+      category: 'A' as const,
+      faces: { yPlus: { Gk: 60, Qk: 40 }, zPlus: { Gk: 30, Qk: 20 }, zMinus: { Gk: 20, Qk: 15 } },
+    },
+  ];
   const [floor] = floorMoments(floors, lifts, 0, 9, DEFAULT_ANALYSIS_OPTIONS, '6.10b');
   const moments = pieceMoments(0, 4.5, [4.5], [floor]);
-  const result = checkSimpleColumn({ section, grade: 'S355', LcrY: 4500, LcrZ: 4500, NEdY: 1.5e6, NEdZ: 1.5e6, MyEd: moments.My * 1e6, MzEd: moments.Mz * 1e6 });
+  const result = checkSimpleColumn({
+    section,
+    grade: 'S355',
+    LcrY: 4500,
+    LcrZ: 4500,
+    NEdY: 1.5e6,
+    NEdZ: 1.5e6,
+    MyEd: moments.My * 1e6,
+    MzEd: moments.Mz * 1e6,
+  });
 
   it('finds the design reactions and the nominal moments at the floor', () => {
     within(floor.y.reaction.value, 134.925);
@@ -70,7 +87,8 @@ describe('worked example: edge column in simple construction, UKC 254x254x73 S35
 
   it('writes every value into the working with a reference', () => {
     const symbols = result.steps.map((s) => s.symbol);
-    for (const s of ['Nb,z,Rd', 'My,Ed', 'Mz,Ed', 'λ̄LT', 'χLT', 'Mb,Rd', 'Mz,Rd', 'utilisation']) expect(symbols).toContain(s);
+    for (const s of ['Nb,z,Rd', 'My,Ed', 'Mz,Ed', 'λ̄LT', 'χLT', 'Mb,Rd', 'Mz,Rd', 'utilisation'])
+      expect(symbols).toContain(s);
     for (const step of result.steps) expect(step.clause.length).toBeGreaterThan(0);
     expect(result.steps.find((s) => s.symbol === 'Mb,Rd')?.clause).toBe('EN 1993-1-1 eq. 6.55');
   });
@@ -80,7 +98,16 @@ describe('checkSimpleColumn: handbook resistances and limits', () => {
   it('gives Mb,Rd = Mc,y,Rd when λ̄LT ≤ 0.4, matching the SCI P363 tabulation for UKC 254x254x73 S355', () => {
     // SCI P363 (steel building design: design data), from memory: Mc,y,Rd = 352 kN·m, Mc,z,Rd = 165 kN·m.
     // Lcr = 2.0 m: λ̄z = 0.404, λ̄LT = 0.364 ≤ 0.4 → χLT = 1 (EN 1993-1-1 6.3.2.3, 6.3.2.2(4))
-    const r = checkSimpleColumn({ section: 'UKC 254x254x73', grade: 'S355', LcrY: 2000, LcrZ: 2000, NEdY: 1e6, NEdZ: 1e6, MyEd: 0, MzEd: 0 });
+    const r = checkSimpleColumn({
+      section: 'UKC 254x254x73',
+      grade: 'S355',
+      LcrY: 2000,
+      LcrZ: 2000,
+      NEdY: 1e6,
+      NEdZ: 1e6,
+      MyEd: 0,
+      MzEd: 0,
+    });
     expect(r.chiLT).toBe(1);
     within(r.MbRd, 352e6, 0.005);
     within(r.MzRd, 165e6, 0.005);
@@ -88,24 +115,64 @@ describe('checkSimpleColumn: handbook resistances and limits', () => {
 
   it('reduces to NEd/Nb,min,Rd with no moments', () => {
     const c = checkCompression({ section: 'UKC 203x203x46', grade: 'S355', LcrY: 4000, LcrZ: 4000, NEd: 8e5 });
-    const r = checkSimpleColumn({ section: 'UKC 203x203x46', grade: 'S355', LcrY: 4000, LcrZ: 4000, NEdY: 8e5, NEdZ: 8e5, MyEd: 0, MzEd: 0 });
+    const r = checkSimpleColumn({
+      section: 'UKC 203x203x46',
+      grade: 'S355',
+      LcrY: 4000,
+      LcrZ: 4000,
+      NEdY: 8e5,
+      NEdZ: 8e5,
+      MyEd: 0,
+      MzEd: 0,
+    });
     expect(r.utilisation).toBeCloseTo(8e5 / Math.min(c.NbRdY, c.NbRdZ), 12);
   });
 
   it('uses Wel for a class 3 section (EN 1993-1-1 eq. 6.14)', () => {
     // UKC 305x305x97 is class 3 in S355 compression (flange c/tf = 8.6 > 10ε = 8.14); SCI P363 (from memory):
     // Wel,z = 479 cm³ → Mz,Rd = 479e3·355 = 170.0 kN·m
-    const r = checkSimpleColumn({ section: 'UKC 305x305x97', grade: 'S355', LcrY: 3000, LcrZ: 3000, NEdY: 1e6, NEdZ: 1e6, MyEd: 1e7, MzEd: 1e6 });
+    const r = checkSimpleColumn({
+      section: 'UKC 305x305x97',
+      grade: 'S355',
+      LcrY: 3000,
+      LcrZ: 3000,
+      NEdY: 1e6,
+      NEdZ: 1e6,
+      MyEd: 1e7,
+      MzEd: 1e6,
+    });
     within(r.MzRd, 170.0e6, 0.01);
   });
 
   it('refuses a class 4 section', () => {
     const slender: SectionDims = { shape: 'I', make: 'welded', h: 800, b: 300, tw: 8, tf: 20, r: 0 };
-    expect(() => checkSimpleColumn({ section: slender, grade: 'S355', LcrY: 4000, LcrZ: 4000, NEdY: 1e6, NEdZ: 1e6, MyEd: 1e7, MzEd: 0 })).toThrow(/class 4/);
+    expect(() =>
+      checkSimpleColumn({
+        section: slender,
+        grade: 'S355',
+        LcrY: 4000,
+        LcrZ: 4000,
+        NEdY: 1e6,
+        NEdZ: 1e6,
+        MyEd: 1e7,
+        MzEd: 0,
+      }),
+    ).toThrow(/class 4/);
   });
 
   it('refuses a negative moment', () => {
-    expect(() => checkSimpleColumn({ section: 'UKC 203x203x46', grade: 'S355', LcrY: 4000, LcrZ: 4000, NEdY: 1e5, NEdZ: 1e5, MyEd: -1, MzEd: 0 })).toThrow(EngineError);
+    expect(() =>
+      checkSimpleColumn({
+        section: 'UKC 203x203x46',
+        grade: 'S355',
+        LcrY: 4000,
+        LcrZ: 4000,
+        NEdY: 1e5,
+        NEdZ: 1e5,
+        MyEd: -1,
+        MzEd: 0,
+      }),
+    ).toThrow(EngineError);
   });
 });
 
@@ -113,7 +180,18 @@ describe('lateralTorsionalReduction by section shape', () => {
   const ltbOf = (section: string, Lcr: number) => {
     const { dims, props } = sectionData(section);
     const c = checkCompression({ section, grade: 'S355', LcrY: Lcr, LcrZ: Lcr, NEd: 1e6 });
-    return { ltb: lateralTorsionalReduction({ dims, props, fy: c.fy, Wy: props.WplY, lambdaBarZ: c.lambdaBarZ, Lcr, annex: 'UK' }), c };
+    return {
+      ltb: lateralTorsionalReduction({
+        dims,
+        props,
+        fy: c.fy,
+        Wy: props.WplY,
+        lambdaBarZ: c.lambdaBarZ,
+        Lcr,
+        annex: 'UK',
+      }),
+      c,
+    };
   };
 
   it('takes χLT = 1 for square and circular hollow sections (EN 1993-1-1 6.3.2.1(2))', () => {
@@ -134,7 +212,11 @@ describe('lateralTorsionalReduction by section shape', () => {
     // EN 1993-1-1 6.3.2.2(2) with Mcr = π²EIz/L²·√(Iw/Iz + L²GIt/(π²EIz)), C1 = 1, SCI P363 properties for
     // UKC 254x254x73 (from memory: Iz 3 910 cm⁴, It 57.6 cm⁴, Iw 0.562 dm⁶): at 3.0, 4.5 and 6.0 m the elastic
     // λ̄LT is 0.529, 0.739 and 0.914 against 0.9·λ̄z = 0.545, 0.818 and 1.091
-    for (const [L, elastic] of [[3000, 0.529], [4500, 0.739], [6000, 0.914]] as const) {
+    for (const [L, elastic] of [
+      [3000, 0.529],
+      [4500, 0.739],
+      [6000, 0.914],
+    ] as const) {
       const { ltb } = ltbOf('UKC 254x254x73', L);
       expect(ltb.lambdaBarLT).toBeGreaterThan(elastic);
     }
@@ -145,7 +227,15 @@ describe('lateralTorsionalReduction by section shape', () => {
     const welded: SectionDims = { shape: 'I', make: 'welded', h: 400, b: 300, tw: 12, tf: 20, r: 0 };
     const { dims, props } = sectionData(welded);
     const c = checkCompression({ section: welded, grade: 'S355', LcrY: 5000, LcrZ: 5000, NEd: 1e6 });
-    const ltb = lateralTorsionalReduction({ dims, props, fy: c.fy, Wy: props.WplY, lambdaBarZ: c.lambdaBarZ, Lcr: 5000, annex: 'EN' });
+    const ltb = lateralTorsionalReduction({
+      dims,
+      props,
+      fy: c.fy,
+      Wy: props.WplY,
+      lambdaBarZ: c.lambdaBarZ,
+      Lcr: 5000,
+      annex: 'EN',
+    });
     expect(ltb.lambdaBarLT).toBe(c.lambdaBarZ);
     expect(ltb.curve).toBe('c');
     expect(ltb.chiLT).toBeCloseTo(reductionFactor(c.lambdaBarZ, 'c'), 12);

@@ -22,8 +22,14 @@ describe('reactionEccentricity: reaction 100 mm from the face', () => {
   });
 
   it('puts a hollow section’s side-wall reactions at b/2 + 100, and a tube’s at d/2 + 100', () => {
-    expect(reactionEccentricity({ shape: 'RHS', make: 'hot-finished', h: 300, b: 200, t: 10 })).toEqual({ y: 250, z: 200 });
-    expect(reactionEccentricity({ shape: 'CHS', make: 'hot-finished', d: 219.1, t: 8 })).toEqual({ y: 209.55, z: 209.55 });
+    expect(reactionEccentricity({ shape: 'RHS', make: 'hot-finished', h: 300, b: 200, t: 10 })).toEqual({
+      y: 250,
+      z: 200,
+    });
+    expect(reactionEccentricity({ shape: 'CHS', make: 'hot-finished', d: 219.1, t: 8 })).toEqual({
+      y: 209.55,
+      z: 209.55,
+    });
   });
 });
 
@@ -128,13 +134,17 @@ describe('floorMoments and pieceMoments on a column by hand', () => {
 
 describe('faceWarnings', () => {
   it('warns when the face reactions add up to more than the load the floor brings in', () => {
-    const issues = faceWarnings([{ nodeId: 'r1', elevation: 4, Gk: 100, Qk: 50, faces: { yPlus: { Gk: 60, Qk: 30 }, zMinus: { Gk: 50, Qk: 10 } } }]);
+    const issues = faceWarnings([
+      { nodeId: 'r1', elevation: 4, Gk: 100, Qk: 50, faces: { yPlus: { Gk: 60, Qk: 30 }, zMinus: { Gk: 50, Qk: 10 } } },
+    ]);
     expect(issues).toHaveLength(1);
     expect(issues[0].nodeId).toBe('r1');
     expect(issues[0].message).toContain('+4.000');
   });
 
   it('is silent when the faces are a part of the floor load', () => {
-    expect(faceWarnings([{ nodeId: 'r1', elevation: 4, Gk: 100, Qk: 50, faces: { yPlus: { Gk: 60, Qk: 30 } } }])).toEqual([]);
+    expect(
+      faceWarnings([{ nodeId: 'r1', elevation: 4, Gk: 100, Qk: 50, faces: { yPlus: { Gk: 60, Qk: 30 } } }]),
+    ).toEqual([]);
   });
 });

@@ -3,13 +3,22 @@ import { NO_FACE_REACTIONS_NOTE } from '../../shared/engine/simple/applyNominalM
 import { analyseStack } from '../../shared/engine/stack/analyseStack.ts';
 import { stackFromTemplate } from '../../shared/ops/stackFromTemplate.ts';
 import type { PieceCheck, StackResult } from '../../shared/schema/results.ts';
-import { restraintDataSchema, stackDocumentSchema, type RestraintFaces, type StackDocument } from '../../shared/schema/stack.ts';
+import {
+  restraintDataSchema,
+  stackDocumentSchema,
+  type RestraintFaces,
+  type StackDocument,
+} from '../../shared/schema/stack.ts';
 import { DEMO_STACKS } from '../../seeds/demo.ts';
 import { buildStack, withNode } from './stack-builder.ts';
 
 // Two storeys of 4.5 m, UKC 254x254x73 S355 throughout, floor at +4.5 with 150/60 kN, roof cap 100/40 kN
 // (invented). The combined-check formulas themselves are checked by hand in simple-combined.test.ts.
-const base = buildStack({ lifts: [{ top: 9, section: 'UKC 254x254x73' }], floors: [{ elevation: 4.5, Gk: 150, Qk: 60 }], cap: { Gk: 100, Qk: 40, category: 'H' } });
+const base = buildStack({
+  lifts: [{ top: 9, section: 'UKC 254x254x73' }],
+  floors: [{ elevation: 4.5, Gk: 150, Qk: 60 }],
+  cap: { Gk: 100, Qk: 40, category: 'H' },
+});
 const withFaces = (doc: StackDocument, faces: RestraintFaces): StackDocument =>
   withNode(doc, 'r1', (n) => (n.kind === 'restraint' ? { ...n, data: { ...n.data, faces } } : n));
 const EDGE_FACES: RestraintFaces = { yPlus: { Gk: 60, Qk: 40 }, zPlus: { Gk: 30, Qk: 20 }, zMinus: { Gk: 20, Qk: 15 } };
@@ -18,7 +27,18 @@ const EDGE_FACES: RestraintFaces = { yPlus: { Gk: 60, Qk: 40 }, zPlus: { Gk: 30,
 function axialFields(result: StackResult) {
   return {
     takeDown: result.takeDown,
-    pieces: result.lifts.flatMap((l) => l.pieces.map((p: PieceCheck) => ({ NEd: p.NEd, NEdY: p.NEdY, NEdZ: p.NEdZ, LcrY: p.LcrY, LcrZ: p.LcrZ, NbRdY: p.check.NbRdY, NbRdZ: p.check.NbRdZ, axial: p.axialUtilisation ?? p.utilisation }))),
+    pieces: result.lifts.flatMap((l) =>
+      l.pieces.map((p: PieceCheck) => ({
+        NEd: p.NEd,
+        NEdY: p.NEdY,
+        NEdZ: p.NEdZ,
+        LcrY: p.LcrY,
+        LcrZ: p.LcrZ,
+        NbRdY: p.check.NbRdY,
+        NbRdZ: p.check.NbRdZ,
+        axial: p.axialUtilisation ?? p.utilisation,
+      })),
+    ),
   };
 }
 
@@ -66,8 +86,14 @@ describe('analyseStack with nominal moments', () => {
       // 134.925 kN × 227.05 mm / 2 and 42.4875 kN × 104.3 mm / 2 (worked in simple-combined.test.ts)
       expect(p.combined?.MyEd).toBeCloseTo(15.317e6, -4);
       expect(p.combined?.MzEd).toBeCloseTo(2.2157e6, -3);
-      expect(p.combined?.axialTerm).toBeCloseTo(Math.max((p.NEdY * 1000) / p.check.NbRdY, (p.NEdZ * 1000) / p.check.NbRdZ), 12);
-      expect(p.utilisation).toBeCloseTo(Math.max(p.axialUtilisation ?? p.utilisation, p.combined?.utilisation ?? 0), 12);
+      expect(p.combined?.axialTerm).toBeCloseTo(
+        Math.max((p.NEdY * 1000) / p.check.NbRdY, (p.NEdZ * 1000) / p.check.NbRdZ),
+        12,
+      );
+      expect(p.utilisation).toBeCloseTo(
+        Math.max(p.axialUtilisation ?? p.utilisation, p.combined?.utilisation ?? 0),
+        12,
+      );
     }
   });
 
@@ -86,7 +112,10 @@ describe('analyseStack with nominal moments', () => {
   it('does not carry a floor’s moment past the next floor', () => {
     const three = buildStack({
       lifts: [{ top: 12, section: 'UKC 254x254x73' }],
-      floors: [{ elevation: 4, Gk: 150, Qk: 60 }, { elevation: 8, Gk: 150, Qk: 60 }],
+      floors: [
+        { elevation: 4, Gk: 150, Qk: 60 },
+        { elevation: 8, Gk: 150, Qk: 60 },
+      ],
     });
     const doc = withFaces(three, { yPlus: { Gk: 60, Qk: 40 } });
     const pieces = analyseStack(doc).lifts[0].pieces;

@@ -24,8 +24,11 @@ const within = (actual: number | undefined, expected: number, tolerance = 0.01) 
   expect(Math.abs((actual as number) / expected - 1)).toBeLessThanOrEqual(tolerance);
 };
 const facesOn = (doc: StackDocument, id: string, faces: RestraintFaces): StackDocument =>
-  withNode(doc, id, (n) => (n.kind === 'restraint' || n.kind === 'cap' ? ({ ...n, data: { ...n.data, faces } } as typeof n) : n));
-const pieceAt = (pieces: readonly PieceCheck[], from: number): PieceCheck => pieces.find((p) => Math.abs(p.from - from) < 1e-9)!;
+  withNode(doc, id, (n) =>
+    n.kind === 'restraint' || n.kind === 'cap' ? ({ ...n, data: { ...n.data, faces } } as typeof n) : n,
+  );
+const pieceAt = (pieces: readonly PieceCheck[], from: number): PieceCheck =>
+  pieces.find((p) => Math.abs(p.from - from) < 1e-9)!;
 
 describe('a splice just above the floor: the storey above is mostly the light upper section', () => {
   // Support +0.000 pinned; floor +4.000 (Gk 250, Qk 180, category A) carried by one beam on the y+ flange
@@ -46,7 +49,14 @@ describe('a splice just above the floor: the storey above is mostly the light up
   //   With the equal share it was 0.3145 + 66.09/301.43 = 0.534: the issue's "about 0.71 where the engine
   //   showed 0.53" is borne out for this layout.
   const doc = facesOn(
-    buildStack({ lifts: [{ top: 4.5, section: 'UKC 254x254x73' }, { top: 8, section: 'UKC 152x152x23' }], floors: [{ elevation: 4, Gk: 250, Qk: 180 }], cap: { Gk: 60, Qk: 20, category: 'H' } }),
+    buildStack({
+      lifts: [
+        { top: 4.5, section: 'UKC 254x254x73' },
+        { top: 8, section: 'UKC 152x152x23' },
+      ],
+      floors: [{ elevation: 4, Gk: 250, Qk: 180 }],
+      cap: { Gk: 60, Qk: 20, category: 'H' },
+    }),
     'r1',
     { yPlus: { Gk: 250, Qk: 180 } },
   );
@@ -92,7 +102,10 @@ describe('a lateral-only tie inside the storey does not end it', () => {
   const doc = facesOn(
     buildStack({
       lifts: [{ top: 8, section: 'UKC 254x254x73' }],
-      floors: [{ elevation: 4, Gk: 250, Qk: 180 }, { elevation: 6, id: 'tie' }],
+      floors: [
+        { elevation: 4, Gk: 250, Qk: 180 },
+        { elevation: 6, id: 'tie' },
+      ],
       cap: { Gk: 60, Qk: 20, category: 'H' },
     }),
     'r1',
@@ -132,7 +145,11 @@ describe('roof beams on the cap', () => {
   // 107.18/1 102.6 + 21.153/132.32 = 0.0972 + 0.1599 = 0.257 (6.10a: 104.44/1 102.6 + 20.563/132.32 = 0.250).
   // The storey below carries about 0.13 axially, so the top storey governs the lift and keeps its working.
   const doc = facesOn(
-    buildStack({ lifts: [{ top: 8, section: 'UKC 203x203x46' }], floors: [{ elevation: 4, Gk: 20, Qk: 10 }], cap: { Gk: 60, Qk: 20, category: 'H' } }),
+    buildStack({
+      lifts: [{ top: 8, section: 'UKC 203x203x46' }],
+      floors: [{ elevation: 4, Gk: 20, Qk: 10 }],
+      cap: { Gk: 60, Qk: 20, category: 'H' },
+    }),
     'c',
     { yPlus: { Gk: 60, Qk: 20 } },
   );
@@ -158,10 +175,25 @@ describe('roof beams on the cap', () => {
   });
 
   it('finds the roof moment with the cap as the end of the top storey', () => {
-    const lifts = [{ bottom: 0, top: 8, dims: { shape: 'I' as const, make: 'rolled' as const, h: 203.2, b: 203.6, tw: 7.2, tf: 11, r: 10.2 }, Iy: 4570e4, Iz: 1550e4 }];
+    const lifts = [
+      {
+        bottom: 0,
+        top: 8,
+        dims: { shape: 'I' as const, make: 'rolled' as const, h: 203.2, b: 203.6, tw: 7.2, tf: 11, r: 10.2 },
+        Iy: 4570e4,
+        Iz: 1550e4,
+      },
+    ];
     const floors = [
       { nodeId: 'r1', elevation: 4, category: 'A' as const, loaded: true },
-      { nodeId: 'c', elevation: 8, category: 'H' as const, loaded: true, cap: true, faces: { yPlus: { Gk: 60, Qk: 20 } } },
+      {
+        nodeId: 'c',
+        elevation: 8,
+        category: 'H' as const,
+        loaded: true,
+        cap: true,
+        faces: { yPlus: { Gk: 60, Qk: 20 } },
+      },
     ];
     const [m] = floorMoments(floors, lifts, 0, 8, DEFAULT_ANALYSIS_OPTIONS, '6.10a');
     expect(m.cap).toBe(true);
@@ -188,7 +220,11 @@ describe('the combined check takes NEd and the reactions from the same combinati
   //   6.10b: 1 576.1/2 172.3 + 19.864/301.43 = 0.7256 + 0.0659 = 0.791 → 6.10a governs, 0.806
   //   Mixing 6.10a's NEd with 6.10b's reaction gave 0.7561 + 0.0659 = 0.822.
   const doc = facesOn(
-    buildStack({ lifts: [{ top: 8, section: 'UKC 254x254x73' }], floors: [{ elevation: 4, Gk: 100, Qk: 100 }], cap: { Gk: 1000, Qk: 50, category: 'H' } }),
+    buildStack({
+      lifts: [{ top: 8, section: 'UKC 254x254x73' }],
+      floors: [{ elevation: 4, Gk: 100, Qk: 100 }],
+      cap: { Gk: 1000, Qk: 50, category: 'H' },
+    }),
     'r1',
     { yPlus: { Gk: 20, Qk: 100 } },
   );

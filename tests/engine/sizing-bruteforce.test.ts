@@ -6,7 +6,15 @@ import { analyseStack, sizeStack, sizingCandidates } from '../../shared/engine/i
 import { serialSize } from '../../shared/engine/sizing/serialSize.ts';
 import { request, tallTopStack, withSections } from './sizing-helpers.ts';
 
-const ALLOWED = ['UKC 152x152x23', 'UKC 152x152x30', 'UKC 152x152x37', 'UKC 152x152x44', 'UKC 203x203x46', 'UKC 203x203x52', 'UKC 254x254x73'];
+const ALLOWED = [
+  'UKC 152x152x23',
+  'UKC 152x152x30',
+  'UKC 152x152x37',
+  'UKC 152x152x44',
+  'UKC 203x203x46',
+  'UKC 203x203x52',
+  'UKC 254x254x73',
+];
 const MASS = new Map(sizingCandidates('UKC', ALLOWED).map((c) => [c.designation, c.massPerMetre]));
 const LENGTHS = [3, 3, 7];
 
@@ -18,12 +26,14 @@ interface Assignment {
 function everyAssignment(): Assignment[] {
   const doc = tallTopStack();
   const all: Assignment[] = [];
-  for (const a of ALLOWED) for (const b of ALLOWED) for (const c of ALLOWED) {
-    const sections = [a, b, c];
-    const result = analyseStack(withSections(doc, sections));
-    expect(result.errors).toEqual([]);
-    all.push({ sections, worst: Math.max(...result.lifts.map((l) => l.utilisation)) });
-  }
+  for (const a of ALLOWED)
+    for (const b of ALLOWED)
+      for (const c of ALLOWED) {
+        const sections = [a, b, c];
+        const result = analyseStack(withSections(doc, sections));
+        expect(result.errors).toEqual([]);
+        all.push({ sections, worst: Math.max(...result.lifts.map((l) => l.utilisation)) });
+      }
   return all;
 }
 
@@ -40,34 +50,42 @@ const RULES = [
   { noUpwardIncrease: true, sameSerialSize: true },
 ];
 
-describe.each(RULES.flatMap((r) => [1, 0.95, 0.9, 0.8, 0.7].map((target) => ({ ...r, target }))))('sizing by brute force with %o', (rules) => {
-  const keeps = (sections: readonly string[]) => (!rules.noUpwardIncrease || noUpward(sections)) && (!rules.sameSerialSize || oneSerial(sections));
-  const feasible = ALL.filter((a) => a.worst <= rules.target && keeps(a.sections));
-  const sizing = sizeStack(tallTopStack(), request({ ...rules, allowed: ALLOWED }));
-  const proposed = sizing.lifts.map((l) => l.after?.section ?? '');
+describe.each(RULES.flatMap((r) => [1, 0.95, 0.9, 0.8, 0.7].map((target) => ({ ...r, target }))))(
+  'sizing by brute force with %o',
+  (rules) => {
+    const keeps = (sections: readonly string[]) =>
+      (!rules.noUpwardIncrease || noUpward(sections)) && (!rules.sameSerialSize || oneSerial(sections));
+    const feasible = ALL.filter((a) => a.worst <= rules.target && keeps(a.sections));
+    const sizing = sizeStack(tallTopStack(), request({ ...rules, allowed: ALLOWED }));
+    const proposed = sizing.lifts.map((l) => l.after?.section ?? '');
 
-  it('finds a proposal exactly when some assignment passes and keeps the rules', () => {
-    expect(sizing.complete).toBe(feasible.length > 0);
-  });
+    it('finds a proposal exactly when some assignment passes and keeps the rules', () => {
+      expect(sizing.complete).toBe(feasible.length > 0);
+    });
 
-  it.runIf(feasible.length > 0)('proposes an assignment that passes and keeps the rules', () => {
-    expect(feasible.map((a) => a.sections.join())).toContain(proposed.join());
-  });
+    it.runIf(feasible.length > 0)('proposes an assignment that passes and keeps the rules', () => {
+      expect(feasible.map((a) => a.sections.join())).toContain(proposed.join());
+    });
 
-  it.runIf(feasible.length > 0)('proposes the lightest column of all those assignments', () => {
-    const lightest = Math.min(...feasible.map((a) => total(a.sections)));
-    expect(total(proposed)).toBeCloseTo(lightest, 9);
-    expect(sizing.massAfter).toBeCloseTo(lightest, 9);
-  });
+    it.runIf(feasible.length > 0)('proposes the lightest column of all those assignments', () => {
+      const lightest = Math.min(...feasible.map((a) => total(a.sections)));
+      expect(total(proposed)).toBeCloseTo(lightest, 9);
+      expect(sizing.massAfter).toBeCloseTo(lightest, 9);
+    });
 
-  it.runIf(feasible.length > 0 && !rules.sameSerialSize)('gives every lift the lightest section any passing assignment gives it', () => {
-    masses(proposed).forEach((m, i) => expect(m).toBe(Math.min(...feasible.map((a) => masses(a.sections)[i]))));
-  });
-});
+    it.runIf(feasible.length > 0 && !rules.sameSerialSize)(
+      'gives every lift the lightest section any passing assignment gives it',
+      () => {
+        masses(proposed).forEach((m, i) => expect(m).toBe(Math.min(...feasible.map((a) => masses(a.sections)[i]))));
+      },
+    );
+  },
+);
 
 describe('the brute-force stack', () => {
   it('is one where each rule changes the lightest column', () => {
-    const best = (keep: (s: readonly string[]) => boolean) => Math.min(...ALL.filter((a) => a.worst <= 1 && keep(a.sections)).map((a) => total(a.sections)));
+    const best = (keep: (s: readonly string[]) => boolean) =>
+      Math.min(...ALL.filter((a) => a.worst <= 1 && keep(a.sections)).map((a) => total(a.sections)));
     const free = best(() => true);
     expect(best(noUpward)).toBeGreaterThan(free);
     expect(best(oneSerial)).toBeGreaterThan(free);

@@ -25,7 +25,9 @@ export function accepted(doc: StackDocument, sizing: StackSizing): StackDocument
     edges: doc.edges,
     nodes: doc.nodes.map((n) => {
       const row = sizing.lifts.find((l) => l.liftId === n.id);
-      return n.kind === 'lift' && row?.after ? { ...n, data: { ...n.data, section: row.after.section, grade: row.after.grade } } : n;
+      return n.kind === 'lift' && row?.after
+        ? { ...n, data: { ...n.data, section: row.after.section, grade: row.after.grade } }
+        : n;
     }),
   };
 }
@@ -48,6 +50,17 @@ export function tallTopStack(G = 150): StackDocument {
 
 /** Four two-storey lifts of 4 m storeys, office floors and a roof, a minor-axis-only floor at 12 m. */
 export function officeStack(): StackDocument {
-  const floors = [4, 8, 12, 16, 20, 24, 28].map((elevation) => ({ elevation, Gk: 120, Qk: 60, category: 'B' as const, axes: elevation === 12 ? ('z' as const) : ('both' as const) }));
-  return buildStack({ base: { fixity: 'fixed' }, lifts: [{ top: 8 }, { top: 16 }, { top: 24 }, { top: 32 }], floors, cap: { Gk: 60, Qk: 20, category: 'H' } });
+  const floors = [4, 8, 12, 16, 20, 24, 28].map((elevation) => ({
+    elevation,
+    Gk: 120,
+    Qk: 60,
+    category: 'B' as const,
+    axes: elevation === 12 ? ('z' as const) : ('both' as const),
+  }));
+  return buildStack({
+    base: { fixity: 'fixed' },
+    lifts: [{ top: 8 }, { top: 16 }, { top: 24 }, { top: 32 }],
+    floors,
+    cap: { Gk: 60, Qk: 20, category: 'H' },
+  });
 }

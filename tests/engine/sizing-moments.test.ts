@@ -12,14 +12,20 @@ import { buildStack } from './stack-builder.ts';
 
 /** Every restraint of the document with these face reactions. */
 function facesEverywhere(doc: StackDocument, faces: RestraintFaces): StackDocument {
-  return { edges: doc.edges, nodes: doc.nodes.map((n) => (n.kind === 'restraint' ? { ...n, data: { ...n.data, faces } } : n)) };
+  return {
+    edges: doc.edges,
+    nodes: doc.nodes.map((n) => (n.kind === 'restraint' ? { ...n, data: { ...n.data, faces } } : n)),
+  };
 }
 
 /** The office stack with edge-beam reactions on one flange and both web faces at every floor (invented). */
 function facedStack(): StackDocument {
   const doc = officeStack();
   const faces = { yPlus: { Gk: 80, Qk: 40 }, zPlus: { Gk: 20, Qk: 10 }, zMinus: { Gk: 20, Qk: 10 } };
-  return { edges: doc.edges, nodes: doc.nodes.map((n) => (n.kind === 'restraint' ? { ...n, data: { ...n.data, faces } } : n)) };
+  return {
+    edges: doc.edges,
+    nodes: doc.nodes.map((n) => (n.kind === 'restraint' ? { ...n, data: { ...n.data, faces } } : n)),
+  };
 }
 
 describe('sizing with nominal moments', () => {
@@ -43,7 +49,9 @@ describe('sizing with nominal moments', () => {
     const doc = facedStack();
     const withMoments = sizeStack(doc, request({ noUpwardIncrease: false }));
     const axialOnly = sizeStack(doc, request({ noUpwardIncrease: false }), { nominalMoments: false });
-    withMoments.lifts.forEach((row, i) => expect(row.after!.massPerMetre).toBeGreaterThanOrEqual(axialOnly.lifts[i].after!.massPerMetre));
+    withMoments.lifts.forEach((row, i) =>
+      expect(row.after!.massPerMetre).toBeGreaterThanOrEqual(axialOnly.lifts[i].after!.massPerMetre),
+    );
     expect(withMoments.massAfter!).toBeGreaterThan(axialOnly.massAfter!);
     const before = analyseStack(doc).lifts.map((l) => l.utilisation);
     withMoments.lifts.forEach((row, i) => expect(row.before.utilisation).toBeCloseTo(before[i], 9));
@@ -56,11 +64,22 @@ describe('sizing with nominal moments', () => {
 // shown to end where no single move — a lift a section lighter, alone or with a neighbour heavier —
 // lightens the column; these cases include ones where raising the failing lifts alone overshoots.)
 describe('sizing with nominal moments against every assignment of a small stack', () => {
-  const ALLOWED = ['UKC 152x152x23', 'UKC 152x152x30', 'UKC 152x152x37', 'UKC 152x152x44', 'UKC 203x203x46', 'UKC 203x203x52', 'UKC 254x254x73', 'UKC 254x254x89', 'UKC 305x305x97'];
+  const ALLOWED = [
+    'UKC 152x152x23',
+    'UKC 152x152x30',
+    'UKC 152x152x37',
+    'UKC 152x152x44',
+    'UKC 203x203x46',
+    'UKC 203x203x52',
+    'UKC 254x254x73',
+    'UKC 254x254x89',
+    'UKC 305x305x97',
+  ];
   const MASS = new Map(sizingCandidates('UKC', ALLOWED).map((c) => [c.designation, c.massPerMetre]));
   const LENGTHS = [3, 3, 7];
   const total = (sections: readonly string[]) => sections.reduce((sum, s, i) => sum + MASS.get(s)! * LENGTHS[i], 0);
-  const noUpward = (sections: readonly string[]) => sections.every((s, i) => i === 0 || MASS.get(s)! <= MASS.get(sections[i - 1])!);
+  const noUpward = (sections: readonly string[]) =>
+    sections.every((s, i) => i === 0 || MASS.get(s)! <= MASS.get(sections[i - 1])!);
   // Invented beam reactions, kN: on a flange, on the web, both, and a heavy one on each axis.
   const FACES = [
     { yPlus: { Gk: 30, Qk: 15 } },
@@ -77,10 +96,13 @@ describe('sizing with nominal moments against every assignment of a small stack'
   describe.each(cases)('floor load Gk $G kN, face reactions $faces', ({ G, faces }) => {
     const doc = withFaces(tallTopStack(G), faces);
     const worst: { sections: string[]; worst: number }[] = [];
-    for (const a of ALLOWED) for (const b of ALLOWED) for (const c of ALLOWED) {
-      const result = analyseStack(withSections(doc, [a, b, c]));
-      if (result.errors.length === 0) worst.push({ sections: [a, b, c], worst: Math.max(...result.lifts.map((l) => l.utilisation)) });
-    }
+    for (const a of ALLOWED)
+      for (const b of ALLOWED)
+        for (const c of ALLOWED) {
+          const result = analyseStack(withSections(doc, [a, b, c]));
+          if (result.errors.length === 0)
+            worst.push({ sections: [a, b, c], worst: Math.max(...result.lifts.map((l) => l.utilisation)) });
+        }
 
     it.each([
       { target: 1, noUpwardIncrease: false },
@@ -88,7 +110,9 @@ describe('sizing with nominal moments against every assignment of a small stack'
       { target: 0.9, noUpwardIncrease: false },
       { target: 0.9, noUpwardIncrease: true },
     ])('proposes the lightest passing assignment with %o', (rules) => {
-      const feasible = worst.filter((a) => a.worst <= rules.target && (!rules.noUpwardIncrease || noUpward(a.sections)));
+      const feasible = worst.filter(
+        (a) => a.worst <= rules.target && (!rules.noUpwardIncrease || noUpward(a.sections)),
+      );
       const sizing = sizeStack(doc, request({ ...rules, allowed: ALLOWED }));
       expect(sizing.complete).toBe(feasible.length > 0);
       if (feasible.length === 0) return;
@@ -106,7 +130,11 @@ describe('sizing with nominal moments where the lightest axial section is class 
   // One lift of SHS from +0.000 to +8.000, floor +4.000 (Gk 300, Qk 150, A) with a beam on one face
   // (Gk 20, Qk 10), roof cap Gk 300, Qk 75 (H). Invented loads, picked so that the axial proposal is class 4.
   const doc = facesEverywhere(
-    buildStack({ lifts: [{ top: 8, section: 'SHS 200x200x10' }], floors: [{ elevation: 4, Gk: 300, Qk: 150 }], cap: { Gk: 300, Qk: 75, category: 'H' } }),
+    buildStack({
+      lifts: [{ top: 8, section: 'SHS 200x200x10' }],
+      floors: [{ elevation: 4, Gk: 300, Qk: 150 }],
+      cap: { Gk: 300, Qk: 75, category: 'H' },
+    }),
     { yPlus: { Gk: 20, Qk: 10 } },
   );
   const shs = request({ series: 'SHS' });
@@ -138,8 +166,17 @@ describe('sizing with nominal moments where the lightest axial section is class 
 
   it('leaves class 4 open to a lift the moments do not reach', () => {
     // Faces only on the cap: the roof moment stays in the top storey (4–8 m, lift L2); L1 (0–4 m) is axial only.
-    const two = buildStack({ lifts: [{ top: 4 }, { top: 8 }], floors: [{ elevation: 4, Gk: 300, Qk: 150 }], cap: { Gk: 300, Qk: 75, category: 'H' } });
-    const capped = { edges: two.edges, nodes: two.nodes.map((n) => (n.kind === 'cap' ? { ...n, data: { ...n.data, faces: { yPlus: { Gk: 20, Qk: 10 } } } } : n)) };
+    const two = buildStack({
+      lifts: [{ top: 4 }, { top: 8 }],
+      floors: [{ elevation: 4, Gk: 300, Qk: 150 }],
+      cap: { Gk: 300, Qk: 75, category: 'H' },
+    });
+    const capped = {
+      edges: two.edges,
+      nodes: two.nodes.map((n) =>
+        n.kind === 'cap' ? { ...n, data: { ...n.data, faces: { yPlus: { Gk: 20, Qk: 10 } } } } : n,
+      ),
+    };
     const model = inspectStack(capped).model!;
     expect(liftsUnderMoments(capped, model, DEFAULT_ANALYSIS_OPTIONS)).toEqual([false, true]);
   });

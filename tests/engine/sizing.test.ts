@@ -28,27 +28,31 @@ describe('sizeStack', () => {
     sizeStack(doc, request()).lifts.forEach((row, i) => expect(row.before.utilisation).toBeCloseTo(before[i], 9));
   });
 
-  it.each([1, 0.95, 0.9, 0.85, 0.8, 0.7])('is minimal at a target of %s: no lighter section of the series passes in any lift, the others as proposed', (target) => {
-    const doc = officeStack();
-    const sizing = sizeStack(doc, request({ noUpwardIncrease: false, target }));
-    const proposed = sizing.lifts.map((l) => l.after!.section);
-    const series = sizingCandidates('UKC');
-    let tried = 0;
-    proposed.forEach((section, i) => {
-      const mass = series.find((c) => c.designation === section)!.massPerMetre;
-      for (const lighter of series.filter((c) => c.massPerMetre < mass)) {
-        const trial = [...proposed];
-        trial[i] = lighter.designation;
-        expect(utilisations(withSections(doc, trial))[i]).toBeGreaterThan(target);
-        tried++;
-      }
-    });
-    expect(tried).toBeGreaterThan(4);
-  });
+  it.each([1, 0.95, 0.9, 0.85, 0.8, 0.7])(
+    'is minimal at a target of %s: no lighter section of the series passes in any lift, the others as proposed',
+    (target) => {
+      const doc = officeStack();
+      const sizing = sizeStack(doc, request({ noUpwardIncrease: false, target }));
+      const proposed = sizing.lifts.map((l) => l.after!.section);
+      const series = sizingCandidates('UKC');
+      let tried = 0;
+      proposed.forEach((section, i) => {
+        const mass = series.find((c) => c.designation === section)!.massPerMetre;
+        for (const lighter of series.filter((c) => c.massPerMetre < mass)) {
+          const trial = [...proposed];
+          trial[i] = lighter.designation;
+          expect(utilisations(withSections(doc, trial))[i]).toBeGreaterThan(target);
+          tried++;
+        }
+      });
+      expect(tried).toBeGreaterThan(4);
+    },
+  );
 
   it('with no upward increase never proposes a lift heavier than the lift below it, and without it may', () => {
     const doc = tallTopStack();
-    const mass = (noUpwardIncrease: boolean) => sizeStack(doc, request({ noUpwardIncrease })).lifts.map((l) => l.after!.massPerMetre);
+    const mass = (noUpwardIncrease: boolean) =>
+      sizeStack(doc, request({ noUpwardIncrease })).lifts.map((l) => l.after!.massPerMetre);
     const free = mass(false);
     expect(free[2]).toBeGreaterThan(free[1]);
     const ruled = mass(true);
@@ -73,7 +77,15 @@ describe('sizeStack', () => {
 
   it('reports "no section passes" on a lift no section can carry, never a failing section, and leaves the lifts below it unsized', () => {
     // 60 MN at the 6 m floor: more than the squash load of the heaviest UKC in the catalogue.
-    const doc = buildStack({ lifts: [{ top: 4 }, { top: 8 }, { top: 12 }], floors: [{ elevation: 4, Gk: 100 }, { elevation: 6, Gk: 60000 }, { elevation: 8, Gk: 100 }], cap: { Gk: 50, Qk: 10 } });
+    const doc = buildStack({
+      lifts: [{ top: 4 }, { top: 8 }, { top: 12 }],
+      floors: [
+        { elevation: 4, Gk: 100 },
+        { elevation: 6, Gk: 60000 },
+        { elevation: 8, Gk: 100 },
+      ],
+      cap: { Gk: 50, Qk: 10 },
+    });
     const sizing = sizeStack(doc, request());
     const [l1, l2, l3] = sizing.lifts;
     expect(l3.status).toBe('proposed');
@@ -106,7 +118,8 @@ describe('sizeStack', () => {
   // A higher grade never carries less in the same section (common practice, no source).
   it('sizes in the chosen grade: S460 never needs a heavier lift than S275', () => {
     const doc = officeStack();
-    const mass = (grade: 'S275' | 'S460') => sizeStack(doc, request({ grade, noUpwardIncrease: false })).lifts.map((l) => l.after!.massPerMetre);
+    const mass = (grade: 'S275' | 'S460') =>
+      sizeStack(doc, request({ grade, noUpwardIncrease: false })).lifts.map((l) => l.after!.massPerMetre);
     const s275 = mass('S275');
     mass('S460').forEach((m, i) => expect(m).toBeLessThanOrEqual(s275[i]));
   });

@@ -25,7 +25,11 @@ describe('analyseStack', () => {
   it('combines the three checks of a piece as docs/analysis-rules.md §Pieces states, in N for the member check', () => {
     const [lift] = analyseStack(doc, { selfWeight: false }).lifts;
     for (const p of lift.pieces) {
-      const expected = Math.max((p.NEd * 1000) / p.check.NcRd, (p.NEdY * 1000) / p.check.NbRdY, (p.NEdZ * 1000) / p.check.NbRdZ);
+      const expected = Math.max(
+        (p.NEd * 1000) / p.check.NcRd,
+        (p.NEdY * 1000) / p.check.NbRdY,
+        (p.NEdZ * 1000) / p.check.NbRdZ,
+      );
       expect(p.utilisation).toBeCloseTo(expected, 12);
     }
     expect(lift.utilisation).toBe(Math.max(...lift.pieces.map((p) => p.utilisation)));
@@ -68,7 +72,10 @@ describe('analyseStack', () => {
 
   it('names the governing lift: the most utilised one', () => {
     const light = buildStack({
-      lifts: [{ top: 4, section: 'UKC 305x305x97' }, { top: 8, section: 'UKC 152x152x23' }],
+      lifts: [
+        { top: 4, section: 'UKC 305x305x97' },
+        { top: 8, section: 'UKC 152x152x23' },
+      ],
       floors: [{ elevation: 4, Gk: 50 }],
       cap: { Gk: 200, Qk: 50 },
     });
@@ -78,7 +85,9 @@ describe('analyseStack', () => {
   });
 
   it('warns on every result that it assumes a braced frame in simple construction and checks no sway or frame moments', () => {
-    expect(analyseStack(doc).warnings).toContainEqual({ message: expect.stringContaining('braced (non-sway) frame in simple construction') });
+    expect(analyseStack(doc).warnings).toContainEqual({
+      message: expect.stringContaining('braced (non-sway) frame in simple construction'),
+    });
   });
 
   it('returns errors and no results for an invalid document, without throwing', () => {
@@ -97,7 +106,9 @@ describe('analyseStack', () => {
   it('turns an unknown section into an error on that lift', () => {
     const unknown = buildStack({ lifts: [{ top: 4, section: 'UKC 999x999x1' }] });
     const result = analyseStack(unknown);
-    expect(result.errors).toEqual([{ nodeId: 'l1', message: expect.stringMatching(/^Lift L1: "UKC 999x999x1" is not a section/) }]);
+    expect(result.errors).toEqual([
+      { nodeId: 'l1', message: expect.stringMatching(/^Lift L1: "UKC 999x999x1" is not a section/) },
+    ]);
   });
 
   it('turns a member check refusal (a class 4 circular hollow section) into an error on that lift', () => {
@@ -110,7 +121,9 @@ describe('analyseStack', () => {
 
   it("uses the building's own sections from the context", () => {
     const own = buildStack({ lifts: [{ top: 4, section: 'Plated 300' }] });
-    const sections = new Map([['Plated 300', { shape: 'I' as const, make: 'welded' as const, h: 300, b: 300, tw: 12, tf: 20, r: 0 }]]);
+    const sections = new Map([
+      ['Plated 300', { shape: 'I' as const, make: 'welded' as const, h: 300, b: 300, tw: 12, tf: 20, r: 0 }],
+    ]);
     const result = analyseStack(own, {}, { sections });
     expect(result.errors).toEqual([]);
     expect(result.lifts[0].section).toBe('Plated 300');

@@ -39,14 +39,21 @@ describe('buckling lengths of a stack', () => {
   });
 
   it('takes Lcr = 0.85 L with a fixed base and a pinned top, and 0.7 L with both ends fixed', () => {
-    const fixedPinned = pieces(buildStack({ base: { fixity: 'fixed' }, lifts: [{ top: 4 }], cap: { fixity: 'pinned' } }));
+    const fixedPinned = pieces(
+      buildStack({ base: { fixity: 'fixed' }, lifts: [{ top: 4 }], cap: { fixity: 'pinned' } }),
+    );
     expect(fixedPinned[0].LcrY).toBeCloseTo(3.4, 12); // 0.85 × 4
     const fixedFixed = pieces(buildStack({ base: { fixity: 'fixed' }, lifts: [{ top: 4 }], cap: { fixity: 'fixed' } }));
     expect(fixedFixed[0].LcrZ).toBeCloseTo(2.8, 12); // 0.7 × 4
   });
 
   it('takes Lcr = 0.85 L between partial ends and 1.0 L between a partial and a pinned end', () => {
-    const doc = buildStack({ base: { fixity: 'partial' }, lifts: [{ top: 8 }], floors: [{ elevation: 4, fixity: 'partial' }], cap: { fixity: 'pinned' } });
+    const doc = buildStack({
+      base: { fixity: 'partial' },
+      lifts: [{ top: 8 }],
+      floors: [{ elevation: 4, fixity: 'partial' }],
+      cap: { fixity: 'pinned' },
+    });
     // 0–4: partial–partial 0.85 × 4 = 3.4; 4–8: partial–pinned 1.0 × 4 = 4
     expect(lengths(pieces(doc)).map((row) => row.map((v) => Math.round(v * 1e9) / 1e9))).toEqual([
       [0, 4, 3.4, 3.4],
@@ -60,7 +67,11 @@ describe('buckling lengths of a stack', () => {
   });
 
   it('takes a free cap above a fixed restraint as a cantilever from that restraint', () => {
-    const doc = buildStack({ lifts: [{ top: 6 }], floors: [{ elevation: 4, fixity: 'fixed' }], cap: { fixity: 'free' } });
+    const doc = buildStack({
+      lifts: [{ top: 6 }],
+      floors: [{ elevation: 4, fixity: 'fixed' }],
+      cap: { fixity: 'free' },
+    });
     // 0–4: pinned base to fixed restraint, 0.85 × 4 = 3.4; 4–6: cantilever 2.0 × 2 = 4
     const [low, top] = pieces(doc);
     expect(low.LcrY).toBeCloseTo(3.4, 12);

@@ -1,5 +1,14 @@
 // Builds stack documents for the engine tests from a short description (demo data, invented).
-import type { Axes, Category, Fixity, Grade, SectionDims, StackDocument, StackEdge, StackNode } from '../../shared/schema/stack.ts';
+import type {
+  Axes,
+  Category,
+  Fixity,
+  Grade,
+  SectionDims,
+  StackDocument,
+  StackEdge,
+  StackNode,
+} from '../../shared/schema/stack.ts';
 
 export interface FloorSpec {
   elevation: number;
@@ -36,7 +45,8 @@ export const UKC_254_73: SectionDims = { shape: 'I', make: 'rolled', h: 254.1, b
 export function buildStack(spec: StackSpec): StackDocument {
   const nodes: StackNode[] = [];
   const edges: StackEdge[] = [];
-  const connect = (source: string, target: string): void => void edges.push({ id: `e${edges.length + 1}`, source, target });
+  const connect = (source: string, target: string): void =>
+    void edges.push({ id: `e${edges.length + 1}`, source, target });
   const baseElevation = spec.base?.elevation ?? 0;
   nodes.push({ id: 's', kind: 'support', data: { elevation: baseElevation, fixity: spec.base?.fixity ?? 'pinned' } });
   let below = 's';
@@ -53,7 +63,17 @@ export function buildStack(spec: StackSpec): StackDocument {
     const above = last ? 'c' : `p${i + 1}`;
     if (last) {
       const cap = spec.cap ?? {};
-      nodes.push({ id: 'c', kind: 'cap', data: { elevation: lift.top, fixity: cap.fixity ?? 'pinned', Gk: cap.Gk ?? 0, Qk: cap.Qk ?? 0, category: cap.category ?? 'H' } });
+      nodes.push({
+        id: 'c',
+        kind: 'cap',
+        data: {
+          elevation: lift.top,
+          fixity: cap.fixity ?? 'pinned',
+          Gk: cap.Gk ?? 0,
+          Qk: cap.Qk ?? 0,
+          category: cap.category ?? 'H',
+        },
+      });
     } else nodes.push({ id: above, kind: 'splice', data: { elevation: lift.top } });
     connect(id, above);
     spans.push({ id, bottom, top: lift.top });
@@ -77,7 +97,16 @@ export function buildStack(spec: StackSpec): StackDocument {
   });
   (spec.loads ?? []).forEach((load, i) => {
     const id = `x${i + 1}`;
-    nodes.push({ id, kind: 'load', data: { label: load.label ?? `Load ${i + 1}`, Gk: load.Gk ?? 0, Qk: load.Qk ?? 0, category: load.category ?? 'A' } });
+    nodes.push({
+      id,
+      kind: 'load',
+      data: {
+        label: load.label ?? `Load ${i + 1}`,
+        Gk: load.Gk ?? 0,
+        Qk: load.Qk ?? 0,
+        category: load.category ?? 'A',
+      },
+    });
     connect(id, load.on);
   });
   return { nodes, edges };

@@ -5,7 +5,14 @@ import { analyseStack } from '../../shared/engine/stack/index.ts';
 import type { AnalysisOptions } from '../../shared/schema/results.ts';
 import type { Category, Fixity, StackDocument, StackEdge, StackNode } from '../../shared/schema/stack.ts';
 
-const SECTIONS = ['UKC 152x152x23', 'UKC 203x203x46', 'UKC 254x254x73', 'UKC 305x305x118', 'HE 300 B', 'SHS 200x200x10'];
+const SECTIONS = [
+  'UKC 152x152x23',
+  'UKC 203x203x46',
+  'UKC 254x254x73',
+  'UKC 305x305x118',
+  'HE 300 B',
+  'SHS 200x200x10',
+];
 const fixity = fc.constantFrom<Fixity>('pinned', 'partial', 'fixed');
 const category = fc.constantFrom<Category>('A', 'B', 'C', 'D', 'E', 'H');
 // Biased toward empty and light loads, the cases where αn and the combinations behave least simply.
@@ -34,7 +41,11 @@ const options: fc.Arbitrary<AnalysisOptions> = fc.record({
 
 /** A valid stack: storeys bottom up, a restraint at the top of each storey but the last, the cap on top. */
 const stackDoc: fc.Arbitrary<StackDocument> = fc
-  .record({ base: fixity, cap: fc.record({ fixity, ...loads }), storeys: fc.array(storey, { minLength: 1, maxLength: 14 }) })
+  .record({
+    base: fixity,
+    cap: fc.record({ fixity, ...loads }),
+    storeys: fc.array(storey, { minLength: 1, maxLength: 14 }),
+  })
   .map(({ base, cap, storeys }) => {
     const nodes: StackNode[] = [{ id: 'base', kind: 'support', data: { elevation: 0, fixity: base } }];
     const edges: StackEdge[] = [];
@@ -55,7 +66,11 @@ const stackDoc: fc.Arbitrary<StackDocument> = fc
         link(lift, 'cap');
         return;
       }
-      nodes.push({ id: `floor${i}`, kind: 'restraint', data: { elevation, axes: s.axes, fixity: s.fixity, Gk: s.Gk, Qk: s.Qk, category: s.category } });
+      nodes.push({
+        id: `floor${i}`,
+        kind: 'restraint',
+        data: { elevation, axes: s.axes, fixity: s.fixity, Gk: s.Gk, Qk: s.Qk, category: s.category },
+      });
       link(`floor${i}`, lift);
       if (s.extra) {
         nodes.push({ id: `extra${i}`, kind: 'load', data: { label: `Extra ${i}`, ...s.extra } });
@@ -84,7 +99,8 @@ describe('analyseStack properties', () => {
         const result = analysed(doc, opts);
         const pieces = result.lifts.flatMap((l) => l.pieces).sort((a, b) => b.from - a.from);
         for (let i = 1; i < pieces.length; i++) expect(pieces[i].NEd).toBeGreaterThanOrEqual(pieces[i - 1].NEd);
-        for (let i = 1; i < result.takeDown.length; i++) expect(result.takeDown[i].NEd).toBeGreaterThanOrEqual(result.takeDown[i - 1].NEd);
+        for (let i = 1; i < result.takeDown.length; i++)
+          expect(result.takeDown[i].NEd).toBeGreaterThanOrEqual(result.takeDown[i - 1].NEd);
       }),
       { numRuns: 150 },
     );
@@ -109,7 +125,10 @@ describe('analyseStack properties', () => {
         if (field === 'Qk' && node.data.Qk === 0) return;
         const changed = { ...node, data: { ...node.data, [field]: node.data[field] + delta } } as StackNode;
         const before = analysed(doc, opts).lifts.flatMap((l) => l.pieces);
-        const after = analysed({ nodes: doc.nodes.map((n) => (n.id === node.id ? changed : n)), edges: doc.edges }, opts).lifts.flatMap((l) => l.pieces);
+        const after = analysed(
+          { nodes: doc.nodes.map((n) => (n.id === node.id ? changed : n)), edges: doc.edges },
+          opts,
+        ).lifts.flatMap((l) => l.pieces);
         expect(after.length).toBe(before.length);
         after.forEach((p, i) => expect(p.utilisation).toBeGreaterThanOrEqual(before[i].utilisation * (1 - 1e-12)));
       }),

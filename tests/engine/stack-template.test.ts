@@ -4,14 +4,25 @@
 import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
 import { analyseStack, validateStack } from '../../shared/engine/index.ts';
-import { SPLICE_ABOVE_FLOOR_M, spliceElevation, stackFromTemplate, templateFloors } from '../../shared/ops/stackFromTemplate.ts';
+import {
+  SPLICE_ABOVE_FLOOR_M,
+  spliceElevation,
+  stackFromTemplate,
+  templateFloors,
+} from '../../shared/ops/stackFromTemplate.ts';
 import { stackTemplateSchema, type Level } from '../../shared/schema/api.ts';
 import { stackDocumentSchema, type StackDocument } from '../../shared/schema/stack.ts';
 
 const SECTIONS = ['UKC 254x254x89', 'UKC 203x203x46'];
 // A 4.5 m ground storey, two 3.5 m office storeys and a 4 m plant storey under the roof.
 const IRREGULAR = [0, 4.5, 8, 11.5, 15.5];
-const irregular = stackTemplateSchema.parse({ elevations: IRREGULAR, spliceEvery: 2, sections: SECTIONS, Gk: 100, Qk: 50 });
+const irregular = stackTemplateSchema.parse({
+  elevations: IRREGULAR,
+  spliceEvery: 2,
+  sections: SECTIONS,
+  Gk: 100,
+  Qk: 50,
+});
 
 const elevationsOf = (doc: StackDocument, kind: string) =>
   doc.nodes.flatMap((n) => (n.kind === kind && 'elevation' in n.data ? [n.data.elevation] : []));
@@ -25,7 +36,9 @@ describe('stackFromTemplate with explicit elevations', () => {
     expect(elevationsOf(doc, 'restraint')).toEqual([4.5, 8, 11.5]);
     expect(elevationsOf(doc, 'splice')).toEqual([8 + SPLICE_ABOVE_FLOOR_M]);
     expect(elevationsOf(doc, 'cap')).toEqual([15.5]);
-    expect(doc.nodes.filter((n) => n.kind === 'lift').map((n) => n.kind === 'lift' && n.data.section)).toEqual(SECTIONS);
+    expect(doc.nodes.filter((n) => n.kind === 'lift').map((n) => n.kind === 'lift' && n.data.section)).toEqual(
+      SECTIONS,
+    );
     expect(validateStack(doc).errors).toEqual([]);
   });
 
@@ -38,7 +51,14 @@ describe('stackFromTemplate with explicit elevations', () => {
   });
 
   it('carries the same loads as a regular template of as many storeys: the heights change buckling lengths, not the take-down', () => {
-    const regular = stackTemplateSchema.parse({ storeys: 4, storeyHeight: 3.6, spliceEvery: 2, sections: SECTIONS, Gk: 100, Qk: 50 });
+    const regular = stackTemplateSchema.parse({
+      storeys: 4,
+      storeyHeight: 3.6,
+      spliceEvery: 2,
+      sections: SECTIONS,
+      Gk: 100,
+      Qk: 50,
+    });
     const atElevations = analyseStack(stackFromTemplate(irregular), AXIAL_ONLY);
     const atRegular = analyseStack(stackFromTemplate(regular), AXIAL_ONLY);
     // EN 1990 eq. 6.10b with the UK NA (ξ = 0.925, ψ0 = 0.7): ΣGk = 4 × 100 = 400 kN, ΣQk(B) = 3 × 50 = 150 kN,
@@ -48,7 +68,15 @@ describe('stackFromTemplate with explicit elevations', () => {
   });
 
   it('builds a regular template exactly as it did: the same document as the same floors given as elevations', () => {
-    const regular = stackTemplateSchema.parse({ storeys: 5, storeyHeight: 3.5, baseElevation: -1.2, spliceEvery: 2, sections: SECTIONS, Gk: 100, Qk: 50 });
+    const regular = stackTemplateSchema.parse({
+      storeys: 5,
+      storeyHeight: 3.5,
+      baseElevation: -1.2,
+      spliceEvery: 2,
+      sections: SECTIONS,
+      Gk: 100,
+      Qk: 50,
+    });
     const floors = templateFloors(regular);
     expect(floors).toEqual([-1.2, 2.3, 5.8, 9.3, 12.8, 16.3]);
     const same = stackTemplateSchema.parse({ elevations: floors, spliceEvery: 2, sections: SECTIONS, Gk: 100, Qk: 50 });
@@ -92,19 +120,27 @@ describe('splices on short storeys', () => {
   it('never reaches or passes the next floor, whatever the storeys and splice spacing', () => {
     const storey = fc.double({ min: 0.001, max: 12, noNaN: true });
     fc.assert(
-      fc.property(fc.double({ min: -50, max: 50, noNaN: true }), fc.array(storey, { minLength: 1, maxLength: 12 }), fc.integer({ min: 1, max: 4 }), (base, heights, spliceEvery) => {
-        const elevations = heights.reduce((acc, h) => [...acc, Math.round((acc[acc.length - 1] + h) * 1000) / 1000], [Math.round(base * 1000) / 1000]);
-        const parsed = stackTemplateSchema.safeParse({ elevations, spliceEvery, sections: ['UKC 203x203x46'] });
-        if (!parsed.success) return; // storeys rounded below 1 mm are refused by the schema
-        const doc = stackFromTemplate(parsed.data);
-        for (const n of doc.nodes) {
-          if (n.kind !== 'splice') continue;
-          const k = Number(n.id.slice('splice-'.length)) * spliceEvery;
-          expect(n.data.elevation).toBeGreaterThan(elevations[k]);
-          expect(n.data.elevation).toBeLessThan(elevations[k + 1]);
-        }
-        expect(validateStack(doc).errors).toEqual([]);
-      }),
+      fc.property(
+        fc.double({ min: -50, max: 50, noNaN: true }),
+        fc.array(storey, { minLength: 1, maxLength: 12 }),
+        fc.integer({ min: 1, max: 4 }),
+        (base, heights, spliceEvery) => {
+          const elevations = heights.reduce(
+            (acc, h) => [...acc, Math.round((acc[acc.length - 1] + h) * 1000) / 1000],
+            [Math.round(base * 1000) / 1000],
+          );
+          const parsed = stackTemplateSchema.safeParse({ elevations, spliceEvery, sections: ['UKC 203x203x46'] });
+          if (!parsed.success) return; // storeys rounded below 1 mm are refused by the schema
+          const doc = stackFromTemplate(parsed.data);
+          for (const n of doc.nodes) {
+            if (n.kind !== 'splice') continue;
+            const k = Number(n.id.slice('splice-'.length)) * spliceEvery;
+            expect(n.data.elevation).toBeGreaterThan(elevations[k]);
+            expect(n.data.elevation).toBeLessThan(elevations[k + 1]);
+          }
+          expect(validateStack(doc).errors).toEqual([]);
+        },
+      ),
       { numRuns: 300 },
     );
   });
@@ -128,20 +164,29 @@ describe('stackTemplateSchema', () => {
   });
 
   it('asks for storeys and a storey height, or elevations, when given neither', () => {
-    expect(messages({ sections })).toEqual(['storeys: is required (or give elevations instead)', 'storeyHeight: is required (or give elevations instead)']);
+    expect(messages({ sections })).toEqual([
+      'storeys: is required (or give elevations instead)',
+      'storeyHeight: is required (or give elevations instead)',
+    ]);
     expect(messages({ storeys: 3, sections })).toEqual(['storeyHeight: is required (or give elevations instead)']);
   });
 
   it('refuses a storey height, a base elevation or a disagreeing storey count beside elevations', () => {
-    expect(messages({ elevations: [0, 4.5, 8], storeyHeight: 3.5, sections })).toEqual(['storeyHeight: must be left out when elevations are given']);
+    expect(messages({ elevations: [0, 4.5, 8], storeyHeight: 3.5, sections })).toEqual([
+      'storeyHeight: must be left out when elevations are given',
+    ]);
     expect(messages({ elevations: [0, 4.5, 8], baseElevation: 0, sections })).toEqual([
       'baseElevation: must be left out when elevations are given (the first elevation is the base)',
     ]);
-    expect(messages({ elevations: [0, 4.5, 8], storeys: 3, sections })).toEqual(['storeys: must be one less than the number of elevations (2), or left out']);
+    expect(messages({ elevations: [0, 4.5, 8], storeys: 3, sections })).toEqual([
+      'storeys: must be one less than the number of elevations (2), or left out',
+    ]);
   });
 
   it('refuses elevations that do not rise by at least 1 mm, fewer than two, or out of range', () => {
-    expect(messages({ elevations: [0, 4.5, 4.5, 8], sections })).toEqual(['elevations.2: must rise from floor to floor by at least 1 mm (4.5 m follows 4.5 m)']);
+    expect(messages({ elevations: [0, 4.5, 4.5, 8], sections })).toEqual([
+      'elevations.2: must rise from floor to floor by at least 1 mm (4.5 m follows 4.5 m)',
+    ]);
     expect(messages({ elevations: [0, 8, 4.5], sections })).toHaveLength(1);
     expect(messages({ elevations: [0, 0.0004], sections })).toHaveLength(1);
     expect(messages({ elevations: [3], sections })).toHaveLength(1);
@@ -151,10 +196,21 @@ describe('stackTemplateSchema', () => {
 });
 
 describe('stackFromTemplate with beam reactions on the faces', () => {
-  const body = { storeys: 3, storeyHeight: 4, spliceEvery: 2, sections: ['UKC 254x254x73', 'UKC 203x203x46'], Gk: 150, Qk: 90 };
+  const body = {
+    storeys: 3,
+    storeyHeight: 4,
+    spliceEvery: 2,
+    sections: ['UKC 254x254x73', 'UKC 203x203x46'],
+    Gk: 150,
+    Qk: 90,
+  };
 
   it('puts the floor faces on every floor restraint and the roof faces on the cap, and nothing when none are given', () => {
-    const t = stackTemplateSchema.parse({ ...body, faces: { yPlus: { Gk: 40, Qk: 25 } }, roofFaces: { zPlus: { Gk: 30, Qk: 10 } } });
+    const t = stackTemplateSchema.parse({
+      ...body,
+      faces: { yPlus: { Gk: 40, Qk: 25 } },
+      roofFaces: { zPlus: { Gk: 30, Qk: 10 } },
+    });
     const doc = stackFromTemplate(t);
     expect(stackDocumentSchema.safeParse(doc).success).toBe(true);
     const restraints = doc.nodes.filter((n) => n.kind === 'restraint');
@@ -164,7 +220,9 @@ describe('stackFromTemplate with beam reactions on the faces', () => {
     expect(cap?.kind === 'cap' && cap.data.faces).toEqual({ zPlus: { Gk: 30, Qk: 10 } });
     const plain = stackFromTemplate(stackTemplateSchema.parse(body));
     expect(plain.nodes.some((n) => (n.kind === 'restraint' || n.kind === 'cap') && 'faces' in n.data)).toBe(false);
-    expect(stackFromTemplate(stackTemplateSchema.parse({ ...body, faces: { yPlus: { Gk: 0, Qk: 0 } } }))).toEqual(plain);
+    expect(stackFromTemplate(stackTemplateSchema.parse({ ...body, faces: { yPlus: { Gk: 0, Qk: 0 } } }))).toEqual(
+      plain,
+    );
   });
 
   it('refuses a negative face reaction in a template', () => {

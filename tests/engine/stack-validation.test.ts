@@ -14,8 +14,14 @@ const valid = (): StackDocument =>
     ],
   });
 
-const addNodes = (doc: StackDocument, ...nodes: StackNode[]): StackDocument => ({ nodes: [...doc.nodes, ...nodes], edges: doc.edges });
-const addEdges = (doc: StackDocument, ...edges: StackEdge[]): StackDocument => ({ nodes: doc.nodes, edges: [...doc.edges, ...edges] });
+const addNodes = (doc: StackDocument, ...nodes: StackNode[]): StackDocument => ({
+  nodes: [...doc.nodes, ...nodes],
+  edges: doc.edges,
+});
+const addEdges = (doc: StackDocument, ...edges: StackEdge[]): StackDocument => ({
+  nodes: doc.nodes,
+  edges: [...doc.edges, ...edges],
+});
 const dropEdge = (doc: StackDocument, source: string, target: string): StackDocument => ({
   nodes: doc.nodes,
   edges: doc.edges.filter((e) => !(e.source === source && e.target === target)),
@@ -30,7 +36,10 @@ describe('validateStack', () => {
   });
 
   it('reports an empty document as having neither support nor cap', () => {
-    expect(errorsOf({ nodes: [], edges: [] })).toEqual([{ message: 'The stack has no support' }, { message: 'The stack has no cap' }]);
+    expect(errorsOf({ nodes: [], edges: [] })).toEqual([
+      { message: 'The stack has no support' },
+      { message: 'The stack has no cap' },
+    ]);
   });
 
   it('reports a second support', () => {
@@ -45,15 +54,23 @@ describe('validateStack', () => {
   });
 
   it('reports a restraint outside the lift it is attached to', () => {
-    const doc = { nodes: valid().nodes, edges: valid().edges.map((e) => (e.source === 'r2' ? { ...e, target: 'l1' } : e)) };
+    const doc = {
+      nodes: valid().nodes,
+      edges: valid().edges.map((e) => (e.source === 'r2' ? { ...e, target: 'l1' } : e)),
+    };
     expect(errorsOf(doc)).toEqual([
-      { nodeId: 'r2', message: 'Restraint at +8.000 is outside the lift it is attached to (lift L1 runs from +0.000 to +6.000)' },
+      {
+        nodeId: 'r2',
+        message: 'Restraint at +8.000 is outside the lift it is attached to (lift L1 runs from +0.000 to +6.000)',
+      },
     ]);
   });
 
   it('reports a connection to a node that does not exist', () => {
     const doc = addEdges(valid(), { id: 'e99', source: 'r1', target: 'ghost' });
-    expect(errorsOf(doc)).toEqual([{ nodeId: 'r1', edgeId: 'e99', message: 'Connection e99 points to a node ghost that does not exist' }]);
+    expect(errorsOf(doc)).toEqual([
+      { nodeId: 'r1', edgeId: 'e99', message: 'Connection e99 points to a node ghost that does not exist' },
+    ]);
   });
 
   it('reports a connection that points downward', () => {
@@ -62,7 +79,8 @@ describe('validateStack', () => {
       {
         nodeId: 'l1',
         edgeId: 'e99',
-        message: 'Connection e99 points from a lift down to the support; connections point upward, toward what carries the load',
+        message:
+          'Connection e99 points from a lift down to the support; connections point upward, toward what carries the load',
       },
     ]);
   });
@@ -70,7 +88,11 @@ describe('validateStack', () => {
   it('reports a connection between kinds a stack does not allow', () => {
     const doc = addEdges(valid(), { id: 'e99', source: 's', target: 'c' });
     expect(errorsOf(doc)).toEqual([
-      { nodeId: 's', edgeId: 'e99', message: 'Connection e99 joins the support to the cap, which a stack does not allow' },
+      {
+        nodeId: 's',
+        edgeId: 'e99',
+        message: 'Connection e99 joins the support to the cap, which a stack does not allow',
+      },
     ]);
   });
 
@@ -95,7 +117,9 @@ describe('validateStack', () => {
   });
 
   it('reports a restraint that is not attached to a lift', () => {
-    expect(errorsOf(dropEdge(valid(), 'r1', 'l1'))).toEqual([{ nodeId: 'r1', message: 'Restraint at +4.000 is not attached to a lift' }]);
+    expect(errorsOf(dropEdge(valid(), 'r1', 'l1'))).toEqual([
+      { nodeId: 'r1', message: 'Restraint at +4.000 is not attached to a lift' },
+    ]);
   });
 
   it('reports a load attached to a lift instead of a restraint or the cap', () => {
@@ -112,8 +136,14 @@ describe('validateStack', () => {
   it('reports a free cap above a restraint that is not fixed', () => {
     const doc = withNode(valid(), 'c', (n) => (n.kind === 'cap' ? { ...n, data: { ...n.data, fixity: 'free' } } : n));
     expect(errorsOf(doc)).toEqual([
-      { nodeId: 'c', message: 'The free cap needs a fixed lower end about the y-y axis, but the restraint at +8.000 is pinned' },
-      { nodeId: 'c', message: 'The free cap needs a fixed lower end about the z-z axis, but the restraint at +8.000 is pinned' },
+      {
+        nodeId: 'c',
+        message: 'The free cap needs a fixed lower end about the y-y axis, but the restraint at +8.000 is pinned',
+      },
+      {
+        nodeId: 'c',
+        message: 'The free cap needs a fixed lower end about the z-z axis, but the restraint at +8.000 is pinned',
+      },
     ]);
   });
 
@@ -124,20 +154,32 @@ describe('validateStack', () => {
 
   it('reports two restraints at the same elevation', () => {
     const doc = addEdges(
-      addNodes(valid(), { id: 'r3', kind: 'restraint', data: { elevation: 8, axes: 'z', fixity: 'pinned', Gk: 0, Qk: 0, category: 'A' } }),
+      addNodes(valid(), {
+        id: 'r3',
+        kind: 'restraint',
+        data: { elevation: 8, axes: 'z', fixity: 'pinned', Gk: 0, Qk: 0, category: 'A' },
+      }),
       { id: 'e99', source: 'r3', target: 'l2' },
     );
-    expect(errorsOf(doc)).toEqual([{ nodeId: 'r3', message: 'Restraint at +8.000 is at the same elevation as restraint r2' }]);
+    expect(errorsOf(doc)).toEqual([
+      { nodeId: 'r3', message: 'Restraint at +8.000 is at the same elevation as restraint r2' },
+    ]);
   });
 
   it('reports a restraint at the support', () => {
-    const doc = withNode(valid(), 'r1', (n) => (n.kind === 'restraint' ? { ...n, data: { ...n.data, elevation: 0 } } : n));
-    expect(errorsOf(doc)).toEqual([{ nodeId: 'r1', message: 'Restraint at +0.000 is at the support, which already restrains the column there' }]);
+    const doc = withNode(valid(), 'r1', (n) =>
+      n.kind === 'restraint' ? { ...n, data: { ...n.data, elevation: 0 } } : n,
+    );
+    expect(errorsOf(doc)).toEqual([
+      { nodeId: 'r1', message: 'Restraint at +0.000 is at the support, which already restrains the column there' },
+    ]);
   });
 
   it('names a lift off the chain by its id', () => {
     const doc = addNodes(valid(), { id: 'stray', kind: 'lift', data: { section: 'UKC 203x203x46', grade: 'S275' } });
-    expect(errorsOf(doc)).toEqual([{ nodeId: 'stray', message: 'Lift stray is not connected to the chain that runs from the support to the cap' }]);
+    expect(errorsOf(doc)).toEqual([
+      { nodeId: 'stray', message: 'Lift stray is not connected to the chain that runs from the support to the cap' },
+    ]);
   });
 
   it('reports two nodes with the same id', () => {
@@ -146,14 +188,20 @@ describe('validateStack', () => {
   });
 
   it('reports a fork: a support with two lifts above it', () => {
-    const doc = addEdges(addNodes(valid(), { id: 'l9', kind: 'lift', data: { section: 'UKC 203x203x46', grade: 'S275' } }), {
-      id: 'e99',
-      source: 's',
-      target: 'l9',
-    });
+    const doc = addEdges(
+      addNodes(valid(), { id: 'l9', kind: 'lift', data: { section: 'UKC 203x203x46', grade: 'S275' } }),
+      {
+        id: 'e99',
+        source: 's',
+        target: 'l9',
+      },
+    );
     const errors = errorsOf(doc);
     expect(errors).toContainEqual({ nodeId: 's', message: 'The support has more than one lift above it' });
-    expect(errors).toContainEqual({ nodeId: 'l9', message: 'Lift l9 is not connected to the chain that runs from the support to the cap' });
+    expect(errors).toContainEqual({
+      nodeId: 'l9',
+      message: 'Lift l9 is not connected to the chain that runs from the support to the cap',
+    });
   });
 
   it('returns every problem, not only the first', () => {

@@ -21,7 +21,14 @@ function ids(): NewId {
 
 // Three storeys of 4 m, one lift, floors at +4 and +8 (demo data, invented).
 const oneLift = (): StackDocument =>
-  buildStack({ lifts: [{ top: 12 }], floors: [{ elevation: 4, Gk: 200, Qk: 80 }, { elevation: 8, Gk: 200, Qk: 80 }], cap: { Gk: 150, Qk: 30 } });
+  buildStack({
+    lifts: [{ top: 12 }],
+    floors: [
+      { elevation: 4, Gk: 200, Qk: 80 },
+      { elevation: 8, Gk: 200, Qk: 80 },
+    ],
+    cap: { Gk: 150, Qk: 30 },
+  });
 
 const liftsOf = (doc: StackDocument) => analyseStack(doc).lifts;
 
@@ -32,13 +39,29 @@ describe('split a lift at an elevation', () => {
     const split = applyOps(doc, ops);
     const result = analyseStack(split);
     expect(result.errors).toEqual([]);
-    expect(result.lifts.map((l) => [l.bottom, l.top])).toEqual([[0, 8.5], [8.5, 12]]);
+    expect(result.lifts.map((l) => [l.bottom, l.top])).toEqual([
+      [0, 8.5],
+      [8.5, 12],
+    ]);
     expect(split.nodes.find((n) => n.id === spliceId)?.data).toEqual({ elevation: 8.5 });
     // The copied section is checked but flagged until confirmed
-    expect(split.nodes.find((n) => n.id === upperId)?.data).toMatchObject({ section: (doc.nodes[1].data as { section: unknown }).section, grade: 'S355', sectionStatus: 'to-confirm' });
-    expect(result.warnings.map((w) => w.message)).toContain('Lift L2: section copied from the lift it was split from; confirm it or pick another');
+    expect(split.nodes.find((n) => n.id === upperId)?.data).toMatchObject({
+      section: (doc.nodes[1].data as { section: unknown }).section,
+      grade: 'S355',
+      sectionStatus: 'to-confirm',
+    });
+    expect(result.warnings.map((w) => w.message)).toContain(
+      'Lift L2: section copied from the lift it was split from; confirm it or pick another',
+    );
     // Same numbers as the same stack built with two lifts directly
-    const direct = buildStack({ lifts: [{ top: 8.5 }, { top: 12 }], floors: [{ elevation: 4, Gk: 200, Qk: 80 }, { elevation: 8, Gk: 200, Qk: 80 }], cap: { Gk: 150, Qk: 30 } });
+    const direct = buildStack({
+      lifts: [{ top: 8.5 }, { top: 12 }],
+      floors: [
+        { elevation: 4, Gk: 200, Qk: 80 },
+        { elevation: 8, Gk: 200, Qk: 80 },
+      ],
+      cap: { Gk: 150, Qk: 30 },
+    });
     expect(result.lifts.map((l) => l.utilisation)).toEqual(liftsOf(direct).map((l) => l.utilisation));
   });
 
@@ -59,7 +82,13 @@ describe('split a lift at an elevation', () => {
 
 describe('join two lifts', () => {
   it('removes the splice and the upper lift, keeping the lower section and every restraint', () => {
-    const doc = buildStack({ lifts: [{ top: 5 }, { top: 12 }], floors: [{ elevation: 4, Gk: 200 }, { elevation: 8, Gk: 200 }] });
+    const doc = buildStack({
+      lifts: [{ top: 5 }, { top: 12 }],
+      floors: [
+        { elevation: 4, Gk: 200 },
+        { elevation: 8, Gk: 200 },
+      ],
+    });
     const { ops, liftId } = joinLiftsOps(doc, 'p1', ids());
     const joined = applyOps(doc, ops);
     const result = analyseStack(joined);
@@ -67,7 +96,17 @@ describe('join two lifts', () => {
     expect(liftId).toBe('l1');
     expect(result.lifts.map((l) => [l.liftId, l.bottom, l.top])).toEqual([['l1', 0, 12]]);
     expect(joined.edges.find((e) => e.source === 'r2')?.target).toBe('l1');
-    expect(liftsOf(joined)[0].utilisation).toBe(liftsOf(buildStack({ lifts: [{ top: 12 }], floors: [{ elevation: 4, Gk: 200 }, { elevation: 8, Gk: 200 }] }))[0].utilisation);
+    expect(liftsOf(joined)[0].utilisation).toBe(
+      liftsOf(
+        buildStack({
+          lifts: [{ top: 12 }],
+          floors: [
+            { elevation: 4, Gk: 200 },
+            { elevation: 8, Gk: 200 },
+          ],
+        }),
+      )[0].utilisation,
+    );
   });
 
   it('split then join gives back the original analysis', () => {
@@ -84,7 +123,10 @@ describe('move a splice', () => {
     const doc = buildStack({ lifts: [{ top: 5 }, { top: 12 }], floors: [{ elevation: 4 }, { elevation: 8 }] });
     const moved = applyOps(doc, moveSpliceOps(doc, 'p1', 3.5, ids()));
     expect(analyseStack(moved).errors).toEqual([]);
-    expect(analyseStack(moved).lifts.map((l) => [l.bottom, l.top])).toEqual([[0, 3.5], [3.5, 12]]);
+    expect(analyseStack(moved).lifts.map((l) => [l.bottom, l.top])).toEqual([
+      [0, 3.5],
+      [3.5, 12],
+    ]);
     expect(moved.edges.find((e) => e.source === 'r1')?.target).toBe('l2');
   });
 
@@ -99,14 +141,20 @@ describe('add a floor restraint at a level', () => {
     const doc = buildStack({ lifts: [{ top: 5 }, { top: 12 }] });
     const { ops, restraintId } = addFloorRestraintOps(doc, { id: 'lv-2', name: 'Level 2', elevation: 8 }, ids());
     const withFloor = applyOps(doc, ops);
-    expect(withFloor.nodes.find((n) => n.id === restraintId)?.data).toMatchObject({ elevation: 8, levelId: 'lv-2', axes: 'both' });
+    expect(withFloor.nodes.find((n) => n.id === restraintId)?.data).toMatchObject({
+      elevation: 8,
+      levelId: 'lv-2',
+      axes: 'both',
+    });
     expect(withFloor.edges.find((e) => e.source === restraintId)?.target).toBe('l2');
     expect(analyseStack(withFloor).errors).toEqual([]);
   });
 
   it('refuses a second restraint at the same level', () => {
     const doc = buildStack({ lifts: [{ top: 12 }], floors: [{ elevation: 4 }] });
-    expect(() => addFloorRestraintOps(doc, { id: 'lv-1', name: 'Level 1', elevation: 4 }, ids())).toThrow('There is already a restraint at Level 1');
+    expect(() => addFloorRestraintOps(doc, { id: 'lv-1', name: 'Level 1', elevation: 4 }, ids())).toThrow(
+      'There is already a restraint at Level 1',
+    );
   });
 });
 
@@ -117,6 +165,8 @@ describe('a lift whose section was not chosen', () => {
     if (lift?.kind === 'lift') lift.data.sectionStatus = 'not-chosen';
     const result = analyseStack(doc);
     expect(result.lifts).toEqual([]);
-    expect(result.errors).toEqual([{ nodeId: 'l1', message: 'Lift L1: section not chosen; pick its section in the properties pane' }]);
+    expect(result.errors).toEqual([
+      { nodeId: 'l1', message: 'Lift L1: section not chosen; pick its section in the properties pane' },
+    ]);
   });
 });

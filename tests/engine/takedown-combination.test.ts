@@ -83,14 +83,25 @@ describe('designAxialForce', () => {
 
   it('never reduces a category E load, which is not in A–D', () => {
     // EN 1991-1-1 6.3.1.2(11) applies to A–D only: 6.10, lead E = 1.35·100 + 1.5·200 = 435 even with 3 levels
-    const force = designAxialForce({ sumGk: 100, sumQk: { E: 200 }, loadedLevels: { E: 3 } }, { combination: '6.10', annex: 'UK', imposedReduction: true });
+    const force = designAxialForce(
+      { sumGk: 100, sumQk: { E: 200 }, loadedLevels: { E: 3 } },
+      { combination: '6.10', annex: 'UK', imposedReduction: true },
+    );
     expect(force.NEd).toBeCloseTo(435, 9);
   });
 
   it('takes only γG·Gk when no imposed load is present', () => {
     // EN 1990 eq. 6.10: 1.35·200 = 270; 6.10a = 270 and 6.10b = 0.925·270 so 6.10a governs
-    expect(designAxialForce({ sumGk: 200, sumQk: {}, loadedLevels: {} }, { combination: '6.10', annex: 'UK', imposedReduction: true }).NEd).toBeCloseTo(270, 9);
-    const ab = designAxialForce({ sumGk: 200, sumQk: {}, loadedLevels: {} }, { combination: '6.10ab', annex: 'UK', imposedReduction: true });
+    expect(
+      designAxialForce(
+        { sumGk: 200, sumQk: {}, loadedLevels: {} },
+        { combination: '6.10', annex: 'UK', imposedReduction: true },
+      ).NEd,
+    ).toBeCloseTo(270, 9);
+    const ab = designAxialForce(
+      { sumGk: 200, sumQk: {}, loadedLevels: {} },
+      { combination: '6.10ab', annex: 'UK', imposedReduction: true },
+    );
     expect(ab).toMatchObject({ NEd: expect.closeTo(270, 9), combination: '6.10a' });
   });
 

@@ -19,7 +19,13 @@ describe('take-down: storeys and αn per level', () => {
     //   lead H: 1.5·20 + 1.5·0.7·150 = 30 + 157.5 = 187.5 → B leads, n = 3, αn = 0.8.
     // Below +4.000: B = 200 on 4 storeys, αn = 0.7. Lead B: 1.5·0.7·200 + 21 = 231; lead H: 30 + 1.5·0.7·200 = 240
     //   → the roof load leads (EN 1990 eq. 6.10, UK NA ψ0,H = 0.7) and is not reduced: n = 1 (one roof), αn = 1.
-    expect(rows.map((r) => [r.elevation, r.n])).toEqual([[20, 1], [16, 1], [12, 2], [8, 3], [4, 1]]);
+    expect(rows.map((r) => [r.elevation, r.n])).toEqual([
+      [20, 1],
+      [16, 1],
+      [12, 2],
+      [8, 3],
+      [4, 1],
+    ]);
     expect(rows[4]).toMatchObject({ combination: '6.10, leading H', alphaN: 1 });
     expect(rows[3]).toMatchObject({ combination: '6.10, leading B', alphaN: expect.closeTo(0.8, 12) });
     expect(rows[2].alphaN).toBeCloseTo(0.9, 12);

@@ -1,6 +1,11 @@
 import { describe, expect, it } from 'vitest';
 import { inspectStack } from '../../shared/engine/stack/inspectStack.ts';
-import { axialStateAt, selfWeightPerMetre, takeDownRows, type ColumnWeight } from '../../shared/engine/stack/takeDown.ts';
+import {
+  axialStateAt,
+  selfWeightPerMetre,
+  takeDownRows,
+  type ColumnWeight,
+} from '../../shared/engine/stack/takeDown.ts';
 import { buildStack } from './stack-builder.ts';
 
 // Invented stack: base +0.000, floors at +4.000 and +8.000 (Gk 100, Qk 50 category B each), cap at +12.000
@@ -60,7 +65,11 @@ describe('take-down', () => {
   it('adds the self-weight of the column above a section, and the loads at a point only to the column below it', () => {
     const entries = entriesOf();
     // Just above +4.000 the floor load there is not yet in the column: G = 60 + 100 + 0.5·8 = 164
-    expect(axialStateAt(entries, weights, 4, false)).toMatchObject({ sumGk: 164, sumQk: { B: 50, H: 20 }, loadedLevels: { B: 1, H: 1 } });
+    expect(axialStateAt(entries, weights, 4, false)).toMatchObject({
+      sumGk: 164,
+      sumQk: { B: 50, H: 20 },
+      loadedLevels: { B: 1, H: 1 },
+    });
     // At the base: G = 260 + 0.5·12 = 266
     expect(axialStateAt(entries, weights, 0, false).sumGk).toBeCloseTo(266, 12);
   });
@@ -68,19 +77,31 @@ describe('take-down', () => {
   it('adds a load node to the restraint it is attached to, keeping its own category', () => {
     const withPlant = buildStack({
       lifts: [{ top: 12 }],
-      floors: [{ elevation: 4, Gk: 100, Qk: 50, category: 'B' }, { elevation: 8, Gk: 100, Qk: 50, category: 'B' }],
+      floors: [
+        { elevation: 4, Gk: 100, Qk: 50, category: 'B' },
+        { elevation: 8, Gk: 100, Qk: 50, category: 'B' },
+      ],
       cap: { Gk: 60, Qk: 20, category: 'H' },
       loads: [{ on: 'r2', label: 'Plant', Gk: 15, Qk: 30, category: 'E' }],
     });
     const rows = takeDownRows(entriesOf(withPlant), [], UK);
-    expect(rows[1]).toMatchObject({ nodeId: 'r2', Gk: 115, Qk: 80, category: 'B+E', sumQkByCategory: { B: 50, E: 30, H: 20 } });
+    expect(rows[1]).toMatchObject({
+      nodeId: 'r2',
+      Gk: 115,
+      Qk: 80,
+      category: 'B+E',
+      sumQkByCategory: { B: 50, E: 30, H: 20 },
+    });
   });
 
   it('counts as loaded only the levels that carry imposed load of that category', () => {
     // A floor with Qk = 0 does not count toward n (EN 1991-1-1 6.3.1.2(11): storeys loaded by the category)
     const partlyLoaded = buildStack({
       lifts: [{ top: 12 }],
-      floors: [{ elevation: 4, Gk: 10, Qk: 0, category: 'A' }, { elevation: 8, Gk: 10, Qk: 5, category: 'A' }],
+      floors: [
+        { elevation: 4, Gk: 10, Qk: 0, category: 'A' },
+        { elevation: 8, Gk: 10, Qk: 5, category: 'A' },
+      ],
     });
     expect(axialStateAt(entriesOf(partlyLoaded), [], 0, false).loadedLevels).toEqual({ A: 1 });
   });
@@ -99,7 +120,11 @@ describe('take-down', () => {
     const tall = buildStack({ lifts: [{ top: 12 }], floors });
     const rows = takeDownRows(entriesOf(tall), [], { combination: '6.10', annex: 'UK', imposedReduction: true });
     expect(rows.at(-2)).toMatchObject({ nodeId: 'r2', NEd: expect.closeTo(90, 9), combination: '6.10, leading A' });
-    expect(rows.at(-1)).toMatchObject({ nodeId: 'r1', NEd: expect.closeTo(90, 9), combination: '6.10, leading A, held at the force above' });
+    expect(rows.at(-1)).toMatchObject({
+      nodeId: 'r1',
+      NEd: expect.closeTo(90, 9),
+      combination: '6.10, leading A, held at the force above',
+    });
   });
 
   it('lowers the force below a floor when imposed load is added to an unloaded floor, because αn counts loaded storeys', () => {
@@ -112,7 +137,8 @@ describe('take-down', () => {
       { elevation: 12, Qk: 100 },
     ];
     const opts = { combination: '6.10', annex: 'UK', imposedReduction: true } as const;
-    const bottom = (middle: number) => takeDownRows(entriesOf(buildStack({ lifts: [{ top: 16 }], floors: floors(middle) })), [], opts).at(-1)!.NEd;
+    const bottom = (middle: number) =>
+      takeDownRows(entriesOf(buildStack({ lifts: [{ top: 16 }], floors: floors(middle) })), [], opts).at(-1)!.NEd;
     expect(bottom(0)).toBeCloseTo(270, 9);
     expect(bottom(1)).toBeCloseTo(241.2, 9);
   });

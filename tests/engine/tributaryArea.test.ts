@@ -54,6 +54,8 @@ describe('an area set by hand', () => {
     expect(t.override?.reason).toBe('Stair void');
   });
   it('a core as an area: 12 m² replaces the grid figure', () => {
-    expect(tributaryArea(GRID, 'B', 'y2', { levelId: 'L1', area: 12, reason: 'Core wall takes the rest' })!.area).toBe(12);
+    expect(tributaryArea(GRID, 'B', 'y2', { levelId: 'L1', area: 12, reason: 'Core wall takes the rest' })!.area).toBe(
+      12,
+    );
   });
 });

@@ -17,7 +17,15 @@ const MAX_STALL_MS = 200;
 
 /** A 120-storey stack padded with point loads to the schema's 2,000 nodes. */
 function bigDoc(): StackDocument {
-  const doc = stackFromTemplate(stackTemplateSchema.parse({ storeys: 120, storeyHeight: 3.5, sections: ['UKC 356x406x634', 'UKC 305x305x283'], Gk: 100, Qk: 50 }));
+  const doc = stackFromTemplate(
+    stackTemplateSchema.parse({
+      storeys: 120,
+      storeyHeight: 3.5,
+      sections: ['UKC 356x406x634', 'UKC 305x305x283'],
+      Gk: 100,
+      Qk: 50,
+    }),
+  );
   const restraints = doc.nodes.filter((n) => n.kind === 'restraint');
   for (let i = 0; doc.nodes.length < 2000; i += 1) {
     const id = `ld-${i}`;
@@ -40,7 +48,10 @@ describe('the event loop stays free under hostile load', () => {
     buildingId = (await createBuilding(s, lead.token, 'Load block')).id;
     const doc = bigDoc();
     for (let i = 0; i < 10; i += 1) {
-      const r = await s.api('POST', `/buildings/${buildingId}/stacks`, { token: lead.token, body: { name: `B/${i}`, doc } });
+      const r = await s.api('POST', `/buildings/${buildingId}/stacks`, {
+        token: lead.token,
+        body: { name: `B/${i}`, doc },
+      });
       expect(r.status).toBe(201);
       stackIds.push((r.body as StackSummary).id);
     }
@@ -59,17 +70,30 @@ describe('the event loop stays free under hostile load', () => {
     const started = performance.now();
     const [csv, edits, registrations] = await Promise.all([
       upload(s, `/buildings/${buildingId}/imports/loads`, lead.token, ','.repeat(1_000_000)),
-      Promise.all(stackIds.map((stackId, i) => request<{ version: number }>(sockets[i]!, 'stack:edit', { stackId, baseVersion: 0, ops: [{ op: 'updateNode', id: restraint, data: { Gk: 150 } }] }, 60_000))),
+      Promise.all(
+        stackIds.map((stackId, i) =>
+          request<{ version: number }>(
+            sockets[i]!,
+            'stack:edit',
+            { stackId, baseVersion: 0, ops: [{ op: 'updateNode', id: restraint, data: { Gk: 150 } }] },
+            60_000,
+          ),
+        ),
+      ),
       Promise.all(
         Array.from({ length: 30 }, (_, i) =>
-          s.api('POST', '/auth/register', { body: { email: `load-${i}-${Date.now()}@example.test`, password: TEST_PASSWORD, name: `Load ${i}` } }),
+          s.api('POST', '/auth/register', {
+            body: { email: `load-${i}-${Date.now()}@example.test`, password: TEST_PASSWORD, name: `Load ${i}` },
+          }),
         ),
       ),
     ]);
     const elapsed = performance.now() - started;
     histogram.disable();
     const longest = histogram.max / 1e6;
-    console.log(`hostile load: longest event-loop stall ${longest.toFixed(0)} ms, p99 ${(histogram.percentile(99) / 1e6).toFixed(0)} ms, all done in ${elapsed.toFixed(0)} ms`);
+    console.log(
+      `hostile load: longest event-loop stall ${longest.toFixed(0)} ms, p99 ${(histogram.percentile(99) / 1e6).toFixed(0)} ms, all done in ${elapsed.toFixed(0)} ms`,
+    );
 
     // Every request was answered as it should be: the CSV refused briefly, every edit stored, every registration accepted.
     expect(csv.status).toBe(422);

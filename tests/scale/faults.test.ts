@@ -11,11 +11,29 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type { AuthResponse, Building, StackSummary } from '../../shared/schema/api.ts';
 import type { RevisionDetail } from '../../shared/schema/revisions.ts';
 import { dropSchema } from '../server/helpers.ts';
-import { api, databaseUrl, eventually, freePort, newTag, scaleEnv, scaleReady, startProcess, stopProcess, type Proc } from './procs.ts';
+import {
+  api,
+  databaseUrl,
+  eventually,
+  freePort,
+  newTag,
+  scaleEnv,
+  scaleReady,
+  startProcess,
+  stopProcess,
+  type Proc,
+} from './procs.ts';
 
 const describeScale = scaleReady ? describe : describe.skip;
 const PASSWORD = 'correct horse battery';
-const TEMPLATE = { storeys: 4, storeyHeight: 3.6, spliceEvery: 2, sections: ['UKC 254x254x89', 'UKC 203x203x46'], Gk: 120, Qk: 60 };
+const TEMPLATE = {
+  storeys: 4,
+  storeyHeight: 3.6,
+  spliceEvery: 2,
+  sections: ['UKC 254x254x89', 'UKC 203x203x46'],
+  Gk: 120,
+  Qk: 60,
+};
 
 interface Delivered {
   to: string;
@@ -85,7 +103,13 @@ describeScale('faults across two server processes', () => {
   let db: Knex;
   let lead: AuthResponse;
   const reg = async (url: string, name: string) =>
-    (await api<AuthResponse>(url, 'POST', '/auth/register', null, { email: `${name}-${tag}@example.test`, password: PASSWORD, name })).body;
+    (
+      await api<AuthResponse>(url, 'POST', '/auth/register', null, {
+        email: `${name}-${tag}@example.test`,
+        password: PASSWORD,
+        name,
+      })
+    ).body;
 
   beforeAll(async () => {
     mail = new FlakyMailServer(await freePort());
@@ -114,11 +138,19 @@ describeScale('faults across two server processes', () => {
   it('20 parallel creates of one stack name across both processes: exactly one 201, the rest 409', async () => {
     const building = (await api<Building>(a.url, 'POST', '/buildings', lead.token, { name: 'Name race block' })).body;
     const replies = await Promise.all(
-      Array.from({ length: 20 }, (_, i) => api(i % 2 ? a.url : b.url, 'POST', `/buildings/${building.id}/stacks`, lead.token, { name: i % 3 ? 'Core/1' : 'CORE/1' })),
+      Array.from({ length: 20 }, (_, i) =>
+        api(i % 2 ? a.url : b.url, 'POST', `/buildings/${building.id}/stacks`, lead.token, {
+          name: i % 3 ? 'Core/1' : 'CORE/1',
+        }),
+      ),
     );
     expect(replies.filter((r) => r.status === 201)).toHaveLength(1);
     expect(replies.filter((r) => r.status === 409)).toHaveLength(19);
-    const levels = await Promise.all(['Roof', 'ROOF', 'roof', 'Roof'].map((name, i) => api(i % 2 ? a.url : b.url, 'POST', `/buildings/${building.id}/levels`, lead.token, { name, elevation: 30 + i })));
+    const levels = await Promise.all(
+      ['Roof', 'ROOF', 'roof', 'Roof'].map((name, i) =>
+        api(i % 2 ? a.url : b.url, 'POST', `/buildings/${building.id}/levels`, lead.token, { name, elevation: 30 + i }),
+      ),
+    );
     expect(levels.map((r) => r.status).sort()).toEqual([201, 409, 409, 409]);
     expect(await db('stacks').where({ building_id: building.id }).pluck('name')).toHaveLength(1);
   });
@@ -126,7 +158,14 @@ describeScale('faults across two server processes', () => {
   it('two leads removing each other on different processes leave one lead', async () => {
     const other = await reg(b.url, 'lead2');
     const building = (await api<Building>(a.url, 'POST', '/buildings', lead.token, { name: 'Two leads block' })).body;
-    expect((await api(a.url, 'POST', `/buildings/${building.id}/members`, lead.token, { email: other.user.email, role: 'lead' })).status).toBe(201);
+    expect(
+      (
+        await api(a.url, 'POST', `/buildings/${building.id}/members`, lead.token, {
+          email: other.user.email,
+          role: 'lead',
+        })
+      ).status,
+    ).toBe(201);
     const [r1, r2] = await Promise.all([
       api(a.url, 'DELETE', `/buildings/${building.id}/members/${other.user.id}`, lead.token),
       api(b.url, 'DELETE', `/buildings/${building.id}/members/${lead.user.id}`, other.token),
@@ -139,12 +178,31 @@ describeScale('faults across two server processes', () => {
   it('6 parallel freezes give one 201 and five 409 while the mail server hangs, each answering within 5 s; the mail arrives once after it recovers and a process is killed and restarted', async () => {
     const engineer = await reg(a.url, 'engineer');
     const building = (await api<Building>(a.url, 'POST', '/buildings', lead.token, { name: 'Freeze race block' })).body;
-    expect((await api(a.url, 'POST', `/buildings/${building.id}/members`, lead.token, { email: engineer.user.email, role: 'engineer' })).status).toBe(201);
-    for (const name of ['F/1', 'F/2', 'F/3']) expect((await api<StackSummary>(b.url, 'POST', `/buildings/${building.id}/stacks`, lead.token, { name, template: TEMPLATE })).status).toBe(201);
+    expect(
+      (
+        await api(a.url, 'POST', `/buildings/${building.id}/members`, lead.token, {
+          email: engineer.user.email,
+          role: 'engineer',
+        })
+      ).status,
+    ).toBe(201);
+    for (const name of ['F/1', 'F/2', 'F/3'])
+      expect(
+        (
+          await api<StackSummary>(b.url, 'POST', `/buildings/${building.id}/stacks`, lead.token, {
+            name,
+            template: TEMPLATE,
+          })
+        ).status,
+      ).toBe(201);
 
     const timed = async (url: string) => {
       const t0 = Date.now();
-      const r = await api<RevisionDetail>(url, 'POST', `/buildings/${building.id}/revisions`, lead.token, { purpose: 'preliminary', note: 'race', afterRevisionId: null });
+      const r = await api<RevisionDetail>(url, 'POST', `/buildings/${building.id}/revisions`, lead.token, {
+        purpose: 'preliminary',
+        note: 'race',
+        afterRevisionId: null,
+      });
       return { ...r, ms: Date.now() - t0 };
     };
     const replies = await Promise.all(Array.from({ length: 6 }, (_, i) => timed(i % 2 ? a.url : b.url)));
@@ -155,14 +213,22 @@ describeScale('faults across two server processes', () => {
 
     // The senders are stuck on the hanging server: kill one process mid-send (its claims are left
     // behind), then let the mail server recover and start a new process in its place.
-    await eventually(async () => Number((await db('mail_queue').where({ attach_revision_id: rev.id }).max<{ m: number }[]>({ m: 'attempts' }))[0].m) >= 1, 15_000);
+    await eventually(
+      async () =>
+        Number(
+          (await db('mail_queue').where({ attach_revision_id: rev.id }).max<{ m: number }[]>({ m: 'attempts' }))[0].m,
+        ) >= 1,
+      15_000,
+    );
     a.child.kill('SIGKILL');
     await a.exited;
     await mail.recover();
     c = await startProcess(env);
 
     const expected = [lead.user.email, engineer.user.email].sort();
-    expect(await eventually(async () => mail.delivered.filter((d) => d.subject.includes('P01')).length >= 2, 40_000)).toBe(true);
+    expect(
+      await eventually(async () => mail.delivered.filter((d) => d.subject.includes('P01')).length >= 2, 40_000),
+    ).toBe(true);
     expect(
       await eventually(async () => {
         const detail = (await api<RevisionDetail>(c!.url, 'GET', `/revisions/${rev.id}`, lead.token)).body;
@@ -172,12 +238,16 @@ describeScale('faults across two server processes', () => {
     // Each member got it once, with the stored package attached.
     const got = mail.delivered.filter((d) => d.subject.includes('P01'));
     expect(got.map((d) => d.to).sort()).toEqual(expected);
-    const stored = await db('revision_packages').where({ revision_id: rev.id, copy: 0 }).first<{ bytes: Buffer; sha256: string }>('bytes', 'sha256');
+    const stored = await db('revision_packages')
+      .where({ revision_id: rev.id, copy: 0 })
+      .first<{ bytes: Buffer; sha256: string }>('bytes', 'sha256');
     for (const d of got) expect(d.attachment?.equals(stored.bytes)).toBe(true);
 
     // Every process serves the stored bytes; a tampered package is reported by each.
     for (const p of [b, c]) {
-      const res = await fetch(`${p.url}/api/revisions/${rev.id}/calc.pdf`, { headers: { Authorization: `Bearer ${engineer.token}` } });
+      const res = await fetch(`${p.url}/api/revisions/${rev.id}/calc.pdf`, {
+        headers: { Authorization: `Bearer ${engineer.token}` },
+      });
       expect(res.status).toBe(200);
       expect(Buffer.from(await res.arrayBuffer()).equals(stored.bytes)).toBe(true);
       expect(res.headers.get('x-package-sha256')).toBe(stored.sha256);

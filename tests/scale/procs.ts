@@ -18,10 +18,15 @@ export interface Proc {
 }
 
 export async function startProcess(env: NodeJS.ProcessEnv, timeoutMs = 30_000): Promise<Proc> {
-  const child = spawn(process.execPath, ['--import', 'tsx', 'tests/scale/serve.ts'], { env: { ...process.env, ...env }, stdio: ['pipe', 'pipe', 'pipe'] });
+  const child = spawn(process.execPath, ['--import', 'tsx', 'tests/scale/serve.ts'], {
+    env: { ...process.env, ...env },
+    stdio: ['pipe', 'pipe', 'pipe'],
+  });
   let stderr = '';
   child.stderr.on('data', (d: Buffer) => (stderr += d.toString()));
-  const exited = new Promise<number | string | null>((resolve) => child.once('exit', (code, signal) => resolve(code ?? signal)));
+  const exited = new Promise<number | string | null>((resolve) =>
+    child.once('exit', (code, signal) => resolve(code ?? signal)),
+  );
   const line = await new Promise<string>((resolve, reject) => {
     const timer = setTimeout(() => {
       child.kill('SIGKILL');
@@ -57,7 +62,13 @@ export function scaleEnv(tag: string, extra: NodeJS.ProcessEnv = {}): NodeJS.Pro
 
 export const newTag = () => `t_${Date.now().toString(36)}_${randomBytes(4).toString('hex')}`;
 
-export async function api<T>(url: string, method: string, path: string, token: string | null, body?: unknown): Promise<{ status: number; body: T; headers: Headers }> {
+export async function api<T>(
+  url: string,
+  method: string,
+  path: string,
+  token: string | null,
+  body?: unknown,
+): Promise<{ status: number; body: T; headers: Headers }> {
   const res = await fetch(`${url}/api${path}`, {
     method,
     headers: { 'Content-Type': 'application/json', ...(token ? { Authorization: `Bearer ${token}` } : {}) },
@@ -88,7 +99,11 @@ export class OwnRedis {
   }
 
   async start(): Promise<void> {
-    const child = spawn('redis-server', ['--port', String(this.port), '--bind', '127.0.0.1', '--save', '', '--appendonly', 'no'], { stdio: ['ignore', 'pipe', 'pipe'] });
+    const child = spawn(
+      'redis-server',
+      ['--port', String(this.port), '--bind', '127.0.0.1', '--save', '', '--appendonly', 'no'],
+      { stdio: ['ignore', 'pipe', 'pipe'] },
+    );
     this.child = child;
     await new Promise<void>((resolve, reject) => {
       const timer = setTimeout(() => reject(new Error('redis-server did not start')), 10_000);

@@ -9,7 +9,20 @@ import type { Op } from '../../shared/schema/ops.ts';
 import type { StackJoinAck } from '../../shared/schema/socket.ts';
 import { dropSchema } from '../server/helpers.ts';
 import { connect, next, request, type LiveClient } from '../server/liveHelpers.ts';
-import { api, databaseUrl, eventually, freePort, newTag, OwnRedis, scaleEnv, scaleReady, sleep, startProcess, stopProcess, type Proc } from './procs.ts';
+import {
+  api,
+  databaseUrl,
+  eventually,
+  freePort,
+  newTag,
+  OwnRedis,
+  scaleEnv,
+  scaleReady,
+  sleep,
+  startProcess,
+  stopProcess,
+  type Proc,
+} from './procs.ts';
 
 const describeScale = scaleReady ? describe : describe.skip;
 const PASSWORD = 'correct horse battery';
@@ -31,7 +44,13 @@ describeScale('losing Redis under two server processes', () => {
     a = await startProcess(env);
     b = await startProcess(env);
     db = knex({ client: 'pg', connection: databaseUrl!, searchPath: [tag], pool: { min: 0, max: 2 } });
-    lead = (await api<AuthResponse>(a.url, 'POST', '/auth/register', null, { email: `lead-${tag}@example.test`, password: PASSWORD, name: 'Lead' })).body;
+    lead = (
+      await api<AuthResponse>(a.url, 'POST', '/auth/register', null, {
+        email: `lead-${tag}@example.test`,
+        password: PASSWORD,
+        name: 'Lead',
+      })
+    ).body;
   });
 
   afterAll(async () => {
@@ -45,8 +64,17 @@ describeScale('losing Redis under two server processes', () => {
 
   it('keeps both processes serving while Redis is killed and restarted, and live updates resume', async () => {
     const building = (await api<Building>(a.url, 'POST', '/buildings', lead.token, { name: 'Redis loss block' })).body;
-    const template = { storeys: 4, storeyHeight: 3.6, spliceEvery: 2, sections: ['UKC 254x254x89', 'UKC 203x203x46'], Gk: 120, Qk: 60 };
-    const stack = (await api<StackSummary>(a.url, 'POST', `/buildings/${building.id}/stacks`, lead.token, { name: 'R/1', template })).body;
+    const template = {
+      storeys: 4,
+      storeyHeight: 3.6,
+      spliceEvery: 2,
+      sections: ['UKC 254x254x89', 'UKC 203x203x46'],
+      Gk: 120,
+      Qk: 60,
+    };
+    const stack = (
+      await api<StackSummary>(a.url, 'POST', `/buildings/${building.id}/stacks`, lead.token, { name: 'R/1', template })
+    ).body;
     const onA = await connect(a.url, lead.token);
     const onB = await connect(b.url, lead.token);
     sockets.push(onA, onB);
@@ -64,7 +92,11 @@ describeScale('losing Redis under two server processes', () => {
       let base = joinA.data.version;
       for (let k = 0; running; k += 1) {
         const ops: Op[] = [{ op: 'updateNode', id: nodeId, data: { Gk: 100 + seed + k } }];
-        const r = await request<{ version: number }>(socket, 'stack:edit', { stackId: stack.id, baseVersion: base, ops }).catch(() => null);
+        const r = await request<{ version: number }>(socket, 'stack:edit', {
+          stackId: stack.id,
+          baseVersion: base,
+          ops,
+        }).catch(() => null);
         if (r?.ok) {
           acked.push({ version: r.data.version, ops });
           base = r.data.version;
@@ -77,14 +109,21 @@ describeScale('losing Redis under two server processes', () => {
     const signInLoop = async () => {
       for (let k = 0; running; k += 1) {
         const t0 = Date.now();
-        const r = await api<unknown>(k % 2 ? a.url : b.url, 'POST', '/auth/login', null, { email: lead.user.email, password: PASSWORD });
+        const r = await api<unknown>(k % 2 ? a.url : b.url, 'POST', '/auth/login', null, {
+          email: lead.user.email,
+          password: PASSWORD,
+        });
         signIns.push(r.status);
         if (Date.now() - t0 > 2500) slowSignIns.push(Date.now() - t0);
         if (r.status !== 200) expect(r.body).toMatchObject({ error: { code: 'unavailable' } });
         await sleep(100);
       }
     };
-    const loops = Promise.all([editLoop(onA, restraints[0].id, 0), editLoop(onB, restraints[1].id, 1000), signInLoop()]);
+    const loops = Promise.all([
+      editLoop(onA, restraints[0].id, 0),
+      editLoop(onB, restraints[1].id, 1000),
+      signInLoop(),
+    ]);
 
     await sleep(800);
     await redis.kill();
@@ -96,7 +135,14 @@ describeScale('losing Redis under two server processes', () => {
     expect(down.status).toBe(503);
     await sleep(5500);
     await redis.start();
-    expect(await eventually(async () => (await api(b.url, 'POST', '/auth/login', null, { email: lead.user.email, password: PASSWORD })).status === 200, 15_000)).toBe(true);
+    expect(
+      await eventually(
+        async () =>
+          (await api(b.url, 'POST', '/auth/login', null, { email: lead.user.email, password: PASSWORD })).status ===
+          200,
+        15_000,
+      ),
+    ).toBe(true);
     await sleep(1500);
     running = false;
     await loops;
@@ -107,7 +153,9 @@ describeScale('losing Redis under two server processes', () => {
     expect(slowSignIns).toEqual([]);
     expect(failedEdits).toBe(0);
     expect(acked.length).toBeGreaterThan(20);
-    const rows = await db('stack_ops').where({ stack_id: stack.id }).select<{ version: number; ops: string }[]>('version', 'ops');
+    const rows = await db('stack_ops')
+      .where({ stack_id: stack.id })
+      .select<{ version: number; ops: string }[]>('version', 'ops');
     const stored = new Map(rows.map((r) => [r.version, JSON.parse(r.ops) as Op[]]));
     for (const x of acked) expect(stored.get(x.version)).toEqual(x.ops);
 
@@ -115,8 +163,15 @@ describeScale('losing Redis under two server processes', () => {
     const current = (await db('stacks').where({ id: stack.id }).first<{ version: number }>('version')).version;
     expect(
       await eventually(async () => {
-        const heard = next(onB, 'stack:changed', (p) => p.stackId === stack.id, 1500).then(() => true, () => false);
-        const r = await request<{ version: number }>(onA, 'stack:edit', { stackId: stack.id, baseVersion: current, ops: [{ op: 'updateNode', id: restraints[0].id, data: { Gk: 77 } }] });
+        const heard = next(onB, 'stack:changed', (p) => p.stackId === stack.id, 1500).then(
+          () => true,
+          () => false,
+        );
+        const r = await request<{ version: number }>(onA, 'stack:edit', {
+          stackId: stack.id,
+          baseVersion: current,
+          ops: [{ op: 'updateNode', id: restraints[0].id, data: { Gk: 77 } }],
+        });
         expect(r.ok).toBe(true);
         return heard;
       }, 15_000),
@@ -140,7 +195,14 @@ describeScale('losing Redis under two server processes', () => {
       // REST that needs no Redis works.
       expect((await api(c.url, 'GET', '/buildings', lead.token)).status).toBe(200);
       await late.start();
-      expect(await eventually(async () => (await api(c.url, 'POST', '/auth/login', null, { email: lead.user.email, password: PASSWORD })).status === 200, 15_000)).toBe(true);
+      expect(
+        await eventually(
+          async () =>
+            (await api(c.url, 'POST', '/auth/login', null, { email: lead.user.email, password: PASSWORD })).status ===
+            200,
+          15_000,
+        ),
+      ).toBe(true);
       expect(c.child.exitCode).toBeNull();
     } finally {
       await stopProcess(c);

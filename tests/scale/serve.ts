@@ -6,7 +6,13 @@ import path from 'node:path';
 import { startServer } from '../../server/server.ts';
 
 const dataDir = mkdtempSync(path.join(tmpdir(), 'stanchion-scale-'));
-const server = await startServer({ port: 0, dataDir, seed: process.env.SEED === '1', logLevel: 'silent', config: { bcryptRounds: 4 } });
+const server = await startServer({
+  port: 0,
+  dataDir,
+  seed: process.env.SEED === '1',
+  logLevel: 'silent',
+  config: { bcryptRounds: 4 },
+});
 process.stdout.write(`${JSON.stringify({ url: server.url })}\n`);
 process.stdin.resume();
 process.stdin.on('end', () => {

@@ -24,7 +24,10 @@ interface Proc {
 }
 
 async function startProcess(env: NodeJS.ProcessEnv): Promise<Proc> {
-  const child = spawn(process.execPath, ['--import', 'tsx', 'tests/scale/serve.ts'], { env: { ...process.env, ...env }, stdio: ['pipe', 'pipe', 'pipe'] });
+  const child = spawn(process.execPath, ['--import', 'tsx', 'tests/scale/serve.ts'], {
+    env: { ...process.env, ...env },
+    stdio: ['pipe', 'pipe', 'pipe'],
+  });
   let stderr = '';
   child.stderr.on('data', (d: Buffer) => (stderr += d.toString()));
   const line = await new Promise<string>((resolve, reject) => {
@@ -34,7 +37,13 @@ async function startProcess(env: NodeJS.ProcessEnv): Promise<Proc> {
   return { url: (JSON.parse(line) as { url: string }).url, child };
 }
 
-async function api<T>(url: string, method: string, path: string, token: string | null, body?: unknown): Promise<{ status: number; body: T }> {
+async function api<T>(
+  url: string,
+  method: string,
+  path: string,
+  token: string | null,
+  body?: unknown,
+): Promise<{ status: number; body: T }> {
   const res = await fetch(`${url}/api${path}`, {
     method,
     headers: { 'Content-Type': 'application/json', ...(token ? { Authorization: `Bearer ${token}` } : {}) },
@@ -80,7 +89,14 @@ describeScale('two server processes on PostgreSQL and Redis', () => {
     buildingId = (await api<Building>(b.url, 'POST', '/buildings', lead.token, { name: 'Scale test block' })).body.id;
     for (let i = 0; i < 6; i += 1) {
       const e = await reg(i % 2 ? a.url : b.url, `engineer${i}`);
-      expect((await api(a.url, 'POST', `/buildings/${buildingId}/members`, lead.token, { email: e.user.email, role: 'engineer' })).status).toBe(201);
+      expect(
+        (
+          await api(a.url, 'POST', `/buildings/${buildingId}/members`, lead.token, {
+            email: e.user.email,
+            role: 'engineer',
+          })
+        ).status,
+      ).toBe(201);
       engineers.push(e);
     }
   });
@@ -98,7 +114,14 @@ describeScale('two server processes on PostgreSQL and Redis', () => {
   });
 
   async function newStack(name: string): Promise<number> {
-    const template = { storeys: 6, storeyHeight: 3.6, spliceEvery: 2, sections: ['UKC 254x254x89', 'UKC 203x203x46'], Gk: 120, Qk: 60 };
+    const template = {
+      storeys: 6,
+      storeyHeight: 3.6,
+      spliceEvery: 2,
+      sections: ['UKC 254x254x89', 'UKC 203x203x46'],
+      Gk: 120,
+      Qk: 60,
+    };
     const r = await api<StackSummary>(a.url, 'POST', `/buildings/${buildingId}/stacks`, lead.token, { name, template });
     expect(r.status).toBe(201);
     return r.body.id;
@@ -112,11 +135,17 @@ describeScale('two server processes on PostgreSQL and Redis', () => {
     const ja = await request<StackJoinAck>(onA, 'stack:join', { stackId });
     const bothPresent = next(onA, 'presence', (p) => p.users.length === 2, 5000);
     await request<StackJoinAck>(onB, 'stack:join', { stackId });
-    expect((await bothPresent).users.map((u) => u.userId).sort()).toEqual([engineers[0].user.id, engineers[1].user.id].sort());
+    expect((await bothPresent).users.map((u) => u.userId).sort()).toEqual(
+      [engineers[0].user.id, engineers[1].user.id].sort(),
+    );
     if (!ja.ok) throw new Error(ja.error.message);
     const heard = next(onB, 'stack:changed', (p) => p.stackId === stackId);
     const restraint = ja.data.doc.nodes.find((n) => n.kind === 'restraint')!;
-    const r = await request<{ version: number }>(onA, 'stack:edit', { stackId, baseVersion: ja.data.version, ops: [{ op: 'updateNode', id: restraint.id, data: { Gk: 222 } }] });
+    const r = await request<{ version: number }>(onA, 'stack:edit', {
+      stackId,
+      baseVersion: ja.data.version,
+      ops: [{ op: 'updateNode', id: restraint.id, data: { Gk: 222 } }],
+    });
     expect(r.ok).toBe(true);
     expect((await heard).by.userId).toBe(engineers[0].user.id);
   });
@@ -132,24 +161,31 @@ describeScale('two server processes on PostgreSQL and Redis', () => {
       await e.join();
       editors.push(e);
     }
-    await Promise.all(editors.map(async (e) => {
-      for (let k = 0; k < 10; k += 1) await e.edit();
-    }));
+    await Promise.all(
+      editors.map(async (e) => {
+        for (let k = 0; k < 10; k += 1) await e.edit();
+      }),
+    );
     const final = await db('stacks').where({ id: stackId }).first<{ doc: string; version: number }>('doc', 'version');
     const finalDoc = JSON.parse(final.doc) as StackDocument;
     const deadline = Date.now() + 8000;
-    while (editors.some((e) => e.version < final.version) && Date.now() < deadline) await new Promise((r) => setTimeout(r, 25));
+    while (editors.some((e) => e.version < final.version) && Date.now() < deadline)
+      await new Promise((r) => setTimeout(r, 25));
     for (const e of editors) {
       expect(e.version).toBe(final.version);
       expect(e.doc).toEqual(finalDoc);
     }
-    const rows = await db('stack_ops').where({ stack_id: stackId }).orderBy('version').select<{ version: number; ops: string }[]>('version', 'ops');
+    const rows = await db('stack_ops')
+      .where({ stack_id: stackId })
+      .orderBy('version')
+      .select<{ version: number; ops: string }[]>('version', 'ops');
     const stored = new Map(rows.map((r) => [r.version, JSON.parse(r.ops) as Op[]]));
     const acked = editors.flatMap((e) => e.acked);
     for (const x of acked) expect(stored.get(x.version)).toEqual(x.ops);
     expect(final.version - initial.version).toBe(acked.length);
     let replay = JSON.parse(initial.doc) as StackDocument;
-    for (const r of rows.filter((r) => r.version > initial.version)) replay = applyOps(replay, JSON.parse(r.ops) as Op[]);
+    for (const r of rows.filter((r) => r.version > initial.version))
+      replay = applyOps(replay, JSON.parse(r.ops) as Op[]);
     expect(replay).toEqual(finalDoc);
     // Versions are unique per stack: no two processes committed on the same base version.
     expect(new Set(rows.map((r) => r.version)).size).toBe(rows.length);

@@ -1,7 +1,16 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import jwt from 'jsonwebtoken';
 import type { User } from '../../shared/schema/api.ts';
-import { errorCode, mailTo, registerUser, signIn, startTestServer, TEST_PASSWORD, verificationToken, type TestServer } from './helpers.ts';
+import {
+  errorCode,
+  mailTo,
+  registerUser,
+  signIn,
+  startTestServer,
+  TEST_PASSWORD,
+  verificationToken,
+  type TestServer,
+} from './helpers.ts';
 
 describe('accounts', () => {
   let s: TestServer;
@@ -13,28 +22,43 @@ describe('accounts', () => {
   });
 
   it('registers with a normalised e-mail address, mails a verification link, and signs in with a token that GET /api/me accepts', async () => {
-    const r = await s.api('POST', '/auth/register', { body: { email: '  Mixed.Case@Example.TEST ', password: TEST_PASSWORD, name: 'Mixed' } });
+    const r = await s.api('POST', '/auth/register', {
+      body: { email: '  Mixed.Case@Example.TEST ', password: TEST_PASSWORD, name: 'Mixed' },
+    });
     expect(r.status).toBe(202);
     expect(r.body).toEqual({ status: 'verification-sent', email: 'mixed.case@example.test' });
     expect(await verificationToken(s, 'mixed.case@example.test')).toMatch(/^[\w-]+\.[\w-]+\.[\w-]+$/);
     const { token, user } = await signIn(s, 'mixed.case@example.test');
-    expect(user).toEqual({ id: expect.any(Number), email: 'mixed.case@example.test', name: 'Mixed', isAdmin: false, emailVerified: false });
+    expect(user).toEqual({
+      id: expect.any(Number),
+      email: 'mixed.case@example.test',
+      name: 'Mixed',
+      isAdmin: false,
+      emailVerified: false,
+    });
     const me = await s.api('GET', '/me', { token });
     expect(me.status).toBe(200);
     expect((me.body as User).email).toBe('mixed.case@example.test');
   });
 
   it('stores a bcrypt hash, never the password', async () => {
-    const row = await s.ctx.db('users').where({ email: 'mixed.case@example.test' }).first<{ password_hash: string }>('password_hash');
+    const row = await s.ctx
+      .db('users')
+      .where({ email: 'mixed.case@example.test' })
+      .first<{ password_hash: string }>('password_hash');
     expect(row.password_hash).toMatch(/^\$2[aby]\$04\$/);
     expect(row.password_hash).not.toContain(TEST_PASSWORD);
   });
 
   it('makes no second account on the same address, whatever its case, and answers as for a new one', async () => {
-    const r = await s.api('POST', '/auth/register', { body: { email: 'MIXED.case@example.test', password: TEST_PASSWORD, name: 'Again' } });
+    const r = await s.api('POST', '/auth/register', {
+      body: { email: 'MIXED.case@example.test', password: TEST_PASSWORD, name: 'Again' },
+    });
     expect(r.status).toBe(202);
     expect(r.body).toEqual({ status: 'verification-sent', email: 'mixed.case@example.test' });
-    expect(await s.ctx.db('users').where({ email: 'mixed.case@example.test' }).count<{ n: number }[]>({ n: '*' })).toEqual([{ n: 1 }]);
+    expect(
+      await s.ctx.db('users').where({ email: 'mixed.case@example.test' }).count<{ n: number }[]>({ n: '*' }),
+    ).toEqual([{ n: 1 }]);
     // The owner is told instead, with no verification link.
     const mails = await mailTo(s, 'mixed.case@example.test', 2);
     expect(mails.at(-1)?.text).toContain('already has an account');
@@ -42,16 +66,24 @@ describe('accounts', () => {
   });
 
   it('refuses a password shorter than 10 characters', async () => {
-    const r = await s.api('POST', '/auth/register', { body: { email: 'short@example.test', password: '123456789', name: 'Short' } });
+    const r = await s.api('POST', '/auth/register', {
+      body: { email: 'short@example.test', password: '123456789', name: 'Short' },
+    });
     expect(r.status).toBe(400);
     expect(errorCode(r.body)).toBe('validation_failed');
   });
 
   it('logs in with the right password and gives the same message for a wrong password and an unknown address', async () => {
-    const ok = await s.api('POST', '/auth/login', { body: { email: 'Mixed.Case@example.test', password: TEST_PASSWORD } });
+    const ok = await s.api('POST', '/auth/login', {
+      body: { email: 'Mixed.Case@example.test', password: TEST_PASSWORD },
+    });
     expect(ok.status).toBe(200);
-    const wrongPassword = await s.api('POST', '/auth/login', { body: { email: 'mixed.case@example.test', password: 'not the password' } });
-    const unknown = await s.api('POST', '/auth/login', { body: { email: 'nobody@example.test', password: TEST_PASSWORD } });
+    const wrongPassword = await s.api('POST', '/auth/login', {
+      body: { email: 'mixed.case@example.test', password: 'not the password' },
+    });
+    const unknown = await s.api('POST', '/auth/login', {
+      body: { email: 'nobody@example.test', password: TEST_PASSWORD },
+    });
     expect(wrongPassword.status).toBe(401);
     expect(unknown.status).toBe(401);
     expect(wrongPassword.body).toEqual(unknown.body);
@@ -66,7 +98,9 @@ describe('accounts', () => {
   it('answers 401 for a missing, forged or expired token', async () => {
     const { user } = await registerUser(s, 'forged');
     const forged = jwt.sign({}, 'not-the-server-secret-at-all', { subject: String(user.id), expiresIn: '1h' });
-    const expired = jwt.sign({ exp: Math.floor(Date.now() / 1000) - 10 }, s.ctx.config.jwtSecret, { subject: String(user.id) });
+    const expired = jwt.sign({ exp: Math.floor(Date.now() / 1000) - 10 }, s.ctx.config.jwtSecret, {
+      subject: String(user.id),
+    });
     for (const token of [null, forged, expired, 'garbage']) {
       const r = await s.api('GET', '/me', { token });
       expect(r.status).toBe(401);
@@ -84,10 +118,14 @@ describe('accounts', () => {
     // The limit is 5 per window in this server; earlier tests used some of them.
     const replies: number[] = [];
     for (let i = 0; i < 7; i++) {
-      replies.push((await s.api('POST', '/auth/login', { body: { email: 'nobody@example.test', password: 'whatever12' } })).status);
+      replies.push(
+        (await s.api('POST', '/auth/login', { body: { email: 'nobody@example.test', password: 'whatever12' } })).status,
+      );
     }
     expect(replies).toContain(429);
-    const last = await s.api('POST', '/auth/login', { body: { email: 'mixed.case@example.test', password: TEST_PASSWORD } });
+    const last = await s.api('POST', '/auth/login', {
+      body: { email: 'mixed.case@example.test', password: TEST_PASSWORD },
+    });
     expect(last.status).toBe(429);
     expect(errorCode(last.body)).toBe('rate_limited');
   });
@@ -109,7 +147,8 @@ describe.skipIf(!redisUrl)('the sign-in limit shared through Redis', () => {
     const config = { redisUrl: redisUrl!, redisPrefix, loginRateLimit: { windowMs: 60_000, max: 4 } };
     servers.push(await startTestServer({ config }), await startTestServer({ config }));
     const [a, b] = servers;
-    const attempt = (s: TestServer) => s.api('POST', '/auth/login', { body: { email: 'nobody@example.test', password: 'whatever12' } });
+    const attempt = (s: TestServer) =>
+      s.api('POST', '/auth/login', { body: { email: 'nobody@example.test', password: 'whatever12' } });
     // Two wrong passwords on each process use up the shared allowance of four.
     for (const s of [a, b, a, b]) expect((await attempt(s)).status).toBe(401);
     for (const s of [a, b]) {
@@ -138,9 +177,21 @@ describe('malformed bodies on the auth routes', () => {
     ['missing fields', { body: {} }, 400],
     ['unknown fields', { body: { email: 'x@y.test', password: TEST_PASSWORD, name: 'X', isAdmin: true } }, 400],
     ['a huge string', { body: { email: `${'a'.repeat(100_000)}@b.test`, password: TEST_PASSWORD, name: 'X' } }, 400],
-    ['a body over the 1 MB limit', { raw: JSON.stringify({ email: 'x@y.test', password: 'p'.repeat(1_100_000), name: 'X' }) }, 413],
-    ['form encoding instead of JSON', { raw: 'email=x@y.test', headers: { 'Content-Type': 'application/x-www-form-urlencoded' } }, 400],
-    ['a prototype-pollution attempt', { raw: '{"__proto__": {"isAdmin": true}, "email": "p@q.test", "password": "long enough pw", "name": "P"}' }, 400],
+    [
+      'a body over the 1 MB limit',
+      { raw: JSON.stringify({ email: 'x@y.test', password: 'p'.repeat(1_100_000), name: 'X' }) },
+      413,
+    ],
+    [
+      'form encoding instead of JSON',
+      { raw: 'email=x@y.test', headers: { 'Content-Type': 'application/x-www-form-urlencoded' } },
+      400,
+    ],
+    [
+      'a prototype-pollution attempt',
+      { raw: '{"__proto__": {"isAdmin": true}, "email": "p@q.test", "password": "long enough pw", "name": "P"}' },
+      400,
+    ],
   ];
 
   for (const route of ['/auth/register', '/auth/login']) {

@@ -9,10 +9,33 @@ import { connect, next, request, type LiveClient } from './liveHelpers.ts';
 
 // Invented grid: x lines A 0, B 6, C 13.5 m; y lines 1 0, 2 7.5 m; no slab beyond the lines.
 const GRID: Grid = {
-  x: { lines: [{ id: 'A', name: 'A', position: 0 }, { id: 'B', name: 'B', position: 6 }, { id: 'C', name: 'C', position: 13.5 }], edgeBefore: 0, edgeAfter: 0 },
-  y: { lines: [{ id: 'y1', name: '1', position: 0 }, { id: 'y2', name: '2', position: 7.5 }], edgeBefore: 0, edgeAfter: 0 },
+  x: {
+    lines: [
+      { id: 'A', name: 'A', position: 0 },
+      { id: 'B', name: 'B', position: 6 },
+      { id: 'C', name: 'C', position: 13.5 },
+    ],
+    edgeBefore: 0,
+    edgeAfter: 0,
+  },
+  y: {
+    lines: [
+      { id: 'y1', name: '1', position: 0 },
+      { id: 'y2', name: '2', position: 7.5 },
+    ],
+    edgeBefore: 0,
+    edgeAfter: 0,
+  },
 };
-const OFFICE = { id: 'office', name: 'Office', permanent: [{ label: 'Slab', gk: 3.5 }, { label: 'Finishes', gk: 1.5 }], imposed: { qk: 2.5, category: 'B' } };
+const OFFICE = {
+  id: 'office',
+  name: 'Office',
+  permanent: [
+    { label: 'Slab', gk: 3.5 },
+    { label: 'Finishes', gk: 1.5 },
+  ],
+  imposed: { qk: 2.5, category: 'B' },
+};
 const ROOF = { id: 'roof', name: 'Roof', permanent: [{ label: 'Roof', gk: 4 }], imposed: { qk: 0.6, category: 'H' } };
 
 describe('the building model over the API', () => {
@@ -26,12 +49,21 @@ describe('the building model over the API', () => {
   beforeAll(async () => {
     ({ s, token, buildingId } = await startWithLeadAndBuilding('Model'));
     levels = [];
-    for (const [name, elevation] of [['Ground', 0], ['First', 4], ['Second', 8], ['Roof', 12]] as const) {
-      levels.push((await s.api('POST', `/buildings/${buildingId}/levels`, { token, body: { name, elevation } })).body as Level);
+    for (const [name, elevation] of [
+      ['Ground', 0],
+      ['First', 4],
+      ['Second', 8],
+      ['Roof', 12],
+    ] as const) {
+      levels.push(
+        (await s.api('POST', `/buildings/${buildingId}/levels`, { token, body: { name, elevation } })).body as Level,
+      );
     }
     const template = { elevations: [0, 4, 8, 12], sections: ['UKC 254x254x73'], Gk: 100, Qk: 50 };
-    stack = (await s.api('POST', `/buildings/${buildingId}/stacks`, { token, body: { name: 'S1', template } })).body as StackSummary;
-    other = (await s.api('POST', `/buildings/${buildingId}/stacks`, { token, body: { name: 'S2', template } })).body as StackSummary;
+    stack = (await s.api('POST', `/buildings/${buildingId}/stacks`, { token, body: { name: 'S1', template } }))
+      .body as StackSummary;
+    other = (await s.api('POST', `/buildings/${buildingId}/stacks`, { token, body: { name: 'S2', template } }))
+      .body as StackSummary;
   });
   afterAll(async () => {
     await s?.close();
@@ -50,7 +82,9 @@ describe('the building model over the API', () => {
 
   it('stores the grid and build-ups, and names a placed stack after its lines', async () => {
     expect((await s.api('PUT', `/buildings/${buildingId}/grid`, { token, body: { grid: GRID } })).status).toBe(200);
-    expect((await s.api('PUT', `/buildings/${buildingId}/buildups`, { token, body: { buildups: [OFFICE, ROOF] } })).status).toBe(200);
+    expect(
+      (await s.api('PUT', `/buildings/${buildingId}/buildups`, { token, body: { buildups: [OFFICE, ROOF] } })).status,
+    ).toBe(200);
     const r = await s.api('PUT', `/stacks/${stack.id}/placement`, { token, body: { gridX: 'B', gridY: 'y2' } });
     expect(r.status).toBe(200);
     expect(r.body as Placement).toMatchObject({ name: 'B/2', gridX: 'B', gridY: 'y2', webAlong: 'x' });
@@ -73,9 +107,14 @@ describe('the building model over the API', () => {
       const heard = next(live, 'building:model-changed');
       const stackHeard = next(live, 'building:stack-changed', (p) => p.stackId === stack.id);
       const first = levels[1];
-      const r = await s.api('PUT', `/buildings/${buildingId}/levels/${first.id}/floor-load`, { token, body: { buildupId: 'office' } });
+      const r = await s.api('PUT', `/buildings/${buildingId}/levels/${first.id}/floor-load`, {
+        token,
+        body: { buildupId: 'office' },
+      });
       expect(r.status).toBe(200);
-      expect((r.body as BuildingModelReply).floors).toEqual([{ levelId: first.id, buildupId: 'office', span: 'two-way', lines: [] }]);
+      expect((r.body as BuildingModelReply).floors).toEqual([
+        { levelId: first.id, buildupId: 'office', span: 'two-way', lines: [] },
+      ]);
       const event: BuildingModelChanged = await heard;
       expect(event.model.floors).toHaveLength(1);
       await stackHeard;
@@ -96,15 +135,25 @@ describe('the building model over the API', () => {
 
   it('takes an area set by hand with its reason', async () => {
     const first = levels[1];
-    const r = await s.api('PUT', `/stacks/${stack.id}/area-overrides`, { token, body: { overrides: [{ levelId: first.id, factor: 0.5, reason: 'Stair void' }] } });
+    const r = await s.api('PUT', `/stacks/${stack.id}/area-overrides`, {
+      token,
+      body: { overrides: [{ levelId: first.id, factor: 0.5, reason: 'Stair void' }] },
+    });
     expect(r.status).toBe(200);
     const use = (await detail(stack.id)).results.floorLoads!.find((u) => u.levelId === first.id)!;
-    expect(use).toMatchObject({ area: expect.closeTo(12.65625, 9), gridArea: expect.closeTo(25.3125, 9), overrideReason: 'Stair void' });
+    expect(use).toMatchObject({
+      area: expect.closeTo(12.65625, 9),
+      gridArea: expect.closeTo(25.3125, 9),
+      overrideReason: 'Stair void',
+    });
     await s.api('PUT', `/stacks/${stack.id}/area-overrides`, { token, body: { overrides: [] } });
   });
 
   it('renames the stacks on a grid line when the line is renamed', async () => {
-    const renamed: Grid = { ...GRID, x: { ...GRID.x, lines: GRID.x.lines.map((l) => (l.id === 'B' ? { ...l, name: 'B1' } : l)) } };
+    const renamed: Grid = {
+      ...GRID,
+      x: { ...GRID.x, lines: GRID.x.lines.map((l) => (l.id === 'B' ? { ...l, name: 'B1' } : l)) },
+    };
     expect((await s.api('PUT', `/buildings/${buildingId}/grid`, { token, body: { grid: renamed } })).status).toBe(200);
     expect((await detail(stack.id)).name).toBe('B1/2');
   });
@@ -118,7 +167,9 @@ describe('the building model over the API', () => {
   });
 
   it('refuses to drop a build-up a floor uses, and a line load off the edge of the grid', async () => {
-    expect((await s.api('PUT', `/buildings/${buildingId}/buildups`, { token, body: { buildups: [ROOF] } })).status).toBe(409);
+    expect(
+      (await s.api('PUT', `/buildings/${buildingId}/buildups`, { token, body: { buildups: [ROOF] } })).status,
+    ).toBe(409);
     const inner = await s.api('PUT', `/buildings/${buildingId}/levels/${levels[2].id}/floor-load`, {
       token,
       body: { buildupId: 'office', lines: [{ gridLineId: 'B', label: 'Wall', gk: 5 }] },
@@ -139,20 +190,33 @@ describe('the building model over the API', () => {
     expect(use.lineGk).toBeCloseTo(22.5, 9);
   });
 
-  it('freezes the model and each stack\'s place with the revision, beside the derived loads in its results', async () => {
-    const r = await s.api('POST', `/buildings/${buildingId}/revisions`, { token, body: { note: 'Floor loads', purpose: 'preliminary', acknowledgeFailingLifts: true } });
+  it("freezes the model and each stack's place with the revision, beside the derived loads in its results", async () => {
+    const r = await s.api('POST', `/buildings/${buildingId}/revisions`, {
+      token,
+      body: { note: 'Floor loads', purpose: 'preliminary', acknowledgeFailingLifts: true },
+    });
     expect(r.status).toBe(201);
-    const row = await s.ctx.db('revisions').where({ id: (r.body as { id: number }).id }).first<{ snapshot: string }>('snapshot');
+    const row = await s.ctx
+      .db('revisions')
+      .where({ id: (r.body as { id: number }).id })
+      .first<{ snapshot: string }>('snapshot');
     const snapshot = JSON.parse(row.snapshot) as RevisionSnapshot;
     expect(snapshot.buildingModel?.floors.map((f) => f.levelId).sort()).toEqual([levels[1].id, levels[2].id].sort());
     const frozen = snapshot.stacks.find((st) => st.id === stack.id)!;
     expect(frozen.placement).toEqual({ gridX: 'B', gridY: 'y2', webAlong: 'x' });
     expect(frozen.results.floorLoads?.some((u) => u.levelId === levels[1].id)).toBe(true);
-    expect(snapshot.stacks.find((st) => st.id === other.id)?.placement).toEqual({ gridX: 'C', gridY: 'y2', webAlong: 'x' });
+    expect(snapshot.stacks.find((st) => st.id === other.id)?.placement).toEqual({
+      gridX: 'C',
+      gridY: 'y2',
+      webAlong: 'x',
+    });
   });
 
   it('taking the floor load away gives the stacks their typed loads back', async () => {
-    await s.api('PUT', `/buildings/${buildingId}/levels/${levels[1].id}/floor-load`, { token, body: { buildupId: null } });
+    await s.api('PUT', `/buildings/${buildingId}/levels/${levels[1].id}/floor-load`, {
+      token,
+      body: { buildupId: null },
+    });
     expect((await detail(stack.id)).results.takeDown.find((t) => t.elevation === 4)?.Gk).toBe(100);
   });
 });

@@ -17,7 +17,13 @@ describe('buildings', () => {
   it('makes the creator the lead and starts from the default analysis options', async () => {
     const { token } = await registerUser(s, 'creator');
     const b = await createBuilding(s, token, 'Block one');
-    expect(b).toMatchObject({ name: 'Block one', role: 'lead', stackCount: 0, worstUtilisation: null, options: DEFAULT_ANALYSIS_OPTIONS });
+    expect(b).toMatchObject({
+      name: 'Block one',
+      role: 'lead',
+      stackCount: 0,
+      worstUtilisation: null,
+      options: DEFAULT_ANALYSIS_OPTIONS,
+    });
     const list = (await s.api('GET', '/buildings', { token })).body as BuildingSummary[];
     expect(list.map((x) => [x.id, x.role])).toEqual([[b.id, 'lead']]);
   });
@@ -26,7 +32,9 @@ describe('buildings', () => {
     const lead = await registerUser(s, 'lead');
     const other = await registerUser(s, 'other');
     const b = await createBuilding(s, lead.token);
-    expect(((await s.api('GET', '/buildings', { token: other.token })).body as BuildingSummary[]).some((x) => x.id === b.id)).toBe(false);
+    expect(
+      ((await s.api('GET', '/buildings', { token: other.token })).body as BuildingSummary[]).some((x) => x.id === b.id),
+    ).toBe(false);
     const r = await s.api('GET', `/buildings/${b.id}`, { token: other.token });
     expect(r.status).toBe(404);
     expect(errorCode(r.body)).toBe('not_found');
@@ -44,7 +52,8 @@ describe('buildings', () => {
   it('re-analyses every stack in one go when the lead changes the combination rule', async () => {
     const { token } = await registerUser(s, 'lead');
     const b = await createBuilding(s, token);
-    const created = (await s.api('POST', `/buildings/${b.id}/stacks`, { token, body: { name: 'C/3', template } })).body as StackSummary;
+    const created = (await s.api('POST', `/buildings/${b.id}/stacks`, { token, body: { name: 'C/3', template } }))
+      .body as StackSummary;
     const before = (await s.api('GET', `/stacks/${created.id}`, { token })).body as StackDetail;
     const r = await s.api('PATCH', `/buildings/${b.id}`, { token, body: { options: { combination: '6.10' } } });
     expect(r.status).toBe(200);
@@ -61,7 +70,8 @@ describe('buildings', () => {
   it('leaves versions alone when only the name changes', async () => {
     const { token } = await registerUser(s, 'lead');
     const b = await createBuilding(s, token);
-    const st = (await s.api('POST', `/buildings/${b.id}/stacks`, { token, body: { name: 'A/1', template } })).body as StackSummary;
+    const st = (await s.api('POST', `/buildings/${b.id}/stacks`, { token, body: { name: 'A/1', template } }))
+      .body as StackSummary;
     await s.api('PATCH', `/buildings/${b.id}`, { token, body: { name: 'Renamed', reference: 'R-1' } });
     const got = (await s.api('GET', `/buildings/${b.id}`, { token })).body as Building;
     expect([got.name, got.reference, got.stackCount]).toEqual(['Renamed', 'R-1', 1]);
@@ -72,7 +82,10 @@ describe('buildings', () => {
     const { token } = await registerUser(s, 'lead');
     const b = await createBuilding(s, token);
     await s.api('POST', `/buildings/${b.id}/stacks`, { token, body: { name: 'A/1', template } });
-    await s.api('POST', `/buildings/${b.id}/stacks`, { token, body: { name: 'A/2', template: { ...template, Gk: 300 } } });
+    await s.api('POST', `/buildings/${b.id}/stacks`, {
+      token,
+      body: { name: 'A/2', template: { ...template, Gk: 300 } },
+    });
     const stacks = (await s.api('GET', `/buildings/${b.id}/stacks`, { token })).body as StackSummary[];
     const got = (await s.api('GET', `/buildings/${b.id}`, { token })).body as Building;
     expect(got.worstUtilisation).toBe(Math.max(...stacks.map((x) => x.utilisation ?? 0)));

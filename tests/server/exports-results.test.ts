@@ -13,10 +13,12 @@ let viewer: AuthResponse;
 let buildingId: number;
 let stacks: StackSummary[];
 
-const HEADER = 'stack,version,lift,bottom_m,top_m,section,grade,section_class,NEd_kN,Lcr_y_m,Lcr_z_m,Nc_Rd_kN,Nb_y_Rd_kN,Nb_z_Rd_kN,utilisation,governing_check,status,governing_lift,note,tension_kN,resistance_kN';
+const HEADER =
+  'stack,version,lift,bottom_m,top_m,section,grade,section_class,NEd_kN,Lcr_y_m,Lcr_z_m,Nc_Rd_kN,Nb_y_Rd_kN,Nb_z_Rd_kN,utilisation,governing_check,status,governing_lift,note,tension_kN,resistance_kN';
 const readCsv = (bytes: Buffer): Record<string, string>[] => parse(bytes.toString('utf8'), { columns: true });
 /** Splice and base rows follow the lifts of each stack (docs/splices-and-bases.md). */
-const isConnection = (row: Record<string, string>): boolean => row.governing_check === 'splice tension' || row.governing_check === 'base plate';
+const isConnection = (row: Record<string, string>): boolean =>
+  row.governing_check === 'splice tension' || row.governing_check === 'base plate';
 
 beforeAll(async () => {
   s = await startTestServer();
@@ -25,7 +27,10 @@ beforeAll(async () => {
   buildingId = (await createBuilding(s, lead.token, 'Export block')).id;
   await addMember(s, lead.token, buildingId, viewer.user.email, 'viewer');
   // No self-weight, so the design force is the floor loads alone and can be worked by hand.
-  const patched = await s.api('PATCH', `/buildings/${buildingId}`, { token: lead.token, body: { options: { combination: '6.10ab', annex: 'UK', imposedReduction: true, selfWeight: false } } });
+  const patched = await s.api('PATCH', `/buildings/${buildingId}`, {
+    token: lead.token,
+    body: { options: { combination: '6.10ab', annex: 'UK', imposedReduction: true, selfWeight: false } },
+  });
   expect(patched.status).toBe(200);
   ({ stacks } = await seedBuilding(s, lead.token, buildingId, ['A/10', 'A/2']));
   // A stack with errors still appears, with its message.
@@ -48,11 +53,22 @@ describe('results as CSV', () => {
     const stored = await getStack(s, viewer.token, stacks[0]!.id);
     expect(rows.map((x) => x.lift)).toEqual(stored.results.lifts.map((l) => l.label));
     expect(rows.map((x) => x.lift)).toEqual(['L1', 'L2']);
-    expect(rows.map((x) => Number(x.utilisation))).toEqual(stored.results.lifts.map((l) => Number(l.utilisation.toFixed(3))));
-    expect(rows.filter((x) => x.governing_lift === 'yes').map((x) => x.lift)).toEqual(stored.results.lifts.filter((l) => l.liftId === stored.results.governingLiftId).map((l) => l.label));
+    expect(rows.map((x) => Number(x.utilisation))).toEqual(
+      stored.results.lifts.map((l) => Number(l.utilisation.toFixed(3))),
+    );
+    expect(rows.filter((x) => x.governing_lift === 'yes').map((x) => x.lift)).toEqual(
+      stored.results.lifts.filter((l) => l.liftId === stored.results.governingLiftId).map((l) => l.label),
+    );
 
     const bottom = rows[0]!;
-    expect(bottom).toMatchObject({ stack: 'A/10', bottom_m: '0', top_m: '7.7', section: 'UKC 254x254x89', grade: 'S355', status: 'passes' });
+    expect(bottom).toMatchObject({
+      stack: 'A/10',
+      bottom_m: '0',
+      top_m: '7.7',
+      section: 'UKC 254x254x89',
+      grade: 'S355',
+      status: 'passes',
+    });
     // EN 1990 eq. 6.10a/6.10b with Table A1.2(B) and UK NA values (γG 1.35, γQ 1.5, ξ 0.925, ψ0 0.7 for B
     // and H) and EN 1991-1-1 6.3.1.2(11) UK NA αn = 1.1 − n/10 for the leading category B (n = 3):
     // four levels of Gk 100, Qk 50 (three floors B, the roof H).
@@ -69,7 +85,8 @@ describe('results as CSV', () => {
     expect(Number(bottom.Lcr_z_m)).toBe(3.6);
     // Utilisation is the largest of NEd over the three resistances (docs/analysis-rules.md §Pieces), to the rounding
     // of the file.
-    const u = Number(bottom.NEd_kN) / Math.min(Number(bottom.Nc_Rd_kN), Number(bottom.Nb_y_Rd_kN), Number(bottom.Nb_z_Rd_kN));
+    const u =
+      Number(bottom.NEd_kN) / Math.min(Number(bottom.Nc_Rd_kN), Number(bottom.Nb_y_Rd_kN), Number(bottom.Nb_z_Rd_kN));
     expect(Number(bottom.utilisation)).toBeCloseTo(u, 3);
   });
 
@@ -78,7 +95,10 @@ describe('results as CSV', () => {
     const rows = readCsv(r.bytes).filter(isConnection);
     const stored = await getStack(s, viewer.token, stacks[0]!.id);
     expect(rows).toHaveLength((stored.results.splices ?? []).length + (stored.results.base ? 1 : 0));
-    expect(rows.map((x) => x.governing_check)).toEqual(['base plate', ...(stored.results.splices ?? []).map(() => 'splice tension')]);
+    expect(rows.map((x) => x.governing_check)).toEqual([
+      'base plate',
+      ...(stored.results.splices ?? []).map(() => 'splice tension'),
+    ]);
     for (const x of rows) expect(x).toMatchObject({ stack: 'A/10', status: 'not given', resistance_kN: '' });
     // The base carries the design force at the bottom of the column, as the lowest lift's row
     const bottomLift = readCsv(r.bytes).find((x) => x.lift === 'L1');
@@ -100,7 +120,10 @@ describe('results as CSV', () => {
 
 describe('results as XLSX', () => {
   it('the workbook has the same header and rows as the CSV and a notes sheet with the safety note', async () => {
-    const [x, c] = await Promise.all([download(s, `/buildings/${buildingId}/results.xlsx`, viewer.token), download(s, `/buildings/${buildingId}/results.csv`, viewer.token)]);
+    const [x, c] = await Promise.all([
+      download(s, `/buildings/${buildingId}/results.xlsx`, viewer.token),
+      download(s, `/buildings/${buildingId}/results.csv`, viewer.token),
+    ]);
     expect(x.status).toBe(200);
     expect(x.headers.get('content-type')).toBe('application/vnd.openxmlformats-officedocument.spreadsheetml.sheet');
     const book = new ExcelJS.Workbook();

@@ -14,7 +14,12 @@ describe('FairQueue', () => {
     const q = new FairQueue({ concurrency: 1, maxWaiting: 10, maxWaitingPerKey: 10 });
     const order: string[] = [];
     const first = gate();
-    const runs = [q.run('A', async () => { await first.promise; order.push('A1'); })];
+    const runs = [
+      q.run('A', async () => {
+        await first.promise;
+        order.push('A1');
+      }),
+    ];
     for (const t of ['A2', 'A3', 'A4']) runs.push(q.run('A', async () => void order.push(t)));
     runs.push(q.run('B', async () => void order.push('B1')));
     first.open();

@@ -65,7 +65,8 @@ describe('npm start decides when to rebuild the client', () => {
     touch('shared/engine/x.ts', new Date('2025-01-01T00:00:00Z'));
     touch('index.html', new Date('2025-01-01T00:00:00Z'));
     touch('vite.config.ts', new Date('2025-01-01T00:00:00Z'));
-    for (const dir of ['src', 'shared/engine', 'shared', '']) utimesSync(join(root, dir), new Date('2025-01-01T00:00:00Z'), new Date('2025-01-01T00:00:00Z'));
+    for (const dir of ['src', 'shared/engine', 'shared', ''])
+      utimesSync(join(root, dir), new Date('2025-01-01T00:00:00Z'), new Date('2025-01-01T00:00:00Z'));
     expect(clientBuildNeeded(root)).toBe(true);
     touch('dist/index.html', new Date('2025-01-02T00:00:00Z'));
     expect(clientBuildNeeded(root)).toBe(false);
@@ -134,7 +135,12 @@ describe('first start with the demo seed', () => {
   });
 
   it('lets each demo account sign in with the demo password and see the demo building with its role', async () => {
-    for (const [email, role] of [['lead@stanchion.test', 'lead'], ['engineer@stanchion.test', 'engineer'], ['viewer@stanchion.test', 'viewer'], ['admin@stanchion.test', 'viewer']]) {
+    for (const [email, role] of [
+      ['lead@stanchion.test', 'lead'],
+      ['engineer@stanchion.test', 'engineer'],
+      ['viewer@stanchion.test', 'viewer'],
+      ['admin@stanchion.test', 'viewer'],
+    ]) {
       const login = await s.api('POST', '/auth/login', { body: { email, password: DEMO_PASSWORD } });
       expect(login.status).toBe(200);
       const { token, user } = login.body as AuthResponse;
@@ -145,7 +151,9 @@ describe('first start with the demo seed', () => {
   });
 
   it('seeds 6–10 levels and stacks whose documents analyse without errors and pass', async () => {
-    const { token } = (await s.api('POST', '/auth/login', { body: { email: 'lead@stanchion.test', password: DEMO_PASSWORD } })).body as AuthResponse;
+    const { token } = (
+      await s.api('POST', '/auth/login', { body: { email: 'lead@stanchion.test', password: DEMO_PASSWORD } })
+    ).body as AuthResponse;
     const [building] = (await s.api('GET', '/buildings', { token })).body as BuildingSummary[];
     const levels = (await s.api('GET', `/buildings/${building.id}/levels`, { token })).body as unknown[];
     expect(levels.length).toBeGreaterThanOrEqual(6);

@@ -17,9 +17,19 @@ import { verifyEmail } from '../../server/services/users.ts';
  */
 export const onPostgres = process.env.STANCHION_TEST_ON_PG === '1' && !!process.env.TEST_DATABASE_URL;
 
-export function scaleOutConfig(): { databaseUrl: string; databaseSchema: string; redisUrl: string | null; redisPrefix: string } {
+export function scaleOutConfig(): {
+  databaseUrl: string;
+  databaseSchema: string;
+  redisUrl: string | null;
+  redisPrefix: string;
+} {
   const tag = `t_${Date.now().toString(36)}_${randomBytes(4).toString('hex')}`;
-  return { databaseUrl: process.env.TEST_DATABASE_URL!, databaseSchema: tag, redisUrl: process.env.TEST_REDIS_URL ?? null, redisPrefix: `stanchion-test:${tag}` };
+  return {
+    databaseUrl: process.env.TEST_DATABASE_URL!,
+    databaseSchema: tag,
+    redisUrl: process.env.TEST_REDIS_URL ?? null,
+    redisPrefix: `stanchion-test:${tag}`,
+  };
 }
 
 export async function dropSchema(databaseUrl: string, schema: string): Promise<void> {
@@ -34,7 +44,11 @@ export async function dropSchema(databaseUrl: string, schema: string): Promise<v
 export interface TestServer extends RunningServer {
   dataDir: string;
   /** fetch against the server with JSON in and out. */
-  api(method: string, path: string, opts?: { token?: string | null; body?: unknown; raw?: string; headers?: Record<string, string> }): Promise<ApiReply>;
+  api(
+    method: string,
+    path: string,
+    opts?: { token?: string | null; body?: unknown; raw?: string; headers?: Record<string, string> },
+  ): Promise<ApiReply>;
 }
 
 export interface ApiReply {
@@ -108,7 +122,11 @@ export interface CapturedMail {
 export async function mailTo(s: TestServer, to: string, atLeast = 1, timeoutMs = 5000): Promise<CapturedMail[]> {
   const until = Date.now() + timeoutMs;
   for (;;) {
-    const rows = await s.ctx.db('outbox').where({ to }).orderBy('id').select<CapturedMail[]>('id', 'to', 'subject', 'text', 'html');
+    const rows = await s.ctx
+      .db('outbox')
+      .where({ to })
+      .orderBy('id')
+      .select<CapturedMail[]>('id', 'to', 'subject', 'text', 'html');
     if (rows.length >= atLeast || Date.now() > until) return rows;
     await new Promise((r) => setTimeout(r, 20));
   }
@@ -123,7 +141,12 @@ export async function verificationToken(s: TestServer, email: string): Promise<s
 }
 
 /** Registers, follows the link mailed to the address, and signs in: a verified account with a session. */
-export async function registerAndVerify(s: TestServer, email: string, name: string, password = TEST_PASSWORD): Promise<AuthResponse> {
+export async function registerAndVerify(
+  s: TestServer,
+  email: string,
+  name: string,
+  password = TEST_PASSWORD,
+): Promise<AuthResponse> {
   const r = await s.api('POST', '/auth/register', { body: { email, password, name } });
   if (r.status !== 202) throw new Error(`register failed: ${r.status} ${JSON.stringify(r.body)}`);
   if (s.ctx.mailer.fakePort === null) {
@@ -162,13 +185,21 @@ export async function createBuilding(s: TestServer, token: string, name = 'Test 
 }
 
 /** A fresh test server with one lead and one building of theirs: where most server tests start. */
-export async function startWithLeadAndBuilding(buildingName?: string): Promise<{ s: TestServer; token: string; buildingId: number }> {
+export async function startWithLeadAndBuilding(
+  buildingName?: string,
+): Promise<{ s: TestServer; token: string; buildingId: number }> {
   const s = await startTestServer();
   const token = (await registerUser(s, 'lead')).token;
   return { s, token, buildingId: (await createBuilding(s, token, buildingName)).id };
 }
 
-export async function addMember(s: TestServer, leadToken: string, buildingId: number, email: string, role: Role): Promise<void> {
+export async function addMember(
+  s: TestServer,
+  leadToken: string,
+  buildingId: number,
+  email: string,
+  role: Role,
+): Promise<void> {
   const r = await s.api('POST', `/buildings/${buildingId}/members`, { token: leadToken, body: { email, role } });
   if (r.status !== 201) throw new Error(`add member failed: ${r.status} ${JSON.stringify(r.body)}`);
 }
@@ -191,7 +222,8 @@ export function listRoutes(app: Express): string[] {
   for (const layer of app.router.stack as RouteLayer[]) {
     for (const inner of layer.handle.stack ?? []) {
       if (!inner.route) continue;
-      for (const [method, on] of Object.entries(inner.route.methods)) if (on && method !== '_all') out.push(`${method.toUpperCase()} /api${inner.route.path}`);
+      for (const [method, on] of Object.entries(inner.route.methods))
+        if (on && method !== '_all') out.push(`${method.toUpperCase()} /api${inner.route.path}`);
     }
   }
   return out.sort();

@@ -2,7 +2,12 @@
 // a file of more rows than the limit are refused before parsing, and at most 100 problems are listed with
 // a count of the rest.
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { MAX_IMPORT_LINE_CHARS, MAX_IMPORT_ROWS, MAX_LISTED_PROBLEMS, type LoadsPreview } from '../../shared/schema/imports.ts';
+import {
+  MAX_IMPORT_LINE_CHARS,
+  MAX_IMPORT_ROWS,
+  MAX_LISTED_PROBLEMS,
+  type LoadsPreview,
+} from '../../shared/schema/imports.ts';
 import { upload } from '../fixtures/uploads.ts';
 import { errorCode, startWithLeadAndBuilding, type TestServer } from './helpers.ts';
 
@@ -36,7 +41,9 @@ describe('import limits', () => {
     const r = await preview(header + 'A/1,L1,1,1,B\n'.repeat(MAX_IMPORT_ROWS + 5));
     expect(r.status).toBe(422);
     const details = (r.body as { error: { details: LoadsPreview } }).error.details;
-    expect(details.problems.map((p) => p.message)).toEqual([`The file has more than ${MAX_IMPORT_ROWS} rows; at most ${MAX_IMPORT_ROWS} can be imported at once`]);
+    expect(details.problems.map((p) => p.message)).toEqual([
+      `The file has more than ${MAX_IMPORT_ROWS} rows; at most ${MAX_IMPORT_ROWS} can be imported at once`,
+    ]);
   });
 
   it('lists the first 100 problems and says how many more were left out', async () => {
@@ -48,7 +55,11 @@ describe('import limits', () => {
     const { problems, problemsOmitted } = body.error.details;
     expect(problems).toHaveLength(MAX_LISTED_PROBLEMS + 1);
     expect(problemsOmitted).toBeGreaterThanOrEqual(300 * 2 - MAX_LISTED_PROBLEMS);
-    expect(problems.at(-1)!.message).toBe(`… and ${problemsOmitted} more problems not listed; fix these and upload the file again`);
-    expect(body.error.message).toBe(`The file has ${MAX_LISTED_PROBLEMS + problemsOmitted!} problems; nothing was changed`);
+    expect(problems.at(-1)!.message).toBe(
+      `… and ${problemsOmitted} more problems not listed; fix these and upload the file again`,
+    );
+    expect(body.error.message).toBe(
+      `The file has ${MAX_LISTED_PROBLEMS + problemsOmitted!} problems; nothing was changed`,
+    );
   });
 });

@@ -21,12 +21,13 @@ const open: LiveClient[] = [];
 
 const HEADER = 'stack,level,Gk_kN,Qk_kN,category';
 const csv = (...rows: string[]) => [HEADER, ...rows].join('\n') + '\n';
-const preview = (body: string | Uint8Array, token = engineer.token) => upload(s, `/buildings/${buildingId}/imports/loads`, token, body);
+const preview = (body: string | Uint8Array, token = engineer.token) =>
+  upload(s, `/buildings/${buildingId}/imports/loads`, token, body);
 const apply = (body: string | Uint8Array, fields: Record<string, string> = {}, token = engineer.token) =>
   upload(s, `/buildings/${buildingId}/imports/loads/apply`, token, body, { fields });
 
 function problemsOf(body: unknown): ImportProblem[] {
-  return ((body as { error: { details: LoadsPreview } }).error.details).problems;
+  return (body as { error: { details: LoadsPreview } }).error.details.problems;
 }
 
 beforeAll(async () => {
@@ -47,7 +48,12 @@ afterAll(async () => {
 });
 
 describe('bad files: 4xx with row-level problems, building unchanged', () => {
-  const cases: { name: string; body: () => string | Uint8Array; status: number; expect: (p: ImportProblem[]) => void }[] = [
+  const cases: {
+    name: string;
+    body: () => string | Uint8Array;
+    status: number;
+    expect: (p: ImportProblem[]) => void;
+  }[] = [
     {
       name: 'wrong headers',
       body: () => 'stack,floor,G,Q,category\nA/1,Level 1,120,60,B\n',
@@ -81,7 +87,15 @@ describe('bad files: 4xx with row-level problems, building unchanged', () => {
     },
     {
       name: 'an unknown level, a level without a restraint, negative load, unknown category, a duplicate',
-      body: () => csv('A/1,Level 9,120,60,B', 'A/1,Ground,120,60,B', 'A/2,Level 1,-5,60,B', 'A/2,Level 2,120,60,F', 'B/1,Level 1,120,60,B', 'B/1,level 1,130,60,B'),
+      body: () =>
+        csv(
+          'A/1,Level 9,120,60,B',
+          'A/1,Ground,120,60,B',
+          'A/2,Level 1,-5,60,B',
+          'A/2,Level 2,120,60,F',
+          'B/1,Level 1,120,60,B',
+          'B/1,level 1,130,60,B',
+        ),
       status: 422,
       expect: (p) =>
         expect(p).toEqual([
@@ -124,7 +138,8 @@ describe('bad files: 4xx with row-level problems, building unchanged', () => {
       name: 'an empty file',
       body: () => '',
       status: 422,
-      expect: (p) => expect(p).toEqual([{ row: 1, column: null, message: expect.stringMatching(/^The file is empty/) }]),
+      expect: (p) =>
+        expect(p).toEqual([{ row: 1, column: null, message: expect.stringMatching(/^The file is empty/) }]),
     },
     {
       name: 'a header and no rows',
@@ -141,7 +156,8 @@ describe('bad files: 4xx with row-level problems, building unchanged', () => {
     },
     {
       name: 'text that is not UTF-8',
-      body: () => Buffer.concat([Buffer.from(`${HEADER}\nA/1,Level 1,120,60,B\n`), Buffer.from([0x41, 0xff, 0xfe, 0x2c, 0x0a])]),
+      body: () =>
+        Buffer.concat([Buffer.from(`${HEADER}\nA/1,Level 1,120,60,B\n`), Buffer.from([0x41, 0xff, 0xfe, 0x2c, 0x0a])]),
       status: 422,
       expect: (p) => expect(p).toEqual([{ row: 3, column: null, message: expect.stringMatching(/not UTF-8/) }]),
     },
@@ -176,7 +192,13 @@ describe('bad files: 4xx with row-level problems, building unchanged', () => {
   it('a request without the file field, or with the file under another name, is a 400', async () => {
     const noFile = await s.api('POST', `/buildings/${buildingId}/imports/loads`, { token: engineer.token, body: {} });
     expect(noFile.status).toBe(400);
-    const wrongField = await upload(s, `/buildings/${buildingId}/imports/loads`, engineer.token, csv('A/1,Level 1,1,1,B'), { field: 'upload' });
+    const wrongField = await upload(
+      s,
+      `/buildings/${buildingId}/imports/loads`,
+      engineer.token,
+      csv('A/1,Level 1,1,1,B'),
+      { field: 'upload' },
+    );
     expect(wrongField.status).toBe(400);
     expect(errorCode(wrongField.body)).toBe('bad_request');
   });
@@ -200,10 +222,29 @@ describe('a good file', () => {
     expect(p.rows).toBe(3);
     expect(p.unchanged).toBe(1);
     expect(p.changes).toEqual([
-      { row: 2, stack: 'A/1', stackId: stacks[0]!.id, level: 'Level 1', restraintId: 'restraint-1', before: { Gk: 100, Qk: 50, category: 'B' }, after: { Gk: 135.5, Qk: 62.5, category: 'B' } },
-      { row: 4, stack: 'B/1', stackId: stacks[2]!.id, level: 'Roof', restraintId: 'cap', before: { Gk: 100, Qk: 50, category: 'H' }, after: { Gk: 40, Qk: 15, category: 'H' } },
+      {
+        row: 2,
+        stack: 'A/1',
+        stackId: stacks[0]!.id,
+        level: 'Level 1',
+        restraintId: 'restraint-1',
+        before: { Gk: 100, Qk: 50, category: 'B' },
+        after: { Gk: 135.5, Qk: 62.5, category: 'B' },
+      },
+      {
+        row: 4,
+        stack: 'B/1',
+        stackId: stacks[2]!.id,
+        level: 'Roof',
+        restraintId: 'cap',
+        before: { Gk: 100, Qk: 50, category: 'H' },
+        after: { Gk: 40, Qk: 15, category: 'H' },
+      },
     ]);
-    expect(p.basis).toEqual([{ stackId: stacks[0]!.id, version: before[0]!.version }, { stackId: stacks[2]!.id, version: before[2]!.version }]);
+    expect(p.basis).toEqual([
+      { stackId: stacks[0]!.id, version: before[0]!.version },
+      { stackId: stacks[2]!.id, version: before[2]!.version },
+    ]);
     expect(await snapshot(s, buildingId)).toEqual(before);
   });
 
@@ -228,7 +269,14 @@ describe('a good file', () => {
     expect(after.slice(1)).toEqual(before.slice(1));
     const changed = after[0]!.doc.nodes.filter((n, i) => !isDeepStrictEqual(n, before[0]!.doc.nodes[i]));
     expect(changed.map((n) => n.id).sort()).toEqual(['restraint-1', 'restraint-3']);
-    expect(nodeAt(after[0]!.doc, 3.6)?.data).toMatchObject({ Gk: 150, Qk: 75, category: 'C', levelId: expect.any(String), axes: 'both', fixity: 'pinned' });
+    expect(nodeAt(after[0]!.doc, 3.6)?.data).toMatchObject({
+      Gk: 150,
+      Qk: 75,
+      category: 'C',
+      levelId: expect.any(String),
+      axes: 'both',
+      fixity: 'pinned',
+    });
     expect(nodeAt(after[0]!.doc, 10.8)?.data).toMatchObject({ Gk: 90, Qk: 30, category: 'B' });
     expect(after[0]!.doc.edges).toEqual(before[0]!.doc.edges);
 
@@ -253,7 +301,10 @@ describe('a good file', () => {
     const file = csv('A/2,Level 1,111,55,B');
     const p = (await preview(file)).body as LoadsPreview;
     const detail = await getStack(s, lead.token, a2.id);
-    const edit = await s.api('POST', `/stacks/${a2.id}/ops`, { token: lead.token, body: { baseVersion: detail.version, ops: [{ op: 'updateNode', id: 'lift-1', data: { note: 'checked' } }] } });
+    const edit = await s.api('POST', `/stacks/${a2.id}/ops`, {
+      token: lead.token,
+      body: { baseVersion: detail.version, ops: [{ op: 'updateNode', id: 'lift-1', data: { note: 'checked' } }] },
+    });
     expect(edit.status).toBe(200);
     const before = await snapshot(s, buildingId);
     const r = await apply(file, { fileHash: p.fileHash, basis: JSON.stringify(p.basis) });
@@ -304,7 +355,10 @@ describe('round trip', () => {
 
 describe('formula-looking names', () => {
   it('the template writes a name that a spreadsheet would run as a formula as text, and it still re-imports', async () => {
-    const made = await s.api('POST', `/buildings/${buildingId}/stacks`, { token: lead.token, body: { name: '=C/3', template: { storeys: 1, storeyHeight: 3.6, sections: ['UKC 203x203x46'], Gk: 10, Qk: 5 } } });
+    const made = await s.api('POST', `/buildings/${buildingId}/stacks`, {
+      token: lead.token,
+      body: { name: '=C/3', template: { storeys: 1, storeyHeight: 3.6, sections: ['UKC 203x203x46'], Gk: 10, Qk: 5 } },
+    });
     expect(made.status).toBe(201);
     const t = await download(s, `/buildings/${buildingId}/imports/loads/template.csv`, viewer.token);
     const lines = t.bytes.toString('utf8').trim().split(/\r?\n/);

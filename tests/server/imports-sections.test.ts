@@ -20,13 +20,22 @@ const csv = (...rows: string[]) => [HEADER, ...rows].join('\n') + '\n';
 // BS 4-1 dimensions of UKC 203x203x46 (h 203.2, b 203.6, tw 7.2, tf 11.0, r 10.2 mm), from memory of
 // SCI P363 (steel building design: design data), under a name of our own.
 const OWN_COLUMN = 'OWN 203 COL,I,rolled,203.2,203.6,7.2,11.0,10.2,,';
-const preview = (body: string) => upload(s, `/buildings/${buildingId}/imports/sections`, engineer.token, body, { fileName: 'sections.csv' });
-const apply = (body: string, fields: Record<string, string> = {}) => upload(s, `/buildings/${buildingId}/imports/sections/apply`, engineer.token, body, { fields });
-const problemsOf = (body: unknown): ImportProblem[] => (body as { error: { details: SectionsPreview } }).error.details.problems;
-const storedCount = async () => Number((await s.ctx.db('company_sections').where({ building_id: buildingId }).count<{ n: number }[]>({ n: '*' }))[0]!.n);
+const preview = (body: string) =>
+  upload(s, `/buildings/${buildingId}/imports/sections`, engineer.token, body, { fileName: 'sections.csv' });
+const apply = (body: string, fields: Record<string, string> = {}) =>
+  upload(s, `/buildings/${buildingId}/imports/sections/apply`, engineer.token, body, { fields });
+const problemsOf = (body: unknown): ImportProblem[] =>
+  (body as { error: { details: SectionsPreview } }).error.details.problems;
+const storedCount = async () =>
+  Number(
+    (await s.ctx.db('company_sections').where({ building_id: buildingId }).count<{ n: number }[]>({ n: '*' }))[0]!.n,
+  );
 
 async function newStack(name: string, section: string): Promise<StackSummary> {
-  const r = await s.api('POST', `/buildings/${buildingId}/stacks`, { token: lead.token, body: { name, template: { ...TEMPLATE, sections: [section] } } });
+  const r = await s.api('POST', `/buildings/${buildingId}/stacks`, {
+    token: lead.token,
+    body: { name, template: { ...TEMPLATE, sections: [section] } },
+  });
   expect(r.status).toBe(201);
   return r.body as StackSummary;
 }
@@ -62,9 +71,17 @@ describe('bad section files', () => {
       expect(r.status).toBe(422);
       expect(errorCode(r.body)).toBe('unprocessable');
       expect(problemsOf(r.body)).toEqual([
-        { row: 2, column: 'designation', message: '"UKC 203x203x46" is a standard section in the catalogue; give your own section another name' },
+        {
+          row: 2,
+          column: 'designation',
+          message: '"UKC 203x203x46" is a standard section in the catalogue; give your own section another name',
+        },
         { row: 3, column: 'shape', message: '"Z" is not a shape; use I, SHS, RHS or CHS' },
-        { row: 4, column: 'make', message: '"extruded" is not a make of CHS sections; use hot-finished or cold-formed' },
+        {
+          row: 4,
+          column: 'make',
+          message: '"extruded" is not a make of CHS sections; use hot-finished or cold-formed',
+        },
         { row: 5, column: 'h_mm', message: 'h_mm is not a dimension of CHS sections; leave it empty' },
         { row: 6, column: null, message: expect.stringMatching(/leave no web/) },
         { row: 7, column: 't_mm', message: '"abc" is not a number (use a point for decimals, e.g. 12.5)' },
@@ -101,7 +118,11 @@ describe('a good section file', () => {
     const p = await preview(file);
     expect(p.status).toBe(200);
     const shown = p.body as SectionsPreview;
-    expect(shown.changes.map((c) => [c.row, c.designation, c.before])).toEqual([[2, 'OWN 203 COL', null], [3, 'OWN SHS 1', null], [4, 'OWN TUBE', null]]);
+    expect(shown.changes.map((c) => [c.row, c.designation, c.before])).toEqual([
+      [2, 'OWN 203 COL', null],
+      [3, 'OWN SHS 1', null],
+      [4, 'OWN TUBE', null],
+    ]);
     expect(shown.changes[1]!.after).toEqual({ shape: 'RHS', make: 'hot-finished', h: 150, b: 150, t: 8 });
     expect(await storedCount()).toBe(0);
 
@@ -110,7 +131,8 @@ describe('a good section file', () => {
     expect((r.body as ApplyResult).applied).toBe(3);
     expect((r.body as ApplyResult).stacks).toEqual([{ stackId: own.id, version: before.version + 1 }]);
 
-    const listed = (await s.api('GET', `/buildings/${buildingId}/sections?q=own%20203`, { token: lead.token })).body as CompanySectionHit[];
+    const listed = (await s.api('GET', `/buildings/${buildingId}/sections?q=own%20203`, { token: lead.token }))
+      .body as CompanySectionHit[];
     expect(listed.map((h) => h.designation)).toEqual(['OWN 203 COL']);
     // SCI P363 (steel building design: design data): UKC 203x203x46 is 46.1 kg/m (from memory); computed from dimensions within 2%.
     expect(Math.abs(listed[0]!.massPerMetre - 46.1) / 46.1).toBeLessThan(0.02);
@@ -128,7 +150,8 @@ describe('a good section file', () => {
     expect(same.changes).toEqual([]);
     expect(same.unchanged).toBe(1);
 
-    const stacks = (await s.api('GET', `/buildings/${buildingId}/stacks`, { token: lead.token })).body as StackSummary[];
+    const stacks = (await s.api('GET', `/buildings/${buildingId}/stacks`, { token: lead.token }))
+      .body as StackSummary[];
     const own = stacks.find((x) => x.name === 'C/1')!;
     const thicker = csv('OWN 203 COL,I,rolled,203.2,203.6,7.2,14.0,10.2,,');
     const r = await apply(thicker);

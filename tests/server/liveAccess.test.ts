@@ -5,7 +5,15 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type { AuthResponse, StackSummary } from '../../shared/schema/api.ts';
 import type { SessionEnded, StackChanged } from '../../shared/schema/socket.ts';
 import { signToken } from '../../server/services/tokens.ts';
-import { addMember, createBuilding, errorCode, registerUser, startTestServer, TEST_PASSWORD, type TestServer } from './helpers.ts';
+import {
+  addMember,
+  createBuilding,
+  errorCode,
+  registerUser,
+  startTestServer,
+  TEST_PASSWORD,
+  type TestServer,
+} from './helpers.ts';
 import { connect, next, request, type LiveClient } from './liveHelpers.ts';
 
 let s: TestServer;
@@ -76,18 +84,28 @@ describe('membership changes reach open sockets at once', () => {
 
     // One edit while still a member: received.
     const v1 = next(leadSocket, 'stack:changed', (p) => p.version === 1);
-    const first = await request<{ version: number }>(leadSocket, 'stack:edit', { stackId, baseVersion: 0, ops: [{ op: 'moveNode', id: 'cap', position: { x: 1, y: 1 } }] });
+    const first = await request<{ version: number }>(leadSocket, 'stack:edit', {
+      stackId,
+      baseVersion: 0,
+      ops: [{ op: 'moveNode', id: 'cap', position: { x: 1, y: 1 } }],
+    });
     expect(first.ok).toBe(true);
     await v1;
     await new Promise((r) => setTimeout(r, 100));
     expect(heard.map((p) => p.version)).toEqual([1]);
 
-    expect((await s.api('DELETE', `/buildings/${buildingId}/members/${gone.user.id}`, { token: lead.token })).status).toBe(204);
+    expect(
+      (await s.api('DELETE', `/buildings/${buildingId}/members/${gone.user.id}`, { token: lead.token })).status,
+    ).toBe(204);
     expect(await revoked).toEqual({ buildingId });
 
     // The very next edit is not received, on the stack room or the building room.
     const v2 = next(leadSocket, 'stack:changed', (p) => p.version === 2);
-    const second = await request(leadSocket, 'stack:edit', { stackId, baseVersion: 1, ops: [{ op: 'moveNode', id: 'cap', position: { x: 2, y: 2 } }] });
+    const second = await request(leadSocket, 'stack:edit', {
+      stackId,
+      baseVersion: 1,
+      ops: [{ op: 'moveNode', id: 'cap', position: { x: 2, y: 2 } }],
+    });
     expect(second.ok).toBe(true);
     await v2;
     await new Promise((r) => setTimeout(r, 200));
@@ -98,7 +116,11 @@ describe('membership changes reach open sockets at once', () => {
     const join = await request(goneSocket, 'stack:join', { stackId });
     expect(join.ok).toBe(false);
     if (!join.ok) expect(join.error.code).toBe('not_found');
-    const edit = await request(goneSocket, 'stack:edit', { stackId, baseVersion: 2, ops: [{ op: 'moveNode', id: 'cap', position: { x: 3, y: 3 } }] });
+    const edit = await request(goneSocket, 'stack:edit', {
+      stackId,
+      baseVersion: 2,
+      ops: [{ op: 'moveNode', id: 'cap', position: { x: 3, y: 3 } }],
+    });
     expect(edit.ok).toBe(false);
     expect((await s.ctx.db('stacks').where({ id: stackId }).first<{ version: number }>('version')).version).toBe(2);
   });
@@ -108,10 +130,25 @@ describe('membership changes reach open sockets at once', () => {
     const demoted = await member('demoted', 'engineer');
     const socket = await client(demoted.token);
     expect((await request(socket, 'stack:join', { stackId })).ok).toBe(true);
-    const ok = await request(socket, 'stack:edit', { stackId, baseVersion: 0, ops: [{ op: 'moveNode', id: 'cap', position: { x: 1, y: 1 } }] });
+    const ok = await request(socket, 'stack:edit', {
+      stackId,
+      baseVersion: 0,
+      ops: [{ op: 'moveNode', id: 'cap', position: { x: 1, y: 1 } }],
+    });
     expect(ok.ok).toBe(true);
-    expect((await s.api('PATCH', `/buildings/${buildingId}/members/${demoted.user.id}`, { token: lead.token, body: { role: 'viewer' } })).status).toBe(200);
-    const refused = await request(socket, 'stack:edit', { stackId, baseVersion: 1, ops: [{ op: 'moveNode', id: 'cap', position: { x: 2, y: 2 } }] });
+    expect(
+      (
+        await s.api('PATCH', `/buildings/${buildingId}/members/${demoted.user.id}`, {
+          token: lead.token,
+          body: { role: 'viewer' },
+        })
+      ).status,
+    ).toBe(200);
+    const refused = await request(socket, 'stack:edit', {
+      stackId,
+      baseVersion: 1,
+      ops: [{ op: 'moveNode', id: 'cap', position: { x: 2, y: 2 } }],
+    });
     expect(refused.ok).toBe(false);
     if (!refused.ok) expect(refused.error.code).toBe('forbidden');
   });
@@ -140,7 +177,12 @@ describe('sessions end', () => {
     const socket = await client(signToken(s.ctx.config.jwtSecret, eng.user.id, 0, 1));
     // jwt expiry has a one-second resolution: wait until it has certainly passed, then edit at once.
     await new Promise((r) => setTimeout(r, 1100));
-    const r = await request(socket, 'stack:edit', { stackId, baseVersion: 0, ops: [{ op: 'moveNode', id: 'cap', position: { x: 5, y: 5 } }] }, 2000).catch(() => null);
+    const r = await request(
+      socket,
+      'stack:edit',
+      { stackId, baseVersion: 0, ops: [{ op: 'moveNode', id: 'cap', position: { x: 5, y: 5 } }] },
+      2000,
+    ).catch(() => null);
     // Either the timer closed the socket first (no reply) or the event was refused with 401.
     if (r) {
       expect(r.ok).toBe(false);
@@ -173,7 +215,11 @@ describe('sessions end', () => {
     const eng = await member('elsewhere', 'engineer');
     const socket = await client(eng.token);
     await s.ctx.db('users').where({ id: eng.user.id }).increment('token_version', 1);
-    const r = await request(socket, 'stack:edit', { stackId, baseVersion: 0, ops: [{ op: 'moveNode', id: 'cap', position: { x: 1, y: 1 } }] });
+    const r = await request(socket, 'stack:edit', {
+      stackId,
+      baseVersion: 0,
+      ops: [{ op: 'moveNode', id: 'cap', position: { x: 1, y: 1 } }],
+    });
     expect(r.ok).toBe(false);
     if (!r.ok) expect(r.error.code).toBe('unauthenticated');
     await closed(socket);
@@ -184,7 +230,10 @@ describe('sessions end', () => {
     const eng = await member('password', 'engineer');
     const socket = await client(eng.token);
     const closing = closed(socket);
-    const r = await s.api('POST', '/auth/password', { token: eng.token, body: { currentPassword: TEST_PASSWORD, newPassword: 'a quite different passphrase' } });
+    const r = await s.api('POST', '/auth/password', {
+      token: eng.token,
+      body: { currentPassword: TEST_PASSWORD, newPassword: 'a quite different passphrase' },
+    });
     expect(r.status).toBe(200);
     expect(await closing).toBe('io server disconnect');
     expect((await s.api('GET', '/me', { token: eng.token })).status).toBe(401);

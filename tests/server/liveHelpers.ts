@@ -1,6 +1,11 @@
 // Real socket.io-client connections to a test server, with promise-returning emits.
 import { io, type Socket } from 'socket.io-client';
-import type { ClientToServerEvents, ServerToClientEvents, StackChanged, StackJoinAck } from '../../shared/schema/socket.ts';
+import type {
+  ClientToServerEvents,
+  ServerToClientEvents,
+  StackChanged,
+  StackJoinAck,
+} from '../../shared/schema/socket.ts';
 import type { ApiErrorBody } from '../../shared/schema/errors.ts';
 import type { Op } from '../../shared/schema/ops.ts';
 import type { StackDocument } from '../../shared/schema/stack.ts';
@@ -10,7 +15,12 @@ export type LiveClient = Socket<ServerToClientEvents, ClientToServerEvents>;
 export type AckReply<T> = { ok: true; data: T } | ({ ok: false } & ApiErrorBody);
 
 export function connect(url: string, token: string | null): Promise<LiveClient> {
-  const socket: LiveClient = io(url, { auth: token ? { token } : {}, transports: ['websocket'], reconnection: false, forceNew: true });
+  const socket: LiveClient = io(url, {
+    auth: token ? { token } : {},
+    transports: ['websocket'],
+    reconnection: false,
+    forceNew: true,
+  });
   return new Promise((resolve, reject) => {
     socket.once('connect', () => resolve(socket));
     socket.once('connect_error', (err) => {
@@ -21,9 +31,18 @@ export function connect(url: string, token: string | null): Promise<LiveClient> 
 }
 
 /** Emits an event and resolves with its acknowledgement (any payload, valid or not). */
-export function request<T>(socket: LiveClient, event: string, payload: unknown, timeoutMs = 10_000): Promise<AckReply<T>> {
+export function request<T>(
+  socket: LiveClient,
+  event: string,
+  payload: unknown,
+  timeoutMs = 10_000,
+): Promise<AckReply<T>> {
   return new Promise((resolve, reject) => {
-    const emit = socket.timeout(timeoutMs).emit as unknown as (e: string, p: unknown, cb: (err: Error | null, res: AckReply<T>) => void) => void;
+    const emit = socket.timeout(timeoutMs).emit as unknown as (
+      e: string,
+      p: unknown,
+      cb: (err: Error | null, res: AckReply<T>) => void,
+    ) => void;
     emit.call(socket.timeout(timeoutMs), event, payload, (err, res) => (err ? reject(err) : resolve(res)));
   });
 }
@@ -109,10 +128,13 @@ export class Editor {
     const restraints = this.doc.nodes.filter((n) => n.kind === 'restraint');
     const loads = this.doc.nodes.filter((n) => n.kind === 'load' && n.id.startsWith('ld-'));
     const roll = this.rand();
-    if (roll < 0.35) return [{ op: 'updateNode', id: this.pick(restraints).id, data: { Gk: Math.round(50 + this.rand() * 200) } }];
+    if (roll < 0.35)
+      return [{ op: 'updateNode', id: this.pick(restraints).id, data: { Gk: Math.round(50 + this.rand() * 200) } }];
     if (roll < 0.6) {
       const n = this.pick(this.doc.nodes);
-      return [{ op: 'moveNode', id: n.id, position: { x: Math.round(this.rand() * 400), y: Math.round(this.rand() * 400) } }];
+      return [
+        { op: 'moveNode', id: n.id, position: { x: Math.round(this.rand() * 400), y: Math.round(this.rand() * 400) } },
+      ];
     }
     if (roll < 0.85 || loads.length === 0) {
       this.added += 1;
@@ -127,7 +149,11 @@ export class Editor {
   }
   async edit(): Promise<void> {
     const ops = this.randomOps();
-    const r = await request<{ version: number }>(this.socket, 'stack:edit', { stackId: this.stackId, baseVersion: this.version, ops });
+    const r = await request<{ version: number }>(this.socket, 'stack:edit', {
+      stackId: this.stackId,
+      baseVersion: this.version,
+      ops,
+    });
     if (r.ok) this.acked.push({ version: r.data.version, ops });
     else if (r.error.code === 'conflict' || r.error.code === 'unprocessable') {
       // As the client does: re-join to take the server's document, then carry on.
@@ -136,4 +162,3 @@ export class Editor {
     } else throw new Error(`${this.name}: ${r.error.code} ${r.error.message}`);
   }
 }
-

@@ -3,7 +3,16 @@ import type { AddressInfo } from 'node:net';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type { Member } from '../../shared/schema/api.ts';
 import type { OutboxMessage } from '../../shared/schema/outbox.ts';
-import { createBuilding, errorCode, eventually, FAST_MAIL, makeAdmin, registerUser, startTestServer, type TestServer } from './helpers.ts';
+import {
+  createBuilding,
+  errorCode,
+  eventually,
+  FAST_MAIL,
+  makeAdmin,
+  registerUser,
+  startTestServer,
+  type TestServer,
+} from './helpers.ts';
 
 describe('the local SMTP fake and the dev outbox', () => {
   let s: TestServer;
@@ -33,8 +42,12 @@ describe('the local SMTP fake and the dev outbox', () => {
     const msg = list.find((m) => m.subject === 'Revision A issued');
     expect(msg?.to).toBe('team@example.test');
     expect(msg?.text.trim()).toBe('See the attached package.');
-    expect(msg?.attachments).toEqual([{ filename: 'package.pdf', contentType: 'application/pdf', size: content.length }]);
-    const res = await fetch(`${s.url}/api/dev/outbox/${msg?.id}/attachments/0`, { headers: { Authorization: `Bearer ${admin.token}` } });
+    expect(msg?.attachments).toEqual([
+      { filename: 'package.pdf', contentType: 'application/pdf', size: content.length },
+    ]);
+    const res = await fetch(`${s.url}/api/dev/outbox/${msg?.id}/attachments/0`, {
+      headers: { Authorization: `Bearer ${admin.token}` },
+    });
     expect(res.headers.get('content-type')).toBe('application/pdf');
     expect(Buffer.from(await res.arrayBuffer()).equals(content)).toBe(true);
     expect((await s.api('GET', `/dev/outbox/${msg?.id}/attachments/1`, { token: admin.token })).status).toBe(404);
@@ -85,15 +98,29 @@ describe('a mail server that refuses connections', () => {
   it('answers the invitation at once, retries with back-off, logs each failure and shows the lead the failed e-mail', async () => {
     const lead = await registerUser(s, 'lead');
     const b = await createBuilding(s, lead.token);
-    const r = await s.api('POST', `/buildings/${b.id}/members`, { token: lead.token, body: { email: 'unreachable@example.test', role: 'viewer' } });
+    const r = await s.api('POST', `/buildings/${b.id}/members`, {
+      token: lead.token,
+      body: { email: 'unreachable@example.test', role: 'viewer' },
+    });
     expect(r.status).toBe(201);
-    const invited = async () => ((await s.api('GET', `/buildings/${b.id}/members`, { token: lead.token })).body as Member[]).find((m) => m.email === 'unreachable@example.test');
+    const invited = async () =>
+      ((await s.api('GET', `/buildings/${b.id}/members`, { token: lead.token })).body as Member[]).find(
+        (m) => m.email === 'unreachable@example.test',
+      );
     await eventually(async () => (await invited())?.invitationMail?.status === 'failed');
     const shown = (await invited())?.invitationMail;
     expect(shown).toMatchObject({ status: 'failed', attempts: FAST_MAIL.maxAttempts });
     expect((shown?.error ?? '').length).toBeGreaterThan(0);
-    const log = await s.ctx.db('mail_log').where({ to: 'unreachable@example.test' }).orderBy('id').select<{ status: string; attempts: number; error: string }[]>('status', 'attempts', 'error');
-    expect(log.map((l) => [l.status, l.attempts])).toEqual([['failed', 1], ['failed', 2], ['failed', 3]]);
+    const log = await s.ctx
+      .db('mail_log')
+      .where({ to: 'unreachable@example.test' })
+      .orderBy('id')
+      .select<{ status: string; attempts: number; error: string }[]>('status', 'attempts', 'error');
+    expect(log.map((l) => [l.status, l.attempts])).toEqual([
+      ['failed', 1],
+      ['failed', 2],
+      ['failed', 3],
+    ]);
     expect(s.ctx.mailer.fakePort).toBeNull();
   });
 });

@@ -2,9 +2,32 @@
 // and the database exactly as it was.
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type { Level, StackDetail, StackSummary } from '../../shared/schema/api.ts';
-import { addMember, createBuilding, errorCode, listRoutes, registerUser, startTestServer, TEST_PASSWORD, type TestServer } from './helpers.ts';
+import {
+  addMember,
+  createBuilding,
+  errorCode,
+  listRoutes,
+  registerUser,
+  startTestServer,
+  TEST_PASSWORD,
+  type TestServer,
+} from './helpers.ts';
 
-const TABLES = ['users', 'buildings', 'memberships', 'invitations', 'levels', 'stacks', 'stack_ops', 'audit_log', 'outbox', 'mail_log', 'mail_queue', 'revision_packages', 'building_models'];
+const TABLES = [
+  'users',
+  'buildings',
+  'memberships',
+  'invitations',
+  'levels',
+  'stacks',
+  'stack_ops',
+  'audit_log',
+  'outbox',
+  'mail_log',
+  'mail_queue',
+  'revision_packages',
+  'building_models',
+];
 const HUGE = JSON.stringify({ name: 'x'.repeat(1_200_000) });
 
 interface Req {
@@ -27,8 +50,14 @@ describe('malformed input on every writing route', () => {
     const other = await registerUser(s, 'member');
     const b = await createBuilding(s, token);
     await addMember(s, token, b.id, other.user.email, 'engineer');
-    const level = (await s.api('POST', `/buildings/${b.id}/levels`, { token, body: { name: 'L1', elevation: 3.5 } })).body as Level;
-    const stack = (await s.api('POST', `/buildings/${b.id}/stacks`, { token, body: { name: 'A/1', template: { storeys: 3, storeyHeight: 3.5, sections: ['UKC 203x203x46'] } } })).body as StackSummary;
+    const level = (await s.api('POST', `/buildings/${b.id}/levels`, { token, body: { name: 'L1', elevation: 3.5 } }))
+      .body as Level;
+    const stack = (
+      await s.api('POST', `/buildings/${b.id}/stacks`, {
+        token,
+        body: { name: 'A/1', template: { storeys: 3, storeyHeight: 3.5, sections: ['UKC 203x203x46'] } },
+      })
+    ).body as StackSummary;
     doc = ((await s.api('GET', `/stacks/${stack.id}`, { token })).body as StackDetail).doc;
     ids = { building: b.id, level: level.id, stack: stack.id, member: other.user.id };
   });
@@ -38,7 +67,13 @@ describe('malformed input on every writing route', () => {
 
   async function snapshot(): Promise<string> {
     const parts: unknown[] = [];
-    for (const t of TABLES) parts.push(await s.ctx.db(t).select('*').orderBy(t === 'building_models' ? 'building_id' : 'id'));
+    for (const t of TABLES)
+      parts.push(
+        await s.ctx
+          .db(t)
+          .select('*')
+          .orderBy(t === 'building_models' ? 'building_id' : 'id'),
+      );
     return JSON.stringify(parts);
   }
 
@@ -60,7 +95,13 @@ describe('malformed input on every writing route', () => {
   }
 
   // bodyless: the route reads no body, so only its path parameters can be malformed.
-  const routes: { name: string; method: string; path: () => string; bodyless?: boolean; cases: () => [string, Req][] }[] = [
+  const routes: {
+    name: string;
+    method: string;
+    path: () => string;
+    bodyless?: boolean;
+    cases: () => [string, Req][];
+  }[] = [
     {
       name: 'POST /api/buildings',
       method: 'POST',
@@ -156,23 +197,62 @@ describe('malformed input on every writing route', () => {
       method: 'POST',
       path: () => `/buildings/${ids.building}/stacks`,
       cases: () => [
-        ['a negative storey height', { body: { name: 'T', template: { storeys: 3, storeyHeight: -3.5, sections: ['UKC 203x203x46'] } } }],
-        ['a storey height of 1e308', { body: { name: 'T', template: { storeys: 3, storeyHeight: 1e308, sections: ['UKC 203x203x46'] } } }],
-        ['NaN as a string for storeys', { body: { name: 'T', template: { storeys: 'NaN', storeyHeight: 3, sections: ['UKC 203x203x46'] } } }],
-        ['a fractional storey count', { body: { name: 'T', template: { storeys: 2.5, storeyHeight: 3, sections: ['UKC 203x203x46'] } } }],
+        [
+          'a negative storey height',
+          { body: { name: 'T', template: { storeys: 3, storeyHeight: -3.5, sections: ['UKC 203x203x46'] } } },
+        ],
+        [
+          'a storey height of 1e308',
+          { body: { name: 'T', template: { storeys: 3, storeyHeight: 1e308, sections: ['UKC 203x203x46'] } } },
+        ],
+        [
+          'NaN as a string for storeys',
+          { body: { name: 'T', template: { storeys: 'NaN', storeyHeight: 3, sections: ['UKC 203x203x46'] } } },
+        ],
+        [
+          'a fractional storey count',
+          { body: { name: 'T', template: { storeys: 2.5, storeyHeight: 3, sections: ['UKC 203x203x46'] } } },
+        ],
         ['no sections', { body: { name: 'T', template: { storeys: 2, storeyHeight: 3, sections: [] } } }],
-        ['neither storeys nor elevations', { body: { name: 'T', template: { storeyHeight: 3, sections: ['UKC 203x203x46'] } } }],
-        ['elevations with a storey height', { body: { name: 'T', template: { elevations: [0, 4, 8], storeyHeight: 4, sections: ['UKC 203x203x46'] } } }],
-        ['elevations and a storey count that disagree', { body: { name: 'T', template: { elevations: [0, 4, 8], storeys: 5, sections: ['UKC 203x203x46'] } } }],
-        ['elevations that fall', { body: { name: 'T', template: { elevations: [0, 8, 4], sections: ['UKC 203x203x46'] } } }],
+        [
+          'neither storeys nor elevations',
+          { body: { name: 'T', template: { storeyHeight: 3, sections: ['UKC 203x203x46'] } } },
+        ],
+        [
+          'elevations with a storey height',
+          { body: { name: 'T', template: { elevations: [0, 4, 8], storeyHeight: 4, sections: ['UKC 203x203x46'] } } },
+        ],
+        [
+          'elevations and a storey count that disagree',
+          { body: { name: 'T', template: { elevations: [0, 4, 8], storeys: 5, sections: ['UKC 203x203x46'] } } },
+        ],
+        [
+          'elevations that fall',
+          { body: { name: 'T', template: { elevations: [0, 8, 4], sections: ['UKC 203x203x46'] } } },
+        ],
         ['a single elevation', { body: { name: 'T', template: { elevations: [0], sections: ['UKC 203x203x46'] } } }],
-        ['an elevation of 1e308', { body: { name: 'T', template: { elevations: [0, 1e308], sections: ['UKC 203x203x46'] } } }],
-        ['an elevation as a string', { body: { name: 'T', template: { elevations: [0, '3.5'], sections: ['UKC 203x203x46'] } } }],
-        ['elevations that are not a list', { body: { name: 'T', template: { elevations: { base: 0 }, sections: ['UKC 203x203x46'] } } }],
-        ['both a document and a template', { body: { name: 'T', doc, template: { storeys: 2, storeyHeight: 3, sections: ['UKC 203x203x46'] } } }],
+        [
+          'an elevation of 1e308',
+          { body: { name: 'T', template: { elevations: [0, 1e308], sections: ['UKC 203x203x46'] } } },
+        ],
+        [
+          'an elevation as a string',
+          { body: { name: 'T', template: { elevations: [0, '3.5'], sections: ['UKC 203x203x46'] } } },
+        ],
+        [
+          'elevations that are not a list',
+          { body: { name: 'T', template: { elevations: { base: 0 }, sections: ['UKC 203x203x46'] } } },
+        ],
+        [
+          'both a document and a template',
+          { body: { name: 'T', doc, template: { storeys: 2, storeyHeight: 3, sections: ['UKC 203x203x46'] } } },
+        ],
         ['a negative Gk in the document', { body: { name: 'T', doc: restraint(doc, { Gk: -10 }) } }],
         ['an elevation of 1e308 in the document', { body: { name: 'T', doc: restraint(doc, { elevation: 1e308 }) } }],
-        ['a node of an unknown kind', { body: { name: 'T', doc: { nodes: [{ id: 'x', kind: 'beam', data: {} }], edges: [] } } }],
+        [
+          'a node of an unknown kind',
+          { body: { name: 'T', doc: { nodes: [{ id: 'x', kind: 'beam', data: {} }], edges: [] } } },
+        ],
       ],
     },
     {
@@ -200,8 +280,14 @@ describe('malformed input on every writing route', () => {
         ['NaN as a string for baseVersion', { body: { baseVersion: 'NaN' } }],
         ['an unknown field', { body: { baseVersion: 0, doc } }],
         ['a stale baseVersion', { body: { baseVersion: 7 } }],
-        ['a version that is not a number', { path: `/stacks/${ids.stack}/versions/abc/restore`, body: { baseVersion: 0 } }],
-        ['a version ahead of the stack', { path: `/stacks/${ids.stack}/versions/99/restore`, body: { baseVersion: 0 } }],
+        [
+          'a version that is not a number',
+          { path: `/stacks/${ids.stack}/versions/abc/restore`, body: { baseVersion: 0 } },
+        ],
+        [
+          'a version ahead of the stack',
+          { path: `/stacks/${ids.stack}/versions/99/restore`, body: { baseVersion: 0 } },
+        ],
       ],
     },
     {
@@ -211,12 +297,29 @@ describe('malformed input on every writing route', () => {
       cases: () => [
         ['an empty ops list', { body: { baseVersion: 0, ops: [] } }],
         ['an unknown op', { body: { baseVersion: 0, ops: [{ op: 'explode', id: 'cap' }] } }],
-        ['an update to a negative elevation far below the limit', { body: { baseVersion: 0, ops: [{ op: 'updateNode', id: 'cap', data: { elevation: -1e308 } }] } }],
-        ['NaN as a string in an update', { body: { baseVersion: 0, ops: [{ op: 'updateNode', id: 'cap', data: { Gk: 'NaN' } }] } }],
-        ['a position of 1e308', { body: { baseVersion: 0, ops: [{ op: 'moveNode', id: 'cap', position: { x: 1e308, y: 0 } }] } }],
+        [
+          'an update to a negative elevation far below the limit',
+          { body: { baseVersion: 0, ops: [{ op: 'updateNode', id: 'cap', data: { elevation: -1e308 } }] } },
+        ],
+        [
+          'NaN as a string in an update',
+          { body: { baseVersion: 0, ops: [{ op: 'updateNode', id: 'cap', data: { Gk: 'NaN' } }] } },
+        ],
+        [
+          'a position of 1e308',
+          { body: { baseVersion: 0, ops: [{ op: 'moveNode', id: 'cap', position: { x: 1e308, y: 0 } }] } },
+        ],
         ['an unknown node id', { body: { baseVersion: 0, ops: [{ op: 'removeNode', id: 'nope' }] } }],
         ['a node id with spaces', { body: { baseVersion: 0, ops: [{ op: 'removeNode', id: 'a b' }] } }],
-        ['501 ops', { body: { baseVersion: 0, ops: Array.from({ length: 501 }, () => ({ op: 'moveNode', id: 'cap', position: { x: 0, y: 0 } })) } }],
+        [
+          '501 ops',
+          {
+            body: {
+              baseVersion: 0,
+              ops: Array.from({ length: 501 }, () => ({ op: 'moveNode', id: 'cap', position: { x: 0, y: 0 } })),
+            },
+          },
+        ],
       ],
     },
     {
@@ -241,7 +344,9 @@ describe('malformed input on every writing route', () => {
       path: () => `/buildings/${ids.building}/grid`,
       cases: () => {
         const line = (id: string, position: unknown) => ({ id, name: id, position });
-        const grid = (xLines: unknown[], extra: Record<string, unknown> = {}) => ({ grid: { x: { lines: xLines, ...extra }, y: { lines: [line('y1', 0)] } } });
+        const grid = (xLines: unknown[], extra: Record<string, unknown> = {}) => ({
+          grid: { x: { lines: xLines, ...extra }, y: { lines: [line('y1', 0)] } },
+        });
         return [
           ['a position of 1e308', { body: grid([line('A', 1e308)]) }],
           ['a position as a string', { body: grid([line('A', '6')]) }],
@@ -259,12 +364,21 @@ describe('malformed input on every writing route', () => {
       method: 'PUT',
       path: () => `/buildings/${ids.building}/buildups`,
       cases: () => {
-        const buildup = (extra: Record<string, unknown>) => ({ id: 'b1', name: 'Office', permanent: [{ label: 'Slab', gk: 3.5 }], imposed: { qk: 2.5, category: 'B' }, ...extra });
+        const buildup = (extra: Record<string, unknown>) => ({
+          id: 'b1',
+          name: 'Office',
+          permanent: [{ label: 'Slab', gk: 3.5 }],
+          imposed: { qk: 2.5, category: 'B' },
+          ...extra,
+        });
         return [
           ['a negative load', { body: { buildups: [buildup({ permanent: [{ label: 'Slab', gk: -3 }] })] } }],
           ['an unknown category', { body: { buildups: [buildup({ imposed: { qk: 2.5, category: 'Z' } })] } }],
           ['a load of 1e308', { body: { buildups: [buildup({ imposed: { qk: 1e308, category: 'B' } })] } }],
-          ['partitions that are neither imposed nor permanent', { body: { buildups: [buildup({ partitions: { load: 1, as: 'both' } })] } }],
+          [
+            'partitions that are neither imposed nor permanent',
+            { body: { buildups: [buildup({ partitions: { load: 1, as: 'both' } })] } },
+          ],
           ['two build-ups of one id', { body: { buildups: [buildup({}), buildup({ name: 'Other' })] } }],
           ['two build-ups of one name', { body: { buildups: [buildup({}), buildup({ id: 'b2', name: 'office' })] } }],
         ];
@@ -277,9 +391,18 @@ describe('malformed input on every writing route', () => {
       cases: () => [
         ['a build-up the building does not have', { body: { buildupId: 'nope' } }],
         ['an unknown span', { body: { buildupId: null, span: 'diagonal' } }],
-        ['a line load on a line the grid does not have', { body: { buildupId: null, lines: [{ gridLineId: 'Q', label: 'Cladding', gk: 'NaN' }] } }],
-        ['a level of another building', { path: `/buildings/${ids.building}/levels/999999/floor-load`, body: { buildupId: null } }],
-        ['a level id that is not a number', { path: `/buildings/${ids.building}/levels/L1/floor-load`, body: { buildupId: null } }],
+        [
+          'a line load on a line the grid does not have',
+          { body: { buildupId: null, lines: [{ gridLineId: 'Q', label: 'Cladding', gk: 'NaN' }] } },
+        ],
+        [
+          'a level of another building',
+          { path: `/buildings/${ids.building}/levels/999999/floor-load`, body: { buildupId: null } },
+        ],
+        [
+          'a level id that is not a number',
+          { path: `/buildings/${ids.building}/levels/L1/floor-load`, body: { buildupId: null } },
+        ],
       ],
     },
     {
@@ -298,15 +421,40 @@ describe('malformed input on every writing route', () => {
       method: 'PUT',
       path: () => `/stacks/${ids.stack}/area-overrides`,
       cases: () => [
-        ['an area and a factor', { body: { overrides: [{ levelId: ids.level, area: 10, factor: 0.5, reason: 'Void' }] } }],
+        [
+          'an area and a factor',
+          { body: { overrides: [{ levelId: ids.level, area: 10, factor: 0.5, reason: 'Void' }] } },
+        ],
         ['no reason', { body: { overrides: [{ levelId: ids.level, factor: 0.5, reason: ' ' }] } }],
         ['a negative factor', { body: { overrides: [{ levelId: ids.level, factor: -0.5, reason: 'Void' }] } }],
-        ['a level the building does not have', { body: { overrides: [{ levelId: '999999', factor: 0.5, reason: 'Void' }] } }],
-        ['two overrides of one level', { body: { overrides: [{ levelId: ids.level, factor: 0.5, reason: 'Void' }, { levelId: ids.level, area: 3, reason: 'Core' }] } }],
+        [
+          'a level the building does not have',
+          { body: { overrides: [{ levelId: '999999', factor: 0.5, reason: 'Void' }] } },
+        ],
+        [
+          'two overrides of one level',
+          {
+            body: {
+              overrides: [
+                { levelId: ids.level, factor: 0.5, reason: 'Void' },
+                { levelId: ids.level, area: 3, reason: 'Core' },
+              ],
+            },
+          },
+        ],
       ],
     },
     // Routes of colleagues' features: a JSON body where a CSV upload is expected, bad fields, bad ids.
-    ...['loads', 'loads/apply', 'sections', 'sections/apply', 'grid', 'grid/apply', 'floor-loads', 'floor-loads/apply'].map((kind) => ({
+    ...[
+      'loads',
+      'loads/apply',
+      'sections',
+      'sections/apply',
+      'grid',
+      'grid/apply',
+      'floor-loads',
+      'floor-loads/apply',
+    ].map((kind) => ({
       name: `POST /api/buildings/:id/imports/${kind}`,
       method: 'POST',
       path: () => `/buildings/${ids.building}/imports/${kind}`,
@@ -377,7 +525,10 @@ describe('malformed input on every writing route', () => {
         ['a password of ten spaces', { body: { email: 'r@example.test', password: ' '.repeat(10), name: 'R' } }],
         ['a password of 73 bytes', { body: { email: 'r@example.test', password: 'é'.repeat(37), name: 'R' } }],
         ['an easily guessed password', { body: { email: 'r@example.test', password: 'password123456', name: 'R' } }],
-        ['a password that is the address', { body: { email: 'quillon.marsh@example.test', password: 'quillon.marsh', name: 'R' } }],
+        [
+          'a password that is the address',
+          { body: { email: 'quillon.marsh@example.test', password: 'quillon.marsh', name: 'R' } },
+        ],
         ['no e-mail address', { body: { password: 'long enough password', name: 'R' } }],
       ],
     },
@@ -412,7 +563,10 @@ describe('malformed input on every writing route', () => {
       method: 'POST',
       path: () => '/auth/password',
       cases: () => [
-        ['a wrong current password', { body: { currentPassword: 'not the password at all', newPassword: 'another long passphrase' } }],
+        [
+          'a wrong current password',
+          { body: { currentPassword: 'not the password at all', newPassword: 'another long passphrase' } },
+        ],
         ['a weak new password', { body: { currentPassword: TEST_PASSWORD, newPassword: 'password123456' } }],
         ['a new password of 73 bytes', { body: { currentPassword: TEST_PASSWORD, newPassword: 'é'.repeat(37) } }],
         ['a number as the new password', { body: { currentPassword: TEST_PASSWORD, newPassword: 12345678901 } }],
@@ -436,7 +590,11 @@ describe('malformed input on every writing route', () => {
       const cases = [...(route.bodyless ? [] : common), ...route.cases()];
       const failures: string[] = [];
       for (const [label, req] of cases) {
-        const r = await s.api(route.method, req.path ?? route.path(), { token: req.anonymous ? null : token, body: req.body, raw: req.raw });
+        const r = await s.api(route.method, req.path ?? route.path(), {
+          token: req.anonymous ? null : token,
+          body: req.body,
+          raw: req.raw,
+        });
         const ok = r.status >= 400 && r.status < 500 && errorCode(r.body) !== undefined;
         if (!ok) failures.push(`${label}: ${r.status} ${JSON.stringify(r.body).slice(0, 200)}`);
       }

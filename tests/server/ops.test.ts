@@ -7,7 +7,14 @@ import { stackTemplateSchema } from '../../shared/schema/api.ts';
 import { stackDocumentSchema, type StackDocument } from '../../shared/schema/stack.ts';
 import { diffDocs } from '../../server/services/docDiff.ts';
 
-const template = stackTemplateSchema.parse({ storeys: 5, storeyHeight: 3.5, spliceEvery: 2, sections: ['UKC 254x254x89', 'UKC 203x203x46'], Gk: 100, Qk: 50 });
+const template = stackTemplateSchema.parse({
+  storeys: 5,
+  storeyHeight: 3.5,
+  spliceEvery: 2,
+  sections: ['UKC 254x254x89', 'UKC 203x203x46'],
+  Gk: 100,
+  Qk: 50,
+});
 const base = stackFromTemplate(template);
 
 const canonical = (d: StackDocument) => ({
@@ -58,8 +65,13 @@ describe('applyOps', () => {
 
 describe('touchedIds', () => {
   it('counts a removed node and its edges, and an added edge with both ends', () => {
-    expect([...touchedIds(base, [{ op: 'removeNode', id: 'restraint-1' }])].sort()).toEqual(['e-restraint-1-lift-1', 'restraint-1']);
-    expect([...touchedIds(base, [{ op: 'addEdge', edge: { id: 'e9', source: 'restraint-1', target: 'lift-2' } }])].sort()).toEqual(['e9', 'lift-2', 'restraint-1']);
+    expect([...touchedIds(base, [{ op: 'removeNode', id: 'restraint-1' }])].sort()).toEqual([
+      'e-restraint-1-lift-1',
+      'restraint-1',
+    ]);
+    expect(
+      [...touchedIds(base, [{ op: 'addEdge', edge: { id: 'e9', source: 'restraint-1', target: 'lift-2' } }])].sort(),
+    ).toEqual(['e9', 'lift-2', 'restraint-1']);
   });
 });
 
@@ -71,7 +83,11 @@ describe('diffDocs (a whole-document write as ops)', () => {
   it('replaces a node whose kind changed or whose data lost a key, and re-adds its surviving edges', () => {
     const after = structuredClone(base);
     const i = after.nodes.findIndex((n) => n.id === 'splice-1');
-    after.nodes[i] = { id: 'splice-1', kind: 'restraint', data: { elevation: 7.5, axes: 'both', fixity: 'pinned', Gk: 0, Qk: 0, category: 'A' } };
+    after.nodes[i] = {
+      id: 'splice-1',
+      kind: 'restraint',
+      data: { elevation: 7.5, axes: 'both', fixity: 'pinned', Gk: 0, Qk: 0, category: 'A' },
+    };
     const ops = diffDocs(base, after);
     expect(canonical(applyOps(base, ops))).toEqual(canonical(after));
   });
@@ -86,17 +102,24 @@ describe('diffDocs (a whole-document write as ops)', () => {
     });
     fc.assert(
       fc.property(docs, (p) => {
-        const before = stackFromTemplate(stackTemplateSchema.parse({ ...template, storeys: p.storeys, spliceEvery: p.spliceEvery }));
+        const before = stackFromTemplate(
+          stackTemplateSchema.parse({ ...template, storeys: p.storeys, spliceEvery: p.spliceEvery }),
+        );
         const after: StackDocument = {
           nodes: before.nodes
             .filter((_, i) => i % p.dropEvery !== 1)
             .map((n) => (n.kind === 'restraint' ? { ...n, data: { ...n.data, Gk: p.gk } } : n))
-            .map((n) => (p.dropPositions ? { id: n.id, kind: n.kind, data: n.data } as typeof n : n)),
+            .map((n) => (p.dropPositions ? ({ id: n.id, kind: n.kind, data: n.data } as typeof n) : n)),
           edges: before.edges.filter((_, i) => i % p.dropEvery !== 0),
         };
         after.nodes.push({ id: 'added', kind: 'splice', data: { elevation: 1 } });
         after.edges.push({ id: 'e-added', source: 'added', target: before.nodes[0].id });
-        const cleaned = { nodes: after.nodes, edges: after.edges.filter((e) => after.nodes.some((n) => n.id === e.source) && after.nodes.some((n) => n.id === e.target)) };
+        const cleaned = {
+          nodes: after.nodes,
+          edges: after.edges.filter(
+            (e) => after.nodes.some((n) => n.id === e.source) && after.nodes.some((n) => n.id === e.target),
+          ),
+        };
         expect(canonical(applyOps(before, diffDocs(before, cleaned)))).toEqual(canonical(cleaned));
       }),
       { numRuns: 200 },
@@ -110,10 +133,19 @@ describe('stackFromTemplate', () => {
     const kinds = (k: string) => base.nodes.filter((n) => n.kind === k);
     // 5 storeys, splice every 2: lifts over storeys 1–2, 3–4, 5; floors at levels 1–4; roof is the cap.
     expect(kinds('lift')).toHaveLength(3);
-    expect(kinds('splice').map((n) => n.kind === 'splice' && n.data.elevation)).toEqual([7 + SPLICE_ABOVE_FLOOR_M, 14 + SPLICE_ABOVE_FLOOR_M]);
+    expect(kinds('splice').map((n) => n.kind === 'splice' && n.data.elevation)).toEqual([
+      7 + SPLICE_ABOVE_FLOOR_M,
+      14 + SPLICE_ABOVE_FLOOR_M,
+    ]);
     expect(kinds('restraint').map((n) => n.kind === 'restraint' && n.data.elevation)).toEqual([3.5, 7, 10.5, 14]);
-    expect(kinds('cap')).toEqual([expect.objectContaining({ data: { elevation: 17.5, fixity: 'pinned', Gk: 100, Qk: 50, category: 'H' } })]);
-    expect(kinds('lift').map((n) => n.kind === 'lift' && n.data.section)).toEqual(['UKC 254x254x89', 'UKC 203x203x46', 'UKC 203x203x46']);
+    expect(kinds('cap')).toEqual([
+      expect.objectContaining({ data: { elevation: 17.5, fixity: 'pinned', Gk: 100, Qk: 50, category: 'H' } }),
+    ]);
+    expect(kinds('lift').map((n) => n.kind === 'lift' && n.data.section)).toEqual([
+      'UKC 254x254x89',
+      'UKC 203x203x46',
+      'UKC 203x203x46',
+    ]);
   });
 
   it('links restraints to the building level at the same elevation', () => {

@@ -7,7 +7,15 @@ import type { RevisionDetail } from '../../shared/schema/revisions.ts';
 import { reanalyseOutdatedOnStart } from '../../server/services/outdatedResults.ts';
 import { startWithLeadAndBuilding, type TestServer } from './helpers.ts';
 
-const template = { storeys: 2, storeyHeight: 4, spliceEvery: 2, sections: ['UKC 203x203x46'], Gk: 100, Qk: 50, roofFaces: { yPlus: { Gk: 60, Qk: 20 } } };
+const template = {
+  storeys: 2,
+  storeyHeight: 4,
+  spliceEvery: 2,
+  sections: ['UKC 203x203x46'],
+  Gk: 100,
+  Qk: 50,
+  roofFaces: { yPlus: { Gk: 60, Qk: 20 } },
+};
 
 describe('results of older rules at freezing', () => {
   let s: TestServer;
@@ -23,19 +31,27 @@ describe('results of older rules at freezing', () => {
   const get = async (id: number) => (await s.api('GET', `/stacks/${id}`, { token })).body as StackDetail;
 
   it('marks stored results with the engine version that produced them', async () => {
-    const sum = (await s.api('POST', `/buildings/${buildingId}/stacks`, { token, body: { name: 'V/1', template } })).body as StackSummary;
+    const sum = (await s.api('POST', `/buildings/${buildingId}/stacks`, { token, body: { name: 'V/1', template } }))
+      .body as StackSummary;
     expect((await get(sum.id)).results.engineVersion).toBe(ENGINE_VERSION);
   });
 
   it('analyses again, as a new version, a stack whose results an older engine stored, then freezes the fresh figures', async () => {
-    const sum = (await s.api('POST', `/buildings/${buildingId}/stacks`, { token, body: { name: 'V/2', template } })).body as StackSummary;
+    const sum = (await s.api('POST', `/buildings/${buildingId}/stacks`, { token, body: { name: 'V/2', template } }))
+      .body as StackSummary;
     const fresh = await get(sum.id);
     // As an engine before 1.1.0 left them: no version mark, and (here) a lower utilisation.
     const old = { ...fresh.results, lifts: fresh.results.lifts.map((l) => ({ ...l, utilisation: l.utilisation / 2 })) };
     delete old.engineVersion;
-    await s.ctx.db('stacks').where({ id: sum.id }).update({ results: JSON.stringify(old) });
+    await s.ctx
+      .db('stacks')
+      .where({ id: sum.id })
+      .update({ results: JSON.stringify(old) });
 
-    const r = await s.api('POST', `/buildings/${buildingId}/revisions`, { token, body: { note: 'after an engine upgrade', purpose: 'preliminary' } });
+    const r = await s.api('POST', `/buildings/${buildingId}/revisions`, {
+      token,
+      body: { note: 'after an engine upgrade', purpose: 'preliminary' },
+    });
     expect(r.status).toBe(201);
     const revision = r.body as RevisionDetail;
     expect(revision.engineVersion).toBe(ENGINE_VERSION);
@@ -51,11 +67,15 @@ describe('results of older rules at freezing', () => {
   });
 
   it('at start-up analyses again the stacks an older engine left, once', async () => {
-    const sum = (await s.api('POST', `/buildings/${buildingId}/stacks`, { token, body: { name: 'V/3', template } })).body as StackSummary;
+    const sum = (await s.api('POST', `/buildings/${buildingId}/stacks`, { token, body: { name: 'V/3', template } }))
+      .body as StackSummary;
     const fresh = await get(sum.id);
     const old = { ...fresh.results };
     delete old.engineVersion;
-    await s.ctx.db('stacks').where({ id: sum.id }).update({ results: JSON.stringify(old) });
+    await s.ctx
+      .db('stacks')
+      .where({ id: sum.id })
+      .update({ results: JSON.stringify(old) });
     expect(await reanalyseOutdatedOnStart(s.ctx.db)).toBe(1);
     const now = await get(sum.id);
     expect(now.version).toBe(fresh.version + 1);

@@ -13,8 +13,15 @@ import { revisionFixture, type RevisionFixture } from './revisionsFixture.ts';
 
 const sha = (b: Buffer) => createHash('sha256').update(b).digest('hex');
 
-async function download(s: TestServer, token: string, revisionId: number, copy?: number): Promise<{ status: number; bytes: Buffer; body: unknown }> {
-  const res = await fetch(`${s.url}/api/revisions/${revisionId}/calc.pdf${copy === undefined ? '' : `?copy=${copy}`}`, { headers: { Authorization: `Bearer ${token}` } });
+async function download(
+  s: TestServer,
+  token: string,
+  revisionId: number,
+  copy?: number,
+): Promise<{ status: number; bytes: Buffer; body: unknown }> {
+  const res = await fetch(`${s.url}/api/revisions/${revisionId}/calc.pdf${copy === undefined ? '' : `?copy=${copy}`}`, {
+    headers: { Authorization: `Bearer ${token}` },
+  });
   const bytes = Buffer.from(await res.arrayBuffer());
   const json = res.headers.get('content-type')?.includes('json') ? (JSON.parse(bytes.toString()) as unknown) : null;
   return { status: res.status, bytes, body: json };
@@ -32,8 +39,18 @@ async function pdfText(bytes: Buffer): Promise<string> {
 describe('stored calculation packages', () => {
   let s: TestServer;
   let f: RevisionFixture;
-  const freeze = async (note: string) => (await s.api('POST', `/buildings/${f.buildingId}/revisions`, { token: f.lead.token, body: { note, purpose: 'preliminary' } })).body as RevisionDetail;
-  const storedRow = (revisionId: number, copy = 0) => s.ctx.db('revision_packages').where({ revision_id: revisionId, copy }).first<{ id: number; bytes: Buffer | null; sha256: string | null; reason: string | null } | undefined>();
+  const freeze = async (note: string) =>
+    (
+      await s.api('POST', `/buildings/${f.buildingId}/revisions`, {
+        token: f.lead.token,
+        body: { note, purpose: 'preliminary' },
+      })
+    ).body as RevisionDetail;
+  const storedRow = (revisionId: number, copy = 0) =>
+    s.ctx
+      .db('revision_packages')
+      .where({ revision_id: revisionId, copy })
+      .first<{ id: number; bytes: Buffer | null; sha256: string | null; reason: string | null } | undefined>();
 
   beforeAll(async () => {
     s = await startTestServer();
@@ -59,7 +76,10 @@ describe('stored calculation packages', () => {
     // What the package code of an older release drew is stood in for by other bytes with their own
     // hash: were the route to draw again with today's code, these bytes would not come back.
     const issued = Buffer.from('%PDF-1.7 bytes drawn by an older release of the package code');
-    await s.ctx.db('revision_packages').where({ revision_id: rev.id, copy: 0 }).update({ bytes: issued, sha256: sha(issued), size: issued.length });
+    await s.ctx
+      .db('revision_packages')
+      .where({ revision_id: rev.id, copy: 0 })
+      .update({ bytes: issued, sha256: sha(issued), size: issued.length });
     const got = await download(s, f.engineer.token, rev.id);
     expect(got.status).toBe(200);
     expect(got.bytes.equals(issued)).toBe(true);
@@ -119,7 +139,10 @@ describe('a mail server that accepts and never answers', () => {
   beforeAll(async () => {
     hang = createServer((socket) => void held.push(socket));
     await new Promise<void>((r) => hang.listen(0, '127.0.0.1', () => r()));
-    s = await startTestServer({ smtpUrl: `smtp://127.0.0.1:${(hang.address() as AddressInfo).port}`, config: { mail: { ...FAST_MAIL, timeoutMs: 300, maxAttempts: 20 } } });
+    s = await startTestServer({
+      smtpUrl: `smtp://127.0.0.1:${(hang.address() as AddressInfo).port}`,
+      config: { mail: { ...FAST_MAIL, timeoutMs: 300, maxAttempts: 20 } },
+    });
     f = await revisionFixture(s);
   });
   afterAll(async () => {
@@ -130,12 +153,21 @@ describe('a mail server that accepts and never answers', () => {
 
   it('does not hold the freeze: it answers within 5 s and the recipients wait, retried, as pending', async () => {
     const t0 = Date.now();
-    const r = await s.api('POST', `/buildings/${f.buildingId}/revisions`, { token: f.lead.token, body: { note: 'hanging mail', purpose: 'preliminary' } });
+    const r = await s.api('POST', `/buildings/${f.buildingId}/revisions`, {
+      token: f.lead.token,
+      body: { note: 'hanging mail', purpose: 'preliminary' },
+    });
     expect(r.status).toBe(201);
     expect(Date.now() - t0).toBeLessThan(5000);
     const id = (r.body as RevisionDetail).id;
-    await eventually(async () => ((await s.api('GET', `/revisions/${id}`, { token: f.lead.token })).body as RevisionDetail).recipients.every((x) => x.attempts >= 2));
+    await eventually(async () =>
+      ((await s.api('GET', `/revisions/${id}`, { token: f.lead.token })).body as RevisionDetail).recipients.every(
+        (x) => x.attempts >= 2,
+      ),
+    );
     const rev = (await s.api('GET', `/revisions/${id}`, { token: f.lead.token })).body as RevisionDetail;
-    expect(rev.recipients.every((x) => x.status === 'pending' && /timeout|never received/i.test(x.error ?? ''))).toBe(true);
+    expect(rev.recipients.every((x) => x.status === 'pending' && /timeout|never received/i.test(x.error ?? ''))).toBe(
+      true,
+    );
   });
 });

@@ -13,7 +13,9 @@ const squash = (t: string) => t.replace(/\s+/g, ' ');
 const FACES: RestraintFaces = { yPlus: { Gk: 60, Qk: 30 }, zPlus: { Gk: 20, Qk: 10 } };
 
 async function packagePages(s: TestServer, revisionId: number, token: string): Promise<string[]> {
-  const res = await fetch(`${s.url}/api/revisions/${revisionId}/calc.pdf`, { headers: { Authorization: `Bearer ${token}` } });
+  const res = await fetch(`${s.url}/api/revisions/${revisionId}/calc.pdf`, {
+    headers: { Authorization: `Bearer ${token}` },
+  });
   expect(res.status).toBe(200);
   const parser = new PDFParse({ data: new Uint8Array(await res.arrayBuffer()) });
   try {
@@ -23,13 +25,21 @@ async function packagePages(s: TestServer, revisionId: number, token: string): P
   }
 }
 
-async function freeze(s: TestServer, f: RevisionFixture, purpose: 'preliminary' | 'construction'): Promise<RevisionDetail> {
-  const r = await s.api('POST', `/buildings/${f.buildingId}/revisions`, { token: f.lead.token, body: { note: 'Nominal moments', purpose } });
+async function freeze(
+  s: TestServer,
+  f: RevisionFixture,
+  purpose: 'preliminary' | 'construction',
+): Promise<RevisionDetail> {
+  const r = await s.api('POST', `/buildings/${f.buildingId}/revisions`, {
+    token: f.lead.token,
+    body: { note: 'Nominal moments', purpose },
+  });
   if (r.status !== 201) throw new Error(`freeze: ${r.status} ${JSON.stringify(r.body)}`);
   return r.body as RevisionDetail;
 }
 
-const worstPiece = (lift: LiftResult): PieceCheck => lift.pieces.reduce((a, b) => (b.utilisation > a.utilisation ? b : a));
+const worstPiece = (lift: LiftResult): PieceCheck =>
+  lift.pieces.reduce((a, b) => (b.utilisation > a.utilisation ? b : a));
 
 /** The first number printed with `unit` after `label`, for comparing a printed value within its rounding. */
 function printed(text: string, label: RegExp, unit: string): number {
@@ -50,13 +60,22 @@ describe('the calculation package with nominal moments (simple construction)', (
     // B/2 gets face reactions on every floor restraint; A/1 stays axial only.
     const stackId = f.stackIds[0];
     const stack = (await s.api('GET', `/stacks/${stackId}`, { token: f.lead.token })).body as StackDetail;
-    const doc = { ...stack.doc, nodes: stack.doc.nodes.map((n) => (n.kind === 'restraint' ? { ...n, data: { ...n.data, faces: FACES } } : n)) };
-    const put = await s.api('PUT', `/stacks/${stackId}`, { token: f.lead.token, body: { doc, baseVersion: stack.version } });
+    const doc = {
+      ...stack.doc,
+      nodes: stack.doc.nodes.map((n) => (n.kind === 'restraint' ? { ...n, data: { ...n.data, faces: FACES } } : n)),
+    };
+    const put = await s.api('PUT', `/stacks/${stackId}`, {
+      token: f.lead.token,
+      body: { doc, baseVersion: stack.version },
+    });
     if (put.status !== 200) throw new Error(`edit: ${put.status} ${JSON.stringify(put.body)}`);
     faced = put.body as StackDetail;
     withMoments = await packagePages(s, (await freeze(s, f, 'construction')).id, f.viewer.token);
 
-    const patch = await s.api('PATCH', `/buildings/${f.buildingId}`, { token: f.lead.token, body: { options: { nominalMoments: false } } });
+    const patch = await s.api('PATCH', `/buildings/${f.buildingId}`, {
+      token: f.lead.token,
+      body: { options: { nominalMoments: false } },
+    });
     if (patch.status !== 200) throw new Error(`options: ${patch.status} ${JSON.stringify(patch.body)}`);
     withoutMoments = await packagePages(s, (await freeze(s, f, 'preliminary')).id, f.viewer.token);
   });
@@ -75,7 +94,9 @@ describe('the calculation package with nominal moments (simple construction)', (
     const worked = faced.results.lifts.map(worstPiece).filter((p) => p.combined && p.combined.steps.length > 0);
     expect(worked.length).toBe(faced.results.lifts.length);
     for (const p of worked) {
-      expect(all).toContain(`Combined check with nominal moments, eq. ${p.combined?.combination}, utilisation ${p.combined?.utilisation.toFixed(3)}`);
+      expect(all).toContain(
+        `Combined check with nominal moments, eq. ${p.combined?.combination}, utilisation ${p.combined?.utilisation.toFixed(3)}`,
+      );
       for (const step of p.combined?.steps ?? []) expect(all).toContain(squash(step.clause));
     }
     // EN 1993-1-1 eq. 6.55 (Mb,Rd), eq. 6.13 (Mz,Rd of a class 1–2 section), EN 1990 eq. 6.10b (the floor's net reaction).
@@ -108,7 +129,11 @@ describe('the calculation package with nominal moments (simple construction)', (
     // EN 1990 eq. 6.10b with ξ = 0.925 (UK NA to EN 1990 Table NA.A1.2(B)): 0.925·1.35·60 + 1.5·30 = 119.925 kN;
     // eq. 6.10a with ψ0 = 0.7 for category B (EN 1990 Table A1.1): 1.35·60 + 0.7·1.5·30 = 112.5 kN. The check
     // takes NEd and the reaction from one combination, so the working prints the reaction of the one that governs.
-    const first = faced.results.lifts.map(worstPiece).find((p) => p.combined?.steps.some((s) => s.symbol === 'Ry,net' && s.description?.startsWith('floor at 3.600 m')));
+    const first = faced.results.lifts
+      .map(worstPiece)
+      .find((p) =>
+        p.combined?.steps.some((s) => s.symbol === 'Ry,net' && s.description?.startsWith('floor at 3.600 m')),
+      );
     const R = first?.combined?.combination === '6.10a' ? 1.35 * 60 + 0.7 * 1.5 * 30 : 0.925 * 1.35 * 60 + 1.5 * 30;
     expect(printed(all, /Ry,net floor at 3\.600 m/, 'kN')).toBeCloseTo(R, 1);
     // Reaction 100 mm from the flange face (common practice for simple construction, from memory);
@@ -123,8 +148,12 @@ describe('the calculation package with nominal moments (simple construction)', (
     expect(withMoments[0]).toContain('applied in 1 of 2 stacks');
     const stackPages = withMoments.filter((t) => /2\.\d+ Stack /.test(t));
     expect(stackPages.length).toBe(2);
-    expect(stackPages.find((t) => t.includes('Stack B/2'))).toContain('Nominal moments: included, from the beam reactions on the column faces');
-    expect(stackPages.find((t) => t.includes('Stack A/1'))).toContain('no beam reactions are given on the column faces of this stack');
+    expect(stackPages.find((t) => t.includes('Stack B/2'))).toContain(
+      'Nominal moments: included, from the beam reactions on the column faces',
+    );
+    expect(stackPages.find((t) => t.includes('Stack A/1'))).toContain(
+      'no beam reactions are given on the column faces of this stack',
+    );
   });
 
   it('with nominal moments switched off, says so and prints no combined check', () => {

@@ -18,21 +18,43 @@ describe('the calculation package with splices and bases', () => {
   beforeAll(async () => {
     s = await startTestServer();
     f = await revisionFixture(s);
-    const patch = await s.api('PATCH', `/buildings/${f.buildingId}`, { token: f.lead.token, body: { options: { consequenceClass: '2b', concreteClass: 'C30/37' } } });
+    const patch = await s.api('PATCH', `/buildings/${f.buildingId}`, {
+      token: f.lead.token,
+      body: { options: { consequenceClass: '2b', concreteClass: 'C30/37' } },
+    });
     if (patch.status !== 200) throw new Error(`options: ${patch.status} ${JSON.stringify(patch.body)}`);
     const stackId = f.stackIds[0];
     const stack = (await s.api('GET', `/stacks/${stackId}`, { token: f.lead.token })).body as StackDetail;
     const nodes = stack.doc.nodes.map((n) => {
-      if (n.kind === 'splice') return { ...n, data: { ...n.data, detail: { plate: { width: 200, thickness: 12, grade: 'S275' as const }, bolts: { number: 4, diameter: 20 as const, class: '8.8' as const } } } };
-      if (n.kind === 'support') return { ...n, data: { ...n.data, basePlate: { b: 450, l: 450, t: 30, grade: 'S275' as const, grout: 30 } } };
+      if (n.kind === 'splice')
+        return {
+          ...n,
+          data: {
+            ...n.data,
+            detail: {
+              plate: { width: 200, thickness: 12, grade: 'S275' as const },
+              bolts: { number: 4, diameter: 20 as const, class: '8.8' as const },
+            },
+          },
+        };
+      if (n.kind === 'support')
+        return { ...n, data: { ...n.data, basePlate: { b: 450, l: 450, t: 30, grade: 'S275' as const, grout: 30 } } };
       return n;
     });
-    const put = await s.api('PUT', `/stacks/${stackId}`, { token: f.lead.token, body: { doc: { ...stack.doc, nodes }, baseVersion: stack.version } });
+    const put = await s.api('PUT', `/stacks/${stackId}`, {
+      token: f.lead.token,
+      body: { doc: { ...stack.doc, nodes }, baseVersion: stack.version },
+    });
     if (put.status !== 200) throw new Error(`edit: ${put.status} ${JSON.stringify(put.body)}`);
     detailed = put.body as StackDetail;
-    const r = await s.api('POST', `/buildings/${f.buildingId}/revisions`, { token: f.lead.token, body: { note: 'Splices', purpose: 'preliminary' } });
+    const r = await s.api('POST', `/buildings/${f.buildingId}/revisions`, {
+      token: f.lead.token,
+      body: { note: 'Splices', purpose: 'preliminary' },
+    });
     if (r.status !== 201) throw new Error(`freeze: ${r.status} ${JSON.stringify(r.body)}`);
-    const res = await fetch(`${s.url}/api/revisions/${(r.body as RevisionDetail).id}/calc.pdf`, { headers: { Authorization: `Bearer ${f.viewer.token}` } });
+    const res = await fetch(`${s.url}/api/revisions/${(r.body as RevisionDetail).id}/calc.pdf`, {
+      headers: { Authorization: `Bearer ${f.viewer.token}` },
+    });
     expect(res.status).toBe(200);
     const parser = new PDFParse({ data: new Uint8Array(await res.arrayBuffer()) });
     try {
@@ -60,7 +82,9 @@ describe('the calculation package with splices and bases', () => {
     const detailedRows = [...summary.meeting, ...summary.notMeeting].filter((row) => row.stackId === detailed.id);
     expect(detailedRows).toHaveLength(spliceCount);
     // Stacks without a detail cannot show that they carry the tie
-    expect(summary.notMeeting.filter((row) => row.stackId !== detailed.id).every((row) => row.NtRd === null)).toBe(true);
+    expect(summary.notMeeting.filter((row) => row.stackId !== detailed.id).every((row) => row.NtRd === null)).toBe(
+      true,
+    );
     const bad = await s.api('GET', '/buildings/abc/robustness', { token: f.viewer.token });
     expect(bad.status).toBeGreaterThanOrEqual(400);
     expect(bad.status).toBeLessThan(500);

@@ -16,8 +16,15 @@ describe('the calculation package (PDF)', () => {
   beforeAll(async () => {
     s = await startTestServer();
     f = await revisionFixture(s);
-    rev = (await s.api('POST', `/buildings/${f.buildingId}/revisions`, { token: f.lead.token, body: { note: 'Package test', purpose: 'construction' } })).body as RevisionDetail;
-    const res = await fetch(`${s.url}/api/revisions/${rev.id}/calc.pdf`, { headers: { Authorization: `Bearer ${f.viewer.token}` } });
+    rev = (
+      await s.api('POST', `/buildings/${f.buildingId}/revisions`, {
+        token: f.lead.token,
+        body: { note: 'Package test', purpose: 'construction' },
+      })
+    ).body as RevisionDetail;
+    const res = await fetch(`${s.url}/api/revisions/${rev.id}/calc.pdf`, {
+      headers: { Authorization: `Bearer ${f.viewer.token}` },
+    });
     pdf = Buffer.from(await res.arrayBuffer());
     const parser = new PDFParse({ data: new Uint8Array(pdf) });
     try {
@@ -46,13 +53,21 @@ describe('the calculation package (PDF)', () => {
       expect(all).toContain(`Stack ${name}`);
     }
     // Each stack's heading line names its governing lift as engineers do (L1, L2, …), not by graph node id.
-    for (const stack of rev.stacks) expect(all).toContain(`governing lift ${stack.governingLiftLabel} (${stack.governingSection})`);
+    for (const stack of rev.stacks)
+      expect(all).toContain(`governing lift ${stack.governingLiftLabel} (${stack.governingSection})`);
   });
 
   it('carries the clause and equation references of the member working and the take-down', () => {
     const all = pages.join('\n');
     // EN 1993-1-1 eq. 6.47 (Nb,Rd), 6.49 (χ), 6.50 (λ̄), Table 6.2 (curves), Table 5.2 (class); EN 1990 6.10a/b.
-    for (const ref of ['EN 1993-1-1 eq. 6.47', 'EN 1993-1-1 eq. 6.49', 'EN 1993-1-1 eq. 6.50', 'EN 1993-1-1 Table 6.2', 'EN 1993-1-1 Table 5.2', 'EN 1990 eq. 6.10']) {
+    for (const ref of [
+      'EN 1993-1-1 eq. 6.47',
+      'EN 1993-1-1 eq. 6.49',
+      'EN 1993-1-1 eq. 6.50',
+      'EN 1993-1-1 Table 6.2',
+      'EN 1993-1-1 Table 5.2',
+      'EN 1990 eq. 6.10',
+    ]) {
       expect(all).toContain(ref);
     }
     expect(all).toContain('Load take-down');

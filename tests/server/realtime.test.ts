@@ -16,7 +16,14 @@ let viewer: AuthResponse;
 let outsider: AuthResponse;
 let buildingId: number;
 
-const template = { storeys: 6, storeyHeight: 3.6, spliceEvery: 2, sections: ['UKC 254x254x89', 'UKC 203x203x46'], Gk: 120, Qk: 60 };
+const template = {
+  storeys: 6,
+  storeyHeight: 3.6,
+  spliceEvery: 2,
+  sections: ['UKC 254x254x89', 'UKC 203x203x46'],
+  Gk: 120,
+  Qk: 60,
+};
 
 async function newStack(name: string): Promise<number> {
   const r = await s.api('POST', `/buildings/${buildingId}/stacks`, { token: lead.token, body: { name, template } });
@@ -78,7 +85,11 @@ describe('live channel: access', () => {
     if (!joined.ok) return;
     const before = await dbStack(stackId);
     const restraint = joined.data.doc.nodes.find((n) => n.kind === 'restraint');
-    const r = await request(c, 'stack:edit', { stackId, baseVersion: joined.data.version, ops: [{ op: 'updateNode', id: restraint!.id, data: { Gk: 999 } }] });
+    const r = await request(c, 'stack:edit', {
+      stackId,
+      baseVersion: joined.data.version,
+      ops: [{ op: 'updateNode', id: restraint!.id, data: { Gk: 999 } }],
+    });
     expect(r.ok).toBe(false);
     if (!r.ok) expect(r.error.code).toBe('forbidden');
     expect(await dbStack(stackId)).toEqual(before);
@@ -95,7 +106,11 @@ describe('live channel: edits', () => {
     const lift = ja.data.doc.nodes.find((n) => n.kind === 'lift')!;
     const oldUtil = ja.data.results.lifts.find((l) => l.liftId === lift.id)!.utilisation;
     const seen = next(b, 'stack:changed', (p) => p.stackId === stackId);
-    const r = await request<{ version: number }>(a, 'stack:edit', { stackId, baseVersion: ja.data.version, ops: [{ op: 'updateNode', id: lift.id, data: { section: 'UKC 152x152x23' } }] });
+    const r = await request<{ version: number }>(a, 'stack:edit', {
+      stackId,
+      baseVersion: ja.data.version,
+      ops: [{ op: 'updateNode', id: lift.id, data: { section: 'UKC 152x152x23' } }],
+    });
     expect(r.ok).toBe(true);
     if (!r.ok) return;
     // Committed before the acknowledgement: the database already holds the acknowledged version.
@@ -125,9 +140,17 @@ describe('live channel: edits', () => {
       { stackId, baseVersion: -1, ops: [{ op: 'moveNode', id: 'x', position: { x: 0, y: 0 } }] },
       { stackId, baseVersion: before.version, ops: [] },
       { stackId, baseVersion: before.version, ops: [{ op: 'explode', id: 'x' }] },
-      { stackId, baseVersion: before.version, ops: [{ op: 'updateNode', id: ja.data.doc.nodes[0].id, data: { elevation: 'NaN' } }] },
+      {
+        stackId,
+        baseVersion: before.version,
+        ops: [{ op: 'updateNode', id: ja.data.doc.nodes[0].id, data: { elevation: 'NaN' } }],
+      },
       { stackId, baseVersion: before.version, ops: [{ op: 'removeNode', id: 'no-such-node' }] },
-      { stackId, baseVersion: before.version, ops: [{ op: 'moveNode', id: ja.data.doc.nodes[0].id, position: { x: Infinity, y: 0 } }] },
+      {
+        stackId,
+        baseVersion: before.version,
+        ops: [{ op: 'moveNode', id: ja.data.doc.nodes[0].id, position: { x: Infinity, y: 0 } }],
+      },
       { stackId, baseVersion: before.version, ops: [{ op: 'addEdge', edge: { id: 'e', source: 'a' } }], extra: true },
     ];
     for (const payload of bad) {
@@ -143,7 +166,11 @@ describe('live channel: edits', () => {
     expect(await dbStack(stackId)).toEqual(before);
     // The connection and the room still work.
     const node = ja.data.doc.nodes[0];
-    const ok = await request<{ version: number }>(a, 'stack:edit', { stackId, baseVersion: before.version, ops: [{ op: 'moveNode', id: node.id, position: { x: 5, y: 5 } }] });
+    const ok = await request<{ version: number }>(a, 'stack:edit', {
+      stackId,
+      baseVersion: before.version,
+      ops: [{ op: 'moveNode', id: node.id, position: { x: 5, y: 5 } }],
+    });
     expect(ok.ok).toBe(true);
     await next(b, 'stack:changed', (p) => p.stackId === stackId);
     expect(changes).toBe(1);
@@ -157,11 +184,23 @@ describe('live channel: edits', () => {
     if (!ja.ok || !jb.ok) throw new Error('join failed');
     const [r1, r2] = ja.data.doc.nodes.filter((n) => n.kind === 'restraint');
     const base = ja.data.version;
-    const first = await request<{ version: number }>(a, 'stack:edit', { stackId, baseVersion: base, ops: [{ op: 'updateNode', id: r1.id, data: { Gk: 150 } }] });
+    const first = await request<{ version: number }>(a, 'stack:edit', {
+      stackId,
+      baseVersion: base,
+      ops: [{ op: 'updateNode', id: r1.id, data: { Gk: 150 } }],
+    });
     expect(first.ok).toBe(true);
-    const merged = await request<{ version: number }>(b, 'stack:edit', { stackId, baseVersion: base, ops: [{ op: 'updateNode', id: r2.id, data: { Qk: 80 } }] });
+    const merged = await request<{ version: number }>(b, 'stack:edit', {
+      stackId,
+      baseVersion: base,
+      ops: [{ op: 'updateNode', id: r2.id, data: { Qk: 80 } }],
+    });
     expect(merged.ok).toBe(true);
-    const clash = await request(b, 'stack:edit', { stackId, baseVersion: base, ops: [{ op: 'updateNode', id: r1.id, data: { Gk: 10 } }] });
+    const clash = await request(b, 'stack:edit', {
+      stackId,
+      baseVersion: base,
+      ops: [{ op: 'updateNode', id: r1.id, data: { Gk: 10 } }],
+    });
     expect(clash.ok).toBe(false);
     if (!clash.ok) expect(clash.error.code).toBe('conflict');
     const { doc } = await dbStack(stackId);
@@ -194,20 +233,26 @@ describe('live channel: random concurrent edits', () => {
       const final = await dbStack(stackId);
       // Every client catches up to the database's version through stack:changed alone.
       const deadline = Date.now() + 5000;
-      while (editors.some((e) => e.version < final.version) && Date.now() < deadline) await new Promise((r) => setTimeout(r, 20));
+      while (editors.some((e) => e.version < final.version) && Date.now() < deadline)
+        await new Promise((r) => setTimeout(r, 20));
       for (const e of editors) {
         expect(e.version).toBe(final.version);
         expect(e.doc).toEqual(final.doc);
       }
       // Every acknowledged edit is stored at its version with exactly its ops…
-      const rows = await s.ctx.db('stack_ops').where({ stack_id: stackId }).orderBy('version').select<{ version: number; ops: string }[]>('version', 'ops');
+      const rows = await s.ctx
+        .db('stack_ops')
+        .where({ stack_id: stackId })
+        .orderBy('version')
+        .select<{ version: number; ops: string }[]>('version', 'ops');
       const stored = new Map(rows.map((r) => [r.version, JSON.parse(r.ops) as Op[]]));
       const acked = editors.flatMap((e) => e.acked);
       expect(acked.length).toBeGreaterThan(0);
       for (const a of acked) expect(stored.get(a.version)).toEqual(a.ops);
       // …and the stored document is exactly the initial one with every committed edit replayed in order.
       let replay = initial.doc;
-      for (const r of rows.filter((r) => r.version > initial.version)) replay = applyOps(replay, JSON.parse(r.ops) as Op[]);
+      for (const r of rows.filter((r) => r.version > initial.version))
+        replay = applyOps(replay, JSON.parse(r.ops) as Op[]);
       expect(replay).toEqual(final.doc);
       expect(final.version - initial.version).toBe(acked.length);
     });
@@ -244,7 +289,11 @@ describe('live channel: presence and reconnection', () => {
     const jb = await request<StackJoinAck>(b, 'stack:join', { stackId });
     if (!jb.ok) throw new Error('join failed');
     const restraint = jb.data.doc.nodes.find((n) => n.kind === 'restraint')!;
-    await request(b, 'stack:edit', { stackId, baseVersion: jb.data.version, ops: [{ op: 'updateNode', id: restraint.id, data: { Gk: 321 } }] });
+    await request(b, 'stack:edit', {
+      stackId,
+      baseVersion: jb.data.version,
+      ops: [{ op: 'updateNode', id: restraint.id, data: { Gk: 321 } }],
+    });
     // Back online: the ops since its last version bring it to the server's document.
     const back = await client(engineers[8].token);
     const since = await s.api('GET', `/stacks/${stackId}/ops?since=${lastVersion}`, { token: engineers[8].token });
@@ -267,7 +316,10 @@ describe('live channel: presence and reconnection', () => {
     const heard = next(a, 'building:stack-changed', (p) => p.stackId === stackId);
     const { version, doc } = await dbStack(stackId);
     const restraint = doc.nodes.find((n) => n.kind === 'restraint')!;
-    const r = await s.api('POST', `/stacks/${stackId}/ops`, { token: engineers[0].token, body: { baseVersion: version, ops: [{ op: 'updateNode', id: restraint.id, data: { Gk: 400 } }] } });
+    const r = await s.api('POST', `/stacks/${stackId}/ops`, {
+      token: engineers[0].token,
+      body: { baseVersion: version, ops: [{ op: 'updateNode', id: restraint.id, data: { Gk: 400 } }] },
+    });
     expect(r.status).toBe(200);
     const p = await heard;
     expect(p.version).toBe(version + 1);

@@ -1,6 +1,11 @@
 import { createHash } from 'node:crypto';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import type { RevisionComparison, RevisionDetail, RevisionSummary, FreezeRefusal } from '../../shared/schema/revisions.ts';
+import type {
+  RevisionComparison,
+  RevisionDetail,
+  RevisionSummary,
+  FreezeRefusal,
+} from '../../shared/schema/revisions.ts';
 import type { StackSummary } from '../../shared/schema/api.ts';
 import { errorCode, registerUser, startTestServer, type TestServer } from './helpers.ts';
 import { revisionFixture, setLiftSection, type RevisionFixture } from './revisionsFixture.ts';
@@ -34,12 +39,17 @@ describe('freezing revisions', () => {
       expect(errorCode(r.body)).toBe('forbidden');
     }
     const outsider = await registerUser(s, 'outsider');
-    expect((await s.api('POST', `/buildings/${f.buildingId}/revisions`, { token: outsider.token, body })).status).toBe(404);
+    expect((await s.api('POST', `/buildings/${f.buildingId}/revisions`, { token: outsider.token, body })).status).toBe(
+      404,
+    );
     expect((await s.api('GET', `/buildings/${f.buildingId}/revisions`, { token: f.lead.token })).body).toEqual([]);
   });
 
   it('lets the lead freeze P01: every stack, the levels and options, with a SHA-256 of the stored snapshot', async () => {
-    const r = await s.api('POST', `/buildings/${f.buildingId}/revisions`, { token: f.lead.token, body: { note: 'For coordination', purpose: 'preliminary' } });
+    const r = await s.api('POST', `/buildings/${f.buildingId}/revisions`, {
+      token: f.lead.token,
+      body: { note: 'For coordination', purpose: 'preliminary' },
+    });
     expect(r.status).toBe(201);
     first = r.body as RevisionDetail;
     expect(first.code).toBe('P01');
@@ -66,7 +76,9 @@ describe('freezing revisions', () => {
   });
 
   it('refuses UPDATE and DELETE on frozen rows in the database itself', async () => {
-    await expect(s.ctx.db.raw('UPDATE revisions SET note = ? WHERE id = ?', ['tampered', first.id])).rejects.toThrow(/frozen/);
+    await expect(s.ctx.db.raw('UPDATE revisions SET note = ? WHERE id = ?', ['tampered', first.id])).rejects.toThrow(
+      /frozen/,
+    );
     await expect(s.ctx.db.raw('DELETE FROM revisions WHERE id = ?', [first.id])).rejects.toThrow(/frozen/);
     await expect(s.ctx.db('revisions').where({ id: first.id }).update({ hash: 'x' })).rejects.toThrow(/frozen/);
     const row = await s.ctx.db('revisions').where({ id: first.id }).first<{ note: string }>('note');
@@ -75,16 +87,26 @@ describe('freezing revisions', () => {
 
   it('numbers preliminary issues P01, P02… and construction issues C01, C02…', async () => {
     const freeze = async (purpose: string) =>
-      ((await s.api('POST', `/buildings/${f.buildingId}/revisions`, { token: f.lead.token, body: { note: '', purpose } })).body as RevisionDetail).code;
+      (
+        (
+          await s.api('POST', `/buildings/${f.buildingId}/revisions`, {
+            token: f.lead.token,
+            body: { note: '', purpose },
+          })
+        ).body as RevisionDetail
+      ).code;
     expect(await freeze('preliminary')).toBe('P02');
     expect(await freeze('construction')).toBe('C01');
     expect(await freeze('construction')).toBe('C02');
-    const list = (await s.api('GET', `/buildings/${f.buildingId}/revisions`, { token: f.viewer.token })).body as RevisionSummary[];
+    const list = (await s.api('GET', `/buildings/${f.buildingId}/revisions`, { token: f.viewer.token }))
+      .body as RevisionSummary[];
     expect(list.map((r) => r.code)).toEqual(['C02', 'C01', 'P02', 'P01']);
   });
 
   it('compares a revision with the current state: the changed section and the lift utilisation that moved', async () => {
-    const r = await s.api('GET', `/buildings/${f.buildingId}/revisions/compare?from=${first.id}&to=current`, { token: f.viewer.token });
+    const r = await s.api('GET', `/buildings/${f.buildingId}/revisions/compare?from=${first.id}&to=current`, {
+      token: f.viewer.token,
+    });
     expect(r.status).toBe(200);
     const cmp = r.body as RevisionComparison;
     expect(cmp.to.code).toBe('current');
@@ -103,20 +125,32 @@ describe('freezing revisions', () => {
   });
 
   it('compares two revisions of the building and refuses a revision of another building', async () => {
-    const list = (await s.api('GET', `/buildings/${f.buildingId}/revisions`, { token: f.lead.token })).body as RevisionSummary[];
+    const list = (await s.api('GET', `/buildings/${f.buildingId}/revisions`, { token: f.lead.token }))
+      .body as RevisionSummary[];
     const p02 = list.find((r) => r.code === 'P02');
-    const cmp = (await s.api('GET', `/buildings/${f.buildingId}/revisions/compare?from=${first.id}&to=${p02?.id}`, { token: f.lead.token })).body as RevisionComparison;
+    const cmp = (
+      await s.api('GET', `/buildings/${f.buildingId}/revisions/compare?from=${first.id}&to=${p02?.id}`, {
+        token: f.lead.token,
+      })
+    ).body as RevisionComparison;
     expect(cmp.stacks.map((x) => x.stackId)).toEqual([f.stackIds[0]]);
     const other = await revisionFixture(s, 'Other block');
-    const r = await s.api('GET', `/buildings/${other.buildingId}/revisions/compare?from=${first.id}`, { token: other.lead.token });
+    const r = await s.api('GET', `/buildings/${other.buildingId}/revisions/compare?from=${first.id}`, {
+      token: other.lead.token,
+    });
     expect(r.status).toBe(404);
   });
 
   it('refuses (422, with the reasons) to freeze while a stack has validation errors', async () => {
-    const bad = (await s.api('POST', `/buildings/${f.buildingId}/stacks`, { token: f.lead.token, body: { name: 'Z/9' } })).body as StackSummary;
-    const r = await s.api('POST', `/buildings/${f.buildingId}/revisions`, { token: f.lead.token, body: { note: '', purpose: 'preliminary' } });
+    const bad = (
+      await s.api('POST', `/buildings/${f.buildingId}/stacks`, { token: f.lead.token, body: { name: 'Z/9' } })
+    ).body as StackSummary;
+    const r = await s.api('POST', `/buildings/${f.buildingId}/revisions`, {
+      token: f.lead.token,
+      body: { note: '', purpose: 'preliminary' },
+    });
     expect(r.status).toBe(422);
-    const reasons = ((r.body as { error: { details: FreezeRefusal } }).error.details).reasons;
+    const reasons = (r.body as { error: { details: FreezeRefusal } }).error.details.reasons;
     expect(reasons.length).toBeGreaterThan(0);
     expect(reasons.every((x) => x.stack === 'Z/9' && x.message.length > 0)).toBe(true);
     expect((await s.api('DELETE', `/stacks/${bad.id}`, { token: f.lead.token })).status).toBe(204);
@@ -125,15 +159,30 @@ describe('freezing revisions', () => {
   it('freezes failing lifts only with the acknowledgement and a note saying why', async () => {
     // A light column under heavy floors: far beyond its resistance (invented loads).
     const heavy = { storeys: 4, storeyHeight: 3.6, spliceEvery: 2, sections: ['UKC 152x152x23'], Gk: 900, Qk: 500 };
-    const st = (await s.api('POST', `/buildings/${f.buildingId}/stacks`, { token: f.lead.token, body: { name: 'F/1', template: heavy } })).body as StackSummary;
+    const st = (
+      await s.api('POST', `/buildings/${f.buildingId}/stacks`, {
+        token: f.lead.token,
+        body: { name: 'F/1', template: heavy },
+      })
+    ).body as StackSummary;
     expect(st.status).toBe('fails');
     const url = `/buildings/${f.buildingId}/revisions`;
     const refused = await s.api('POST', url, { token: f.lead.token, body: { note: 'ok', purpose: 'preliminary' } });
     expect(refused.status).toBe(422);
-    expect(((refused.body as { error: { details: FreezeRefusal } }).error.details).reasons[0].stack).toBe('F/1');
-    const noNote = await s.api('POST', url, { token: f.lead.token, body: { note: '', purpose: 'preliminary', acknowledgeFailingLifts: true } });
+    expect((refused.body as { error: { details: FreezeRefusal } }).error.details.reasons[0].stack).toBe('F/1');
+    const noNote = await s.api('POST', url, {
+      token: f.lead.token,
+      body: { note: '', purpose: 'preliminary', acknowledgeFailingLifts: true },
+    });
     expect(noNote.status).toBe(422);
-    const ok = await s.api('POST', url, { token: f.lead.token, body: { note: 'F/1 is being re-sized; issued for the cost plan', purpose: 'preliminary', acknowledgeFailingLifts: true } });
+    const ok = await s.api('POST', url, {
+      token: f.lead.token,
+      body: {
+        note: 'F/1 is being re-sized; issued for the cost plan',
+        purpose: 'preliminary',
+        acknowledgeFailingLifts: true,
+      },
+    });
     expect(ok.status).toBe(201);
     const rev = ok.body as RevisionDetail;
     expect(rev.failingLifts).toBeGreaterThan(0);

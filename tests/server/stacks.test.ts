@@ -4,7 +4,14 @@ import type { StackDocument } from '../../shared/schema/stack.ts';
 import { migrationSource } from '../../migrations/index.ts';
 import { addMember, errorCode, registerUser, startWithLeadAndBuilding, type TestServer } from './helpers.ts';
 
-const template = { storeys: 4, storeyHeight: 3.6, spliceEvery: 2, sections: ['UKC 254x254x89', 'UKC 203x203x46'], Gk: 120, Qk: 60 };
+const template = {
+  storeys: 4,
+  storeyHeight: 3.6,
+  spliceEvery: 2,
+  sections: ['UKC 254x254x89', 'UKC 203x203x46'],
+  Gk: 120,
+  Qk: 60,
+};
 
 describe('stacks', () => {
   let s: TestServer;
@@ -33,7 +40,11 @@ describe('stacks', () => {
     expect(d.results.lifts.map((l) => l.section)).toEqual(['UKC 254x254x89', 'UKC 203x203x46']);
     expect(sum.utilisation).toBe(Math.max(...d.results.lifts.map((l) => l.utilisation)));
     const governing = d.results.lifts.find((l) => l.liftId === d.results.governingLiftId)!;
-    expect(sum).toMatchObject({ governingLiftId: governing.liftId, governingLiftLabel: governing.label, governingSection: governing.section });
+    expect(sum).toMatchObject({
+      governingLiftId: governing.liftId,
+      governingLiftLabel: governing.label,
+      governingSection: governing.section,
+    });
   });
 
   it('creates a stack with beam reactions on every floor and the roof, and checks their nominal moments', async () => {
@@ -43,7 +54,10 @@ describe('stacks', () => {
     const faced = d.doc.nodes.filter((n) => (n.kind === 'restraint' || n.kind === 'cap') && n.data.faces);
     expect(faced).toHaveLength(4);
     expect(d.results.lifts.every((l) => l.pieces.every((p) => p.combined?.combination))).toBe(true);
-    const bad = await s.api('POST', `/buildings/${buildingId}/stacks`, { token, body: { name: 'F/2', template: { ...template, roofFaces: { up: { Gk: 1, Qk: 0 } } } } });
+    const bad = await s.api('POST', `/buildings/${buildingId}/stacks`, {
+      token,
+      body: { name: 'F/2', template: { ...template, roofFaces: { up: { Gk: 1, Qk: 0 } } } },
+    });
     expect(bad.status).toBe(400);
   });
 
@@ -62,7 +76,10 @@ describe('stacks', () => {
   it('creates an empty stack, and saves an invalid document with its errors instead of results', async () => {
     const empty = await create({ name: 'E/1' });
     expect((await get(empty.id)).doc).toEqual({ nodes: [], edges: [] });
-    const doc: StackDocument = { nodes: [{ id: 'L1', kind: 'lift', data: { section: 'UKC 203x203x46', grade: 'S355' } }], edges: [] };
+    const doc: StackDocument = {
+      nodes: [{ id: 'L1', kind: 'lift', data: { section: 'UKC 203x203x46', grade: 'S355' } }],
+      edges: [],
+    };
     const bad = await create({ name: 'E/2', doc });
     expect(bad.status).toBe('errors');
     expect(bad.utilisation).toBeNull();
@@ -70,17 +87,25 @@ describe('stacks', () => {
   });
 
   it('refuses a document that uses one id twice with 422', async () => {
-    const doc = { nodes: [{ id: 'X', kind: 'splice', data: { elevation: 1 } }], edges: [{ id: 'X', source: 'X', target: 'X' }] };
+    const doc = {
+      nodes: [{ id: 'X', kind: 'splice', data: { elevation: 1 } }],
+      edges: [{ id: 'X', source: 'X', target: 'X' }],
+    };
     const r = await s.api('POST', `/buildings/${buildingId}/stacks`, { token, body: { name: 'Dup', doc } });
     expect(r.status).toBe(422);
   });
 
   it('serves stored results on read without recomputing them', async () => {
     const sum = await create({ name: 'R/1', template });
-    const stored = JSON.parse((await s.ctx.db('stacks').where({ id: sum.id }).first<{ results: string }>('results')).results) as StackDetail['results'];
+    const stored = JSON.parse(
+      (await s.ctx.db('stacks').where({ id: sum.id }).first<{ results: string }>('results')).results,
+    ) as StackDetail['results'];
     // A marker only the stored copy can carry: were the read to recompute, it would vanish.
     stored.warnings.push({ message: 'stored-marker' });
-    await s.ctx.db('stacks').where({ id: sum.id }).update({ results: JSON.stringify(stored) });
+    await s.ctx
+      .db('stacks')
+      .where({ id: sum.id })
+      .update({ results: JSON.stringify(stored) });
     expect((await get(sum.id)).results.warnings.map((w) => w.message)).toContain('stored-marker');
   });
 
@@ -97,8 +122,16 @@ describe('stacks', () => {
     const stale = await s.api('PUT', `/stacks/${sum.id}`, { token, body: { doc: d0.doc, baseVersion: 0 } });
     expect(stale.status).toBe(409);
     expect(errorCode(stale.body)).toBe('conflict');
-    const ops = (await s.api('GET', `/stacks/${sum.id}/ops?since=0`, { token })).body as { version: number; ops: unknown[] }[];
-    expect(ops).toEqual([expect.objectContaining({ version: 1, ops: [{ op: 'updateNode', id: 'lift-2', data: { section: 'UKC 254x254x73', grade: 'S355' } }] })]);
+    const ops = (await s.api('GET', `/stacks/${sum.id}/ops?since=0`, { token })).body as {
+      version: number;
+      ops: unknown[];
+    }[];
+    expect(ops).toEqual([
+      expect.objectContaining({
+        version: 1,
+        ops: [{ op: 'updateNode', id: 'lift-2', data: { section: 'UKC 254x254x73', grade: 'S355' } }],
+      }),
+    ]);
   });
 
   it('two PUTs on the same baseVersion: exactly one wins, the other gets 409, and the winner is what is stored', async () => {
@@ -123,7 +156,11 @@ describe('stacks', () => {
 
   it('two op lists on the same baseVersion touching the same node: one wins, the other gets 409', async () => {
     const sum = await create({ name: 'O/1', template });
-    const edit = (Gk: number) => s.api('POST', `/stacks/${sum.id}/ops`, { token, body: { baseVersion: 0, ops: [{ op: 'updateNode', id: 'restraint-1', data: { Gk } }] } });
+    const edit = (Gk: number) =>
+      s.api('POST', `/stacks/${sum.id}/ops`, {
+        token,
+        body: { baseVersion: 0, ops: [{ op: 'updateNode', id: 'restraint-1', data: { Gk } }] },
+      });
     const [a, b] = await Promise.all([edit(200), edit(300)]);
     expect([a.status, b.status].sort()).toEqual([200, 409]);
     const d = await get(sum.id);
@@ -133,7 +170,11 @@ describe('stacks', () => {
 
   it('two op lists on the same baseVersion touching different nodes: both are applied and nothing is lost', async () => {
     const sum = await create({ name: 'O/2', template });
-    const edit = (id: string, Gk: number) => s.api('POST', `/stacks/${sum.id}/ops`, { token, body: { baseVersion: 0, ops: [{ op: 'updateNode', id, data: { Gk } }] } });
+    const edit = (id: string, Gk: number) =>
+      s.api('POST', `/stacks/${sum.id}/ops`, {
+        token,
+        body: { baseVersion: 0, ops: [{ op: 'updateNode', id, data: { Gk } }] },
+      });
     const [a, b] = await Promise.all([edit('restraint-1', 210), edit('restraint-2', 220)]);
     expect([a.status, b.status]).toEqual([200, 200]);
     const d = await get(sum.id);
@@ -147,8 +188,14 @@ describe('stacks', () => {
 
   it('refuses an edit whose base version conflicts with a removal of the same node', async () => {
     const sum = await create({ name: 'O/3', template });
-    await s.api('POST', `/stacks/${sum.id}/ops`, { token, body: { baseVersion: 0, ops: [{ op: 'removeNode', id: 'restraint-1' }] } });
-    const r = await s.api('POST', `/stacks/${sum.id}/ops`, { token, body: { baseVersion: 0, ops: [{ op: 'moveNode', id: 'restraint-1', position: { x: 1, y: 2 } }] } });
+    await s.api('POST', `/stacks/${sum.id}/ops`, {
+      token,
+      body: { baseVersion: 0, ops: [{ op: 'removeNode', id: 'restraint-1' }] },
+    });
+    const r = await s.api('POST', `/stacks/${sum.id}/ops`, {
+      token,
+      body: { baseVersion: 0, ops: [{ op: 'moveNode', id: 'restraint-1', position: { x: 1, y: 2 } }] },
+    });
     expect(r.status).toBe(409);
   });
 
@@ -156,11 +203,20 @@ describe('stacks', () => {
     const sum = await create({ name: 'O/4', template });
     const r = await s.api('POST', `/stacks/${sum.id}/ops`, {
       token,
-      body: { baseVersion: 0, ops: [{ op: 'moveNode', id: 'lift-1', position: { x: 0, y: 0 } }, { op: 'updateNode', id: 'ghost', data: { Gk: 1 } }] },
+      body: {
+        baseVersion: 0,
+        ops: [
+          { op: 'moveNode', id: 'lift-1', position: { x: 0, y: 0 } },
+          { op: 'updateNode', id: 'ghost', data: { Gk: 1 } },
+        ],
+      },
     });
     expect(r.status).toBe(422);
     expect(r.body).toMatchObject({ error: { code: 'unprocessable', details: { opIndex: 1, id: 'ghost' } } });
-    const neg = await s.api('POST', `/stacks/${sum.id}/ops`, { token, body: { baseVersion: 0, ops: [{ op: 'updateNode', id: 'restraint-1', data: { Gk: -5 } }] } });
+    const neg = await s.api('POST', `/stacks/${sum.id}/ops`, {
+      token,
+      body: { baseVersion: 0, ops: [{ op: 'updateNode', id: 'restraint-1', data: { Gk: -5 } }] },
+    });
     expect(neg.status).toBe(422);
     expect((await get(sum.id)).version).toBe(0);
   });
@@ -174,13 +230,16 @@ describe('stacks', () => {
     expect((await s.api('DELETE', `/stacks/${sum.id}`, { token: eng.token })).status).toBe(403);
     expect((await s.api('DELETE', `/stacks/${sum.id}`, { token })).status).toBe(204);
     expect((await s.api('GET', `/stacks/${sum.id}`, { token })).status).toBe(404);
-    const actions = (await s.ctx.db('audit_log').where({ stack_id: sum.id }).orderBy('id').select<{ action: string }[]>('action')).map((r) => r.action);
+    const actions = (
+      await s.ctx.db('audit_log').where({ stack_id: sum.id }).orderBy('id').select<{ action: string }[]>('action')
+    ).map((r) => r.action);
     expect(actions).toEqual(['stack.create', 'stack.rename', 'stack.delete']);
   });
 
   it('refuses a second stack of one grid reference, in any letter case (409), by create or rename, storing nothing', async () => {
     const first = await create({ name: 'Q/1', template });
-    const count = async () => ((await s.api('GET', `/buildings/${buildingId}/stacks`, { token })).body as StackSummary[]).length;
+    const count = async () =>
+      ((await s.api('GET', `/buildings/${buildingId}/stacks`, { token })).body as StackSummary[]).length;
     const before = await count();
     const again = await s.api('POST', `/buildings/${buildingId}/stacks`, { token, body: { name: 'q/1', template } });
     expect(again.status).toBe(409);
@@ -195,13 +254,18 @@ describe('stacks', () => {
 
   it('says which template field is wrong when the floors are given neither way or both ways', async () => {
     const refuse = async (t: object) => {
-      const r = await s.api('POST', `/buildings/${buildingId}/stacks`, { token, body: { name: 'W/1', template: { sections: ['UKC 203x203x46'], ...t } } });
+      const r = await s.api('POST', `/buildings/${buildingId}/stacks`, {
+        token,
+        body: { name: 'W/1', template: { sections: ['UKC 203x203x46'], ...t } },
+      });
       expect(r.status).toBe(400);
       expect(errorCode(r.body)).toBe('validation_failed');
       return (r.body as { error: { message: string } }).error.message;
     };
     expect(await refuse({})).toBe('Invalid input (template.storeys: is required (or give elevations instead))');
-    expect(await refuse({ elevations: [0, 4, 8], storeyHeight: 4 })).toBe('Invalid input (template.storeyHeight: must be left out when elevations are given)');
+    expect(await refuse({ elevations: [0, 4, 8], storeyHeight: 4 })).toBe(
+      'Invalid input (template.storeyHeight: must be left out when elevations are given)',
+    );
     expect(await refuse({ elevations: [0, 4, 3.9] })).toContain('template.elevations.2: must rise from floor to floor');
   });
 

@@ -19,7 +19,10 @@ export interface FloorLoadsApplied {
 
 type Loaded = Extract<StackNode, { kind: 'restraint' | 'cap' }>;
 
-export function applyFloorLoads(doc: StackDocument, floors: ReadonlyMap<string, DerivedLevelLoad> | undefined): FloorLoadsApplied {
+export function applyFloorLoads(
+  doc: StackDocument,
+  floors: ReadonlyMap<string, DerivedLevelLoad> | undefined,
+): FloorLoadsApplied {
   const uses: FloorLoadUse[] = [];
   const areas = new Map<string, LoadedArea>();
   if (!floors || floors.size === 0) return { doc, uses, areas };
@@ -29,7 +32,20 @@ export function applyFloorLoads(doc: StackDocument, floors: ReadonlyMap<string, 
     if (!floor) return node;
     const byHand = node.data.loadsByHand === true;
     const { levelId, area, gridArea, Gk, Qk, category, faces, lineGk, lineQk, overrideReason } = floor;
-    uses.push({ nodeId: node.id, levelId, area, gridArea, Gk, Qk, category, faces, lineGk, lineQk, byHand, ...(overrideReason ? { overrideReason } : {}) });
+    uses.push({
+      nodeId: node.id,
+      levelId,
+      area,
+      gridArea,
+      Gk,
+      Qk,
+      category,
+      faces,
+      lineGk,
+      lineQk,
+      byHand,
+      ...(overrideReason ? { overrideReason } : {}),
+    });
     if (byHand) return node;
     if (Qk > 0) areas.set(node.id, { area, category });
     return { ...node, data: { ...node.data, Gk, Qk, category, faces } } as Loaded;

@@ -35,8 +35,18 @@ function faceOf(side: Side, webAlong: 'x' | 'y'): FaceName {
 
 /** Share of the tributary area that reaches the column from each side, by the way the floor spans (m²). */
 function areaBySide(w: PlanWidths, span: FloorSpan, scale: number): Record<Side, number> {
-  const alongX = { xMinus: w.xMinus * (w.yMinus + w.yPlus), xPlus: w.xPlus * (w.yMinus + w.yPlus), yMinus: 0, yPlus: 0 };
-  const alongY = { xMinus: 0, xPlus: 0, yMinus: w.yMinus * (w.xMinus + w.xPlus), yPlus: w.yPlus * (w.xMinus + w.xPlus) };
+  const alongX = {
+    xMinus: w.xMinus * (w.yMinus + w.yPlus),
+    xPlus: w.xPlus * (w.yMinus + w.yPlus),
+    yMinus: 0,
+    yPlus: 0,
+  };
+  const alongY = {
+    xMinus: 0,
+    xPlus: 0,
+    yMinus: w.yMinus * (w.xMinus + w.xPlus),
+    yPlus: w.yPlus * (w.xMinus + w.xPlus),
+  };
   const share = span === 'x' ? [1, 0] : span === 'y' ? [0, 1] : [0.5, 0.5];
   const out = {} as Record<Side, number>;
   for (const s of SIDES) out[s] = (share[0] * alongX[s] + share[1] * alongY[s]) * scale;
@@ -47,13 +57,21 @@ function emptySides(): Record<Side, number> {
   return { xMinus: 0, xPlus: 0, yMinus: 0, yPlus: 0 };
 }
 
-function levelLoad(model: BuildingModel, placement: Required<Pick<StackPlacement, 'webAlong'>> & { gridX: string; gridY: string }, trib: TributaryArea, floor: BuildingModel['floors'][number]): DerivedLevelLoad | null {
+function levelLoad(
+  model: BuildingModel,
+  placement: Required<Pick<StackPlacement, 'webAlong'>> & { gridX: string; gridY: string },
+  trib: TributaryArea,
+  floor: BuildingModel['floors'][number],
+): DerivedLevelLoad | null {
   const buildup = model.buildups.find((b) => b.id === floor.buildupId);
   if (!buildup) return null;
   const { gk, qk, category } = areaLoads(buildup);
   const w = trib.widths;
   // With no grid area to share (a column on a line of zero bays), an override's area is shared evenly.
-  const bySide = trib.gridArea > 0 ? areaBySide(w, floor.span, trib.area / trib.gridArea) : { xMinus: trib.area / 4, xPlus: trib.area / 4, yMinus: trib.area / 4, yPlus: trib.area / 4 };
+  const bySide =
+    trib.gridArea > 0
+      ? areaBySide(w, floor.span, trib.area / trib.gridArea)
+      : { xMinus: trib.area / 4, xPlus: trib.area / 4, yMinus: trib.area / 4, yPlus: trib.area / 4 };
   const G = emptySides();
   const Q = emptySides();
   for (const s of SIDES) {
@@ -67,7 +85,15 @@ function levelLoad(model: BuildingModel, placement: Required<Pick<StackPlacement
     const onX = line.gridLineId === placement.gridX;
     const onY = line.gridLineId === placement.gridY;
     if (!onX && !onY) continue;
-    const parts: [Side, number][] = onX ? [['yMinus', w.yMinus], ['yPlus', w.yPlus]] : [['xMinus', w.xMinus], ['xPlus', w.xPlus]];
+    const parts: [Side, number][] = onX
+      ? [
+          ['yMinus', w.yMinus],
+          ['yPlus', w.yPlus],
+        ]
+      : [
+          ['xMinus', w.xMinus],
+          ['xPlus', w.xPlus],
+        ];
     for (const [side, length] of parts) {
       G[side] += line.gk * length;
       Q[side] += line.qk * length;
@@ -97,13 +123,22 @@ function levelLoad(model: BuildingModel, placement: Required<Pick<StackPlacement
 }
 
 /** Every level's load on the column at `placement`, by level id; empty off the grid. */
-export function stackFloorLoads(model: BuildingModel, placement: StackPlacement, stackId: string | number): Map<string, DerivedLevelLoad> {
+export function stackFloorLoads(
+  model: BuildingModel,
+  placement: StackPlacement,
+  stackId: string | number,
+): Map<string, DerivedLevelLoad> {
   const out = new Map<string, DerivedLevelLoad>();
   const { gridX, gridY } = placement;
   if (gridX === null || gridY === null) return out;
   const overrides = model.overrides[String(stackId)] ?? [];
   for (const floor of model.floors) {
-    const trib = tributaryArea(model.grid, gridX, gridY, overrides.find((o) => o.levelId === floor.levelId));
+    const trib = tributaryArea(
+      model.grid,
+      gridX,
+      gridY,
+      overrides.find((o) => o.levelId === floor.levelId),
+    );
     if (!trib) return out;
     const load = levelLoad(model, { gridX, gridY, webAlong: placement.webAlong }, trib, floor);
     if (load) out.set(floor.levelId, load);

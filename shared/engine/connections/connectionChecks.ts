@@ -20,7 +20,14 @@ interface Forces {
   Nmin: number;
 }
 
-function forcesAt(model: StackModel, weights: readonly ColumnWeight[], rows: readonly TakeDownRow[], elevation: number, includeEntriesAt: boolean, options: AnalysisOptions): Forces {
+function forcesAt(
+  model: StackModel,
+  weights: readonly ColumnWeight[],
+  rows: readonly TakeDownRow[],
+  elevation: number,
+  includeEntriesAt: boolean,
+  options: AnalysisOptions,
+): Forces {
   const state = axialStateAt(model.entries, weights, elevation, includeEntriesAt);
   let NEd = designAxialForce(state, options).NEd;
   // The take-down never lets the force fall below the force above (see takeDown.ts)
@@ -28,11 +35,33 @@ function forcesAt(model: StackModel, weights: readonly ColumnWeight[], rows: rea
   return { NEd: NEd * 1e3, Nmin: GAMMA_G_INF * state.sumGk * 1e3 };
 }
 
-function forceSteps(forces: Forces, tie: TieForce | null, consequence: AnalysisOptions['consequenceClass']): CalcStep[] {
+function forceSteps(
+  forces: Forces,
+  tie: TieForce | null,
+  consequence: AnalysisOptions['consequenceClass'],
+): CalcStep[] {
   const steps: CalcStep[] = [
-    { symbol: 'NEd', value: forces.NEd, unit: 'N', clause: 'EN 1990 6.4.3.2', description: 'Design compression in the joint' },
-    { symbol: 'Nmin,Ed', value: forces.Nmin, unit: 'N', clause: 'EN 1990 Table A1.2(B)', description: 'γG,inf = 1.0 on permanent load, no imposed load' },
-    { symbol: 'CC', value: consequence ?? 'not given', unit: '', clause: 'EN 1991-1-7 Table A.1', description: 'Consequence class of the building' },
+    {
+      symbol: 'NEd',
+      value: forces.NEd,
+      unit: 'N',
+      clause: 'EN 1990 6.4.3.2',
+      description: 'Design compression in the joint',
+    },
+    {
+      symbol: 'Nmin,Ed',
+      value: forces.Nmin,
+      unit: 'N',
+      clause: 'EN 1990 Table A1.2(B)',
+      description: 'γG,inf = 1.0 on permanent load, no imposed load',
+    },
+    {
+      symbol: 'CC',
+      value: consequence ?? 'not given',
+      unit: '',
+      clause: 'EN 1991-1-7 Table A.1',
+      description: 'Consequence class of the building',
+    },
   ];
   if (tie) {
     steps.push({
@@ -58,9 +87,16 @@ function checkOneSplice(
   const tension = Math.max(tie?.T ?? 0, -forces.Nmin, 0);
   const notes: string[] = [fit.fit];
   const steps = forceSteps(forces, tie, options.consequenceClass);
-  steps.push({ symbol: 'Ft,Ed', value: tension, unit: 'N', clause: 'EN 1991-1-7 A.6', description: 'Tension to carry: the tie force or net tension, the larger' });
+  steps.push({
+    symbol: 'Ft,Ed',
+    value: tension,
+    unit: 'N',
+    clause: 'EN 1991-1-7 A.6',
+    description: 'Tension to carry: the tie force or net tension, the larger',
+  });
   if (options.consequenceClass === undefined) notes.push('Consequence class not given: the tie force is not included');
-  if (options.consequenceClass === '3') notes.push('Consequence class 3 also needs a systematic risk assessment (EN 1991-1-7 A.4(1))');
+  if (options.consequenceClass === '3')
+    notes.push('Consequence class 3 also needs a systematic risk assessment (EN 1991-1-7 A.4(1))');
   const base = {
     nodeId: node.id,
     elevation: node.data.elevation,
@@ -84,16 +120,27 @@ function checkOneSplice(
   steps.push(...resistance.steps);
   const utilisation = resistance.NtRd > 0 ? tension / resistance.NtRd : Infinity;
   steps.push({ symbol: 'Ft,Ed/Nt,Rd', value: utilisation, unit: '', clause: 'EN 1993-1-8 2.5' });
-  notes.push('Bolt bearing (EN 1993-1-8 Table 3.4 Fb,Rd), block tearing and the column flanges in tension are not checked here');
+  notes.push(
+    'Bolt bearing (EN 1993-1-8 Table 3.4 Fb,Rd), block tearing and the column flanges in tension are not checked here',
+  );
   if (fit.divisionPlate) notes.push('Division plate: its welds or bolts to the columns must also carry the tension');
   const passes = utilisation <= 1;
-  return { ...base, NtRd: resistance.NtRd / 1e3, utilisation, status: passes ? 'passes' : 'fails', meetsTie: tie ? passes : null, notes, steps };
+  return {
+    ...base,
+    NtRd: resistance.NtRd / 1e3,
+    utilisation,
+    status: passes ? 'passes' : 'fails',
+    meetsTie: tie ? passes : null,
+    notes,
+    steps,
+  };
 }
 
 function checkBase(node: NodeOf<'support'>, lift: ModelLift, forces: Forces, options: AnalysisOptions): BaseCheck {
   const tension = forces.Nmin < 0;
   const notes: string[] = [];
-  if (tension) notes.push('The base is in tension under minimum permanent load: holding-down bolts must be designed for it');
+  if (tension)
+    notes.push('The base is in tension under minimum permanent load: holding-down bolts must be designed for it');
   const base = { nodeId: node.id, elevation: lift.bottom, NEd: forces.NEd / 1e3, NminEd: forces.Nmin / 1e3, tension };
   const empty = { fjd: null, c: null, tRequired: null, NjRd: null, utilisation: null, status: 'not-given' as const };
   const plate = node.data.basePlate;
@@ -105,7 +152,10 @@ function checkBase(node: NodeOf<'support'>, lift: ModelLift, forces: Forces, opt
   try {
     const check = checkBasePlate(forces.NEd, lift.section.dims, plate, options.concreteClass, options.annex);
     notes.push(...check.notes);
-    const fails = check.utilisation > 1 || check.tRequired === null || check.notes.some((n) => n.startsWith('The grout is thicker'));
+    const fails =
+      check.utilisation > 1 ||
+      check.tRequired === null ||
+      check.notes.some((n) => n.startsWith('The grout is thicker'));
     return {
       ...base,
       fjd: check.fjd,
@@ -137,7 +187,8 @@ export function connectionChecks(
   rows: readonly TakeDownRow[],
   options: AnalysisOptions,
 ): ConnectionResults {
-  const tie = options.consequenceClass && needsVerticalTies(options.consequenceClass) ? verticalTieForce(model.entries) : null;
+  const tie =
+    options.consequenceClass && needsVerticalTies(options.consequenceClass) ? verticalTieForce(model.entries) : null;
   const spliceNodes = doc.nodes.filter((n): n is NodeOf<'splice'> => n.kind === 'splice');
   const splices: SpliceCheck[] = [];
   for (let i = 0; i + 1 < model.lifts.length; i++) {
@@ -145,10 +196,15 @@ export function connectionChecks(
     const above = model.lifts[i + 1];
     const node = spliceNodes.find((n) => Math.abs(n.data.elevation - below.top) <= SAME_ELEVATION_M);
     if (!node) continue;
-    splices.push(checkOneSplice(node, below, above, forcesAt(model, weights, rows, below.top, false, options), tie, options));
+    splices.push(
+      checkOneSplice(node, below, above, forcesAt(model, weights, rows, below.top, false, options), tie, options),
+    );
   }
   const support = doc.nodes.find((n): n is NodeOf<'support'> => n.kind === 'support');
   const first = model.lifts[0];
-  const base = support && first ? checkBase(support, first, forcesAt(model, weights, rows, first.bottom, true, options), options) : undefined;
+  const base =
+    support && first
+      ? checkBase(support, first, forcesAt(model, weights, rows, first.bottom, true, options), options)
+      : undefined;
   return { splices, base };
 }

@@ -13,7 +13,9 @@ export const GAMMA_M0 = 1.0;
  */
 export function plateUltimateStrength(grade: Grade, t: number, annex: Annex): number {
   if (annex === 'UK') return { S235: 360, S275: 410, S355: 470, S420: 520, S460: 540 }[grade];
-  return t <= 40 ? { S235: 360, S275: 430, S355: 490, S420: 520, S460: 540 }[grade] : { S235: 360, S275: 410, S355: 470, S420: 500, S460: 530 }[grade];
+  return t <= 40
+    ? { S235: 360, S275: 430, S355: 490, S420: 520, S460: 540 }[grade]
+    : { S235: 360, S275: 410, S355: 470, S420: 500, S460: 530 }[grade];
 }
 
 export interface PlateTension {
@@ -30,7 +32,14 @@ export interface PlateTension {
  * Nt,Rd = min(Npl,Rd, Nu,Rd): Npl,Rd = A·fy/γM0 (EN 1993-1-1 eq. 6.6), Nu,Rd = 0.9·Anet·fu/γM2 (eq. 6.7),
  * the net area less `holes` holes of diameter d0 across the width (6.2.2.2).
  */
-export function plateTension(width: number, t: number, grade: Grade, holes: number, d0: number, annex: Annex): PlateTension {
+export function plateTension(
+  width: number,
+  t: number,
+  grade: Grade,
+  holes: number,
+  d0: number,
+  annex: Annex,
+): PlateTension {
   const fy = yieldStrength(grade, t, 'rolled', annex);
   const fu = plateUltimateStrength(grade, t, annex);
   const A = width * t;

@@ -21,6 +21,10 @@ export function proposeSpliceDetail(above: SectionDims | null): SpliceDetail {
 
 /** A plate 100 mm beyond the footprint each way (to the next 25 mm), 25 mm thick S275, on a 25 mm grout joint. */
 export function proposeBasePlate(column: SectionDims | null): BasePlate {
-  const footprint = !column ? { b: 250, l: 250 } : column.shape === 'CHS' ? { b: column.d, l: column.d } : { b: column.b, l: column.h };
+  const footprint = !column
+    ? { b: 250, l: 250 }
+    : column.shape === 'CHS'
+      ? { b: column.d, l: column.d }
+      : { b: column.b, l: column.h };
   return { b: roundUp(footprint.b + 200, 25), l: roundUp(footprint.l + 200, 25), t: 25, grade: 'S275', grout: 25 };
 }

@@ -27,7 +27,10 @@ export interface AnalysedStacks {
   stacks: readonly { id: string | number; name: string; result: StackResult }[];
 }
 
-export function robustnessSummary(building: AnalysedStacks, consequenceClass: ConsequenceClass | undefined): RobustnessSummary {
+export function robustnessSummary(
+  building: AnalysedStacks,
+  consequenceClass: ConsequenceClass | undefined,
+): RobustnessSummary {
   const cc = consequenceClass ?? null;
   const required = cc !== null && needsVerticalTies(cc);
   const meeting: TieRow[] = [];
@@ -35,7 +38,15 @@ export function robustnessSummary(building: AnalysedStacks, consequenceClass: Co
   if (required) {
     for (const stack of building.stacks) {
       for (const s of stack.result.splices ?? []) {
-        const row = { stackId: stack.id, stackName: stack.name, spliceId: s.nodeId, elevation: s.elevation, tieForce: s.tieForce ?? 0, NtRd: s.NtRd, meets: s.meetsTie === true };
+        const row = {
+          stackId: stack.id,
+          stackName: stack.name,
+          spliceId: s.nodeId,
+          elevation: s.elevation,
+          tieForce: s.tieForce ?? 0,
+          NtRd: s.NtRd,
+          meets: s.meetsTie === true,
+        };
         (row.meets ? meeting : notMeeting).push(row);
       }
     }

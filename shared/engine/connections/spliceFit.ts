@@ -11,9 +11,17 @@ export interface SpliceFit {
   fit: string;
 }
 
-export function spliceFit(above: { designation: string; dims: SectionDims }, below: { designation: string; dims: SectionDims }): SpliceFit {
+export function spliceFit(
+  above: { designation: string; dims: SectionDims },
+  below: { designation: string; dims: SectionDims },
+): SpliceFit {
   if (above.dims.shape !== 'I' || below.dims.shape !== 'I') {
-    return { sameSerialSize: null, packThickness: 0, divisionPlate: false, fit: 'Splices of hollow sections are not detailed here: end plates or a cap plate to be designed' };
+    return {
+      sameSerialSize: null,
+      packThickness: 0,
+      divisionPlate: false,
+      fit: 'Splices of hollow sections are not detailed here: end plates or a cap plate to be designed',
+    };
   }
   const same = serialSize(above.designation) === serialSize(below.designation);
   if (!same) {

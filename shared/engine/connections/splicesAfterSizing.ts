@@ -14,22 +14,38 @@ function proposedDocument(doc: StackDocument, lifts: readonly LiftSizing[]): Sta
     ...doc,
     nodes: doc.nodes.map((n) => {
       const pick = n.kind === 'lift' ? after.get(n.id) : undefined;
-      return pick && n.kind === 'lift' ? { ...n, data: { ...n.data, section: pick.section, grade: pick.grade as typeof n.data.grade } } : n;
+      return pick && n.kind === 'lift'
+        ? { ...n, data: { ...n.data, section: pick.section, grade: pick.grade as typeof n.data.grade } }
+        : n;
     }),
   };
 }
 
 /** One issue per detailed splice that fails, or newly needs a division plate, with the proposed sections. */
-export function splicesAfterSizing(doc: StackDocument, lifts: readonly LiftSizing[], options: AnalysisOptions, context: AnalysisContext = {}): Issue[] {
-  if (!doc.nodes.some((n) => n.kind === 'splice' && n.data.detail) || !lifts.some((l) => l.status === 'proposed')) return [];
+export function splicesAfterSizing(
+  doc: StackDocument,
+  lifts: readonly LiftSizing[],
+  options: AnalysisOptions,
+  context: AnalysisContext = {},
+): Issue[] {
+  if (!doc.nodes.some((n) => n.kind === 'splice' && n.data.detail) || !lifts.some((l) => l.status === 'proposed'))
+    return [];
   const before = analyseStack(doc, options, context).splices ?? [];
   const after = analyseStack(proposedDocument(doc, lifts), options, context).splices ?? [];
   const issues: Issue[] = [];
   for (const check of after) {
     const was = before.find((b) => b.nodeId === check.nodeId);
     const where = `Splice at ${formatElevation(check.elevation)}`;
-    if (check.status === 'fails') issues.push({ nodeId: check.nodeId, message: `${where} fails in tension with the proposed sections (${check.above} on ${check.below})` });
-    else if (check.divisionPlate && was && !was.divisionPlate) issues.push({ nodeId: check.nodeId, message: `${where} needs a division plate with the proposed sections: the serial size changes` });
+    if (check.status === 'fails')
+      issues.push({
+        nodeId: check.nodeId,
+        message: `${where} fails in tension with the proposed sections (${check.above} on ${check.below})`,
+      });
+    else if (check.divisionPlate && was && !was.divisionPlate)
+      issues.push({
+        nodeId: check.nodeId,
+        message: `${where} needs a division plate with the proposed sections: the serial size changes`,
+      });
   }
   return issues;
 }

@@ -35,13 +35,20 @@ export function bucklingAbout(
   const about = `The critical buckling analysis about the ${AXIS_NAME[axis]} axis`;
   if ('failure' in solution) {
     return solution.failure === 'mechanism'
-      ? { message: `${about} cannot solve the stack: the column is a mechanism near ${formatElevation(column.nodes[solution.node])} (it needs more restraint)` }
-      : { message: `${about} found no buckling load: no piece of the column is in compression. Use tabulated factors for this building` };
+      ? {
+          message: `${about} cannot solve the stack: the column is a mechanism near ${formatElevation(column.nodes[solution.node])} (it needs more restraint)`,
+        }
+      : {
+          message: `${about} found no buckling load: no piece of the column is in compression. Use tabulated factors for this building`,
+        };
   }
   // + 0 turns a rounded −0 into 0
   return {
     alphaCr: solution.alphaCr,
-    shape: { elevations: column.nodes.map((e) => Math.round(e * ROUND) / ROUND), displacements: solution.shape.map((v) => Math.round(v * ROUND) / ROUND + 0) },
+    shape: {
+      elevations: column.nodes.map((e) => Math.round(e * ROUND) / ROUND),
+      displacements: solution.shape.map((v) => Math.round(v * ROUND) / ROUND + 0),
+    },
   };
 }
 

@@ -44,7 +44,8 @@ export function longerThanTableWarnings(lifts: readonly LiftResult[]): Issue[] {
       for (const p of lift.pieces) {
         const k = axis === 'y' ? p.kY : p.kZ;
         const table = axis === 'y' ? p.tableKY : p.tableKZ;
-        if (table !== undefined && k > table * (1 + 1e-9) && (!worst || k / table > worst.k / worst.table)) worst = { k, table };
+        if (table !== undefined && k > table * (1 + 1e-9) && (!worst || k / table > worst.k / worst.table))
+          worst = { k, table };
       }
       if (!worst) continue;
       warnings.push({

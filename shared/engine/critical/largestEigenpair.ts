@@ -52,7 +52,11 @@ function largestRitz(alpha: readonly number[], beta: readonly number[]): { theta
  * `apply(x, out)` writes A·x into out. Stops when the Ritz residual is below `tolerance`·|θ| or the
  * Krylov space is exhausted (then the result is exact for it).
  */
-export function largestEigenpair(n: number, apply: (x: Float64Array, out: Float64Array) => void, tolerance = 1e-9): Eigenpair {
+export function largestEigenpair(
+  n: number,
+  apply: (x: Float64Array, out: Float64Array) => void,
+  tolerance = 1e-9,
+): Eigenpair {
   const basis: Float64Array[] = [startVector(n)];
   const alpha: number[] = [];
   const beta: number[] = [];

@@ -62,12 +62,16 @@ export function lowestLoadFactor(c: BeamColumn): BucklingSolution {
       }
     }
   }
-  for (let k = 0; k < c.nodes.length; k++) if (dofs.t[k] >= 0 && c.rotationSpring[k] > 0) addBand(K, dofs.t[k], dofs.t[k], c.rotationSpring[k]);
+  for (let k = 0; k < c.nodes.length; k++)
+    if (dofs.t[k] >= 0 && c.rotationSpring[k] > 0) addBand(K, dofs.t[k], dofs.t[k], c.rotationSpring[k]);
 
   if (n === 0) return { failure: 'no-compression' };
   const chol = bandCholesky(K);
   if ('failedAt' in chol) {
-    const node = Math.max(0, dofs.u.findIndex((d, k) => d >= chol.failedAt || dofs.t[k] >= chol.failedAt));
+    const node = Math.max(
+      0,
+      dofs.u.findIndex((d, k) => d >= chol.failedAt || dofs.t[k] >= chol.failedAt),
+    );
     return { failure: 'mechanism', node };
   }
   const L = chol.factor;
@@ -80,7 +84,7 @@ export function lowestLoadFactor(c: BeamColumn): BucklingSolution {
   };
   const pair = largestEigenpair(n, apply);
   // μ = 1/λ: none positive (to round-off) means no compression anywhere that can buckle the column.
-  if (!(pair.value > 1e-12 * maxAbs(Kg.data) / maxAbs(K.data))) return { failure: 'no-compression' };
+  if (!(pair.value > (1e-12 * maxAbs(Kg.data)) / maxAbs(K.data))) return { failure: 'no-compression' };
   const phi = solveUpper(L, pair.vector);
   const shape = dofs.u.map((d) => (d < 0 ? 0 : phi[d]));
   const peak = shape.reduce((m, v) => (Math.abs(v) > Math.abs(m) ? v : m), 0);

@@ -26,7 +26,13 @@ export interface PieceLengths {
  * A lift's kY/kZ set by hand still wins; a piece without compression about an axis keeps the table's
  * length (its buckling term is zero whatever the length).
  */
-export function pieceLengths(lift: ModelLift, span: PieceSpan, NEdY: number, NEdZ: number, critical: LiftCritical): PieceLengths {
+export function pieceLengths(
+  lift: ModelLift,
+  span: PieceSpan,
+  NEdY: number,
+  NEdZ: number,
+  critical: LiftCritical,
+): PieceLengths {
   const lengthY = span.segmentY.top - span.segmentY.bottom;
   const lengthZ = span.segmentZ.top - span.segmentZ.bottom;
   const out: PieceLengths = { LcrY: 0, LcrZ: 0, kY: 0, kZ: 0 };

@@ -24,7 +24,8 @@ export function withCriticalBuckling(
   sections?: ReadonlyMap<string, SectionDims>,
 ): CriticalForStack {
   const solved = criticalBuckling(model, pieces, NEd, sections);
-  if (!('y' in solved)) return { errors: solved.errors, result: null, forLift: () => undefined, finish: () => undefined };
+  if (!('y' in solved))
+    return { errors: solved.errors, result: null, forLift: () => undefined, finish: () => undefined };
   const alphaCr = { y: solved.y.alphaCr, z: solved.z.alphaCr };
   const result = { y: solved.y, z: solved.z };
   return {

@@ -35,7 +35,16 @@ export function momentFloors(doc: StackDocument, model: StackModel): (MomentFloo
     const data = node?.kind === 'restraint' || node?.kind === 'cap' ? node.data : undefined;
     const Qk = Object.values(entry.Qk).reduce((s: number, q) => s + (q ?? 0), 0);
     const cap = node?.kind === 'cap';
-    return { nodeId: entry.nodeId, elevation: cap ? top : entry.elevation, category: data?.category ?? 'A', faces: data?.faces, loaded: entry.Gk > 0 || Qk > 0, cap, Gk: entry.Gk, Qk };
+    return {
+      nodeId: entry.nodeId,
+      elevation: cap ? top : entry.elevation,
+      category: data?.category ?? 'A',
+      faces: data?.faces,
+      loaded: entry.Gk > 0 || Qk > 0,
+      cap,
+      Gk: entry.Gk,
+      Qk,
+    };
   });
   return floors.sort((a, b) => a.elevation - b.elevation);
 }
@@ -68,7 +77,8 @@ export function applyNominalMoments(
   const floors = momentFloors(doc, model);
   const warnings = faceWarnings(floors);
   if (options.nominalMoments === false) return { errors: [], warnings };
-  if (!floors.some((f) => hasReactions(f.faces))) return { errors: [], warnings: [...warnings, NO_FACE_REACTIONS_NOTE] };
+  if (!floors.some((f) => hasReactions(f.faces)))
+    return { errors: [], warnings: [...warnings, NO_FACE_REACTIONS_NOTE] };
 
   const columns = model.lifts.map((l) => {
     const { props } = sectionData(l.data.section, sections);
@@ -87,7 +97,9 @@ export function applyNominalMoments(
     const modelLift = model.lifts[i];
     const { section, grade } = modelLift.data;
     try {
-      lift.pieces.forEach((piece, k) => addCombined(piece, worstCombination(piece, levels, trials, i, k, section, grade, options, sections)));
+      lift.pieces.forEach((piece, k) =>
+        addCombined(piece, worstCombination(piece, levels, trials, i, k, section, grade, options, sections)),
+      );
     } catch (error) {
       if (!isEngineError(error)) throw error;
       errors.push({ nodeId: lift.liftId, message: `Lift ${modelLift.name}: ${error.message}` });
@@ -119,11 +131,22 @@ function worstCombination(
     // kN → N, kN·m → N·mm, m → mm. piece.check was run with the largest NEd of all combinations: the
     // buckling resistances it gives are never larger than those for a smaller force (6.3.1.2(4)).
     const combined = checkSimpleColumn(
-      { section, grade, LcrY: piece.LcrY * 1000, LcrZ: piece.LcrZ * 1000, NEdY: NEdY * 1000, NEdZ: NEdZ * 1000, MyEd: m.My * 1e6, MzEd: m.Mz * 1e6, annex: options.annex },
+      {
+        section,
+        grade,
+        LcrY: piece.LcrY * 1000,
+        LcrZ: piece.LcrZ * 1000,
+        NEdY: NEdY * 1000,
+        NEdZ: NEdZ * 1000,
+        MyEd: m.My * 1e6,
+        MzEd: m.Mz * 1e6,
+        annex: options.annex,
+      },
       { compression: piece.check, extraSections: sections },
     );
     combined.combination = trial.expression;
-    for (const step of combined.steps) if (step.symbol.startsWith('NEd,')) step.description = `${step.description ?? ''}, eq. ${trial.expression}`;
+    for (const step of combined.steps)
+      if (step.symbol.startsWith('NEd,')) step.description = `${step.description ?? ''}, eq. ${trial.expression}`;
     combined.steps = [...momentSteps(m, piece), ...combined.steps];
     checks.push(combined);
   }
@@ -144,11 +167,20 @@ function addCombined(piece: PieceCheck, combined: CombinedCheck | null): void {
 }
 
 /** The lift's worst piece after the combined check, with its member working written out (as checkLift does). */
-function governLift(lift: LiftResult, section: string | SectionDims, grade: Grade, options: AnalysisOptions, sections?: ReadonlyMap<string, SectionDims>): void {
+function governLift(
+  lift: LiftResult,
+  section: string | SectionDims,
+  grade: Grade,
+  options: AnalysisOptions,
+  sections?: ReadonlyMap<string, SectionDims>,
+): void {
   const worst = lift.pieces.reduce((a, b) => (b.utilisation > a.utilisation ? b : a));
   if (worst.check.steps.length === 0) {
     const NEd = Math.max(worst.NEdY, worst.NEdZ) * 1000;
-    worst.check = checkCompression({ section, grade, LcrY: worst.LcrY * 1000, LcrZ: worst.LcrZ * 1000, NEd, annex: options.annex }, { extraSections: sections });
+    worst.check = checkCompression(
+      { section, grade, LcrY: worst.LcrY * 1000, LcrZ: worst.LcrZ * 1000, NEd, annex: options.annex },
+      { extraSections: sections },
+    );
   }
   for (const piece of lift.pieces) if (piece !== worst && piece.combined) piece.combined.steps = [];
   lift.utilisation = worst.utilisation;

@@ -45,11 +45,15 @@ export function checkSimpleColumn(input: SimpleColumnInput, opts: SimpleColumnOp
   const annex = input.annex ?? 'UK';
   const gammaM0 = input.gammaM0 ?? 1.0;
   const gammaM1 = input.gammaM1 ?? 1.0;
-  if (!(input.MyEd >= 0) || !(input.MzEd >= 0)) throw new EngineError('invalid_input', 'Nominal moments must be finite numbers ≥ 0.');
+  if (!(input.MyEd >= 0) || !(input.MzEd >= 0))
+    throw new EngineError('invalid_input', 'Nominal moments must be finite numbers ≥ 0.');
   const NEd = Math.max(input.NEdY, input.NEdZ);
   const compression =
     opts.compression ??
-    checkCompression({ section: input.section, grade: input.grade, LcrY: input.LcrY, LcrZ: input.LcrZ, NEd, annex, gammaM0, gammaM1 }, { steps: false, extraSections: opts.extraSections });
+    checkCompression(
+      { section: input.section, grade: input.grade, LcrY: input.LcrY, LcrZ: input.LcrZ, NEd, annex, gammaM0, gammaM1 },
+      { steps: false, extraSections: opts.extraSections },
+    );
   if (compression.sectionClass === 4) {
     throw new EngineError('unsupported', CLASS_4_REFUSAL);
   }
@@ -58,7 +62,15 @@ export function checkSimpleColumn(input: SimpleColumnInput, opts: SimpleColumnOp
   const plastic = compression.sectionClass <= 2;
   const Wy = plastic ? props.WplY : props.WelY;
   const Wz = plastic ? props.WplZ : props.WelZ;
-  const ltb = lateralTorsionalReduction({ dims, props, fy, Wy, lambdaBarZ: compression.lambdaBarZ, Lcr: input.LcrZ, annex });
+  const ltb = lateralTorsionalReduction({
+    dims,
+    props,
+    fy,
+    Wy,
+    lambdaBarZ: compression.lambdaBarZ,
+    Lcr: input.LcrZ,
+    annex,
+  });
   // EN 1993-1-1 eq. 6.55
   const MbRd = (ltb.chiLT * Wy * fy) / gammaM1;
   // EN 1993-1-1 eq. 6.13 (class 1–2, Wpl) / eq. 6.14 (class 3, Wel)
@@ -70,21 +82,65 @@ export function checkSimpleColumn(input: SimpleColumnInput, opts: SimpleColumnOp
 
   const modulus = plastic ? 'pl' : 'el';
   const steps: CalcStep[] = [
-    { symbol: 'NEd,y', value: input.NEdY, unit: 'N', clause: 'EN 1990 6.4.3.2', description: 'design axial force, y-y buckling segment' },
-    { symbol: 'NEd,z', value: input.NEdZ, unit: 'N', clause: 'EN 1990 6.4.3.2', description: 'design axial force, z-z buckling segment' },
+    {
+      symbol: 'NEd,y',
+      value: input.NEdY,
+      unit: 'N',
+      clause: 'EN 1990 6.4.3.2',
+      description: 'design axial force, y-y buckling segment',
+    },
+    {
+      symbol: 'NEd,z',
+      value: input.NEdZ,
+      unit: 'N',
+      clause: 'EN 1990 6.4.3.2',
+      description: 'design axial force, z-z buckling segment',
+    },
     { symbol: 'Nb,y,Rd', value: compression.NbRdY, unit: 'N', clause: 'EN 1993-1-1 eq. 6.47' },
     { symbol: 'Nb,z,Rd', value: compression.NbRdZ, unit: 'N', clause: 'EN 1993-1-1 eq. 6.47' },
-    { symbol: 'My,Ed', value: input.MyEd, unit: 'N·mm', clause: 'simple construction, reactions 100 mm from the face', description: 'nominal moment about y-y' },
-    { symbol: 'Mz,Ed', value: input.MzEd, unit: 'N·mm', clause: 'simple construction, reactions 100 mm from the face', description: 'nominal moment about z-z' },
+    {
+      symbol: 'My,Ed',
+      value: input.MyEd,
+      unit: 'N·mm',
+      clause: 'simple construction, reactions 100 mm from the face',
+      description: 'nominal moment about y-y',
+    },
+    {
+      symbol: 'Mz,Ed',
+      value: input.MzEd,
+      unit: 'N·mm',
+      clause: 'simple construction, reactions 100 mm from the face',
+      description: 'nominal moment about z-z',
+    },
     { symbol: 'λ̄z', value: compression.lambdaBarZ, unit: '', clause: 'EN 1993-1-1 eq. 6.50' },
     { symbol: 'λ̄LT', value: ltb.lambdaBarLT, unit: '', clause: ltb.slendernessRule },
     { symbol: 'curve LT', value: ltb.curve ?? '-', unit: '', clause: ltb.curveRule },
-    { symbol: 'λ̄LT,0', value: ltb.lambdaLT0, unit: '', clause: ltb.beta < 1 ? 'EN 1993-1-1 6.3.2.3(1)' : 'EN 1993-1-1 6.3.2.2(4)' },
-    { symbol: 'β', value: ltb.beta, unit: '', clause: ltb.beta < 1 ? 'EN 1993-1-1 6.3.2.3(1)' : 'EN 1993-1-1 eq. 6.56' },
-    { symbol: 'χLT', value: ltb.chiLT, unit: '', clause: ltb.beta < 1 ? 'EN 1993-1-1 eq. 6.57' : 'EN 1993-1-1 eq. 6.56' },
+    {
+      symbol: 'λ̄LT,0',
+      value: ltb.lambdaLT0,
+      unit: '',
+      clause: ltb.beta < 1 ? 'EN 1993-1-1 6.3.2.3(1)' : 'EN 1993-1-1 6.3.2.2(4)',
+    },
+    {
+      symbol: 'β',
+      value: ltb.beta,
+      unit: '',
+      clause: ltb.beta < 1 ? 'EN 1993-1-1 6.3.2.3(1)' : 'EN 1993-1-1 eq. 6.56',
+    },
+    {
+      symbol: 'χLT',
+      value: ltb.chiLT,
+      unit: '',
+      clause: ltb.beta < 1 ? 'EN 1993-1-1 eq. 6.57' : 'EN 1993-1-1 eq. 6.56',
+    },
     { symbol: `W${modulus},y`, value: Wy, unit: 'mm³', clause: 'EN 1993-1-1 6.3.2.1(3)' },
     { symbol: 'Mb,Rd', value: MbRd, unit: 'N·mm', clause: 'EN 1993-1-1 eq. 6.55' },
-    { symbol: `W${modulus},z`, value: Wz, unit: 'mm³', clause: plastic ? 'EN 1993-1-1 eq. 6.13' : 'EN 1993-1-1 eq. 6.14' },
+    {
+      symbol: `W${modulus},z`,
+      value: Wz,
+      unit: 'mm³',
+      clause: plastic ? 'EN 1993-1-1 eq. 6.13' : 'EN 1993-1-1 eq. 6.14',
+    },
     { symbol: 'Mz,Rd', value: MzRd, unit: 'N·mm', clause: plastic ? 'EN 1993-1-1 eq. 6.13' : 'EN 1993-1-1 eq. 6.14' },
     { symbol: 'NEd/Nb,min,Rd', value: axialTerm, unit: '', clause: METHOD },
     { symbol: 'My,Ed/Mb,Rd', value: majorTerm, unit: '', clause: METHOD },

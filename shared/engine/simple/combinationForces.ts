@@ -27,8 +27,17 @@ function segmentIndex(segments: readonly Segment[], middle: number): number {
  * section never carries less than the one above it), then, as the axial check does (SPEC §5.6), the
  * largest force of the lift's pieces in the same segment about each axis.
  */
-export function forcesOfExpression(model: StackModel, lifts: readonly LiftResult[], options: AnalysisOptions, expression: Expression): PieceForces[] {
-  const weights = model.lifts.map((l) => ({ bottom: l.bottom, top: l.top, perMetre: options.selfWeight ? selfWeightPerMetre(l.section.massPerMetre) : 0 }));
+export function forcesOfExpression(
+  model: StackModel,
+  lifts: readonly LiftResult[],
+  options: AnalysisOptions,
+  expression: Expression,
+): PieceForces[] {
+  const weights = model.lifts.map((l) => ({
+    bottom: l.bottom,
+    top: l.top,
+    perMetre: options.selfWeight ? selfWeightPerMetre(l.section.massPerMetre) : 0,
+  }));
   const bottoms = lifts.flatMap((l) => l.pieces.map((p) => p.from));
   const { sectionNEd } = takeDown(model.entries, weights, { ...options, expression }, bottoms);
   let first = 0;
@@ -37,7 +46,8 @@ export function forcesOfExpression(model: StackModel, lifts: readonly LiftResult
     first += lift.pieces.length;
     const segY = lift.pieces.map((p) => segmentIndex(model.segments.y, (p.from + p.to) / 2));
     const segZ = lift.pieces.map((p) => segmentIndex(model.segments.z, (p.from + p.to) / 2));
-    const largest = (seg: readonly number[]) => seg.map((s) => NEd.reduce((max, f, j) => (seg[j] === s && f > max ? f : max), 0));
+    const largest = (seg: readonly number[]) =>
+      seg.map((s) => NEd.reduce((max, f, j) => (seg[j] === s && f > max ? f : max), 0));
     return { NEdY: largest(segY), NEdZ: largest(segZ) };
   });
 }

@@ -77,10 +77,18 @@ export function storeyLevels(floors: readonly MomentFloor[], bottom: number, top
 
 /** The section the beams connect to: the one just below the floor (at the cap, the top lift). */
 function sectionAt(lifts: readonly ColumnLength[], elevation: number): ColumnLength | undefined {
-  return lifts.find((l) => l.bottom < elevation - EPS && l.top >= elevation - EPS) ?? lifts.find((l) => l.bottom <= elevation + EPS && l.top > elevation + EPS);
+  return (
+    lifts.find((l) => l.bottom < elevation - EPS && l.top >= elevation - EPS) ??
+    lifts.find((l) => l.bottom <= elevation + EPS && l.top > elevation + EPS)
+  );
 }
 
-function axisMoment(e: number, reaction: NetReaction, below: StoreyStiffness | null, above: StoreyStiffness | null): AxisMoment {
+function axisMoment(
+  e: number,
+  reaction: NetReaction,
+  below: StoreyStiffness | null,
+  above: StoreyStiffness | null,
+): AxisMoment {
   // kN × mm / 1000 = kN·m
   const M = (reaction.value * e) / 1000;
   return { e, reaction, M, share: shareMoment(M, above?.stiffness ?? 0, below?.stiffness ?? 0), below, above };

@@ -31,7 +31,13 @@ export interface LtbReduction {
 }
 
 /** χLT = 1/(ΦLT + √(ΦLT² − β·λ̄LT²)), ΦLT = 0.5[1 + αLT(λ̄LT − λ̄LT,0) + β·λ̄LT²] (EN 1993-1-1 6.3.2.2, 6.3.2.3). */
-function chiLTFor(lambdaBarLT: number, curve: BucklingCurve, lambdaLT0: number, beta: number, rolledMethod: boolean): number {
+function chiLTFor(
+  lambdaBarLT: number,
+  curve: BucklingCurve,
+  lambdaLT0: number,
+  beta: number,
+  rolledMethod: boolean,
+): number {
   // EN 1993-1-1 6.3.2.2(4): no reduction up to λ̄LT,0
   if (lambdaBarLT <= lambdaLT0) return 1;
   const phi = 0.5 * (1 + imperfectionFactor(curve) * (lambdaBarLT - lambdaLT0) + beta * lambdaBarLT * lambdaBarLT);
@@ -80,7 +86,8 @@ export function lateralTorsionalReduction(input: LtbInput): LtbReduction {
       lambdaLT0: 0.4,
       beta: 0.75,
       slendernessRule: 'λ̄LT = 0.9·λ̄z, rolled I or H column in simple construction (NCCI SN048b)',
-      curveRule: input.annex === 'UK' ? 'EN 1993-1-1 Table 6.5 with UK NA NA.2.17, rolled I' : 'EN 1993-1-1 Table 6.5, rolled I',
+      curveRule:
+        input.annex === 'UK' ? 'EN 1993-1-1 Table 6.5 with UK NA NA.2.17, rolled I' : 'EN 1993-1-1 Table 6.5, rolled I',
     };
   }
   // Welded I: λ̄LT = λ̄z bounds the true value (Mcr ≥ Ncr,z·hs/2 for a doubly symmetric I under uniform

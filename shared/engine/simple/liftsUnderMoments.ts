@@ -10,7 +10,12 @@ import { floorMoments } from './floorMoments.ts';
 
 const EPS = 1e-6;
 
-export function liftsUnderMoments(doc: StackDocument, model: StackModel, options: AnalysisOptions, sections?: ReadonlyMap<string, SectionDims>): boolean[] {
+export function liftsUnderMoments(
+  doc: StackDocument,
+  model: StackModel,
+  options: AnalysisOptions,
+  sections?: ReadonlyMap<string, SectionDims>,
+): boolean[] {
   if (!hasFaceReactions(doc, options)) return model.lifts.map(() => false);
   const floors = momentFloors(doc, model);
   const columns = model.lifts.map((l) => {

@@ -6,7 +6,8 @@ import type { AxisMoment, FloorMoment } from './floorMoments.ts';
 import type { PieceMoments } from './pieceMoments.ts';
 import type { StoreyStiffness } from './storeyStiffness.ts';
 
-const SHARE_RULE = 'simple construction: shared by the storeys’ EI/L, equally when within 1.5 (design guides, from memory)';
+const SHARE_RULE =
+  'simple construction: shared by the storeys’ EI/L, equally when within 1.5 (design guides, from memory)';
 
 function ruleWords(m: AxisMoment, cap: boolean): string {
   if (cap) return 'roof: no column above, the whole moment goes into the top storey';
@@ -20,7 +21,15 @@ function stiffnessStep(symbol: string, s: StoreyStiffness | null): CalcStep[] {
   const span = `storey ${formatElevation(s.from)} to ${formatElevation(s.to)} m`;
   const series = s.parts.length > 1 ? `; ${s.parts.length} lengths in series, L/I = Σ Lᵢ/Iᵢ` : '';
   // I in mm⁴ → cm⁴, per metre of storey
-  return [{ symbol, value: s.stiffness / 1e4, unit: 'cm⁴/m', clause: 'elastic theory, members in series', description: `I/L of the ${span}${series}` }];
+  return [
+    {
+      symbol,
+      value: s.stiffness / 1e4,
+      unit: 'cm⁴/m',
+      clause: 'elastic theory, members in series',
+      description: `I/L of the ${span}${series}`,
+    },
+  ];
 }
 
 function axisSteps(axis: 'y' | 'z', floor: FloorMoment | null, side: 'above' | 'below', piece: PieceCheck): CalcStep[] {
@@ -31,12 +40,36 @@ function axisSteps(axis: 'y' | 'z', floor: FloorMoment | null, side: 'above' | '
   const storey = side === 'above' ? m.above : m.below;
   const span = storey ? `storey ${formatElevation(storey.from)} to ${formatElevation(storey.to)}` : 'the storey';
   return [
-    { symbol: `R${axis},net`, value: m.reaction.value * 1000, unit: 'N', clause: m.reaction.expression, description: `${where}: worst imposed-load pattern across the ${axis} faces` },
-    { symbol: `e${axis}`, value: m.e, unit: 'mm', clause: 'simple construction, reaction 100 mm from the face', description: axis === 'y' ? 'h/2 + 100' : 'tw/2 + 100 (hollow: b/2 + 100)' },
-    { symbol: `M${axis},floor`, value: m.M * 1e6, unit: 'N·mm', clause: 'simple construction', description: `${where}, R·e` },
+    {
+      symbol: `R${axis},net`,
+      value: m.reaction.value * 1000,
+      unit: 'N',
+      clause: m.reaction.expression,
+      description: `${where}: worst imposed-load pattern across the ${axis} faces`,
+    },
+    {
+      symbol: `e${axis}`,
+      value: m.e,
+      unit: 'mm',
+      clause: 'simple construction, reaction 100 mm from the face',
+      description: axis === 'y' ? 'h/2 + 100' : 'tw/2 + 100 (hollow: b/2 + 100)',
+    },
+    {
+      symbol: `M${axis},floor`,
+      value: m.M * 1e6,
+      unit: 'N·mm',
+      clause: 'simple construction',
+      description: `${where}, R·e`,
+    },
     ...stiffnessStep(`(I/L)${axis},below`, m.below),
     ...stiffnessStep(`(I/L)${axis},above`, m.above),
-    { symbol: `M${axis},${side}`, value: m.share[side] * 1e6, unit: 'N·mm', clause: SHARE_RULE, description: `${ruleWords(m, floor.cap)}; not carried to the next floor` },
+    {
+      symbol: `M${axis},${side}`,
+      value: m.share[side] * 1e6,
+      unit: 'N·mm',
+      clause: SHARE_RULE,
+      description: `${ruleWords(m, floor.cap)}; not carried to the next floor`,
+    },
     {
       symbol: `M${axis},lift`,
       value: m.share[side] * 1e6,

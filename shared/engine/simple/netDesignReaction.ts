@@ -14,7 +14,10 @@ export interface ReactionFactors {
  * EN 1990 eq. 6.10 (γG, γQ), or eq. 6.10a (γG, ψ0·γQ) and eq. 6.10b (ξ·γG, γQ), Table A1.2(B). The floor's
  * imposed load leads in 6.10b; it is not reduced by αn, which applies to the take-down over several storeys.
  */
-export function reactionFactors(options: Pick<AnalysisOptions, 'combination' | 'annex'>, category: Category): ReactionFactors[] {
+export function reactionFactors(
+  options: Pick<AnalysisOptions, 'combination' | 'annex'>,
+  category: Category,
+): ReactionFactors[] {
   if (options.combination === '6.10') return [{ gammaG: GAMMA_G, gammaQ: GAMMA_Q, expression: 'EN 1990 eq. 6.10' }];
   return [
     { gammaG: GAMMA_G, gammaQ: psi0(category, options.annex) * GAMMA_Q, expression: 'EN 1990 eq. 6.10a' },
@@ -36,7 +39,11 @@ const NONE: FaceReaction = { Gk: 0, Qk: 0 };
  * Worst |R+ − R−|: permanent load on both faces, full imposed load on one face and none on the other
  * (common practice for simple construction, SCI P358/P360 method, from memory).
  */
-export function netDesignReaction(plus: FaceReaction | undefined, minus: FaceReaction | undefined, factors: readonly ReactionFactors[]): NetReaction {
+export function netDesignReaction(
+  plus: FaceReaction | undefined,
+  minus: FaceReaction | undefined,
+  factors: readonly ReactionFactors[],
+): NetReaction {
   const p = plus ?? NONE;
   const m = minus ?? NONE;
   let worst: NetReaction = { value: 0, expression: factors[0]?.expression ?? '', loadedFace: 'none' };

@@ -22,7 +22,12 @@ const EPS = 1e-6;
  * source). With moments at both ends the larger is taken (the simplified method checks the moment of
  * each floor on its own, from memory).
  */
-export function pieceMoments(from: number, to: number, levels: readonly number[], moments: readonly FloorMoment[]): PieceMoments {
+export function pieceMoments(
+  from: number,
+  to: number,
+  levels: readonly number[],
+  moments: readonly FloorMoment[],
+): PieceMoments {
   const middle = (from + to) / 2;
   let lower = -Infinity;
   let upper = Infinity;

@@ -14,7 +14,9 @@ export interface MomentShare {
  */
 export function shareMoment(moment: number, stiffnessAbove: number, stiffnessBelow: number): MomentShare {
   if (!(stiffnessAbove > 0) || !(stiffnessBelow > 0)) {
-    return stiffnessAbove > 0 ? { above: moment, below: 0, rule: 'one side' } : { above: 0, below: moment, rule: 'one side' };
+    return stiffnessAbove > 0
+      ? { above: moment, below: 0, rule: 'one side' }
+      : { above: 0, below: moment, rule: 'one side' };
   }
   const ratio = Math.max(stiffnessAbove, stiffnessBelow) / Math.min(stiffnessAbove, stiffnessBelow);
   if (ratio <= EQUAL_SHARE_RATIO) return { above: moment / 2, below: moment / 2, rule: 'equal' };

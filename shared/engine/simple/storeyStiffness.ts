@@ -21,7 +21,12 @@ export interface StoreyStiffness {
  * L/EI, so L/EI of the storey = Σ Lᵢ/EIᵢ (elastic theory of members in series; common practice for a
  * spliced storey, no source). A storey with no column has stiffness 0.
  */
-export function storeyStiffness(lifts: readonly ColumnLength[], from: number, to: number, axis: 'Iy' | 'Iz'): StoreyStiffness {
+export function storeyStiffness(
+  lifts: readonly ColumnLength[],
+  from: number,
+  to: number,
+  axis: 'Iy' | 'Iz',
+): StoreyStiffness {
   const parts: StoreyPart[] = [];
   let flexibility = 0;
   for (const l of lifts) {

@@ -52,7 +52,13 @@ export function liftForces(model: SizingModel, index: number, massPerMetre: numb
  * The lift's utilisation with `trial` under the lifts above. Stops at the first piece above `limit`
  * and returns its utilisation (enough to refuse a candidate).
  */
-export function liftUtilisation(model: SizingModel, index: number, trial: LiftTrial, above: LoadFromAbove, limit = Infinity): number {
+export function liftUtilisation(
+  model: SizingModel,
+  index: number,
+  trial: LiftTrial,
+  above: LoadFromAbove,
+  limit = Infinity,
+): number {
   const lift = model.lifts[index];
   const count = lift.pieces.length;
   const NEd = liftForces(model, index, trial.massPerMetre, above);
@@ -72,7 +78,14 @@ export function liftUtilisation(model: SizingModel, index: number, trial: LiftTr
     const NEdZ = maxZ[p.groupZ];
     // The member check works in N and mm
     const check = checkCompression(
-      { section: trial.section, grade: trial.grade, LcrY: p.LcrY * 1000, LcrZ: p.LcrZ * 1000, NEd: Math.max(NEdY, NEdZ) * 1000, annex: model.options.annex },
+      {
+        section: trial.section,
+        grade: trial.grade,
+        LcrY: p.LcrY * 1000,
+        LcrZ: p.LcrZ * 1000,
+        NEd: Math.max(NEdY, NEdZ) * 1000,
+        annex: model.options.annex,
+      },
       { steps: false, extraSections: model.sections },
     );
     // docs/analysis-rules.md §Pieces: max(NEd/Nc,Rd, NEd,y/Nb,y,Rd, NEd,z/Nb,z,Rd) — EN 1993-1-1 eq. 6.9 and 6.46
@@ -86,7 +99,10 @@ export function liftUtilisation(model: SizingModel, index: number, trial: LiftTr
 /** What this lift and those above it pass on to the lift below. */
 export function passDown(model: SizingModel, index: number, massPerMetre: number, above: LoadFromAbove): LoadFromAbove {
   const forces = liftForces(model, index, massPerMetre, above);
-  return { weight: above.weight + liftWeight(model, index, massPerMetre), envelope: forces.length ? Math.max(above.envelope, forces[0]) : above.envelope };
+  return {
+    weight: above.weight + liftWeight(model, index, massPerMetre),
+    envelope: forces.length ? Math.max(above.envelope, forces[0]) : above.envelope,
+  };
 }
 
 /**

@@ -25,12 +25,24 @@ export function hasNominalMoments(doc: StackDocument, options: AnalysisOptions):
 }
 
 /** The document with every picked lift in its picked section and grade; other lifts as they are. */
-function withPicks(doc: StackDocument, liftIds: readonly string[], picks: readonly LiftPick[], request: SizingRequest): StackDocument {
+function withPicks(
+  doc: StackDocument,
+  liftIds: readonly string[],
+  picks: readonly LiftPick[],
+  request: SizingRequest,
+): StackDocument {
   const chosen = new Map<string, string>();
   picks.forEach((p, i) => {
     if (p.kind === 'section') chosen.set(liftIds[i], p.candidate.designation);
   });
-  return { edges: doc.edges, nodes: doc.nodes.map((n) => (n.kind === 'lift' && chosen.has(n.id) ? { ...n, data: { ...n.data, section: chosen.get(n.id)!, grade: request.grade } } : n)) };
+  return {
+    edges: doc.edges,
+    nodes: doc.nodes.map((n) =>
+      n.kind === 'lift' && chosen.has(n.id)
+        ? { ...n, data: { ...n.data, section: chosen.get(n.id)!, grade: request.grade } }
+        : n,
+    ),
+  };
 }
 
 const massOf = (p: LiftPick): number => (p.kind === 'section' ? p.candidate.massPerMetre : 0);
@@ -79,13 +91,21 @@ function candidateLists(stack: CoupledStack, candidates: readonly GradedCandidat
 }
 
 /** The lightest of the lift's candidates at or above `pick` in the series order, or none. */
-function atOrAbove(list: readonly GradedCandidate[], candidates: readonly GradedCandidate[], pick: Picked): Picked | { kind: 'none' } {
+function atOrAbove(
+  list: readonly GradedCandidate[],
+  candidates: readonly GradedCandidate[],
+  pick: Picked,
+): Picked | { kind: 'none' } {
   const from = candidates.indexOf(pick.candidate);
   const candidate = list.find((c) => candidates.indexOf(c) >= from);
   return candidate ? { ...pick, candidate } : { kind: 'none' };
 }
 
-export function sizeWithMoments(stack: CoupledStack, axial: readonly LiftPick[], candidates: readonly GradedCandidate[]): LiftPick[] {
+export function sizeWithMoments(
+  stack: CoupledStack,
+  axial: readonly LiftPick[],
+  candidates: readonly GradedCandidate[],
+): LiftPick[] {
   const lists = candidateLists(stack, candidates);
   // A class 4 axial pick where the moments act moves up to the next section the combined check covers.
   const start: LiftPick[] = axial.map((p, i) => (p.kind === 'section' ? atOrAbove(lists[i], candidates, p) : p));
@@ -97,7 +117,11 @@ export function sizeWithMoments(stack: CoupledStack, axial: readonly LiftPick[],
   return lighten(stack, raised, lists, lowest);
 }
 
-function raiseUntilPassing({ doc, liftIds, request, options, context }: CoupledStack, axial: readonly LiftPick[], lists: readonly (readonly GradedCandidate[])[]): LiftPick[] {
+function raiseUntilPassing(
+  { doc, liftIds, request, options, context }: CoupledStack,
+  axial: readonly LiftPick[],
+  lists: readonly (readonly GradedCandidate[])[],
+): LiftPick[] {
   const picks = [...axial];
   for (;;) {
     const result = analyseStack(withPicks(doc, liftIds, picks, request), options, context);
@@ -124,11 +148,16 @@ function raiseUntilPassing({ doc, liftIds, request, options, context }: CoupledS
 }
 
 type Picked = Extract<LiftPick, { kind: 'section' }>;
-const everyLiftPicked = (picks: readonly LiftPick[]): picks is readonly Picked[] => picks.every((p) => p.kind === 'section');
+const everyLiftPicked = (picks: readonly LiftPick[]): picks is readonly Picked[] =>
+  picks.every((p) => p.kind === 'section');
 
 /** The trial's utilisations when every lift passes the target and the rules hold, else null. */
 function passing({ doc, liftIds, request, options, context }: CoupledStack, trial: readonly Picked[]): number[] | null {
-  if (request.noUpwardIncrease && trial.some((p, i) => i > 0 && p.candidate.massPerMetre > trial[i - 1].candidate.massPerMetre)) return null;
+  if (
+    request.noUpwardIncrease &&
+    trial.some((p, i) => i > 0 && p.candidate.massPerMetre > trial[i - 1].candidate.massPerMetre)
+  )
+    return null;
   const result = analyseStack(withPicks(doc, liftIds, trial, request), options, context);
   if (result.errors.length > 0) return null;
   const utilisations = result.lifts.map((l) => l.utilisation);
@@ -141,9 +170,15 @@ function passing({ doc, liftIds, request, options, context }: CoupledStack, tria
  * heavier. Takes the first move that passes, and repeats until none does. Every move lowers the mass,
  * so it ends.
  */
-function lighten(stack: CoupledStack, start: readonly Picked[], lists: readonly (readonly GradedCandidate[])[], lowest: readonly number[]): LiftPick[] {
+function lighten(
+  stack: CoupledStack,
+  start: readonly Picked[],
+  lists: readonly (readonly GradedCandidate[])[],
+  lowest: readonly number[],
+): LiftPick[] {
   let picks = start;
-  const mass = (trial: readonly Picked[]) => trial.reduce((sum, p, i) => sum + p.candidate.massPerMetre * stack.lengths[i], 0);
+  const mass = (trial: readonly Picked[]) =>
+    trial.reduce((sum, p, i) => sum + p.candidate.massPerMetre * stack.lengths[i], 0);
   const moved = (from: readonly Picked[], i: number, steps: number): Picked | null => {
     const index = lists[i].indexOf(from[i].candidate) + steps;
     const candidate = index >= lowest[i] ? lists[i][index] : undefined;

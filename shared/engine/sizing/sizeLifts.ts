@@ -16,7 +16,8 @@ import { liftForceFloor, liftUtilisation, NOTHING_ABOVE, passDown } from './lift
 import type { GradedCandidate } from './sizingCandidates.ts';
 import type { SizingModel } from './sizingModel.ts';
 
-export type LiftPick = { kind: 'section'; candidate: GradedCandidate; utilisation: number } | { kind: 'none' } | { kind: 'blocked' };
+export type LiftPick =
+  { kind: 'section'; candidate: GradedCandidate; utilisation: number } | { kind: 'none' } | { kind: 'blocked' };
 
 export interface SizingRules {
   grade: Grade;
@@ -65,7 +66,14 @@ export function currentUtilisations(model: SizingModel): CurrentCheck[] {
   for (let i = model.lifts.length - 1; i >= 0; i--) {
     const lift = model.lifts[i];
     try {
-      result[i] = { utilisation: liftUtilisation(model, i, { section: lift.data.section, grade: lift.data.grade, massPerMetre: lift.massPerMetre }, above) };
+      result[i] = {
+        utilisation: liftUtilisation(
+          model,
+          i,
+          { section: lift.data.section, grade: lift.data.grade, massPerMetre: lift.massPerMetre },
+          above,
+        ),
+      };
     } catch (error) {
       // As in the analysis: a section the rules cannot check is reported on its lift.
       if (!isEngineError(error)) throw error;

@@ -35,13 +35,22 @@ function columnMass(model: SizingModel, picks?: readonly LiftPick[]): number {
  */
 type Search = (candidates: readonly GradedCandidate[]) => LiftPick[];
 
-function bestPicks(model: SizingModel, candidates: readonly GradedCandidate[], request: SizingRequest, search: Search): { picks: LiftPick[]; serial: string | null } {
+function bestPicks(
+  model: SizingModel,
+  candidates: readonly GradedCandidate[],
+  request: SizingRequest,
+  search: Search,
+): { picks: LiftPick[]; serial: string | null } {
   if (!request.sameSerialSize) return { picks: search(candidates), serial: null };
   const serials = [...new Set(candidates.map((c) => c.serial))];
   let best: { picks: LiftPick[]; serial: string | null } | null = null;
   for (const serial of serials) {
     const picks = search(candidates.filter((c) => c.serial === serial));
-    if (!best || sizedCount(picks) > sizedCount(best.picks) || (sizedCount(picks) === sizedCount(best.picks) && columnMass(model, picks) < columnMass(model, best.picks))) {
+    if (
+      !best ||
+      sizedCount(picks) > sizedCount(best.picks) ||
+      (sizedCount(picks) === sizedCount(best.picks) && columnMass(model, picks) < columnMass(model, best.picks))
+    ) {
       best = { picks, serial };
     }
   }
@@ -49,7 +58,12 @@ function bestPicks(model: SizingModel, candidates: readonly GradedCandidate[], r
 }
 
 /** The stack as it is, analysed whole: what "before" shows when nominal moments couple the lifts. */
-function analysedUtilisations(doc: StackDocument, count: number, options: AnalysisOptions, context: AnalysisContext): CurrentCheck[] {
+function analysedUtilisations(
+  doc: StackDocument,
+  count: number,
+  options: AnalysisOptions,
+  context: AnalysisContext,
+): CurrentCheck[] {
   const result = analyseStack(doc, options, context);
   if (result.errors.length === 0) return result.lifts.map((l) => ({ utilisation: l.utilisation }));
   const message = result.errors.map((e) => e.message).join('; ');
@@ -58,18 +72,34 @@ function analysedUtilisations(doc: StackDocument, count: number, options: Analys
 
 function liftRow(model: SizingModel, i: number, pick: LiftPick, now: CurrentCheck, request: SizingRequest): LiftSizing {
   const lift = model.lifts[i];
-  const before = { section: lift.designation, grade: lift.data.grade, massPerMetre: lift.massPerMetre, utilisation: now.utilisation };
+  const before = {
+    section: lift.designation,
+    grade: lift.data.grade,
+    massPerMetre: lift.massPerMetre,
+    utilisation: now.utilisation,
+  };
   const row = { liftId: lift.id, name: lift.name, bottom: lift.bottom, top: lift.top, before };
-  if (pick.kind !== 'section') return { ...row, after: null, status: pick.kind, message: liftMessage(pick.kind, request) };
+  if (pick.kind !== 'section')
+    return { ...row, after: null, status: pick.kind, message: liftMessage(pick.kind, request) };
   const { candidate, utilisation } = pick;
   // The analysis resolves catalogue sections to the catalogue's own spelling, so one comparison suffices.
   const same = candidate.designation === lift.designation && request.grade === lift.data.grade;
-  const after = { section: candidate.designation, grade: request.grade, massPerMetre: candidate.massPerMetre, utilisation };
+  const after = {
+    section: candidate.designation,
+    grade: request.grade,
+    massPerMetre: candidate.massPerMetre,
+    utilisation,
+  };
   return { ...row, after, status: same ? 'unchanged' : 'proposed', ...(now.message ? { message: now.message } : {}) };
 }
 
 /** Says why lighter class 4 sections of the series were passed over where the moments act. */
-function withClass4Note(row: LiftSizing, underMoments: boolean, pick: LiftPick, candidates: readonly GradedCandidate[]): LiftSizing {
+function withClass4Note(
+  row: LiftSizing,
+  underMoments: boolean,
+  pick: LiftPick,
+  candidates: readonly GradedCandidate[],
+): LiftSizing {
   if (!underMoments) return row;
   const limit = pick.kind === 'section' ? pick.candidate.massPerMetre : Infinity;
   if (!candidates.some((c) => c.sectionClass === 4 && c.massPerMetre < limit)) return row;
@@ -77,15 +107,26 @@ function withClass4Note(row: LiftSizing, underMoments: boolean, pick: LiftPick, 
   return { ...row, message: row.message ? `${row.message}. ${note}` : note };
 }
 
-export function sizeStack(doc: StackDocument, request: SizingRequest, options: Partial<AnalysisOptions> = {}, context: AnalysisContext = {}): StackSizing {
+export function sizeStack(
+  doc: StackDocument,
+  request: SizingRequest,
+  options: Partial<AnalysisOptions> = {},
+  context: AnalysisContext = {},
+): StackSizing {
   const settings: AnalysisOptions = { ...DEFAULT_ANALYSIS_OPTIONS, ...options };
   const { model: stack, errors } = inspectStack(doc, context);
   if (!stack) return { errors, lifts: [], serialSize: null, complete: false, massBefore: null, massAfter: null };
 
   const model = sizingModel(stack, settings, allLevelElevations(context.levels), context.sections);
-  const candidates = checkableCandidates(sizingCandidates(request.series, request.allowed), request.grade, settings.annex);
+  const candidates = checkableCandidates(
+    sizingCandidates(request.series, request.allowed),
+    request.grade,
+    settings.annex,
+  );
   const moments = hasNominalMoments(doc, settings);
-  const underMoments = moments ? liftsUnderMoments(doc, stack, settings, context.sections) : model.lifts.map(() => false);
+  const underMoments = moments
+    ? liftsUnderMoments(doc, stack, settings, context.sections)
+    : model.lifts.map(() => false);
   const coupled: CoupledStack = {
     doc,
     liftIds: model.lifts.map((l) => l.id),
@@ -96,10 +137,14 @@ export function sizeStack(doc: StackDocument, request: SizingRequest, options: P
     underMoments,
     isClass4: (c) => c.sectionClass === 4,
   };
-  const search: Search = moments ? (group) => sizeWithMoments(coupled, sizeLifts(model, group, request), group) : (group) => sizeLifts(model, group, request);
+  const search: Search = moments
+    ? (group) => sizeWithMoments(coupled, sizeLifts(model, group, request), group)
+    : (group) => sizeLifts(model, group, request);
   const { picks, serial } = bestPicks(model, candidates, request, search);
   const now = moments ? analysedUtilisations(doc, model.lifts.length, settings, context) : currentUtilisations(model);
-  const lifts = model.lifts.map((_, i) => withClass4Note(liftRow(model, i, picks[i], now[i], request), underMoments[i], picks[i], candidates));
+  const lifts = model.lifts.map((_, i) =>
+    withClass4Note(liftRow(model, i, picks[i], now[i], request), underMoments[i], picks[i], candidates),
+  );
   const spliceFlags = splicesAfterSizing(doc, lifts, settings, context);
   return {
     ...(spliceFlags.length ? { spliceFlags } : {}),

@@ -31,7 +31,11 @@ function seriesCandidates(series: SizingSeries): readonly Candidate[] {
   const entries = series === 'HE' ? HE_SERIES.flatMap((s) => sectionsInSeries(s)) : sectionsInSeries(series);
   // Array.prototype.sort is stable: equal masses keep the order of the product tables.
   const list = entries
-    .map((e) => ({ designation: e.designation, serial: serialSize(e.designation), massPerMetre: sectionData(e.designation).props.massPerMetre }))
+    .map((e) => ({
+      designation: e.designation,
+      serial: serialSize(e.designation),
+      massPerMetre: sectionData(e.designation).props.massPerMetre,
+    }))
     .sort((a, b) => a.massPerMetre - b.massPerMetre);
   BY_SERIES.set(series, list);
   return list;

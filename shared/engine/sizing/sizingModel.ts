@@ -43,10 +43,19 @@ function groupsOf<T>(items: readonly T[]): number[] {
   return items.map((item) => items.indexOf(item));
 }
 
-export function sizingModel(model: StackModel, options: AnalysisOptions, levelElevations: readonly number[], sections?: ReadonlyMap<string, SectionDims>): SizingModel {
+export function sizingModel(
+  model: StackModel,
+  options: AnalysisOptions,
+  levelElevations: readonly number[],
+  sections?: ReadonlyMap<string, SectionDims>,
+): SizingModel {
   // Spans and segments exactly as the analysis cuts them; self-weight is added per candidate.
   const spans = stackPieces(model, levelElevations);
-  const states = axialStates(model.entries, [], spans.flat().map((p) => ({ elevation: p.from, includeEntriesAt: false })));
+  const states = axialStates(
+    model.entries,
+    [],
+    spans.flat().map((p) => ({ elevation: p.from, includeEntriesAt: false })),
+  );
   let next = 0;
   const lifts = model.lifts.map((lift, i) => {
     const own = spans[i];
@@ -60,7 +69,16 @@ export function sizingModel(model: StackModel, options: AnalysisOptions, levelEl
       LcrY: (lift.data.kY ?? p.segmentY.k) * (p.segmentY.top - p.segmentY.bottom),
       LcrZ: (lift.data.kZ ?? p.segmentZ.k) * (p.segmentZ.top - p.segmentZ.bottom),
     }));
-    return { id: lift.id, name: lift.name, bottom: lift.bottom, top: lift.top, data: lift.data, designation: lift.section.designation, massPerMetre: lift.section.massPerMetre, pieces };
+    return {
+      id: lift.id,
+      name: lift.name,
+      bottom: lift.bottom,
+      top: lift.top,
+      data: lift.data,
+      designation: lift.section.designation,
+      massPerMetre: lift.section.massPerMetre,
+      pieces,
+    };
   });
   return { lifts, options, sections };
 }

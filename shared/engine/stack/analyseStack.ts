@@ -1,6 +1,12 @@
 // Load take-down and member checks of one stack (docs/analysis-rules.md). Pure and synchronous; never throws for
 // a bad document, which is reported through `errors` instead.
-import { DEFAULT_ANALYSIS_OPTIONS, type AnalysisOptions, type Issue, type LiftResult, type StackResult } from '../../schema/results.ts';
+import {
+  DEFAULT_ANALYSIS_OPTIONS,
+  type AnalysisOptions,
+  type Issue,
+  type LiftResult,
+  type StackResult,
+} from '../../schema/results.ts';
 import type { StackDocument } from '../../schema/stack.ts';
 import { applyFloorLoads } from '../building/applyFloorLoads.ts';
 import { isEngineError } from '../errors.ts';
@@ -17,16 +23,23 @@ function withErrors(errors: Issue[], warnings: Issue[]): StackResult {
   return { errors, warnings, lifts: [], governingLiftId: null, takeDown: [] };
 }
 
-export function analyseStack(doc: StackDocument, options: Partial<AnalysisOptions> = {}, context: AnalysisContext = {}): StackResult {
+export function analyseStack(
+  doc: StackDocument,
+  options: Partial<AnalysisOptions> = {},
+  context: AnalysisContext = {},
+): StackResult {
   const settings: AnalysisOptions = { ...DEFAULT_ANALYSIS_OPTIONS, ...options };
   // Loads from the building's floors replace those typed on the nodes, for this analysis only
   const floor = applyFloorLoads(doc, context.floorLoads);
   const { model, errors, warnings } = inspectStack(floor.doc, context);
   if (!model) return withErrors(errors, warnings);
-  const entries = floor.areas.size === 0 ? model.entries : model.entries.map((e) => {
-    const loaded = floor.areas.get(e.nodeId);
-    return loaded ? { ...e, area: { [loaded.category]: loaded.area } } : e;
-  });
+  const entries =
+    floor.areas.size === 0
+      ? model.entries
+      : model.entries.map((e) => {
+          const loaded = floor.areas.get(e.nodeId);
+          return loaded ? { ...e, area: { [loaded.category]: loaded.area } } : e;
+        });
 
   // Self-weight is permanent load on the column below (docs/analysis-rules.md §Take-down)
   const weights = model.lifts.map((l) => ({
@@ -35,9 +48,15 @@ export function analyseStack(doc: StackDocument, options: Partial<AnalysisOption
     perMetre: settings.selfWeight ? selfWeightPerMetre(l.section.massPerMetre) : 0,
   }));
   const pieces = stackPieces(model, allLevelElevations(context.levels));
-  const { rows, sectionNEd } = takeDown(entries, weights, settings, pieces.flat().map((p) => p.from));
+  const { rows, sectionNEd } = takeDown(
+    entries,
+    weights,
+    settings,
+    pieces.flat().map((p) => p.from),
+  );
   // Buckling lengths from the elastic critical buckling analysis of the stack, when the building asks for it
-  const critical = settings.bucklingLengths === 'critical' ? withCriticalBuckling(model, pieces, sectionNEd, context.sections) : null;
+  const critical =
+    settings.bucklingLengths === 'critical' ? withCriticalBuckling(model, pieces, sectionNEd, context.sections) : null;
   if (critical?.errors.length) return withErrors(critical.errors, warnings);
   const lifts: LiftResult[] = [];
   const checkErrors: Issue[] = [];
@@ -61,7 +80,13 @@ export function analyseStack(doc: StackDocument, options: Partial<AnalysisOption
   // The governing lift is the most utilised, the lowest one on a tie (docs/analysis-rules.md §Pieces)
   let governing: LiftResult | null = null;
   for (const lift of lifts) if (!governing || lift.utilisation > governing.utilisation) governing = lift;
-  const result: StackResult = { errors: [], warnings, lifts, governingLiftId: governing?.liftId ?? null, takeDown: rows };
+  const result: StackResult = {
+    errors: [],
+    warnings,
+    lifts,
+    governingLiftId: governing?.liftId ?? null,
+    takeDown: rows,
+  };
   if (critical?.result) critical.finish(result);
   if (floor.uses.length) result.floorLoads = floor.uses;
   // Splices and the base: additive results, never a change to the member checks above

@@ -51,11 +51,17 @@ function checkRestraint(
     return null;
   }
   if (chain.support && elevation <= chain.support.data.elevation + SAME_ELEVATION_M) {
-    errors.push({ nodeId: node.id, message: `${restraintName(elevation)} is at the support, which already restrains the column there` });
+    errors.push({
+      nodeId: node.id,
+      message: `${restraintName(elevation)} is at the support, which already restrains the column there`,
+    });
     return null;
   }
   if (chain.cap && elevation >= chain.cap.data.elevation - SAME_ELEVATION_M) {
-    errors.push({ nodeId: node.id, message: `${restraintName(elevation)} is at the cap; put its loads and beam reactions (faces) on the cap instead` });
+    errors.push({
+      nodeId: node.id,
+      message: `${restraintName(elevation)} is at the cap; put its loads and beam reactions (faces) on the cap instead`,
+    });
     return null;
   }
   return { id: node.id, elevation, axes: node.data.axes, fixity: node.data.fixity, liftId: lift.node.id };
@@ -100,7 +106,8 @@ export function readAttachments(graph: StackGraph, chain: StackChain): { attachm
     if (node.kind !== 'load') continue;
     const name = node.data.label.trim() ? `Load "${node.data.label.trim()}"` : 'A load with no description';
     const targets = neighbours(graph, node.id, 'out', ['restraint', 'cap']);
-    if (targets.length === 0) errors.push({ nodeId: node.id, message: `${name} is not attached to a restraint or the cap` });
+    if (targets.length === 0)
+      errors.push({ nodeId: node.id, message: `${name} is not attached to a restraint or the cap` });
     else if (targets.length > 1) errors.push({ nodeId: node.id, message: `${name} is attached to more than one node` });
     else {
       const entry = entries.get(targets[0].id);

@@ -6,7 +6,8 @@ import type { Fixity } from '../../schema/stack.ts';
  * Where Lcr = k·L comes from, as the working prints it. The factors are not a clause of EN 1993-1-1 (which
  * leaves Lcr to the designer): they are common design-office practice for braced columns.
  */
-export const BUCKLING_LENGTH_RULE = 'Lcr = k·L; k: common practice for braced columns, after BS 5950-1 Table 22 and design aids (not an EN 1993-1-1 clause)';
+export const BUCKLING_LENGTH_RULE =
+  'Lcr = k·L; k: common practice for braced columns, after BS 5950-1 Table 22 and design aids (not an EN 1993-1-1 clause)';
 
 /**
  * Common design-office values for braced columns, after BS 5950-1 Table 22 and EN 1993 design aids

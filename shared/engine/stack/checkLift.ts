@@ -8,13 +8,30 @@ import type { ModelLift } from './inspectStack.ts';
 import type { PieceSpan } from './stackPieces.ts';
 
 /** Per piece, the largest NEd of the lift's pieces in its segment about one axis (docs/analysis-rules.md §Pieces). */
-function largestInSegment(pieces: readonly PieceSpan[], NEd: readonly number[], axis: 'segmentY' | 'segmentZ'): number[] {
+function largestInSegment(
+  pieces: readonly PieceSpan[],
+  NEd: readonly number[],
+  axis: 'segmentY' | 'segmentZ',
+): number[] {
   return pieces.map((p) => pieces.reduce((max, q, j) => (q[axis] === p[axis] && NEd[j] > max ? NEd[j] : max), 0));
 }
 
 /** The member check's input in its own units: m → mm, kN → N. */
-function memberInput(lift: ModelLift, options: AnalysisOptions, LcrY: number, LcrZ: number, NEd: number): CompressionInput {
-  return { section: lift.data.section, grade: lift.data.grade, LcrY: LcrY * 1000, LcrZ: LcrZ * 1000, NEd: NEd * 1000, annex: options.annex };
+function memberInput(
+  lift: ModelLift,
+  options: AnalysisOptions,
+  LcrY: number,
+  LcrZ: number,
+  NEd: number,
+): CompressionInput {
+  return {
+    section: lift.data.section,
+    grade: lift.data.grade,
+    LcrY: LcrY * 1000,
+    LcrZ: LcrZ * 1000,
+    NEd: NEd * 1000,
+    annex: options.annex,
+  };
 }
 
 function governingTerm(cross: number, y: number, z: number): { utilisation: number; governing: GoverningMode } {
@@ -44,11 +61,31 @@ export function checkLift(
     // Lcr = k·L over the whole segment, which may cross splices (docs/analysis-rules.md §Buckling-length factors)
     const LcrY = lengths ? lengths.LcrY : kY * (segmentY.top - segmentY.bottom);
     const LcrZ = lengths ? lengths.LcrZ : kZ * (segmentZ.top - segmentZ.bottom);
-    const check = checkCompression(memberInput(lift, options, LcrY, LcrZ, Math.max(NEdY[i], NEdZ[i])), { steps: false, extraSections: sections });
+    const check = checkCompression(memberInput(lift, options, LcrY, LcrZ, Math.max(NEdY[i], NEdZ[i])), {
+      steps: false,
+      extraSections: sections,
+    });
     // docs/analysis-rules.md §Pieces: max(NEd/Nc,Rd, NEd,y/Nb,y,Rd, NEd,z/Nb,z,Rd); the check is in N
-    const term = governingTerm((NEd * 1000) / check.NcRd, (NEdY[i] * 1000) / check.NbRdY, (NEdZ[i] * 1000) / check.NbRdZ);
+    const term = governingTerm(
+      (NEd * 1000) / check.NcRd,
+      (NEdY[i] * 1000) / check.NbRdY,
+      (NEdZ[i] * 1000) / check.NbRdZ,
+    );
     const { utilisation, governing } = term;
-    const piece: PieceCheck = { from: span.from, to: span.to, NEd, NEdY: NEdY[i], NEdZ: NEdZ[i], LcrY, LcrZ, kY, kZ, utilisation, governing, check };
+    const piece: PieceCheck = {
+      from: span.from,
+      to: span.to,
+      NEd,
+      NEdY: NEdY[i],
+      NEdZ: NEdZ[i],
+      LcrY,
+      LcrZ,
+      kY,
+      kZ,
+      utilisation,
+      governing,
+      check,
+    };
     if (lengths?.tableKY !== undefined) piece.tableKY = lengths.tableKY;
     if (lengths?.tableKZ !== undefined) piece.tableKZ = lengths.tableKZ;
     return piece;
@@ -56,7 +93,9 @@ export function checkLift(
 
   const worst = pieces.reduce((a, b) => (b.utilisation > a.utilisation ? b : a));
   // The working is written out for the piece that governs the lift, the one the calculation sheet shows.
-  worst.check = checkCompression(memberInput(lift, options, worst.LcrY, worst.LcrZ, Math.max(worst.NEdY, worst.NEdZ)), { extraSections: sections });
+  worst.check = checkCompression(memberInput(lift, options, worst.LcrY, worst.LcrZ, Math.max(worst.NEdY, worst.NEdZ)), {
+    extraSections: sections,
+  });
   return {
     liftId: lift.id,
     label: lift.name,

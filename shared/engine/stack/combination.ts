@@ -37,7 +37,11 @@ export type Expression = '6.10' | '6.10a' | '6.10b';
 type Options = Pick<AnalysisOptions, 'combination' | 'annex' | 'imposedReduction'> & { expression?: Expression };
 
 /** The reduction of the leading action: αn, or under the UK annex αA where it is smaller. */
-function leadingReduction(state: AxialState, category: Category, options: Options): { factor: number; byArea: boolean } {
+function leadingReduction(
+  state: AxialState,
+  category: Category,
+  options: Options,
+): { factor: number; byArea: boolean } {
   const byStoreys = alphaN(state.loadedLevels[category] ?? 0, options.annex, category);
   const area = state.loadedArea?.[category] ?? 0;
   // UK National Annex to EN 1991-1-1 NA.2.5–NA.2.6 (from memory): a column may take αA for the area it supports
@@ -55,7 +59,8 @@ function leadingValue(state: AxialState, category: Category, options: Options): 
 }
 
 function leadingLabel(state: AxialState, category: Category, options: Options): string {
-  const reduced = options.imposedReduction && isReducibleCategory(category) && leadingReduction(state, category, options).byArea;
+  const reduced =
+    options.imposedReduction && isReducibleCategory(category) && leadingReduction(state, category, options).byArea;
   return reduced ? `leading ${category} (αA)` : `leading ${category}`;
 }
 
@@ -65,7 +70,12 @@ function accompanyingValues(state: AxialState, options: Options): number[] {
 }
 
 /** max over the leading action L of permanent + γQ·Q_L* + Σ(i≠L) γQ·ψ0,i·Q_i. */
-function withLeading(permanent: number, state: AxialState, accompanying: readonly number[], options: Options): { value: number; leading: Category | null } {
+function withLeading(
+  permanent: number,
+  state: AxialState,
+  accompanying: readonly number[],
+  options: Options,
+): { value: number; leading: Category | null } {
   let value = permanent;
   let leading: Category | null = null;
   CATEGORIES.forEach((L, l) => {
@@ -81,7 +91,11 @@ function withLeading(permanent: number, state: AxialState, accompanying: readonl
 }
 
 /** The reduction the leading action received, for the take-down's working: n and αn (EN 1991-1-1 6.3.1.2(11)). */
-function reductionOf(state: AxialState, leading: Category | null, options: Options): { n: number; alphaN: number | null } {
+function reductionOf(
+  state: AxialState,
+  leading: Category | null,
+  options: Options,
+): { n: number; alphaN: number | null } {
   if (leading === null) return { n: Math.max(0, ...CATEGORIES.map((c) => state.loadedLevels[c] ?? 0)), alphaN: null };
   const n = state.loadedLevels[leading] ?? 0;
   const Q = state.sumQk[leading] ?? 0;
@@ -94,17 +108,33 @@ export function designAxialForce(state: AxialState, options: Options): DesignFor
   if (options.combination === '6.10') {
     // EN 1990 eq. 6.10
     const { value, leading } = withLeading(permanent, state, accompanying, options);
-    return { NEd: value, leading, combination: leading ? `6.10, ${leadingLabel(state, leading, options)}` : '6.10, permanent only', ...reductionOf(state, leading, options) };
+    return {
+      NEd: value,
+      leading,
+      combination: leading ? `6.10, ${leadingLabel(state, leading, options)}` : '6.10, permanent only',
+      ...reductionOf(state, leading, options),
+    };
   }
   // EN 1990 eq. 6.10a: every variable action at its combination value ψ0·Qk
   let a = permanent;
   for (const value of accompanying) a += value;
   // EN 1990 eq. 6.10b: ξ·γG·Gk with a leading variable action
   const b = withLeading(xi(options.annex) * permanent, state, accompanying, options);
-  if (options.expression === '6.10a') return { NEd: a, leading: null, combination: '6.10a', ...reductionOf(state, null, options) };
+  if (options.expression === '6.10a')
+    return { NEd: a, leading: null, combination: '6.10a', ...reductionOf(state, null, options) };
   if (options.expression === '6.10b') {
-    return { NEd: b.value, leading: b.leading, combination: b.leading ? `6.10b, ${leadingLabel(state, b.leading, options)}` : '6.10b', ...reductionOf(state, b.leading, options) };
+    return {
+      NEd: b.value,
+      leading: b.leading,
+      combination: b.leading ? `6.10b, ${leadingLabel(state, b.leading, options)}` : '6.10b',
+      ...reductionOf(state, b.leading, options),
+    };
   }
   if (a >= b.value) return { NEd: a, leading: null, combination: '6.10a', ...reductionOf(state, null, options) };
-  return { NEd: b.value, leading: b.leading, combination: b.leading ? `6.10b, ${leadingLabel(state, b.leading, options)}` : '6.10b', ...reductionOf(state, b.leading, options) };
+  return {
+    NEd: b.value,
+    leading: b.leading,
+    combination: b.leading ? `6.10b, ${leadingLabel(state, b.leading, options)}` : '6.10b',
+    ...reductionOf(state, b.leading, options),
+  };
 }

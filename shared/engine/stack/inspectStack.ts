@@ -66,15 +66,29 @@ export function inspectStack(doc: StackDocument, context: AnalysisContext = {}):
   for (const { node, name, below, above } of chain.lifts) {
     // A placeholder section is never checked as if chosen; a copied one is checked but flagged.
     if (node.data.sectionStatus === 'not-chosen') {
-      errors.push({ nodeId: node.id, message: `Lift ${name}: section not chosen; pick its section in the properties pane` });
+      errors.push({
+        nodeId: node.id,
+        message: `Lift ${name}: section not chosen; pick its section in the properties pane`,
+      });
       continue;
     }
     if (node.data.sectionStatus === 'to-confirm') {
-      warnings.push({ nodeId: node.id, message: `Lift ${name}: section copied from the lift it was split from; confirm it or pick another` });
+      warnings.push({
+        nodeId: node.id,
+        message: `Lift ${name}: section copied from the lift it was split from; confirm it or pick another`,
+      });
     }
     const section = resolveLiftSection(node.data, name, node.id, context.sections);
     if (!isLiftSection(section)) errors.push(section);
-    else lifts.push({ id: node.id, name, bottom: below.data.elevation, top: above ? above.data.elevation : below.data.elevation, data: node.data, section });
+    else
+      lifts.push({
+        id: node.id,
+        name,
+        bottom: below.data.elevation,
+        top: above ? above.data.elevation : below.data.elevation,
+        data: node.data,
+        section,
+      });
   }
   if (errors.length) return { model: null, errors, warnings };
   return { model: { lifts, restraints, entries, segments: { y: y.segments, z: z.segments } }, errors, warnings };

@@ -12,7 +12,10 @@ function idAt(list: unknown, index: PropertyKey | undefined): string | undefined
 
 function toIssue(doc: unknown, issue: z.core.$ZodIssue): Issue {
   const [list, index, ...rest] = issue.path;
-  const field = rest.filter((p) => p !== 'data').map(String).join('.');
+  const field = rest
+    .filter((p) => p !== 'data')
+    .map(String)
+    .join('.');
   const lists = typeof doc === 'object' && doc !== null ? (doc as Record<string, unknown>) : {};
   const where = field ? ` ${field}` : '';
   if (list === 'nodes') {

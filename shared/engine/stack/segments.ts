@@ -39,7 +39,11 @@ export function restraintPoints(axis: Axis, ends: Ends, restraints: readonly Mod
   return points;
 }
 
-export function segmentsAbout(axis: Axis, ends: Ends, restraints: readonly ModelRestraint[]): { segments: Segment[]; errors: Issue[] } {
+export function segmentsAbout(
+  axis: Axis,
+  ends: Ends,
+  restraints: readonly ModelRestraint[],
+): { segments: Segment[]; errors: Issue[] } {
   const points = restraintPoints(axis, ends, restraints);
   const segments: Segment[] = [];
   const errors: Issue[] = [];
@@ -49,7 +53,8 @@ export function segmentsAbout(axis: Axis, ends: Ends, restraints: readonly Model
     // Only the cap can be free, and it is always the last point.
     const k = bucklingLengthFactor(lower.fixity as Fixity, upper.fixity);
     if (k === null) {
-      const where = lower.nodeId === ends.support.nodeId ? 'the support' : `the restraint at ${formatElevation(lower.elevation)}`;
+      const where =
+        lower.nodeId === ends.support.nodeId ? 'the support' : `the restraint at ${formatElevation(lower.elevation)}`;
       errors.push({
         nodeId: upper.nodeId,
         message: `The free cap needs a fixed lower end about the ${axis}-${axis} axis, but ${where} is ${lower.fixity}`,

@@ -42,11 +42,16 @@ function chainNodeName(node: StackNode, liftNames: ReadonlyMap<string, string>):
 function singleOfKind<K extends 'support' | 'cap'>(graph: StackGraph, kind: K, issues: Issue[]): NodeOf<K> | null {
   const found = [...graph.nodes.values()].filter((n): n is NodeOf<K> => n.kind === kind);
   if (found.length === 0) issues.push({ message: `The stack has no ${kind}` });
-  for (const extra of found.slice(1)) issues.push({ nodeId: (extra as StackNode).id, message: `The stack has more than one ${kind}` });
+  for (const extra of found.slice(1))
+    issues.push({ nodeId: (extra as StackNode).id, message: `The stack has more than one ${kind}` });
   return found[0] ?? null;
 }
 
-function walk(graph: StackGraph, support: NodeOf<'support'>, issues: Issue[]): { lifts: ChainLift[]; reachedCap: boolean; visited: Set<string> } {
+function walk(
+  graph: StackGraph,
+  support: NodeOf<'support'>,
+  issues: Issue[],
+): { lifts: ChainLift[]; reachedCap: boolean; visited: Set<string> } {
   const lifts: ChainLift[] = [];
   const names = new Map<string, string>();
   const visited = new Set<string>([support.id]);
@@ -57,7 +62,8 @@ function walk(graph: StackGraph, support: NodeOf<'support'>, issues: Issue[]): {
       issues.push({ nodeId: current.id, message: `${chainNodeName(current, names)} has no lift above it` });
       return { lifts, reachedCap: false, visited };
     }
-    if (upLifts.length > 1) issues.push({ nodeId: current.id, message: `${chainNodeName(current, names)} has more than one lift above it` });
+    if (upLifts.length > 1)
+      issues.push({ nodeId: current.id, message: `${chainNodeName(current, names)} has more than one lift above it` });
     const lift = upLifts[0];
     if (visited.has(lift.id)) {
       issues.push({ nodeId: lift.id, message: `The chain loops back on itself at ${chainNodeName(lift, names)}` });
@@ -107,13 +113,19 @@ export function walkStackChain(graph: StackGraph): { chain: StackChain; issues: 
   const noNames = new Map<string, string>();
   for (const node of graph.nodes.values()) {
     if ((node.kind !== 'lift' && node.kind !== 'splice') || walked.visited.has(node.id)) continue;
-    issues.push({ nodeId: node.id, message: `${chainNodeName(node, noNames)} is not connected to the chain that runs from the support to the cap` });
+    issues.push({
+      nodeId: node.id,
+      message: `${chainNodeName(node, noNames)} is not connected to the chain that runs from the support to the cap`,
+    });
   }
   if (cap && support && !walked.visited.has(cap.id)) {
     const below = neighbours(graph, cap.id, 'in', ['lift']);
     issues.push({
       nodeId: cap.id,
-      message: below.length === 0 ? 'The cap has no lift below it' : 'The cap is not connected to the chain that rises from the support',
+      message:
+        below.length === 0
+          ? 'The cap has no lift below it'
+          : 'The cap is not connected to the chain that rises from the support',
     });
   }
   const complete = walked.reachedCap && issues.length === 0;

@@ -56,7 +56,8 @@ function edgeIssues(doc: StackDocument, nodes: ReadonlyMap<string, StackNode>, i
     const source = nodes.get(edge.source);
     const target = nodes.get(edge.target);
     const nodeId = source ? edge.source : target ? edge.target : undefined;
-    if (edgeIds.has(edge.id)) issues.push({ nodeId, edgeId: edge.id, message: `Two connections share the id ${edge.id}` });
+    if (edgeIds.has(edge.id))
+      issues.push({ nodeId, edgeId: edge.id, message: `Two connections share the id ${edge.id}` });
     edgeIds.add(edge.id);
     const problem = edgeProblem(edge, source, target);
     if (!problem && !source) continue;
@@ -92,7 +93,12 @@ export function buildStackGraph(doc: StackDocument): { graph: StackGraph; issues
 }
 
 /** Neighbours of a node of the given kinds, following valid connections in one direction. */
-export function neighbours(graph: StackGraph, id: string, direction: 'out' | 'in', kinds: readonly NodeKind[]): StackNode[] {
+export function neighbours(
+  graph: StackGraph,
+  id: string,
+  direction: 'out' | 'in',
+  kinds: readonly NodeKind[],
+): StackNode[] {
   const ids = (direction === 'out' ? graph.out : graph.in).get(id) ?? [];
   const found: StackNode[] = [];
   for (const other of ids) {

@@ -2,7 +2,13 @@
 // column below it; self-weight is permanent load on the column below each point.
 import type { AnalysisOptions, TakeDownRow } from '../../schema/results.ts';
 import { CATEGORIES } from './combinationFactors.ts';
-import { designAxialForce, type AxialState, type CategoryValues, type DesignForce, type Expression } from './combination.ts';
+import {
+  designAxialForce,
+  type AxialState,
+  type CategoryValues,
+  type DesignForce,
+  type Expression,
+} from './combination.ts';
 import { SAME_ELEVATION_M } from './context.ts';
 
 /** A point where load enters the column: a restraint or the cap, with the load nodes attached to it (kN). */
@@ -41,7 +47,9 @@ function selfWeightAbove(weights: readonly ColumnWeight[], elevation: number): n
 
 /** Queries from the top of the stack down: just above an elevation comes before just below it. */
 function sweepOrder(queries: readonly AxialQuery[]): number[] {
-  const level = queries.map((q) => (q.includeEntriesAt ? q.elevation - SAME_ELEVATION_M : q.elevation + SAME_ELEVATION_M));
+  const level = queries.map((q) =>
+    q.includeEntriesAt ? q.elevation - SAME_ELEVATION_M : q.elevation + SAME_ELEVATION_M,
+  );
   return queries.map((_, i) => i).sort((a, b) => level[b] - level[a]);
 }
 
@@ -80,7 +88,11 @@ export function axialStates(
         }
       }
     }
-    const state: AxialState = { sumGk: sumGk + selfWeightAbove(weights, elevation), sumQk: { ...sumQk }, loadedLevels: { ...loadedLevels } };
+    const state: AxialState = {
+      sumGk: sumGk + selfWeightAbove(weights, elevation),
+      sumQk: { ...sumQk },
+      loadedLevels: { ...loadedLevels },
+    };
     if (loadedArea) state.loadedArea = { ...loadedArea };
     states[qi] = state;
   }
@@ -88,7 +100,12 @@ export function axialStates(
 }
 
 /** Loads in the column at one elevation (see axialStates). */
-export function axialStateAt(entries: readonly LoadEntry[], weights: readonly ColumnWeight[], elevation: number, includeEntriesAt: boolean): AxialState {
+export function axialStateAt(
+  entries: readonly LoadEntry[],
+  weights: readonly ColumnWeight[],
+  elevation: number,
+  includeEntriesAt: boolean,
+): AxialState {
   return axialStates(entries, weights, [{ elevation, includeEntriesAt }])[0];
 }
 
@@ -98,7 +115,9 @@ function categoriesOf(Qk: CategoryValues): string {
   return names || '-';
 }
 
-type CombinationOptions = Pick<AnalysisOptions, 'combination' | 'annex' | 'imposedReduction'> & { expression?: Expression };
+type CombinationOptions = Pick<AnalysisOptions, 'combination' | 'annex' | 'imposedReduction'> & {
+  expression?: Expression;
+};
 
 /**
  * Design forces at the queried sections (`order`: top down), never less than at any section above. The force in a column
@@ -106,11 +125,16 @@ type CombinationOptions = Pick<AnalysisOptions, 'combination' | 'annex' | 'impos
  * would give less, because one more loaded storey lowers αn on the whole leading load, the force
  * from above is kept (common practice, no source: the UK steps do this between 10 and 11 storeys).
  */
-function designForces(states: readonly AxialState[], order: readonly number[], options: CombinationOptions): DesignForce[] {
+function designForces(
+  states: readonly AxialState[],
+  order: readonly number[],
+  options: CombinationOptions,
+): DesignForce[] {
   const forces = states.map((state) => designAxialForce(state, options));
   let above: DesignForce | null = null;
   for (const i of order) {
-    if (above && forces[i].NEd < above.NEd) forces[i] = { ...above, combination: `${above.combination}, held at the force above` };
+    if (above && forces[i].NEd < above.NEd)
+      forces[i] = { ...above, combination: `${above.combination}, held at the force above` };
     above = forces[i];
   }
   return forces;
@@ -146,7 +170,12 @@ export interface TakeDown {
 }
 
 /** The take-down of a stack, and the design force at further sections, all from one sweep. */
-export function takeDown(entries: readonly LoadEntry[], weights: readonly ColumnWeight[], options: CombinationOptions, sections: readonly number[] = []): TakeDown {
+export function takeDown(
+  entries: readonly LoadEntry[],
+  weights: readonly ColumnWeight[],
+  options: CombinationOptions,
+  sections: readonly number[] = [],
+): TakeDown {
   const ordered = [...entries].sort((p, q) => q.elevation - p.elevation || (p.nodeId < q.nodeId ? -1 : 1));
   const queries: AxialQuery[] = ordered.map((e) => ({ elevation: e.elevation, includeEntriesAt: true }));
   for (const elevation of sections) queries.push({ elevation, includeEntriesAt: false });
@@ -159,6 +188,10 @@ export function takeDown(entries: readonly LoadEntry[], weights: readonly Column
   };
 }
 
-export function takeDownRows(entries: readonly LoadEntry[], weights: readonly ColumnWeight[], options: CombinationOptions): TakeDownRow[] {
+export function takeDownRows(
+  entries: readonly LoadEntry[],
+  weights: readonly ColumnWeight[],
+  options: CombinationOptions,
+): TakeDownRow[] {
   return takeDown(entries, weights, options).rows;
 }

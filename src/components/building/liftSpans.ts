@@ -24,10 +24,23 @@ export function liftSpans(floors: readonly { elevation: number; name?: string }[
   }));
 }
 
-export function templateLiftSpans(storeys: number, storeyHeight: number, spliceEvery: number, baseElevation: number): LiftSpan[] {
+export function templateLiftSpans(
+  storeys: number,
+  storeyHeight: number,
+  spliceEvery: number,
+  baseElevation: number,
+): LiftSpan[] {
   // Input the template refuses lists no lifts (the form says why on submitting).
-  const usable = Number.isInteger(storeys) && storeys >= 1 && storeys <= MAX_TEMPLATE_STOREYS && storeyHeight > 0 && Number.isFinite(baseElevation);
+  const usable =
+    Number.isInteger(storeys) &&
+    storeys >= 1 &&
+    storeys <= MAX_TEMPLATE_STOREYS &&
+    storeyHeight > 0 &&
+    Number.isFinite(baseElevation);
   if (!usable) return [];
   const floors = templateFloors({ storeys, storeyHeight, baseElevation });
-  return liftSpans(floors.map((elevation) => ({ elevation })), spliceEvery);
+  return liftSpans(
+    floors.map((elevation) => ({ elevation })),
+    spliceEvery,
+  );
 }

@@ -10,7 +10,9 @@ export function optionsSummary(o: AnalysisOptions): string {
     // Absent means on (options stored before the switch existed).
     o.nominalMoments === false ? 'axial check only' : 'nominal moments of simple construction',
     // Absent means tabulated factors (options stored before the choice existed).
-    o.bucklingLengths === 'critical' ? 'buckling lengths from a critical buckling analysis' : 'tabulated buckling-length factors',
+    o.bucklingLengths === 'critical'
+      ? 'buckling lengths from a critical buckling analysis'
+      : 'tabulated buckling-length factors',
     o.consequenceClass ? `consequence class ${o.consequenceClass}` : 'consequence class not given',
     o.concreteClass ? `foundations ${o.concreteClass}` : 'concrete class not given',
   ].join(' · ');

@@ -10,7 +10,8 @@ function describe(issue: z.core.$ZodIssue, unit: string): string {
   const suffix = unit ? ` ${unit}` : '';
   switch (issue.code) {
     case 'too_small':
-      if (issue.origin === 'string') return Number(issue.minimum) <= 1 ? 'is required' : `must be at least ${issue.minimum} characters`;
+      if (issue.origin === 'string')
+        return Number(issue.minimum) <= 1 ? 'is required' : `must be at least ${issue.minimum} characters`;
       if (issue.origin === 'array') return `needs at least ${issue.minimum}`;
       return `must be at least ${issue.minimum}${suffix}`;
     case 'too_big':
@@ -27,7 +28,11 @@ function describe(issue: z.core.$ZodIssue, unit: string): string {
 /** First message per top-level field, e.g. { elevation: "Elevation must be at most 1000 m" }. Given the
  *  typed values, a field left empty reads "is required" whatever rule refused it (an empty e-mail
  *  address is not "not an e-mail address" to the person typing). */
-export function fieldErrors(error: z.ZodError, fields: Record<string, FieldInfo>, typed?: Record<string, unknown>): Record<string, string> {
+export function fieldErrors(
+  error: z.ZodError,
+  fields: Record<string, FieldInfo>,
+  typed?: Record<string, unknown>,
+): Record<string, string> {
   const out: Record<string, string> = {};
   for (const issue of error.issues) {
     const key = String(issue.path[0] ?? '');

@@ -18,8 +18,18 @@ export const SPLICE_FIELDS: readonly DetailField[] = [
   { path: ['plate', 'thickness'], label: 'Cover plate thickness', unit: 'mm', numeric: true },
   { path: ['plate', 'grade'], label: 'Plate grade', options: grades, numeric: false },
   { path: ['bolts', 'number'], label: 'Bolts a flange, each side', numeric: true },
-  { path: ['bolts', 'diameter'], label: 'Bolt size', options: boltDiameterSchema.options.map((d) => ({ label: `M${d.value}`, value: d.value })), numeric: true },
-  { path: ['bolts', 'class'], label: 'Bolt class', options: boltClassSchema.options.map((c) => ({ label: c, value: c })), numeric: false },
+  {
+    path: ['bolts', 'diameter'],
+    label: 'Bolt size',
+    options: boltDiameterSchema.options.map((d) => ({ label: `M${d.value}`, value: d.value })),
+    numeric: true,
+  },
+  {
+    path: ['bolts', 'class'],
+    label: 'Bolt class',
+    options: boltClassSchema.options.map((c) => ({ label: c, value: c })),
+    numeric: false,
+  },
 ];
 
 export const BASE_PLATE_FIELDS: readonly DetailField[] = [

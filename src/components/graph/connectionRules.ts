@@ -35,7 +35,11 @@ export function connectionRefusal(doc: StackDocument, sourceId: string, targetId
   const target = byId.get(targetId);
   if (!source || !target) return 'That node no longer exists.';
   if (!ALLOWED[source.kind].includes(target.kind)) return WHAT_IT_CONNECTS_TO[source.kind];
-  if (doc.edges.some((e) => (e.source === sourceId && e.target === targetId) || (e.source === targetId && e.target === sourceId)))
+  if (
+    doc.edges.some(
+      (e) => (e.source === sourceId && e.target === targetId) || (e.source === targetId && e.target === sourceId),
+    )
+  )
     return 'These two nodes are already connected.';
 
   const outgoing = doc.edges.filter((e) => e.source === sourceId).map((e) => byId.get(e.target)?.kind);

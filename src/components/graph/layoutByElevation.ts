@@ -43,7 +43,10 @@ export function layoutByElevation(doc: StackDocument, scale: GraphScale = FULL_S
     const taken = usedSlots.get(slot) ?? 0;
     usedSlots.set(slot, taken + 1);
     const gap = scale.compact ? COMPACT_LINE_PX : STACKED_GAP;
-    out.set(n.id, { x, y: Math.round(-z * scale.pxPerMetre - (scale.compact ? COMPACT_LINE_PX / 2 : 0) + taken * gap) });
+    out.set(n.id, {
+      x,
+      y: Math.round(-z * scale.pxPerMetre - (scale.compact ? COMPACT_LINE_PX / 2 : 0) + taken * gap),
+    });
   }
   return out;
 }

@@ -46,7 +46,12 @@ export function addNodeOps(doc: StackDocument, kind: NodeKind, selectedId: strin
   const ops: Op[] = [{ op: 'addNode', node }];
   if (near) {
     const withNode = applyOps(doc, ops);
-    const pair = connectionRefusal(withNode, near.id, id) === null ? [near.id, id] : connectionRefusal(withNode, id, near.id) === null ? [id, near.id] : null;
+    const pair =
+      connectionRefusal(withNode, near.id, id) === null
+        ? [near.id, id]
+        : connectionRefusal(withNode, id, near.id) === null
+          ? [id, near.id]
+          : null;
     if (pair) ops.push({ op: 'addEdge', edge: { id: newId('edge', taken), source: pair[0], target: pair[1] } });
   }
   return { ops, id };

@@ -12,7 +12,8 @@ export function snapElevation(z: number, levels: readonly Level[], offset: numbe
   let best: number | null = null;
   for (const l of levels) {
     for (const target of [l.elevation, l.elevation + offset]) {
-      if (Math.abs(z - target) <= SNAP_TOLERANCE_M && (best === null || Math.abs(z - target) < Math.abs(z - best))) best = target;
+      if (Math.abs(z - target) <= SNAP_TOLERANCE_M && (best === null || Math.abs(z - target) < Math.abs(z - best)))
+        best = target;
     }
   }
   return best ?? Math.round(z / STEP_M) * STEP_M;

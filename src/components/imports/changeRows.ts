@@ -45,7 +45,25 @@ export function loadChangeRows(changes: readonly LoadChange[]): LoadChangeRow[] 
 
 /** Dimensions as "h 203.2 · b 203.6 · …" in mm, in the order of the CSV columns. */
 export function dimsText(d: SectionDims): string {
-  const parts: [string, number][] = d.shape === 'I' ? [['h', d.h], ['b', d.b], ['tw', d.tw], ['tf', d.tf], ['r', d.r]] : d.shape === 'RHS' ? [['h', d.h], ['b', d.b], ['t', d.t]] : [['d', d.d], ['t', d.t]];
+  const parts: [string, number][] =
+    d.shape === 'I'
+      ? [
+          ['h', d.h],
+          ['b', d.b],
+          ['tw', d.tw],
+          ['tf', d.tf],
+          ['r', d.r],
+        ]
+      : d.shape === 'RHS'
+        ? [
+            ['h', d.h],
+            ['b', d.b],
+            ['t', d.t],
+          ]
+        : [
+            ['d', d.d],
+            ['t', d.t],
+          ];
   return parts.map(([k, v]) => `${k} ${v}`).join(' · ');
 }
 
@@ -56,7 +74,10 @@ export function sectionChangeRows(changes: readonly SectionChange[]): SectionCha
     designation: c.designation,
     status: c.before ? 'changed' : 'new',
     shape: `${c.after.shape === 'RHS' && c.after.h === c.after.b ? 'SHS' : c.after.shape}, ${c.after.make}`,
-    dims: c.before && dimsText(c.before) !== dimsText(c.after) ? `${dimsText(c.before)} → ${dimsText(c.after)}` : dimsText(c.after),
+    dims:
+      c.before && dimsText(c.before) !== dimsText(c.after)
+        ? `${dimsText(c.before)} → ${dimsText(c.after)}`
+        : dimsText(c.after),
   }));
 }
 

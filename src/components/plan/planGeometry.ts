@@ -42,7 +42,12 @@ export function floorOutline(grid: Grid): PlanRect | null {
   if (grid.x.lines.length === 0 || grid.y.lines.length === 0) return null;
   const xs = grid.x.lines.map((l) => l.position);
   const ys = grid.y.lines.map((l) => l.position);
-  return { x0: Math.min(...xs) - grid.x.edgeBefore, x1: Math.max(...xs) + grid.x.edgeAfter, y0: Math.min(...ys) - grid.y.edgeBefore, y1: Math.max(...ys) + grid.y.edgeAfter };
+  return {
+    x0: Math.min(...xs) - grid.x.edgeBefore,
+    x1: Math.max(...xs) + grid.x.edgeAfter,
+    y0: Math.min(...ys) - grid.y.edgeBefore,
+    y1: Math.max(...ys) + grid.y.edgeAfter,
+  };
 }
 
 export function planExtent(grid: Grid): PlanExtent | null {
@@ -67,7 +72,8 @@ export function planStacks(grid: Grid, stacks: readonly Placed[]): PlanStack[] {
   for (const s of stacks) {
     const px = s.gridX ? x.get(s.gridX) : undefined;
     const py = s.gridY ? y.get(s.gridY) : undefined;
-    if (px !== undefined && py !== undefined) out.push({ id: s.id, name: s.name, x: px, y: py, utilisation: s.utilisation });
+    if (px !== undefined && py !== undefined)
+      out.push({ id: s.id, name: s.name, x: px, y: py, utilisation: s.utilisation });
   }
   return out;
 }
@@ -83,9 +89,14 @@ export function tributaryRect(grid: Grid, gridX: string, gridY: string): PlanRec
 }
 
 /** Crossings of the grid where no stack stands. */
-export function freeCrossings(grid: Grid, stacks: readonly Placed[]): { gridX: string; gridY: string; x: number; y: number }[] {
+export function freeCrossings(
+  grid: Grid,
+  stacks: readonly Placed[],
+): { gridX: string; gridY: string; x: number; y: number }[] {
   const taken = new Set(stacks.filter((s) => s.gridX && s.gridY).map((s) => `${s.gridX}|${s.gridY}`));
   const out: { gridX: string; gridY: string; x: number; y: number }[] = [];
-  for (const lx of grid.x.lines) for (const ly of grid.y.lines) if (!taken.has(`${lx.id}|${ly.id}`)) out.push({ gridX: lx.id, gridY: ly.id, x: lx.position, y: ly.position });
+  for (const lx of grid.x.lines)
+    for (const ly of grid.y.lines)
+      if (!taken.has(`${lx.id}|${ly.id}`)) out.push({ gridX: lx.id, gridY: ly.id, x: lx.position, y: ly.position });
   return out;
 }

@@ -37,7 +37,10 @@ const OPTION_FIELD: Record<string, FieldWord> = {
   imposedReduction: { name: 'imposed-load reduction for storeys', show: onOff },
   selfWeight: { name: 'self-weight', show: onOff },
   nominalMoments: { name: 'nominal moments of simple construction', show: onOff },
-  bucklingLengths: { name: 'buckling lengths from', show: among({ factors: 'tabulated factors', critical: 'critical buckling analysis' }) },
+  bucklingLengths: {
+    name: 'buckling lengths from',
+    show: among({ factors: 'tabulated factors', critical: 'critical buckling analysis' }),
+  },
 };
 
 function words(f: FieldChange, word: FieldWord = { name: f.field }): string {

@@ -18,13 +18,23 @@ export const rowKey = (stackId: number, liftId: string): string => `${stackId}:$
 /** Stacks in the order given, lifts from the top down as an engineer reads a column schedule. */
 export function previewRows(previews: readonly StackSizingPreview[]): PreviewRow[] {
   return previews.flatMap((p) =>
-    [...p.lifts].reverse().map((lift) => ({ key: rowKey(p.stackId, lift.liftId), stackId: p.stackId, stackName: p.name, lift, selectable: lift.status === 'proposed' })),
+    [...p.lifts].reverse().map((lift) => ({
+      key: rowKey(p.stackId, lift.liftId),
+      stackId: p.stackId,
+      stackName: p.name,
+      lift,
+      selectable: lift.status === 'proposed',
+    })),
   );
 }
 
 /** Every row that can be accepted, ticked. */
 export function allSelectable(previews: readonly StackSizingPreview[]): Set<string> {
-  return new Set(previewRows(previews).filter((r) => r.selectable).map((r) => r.key));
+  return new Set(
+    previewRows(previews)
+      .filter((r) => r.selectable)
+      .map((r) => r.key),
+  );
 }
 
 export interface MassTotals {

@@ -28,7 +28,9 @@ export function shapeGeometry(axis: CriticalAxis, box: ShapeBox): ShapeGeometry 
   const yOf = (z: number) => box.y + box.height - ((z - bottom) / span) * box.height;
   const axisX = box.x + box.width / 2;
   const amplitude = box.width / 2 - 4;
-  const points = shape.elevations.map((z, i) => `${(axisX + shape.displacements[i] * amplitude).toFixed(1)},${yOf(z).toFixed(1)}`).join(' ');
+  const points = shape.elevations
+    .map((z, i) => `${(axisX + shape.displacements[i] * amplitude).toFixed(1)},${yOf(z).toFixed(1)}`)
+    .join(' ');
   const held = shape.elevations.filter((_, i) => shape.displacements[i] === 0).map(yOf);
   return { points, held, yOf, axisX };
 }

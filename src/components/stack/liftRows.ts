@@ -46,7 +46,8 @@ export function worstPiece(lift: LiftResult): PieceCheck | null {
 /** The largest combined check of the lift's pieces, with the combination it was made for. */
 function worstCombined(lift: LiftResult): { combined: number | null; combinedCombination: string | null } {
   let worst: PieceCheck['combined'] | null = null;
-  for (const p of lift.pieces) if (p.combined && (!worst || p.combined.utilisation > worst.utilisation)) worst = p.combined;
+  for (const p of lift.pieces)
+    if (p.combined && (!worst || p.combined.utilisation > worst.utilisation)) worst = p.combined;
   return { combined: worst?.utilisation ?? null, combinedCombination: worst?.combination ?? null };
 }
 

@@ -18,7 +18,8 @@ export interface FieldSpec extends FieldInfo {
   places?: number;
 }
 
-const words = (record: Record<string, string>, keys: readonly string[]): FieldOption[] => keys.map((value) => ({ value, label: record[value] }));
+const words = (record: Record<string, string>, keys: readonly string[]): FieldOption[] =>
+  keys.map((value) => ({ value, label: record[value] }));
 
 const fixity = (withFree: boolean): FieldSpec => ({
   key: 'fixity',
@@ -30,9 +31,20 @@ const fixity = (withFree: boolean): FieldSpec => ({
 // To the millimetre, as the node titles and the levels show elevations.
 const elevation: FieldSpec = { key: 'elevation', label: 'Elevation', unit: 'm', type: 'number', places: 3 };
 const loads: FieldSpec[] = [
-  { key: 'Gk', label: 'Permanent load Gk', unit: 'kN', type: 'number', hint: 'Characteristic, entering the column here' },
+  {
+    key: 'Gk',
+    label: 'Permanent load Gk',
+    unit: 'kN',
+    type: 'number',
+    hint: 'Characteristic, entering the column here',
+  },
   { key: 'Qk', label: 'Imposed load Qk', unit: 'kN', type: 'number', hint: 'Characteristic, entering the column here' },
-  { key: 'category', label: 'Imposed load category (EN 1991-1-1)', type: 'select', options: words(CATEGORY_WORD, ['A', 'B', 'C', 'D', 'E', 'H']) },
+  {
+    key: 'category',
+    label: 'Imposed load category (EN 1991-1-1)',
+    type: 'select',
+    options: words(CATEGORY_WORD, ['A', 'B', 'C', 'D', 'E', 'H']),
+  },
 ];
 
 export const NODE_FIELDS: Record<Exclude<NodeKind, 'lift'>, FieldSpec[]> = {

@@ -10,15 +10,23 @@ export interface TakeDownView extends TakeDownRow {
   sumQkText: string;
 }
 
-export function takeDownRows(rows: readonly TakeDownRow[], doc: StackDocument, levels: readonly Level[]): TakeDownView[] {
+export function takeDownRows(
+  rows: readonly TakeDownRow[],
+  doc: StackDocument,
+  levels: readonly Level[],
+): TakeDownView[] {
   const levelName = new Map(levels.map((l) => [l.id, l.name]));
   const byId = new Map(doc.nodes.map((n) => [n.id, n]));
   return rows.map((r) => {
     const node = byId.get(r.nodeId);
     const levelId = node && (node.kind === 'restraint' || node.kind === 'cap') ? node.data.levelId : undefined;
     const named = levelId ? levelName.get(levelId) : undefined;
-    const where = node?.kind === 'cap' ? (named ? `Cap, ${levelWord(named)}` : 'Cap') : named ? levelWord(named) : 'Floor';
-    const sumQkText = Object.entries(r.sumQkByCategory).map(([c, q]) => `${c} ${q.toFixed(0)}`).join(' · ') || '–';
+    const where =
+      node?.kind === 'cap' ? (named ? `Cap, ${levelWord(named)}` : 'Cap') : named ? levelWord(named) : 'Floor';
+    const sumQkText =
+      Object.entries(r.sumQkByCategory)
+        .map(([c, q]) => `${c} ${q.toFixed(0)}`)
+        .join(' · ') || '–';
     return { ...r, where, sumQkText };
   });
 }

@@ -1,7 +1,12 @@
 // How node values read on the graph and in the forms. Plain trade words.
 import type { Axes, Category, FaceName, Fixity, RestraintFaces } from '@shared/schema/stack.ts';
 
-export const FIXITY_WORD: Record<Fixity | 'free', string> = { pinned: 'pinned', partial: 'partially fixed', fixed: 'fixed', free: 'free' };
+export const FIXITY_WORD: Record<Fixity | 'free', string> = {
+  pinned: 'pinned',
+  partial: 'partially fixed',
+  fixed: 'fixed',
+  free: 'free',
+};
 
 export const AXES_WORD: Record<Axes, string> = { both: 'both axes', y: 'y-y only', z: 'z-z only' };
 
