@@ -24,7 +24,7 @@ export interface QueuedMail {
 }
 
 export interface NewMail {
-  kind: 'revision' | 'invitation';
+  kind: 'revision' | 'invitation' | 'account';
   message: Omit<MailMessage, 'attachments'>;
   attachRevisionId?: number;
   recipientId?: number;

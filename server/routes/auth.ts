@@ -1,5 +1,6 @@
 // Accounts: register, verify the address, sign in and out, change the password, who am I (docs/access.md).
 import type { Router } from 'express';
+import type { Knex } from 'knex';
 import {
   changePasswordBodySchema,
   loginBodySchema,
@@ -14,6 +15,7 @@ import { conflict, HttpError } from '../errors.ts';
 import { currentUser, requireAuth } from '../middleware/auth.ts';
 import { byBodyEmail, byClient, byUser, limiter } from '../middleware/rateLimits.ts';
 import { parseBody } from '../middleware/validate.ts';
+import { enqueueMail } from '../mail/mailQueue.ts';
 import { accountExistsMessage, verificationMessage } from '../mail/messages.ts';
 import { assertStrongPassword, rate } from '../services/passwordStrength.ts';
 import { readVerification, signToken, signVerification } from '../services/tokens.ts';
@@ -64,15 +66,20 @@ export function registerAuthRoutes(router: Router, ctx: ServerContext): void {
   ];
   const strengthLimit = limiter(ctx, 'strength', limits.strengthPerClient, byClient, 'Too many password checks');
   const link = (path: string) => `${config.publicUrl}${path}`;
-  const sendVerification = (user: Pick<User, 'id' | 'email'>) =>
-    ctx.mailer.sendMail(
-      verificationMessage({
-        to: user.email,
-        link: link(
-          `/verify-email?token=${encodeURIComponent(signVerification(config.jwtSecret, user.id, user.email))}`,
-        ),
-      }),
-    );
+  // Account mail goes through the durable queue (docs/faults.md) like every other mail: a mail server
+  // that hangs or is down never holds a registration, and the sender retries.
+  const queueVerification = (db: Knex, user: Pick<User, 'id' | 'email'>) =>
+    enqueueMail(db, [
+      {
+        kind: 'account',
+        message: verificationMessage({
+          to: user.email,
+          link: link(
+            `/verify-email?token=${encodeURIComponent(signVerification(config.jwtSecret, user.id, user.email))}`,
+          ),
+        }),
+      },
+    ]);
 
   // The same answer whether or not the address has an account: a new one gets a verification link, an
   // existing one a note that it already has an account. No token until the address is verified.
@@ -83,14 +90,17 @@ export function registerAuthRoutes(router: Router, ctx: ServerContext): void {
     let created: User | null = null;
     if (!(await findUserByEmail(ctx.db, input.email))) {
       try {
-        created = await registerUser(ctx.db, input, config.bcryptRounds, { hash });
+        created = await registerUser(ctx.db, input, config.bcryptRounds, { hash, andThen: queueVerification });
       } catch (e) {
         // Registered by a parallel request a moment ago: answered as an existing account.
         if (!(e instanceof HttpError && e.status === 409)) throw e;
       }
     }
-    if (created) await sendVerification(created);
-    else await ctx.mailer.sendMail(accountExistsMessage({ to: input.email, signInLink: link('/sign-in') }));
+    if (!created)
+      await enqueueMail(ctx.db, [
+        { kind: 'account', message: accountExistsMessage({ to: input.email, signInLink: link('/sign-in') }) },
+      ]);
+    ctx.outbox.kick();
     const out: RegisterResponse = { status: 'verification-sent', email: input.email };
     res.status(202).json(out);
   });
@@ -104,7 +114,8 @@ export function registerAuthRoutes(router: Router, ctx: ServerContext): void {
   router.post('/auth/verify/resend', requireAuth(ctx), ...verificationLimits, async (req, res) => {
     const user = currentUser(req);
     if (user.emailVerified) throw conflict('This address is already verified');
-    await sendVerification(user);
+    await queueVerification(ctx.db, user);
+    ctx.outbox.kick();
     res.status(202).json({ status: 'verification-sent', email: user.email } satisfies RegisterResponse);
   });
 

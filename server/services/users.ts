@@ -81,7 +81,12 @@ export async function registerUser(
   db: Knex,
   input: NewUser,
   rounds: number,
-  opts: { verified?: boolean; hash?: string } = {},
+  opts: {
+    verified?: boolean;
+    hash?: string;
+    /** Runs in the account's own transaction (the verification mail is queued there, so it is never lost). */
+    andThen?: (trx: Knex.Transaction, user: User) => Promise<void>;
+  } = {},
 ): Promise<User> {
   const hash = opts.hash ?? (await hashPassword(input.password, rounds));
   return db.transaction(async (trx) => {
@@ -100,13 +105,15 @@ export async function registerUser(
       .returning<{ id: number }[]>('id');
     if (opts.verified) await acceptInvitations(trx, row.id, input.email);
     await recordAudit(trx, { userId: row.id, action: 'user.register', detail: { email: input.email } });
-    return {
+    const user: User = {
       id: row.id,
       email: input.email,
       name: input.name,
       isAdmin: input.isAdmin ?? false,
       emailVerified: Boolean(opts.verified),
     };
+    await opts.andThen?.(trx, user);
+    return user;
   });
 }
 

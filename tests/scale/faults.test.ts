@@ -17,6 +17,7 @@ import {
   eventually,
   freePort,
   newTag,
+  signUp,
   scaleEnv,
   scaleReady,
   startProcess,
@@ -25,7 +26,6 @@ import {
 } from './procs.ts';
 
 const describeScale = scaleReady ? describe : describe.skip;
-const PASSWORD = 'correct horse battery';
 const TEMPLATE = {
   storeys: 4,
   storeyHeight: 3.6,
@@ -102,14 +102,9 @@ describeScale('faults across two server processes', () => {
   let c: Proc | undefined;
   let db: Knex;
   let lead: AuthResponse;
-  const reg = async (url: string, name: string) =>
-    (
-      await api<AuthResponse>(url, 'POST', '/auth/register', null, {
-        email: `${name}-${tag}@example.test`,
-        password: PASSWORD,
-        name,
-      })
-    ).body;
+  // The suite's mail server hangs, so no verification link arrives: addresses are verified in the database.
+  const reg = (url: string, name: string) =>
+    signUp(url, db, `${name}-${tag}@example.test`, name, { viaDatabase: true });
 
   beforeAll(async () => {
     mail = new FlakyMailServer(await freePort());

@@ -4,10 +4,13 @@ import { spawn, type ChildProcess, type ChildProcessWithoutNullStreams } from 'n
 import { randomBytes } from 'node:crypto';
 import { createServer } from 'node:net';
 import { createInterface } from 'node:readline';
+import type { Knex } from 'knex';
+import type { AuthResponse } from '../../shared/schema/api.ts';
 
 export const databaseUrl = process.env.TEST_DATABASE_URL;
 export const redisUrl = process.env.TEST_REDIS_URL;
 export const scaleReady = !!databaseUrl && !!redisUrl;
+export const PASSWORD = 'correct horse battery';
 
 export interface Proc {
   url: string;
@@ -137,4 +140,40 @@ export async function eventually(check: () => Promise<boolean>, timeoutMs: numbe
     await sleep(everyMs);
   }
   return false;
+}
+
+/**
+ * A verified account with a session on a server process: registered over HTTP, then verified by the
+ * link the process's SMTP fake stored in `outbox`, or, where the suite's mail server never answers
+ * (`viaDatabase`), by marking the address verified in the database. The verification flow itself is
+ * tested in tests/server/auth.test.ts.
+ */
+export async function signUp(
+  url: string,
+  db: Knex,
+  email: string,
+  name: string,
+  opts: { viaDatabase?: boolean } = {},
+): Promise<AuthResponse> {
+  const r = await api(url, 'POST', '/auth/register', null, { email, password: PASSWORD, name });
+  if (r.status !== 202) throw new Error(`register ${email}: ${r.status} ${JSON.stringify(r.body)}`);
+  if (opts.viaDatabase) {
+    await db('users').where({ email }).update({ email_verified_at: new Date().toISOString() });
+  } else {
+    let token = '';
+    await eventually(async () => {
+      const mail = await db('outbox').where({ to: email }).orderBy('id', 'desc').first<{ text: string } | undefined>();
+      token = /verify-email\?token=(\S+)/.exec(mail?.text ?? '')?.[1] ?? '';
+      return token !== '';
+    }, 10_000);
+    if (!token) throw new Error(`no verification link mailed to ${email}`);
+    const v = await api(url, 'POST', '/auth/verify', null, { token: decodeURIComponent(token) });
+    if (v.status !== 200) throw new Error(`verify ${email}: ${v.status} ${JSON.stringify(v.body)}`);
+  }
+  const s = await api<AuthResponse>(url, 'POST', '/auth/login', null, {
+    email,
+    password: PASSWORD,
+  });
+  if (s.status !== 200) throw new Error(`sign in ${email}: ${s.status} ${JSON.stringify(s.body)}`);
+  return s.body;
 }

@@ -15,6 +15,8 @@ import {
   eventually,
   freePort,
   newTag,
+  PASSWORD,
+  signUp,
   OwnRedis,
   scaleEnv,
   scaleReady,
@@ -25,7 +27,6 @@ import {
 } from './procs.ts';
 
 const describeScale = scaleReady ? describe : describe.skip;
-const PASSWORD = 'correct horse battery';
 
 describeScale('losing Redis under two server processes', () => {
   const tag = newTag();
@@ -44,13 +45,7 @@ describeScale('losing Redis under two server processes', () => {
     a = await startProcess(env);
     b = await startProcess(env);
     db = knex({ client: 'pg', connection: databaseUrl!, searchPath: [tag], pool: { min: 0, max: 2 } });
-    lead = (
-      await api<AuthResponse>(a.url, 'POST', '/auth/register', null, {
-        email: `lead-${tag}@example.test`,
-        password: PASSWORD,
-        name: 'Lead',
-      })
-    ).body;
+    lead = await signUp(a.url, db, `lead-${tag}@example.test`, 'Lead');
   });
 
   afterAll(async () => {

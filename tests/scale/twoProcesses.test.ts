@@ -1,9 +1,6 @@
 // docs/live-protocol.md §Several processes: two server processes on PostgreSQL sharing live rooms through Redis.
 // Clients are spread across both; random concurrent edits converge with nothing lost. Runs only when
 // TEST_DATABASE_URL and TEST_REDIS_URL are set (scripts/testScale.ts); each run has its own schema and key prefix.
-import { spawn, type ChildProcessWithoutNullStreams } from 'node:child_process';
-import { randomBytes } from 'node:crypto';
-import { createInterface } from 'node:readline';
 import knex, { type Knex } from 'knex';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type { AuthResponse, Building, StackSummary } from '../../shared/schema/api.ts';
@@ -13,56 +10,23 @@ import type { StackDocument } from '../../shared/schema/stack.ts';
 import { applyOps } from '../../shared/ops/applyOps.ts';
 import { connect, Editor, next, prng, request, type LiveClient } from '../server/liveHelpers.ts';
 import { dropSchema } from '../server/helpers.ts';
+import {
+  api,
+  databaseUrl,
+  newTag,
+  scaleEnv,
+  scaleReady,
+  signUp,
+  startProcess,
+  stopProcess,
+  type Proc,
+} from './procs.ts';
 
-const databaseUrl = process.env.TEST_DATABASE_URL;
-const redisUrl = process.env.TEST_REDIS_URL;
-const describeScale = databaseUrl && redisUrl ? describe : describe.skip;
-
-interface Proc {
-  url: string;
-  child: ChildProcessWithoutNullStreams;
-}
-
-async function startProcess(env: NodeJS.ProcessEnv): Promise<Proc> {
-  const child = spawn(process.execPath, ['--import', 'tsx', 'tests/scale/serve.ts'], {
-    env: { ...process.env, ...env },
-    stdio: ['pipe', 'pipe', 'pipe'],
-  });
-  let stderr = '';
-  child.stderr.on('data', (d: Buffer) => (stderr += d.toString()));
-  const line = await new Promise<string>((resolve, reject) => {
-    createInterface({ input: child.stdout }).once('line', resolve);
-    child.once('exit', (code) => reject(new Error(`server process exited with ${code}: ${stderr}`)));
-  });
-  return { url: (JSON.parse(line) as { url: string }).url, child };
-}
-
-async function api<T>(
-  url: string,
-  method: string,
-  path: string,
-  token: string | null,
-  body?: unknown,
-): Promise<{ status: number; body: T }> {
-  const res = await fetch(`${url}/api${path}`, {
-    method,
-    headers: { 'Content-Type': 'application/json', ...(token ? { Authorization: `Bearer ${token}` } : {}) },
-    body: body === undefined ? undefined : JSON.stringify(body),
-  });
-  return { status: res.status, body: (await res.json()) as T };
-}
+const describeScale = scaleReady ? describe : describe.skip;
 
 describeScale('two server processes on PostgreSQL and Redis', () => {
-  const tag = `t_${Date.now().toString(36)}_${randomBytes(4).toString('hex')}`;
-  const env = {
-    DATABASE_URL: databaseUrl,
-    DATABASE_SCHEMA: tag,
-    REDIS_URL: redisUrl,
-    REDIS_PREFIX: `stanchion-test:${tag}`,
-    JWT_SECRET: randomBytes(32).toString('hex'),
-    LOGIN_RATE_LIMIT: '10000',
-    REGISTER_RATE_LIMIT: '10000',
-  };
+  const tag = newTag();
+  const env = scaleEnv(tag, { REGISTER_RATE_LIMIT: '10000' });
   let a: Proc;
   let b: Proc;
   let db: Knex;
@@ -76,15 +40,7 @@ describeScale('two server processes on PostgreSQL and Redis', () => {
     b = await startProcess(env);
     db = knex({ client: 'pg', connection: databaseUrl!, searchPath: [tag], pool: { min: 0, max: 2 } });
     // Registered, verified through the link the SMTP fake stored, then signed in (docs/access.md).
-    const reg = async (url: string, name: string): Promise<AuthResponse> => {
-      const email = `${name}-${tag}@example.test`;
-      const password = 'correct horse battery';
-      expect((await api(url, 'POST', '/auth/register', null, { email, password, name })).status).toBe(202);
-      const mail = await db('outbox').where({ to: email }).orderBy('id', 'desc').first<{ text: string }>('text');
-      const token = /verify-email\?token=(\S+)/.exec(mail.text)?.[1] ?? '';
-      expect((await api(url, 'POST', '/auth/verify', null, { token: decodeURIComponent(token) })).status).toBe(200);
-      return (await api<AuthResponse>(url, 'POST', '/auth/login', null, { email, password })).body;
-    };
+    const reg = (url: string, name: string) => signUp(url, db, `${name}-${tag}@example.test`, name);
     lead = await reg(a.url, 'lead');
     buildingId = (await api<Building>(b.url, 'POST', '/buildings', lead.token, { name: 'Scale test block' })).body.id;
     for (let i = 0; i < 6; i += 1) {
@@ -103,12 +59,8 @@ describeScale('two server processes on PostgreSQL and Redis', () => {
 
   afterAll(async () => {
     for (const s of sockets) s.close();
-    for (const p of [a, b]) {
-      if (!p) continue;
-      const exited = new Promise((resolve) => p.child.once('exit', resolve));
-      p.child.stdin.end();
-      await exited;
-    }
+    await stopProcess(a);
+    await stopProcess(b);
     await db?.destroy();
     if (databaseUrl) await dropSchema(databaseUrl, tag);
   });

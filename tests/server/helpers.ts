@@ -118,23 +118,31 @@ export interface CapturedMail {
   html: string | null;
 }
 
-/** Messages the SMTP fake captured for an address, oldest first; waits up to timeoutMs for `atLeast`. */
-export async function mailTo(s: TestServer, to: string, atLeast = 1, timeoutMs = 5000): Promise<CapturedMail[]> {
+/**
+ * Messages the SMTP fake captured for an address, oldest first, only those whose text matches `match`
+ * when given; waits up to timeoutMs for `atLeast` of them (account mail goes through the background
+ * sender, so it arrives a moment after the request that queued it).
+ */
+export async function mailTo(
+  s: TestServer,
+  to: string,
+  atLeast = 1,
+  timeoutMs = 5000,
+  match?: RegExp,
+): Promise<CapturedMail[]> {
   const until = Date.now() + timeoutMs;
   for (;;) {
-    const rows = await s.ctx
-      .db('outbox')
-      .where({ to })
-      .orderBy('id')
-      .select<CapturedMail[]>('id', 'to', 'subject', 'text', 'html');
+    const rows = (
+      await s.ctx.db('outbox').where({ to }).orderBy('id').select<CapturedMail[]>('id', 'to', 'subject', 'text', 'html')
+    ).filter((m) => !match || match.test(m.text));
     if (rows.length >= atLeast || Date.now() > until) return rows;
     await new Promise((r) => setTimeout(r, 20));
   }
 }
 
-/** The token of the newest verification link mailed to the address. */
-export async function verificationToken(s: TestServer, email: string): Promise<string> {
-  const mails = (await mailTo(s, email)).filter((m) => /verify-email\?token=/.test(m.text));
+/** The token of the newest verification link mailed to the address (the `nth` such mail when given). */
+export async function verificationToken(s: TestServer, email: string, nth = 1): Promise<string> {
+  const mails = await mailTo(s, email, nth, 5000, /verify-email\?token=/);
   const m = /verify-email\?token=([^\s]+)/.exec(mails.at(-1)?.text ?? '');
   if (!m) throw new Error(`no verification link mailed to ${email}`);
   return decodeURIComponent(m[1]);
