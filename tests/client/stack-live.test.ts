@@ -54,11 +54,16 @@ async function register(label: string): Promise<AuthResponse> {
   const email = `${label}-${Date.now()}@example.test`;
   const password = 'correct horse battery';
   await api('POST', '/auth/register', null, { email, password, name: `${label} person` });
+  // The link arrives through the background mail sender, a moment after the request.
   const db = new Database(join(dataDir, 'stanchion.sqlite'), { readonly: true });
   try {
-    const mail = db.prepare('SELECT text FROM outbox WHERE "to" = ? ORDER BY id DESC').get(email) as
-      { text: string } | undefined;
-    const token = /verify-email\?token=(\S+)/.exec(mail?.text ?? '')?.[1];
+    let token: string | undefined;
+    for (const until = Date.now() + 5000; !token && Date.now() < until;) {
+      const mail = db.prepare('SELECT text FROM outbox WHERE "to" = ? ORDER BY id DESC').get(email) as
+        { text: string } | undefined;
+      token = /verify-email\?token=(\S+)/.exec(mail?.text ?? '')?.[1];
+      if (!token) await new Promise((r) => setTimeout(r, 20));
+    }
     if (!token) throw new Error(`no verification link for ${email}`);
     await api('POST', '/auth/verify', null, { token: decodeURIComponent(token) });
   } finally {
