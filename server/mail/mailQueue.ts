@@ -53,13 +53,28 @@ export async function enqueueMail(db: Knex, mails: NewMail[]): Promise<void> {
   );
 }
 
-/** Claims up to `limit` due rows for `owner` until `leaseMs` from now; returns the rows it won. */
-export async function claimDue(db: Knex, owner: string, leaseMs: number, limit: number): Promise<QueuedMail[]> {
+/**
+ * Claims up to `limit` due rows for `owner` until `leaseMs` from now (only rows of `kind` when given);
+ * returns the rows it won.
+ */
+export async function claimDue(
+  db: Knex,
+  owner: string,
+  leaseMs: number,
+  limit: number,
+  kind?: NewMail['kind'],
+): Promise<QueuedMail[]> {
   const t = Date.now();
   const due = (q: Knex.QueryBuilder) =>
     q
-      .where((w) => w.where({ status: 'pending' }).andWhere('next_attempt_at', '<=', t))
-      .orWhere((w) => w.where({ status: 'sending' }).andWhere('claimed_until', '<', t));
+      .where((d) =>
+        d
+          .where((w) => w.where({ status: 'pending' }).andWhere('next_attempt_at', '<=', t))
+          .orWhere((w) => w.where({ status: 'sending' }).andWhere('claimed_until', '<', t)),
+      )
+      .modify((w) => {
+        if (kind) w.andWhere({ kind });
+      });
   const candidates = await db('mail_queue')
     .where(due)
     .orderBy('next_attempt_at')

@@ -93,6 +93,12 @@ export function startMailSender(ctx: ServerContext, log: Logger): MailSender {
   async function tick(): Promise<void> {
     do {
       again = false;
+      // Account mail first: someone is waiting at the screen for the verification link, and it must not
+      // queue behind the drawing of a revision's package.
+      for (const mail of await claimDue(ctx.db, owner, leaseMs, BATCH, 'account')) {
+        if (stopped) return;
+        await sendOne(mail);
+      }
       // Packages are drawn before any row is claimed, so a claim's lease covers only the SMTP exchange.
       for (const revisionId of await dueAttachments(ctx.db, BATCH)) {
         await issuedPackage(ctx, revisionId).catch((err: unknown) =>

@@ -58,7 +58,7 @@ async function register(label: string): Promise<AuthResponse> {
   const db = new Database(join(dataDir, 'stanchion.sqlite'), { readonly: true });
   try {
     let token: string | undefined;
-    for (const until = Date.now() + 5000; !token && Date.now() < until;) {
+    for (const until = Date.now() + 15_000; !token && Date.now() < until;) {
       const mail = db.prepare('SELECT text FROM outbox WHERE "to" = ? ORDER BY id DESC').get(email) as
         { text: string } | undefined;
       token = /verify-email\?token=(\S+)/.exec(mail?.text ?? '')?.[1];

@@ -127,7 +127,7 @@ export async function mailTo(
   s: TestServer,
   to: string,
   atLeast = 1,
-  timeoutMs = 5000,
+  timeoutMs = 15_000,
   match?: RegExp,
 ): Promise<CapturedMail[]> {
   const until = Date.now() + timeoutMs;
@@ -142,7 +142,7 @@ export async function mailTo(
 
 /** The token of the newest verification link mailed to the address (the `nth` such mail when given). */
 export async function verificationToken(s: TestServer, email: string, nth = 1): Promise<string> {
-  const mails = await mailTo(s, email, nth, 5000, /verify-email\?token=/);
+  const mails = await mailTo(s, email, nth, 15_000, /verify-email\?token=/);
   const m = /verify-email\?token=([^\s]+)/.exec(mails.at(-1)?.text ?? '');
   if (!m) throw new Error(`no verification link mailed to ${email}`);
   return decodeURIComponent(m[1]);

@@ -48,7 +48,7 @@ describe('verification of new accounts', () => {
     expect('token' in (a.body as object)).toBe(false);
     const [link] = await mailTo(s, fresh);
     expect(link.text).toContain('https://stanchion.test/verify-email?token=');
-    const owner = (await mailTo(s, lead.user.email, 1, 5000, /already has an account/)).at(-1)!;
+    const owner = (await mailTo(s, lead.user.email, 1, 15_000, /already has an account/)).at(-1)!;
     expect(owner.text).toContain('already has an account');
     expect(owner.text).toContain('https://stanchion.test/sign-in');
   });
