@@ -119,12 +119,12 @@ describeInBrowser('structural edits on the stack page', () => {
     await openDemoBuilding(page);
     await openStack(page, 'C/4');
     const window = { width: 1280, height: 720 };
+    await page.screenshot({ path: 'test-results/stack-results-1280.png' });
     const rows = await liftRows(page).evaluateAll((els) => els.map((el) => el.getBoundingClientRect().bottom));
     expect(rows.filter((bottom) => bottom <= window.height).length).toBeGreaterThanOrEqual(4);
     const last = await results(page).locator('thead th').last().boundingBox();
     const pane = await results(page).boundingBox();
     expect(last && pane && last.x + last.width <= pane.x + pane.width + 1).toBe(true);
-    await page.screenshot({ path: 'test-results/stack-results-1280.png' });
     await page.context().close();
   });
 });
