@@ -109,6 +109,11 @@ describe('moving a level moves the column', () => {
       (await s.ctx.db('stacks').where({ id: stackId }).first<{ doc: string }>('doc')).doc,
     ) as StackDetail['doc'];
     expect(stored.nodes.find((n) => n.id === tied(after)[0].id)?.data).toMatchObject({ elevation: 4 });
+    // A version in the stack's history reads the level too
+    const asOf = (await s.api('GET', `/stacks/${stackId}/versions/${before.version}`, { token })).body as {
+      outline: { part: string; where: string }[];
+    };
+    expect(asOf.outline.map((r) => r.where)).toContain('Level 1 (+4.250)');
     await s.api('PATCH', `/buildings/${buildingId}/levels/${level('Level 1').id}`, { token, body: { elevation: 4 } });
   });
 
