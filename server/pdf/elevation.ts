@@ -1,5 +1,6 @@
 // The drawn elevation of one stack: lifts coloured by utilisation, splices, floor restraints with their
 // level names, the support and the cap, to a true vertical scale.
+import { placeOnLevels } from '../../shared/engine/stack/placeOnLevels.ts';
 import type { Level } from '../../shared/schema/api.ts';
 import type { SnapshotStack } from '../../shared/schema/revisions.ts';
 import type { StackNode } from '../../shared/schema/stack.ts';
@@ -43,7 +44,8 @@ function drawSupport(doc: Pdf, x: number, y: number, fixity: string): void {
 }
 
 export function drawElevation(doc: Pdf, stack: SnapshotStack, levels: Level[], box: Box): void {
-  const nodes = stack.doc.nodes;
+  // Tied nodes at the frozen levels, also for a revision frozen before documents were placed on freezing
+  const { nodes } = placeOnLevels(stack.doc, levels);
   const support = ofKind(nodes, 'support')[0];
   const cap = ofKind(nodes, 'cap')[0];
   const lifts = stack.results.lifts;

@@ -15,7 +15,7 @@ import type { ServerContext } from '../context.ts';
 import { forbidden } from '../errors.ts';
 import { checkAccess } from '../services/accessPolicy.ts';
 import { editStack } from '../services/stackOps.ts';
-import { getStack } from '../services/stacks.ts';
+import { getStackWithLevels } from '../services/stacks.ts';
 import { toErrorBody } from './errors.ts';
 import { broadcastPresence, buildingRoom, stackRoom } from './presence.ts';
 import { assertSessionLive } from './session.ts';
@@ -72,11 +72,11 @@ export function registerHandlers(ctx: ServerContext, io: LiveServer, socket: Liv
     'stack:join',
     handle(live, log, stackJoinSchema, async ({ stackId }) => {
       await accessTo(ctx, socket, await buildingOfStack(ctx, stackId), 'Stack', 'viewer');
-      const stack = await getStack(ctx.db, stackId);
+      const { stack, levels } = await getStackWithLevels(ctx.db, stackId);
       await socket.join(stackRoom(stackId));
       socket.data.selections = { ...socket.data.selections, [stackId]: socket.data.selections[stackId] ?? [] };
       void broadcastPresence(io, stackId).catch((err: unknown) => log.warn({ err }, 'presence update failed'));
-      return { doc: stack.doc, version: stack.version, results: stack.results };
+      return { doc: stack.doc, version: stack.version, results: stack.results, levels };
     }),
   );
 

@@ -13,7 +13,7 @@ export async function loadsTemplateCsv(db: Knex, buildingId: number): Promise<st
   const rows: Record<string, Cell>[] = [];
   for (const stack of stacks) {
     for (const level of levels) {
-      const nodes = nodesAtLevel(stack.doc, level);
+      const nodes = nodesAtLevel(stack.doc, level, levels);
       if (nodes.length !== 1) continue;
       const load = floorLoadOf(nodes[0]!);
       // String(n) is the shortest text that reads back as the same number, so the round trip is exact.

@@ -1,6 +1,7 @@
 // Where a level load lands: the restraint (or the cap) of a stack at a named level. Shared by the
 // loads import and the loads template, so a downloaded template always re-imports to the same nodes.
 import type { Knex } from 'knex';
+import { nodeElevation } from '../../shared/engine/stack/placeOnLevels.ts';
 import type { FloorLoad } from '../../shared/schema/imports.ts';
 import type { NodeOf, StackDocument } from '../../shared/schema/stack.ts';
 import { parseDoc, type StackRow } from './stackRows.ts';
@@ -36,13 +37,17 @@ export async function buildingLevels(db: Knex, buildingId: number): Promise<Leve
   return rows.map((r) => ({ id: Number(r.id), name: r.name, elevation: Number(r.elevation) }));
 }
 
-/** Restraints and a cap on the level: tied to it (levelId) or at its elevation. */
-export function nodesAtLevel(doc: StackDocument, level: LevelRef): LoadedNode[] {
+/**
+ * Restraints and a cap on the level: tied to it (levelId) or standing at its elevation, a tied node where its
+ * own level is (`levels`, the building's: the copy a document carries is never trusted).
+ */
+export function nodesAtLevel(doc: StackDocument, level: LevelRef, levels: readonly LevelRef[]): LoadedNode[] {
   const key = String(level.id);
+  const elevations = new Map(levels.map((l) => [String(l.id), l.elevation]));
   const near = (z: number) => Math.abs(z - level.elevation) < SAME_ELEVATION_M;
   return doc.nodes.filter(
     (n): n is LoadedNode =>
-      (n.kind === 'restraint' || n.kind === 'cap') && (n.data.levelId === key || near(n.data.elevation)),
+      (n.kind === 'restraint' || n.kind === 'cap') && (n.data.levelId === key || near(nodeElevation(n, elevations))),
   );
 }
 

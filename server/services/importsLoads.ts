@@ -96,7 +96,7 @@ export async function previewLoads(db: Knex, buildingId: number, file: Buffer): 
     const category = categoryCell(row, problems);
     if (!stack || !level) continue;
 
-    const nodes = nodesAtLevel(stack.doc, level);
+    const nodes = nodesAtLevel(stack.doc, level, levels);
     if (nodes.length !== 1) {
       const message =
         nodes.length === 0

@@ -2,17 +2,24 @@
 // on the level follows it, and every splice whose floor is that level keeps its offset above it. The same
 // plan serves the preview (what the engineer sees before saving) and the move itself, which is refused
 // when it would break a stack. See docs/stack-editing.md.
+//
+// The level row is the one place its elevation is stored: nodes tied to it follow by being placed on the
+// levels wherever an elevation is read (shared/engine/stack/placeOnLevels.ts), so the move writes nothing
+// into them. Only splices, which stand at their own elevation, are written; every stack using the level is
+// stored again with results at the level's new place.
 import type { Knex } from 'knex';
 import type { LevelMovePreview } from '../../shared/schema/api.ts';
 import type { Op } from '../../shared/schema/ops.ts';
 import type { StackDocument } from '../../shared/schema/stack.ts';
 import { applyOps } from '../../shared/ops/applyOps.ts';
+import { isPlaceable } from '../../shared/engine/stack/placeOnLevels.ts';
 import { analyse, analysisInputs, type AnalysisInputs } from './analysis.ts';
 import { parseDoc, type StackRow } from './stackRows.ts';
 
 export interface StackMove {
   row: StackRow;
   doc: StackDocument;
+  /** Splice moves only; empty when the stack has only nodes tied to the level. */
   ops: Op[];
 }
 
@@ -30,7 +37,12 @@ function floorOf(z: number, levels: ReadonlyMap<string, number>): string | null 
   return best?.[0] ?? null;
 }
 
-/** Ops that carry one stack's document along with the level; empty when the stack does not use the level. */
+/** How many of a document's nodes sit on the level (a restraint, the cap, the support). */
+export function tiedCount(doc: StackDocument, levelId: string): number {
+  return doc.nodes.filter((n) => isPlaceable(n) && n.data.levelId === levelId).length;
+}
+
+/** Ops that keep each splice whose floor is the level at its offset above it; the levels are as they stand. */
 export function followLevel(
   doc: StackDocument,
   levelId: string,
@@ -39,15 +51,11 @@ export function followLevel(
   levels: ReadonlyMap<string, number>,
 ): Op[] {
   const delta = to - from;
-  return doc.nodes.flatMap((n): Op[] => {
-    if ((n.kind === 'restraint' || n.kind === 'cap' || n.kind === 'support') && n.data.levelId === levelId) {
-      return [{ op: 'updateNode', id: n.id, data: { elevation: to } }];
-    }
-    if (n.kind === 'splice' && floorOf(n.data.elevation, levels) === levelId) {
-      return [{ op: 'updateNode', id: n.id, data: { elevation: Math.round((n.data.elevation + delta) * 1e6) / 1e6 } }];
-    }
-    return [];
-  });
+  return doc.nodes.flatMap((n): Op[] =>
+    n.kind === 'splice' && floorOf(n.data.elevation, levels) === levelId
+      ? [{ op: 'updateNode', id: n.id, data: { elevation: Math.round((n.data.elevation + delta) * 1e6) / 1e6 } }]
+      : [],
+  );
 }
 
 export async function planLevelMove(
@@ -64,18 +72,16 @@ export async function planLevelMove(
   const preview: LevelMovePreview = { elevation: to, stacks: [] };
   for (const row of rows) {
     const doc = parseDoc(row.doc);
+    const nodes = tiedCount(doc, levelId);
     const ops = followLevel(doc, levelId, from, to, before.levels);
-    if (!ops.length) continue;
-    const moved = applyOps(doc, ops);
+    if (!nodes && !ops.length) continue;
+    const moved = ops.length ? applyOps(doc, ops) : doc;
     const known = new Set(analyse(doc, before).errors.map((e) => e.message));
     const breaks = analyse(moved, inputs)
       .errors.map((e) => e.message)
       .filter((m) => !known.has(m));
     moves.push({ row, doc: moved, ops });
-    const splices = ops.filter(
-      (op) => op.op === 'updateNode' && doc.nodes.find((n) => n.id === op.id)?.kind === 'splice',
-    ).length;
-    preview.stacks.push({ stackId: row.id, name: row.name, nodes: ops.length - splices, splices, breaks });
+    preview.stacks.push({ stackId: row.id, name: row.name, nodes, splices: ops.length, breaks });
   }
   return { moves, inputs, preview };
 }

@@ -1,5 +1,7 @@
-// Levels of a building. Moving a level moves every restraint, cap and support that sits on it and
-// re-analyses those stacks in the same transaction.
+// Levels of a building. A level's row holds its elevation, the one place it is stored: moving a level moves
+// every restraint, cap and support that sits on it (they are placed on the levels wherever an elevation is
+// read), keeps the splices above it at their offset, and stores those stacks again with their new results in
+// the same transaction (docs/stack-editing.md).
 import type { Knex } from 'knex';
 import type { Level, LevelMovePreview, User } from '../../shared/schema/api.ts';
 import type { StackNode } from '../../shared/schema/stack.ts';
@@ -83,7 +85,7 @@ export async function updateLevel(
   input: { name?: string; elevation?: number },
   user: User,
 ): Promise<Level> {
-  const { level, changes } = await withNameGuard('level', input.name ?? '', () =>
+  const { level, changes, levels } = await withNameGuard('level', input.name ?? '', () =>
     ctx.db.transaction(async (trx) => {
       const before = await loadLevel(trx, buildingId, levelId);
       if (input.name !== undefined) await assertNameFree(trx, 'level', buildingId, input.name, levelId);
@@ -122,10 +124,12 @@ export async function updateLevel(
           );
         }
       }
-      return { level: toLevel(await loadLevel(trx, buildingId, levelId)), changes };
+      const levels = changes.length ? await listLevels(trx, buildingId) : undefined;
+      return { level: toLevel(await loadLevel(trx, buildingId, levelId)), changes, levels };
     }),
   );
-  for (const c of changes) broadcastChange(ctx, c, { userId: user.id, name: user.name });
+  // The stacks' open pages place their tied nodes on the levels they hold: they hear the levels with the change.
+  for (const c of changes) broadcastChange(ctx, c, { userId: user.id, name: user.name }, levels);
   return level;
 }
 

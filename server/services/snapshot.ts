@@ -2,6 +2,7 @@
 // options and the engine version, as canonical JSON (keys sorted) with its SHA-256.
 import { createHash } from 'node:crypto';
 import type { Knex } from 'knex';
+import { placeOnLevels } from '../../shared/engine/stack/placeOnLevels.ts';
 import type { RevisionSnapshot, SnapshotStack } from '../../shared/schema/revisions.ts';
 import { getBuildingOptions } from './buildings.ts';
 import { listLevels } from './levels.ts';
@@ -24,17 +25,24 @@ export const sha256Hex = (text: string): string => createHash('sha256').update(t
 export const byStackName = (a: { name: string; id: number }, b: { name: string; id: number }) =>
   a.name.localeCompare(b.name, 'en', { numeric: true, sensitivity: 'base' }) || a.id - b.id;
 
+/**
+ * Every stack as it stands, its tied nodes placed on the building's levels: a frozen document carries the
+ * elevations its package and comparisons print, beside the levels frozen with it (docs/stack-editing.md).
+ */
 export async function snapshotStacks(db: Knex, buildingId: number): Promise<SnapshotStack[]> {
-  const rows = await db<StackRow>('stacks')
-    .where({ building_id: buildingId })
-    .select('id', 'name', 'version', 'doc', 'results', 'grid_x', 'grid_y', 'web_along');
+  const [rows, levels] = await Promise.all([
+    db<StackRow>('stacks')
+      .where({ building_id: buildingId })
+      .select('id', 'name', 'version', 'doc', 'results', 'grid_x', 'grid_y', 'web_along'),
+    listLevels(db, buildingId),
+  ]);
   return rows
     .map((r) => {
       const stack: SnapshotStack = {
         id: r.id,
         name: r.name,
         version: r.version,
-        doc: parseDoc(r.doc),
+        doc: placeOnLevels(parseDoc(r.doc), levels),
         results: parseResults(r.results),
       };
       const { gridX, gridY, webAlong } = placeOf(r);

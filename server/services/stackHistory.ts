@@ -1,7 +1,9 @@
 // Ops committed since a version, for a client catching up after a reconnect; a stack's history in words and the
 // stack as it was at a version (docs/stack-history.md), rebuilt from its starting document and those ops.
 import type { Knex } from 'knex';
+import type { Level } from '../../shared/schema/api.ts';
 import type { Op } from '../../shared/schema/ops.ts';
+import { placeOnLevels } from '../../shared/engine/stack/placeOnLevels.ts';
 import { isoTime } from '../db.ts';
 import { describeOps } from '../../shared/history/describeOps.ts';
 import type { HistoryEntry, StackAsOf, StackHistory } from '../../shared/history/historyTypes.ts';
@@ -67,12 +69,25 @@ function startingDoc(rows: readonly AuditRow[]): StackDocument | null {
   return parsed.success ? parsed.data : null;
 }
 
-async function levelNames(db: Knex, stackId: number): Promise<Map<string, string>> {
+async function buildingLevels(db: Knex, stackId: number): Promise<Level[]> {
   const rows = await db('levels as l')
     .join('stacks as s', 's.building_id', 'l.building_id')
     .where('s.id', stackId)
-    .select<{ id: number; name: string }[]>('l.id', 'l.name');
-  return new Map(rows.map((r) => [String(r.id), r.name]));
+    .select<{ id: number; name: string; elevation: number }[]>('l.id', 'l.name', 'l.elevation');
+  return rows.map((r) => ({ id: String(r.id), name: r.name, elevation: Number(r.elevation) }));
+}
+
+async function levelNames(db: Knex, stackId: number): Promise<Map<string, string>> {
+  return new Map((await buildingLevels(db, stackId)).map((l) => [l.id, l.name]));
+}
+
+/**
+ * A version with its tied nodes at the building's levels as they stand now: a level's elevation
+ * is stored only in its row, and its moves are in the building's audit, not in the stack's ops.
+ */
+function asOf(version: number, stored: StackDocument, levels: readonly Level[]): StackAsOf {
+  const doc = placeOnLevels(stored, levels);
+  return { version, doc, outline: stackOutline(doc, new Map(levels.map((l) => [l.id, l.name]))) };
 }
 
 /** Every version of the stack, newest first, with who made it, when, and what changed in words. */
@@ -117,10 +132,9 @@ export async function stackHistory(db: Knex, stackId: number): Promise<StackHist
 export async function stackAsOf(db: Knex, stackId: number, version: number): Promise<StackAsOf> {
   const row = await loadStackRow(db, stackId);
   if (version > row.version) throw notFound('Version');
-  const levels = await levelNames(db, stackId);
+  const levels = await buildingLevels(db, stackId);
   if (version === row.version) {
-    const current = parseDoc(row.doc);
-    return { version, doc: current, outline: stackOutline(current, levels) };
+    return asOf(version, parseDoc(row.doc), levels);
   }
   let doc = startingDoc(await auditRows(db, stackId));
   if (!doc)
@@ -131,7 +145,7 @@ export async function stackAsOf(db: Knex, stackId: number, version: number): Pro
     if (c.version > version) break;
     doc = applyOps(doc, c.ops);
   }
-  return { version, doc, outline: stackOutline(doc, levels) };
+  return asOf(version, doc, levels);
 }
 
 /**

@@ -2,7 +2,7 @@
 // channel all come here. Each change is one transaction: check the base version, apply, analyse,
 // store the new version with its results, its ops and an audit row; broadcast after commit.
 import type { Knex } from 'knex';
-import type { User } from '../../shared/schema/api.ts';
+import type { Level, User } from '../../shared/schema/api.ts';
 import type { Op } from '../../shared/schema/ops.ts';
 import type { StackResult } from '../../shared/schema/results.ts';
 import type { StackDocument } from '../../shared/schema/stack.ts';
@@ -172,7 +172,13 @@ export async function replaceDoc(
   });
 }
 
-export function broadcastChange(ctx: ServerContext, c: CommittedChange, by: { userId: number; name: string }): void {
+export function broadcastChange(
+  ctx: ServerContext,
+  c: CommittedChange,
+  by: { userId: number; name: string },
+  /** The building's levels, when the change moved one (docs/live-protocol.md). */
+  levels?: Level[],
+): void {
   try {
     ctx.broadcaster.stackChanged({
       buildingId: c.buildingId,
@@ -181,6 +187,7 @@ export function broadcastChange(ctx: ServerContext, c: CommittedChange, by: { us
       ops: c.ops,
       results: c.results,
       by,
+      ...(levels ? { levels } : {}),
     });
     ctx.broadcaster.buildingStackChanged({
       buildingId: c.buildingId,

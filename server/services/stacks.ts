@@ -1,9 +1,10 @@
 // Stacks of a building: list, read, create (empty, from a document or from a template), rename,
 // delete. Edits to the document go through stackOps.ts.
 import type { Knex } from 'knex';
-import type { StackDetail, StackSummary, StackTemplate, User } from '../../shared/schema/api.ts';
+import type { Level, StackDetail, StackSummary, StackTemplate, User } from '../../shared/schema/api.ts';
 import type { StackDocument } from '../../shared/schema/stack.ts';
 import { stackFromTemplate } from '../../shared/ops/stackFromTemplate.ts';
+import { placeOnLevels } from '../../shared/engine/stack/placeOnLevels.ts';
 import { now } from '../db.ts';
 import { analyse, analysisInputs, resultColumns } from './analysis.ts';
 import { recordAudit } from './audit.ts';
@@ -17,8 +18,19 @@ export async function listStacks(db: Knex, buildingId: number): Promise<StackSum
   return rows.map(toSummary);
 }
 
+/**
+ * A stack as the API sends it, with its building's levels: the document's tied nodes are placed on the levels,
+ * so no reader meets the copy of a level's elevation a stored document may carry (docs/stack-editing.md).
+ */
+export async function getStackWithLevels(db: Knex, id: number): Promise<{ stack: StackDetail; levels: Level[] }> {
+  const row = await loadStackRow(db, id);
+  const levels = await listLevels(db, row.building_id);
+  const stack = toDetail(row);
+  return { stack: { ...stack, doc: placeOnLevels(stack.doc, levels) }, levels };
+}
+
 export async function getStack(db: Knex, id: number): Promise<StackDetail> {
-  return toDetail(await loadStackRow(db, id));
+  return (await getStackWithLevels(db, id)).stack;
 }
 
 export interface NewStack {

@@ -1,6 +1,8 @@
 // Structural edits as single commands: each returns the whole batch of ops for one edit, so the document
 // is never sent (or analysed) in a broken state between the steps, and one undo takes the whole edit back.
-// Pure: the ids of new nodes and edges come from the caller. See docs/stack-editing.md.
+// Pure: the ids of new nodes and edges come from the caller. They read elevations from the document they are
+// given, which is placed on its building's levels first (placeOnLevels; the client's stack store does so), so a
+// tied node's copy of its level's elevation is never what they read. See docs/stack-editing.md.
 import type { Op } from '../schema/ops.ts';
 import type { NodeOf, StackDocument, StackNode } from '../schema/stack.ts';
 import { formatElevation } from '../wording.ts';

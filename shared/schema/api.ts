@@ -7,7 +7,7 @@ import {
   fixitySchema,
   sectionDimsSchema,
   restraintFacesSchema,
-  MAX_ELEVATION_M,
+  elevationSchema,
 } from './stack.ts';
 import { opsSchema } from './ops.ts';
 import { analysisOptionsSchema, type AnalysisOptions, type StackResult } from './results.ts';
@@ -130,19 +130,8 @@ export interface Member {
   invitationMail?: { status: 'pending' | 'sent' | 'failed'; attempts: number; error: string | null };
 }
 
-/**
- * A building level's elevation must lie in a range buildings have (m): from a deep basement to above the
- * tallest towers (common practice, no source). Anything outside is a typing error, refused with the range.
- */
-export const LEVEL_ELEVATION_RANGE = { min: -100, max: 900 } as const;
-const levelElevationSchema = z
-  .number()
-  .finite()
-  .min(
-    LEVEL_ELEVATION_RANGE.min,
-    `must be at least ${LEVEL_ELEVATION_RANGE.min} m: a level deeper than that is not a building level`,
-  )
-  .max(LEVEL_ELEVATION_RANGE.max, `must be at most ${LEVEL_ELEVATION_RANGE.max} m: no building stands that tall`);
+/** A building level's elevation lies in the range every elevation of a building does (shared/schema/stack.ts). */
+const levelElevationSchema = elevationSchema;
 export const createLevelBodySchema = z
   .object({ name: z.string().trim().min(1).max(60), elevation: levelElevationSchema })
   .strict();
@@ -180,7 +169,7 @@ export const stackTemplateSchema = z
     baseElevation: z.number().finite().min(-100).max(100).optional(),
     /** Base, every floor and the top (m), rising; replaces storeys, storeyHeight and baseElevation. */
     elevations: z
-      .array(z.number().finite().min(-MAX_ELEVATION_M).max(MAX_ELEVATION_M))
+      .array(elevationSchema)
       .min(2)
       .max(MAX_TEMPLATE_STOREYS + 1)
       .optional(),

@@ -1,11 +1,18 @@
 // Edit operations on a stack document (docs/contracts.md §Edits). Shared by the REST write and the live channel.
 import { z } from 'zod';
-import { nodeIdSchema, stackEdgeSchema, stackNodeSchema } from './stack.ts';
+import { elevationSchema, nodeIdSchema, stackEdgeSchema, stackNodeSchema } from './stack.ts';
 
 export const opSchema = z.discriminatedUnion('op', [
   z.object({ op: z.literal('addNode'), node: stackNodeSchema }).strict(),
-  // Shallow merge into the node's data; the merged data is validated against the node kind's schema.
-  z.object({ op: z.literal('updateNode'), id: nodeIdSchema, data: z.record(z.string(), z.unknown()) }).strict(),
+  // Shallow merge into the node's data; the merged data is validated against the node kind's schema. An
+  // elevation outside the building range is refused here already, as malformed input (400).
+  z
+    .object({
+      op: z.literal('updateNode'),
+      id: nodeIdSchema,
+      data: z.looseObject({ elevation: elevationSchema.optional() }),
+    })
+    .strict(),
   z
     .object({
       op: z.literal('moveNode'),

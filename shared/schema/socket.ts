@@ -5,6 +5,7 @@ import type { StackDocument } from './stack.ts';
 import type { StackResult } from './results.ts';
 import type { ApiErrorBody } from './errors.ts';
 import type { BuildingModelChanged } from './building.ts';
+import type { Level } from './api.ts';
 
 const stackId = z.number().int().positive();
 
@@ -25,6 +26,8 @@ export interface StackJoinAck {
   doc: StackDocument;
   version: number;
   results: StackResult;
+  /** The building's levels, which place the document's tied nodes (docs/contracts.md §Stack document). */
+  levels?: Level[];
 }
 export interface StackChanged {
   stackId: number;
@@ -32,6 +35,8 @@ export interface StackChanged {
   ops: Op[];
   results: StackResult;
   by: { userId: number; name: string };
+  /** The building's levels after the change, when it moved a level (the document's tied nodes follow them). */
+  levels?: Level[];
 }
 export interface BuildingStackChanged {
   buildingId: number;

@@ -2,13 +2,23 @@
 // Units: metres and kilonewtons. Positions are for drawing only; the analysis never reads them.
 import { z } from 'zod';
 
+/**
+ * Elevations a building has (m), for its levels and every node of its stacks alike: from below a deep basement
+ * to above the tallest towers (common practice, no source). Anything outside is a typing error, refused (400)
+ * with the range in the message.
+ */
+export const ELEVATION_RANGE_M = { min: -100, max: 1000 } as const;
 /** Largest elevation or load we accept: a guard against absurd input, not a design limit. */
-export const MAX_ELEVATION_M = 1000;
+export const MAX_ELEVATION_M = ELEVATION_RANGE_M.max;
 export const MAX_LOAD_KN = 1e6;
 export const MAX_DIMENSION_MM = 5000;
 
 const finite = z.number().refine(Number.isFinite, 'must be a finite number');
-const elevation = finite.min(-MAX_ELEVATION_M).max(MAX_ELEVATION_M);
+/** An elevation in the building range (docs/contracts.md §Stack document). */
+export const elevationSchema = finite
+  .min(ELEVATION_RANGE_M.min, `must be at least \u2212${-ELEVATION_RANGE_M.min} m: no building goes deeper`)
+  .max(ELEVATION_RANGE_M.max, `must be at most +${ELEVATION_RANGE_M.max} m: no building stands that tall`);
+const elevation = elevationSchema;
 const load = finite.min(0, 'must not be negative').max(MAX_LOAD_KN);
 const mm = finite.positive('must be greater than zero').max(MAX_DIMENSION_MM);
 

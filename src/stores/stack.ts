@@ -9,6 +9,7 @@ import type { StackResult } from '@shared/schema/results.ts';
 import type { PresenceUser, StackChanged, StackJoinAck } from '@shared/schema/socket.ts';
 import type { StackDocument } from '@shared/schema/stack.ts';
 import { applyOps as applyOpsToDoc } from '@shared/ops/applyOps.ts';
+import { placeOnLevels } from '@shared/engine/stack/placeOnLevels.ts';
 import { levelsApi } from '@/api/buildings.ts';
 import { apiFetch } from '@/api/http.ts';
 import { connectLive, joinStack, leaveStack, LiveError, selectNodes, sendEdit, type LiveSocket } from '@/api/live.ts';
@@ -49,7 +50,8 @@ export const useStackStore = defineStore('stack', () => {
   /** The stack does not exist or is not shared with this person. */
   const loadMissing = ref(false);
   const buildingName = ref('');
-  /** The building's levels, for naming take-down rows and placing floor restraints (read once on opening). */
+  /** The building's levels: they place the tied nodes and name take-down rows (read on opening, on every join
+   *  and with a change that moved a level). */
   const levels = shallowRef<Level[]>([]);
   const link = ref<LinkState>('connecting');
   const confirmed = shallowRef<StackDocument | null>(null);
@@ -74,12 +76,13 @@ export const useStackStore = defineStore('stack', () => {
   const saving = computed(() => pending.value.length > 0);
   const others = computed(() => presence.value.filter((u) => u.userId !== me));
 
-  /** What the user sees: the server's document with every edit still on its way applied on top. */
+  /** What the user sees: the server's document with every edit still on its way applied on top, its tied
+   *  nodes at their levels' elevations (a copy in the document is never trusted: docs/stack-editing.md). */
   const doc = computed<StackDocument | null>(() => {
     if (!confirmed.value) return null;
     let d = confirmed.value;
     for (const p of pending.value) d = tryApply(d, p.ops) ?? d;
-    return d;
+    return placeOnLevels(d, levels.value);
   });
 
   function tryApply(d: StackDocument, ops: Op[]): StackDocument | null {
@@ -103,7 +106,7 @@ export const useStackStore = defineStore('stack', () => {
         levelsApi.list(detail.buildingId),
       ]);
       if (stackId.value !== id) return;
-      levels.value = [...buildingLevels].sort((a, b) => a.elevation - b.elevation);
+      takeLevels(buildingLevels);
       name.value = detail.name;
       buildingId.value = detail.buildingId;
       buildingName.value = building.name;
@@ -133,6 +136,7 @@ export const useStackStore = defineStore('stack', () => {
   }
 
   function takeServerState(s: StackJoinAck | StackDetail): void {
+    if ('levels' in s && s.levels) takeLevels(s.levels);
     confirmed.value = s.doc;
     version.value = s.version;
     results.value = s.results;
@@ -212,7 +216,9 @@ export const useStackStore = defineStore('stack', () => {
   function onChanged(c: StackChanged): void {
     if (c.stackId !== stackId.value || !confirmed.value) return;
     if (c.version <= version.value) {
-      if (c.version === version.value) results.value = c.results;
+      if (c.version !== version.value) return;
+      if (c.levels) takeLevels(c.levels);
+      results.value = c.results;
       return;
     }
     if (c.version > version.value + 1) return void join();
@@ -233,8 +239,13 @@ export const useStackStore = defineStore('stack', () => {
       confirmed.value = next;
       version.value = c.version;
     }
+    if (c.levels) takeLevels(c.levels);
     results.value = c.results;
     pump();
+  }
+
+  function takeLevels(list: readonly Level[]): void {
+    levels.value = [...list].sort((a, b) => a.elevation - b.elevation);
   }
 
   /** Applies `ops` at once and queues them for the server; false (with a message) when they do not apply. */

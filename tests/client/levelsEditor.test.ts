@@ -68,11 +68,11 @@ describe('levels editor', () => {
     expect(requests).toHaveLength(0);
   });
 
-  it('refuses an elevation beyond the −100 to +900 m range of buildings the API accepts', async () => {
+  it('refuses an elevation beyond the −100 to +1000 m range of buildings the API accepts', async () => {
     const requests = mockFetch({});
     const wrapper = mountEditor();
     await addLevel(wrapper, 'Level 2', '1200');
-    expect(wrapper.text()).toContain('Elevation must be at most 900 m');
+    expect(wrapper.text()).toContain('Elevation must be at most 1000 m');
     expect(requests).toHaveLength(0);
   });
 

@@ -4,7 +4,7 @@ import { afterAll, beforeAll, beforeEach, describe, expect, it, vi } from 'vites
 import { createApp } from 'vue';
 import { Notify, Quasar } from 'quasar';
 import { createPinia, setActivePinia } from 'pinia';
-import type { AuthResponse, Building } from '@shared/schema/api.ts';
+import type { AuthResponse, Building, Level } from '@shared/schema/api.ts';
 import { setToken } from '@/api/http.ts';
 import { connectLive, joinStack, sendEdit } from '@/api/live.ts';
 import { useStackStore } from '@/stores/stack.ts';
@@ -58,7 +58,7 @@ async function register(label: string): Promise<AuthResponse> {
   const db = new Database(join(dataDir, 'stanchion.sqlite'), { readonly: true });
   try {
     let token: string | undefined;
-    for (const until = Date.now() + 15_000; !token && Date.now() < until;) {
+    for (const deadline = Date.now() + 15_000; !token && Date.now() < deadline;) {
       const mail = db.prepare('SELECT text FROM outbox WHERE "to" = ? ORDER BY id DESC').get(email) as
         { text: string } | undefined;
       token = /verify-email\?token=(\S+)/.exec(mail?.text ?? '')?.[1];
@@ -119,10 +119,10 @@ afterAll(() => {
 
 beforeEach(() => setActivePinia(createPinia()));
 
-async function openAs(user: AuthResponse) {
+async function openAs(user: AuthResponse, id = stackId) {
   setToken(user.token);
   const store = useStackStore();
-  await store.open(stackId, { token: user.token, userId: user.user.id, url: baseUrl });
+  await store.open(id, { token: user.token, userId: user.user.id, url: baseUrl });
   await until(() => store.link === 'live');
   return store;
 }
@@ -230,6 +230,33 @@ describe('stack store on the live channel', () => {
     expect(store.canEdit).toBe(false);
     const lift = store.doc?.nodes.find((n) => n.kind === 'lift');
     expect(store.edit([{ op: 'removeNode', id: lift?.id ?? '' }], 'Delete')).toBe(false);
+    store.close();
+  });
+});
+
+describe('stack store and the building levels', () => {
+  it('draws a node tied to a level at the level, and follows the level when a colleague moves it', async () => {
+    const level = (name: string, elevation: number) =>
+      api<Level>('POST', `/buildings/${building.id}/levels`, engineer.token, { name, elevation });
+    await level('Ground', 0);
+    const first = await level('Level 1', 4);
+    await level('Roof', 8);
+    const created = await api<{ id: number }>('POST', `/buildings/${building.id}/stacks`, engineer.token, {
+      name: 'C/5',
+      template: { elevations: [0, 4, 8], sections: ['UKC 203x203x46'], Gk: 100, Qk: 40 },
+    });
+    const store = await openAs(engineer, created.id);
+    const floorOn = () =>
+      store.doc?.nodes.find((n) => n.kind === 'restraint' && n.data.levelId === first.id) as
+        { id: string; data: { elevation: number } } | undefined;
+    expect(floorOn()?.data.elevation).toBe(4);
+    const version = store.version;
+    // The move writes nothing into the stack's nodes: the page places the floor on the level it hears about
+    await api('PATCH', `/buildings/${building.id}/levels/${first.id}`, colleague.token, { elevation: 4.6 });
+    await until(() => store.version === version + 1);
+    expect(store.levels.find((l) => l.id === first.id)?.elevation).toBe(4.6);
+    expect(floorOn()?.data.elevation).toBe(4.6);
+    expect(store.results?.takeDown.map((r) => r.elevation)).toContain(4.6);
     store.close();
   });
 });

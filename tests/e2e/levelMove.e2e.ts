@@ -1,5 +1,6 @@
 // Moving a level in a real browser: the engineer sees which stacks follow before saving, then the stacks
-// follow it with no errors (their floors on the level and the splices above it move with it).
+// follow it with no errors (their floors on the level and the splices above it move with it), drawn at the
+// level in the graph.
 import { expect, it } from 'vitest';
 import {
   DEMO,
@@ -37,6 +38,10 @@ describeInBrowser('moving a level', () => {
 
     await openStack(page, 'C/4');
     expect(await results(page).getByText('cannot be checked').count()).toBe(0);
+    // The floor tied to the level is drawn at the level, though the move wrote nothing into it
+    const titles = page.locator('.vue-flow__node .node-card__title');
+    await titles.filter({ hasText: 'Restraint +7.900' }).first().waitFor();
+    expect(await titles.filter({ hasText: 'Restraint +7.600' }).count()).toBe(0);
     const takeDown = results(page).locator('[data-test="take-down"]');
     await takeDown.scrollIntoViewIfNeeded();
     expect(await takeDown.locator('tr', { hasText: 'Level 2' }).innerText()).toContain('+7.900');

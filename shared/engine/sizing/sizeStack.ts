@@ -7,6 +7,7 @@ import { allLevelElevations, type AnalysisContext } from '../stack/context.ts';
 import { splicesAfterSizing } from '../connections/splicesAfterSizing.ts';
 import { analyseStack } from '../stack/analyseStack.ts';
 import { inspectStack } from '../stack/inspectStack.ts';
+import { placeOnLevels } from '../stack/placeOnLevels.ts';
 import { CLASS_4_REFUSAL } from '../simple/checkSimpleColumn.ts';
 import { liftsUnderMoments } from '../simple/liftsUnderMoments.ts';
 import { hasNominalMoments, sizeWithMoments, type CoupledStack } from './nominalMoments.ts';
@@ -108,12 +109,13 @@ function withClass4Note(
 }
 
 export function sizeStack(
-  doc: StackDocument,
+  stored: StackDocument,
   request: SizingRequest,
   options: Partial<AnalysisOptions> = {},
   context: AnalysisContext = {},
 ): StackSizing {
   const settings: AnalysisOptions = { ...DEFAULT_ANALYSIS_OPTIONS, ...options };
+  const doc = placeOnLevels(stored, context.levels);
   const { model: stack, errors } = inspectStack(doc, context);
   if (!stack) return { errors, lifts: [], serialSize: null, complete: false, massBefore: null, massAfter: null };
 

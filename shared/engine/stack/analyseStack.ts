@@ -16,6 +16,7 @@ import { applyNominalMoments } from '../simple/applyNominalMoments.ts';
 import { checkLift } from './checkLift.ts';
 import { allLevelElevations, type AnalysisContext } from './context.ts';
 import { inspectStack } from './inspectStack.ts';
+import { placeOnLevels } from './placeOnLevels.ts';
 import { stackPieces } from './stackPieces.ts';
 import { selfWeightPerMetre, takeDown } from './takeDown.ts';
 
@@ -29,8 +30,9 @@ export function analyseStack(
   context: AnalysisContext = {},
 ): StackResult {
   const settings: AnalysisOptions = { ...DEFAULT_ANALYSIS_OPTIONS, ...options };
-  // Loads from the building's floors replace those typed on the nodes, for this analysis only
-  const floor = applyFloorLoads(doc, context.floorLoads);
+  // Tied nodes stand at their levels for every part below (connections, nominal moments), not only the model;
+  // loads from the building's floors replace those typed on the nodes, for this analysis only
+  const floor = applyFloorLoads(placeOnLevels(doc, context.levels), context.floorLoads);
   const { model, errors, warnings } = inspectStack(floor.doc, context);
   if (!model) return withErrors(errors, warnings);
   const entries =

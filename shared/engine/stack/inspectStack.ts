@@ -3,7 +3,7 @@ import type { Issue } from '../../schema/results.ts';
 import type { LiftData, StackDocument } from '../../schema/stack.ts';
 import { readAttachments, type ModelRestraint } from './attachments.ts';
 import type { AnalysisContext } from './context.ts';
-import { placeOnLevels } from './placeOnLevels.ts';
+import { lostLevelWarnings, placeOnLevels } from './placeOnLevels.ts';
 import { isLiftSection, resolveLiftSection, type LiftSection } from './liftSections.ts';
 import { schemaIssues } from './schemaIssues.ts';
 import { segmentsAbout, type Segment } from './segments.ts';
@@ -45,7 +45,8 @@ export function inspectStack(doc: StackDocument, context: AnalysisContext = {}):
   const shape = context.shapeChecked ? [] : schemaIssues(doc);
   if (shape.length) return { model: null, errors: shape, warnings };
 
-  const { graph, issues: graphErrors } = buildStackGraph(placeOnLevels(doc, context, warnings));
+  warnings.push(...lostLevelWarnings(doc, context.levels));
+  const { graph, issues: graphErrors } = buildStackGraph(placeOnLevels(doc, context.levels));
   const { chain, issues: chainErrors } = walkStackChain(graph);
   const attached = readAttachments(graph, chain);
   const errors = [...graphErrors, ...chainErrors, ...attached.errors];
