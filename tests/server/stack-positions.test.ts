@@ -1,0 +1,217 @@
+// Typical columns over the API (docs/typical-columns.md): a stack applied to a further grid position is checked
+// there with that position's own floor loads; the governing position is named, refused writes change nothing,
+// and a floor-load change reaches the building room with every position's check.
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import type { Level, StackDetail, StackSummary } from '../../shared/schema/api.ts';
+import type { Grid } from '../../shared/schema/building.ts';
+import {
+  buildingPositionsReplySchema,
+  stackPositionsReplySchema,
+  type StackPositionsReply,
+} from '../../shared/schema/stackPositions.ts';
+import { errorCode, startWithLeadAndBuilding, type TestServer } from './helpers.ts';
+import { connect, next, request } from './liveHelpers.ts';
+
+// Invented grid: x lines A 0, B 6, C 13.5 m; y lines 1 0, 2 7.5 m; no slab beyond the lines.
+const GRID: Grid = {
+  x: {
+    lines: [
+      { id: 'A', name: 'A', position: 0 },
+      { id: 'B', name: 'B', position: 6 },
+      { id: 'C', name: 'C', position: 13.5 },
+    ],
+    edgeBefore: 0,
+    edgeAfter: 0,
+  },
+  y: {
+    lines: [
+      { id: 'y1', name: '1', position: 0 },
+      { id: 'y2', name: '2', position: 7.5 },
+    ],
+    edgeBefore: 0,
+    edgeAfter: 0,
+  },
+};
+const OFFICE = {
+  id: 'office',
+  name: 'Office',
+  permanent: [{ label: 'Slab', gk: 5 }],
+  imposed: { qk: 2.5, category: 'B' },
+};
+const ROOF = { id: 'roof', name: 'Roof', permanent: [{ label: 'Roof', gk: 4 }], imposed: { qk: 0.6, category: 'H' } };
+
+// Hand figures (half the bay each side, no slab beyond the lines):
+// A/1 carries (0 + 6/2)(0 + 7.5/2) = 3 × 3.75 = 11.25 m² per level;
+// B/2 carries (6/2 + 7.5/2)(7.5/2 + 0) = 6.75 × 3.75 = 25.3125 m² per level.
+const A1 = 11.25;
+const B2 = 25.3125;
+
+describe('typical columns over the API', () => {
+  let s: TestServer;
+  let token: string;
+  let buildingId: number;
+  let levels: Level[];
+  let typical: StackSummary;
+  let other: StackSummary;
+  let loose: StackSummary;
+
+  beforeAll(async () => {
+    ({ s, token, buildingId } = await startWithLeadAndBuilding('Typical'));
+    levels = [];
+    for (const [name, elevation] of [
+      ['Ground', 0],
+      ['First', 4],
+      ['Second', 8],
+      ['Roof', 12],
+    ] as const)
+      levels.push(
+        (await s.api('POST', `/buildings/${buildingId}/levels`, { token, body: { name, elevation } })).body as Level,
+      );
+    const template = { elevations: [0, 4, 8, 12], sections: ['UKC 203x203x46'], Gk: 100, Qk: 50 };
+    const create = async (name: string) =>
+      (await s.api('POST', `/buildings/${buildingId}/stacks`, { token, body: { name, template } }))
+        .body as StackSummary;
+    typical = await create('S1');
+    other = await create('S2');
+    loose = await create('S3');
+    await s.api('PUT', `/buildings/${buildingId}/grid`, { token, body: { grid: GRID } });
+    await s.api('PUT', `/buildings/${buildingId}/buildups`, { token, body: { buildups: [OFFICE, ROOF] } });
+    for (const level of levels.slice(1))
+      await s.api('PUT', `/buildings/${buildingId}/levels/${level.id}/floor-load`, {
+        token,
+        body: { buildupId: level.name === 'Roof' ? 'roof' : 'office' },
+      });
+    await s.api('PUT', `/stacks/${typical.id}/placement`, { token, body: { gridX: 'A', gridY: 'y1' } });
+    await s.api('PUT', `/stacks/${other.id}/placement`, { token, body: { gridX: 'C', gridY: 'y1' } });
+  });
+  afterAll(async () => {
+    await s?.close();
+  });
+
+  const detail = async (id: number) => (await s.api('GET', `/stacks/${id}`, { token })).body as StackDetail;
+  const summary = async (id: number) =>
+    ((await s.api('GET', `/buildings/${buildingId}/stacks`, { token })).body as StackSummary[]).find(
+      (x) => x.id === id,
+    )!;
+  const positionRows = () => s.ctx.db('stack_positions').orderBy('id').select();
+
+  it('applies the stack at B/2 and names B/2, the larger tributary area, as governing', async () => {
+    const r = await s.api('POST', `/stacks/${typical.id}/positions`, { token, body: { gridX: 'B', gridY: 'y2' } });
+    expect(r.status).toBe(201);
+    const reply = stackPositionsReplySchema.parse(r.body);
+    expect(reply.positions).toEqual([
+      { id: expect.any(Number), stackId: typical.id, gridX: 'B', gridY: 'y2', webAlong: 'x', name: 'B/2' },
+    ]);
+    expect(reply.results.map((p) => [p.name, p.positionId])).toEqual([
+      ['A/1', null],
+      ['B/2', reply.positions[0]!.id],
+    ]);
+    // Two floors and the roof each: 3 × 11.25 = 33.75 m² and 3 × 25.3125 = 75.9375 m².
+    expect(reply.results[0]!.area).toBeCloseTo(3 * A1, 9);
+    expect(reply.results[1]!.area).toBeCloseTo(3 * B2, 9);
+    expect(reply.governingPosition).toBe('B/2');
+    expect(reply.results[1]!.utilisation!).toBeGreaterThan(reply.results[0]!.utilisation!);
+  });
+
+  it("keeps the stack's own results for its own place, and summarises the type by its governing position", async () => {
+    const d = await detail(typical.id);
+    // A/1 at the first floor: Gk = 5 × 11.25 = 56.25 kN, Qk = 2.5 × 11.25 = 28.125 kN
+    const first = d.results.takeDown.find((t) => t.elevation === 4)!;
+    expect(first.Gk).toBeCloseTo(56.25, 9);
+    expect(first.Qk).toBeCloseTo(28.125, 9);
+    expect(d.results.governingPosition).toBe('B/2');
+    const b2 = d.results.positions!.find((p) => p.name === 'B/2')!;
+    expect((await summary(typical.id)).utilisation).toBeCloseTo(b2.utilisation!, 12);
+    const listed = buildingPositionsReplySchema.parse(
+      (await s.api('GET', `/buildings/${buildingId}/stack-positions`, { token })).body,
+    );
+    expect(listed.stacks.map((x) => [x.stackId, x.governingPosition, x.results.length])).toEqual([
+      [typical.id, 'B/2', 2],
+    ]);
+  });
+
+  it('refuses a crossing that is taken, a grid line the grid lacks, bad bodies and a stack off the grid, changing nothing', async () => {
+    const before = await positionRows();
+    const version = (await detail(typical.id)).version;
+    const post = (id: number, body: unknown) => s.api('POST', `/stacks/${id}/positions`, { token, body });
+    const cases: [number, unknown, number][] = [
+      [typical.id, { gridX: 'B', gridY: 'y2' }, 409], // already a position of this stack
+      [typical.id, { gridX: 'A', gridY: 'y1' }, 409], // its own place
+      [typical.id, { gridX: 'C', gridY: 'y1' }, 409], // another stack's place
+      [other.id, { gridX: 'B', gridY: 'y2' }, 409], // another stack's typical position
+      [typical.id, { gridX: 'Z', gridY: 'y1' }, 422],
+      [loose.id, { gridX: 'B', gridY: 'y1' }, 422], // the stack is off the grid
+      [typical.id, { gridX: 'B' }, 400],
+      [typical.id, { gridX: 'B', gridY: 'y1', extra: 1 }, 400],
+      [typical.id, { gridX: 'B', gridY: 'y1', webAlong: 'z' }, 400],
+      [typical.id, { gridX: 'B b', gridY: 'y1' }, 400],
+      [typical.id, [], 400],
+    ];
+    for (const [id, body, status] of cases) {
+      const r = await post(id, body);
+      expect([JSON.stringify(body), r.status]).toEqual([JSON.stringify(body), status]);
+      expect(errorCode(r.body)).toBeDefined();
+    }
+    expect((await s.api('POST', '/stacks/999999/positions', { token, body: { gridX: 'B', gridY: 'y1' } })).status).toBe(
+      404,
+    );
+    const wrongStack = await s.api('DELETE', `/stacks/${other.id}/positions/${before[0].id}`, { token });
+    expect(wrongStack.status).toBe(404);
+    expect((await s.api('DELETE', `/stacks/${typical.id}/positions/x`, { token })).status).toBe(400);
+    expect(await positionRows()).toEqual(before);
+    expect((await detail(typical.id)).version).toBe(version);
+  });
+
+  it('keeps a typical position free of other stacks, and the type on the grid while it has positions', async () => {
+    const onIt = await s.api('PUT', `/stacks/${other.id}/placement`, { token, body: { gridX: 'B', gridY: 'y2' } });
+    expect(onIt.status).toBe(409);
+    const off = await s.api('PUT', `/stacks/${typical.id}/placement`, { token, body: { gridX: null, gridY: null } });
+    expect(off.status).toBe(409);
+    const without: Grid = { ...GRID, x: { ...GRID.x, lines: GRID.x.lines.filter((l) => l.id !== 'B') } };
+    expect((await s.api('PUT', `/buildings/${buildingId}/grid`, { token, body: { grid: without } })).status).toBe(409);
+    expect((await detail(typical.id)).gridX).toBe('A');
+  });
+
+  it('re-checks every position when a floor load changes, and the building room hears each position', async () => {
+    const live = await connect(s.url, token);
+    try {
+      expect((await request(live, 'building:join', { buildingId })).ok).toBe(true);
+      const heard = next(live, 'building:stack-changed', (p) => p.stackId === typical.id);
+      const r = await s.api('PUT', `/buildings/${buildingId}/levels/${levels[1]!.id}/floor-load`, {
+        token,
+        body: { buildupId: null },
+      });
+      expect(r.status).toBe(200);
+      const event = await heard;
+      // The first floor no longer carries a floor load: the second floor and the roof remain.
+      expect(event.positions?.map((p) => [p.name, p.area])).toEqual([
+        ['A/1', expect.closeTo(2 * A1, 9)],
+        ['B/2', expect.closeTo(2 * B2, 9)],
+      ]);
+      expect(event.governingPosition).toBe('B/2');
+      expect(event.utilisation).toBeCloseTo(event.positions![1]!.utilisation!, 12);
+    } finally {
+      live.close();
+    }
+  });
+
+  it('sizes the type for its worst position', async () => {
+    const r = await s.api('POST', `/stacks/${typical.id}/sizing`, { token, body: { series: 'UKC', grade: 'S355' } });
+    expect(r.status).toBe(200);
+    const lifts = (r.body as { lifts: { before: { utilisation: number } }[] }).lifts;
+    const b2 = (await detail(typical.id)).results.positions!.find((p) => p.name === 'B/2')!;
+    // "before" is the current sections' utilisation at the worst position, lift by lift.
+    expect(lifts.map((l) => l.before.utilisation)).toEqual(b2.lifts.map((l) => expect.closeTo(l.utilisation, 9)));
+  });
+
+  it('takes the position away again: one place, the summary of its own results', async () => {
+    const id = (await positionRows())[0].id as number;
+    const r = await s.api('DELETE', `/stacks/${typical.id}/positions/${id}`, { token });
+    expect(r.status).toBe(200);
+    expect(r.body as StackPositionsReply).toMatchObject({ positions: [], results: [], governingPosition: null });
+    const d = await detail(typical.id);
+    expect(d.results.positions).toBeUndefined();
+    const own = d.results.lifts.find((l) => l.liftId === d.results.governingLiftId)!;
+    expect((await summary(typical.id)).utilisation).toBeCloseTo(own.utilisation, 12);
+  });
+});
