@@ -4,6 +4,7 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type { Level, StackDetail, StackSummary } from '../../shared/schema/api.ts';
 import type { Grid } from '../../shared/schema/building.ts';
+import type { ColumnSchedule } from '../../shared/schedule/columnSchedule.ts';
 import {
   buildingPositionsReplySchema,
   stackPositionsReplySchema,
@@ -202,6 +203,21 @@ describe('typical columns over the API', () => {
     const b2 = (await detail(typical.id)).results.positions!.find((p) => p.name === 'B/2')!;
     // "before" is the current sections' utilisation at the worst position, lift by lift.
     expect(lifts.map((l) => l.before.utilisation)).toEqual(b2.lifts.map((l) => expect.closeTo(l.utilisation, 9)));
+  });
+
+  it('lists each position in the column schedule as rows of one type, with its own utilisation and mass', async () => {
+    const r = await s.api('GET', `/buildings/${buildingId}/schedule`, { token });
+    expect(r.status).toBe(200);
+    const { rows, types } = r.body as ColumnSchedule;
+    const own = rows.filter((x) => x.stackId === typical.id && x.stack === 'A/1');
+    const at = rows.filter((x) => x.stackId === typical.id && x.stack === 'B/2');
+    expect(own.length).toBeGreaterThan(0);
+    expect(at.map((x) => [x.lift, x.type, x.section, x.mass])).toEqual(
+      own.map((x) => [x.lift, x.type, x.section, x.mass]),
+    );
+    const b2 = (await detail(typical.id)).results.positions!.find((p) => p.name === 'B/2')!;
+    expect(at.map((x) => x.utilisation)).toEqual(b2.lifts.map((l) => l.utilisation));
+    expect(types.find((t) => t.type === own[0]!.type)!.stacks).toEqual(expect.arrayContaining(['A/1', 'B/2']));
   });
 
   it('takes the position away again: one place, the summary of its own results', async () => {
