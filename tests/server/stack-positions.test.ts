@@ -10,6 +10,8 @@ import {
   stackPositionsReplySchema,
   type StackPositionsReply,
 } from '../../shared/schema/stackPositions.ts';
+import { analyse, analysisInputs } from '../../server/services/analysis.ts';
+import { loadStackRow, placeOf } from '../../server/services/stackRows.ts';
 import { errorCode, startWithLeadAndBuilding, type TestServer } from './helpers.ts';
 import { connect, next, request } from './liveHelpers.ts';
 
@@ -203,6 +205,24 @@ describe('typical columns over the API', () => {
     const b2 = (await detail(typical.id)).results.positions!.find((p) => p.name === 'B/2')!;
     // "before" is the current sections' utilisation at the worst position, lift by lift.
     expect(lifts.map((l) => l.before.utilisation)).toEqual(b2.lifts.map((l) => expect.closeTo(l.utilisation, 9)));
+  });
+
+  it('re-analyses every position on the worker thread when the lead changes the analysis options', async () => {
+    const before = (await detail(typical.id)).version;
+    const r = await s.api('PATCH', `/buildings/${buildingId}`, {
+      token,
+      body: { options: { bucklingLengths: 'critical' } },
+    });
+    expect(r.status).toBe(200);
+    const d = await detail(typical.id);
+    expect(d.version).toBe(before + 1);
+    expect(d.results.criticalBuckling).toBeDefined();
+    // The same as analysing the stored stack here, on the main thread, with the stored inputs.
+    const inputs = await analysisInputs(s.ctx.db, buildingId);
+    const row = await loadStackRow(s.ctx.db, typical.id);
+    const again = analyse(d.doc, inputs, placeOf(row));
+    expect(d.results.positions).toEqual(again.positions);
+    expect(d.results.governingPosition).toBe('B/2');
   });
 
   it('lists each position in the column schedule as rows of one type, with its own utilisation and mass', async () => {
