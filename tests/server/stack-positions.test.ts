@@ -240,6 +240,40 @@ describe('typical columns over the API', () => {
     expect(types.find((t) => t.type === own[0]!.type)!.stacks).toEqual(expect.arrayContaining(['A/1', 'B/2']));
   });
 
+  it('will not freeze a revision while a further position fails unless that is acknowledged', async () => {
+    // Scale every floor so that A/1 passes and B/2 (2.25 times the area) fails: k = 1/√(uA·uB) puts them near
+    // √(uA/uB) and √(uB/uA), either side of 1 (utilisation is close to proportional to the load here).
+    const now = (await detail(typical.id)).results.positions!;
+    const [uA, uB] = [now[0]!.utilisation!, now[1]!.utilisation!];
+    const k = 1 / Math.sqrt(uA * uB);
+    const scaled = [OFFICE, ROOF].map((b) => ({
+      ...b,
+      permanent: b.permanent.map((p) => ({ ...p, gk: p.gk * k })),
+      imposed: { ...b.imposed, qk: b.imposed.qk * k },
+    }));
+    await s.api('PUT', `/buildings/${buildingId}/buildups`, { token, body: { buildups: scaled } });
+    const checks = (await detail(typical.id)).results.positions!;
+    expect(checks.map((p) => [p.name, p.status])).toEqual([
+      ['A/1', 'passes'],
+      ['B/2', 'fails'],
+    ]);
+    const refused = await s.api('POST', `/buildings/${buildingId}/revisions`, {
+      token,
+      body: { note: 'Typical columns', purpose: 'preliminary' },
+    });
+    expect(refused.status).toBe(422);
+    const reasons = (refused.body as { error: { details: { reasons: { stackId: number; stack: string }[] } } }).error
+      .details.reasons;
+    // The stack is named after its own place, A/1.
+    expect(reasons.filter((r) => r.stackId === typical.id).map((r) => r.stack)).toContain('A/1 at B/2');
+    const frozen = await s.api('POST', `/buildings/${buildingId}/revisions`, {
+      token,
+      body: { note: 'Typical column B/2 to be resized', purpose: 'preliminary', acknowledgeFailingLifts: true },
+    });
+    expect(frozen.status).toBe(201);
+    await s.api('PUT', `/buildings/${buildingId}/buildups`, { token, body: { buildups: [OFFICE, ROOF] } });
+  });
+
   it('takes the position away again: one place, the summary of its own results', async () => {
     const id = (await positionRows())[0].id as number;
     const r = await s.api('DELETE', `/stacks/${typical.id}/positions/${id}`, { token });
