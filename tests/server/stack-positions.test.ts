@@ -1,6 +1,7 @@
 // Typical columns over the API (docs/typical-columns.md): a stack applied to a further grid position is checked
 // there with that position's own floor loads; the governing position is named, refused writes change nothing,
 // and a floor-load change reaches the building room with every position's check.
+import { PDFParse } from 'pdf-parse';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type { Level, StackDetail, StackSummary } from '../../shared/schema/api.ts';
 import type { Grid } from '../../shared/schema/building.ts';
@@ -271,6 +272,24 @@ describe('typical columns over the API', () => {
       body: { note: 'Typical column B/2 to be resized', purpose: 'preliminary', acknowledgeFailingLifts: true },
     });
     expect(frozen.status).toBe(201);
+    // The package says, for the type, every position's utilisation and whose working it prints.
+    const res = await fetch(`${s.url}/api/revisions/${(frozen.body as { id: number }).id}/calc.pdf`, {
+      headers: { Authorization: `Bearer ${token}` },
+    });
+    expect(res.status).toBe(200);
+    const parser = new PDFParse({ data: new Uint8Array(await res.arrayBuffer()) });
+    let text: string;
+    try {
+      text = (await parser.getText()).text.replace(/\s+/g, ' ');
+    } finally {
+      await parser.destroy();
+    }
+    const b2 = checks[1]!.utilisation!.toFixed(3);
+    expect(text).toContain('Typical column at 2 positions');
+    expect(text).toContain(`B/2 ${b2} (governs)`);
+    // The summary of stacks names the position that governs the type.
+    // (its row: name, 2 lifts, no base force of the own place, the governing lift at its position)
+    expect(text).toMatch(/A\/1 2 – L\d at B\/2 UKC 203x203x46/);
     await s.api('PUT', `/buildings/${buildingId}/buildups`, { token, body: { buildups: [OFFICE, ROOF] } });
   });
 
