@@ -293,6 +293,15 @@ describe('typical columns over the API', () => {
     await s.api('PUT', `/buildings/${buildingId}/buildups`, { token, body: { buildups: [OFFICE, ROOF] } });
   });
 
+  it('frees the crossings of a deleted stack', async () => {
+    const spare = await s.api('POST', `/stacks/${other.id}/positions`, { token, body: { gridX: 'C', gridY: 'y2' } });
+    expect(spare.status).toBe(201);
+    expect((await s.api('DELETE', `/stacks/${other.id}`, { token })).status).toBe(204);
+    expect(await s.ctx.db('stack_positions').where({ stack_id: other.id })).toEqual([]);
+    const reused = await s.api('PUT', `/stacks/${loose.id}/placement`, { token, body: { gridX: 'C', gridY: 'y2' } });
+    expect(reused.status).toBe(200);
+  });
+
   it('takes the position away again: one place, the summary of its own results', async () => {
     const id = (await positionRows())[0].id as number;
     const r = await s.api('DELETE', `/stacks/${typical.id}/positions/${id}`, { token });
