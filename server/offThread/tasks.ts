@@ -29,6 +29,8 @@ export interface SizingStack {
   name: string;
   version: number;
   doc: StackDocument;
+  /** A typical column: the document with each further position's loads (docs/typical-columns.md). */
+  positionDocs?: StackDocument[];
 }
 
 export interface BuildingSizingTask {
@@ -41,7 +43,8 @@ export interface BuildingSizingTask {
 
 /** The engine's refusal crosses the thread as data: an Error's own fields do not survive the trip. */
 export type BuildingSizingOutcome =
-  { sizing: BuildingSizing<Omit<SizingStack, 'doc'>> } | { refused: { message: string; code: string } };
+  | { sizing: BuildingSizing<Omit<SizingStack, 'doc' | 'positionDocs'>> }
+  | { refused: { message: string; code: string } };
 
 export function sizeWholeBuilding({
   stacks,

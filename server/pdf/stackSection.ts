@@ -34,6 +34,17 @@ function momentsLine(stack: SnapshotStack, included: boolean): string {
   return 'Nominal moments: included, from the beam reactions on the column faces; the combined check (N+M) is printed beside the axial check.';
 }
 
+/** A typical column (docs/typical-columns.md): every position's utilisation, and whose working follows. */
+function typicalLine(stack: SnapshotStack): string | null {
+  const positions = stack.results.positions;
+  if (!positions?.length) return null;
+  const own = positions.find((p) => p.positionId === null);
+  const each = positions
+    .map((p) => `${p.name} ${ratio(p.utilisation)}${p.name === stack.results.governingPosition ? ' (governs)' : ''}`)
+    .join(' · ');
+  return `Typical column at ${positions.length} positions, each checked with its own floor loads: ${each}. The summary above is that of the governing position; the lifts, take-down and working below are those of ${own?.name ?? 'its own place'}.`;
+}
+
 export function drawStackSection(
   doc: Pdf,
   stack: SnapshotStack,
@@ -52,6 +63,8 @@ export function drawStackSection(
     .fillColor(COLOUR.muted)
     .text(line, MARGIN.left, doc.y, { width: FULL_WIDTH });
   doc.text(momentsLine(stack, momentsIncluded), MARGIN.left, doc.y + 2, { width: FULL_WIDTH });
+  const typical = typicalLine(stack);
+  if (typical) doc.fillColor(COLOUR.ink).text(typical, MARGIN.left, doc.y + 2, { width: FULL_WIDTH });
   // The line above already says when no face reactions give a moment
   for (const w of stack.results.warnings.filter((x) => x.message !== NO_FACE_REACTIONS_NOTE.message))
     doc.fillColor(COLOUR.near).text(`Note: ${w.message}`, MARGIN.left, doc.y + 2, { width: FULL_WIDTH });

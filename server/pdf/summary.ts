@@ -41,17 +41,23 @@ export function drawSummary(doc: Pdf, s: RevisionSnapshot): void {
   ];
   const rows = s.stacks.map((st) => {
     const sum = summariseResult(st.doc, st.results);
+    // A typical column governed away from its own place (docs/typical-columns.md): that position's figures; the
+    // split into axial and N+M and the base force are printed for the own place only, on the stack's pages.
+    const elsewhere = st.results.positions?.find(
+      (p) => p.name === st.results.governingPosition && p.positionId !== null,
+    );
     const gov = st.results.lifts.find((l) => l.liftId === sum.governingLiftId);
-    const both = gov ? liftUtilisations(gov) : null;
-    const base = st.results.lifts[0]?.pieces[0]?.NEd;
+    const both = gov && !elsewhere ? liftUtilisations(gov) : null;
+    const base = elsewhere ? undefined : st.results.lifts[0]?.pieces[0]?.NEd;
+    const mode = elsewhere?.lifts.find((l) => l.liftId === sum.governingLiftId)?.governing ?? gov?.governing;
     return [
       { text: st.name, bold: true },
       String(st.results.lifts.length),
       base === undefined ? '–' : kN(base),
-      gov ? liftName(gov) : '–',
+      gov ? `${liftName(gov)}${elsewhere ? ` at ${elsewhere.name}` : ''}` : '–',
       gov?.section ?? '–',
       gov?.grade ?? '–',
-      gov ? governingShort[gov.governing] : '–',
+      mode ? governingShort[mode as keyof typeof governingShort] : '–',
       ratio(both?.axial ?? null),
       ratio(both?.combined ?? null),
       { text: ratio(sum.utilisation), colour: utilisationColour(sum.utilisation), bold: true },

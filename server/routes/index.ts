@@ -14,6 +14,7 @@ import { registerRevisionRoutes } from './revisions.ts';
 import { registerRobustnessRoutes } from './robustness.ts';
 import { registerScheduleRoutes } from './schedule.ts';
 import { registerStackHistoryRoutes } from './stackHistory.ts';
+import { registerStackPositionRoutes } from './stackPositions.ts';
 import { registerSectionRoutes } from './sections.ts';
 import { registerSizingRoutes } from './sizing.ts';
 import { registerStackRoutes } from './stacks.ts';
@@ -34,6 +35,7 @@ export function createApiRouter(ctx: ServerContext): Router {
   registerRobustnessRoutes(router, ctx);
   registerScheduleRoutes(router, ctx);
   registerStackHistoryRoutes(router, ctx);
+  registerStackPositionRoutes(router, ctx);
   registerDevRoutes(router, ctx);
   registerAdminRoutes(router, ctx);
   return router;

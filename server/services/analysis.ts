@@ -3,6 +3,7 @@
 import type { Knex } from 'knex';
 import { applyFloorLoads } from '../../shared/engine/building/applyFloorLoads.ts';
 import { stackFloorLoads } from '../../shared/engine/building/stackFloorLoads.ts';
+import { positionResult, withPositionResults } from '../../shared/engine/building/typicalColumn.ts';
 import { analyseStack } from '../../shared/engine/index.ts';
 import { ENGINE_VERSION } from '../../shared/engine/version.ts';
 import type { BuildingModel, StackPlacement } from '../../shared/schema/building.ts';
@@ -11,6 +12,7 @@ import type { SectionDims, StackDocument } from '../../shared/schema/stack.ts';
 import { readModel } from './buildingModelStore.ts';
 import { getBuildingOptions } from './buildings.ts';
 import { companySectionMap } from './companySections.ts';
+import { gridRef, positionsByStack, type PositionRow } from './stackPositionRows.ts';
 
 export interface AnalysisInputs {
   options: AnalysisOptions;
@@ -20,6 +22,8 @@ export interface AnalysisInputs {
   sections: Map<string, SectionDims>;
   /** Grid, floor loads and area overrides (docs/building-model.md). */
   model: BuildingModel;
+  /** The further positions of typical columns by stack id (docs/typical-columns.md); none when absent. */
+  positions?: Map<number, PositionRow[]>;
 }
 
 /** A stored stack's place on the grid, for deriving its loads. */
@@ -38,6 +42,7 @@ export async function analysisInputs(db: Knex, buildingId: number): Promise<Anal
     levels,
     sections: await companySectionMap(db, buildingId),
     model: (await readModel(db, buildingId)).model,
+    positions: await positionsByStack(db, buildingId),
   };
 }
 
@@ -54,7 +59,57 @@ export function analyse(doc: StackDocument, inputs: AnalysisInputs, place?: Stac
     shapeChecked: true,
     floorLoads: floorLoadsOf(inputs, place),
   };
-  return { ...analyseStack(doc, inputs.options, options), engineVersion: ENGINE_VERSION };
+  return withPositions(
+    { ...analyseStack(doc, inputs.options, options), engineVersion: ENGINE_VERSION },
+    doc,
+    inputs,
+    place,
+  );
+}
+
+/**
+ * The further positions of a typical column on the grid, each as a place to derive floor loads for. A position
+ * takes no area override (those are by stack): its key in the overrides is never a stack id.
+ */
+export function positionPlaces(inputs: AnalysisInputs, place?: StackPlace) {
+  if (!place || place.gridX === null || place.gridY === null) return [];
+  return (inputs.positions?.get(place.stackId) ?? []).map((p) => ({
+    positionId: p.id,
+    name: gridRef(inputs.model.grid, p.grid_x, p.grid_y) ?? `${p.grid_x}/${p.grid_y}`,
+    place: {
+      stackId: -p.id,
+      gridX: p.grid_x,
+      gridY: p.grid_y,
+      webAlong: p.web_along === 'y' ? 'y' : 'x',
+    } as StackPlace,
+  }));
+}
+
+/**
+ * Own results with the design checked at each further position (docs/typical-columns.md). `worked` holds
+ * results already worked out per position id (on the worker thread); the others are analysed here.
+ */
+export function withPositions(
+  own: StackResult,
+  doc: StackDocument,
+  inputs: AnalysisInputs,
+  place?: StackPlace,
+  worked?: Map<number, StackResult>,
+): StackResult {
+  const further = positionPlaces(inputs, place);
+  if (further.length === 0 || own.positions || !place) return own;
+  const ownName = gridRef(inputs.model.grid, place.gridX!, place.gridY!) ?? `${place.gridX}/${place.gridY}`;
+  const context = { levels: inputs.levels, sections: inputs.sections, shapeChecked: true };
+  return withPositionResults(own, [
+    positionResult({ positionId: null, gridX: place.gridX!, gridY: place.gridY!, name: ownName }, own),
+    ...further.map((p) =>
+      positionResult(
+        { positionId: p.positionId, gridX: p.place.gridX!, gridY: p.place.gridY!, name: p.name },
+        worked?.get(p.positionId) ??
+          analyseStack(doc, inputs.options, { ...context, floorLoads: floorLoadsOf(inputs, p.place) }),
+      ),
+    ),
+  ]);
 }
 
 /**
@@ -77,7 +132,18 @@ export interface ResultSummary {
   liftCount: number;
 }
 
+/** A typical column is summarised by the position that governs it (docs/typical-columns.md). */
 export function summariseResult(doc: StackDocument, results: StackResult): ResultSummary {
+  const typical = results.positions?.find((p) => p.name === results.governingPosition);
+  if (typical)
+    return {
+      utilisation: typical.utilisation,
+      status: typical.status,
+      governingLiftId: typical.governingLiftId,
+      governingLiftLabel: typical.governingLiftLabel,
+      governingSection: typical.governingSection,
+      liftCount: doc.nodes.filter((n) => n.kind === 'lift').length,
+    };
   const governing = results.lifts.find((l) => l.liftId === results.governingLiftId) ?? null;
   const utilisation = results.errors.length === 0 && governing ? governing.utilisation : null;
   let status: StackStatus = 'passes';

@@ -133,6 +133,11 @@ export async function putGrid(
       .select<PlaceRow[]>(...PLACE_COLUMNS);
     const placed = stacks.filter(onGrid);
     const lost = placed.filter((s) => gridRef(grid, s.grid_x!, s.grid_y!) === null);
+    const lostPositions = (
+      await trx('stack_positions').where({ building_id: buildingId }).select('grid_x', 'grid_y')
+    ).filter((p: { grid_x: string; grid_y: string }) => gridRef(grid, p.grid_x, p.grid_y) === null);
+    if (lostPositions.length)
+      throw conflict('Typical columns stand on grid lines this grid no longer has; remove those positions first');
     if (lost.length) {
       throw conflict(
         `Stacks ${lost.map((s) => s.name).join(', ')} stand on grid lines this grid no longer has; take them off the grid first`,
@@ -315,6 +320,10 @@ export async function placeStack(
     const buildingId = row.building_id;
     const { model, version } = await readModel(trx, buildingId);
     let name = row.name;
+    if (placement.gridX === null && (await trx('stack_positions').where({ stack_id: stackId }).first('id')))
+      throw conflict(
+        'The stack stands at further positions as a typical column; remove them before taking it off the grid',
+      );
     if (placement.gridX !== null && placement.gridY !== null) {
       if (!model.grid.x.lines.some((l) => l.id === placement.gridX))
         throw unprocessable(`The grid has no x line ${placement.gridX}`, { gridX: placement.gridX });
@@ -325,6 +334,10 @@ export async function placeStack(
         .whereNot({ id: stackId })
         .first<{ name: string } | undefined>('name');
       if (taken) throw conflict(`Stack ${taken.name} already stands there`);
+      const typical = await trx('stack_positions')
+        .where({ building_id: buildingId, grid_x: placement.gridX, grid_y: placement.gridY })
+        .first('id');
+      if (typical) throw conflict('A typical column already stands there; remove that position first');
       name = gridRef(model.grid, placement.gridX, placement.gridY)!;
       const clash = await trx('stacks')
         .where({ building_id: buildingId })

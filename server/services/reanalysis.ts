@@ -5,7 +5,7 @@
 import type { AnalysisOptions, StackResult } from '../../shared/schema/results.ts';
 import type { ServerContext } from '../context.ts';
 import { ENGINE_VERSION } from '../../shared/engine/version.ts';
-import { analysisInputs, floorLoadsOf, type AnalysisInputs } from './analysis.ts';
+import { analysisInputs, floorLoadsOf, positionPlaces, withPositions, type AnalysisInputs } from './analysis.ts';
 import { parseOptions } from './buildings.ts';
 import { parseDoc, placeOf, type StackRow } from './stackRows.ts';
 
@@ -17,7 +17,11 @@ export interface Precomputed {
 
 export function inputsKey(inputs: AnalysisInputs): string {
   const options = Object.entries(inputs.options).sort(([a], [b]) => a.localeCompare(b));
-  return JSON.stringify([[...inputs.levels], [...inputs.sections], options, inputs.model ?? null]);
+  const positions = [...(inputs.positions ?? [])].map(([id, rows]) => [
+    id,
+    rows.map((r) => [r.id, r.grid_x, r.grid_y]),
+  ]);
+  return JSON.stringify([[...inputs.levels], [...inputs.sections], options, inputs.model ?? null, positions]);
 }
 
 /** Worker-thread results under the new options when they ask for the critical buckling analysis; null otherwise. */
@@ -37,29 +41,44 @@ export async function precomputeReanalysis(
     .where({ building_id: buildingId })
     .select('id', 'name', 'version', 'doc', 'grid_x', 'grid_y', 'web_along');
   const inputs = { ...(await analysisInputs(ctx.db, buildingId)), options };
+  const docs = new Map(rows.map((r) => [r.id, parseDoc(r.doc)]));
+  // A typical column's further positions go to the worker too, as stacks of their own under the negated position id.
+  const further = rows.flatMap((r) =>
+    positionPlaces(inputs, placeOf(r)).map((p) => ({
+      id: -p.positionId,
+      name: `${r.name} at ${p.name}`,
+      doc: docs.get(r.id)!,
+      floorLoads: floorLoadsOf(inputs, p.place),
+    })),
+  );
   const analysed = await ctx.offThread.analyseBuilding(
     {
-      stacks: rows.map((r) => ({
-        id: r.id,
-        name: r.name,
-        doc: parseDoc(r.doc),
-        floorLoads: floorLoadsOf(inputs, placeOf(r)),
-      })),
+      stacks: [
+        ...rows.map((r) => ({
+          id: r.id,
+          name: r.name,
+          doc: docs.get(r.id)!,
+          floorLoads: floorLoadsOf(inputs, placeOf(r)),
+        })),
+        ...further,
+      ],
       options,
       levels: inputs.levels,
       sections: inputs.sections,
     },
     `building:${buildingId}`,
   );
-  const version = new Map(rows.map((r) => [r.id, r.version]));
+  const results = new Map(
+    analysed.map((a) => [a.id, { ...(JSON.parse(a.resultJson) as StackResult), engineVersion: ENGINE_VERSION }]),
+  );
   const byStack = new Map(
-    analysed.map((a) => [
-      a.id,
-      {
-        version: version.get(a.id) ?? -1,
-        results: { ...(JSON.parse(a.resultJson) as StackResult), engineVersion: ENGINE_VERSION },
-      },
-    ]),
+    rows.map((r) => {
+      const worked = new Map(
+        positionPlaces(inputs, placeOf(r)).map((p) => [p.positionId, results.get(-p.positionId)!]),
+      );
+      const own = withPositions(results.get(r.id)!, docs.get(r.id)!, inputs, placeOf(r), worked);
+      return [r.id, { version: r.version, results: own }];
+    }),
   );
   return { inputsKey: inputsKey(inputs), byStack };
 }

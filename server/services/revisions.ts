@@ -67,6 +67,7 @@ export interface FreezeInput {
 }
 
 interface FailingLift {
+  stackId: number;
   stack: string;
   liftId: string;
   /** L1, L2, … as people read it (the node id is only for linking). */
@@ -83,6 +84,10 @@ function validationReasons(stacks: SnapshotStack[]): FreezeRefusal['reasons'] {
       reasons.push({ stackId: s.id, stack: s.name, ...(e.nodeId ? { nodeId: e.nodeId } : {}), message: e.message });
     if (s.results.errors.length === 0 && s.results.lifts.length === 0)
       reasons.push({ stackId: s.id, stack: s.name, message: 'The stack has no lifts to check' });
+    // A typical column's further positions (docs/typical-columns.md): errors there stop a freeze too.
+    for (const p of s.results.positions ?? [])
+      if (p.positionId !== null)
+        for (const message of p.errors) reasons.push({ stackId: s.id, stack: `${s.name} at ${p.name}`, message });
   }
   return reasons;
 }
@@ -93,12 +98,30 @@ const failingLifts = (stacks: SnapshotStack[]): FailingLift[] =>
     s.results.lifts
       .filter((l) => l.utilisation > 1)
       .map((l) => ({
+        stackId: s.id,
         stack: s.name,
         liftId: l.liftId,
         label: l.label ?? 'lift',
         section: l.section,
         utilisation: l.utilisation,
-      })),
+      }))
+      .concat(
+        // A typical column fails where any of its further positions fails (docs/typical-columns.md).
+        (s.results.positions ?? [])
+          .filter((p) => p.positionId !== null)
+          .flatMap((p) =>
+            p.lifts
+              .filter((l) => l.utilisation > 1)
+              .map((l) => ({
+                stackId: s.id,
+                stack: `${s.name} at ${p.name}`,
+                liftId: l.liftId,
+                label: l.label,
+                section: s.results.lifts.find((own) => own.liftId === l.liftId)?.section ?? '',
+                utilisation: l.utilisation,
+              })),
+          ),
+      ),
   );
 
 function acknowledgementText(failing: FailingLift[], user: User): string {
@@ -185,7 +208,7 @@ async function freezeIn(
       const message = `${failing.length} lift${failing.length === 1 ? '' : 's'} exceed utilisation 1.0: acknowledge this and say why in the note to freeze anyway`;
       throw unprocessable(message, {
         reasons: failing.map((f) => ({
-          stackId: stacks.find((s) => s.name === f.stack)?.id ?? 0,
+          stackId: f.stackId,
           stack: f.stack,
           nodeId: f.liftId,
           message: `Lift ${f.label} (${f.section}) has utilisation ${f.utilisation.toFixed(3)}`,

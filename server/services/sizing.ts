@@ -2,12 +2,18 @@
 // building, with the building's analysis options and levels. Nothing is stored; accepting goes
 // through the ordinary edit path (ops), from the client.
 import type { Knex } from 'knex';
-import { isEngineError, sizeStack } from '../../shared/engine/index.ts';
+import { isEngineError, sizeTypicalColumn } from '../../shared/engine/index.ts';
+import type { StackDocument } from '../../shared/schema/stack.ts';
 import type { BuildingSizingPreview, SizingRequest, StackSizingPreview } from '../../shared/schema/sizing.ts';
 import type { ServerContext } from '../context.ts';
 import { unprocessable } from '../errors.ts';
-import { analysisInputs, withDerivedLoads } from './analysis.ts';
+import { analysisInputs, positionPlaces, withDerivedLoads, type AnalysisInputs, type StackPlace } from './analysis.ts';
 import { loadStackRow, parseDoc, placeOf, type StackRow } from './stackRows.ts';
+
+/** The document with the loads of each place the stack stands at: its own first, then a typical column's others. */
+function positionDocs(doc: StackDocument, inputs: AnalysisInputs, place: StackPlace): StackDocument[] {
+  return [place, ...positionPlaces(inputs, place).map((p) => p.place)].map((at) => withDerivedLoads(doc, inputs, at));
+}
 
 /** The engine refuses a request (an allowed name not in the series) with EngineError: a 422 here. */
 function engineRefusal<T>(run: () => T): T {
@@ -26,9 +32,10 @@ export async function stackSizingPreview(
 ): Promise<StackSizingPreview> {
   const row = await loadStackRow(db, stackId);
   const inputs = await analysisInputs(db, row.building_id);
-  const doc = withDerivedLoads(parseDoc(row.doc), inputs, placeOf(row));
+  // A typical column is sized for every position it stands at (docs/typical-columns.md).
+  const docs = positionDocs(parseDoc(row.doc), inputs, placeOf(row));
   const sizing = engineRefusal(() =>
-    sizeStack(doc, request, inputs.options, { levels: inputs.levels, sections: inputs.sections }),
+    sizeTypicalColumn(docs, request, inputs.options, { levels: inputs.levels, sections: inputs.sections }),
   );
   return { stackId: row.id, name: row.name, version: row.version, ...sizing };
 }
@@ -45,13 +52,17 @@ export async function buildingSizingPreview(
     .orderBy('name')
     .orderBy('id')
     .select('id', 'name', 'version', 'doc', 'grid_x', 'grid_y', 'web_along');
-  const { model, ...inputs } = await analysisInputs(ctx.db, buildingId);
-  const stacks = rows.map((r) => ({
-    stackId: r.id,
-    name: r.name,
-    version: r.version,
-    doc: withDerivedLoads(parseDoc(r.doc), { model, ...inputs }, placeOf(r)),
-  }));
+  const { model, positions, ...inputs } = await analysisInputs(ctx.db, buildingId);
+  const stacks = rows.map((r) => {
+    const [doc, ...others] = positionDocs(parseDoc(r.doc), { model, positions, ...inputs }, placeOf(r));
+    return {
+      stackId: r.id,
+      name: r.name,
+      version: r.version,
+      doc: doc!,
+      ...(others.length ? { positionDocs: others } : {}),
+    };
+  });
   const outcome = await ctx.offThread.sizeBuilding({ stacks, request, ...inputs }, `building:${buildingId}`);
   if ('refused' in outcome) throw unprocessable(outcome.refused.message, { code: outcome.refused.code });
   return { buildingId, ...outcome.sizing };

@@ -15,6 +15,7 @@ import {
   analysisInputs,
   resultColumns,
   summariseResult,
+  withPositions,
   type AnalysisInputs,
   type ResultSummary,
 } from './analysis.ts';
@@ -45,7 +46,10 @@ export async function commitDoc(
   /** Results worked out beforehand (on the worker thread) for exactly this document and these inputs. */
   precomputed?: StackResult,
 ): Promise<CommittedChange> {
-  const results = precomputed ?? analyse(change.doc, inputs, placeOf(row));
+  // Results worked out elsewhere carry the stack's own place; a typical column's further positions are added here.
+  const results = precomputed
+    ? withPositions(precomputed, change.doc, inputs, placeOf(row))
+    : analyse(change.doc, inputs, placeOf(row));
   const version = row.version + 1;
   const columns = {
     doc: JSON.stringify(change.doc),
@@ -198,6 +202,9 @@ export function broadcastChange(
       governingLiftLabel: c.summary.governingLiftLabel,
       governingSection: c.summary.governingSection,
       status: c.summary.status,
+      ...(c.results.positions
+        ? { positions: c.results.positions, governingPosition: c.results.governingPosition }
+        : {}),
     });
   } catch (e) {
     // The change is committed; a failed notification must not turn it into an error reply.

@@ -80,6 +80,28 @@ export interface ColumnSchedule {
   note: string;
 }
 
+/**
+ * A typical column (docs/typical-columns.md) is built once per position: each position is a stack of the
+ * schedule under its crossing's name, with the same lifts (so the same type) and its own utilisations.
+ * A position the design cannot be checked at is carried as results with its errors.
+ */
+function atEachPosition(stack: ScheduleStackInput): ScheduleStackInput[] {
+  const { positions } = stack.results;
+  if (!positions?.length) return [stack];
+  return positions.map((p) => {
+    const own = new Map(p.lifts.map((l) => [l.liftId, l]));
+    const results: StackResult = {
+      ...stack.results,
+      errors: p.errors.length ? p.errors.map((message) => ({ message })) : stack.results.errors,
+      lifts: stack.results.lifts.map((l) => {
+        const at = own.get(l.liftId);
+        return at ? { ...l, utilisation: at.utilisation, governing: at.governing as typeof l.governing } : l;
+      }),
+    };
+    return { ...stack, name: p.positionId === null ? stack.name : p.name, results };
+  });
+}
+
 /** Elevations closer than this are the same level (m): stored elevations are typed to the millimetre. */
 const SAME_LEVEL_M = 0.0005;
 
@@ -115,8 +137,12 @@ const signature = (rows: readonly ScheduleRow[]): string =>
 
 /** Numbers the types in schedule order and marks each row with its stack's type. */
 function groupTypes(rows: ScheduleRow[]): ColumnType[] {
-  const byStack = new Map<number, ScheduleRow[]>();
-  for (const r of rows) byStack.set(r.stackId, [...(byStack.get(r.stackId) ?? []), r]);
+  // By stack and name: the positions of a typical column share a stack id.
+  const byStack = new Map<string, ScheduleRow[]>();
+  for (const r of rows) {
+    const key = `${r.stackId}\u0000${r.stack}`;
+    byStack.set(key, [...(byStack.get(key) ?? []), r]);
+  }
   const types = new Map<string, ColumnType>();
   for (const stackRows of byStack.values()) {
     const key = signature(stackRows);
@@ -140,7 +166,7 @@ export function buildColumnSchedule(
   const seriesGrade = new Map<string, { series: string; grade: string; mass: number }>();
   let total = 0;
 
-  for (const stack of [...stacks].sort(byName)) {
+  for (const stack of stacks.flatMap(atEachPosition).sort(byName)) {
     const { doc, results } = stack;
     if (results.errors.length > 0 || results.lifts.length === 0) {
       const reason = results.errors.map((e) => e.message).join('; ') || 'The stack has no lifts';

@@ -4,3 +4,4 @@ export * from './errors.ts';
 export * from './results.ts';
 export * from './api.ts';
 export * from './socket.ts';
+export * from './stackPositions.ts';

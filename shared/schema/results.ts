@@ -3,6 +3,7 @@
 // schemas.
 import { z } from 'zod';
 import { concreteClassSchema } from './stack.ts';
+import type { PositionResult } from './stackPositions.ts';
 
 export const analysisOptionsSchema = z
   .object({
@@ -217,6 +218,13 @@ export interface StackResult {
   splices?: SpliceCheck[];
   /** Base plate check at the support. */
   base?: BaseCheck;
+  /**
+   * A typical column (docs/typical-columns.md): the same design checked at each position it stands at, its
+   * own place first. The rest of these results are those of its own place. Absent for a stack at one place.
+   */
+  positions?: PositionResult[];
+  /** The name of the position whose check governs, with `positions`. */
+  governingPosition?: string;
 }
 
 /** 'not-given': the engineer has not given the detail (or the building the class) the check needs. */

@@ -6,6 +6,7 @@ import type { StackResult } from './results.ts';
 import type { ApiErrorBody } from './errors.ts';
 import type { BuildingModelChanged } from './building.ts';
 import type { Level } from './api.ts';
+import type { PositionResult } from './stackPositions.ts';
 
 const stackId = z.number().int().positive();
 
@@ -47,6 +48,9 @@ export interface BuildingStackChanged {
   governingLiftLabel: string | null;
   governingSection: string | null;
   status: 'passes' | 'fails' | 'errors';
+  /** A typical column: each position's check and the one that governs (docs/typical-columns.md). */
+  positions?: PositionResult[];
+  governingPosition?: string;
 }
 
 export interface SessionEnded {

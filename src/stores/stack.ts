@@ -57,6 +57,8 @@ export const useStackStore = defineStore('stack', () => {
   const confirmed = shallowRef<StackDocument | null>(null);
   const version = ref(0);
   const results = shallowRef<StackResult | null>(null);
+  /** The x line of the stack's place on the grid when it was opened; null off the grid (docs/building-model.md). */
+  const gridX = ref<string | null>(null);
   const pending = shallowRef<PendingEdit[]>([]);
   const selection = ref<string[]>([]);
   const presence = shallowRef<PresenceUser[]>([]);
@@ -109,6 +111,7 @@ export const useStackStore = defineStore('stack', () => {
       takeLevels(buildingLevels);
       name.value = detail.name;
       buildingId.value = detail.buildingId;
+      gridX.value = detail.gridX ?? null;
       buildingName.value = building.name;
       role.value = building.role;
       takeServerState(detail);
@@ -314,6 +317,7 @@ export const useStackStore = defineStore('stack', () => {
     stackId,
     name,
     buildingId,
+    gridX,
     buildingName,
     levels,
     lastChange,

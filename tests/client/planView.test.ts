@@ -73,6 +73,52 @@ describe('plan geometry', () => {
   });
 });
 
+describe('a typical column on the plan', () => {
+  const check = (positionId: number | null, name: string, gridX: string, gridY: string, utilisation: number) => ({
+    positionId,
+    gridX,
+    gridY,
+    name,
+    area: 10,
+    utilisation,
+    status: 'passes' as const,
+    governingLiftId: 'l1',
+    governingLiftLabel: 'L1',
+    governingSection: 'UKC 203x203x46',
+    lifts: [],
+    errors: [],
+  });
+  // Stack 1 (own place B/2) also stands at A/1 and A/2; A/2 carries the most and governs.
+  const TYPICAL = new Map([
+    [
+      1,
+      {
+        results: [
+          check(null, 'B/2', 'B', 'y2', 0.62),
+          check(5, 'A/1', 'A', 'y1', 0.4),
+          check(6, 'A/2', 'A', 'y2', 0.81),
+        ],
+        governingPosition: 'A/2',
+      },
+    ],
+  ]);
+
+  it('draws a marker at every position, each in its own utilisation, and marks the governing one', () => {
+    expect(planStacks(GRID, STACKS, TYPICAL).map((m) => [m.key, m.name, m.x, m.y, m.utilisation, !!m.governs])).toEqual(
+      [
+        ['1:own', 'B/2', 6, 7.5, 0.62, false],
+        ['1:5', 'A/1', 0, 0, 0.4, false],
+        ['1:6', 'A/2', 0, 7.5, 0.81, true],
+        ['2', 'C/1', 13.5, 0, 1.04, false],
+      ],
+    );
+  });
+
+  it('counts the positions of a typical column as taken crossings', () => {
+    expect(freeCrossings(GRID, STACKS, TYPICAL).map((c) => `${c.gridX}/${c.gridY}`)).toEqual(['B/y1', 'C/y2']);
+  });
+});
+
 describe('plan view', () => {
   function mountPlan() {
     setActivePinia(createPinia());

@@ -8,6 +8,7 @@ import {
   describeInBrowser,
   graphNode,
   openDemoBuilding,
+  openStack,
   properties,
   screenshot,
   selectNode,
@@ -93,5 +94,27 @@ describeInBrowser('grid, floor loads and the plan view', () => {
     await pickOption(engineer, 'floor-buildup-Level 1', 'Build-up 2');
     await expect.poll(() => watched.getAttribute('data-band'), { timeout: 10_000, interval: 100 }).toBe('over');
     await screenshot(lead, 'plan-view-recoloured');
+
+    // The engineer applies the stack at B/2 as well: one design, B/2 checked with its own floor
+    await openStack(engineer, 'A/1');
+    await engineer.locator('[data-test="open-positions"]').click();
+    await engineer.locator('[data-test="positions-dialog"]').waitFor();
+    await pickOption(engineer, 'position-add-x', 'B');
+    await pickOption(engineer, 'position-add-y', '2');
+    await engineer.locator('[data-test="position-add"]').click();
+    const row = engineer.locator('[data-test="position-row-B/2"]');
+    await row.waitFor();
+    await engineer.locator('[data-test="position-row-A/1"]').waitFor();
+    expect(await engineer.locator('[data-test="position-governs"]').count()).toBe(1);
+    await screenshot(engineer, 'stack-positions');
+
+    // The plan in the colleague's browser shows both positions, each in its own colour, without a reload
+    const second = lead.locator('[data-test="plan-stack-B/2"]');
+    await second.waitFor({ timeout: 10_000 });
+    await watched.waitFor();
+    // B/2 carries Level 1 as heavy as A/1 does (a corner of the same grid): it is over-utilised too
+    expect(await second.getAttribute('data-band')).toBe('over');
+    expect(await lead.locator('[data-test^="plan-stack-"][data-governs="yes"]').count()).toBe(1);
+    await screenshot(lead, 'plan-view-typical-column');
   });
 });

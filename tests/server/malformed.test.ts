@@ -27,6 +27,7 @@ const TABLES = [
   'mail_queue',
   'revision_packages',
   'building_models',
+  'stack_positions',
 ];
 const HUGE = JSON.stringify({ name: 'x'.repeat(1_200_000) });
 
@@ -414,6 +415,28 @@ describe('malformed input on every writing route', () => {
         ['grid lines the building does not have', { body: { gridX: 'A', gridY: 'y1' } }],
         ['an unknown web direction', { body: { gridX: null, gridY: null, webAlong: 'z' } }],
         ['a stack id of 0', { path: '/stacks/0/placement', body: { gridX: null, gridY: null } }],
+      ],
+    },
+    {
+      name: 'POST /api/stacks/:id/positions',
+      method: 'POST',
+      path: () => `/stacks/${ids.stack}/positions`,
+      cases: () => [
+        ['one grid line without the other', { body: { gridX: 'A' } }],
+        ['a grid line id with a space', { body: { gridX: 'A b', gridY: 'y1' } }],
+        ['an unknown web direction', { body: { gridX: 'A', gridY: 'y1', webAlong: 'z' } }],
+        ['a stack off the grid', { body: { gridX: 'A', gridY: 'y1' } }],
+        ['a stack id of 0', { path: '/stacks/0/positions', body: { gridX: 'A', gridY: 'y1' } }],
+      ],
+    },
+    {
+      name: 'DELETE /api/stacks/:id/positions/:positionId',
+      method: 'DELETE',
+      bodyless: true,
+      path: () => `/stacks/${ids.stack}/positions/1`,
+      cases: () => [
+        ['a position id that is not a number', { path: `/stacks/${ids.stack}/positions/one` }],
+        ['a position the stack does not have', { path: `/stacks/${ids.stack}/positions/999999` }],
       ],
     },
     {

@@ -39,6 +39,8 @@ interface Fixture {
   revisionId: number;
   /** A verification link of an account registered for the matrix. */
   verifyToken: string;
+  /** A further position of the stack, where a case's `prepare` made one (typical columns). */
+  positionId?: number;
 }
 interface Case {
   path: (f: Fixture) => string;
@@ -46,6 +48,8 @@ interface Case {
   expect: Record<Actor, number>;
   /** The route ends the caller's sessions: the actor signs in again before the next case. */
   endsSession?: boolean;
+  /** Sets up what the route needs beyond the fixture, as the lead. */
+  prepare?: (s: TestServer, lead: string, f: Fixture) => Promise<Partial<Fixture>>;
 }
 
 const LEAD_EMAIL = 'matrix-lead@example.test';
@@ -75,7 +79,37 @@ const MATRIX_GRID = {
   y: { lines: [{ id: 'y1', name: '1', position: 0 }] },
 };
 
+/** Puts the fixture's stack on A/1 of a two-crossing grid; with `position`, makes it stand at B/1 too. */
+async function typicalColumn(s: TestServer, lead: string, f: Fixture, position: boolean): Promise<Partial<Fixture>> {
+  const grid = {
+    x: { lines: [MATRIX_GRID.x.lines[0], { id: 'B', name: 'B', position: 6 }] },
+    y: MATRIX_GRID.y,
+  };
+  await s.api('PUT', `/buildings/${f.buildingId}/grid`, { token: lead, body: { grid } });
+  await s.api('PUT', `/stacks/${f.stackId}/placement`, { token: lead, body: { gridX: 'A', gridY: 'y1' } });
+  if (!position) return {};
+  const r = await s.api('POST', `/stacks/${f.stackId}/positions`, { token: lead, body: { gridX: 'B', gridY: 'y1' } });
+  return { positionId: (r.body as { positions: { id: number }[] }).positions[0]!.id };
+}
+
 const MATRIX: Record<string, Case> = {
+  'GET /api/buildings/:id/stack-positions': {
+    path: (f) => `/buildings/${f.buildingId}/stack-positions`,
+    prepare: (s, lead, f) => typicalColumn(s, lead, f, true),
+    expect: read,
+  },
+  'GET /api/stacks/:id/positions': { path: (f) => `/stacks/${f.stackId}/positions`, expect: read },
+  'POST /api/stacks/:id/positions': {
+    path: (f) => `/stacks/${f.stackId}/positions`,
+    body: () => ({ gridX: 'B', gridY: 'y1' }),
+    prepare: (s, lead, f) => typicalColumn(s, lead, f, false),
+    expect: edit(201),
+  },
+  'DELETE /api/stacks/:id/positions/:positionId': {
+    path: (f) => `/stacks/${f.stackId}/positions/${f.positionId}`,
+    prepare: (s, lead, f) => typicalColumn(s, lead, f, true),
+    expect: edit(200),
+  },
   'GET /api/health': { path: () => '/health', expect: all(200) },
   'POST /api/auth/register': {
     path: () => '/auth/register',
@@ -395,7 +429,8 @@ describe('the role matrix', () => {
     it(`${route}: ${ACTORS.map((a) => `${a} ${c.expect[a]}`).join(', ')}`, async () => {
       const got: Record<string, number> = {};
       for (const actor of ACTORS) {
-        const f = await fixture();
+        const base = await fixture();
+        const f = { ...base, ...(await c.prepare?.(s, tokens.lead.token, base)) };
         const [method] = route.split(' ');
         const token = actor === 'anonymous' ? null : tokens[actor].token;
         got[actor] = (await s.api(method, c.path(f), { token, body: c.body?.(f, actor) })).status;

@@ -1,4 +1,4 @@
-export { sizeStack } from './sizeStack.ts';
+export { sizeStack, sizeTypicalColumn } from './sizeStack.ts';
 export { sizeBuilding, type BuildingSizing } from './sizeBuilding.ts';
 export { serialSize } from './serialSize.ts';
 export { sizingCandidates, checkableCandidates, type Candidate, type GradedCandidate } from './sizingCandidates.ts';
@@ -12,4 +12,4 @@ export {
   NOTHING_ABOVE,
   type LoadFromAbove,
 } from './liftUtilisation.ts';
-export { sizeLifts, currentUtilisations, type LiftPick, type SizingRules } from './sizeLifts.ts';
+export { sizeLifts, sizeLiftsAcross, currentUtilisations, type LiftPick, type SizingRules } from './sizeLifts.ts';

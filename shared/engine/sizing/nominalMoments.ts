@@ -72,6 +72,8 @@ function blockBelowNone(picks: LiftPick[]): void {
 /** What the moment-aware search needs besides the candidates: the stack, its lifts and the rules. */
 export interface CoupledStack {
   doc: StackDocument;
+  /** The same design at a typical column's further positions, each with its own loads (docs/typical-columns.md). */
+  others?: readonly StackDocument[];
   liftIds: readonly string[];
   /** m, bottom lift first */
   lengths: readonly number[];
@@ -117,19 +119,35 @@ export function sizeWithMoments(
   return lighten(stack, raised, lists, lowest);
 }
 
+/** Each lift's utilisation with the picks, the largest over every position of the design; null with errors. */
+function utilisationsWith(
+  { doc, others = [], liftIds, request, options, context }: CoupledStack,
+  picks: readonly LiftPick[],
+): number[] | null {
+  let out: number[] | null = null;
+  for (const at of [doc, ...others]) {
+    const result = analyseStack(withPicks(at, liftIds, picks, request), options, context);
+    if (result.errors.length > 0) return null;
+    const own = result.lifts.map((l) => l.utilisation);
+    out = out ? out.map((u, i) => Math.max(u, own[i]!)) : own;
+  }
+  return out;
+}
+
 function raiseUntilPassing(
-  { doc, liftIds, request, options, context }: CoupledStack,
+  stack: CoupledStack,
   axial: readonly LiftPick[],
   lists: readonly (readonly GradedCandidate[])[],
 ): LiftPick[] {
+  const { request } = stack;
   const picks = [...axial];
   for (;;) {
-    const result = analyseStack(withPicks(doc, liftIds, picks, request), options, context);
-    if (result.errors.length > 0) return picks.map((p) => (p.kind === 'section' ? { kind: 'none' } : p));
+    const found = utilisationsWith(stack, picks);
+    if (!found) return picks.map((p) => (p.kind === 'section' ? { kind: 'none' } : p));
     let raised = false;
     for (const [i, pick] of picks.entries()) {
       if (pick.kind !== 'section') continue;
-      const utilisation = result.lifts[i].utilisation;
+      const utilisation = found[i]!;
       if (utilisation <= request.target) {
         picks[i] = { ...pick, utilisation };
         continue;
@@ -152,15 +170,15 @@ const everyLiftPicked = (picks: readonly LiftPick[]): picks is readonly Picked[]
   picks.every((p) => p.kind === 'section');
 
 /** The trial's utilisations when every lift passes the target and the rules hold, else null. */
-function passing({ doc, liftIds, request, options, context }: CoupledStack, trial: readonly Picked[]): number[] | null {
+function passing(stack: CoupledStack, trial: readonly Picked[]): number[] | null {
+  const { request } = stack;
   if (
     request.noUpwardIncrease &&
     trial.some((p, i) => i > 0 && p.candidate.massPerMetre > trial[i - 1].candidate.massPerMetre)
   )
     return null;
-  const result = analyseStack(withPicks(doc, liftIds, trial, request), options, context);
-  if (result.errors.length > 0) return null;
-  const utilisations = result.lifts.map((l) => l.utilisation);
+  const utilisations = utilisationsWith(stack, trial);
+  if (!utilisations) return null;
   return utilisations.every((u) => u <= request.target) ? utilisations : null;
 }
 

@@ -27,28 +27,49 @@ export interface SizingRules {
 
 /** One pick per lift, bottom first like model.lifts. */
 export function sizeLifts(model: SizingModel, candidates: readonly GradedCandidate[], rules: SizingRules): LiftPick[] {
-  const picks: LiftPick[] = model.lifts.map(() => ({ kind: 'blocked' }));
-  let above = NOTHING_ABOVE;
+  return sizeLiftsAcross([model], candidates, rules);
+}
+
+/**
+ * The same search for one design standing at several positions (a typical column, docs/typical-columns.md):
+ * the models differ only in their loads. Each lift takes the lightest candidate that passes at every
+ * position, each position with its own lifts above. The argument above holds position by position, so
+ * the pick is again no heavier than that of any assignment passing everywhere. The utilisation kept is
+ * the largest over the positions.
+ */
+export function sizeLiftsAcross(
+  models: readonly SizingModel[],
+  candidates: readonly GradedCandidate[],
+  rules: SizingRules,
+): LiftPick[] {
+  const first = models[0]!;
+  const picks: LiftPick[] = first.lifts.map(() => ({ kind: 'blocked' }));
+  const above = models.map(() => NOTHING_ABOVE);
   let lightest = 0;
-  for (let i = model.lifts.length - 1; i >= 0; i--) {
+  for (let i = first.lifts.length - 1; i >= 0; i--) {
     let pick: LiftPick = { kind: 'none' };
     // kN → N for the comparison with Aeff·fy
-    const floor = liftForceFloor(model, i, above) * 1000;
+    const floor = Math.max(...models.map((m, p) => liftForceFloor(m, i, above[p]!))) * 1000;
     for (const candidate of candidates) {
       if (rules.noUpwardIncrease && candidate.massPerMetre < lightest) continue;
       if (floor > rules.target * candidate.squash) continue;
       const trial = { section: candidate.designation, grade: rules.grade, massPerMetre: candidate.massPerMetre };
-      const utilisation = liftUtilisation(model, i, trial, above, rules.target);
-      if (utilisation <= rules.target) {
-        pick = { kind: 'section', candidate, utilisation };
+      let worst = 0;
+      for (const [p, m] of models.entries()) {
+        worst = Math.max(worst, liftUtilisation(m, i, trial, above[p]!, rules.target));
+        if (worst > rules.target) break;
+      }
+      if (worst <= rules.target) {
+        pick = { kind: 'section', candidate, utilisation: worst };
         break;
       }
     }
     picks[i] = pick;
     // Below a lift with no passing section the load is unknown: those lifts stay blocked.
     if (pick.kind !== 'section') break;
-    above = passDown(model, i, pick.candidate.massPerMetre, above);
-    lightest = pick.candidate.massPerMetre;
+    const mass = pick.candidate.massPerMetre;
+    models.forEach((m, p) => (above[p] = passDown(m, i, mass, above[p]!)));
+    lightest = mass;
   }
   return picks;
 }

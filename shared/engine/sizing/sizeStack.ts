@@ -12,7 +12,7 @@ import { CLASS_4_REFUSAL } from '../simple/checkSimpleColumn.ts';
 import { liftsUnderMoments } from '../simple/liftsUnderMoments.ts';
 import { hasNominalMoments, sizeWithMoments, type CoupledStack } from './nominalMoments.ts';
 import { checkableCandidates, sizingCandidates, type GradedCandidate } from './sizingCandidates.ts';
-import { currentUtilisations, sizeLifts, type CurrentCheck, type LiftPick } from './sizeLifts.ts';
+import { currentUtilisations, sizeLiftsAcross, type CurrentCheck, type LiftPick } from './sizeLifts.ts';
 import { sizingModel, type SizingModel } from './sizingModel.ts';
 import { liftMessage } from './sizingMessages.ts';
 
@@ -109,28 +109,66 @@ function withClass4Note(
 }
 
 export function sizeStack(
-  stored: StackDocument,
+  doc: StackDocument,
+  request: SizingRequest,
+  options: Partial<AnalysisOptions> = {},
+  context: AnalysisContext = {},
+): StackSizing {
+  return sizeTypicalColumn([doc], request, options, context);
+}
+
+/** Each lift's largest utilisation over the positions; a position that cannot be checked says why. */
+function worstOf(checks: readonly CurrentCheck[][]): CurrentCheck[] {
+  return checks[0]!.map((_, i) => {
+    const at = checks.map((c) => c[i]!);
+    const unchecked = at.find((c) => c.utilisation === null);
+    return unchecked ?? { utilisation: Math.max(...at.map((c) => c.utilisation!)) };
+  });
+}
+
+/**
+ * Sizes one design for every position it stands at (a typical column, docs/typical-columns.md): `docs` is the
+ * document with each position's loads on it, its own place first. Each lift gets the lightest section that
+ * passes at every position; the utilisations shown are the largest over the positions.
+ */
+export function sizeTypicalColumn(
+  docs: readonly StackDocument[],
   request: SizingRequest,
   options: Partial<AnalysisOptions> = {},
   context: AnalysisContext = {},
 ): StackSizing {
   const settings: AnalysisOptions = { ...DEFAULT_ANALYSIS_OPTIONS, ...options };
-  const doc = placeOnLevels(stored, context.levels);
-  const { model: stack, errors } = inspectStack(doc, context);
-  if (!stack) return { errors, lifts: [], serialSize: null, complete: false, massBefore: null, massAfter: null };
-
-  const model = sizingModel(stack, settings, allLevelElevations(context.levels), context.sections);
+  // A tied node stands at its level's elevation, whatever copy the document carries (docs/stack-editing.md).
+  const placed = docs.map((d) => placeOnLevels(d, context.levels));
+  const doc = placed[0]!;
+  const inspected = placed.map((d) => inspectStack(d, context));
+  const failed = inspected.find((i) => !i.model);
+  if (failed || !inspected[0]!.model)
+    return {
+      errors: (failed ?? inspected[0]!).errors,
+      lifts: [],
+      serialSize: null,
+      complete: false,
+      massBefore: null,
+      massAfter: null,
+    };
+  const levels = allLevelElevations(context.levels);
+  const models = inspected.map((i) => sizingModel(i.model!, settings, levels, context.sections));
+  const model = models[0]!;
   const candidates = checkableCandidates(
     sizingCandidates(request.series, request.allowed),
     request.grade,
     settings.annex,
   );
-  const moments = hasNominalMoments(doc, settings);
+  const moments = docs.some((d) => hasNominalMoments(d, settings));
   const underMoments = moments
-    ? liftsUnderMoments(doc, stack, settings, context.sections)
+    ? inspected
+        .map((i, p) => liftsUnderMoments(docs[p]!, i.model!, settings, context.sections))
+        .reduce((a, b) => a.map((under, k) => under || b[k]!))
     : model.lifts.map(() => false);
   const coupled: CoupledStack = {
     doc,
+    others: docs.slice(1),
     liftIds: model.lifts.map((l) => l.id),
     lengths: model.lifts.map((l) => l.top - l.bottom),
     request,
@@ -140,10 +178,14 @@ export function sizeStack(
     isClass4: (c) => c.sectionClass === 4,
   };
   const search: Search = moments
-    ? (group) => sizeWithMoments(coupled, sizeLifts(model, group, request), group)
-    : (group) => sizeLifts(model, group, request);
+    ? (group) => sizeWithMoments(coupled, sizeLiftsAcross(models, group, request), group)
+    : (group) => sizeLiftsAcross(models, group, request);
   const { picks, serial } = bestPicks(model, candidates, request, search);
-  const now = moments ? analysedUtilisations(doc, model.lifts.length, settings, context) : currentUtilisations(model);
+  const now = worstOf(
+    moments
+      ? docs.map((d) => analysedUtilisations(d, model.lifts.length, settings, context))
+      : models.map((m) => currentUtilisations(m)),
+  );
   const lifts = model.lifts.map((_, i) =>
     withClass4Note(liftRow(model, i, picks[i], now[i], request), underMoments[i], picks[i], candidates),
   );

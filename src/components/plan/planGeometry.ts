@@ -2,6 +2,7 @@
 // outline, each placed stack at its crossing and the tributary area of a stack. The component flips y.
 import { sideWidths } from '@shared/engine/building/tributaryArea.ts';
 import type { Grid } from '@shared/schema/building.ts';
+import type { PositionResult } from '@shared/schema/stackPositions.ts';
 
 export interface PlanLine {
   id: string;
@@ -11,12 +12,24 @@ export interface PlanLine {
 }
 
 export interface PlanStack {
+  /** Unique per marker: a typical column has one per position (docs/typical-columns.md). */
+  key: string;
   id: number;
   name: string;
+  gridX: string;
+  gridY: string;
   x: number;
   y: number;
   utilisation: number | null;
+  /** For a typical column: the position whose check governs the type. */
+  governs?: boolean;
 }
+
+/** What a typical column's positions say, by stack id: each position's check and the governing one. */
+export type TypicalPositions = ReadonlyMap<
+  number,
+  { results: readonly PositionResult[]; governingPosition: string | null }
+>;
 
 export interface PlanRect {
   x0: number;
@@ -65,15 +78,46 @@ interface Placed {
   utilisation: number | null;
 }
 
-export function planStacks(grid: Grid, stacks: readonly Placed[]): PlanStack[] {
+/** A marker per placed stack, and per further position of a typical column, each in its own utilisation. */
+export function planStacks(grid: Grid, stacks: readonly Placed[], typical: TypicalPositions = new Map()): PlanStack[] {
   const x = new Map(grid.x.lines.map((l) => [l.id, l.position]));
   const y = new Map(grid.y.lines.map((l) => [l.id, l.position]));
   const out: PlanStack[] = [];
+  const at = (gridX: string | null | undefined, gridY: string | null | undefined) => {
+    const px = gridX ? x.get(gridX) : undefined;
+    const py = gridY ? y.get(gridY) : undefined;
+    return px !== undefined && py !== undefined ? { x: px, y: py } : null;
+  };
   for (const s of stacks) {
-    const px = s.gridX ? x.get(s.gridX) : undefined;
-    const py = s.gridY ? y.get(s.gridY) : undefined;
-    if (px !== undefined && py !== undefined)
-      out.push({ id: s.id, name: s.name, x: px, y: py, utilisation: s.utilisation });
+    const own = at(s.gridX, s.gridY);
+    if (!own) continue;
+    const positions = typical.get(s.id);
+    if (!positions?.results.length) {
+      out.push({
+        key: `${s.id}`,
+        id: s.id,
+        name: s.name,
+        gridX: s.gridX!,
+        gridY: s.gridY!,
+        ...own,
+        utilisation: s.utilisation,
+      });
+      continue;
+    }
+    for (const p of positions.results) {
+      const place = at(p.gridX, p.gridY);
+      if (!place) continue;
+      out.push({
+        key: `${s.id}:${p.positionId ?? 'own'}`,
+        id: s.id,
+        name: p.positionId === null ? s.name : p.name,
+        gridX: p.gridX,
+        gridY: p.gridY,
+        ...place,
+        utilisation: p.utilisation,
+        governs: p.name === positions.governingPosition,
+      });
+    }
   }
   return out;
 }
@@ -88,12 +132,14 @@ export function tributaryRect(grid: Grid, gridX: string, gridY: string): PlanRec
   return { x0: px - wx.before, x1: px + wx.after, y0: py - wy.before, y1: py + wy.after };
 }
 
-/** Crossings of the grid where no stack stands. */
+/** Crossings of the grid where no stack stands, at its own place or as a typical column. */
 export function freeCrossings(
   grid: Grid,
   stacks: readonly Placed[],
+  typical: TypicalPositions = new Map(),
 ): { gridX: string; gridY: string; x: number; y: number }[] {
   const taken = new Set(stacks.filter((s) => s.gridX && s.gridY).map((s) => `${s.gridX}|${s.gridY}`));
+  for (const { results } of typical.values()) for (const p of results) taken.add(`${p.gridX}|${p.gridY}`);
   const out: { gridX: string; gridY: string; x: number; y: number }[] = [];
   for (const lx of grid.x.lines)
     for (const ly of grid.y.lines)
