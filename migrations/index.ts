@@ -24,6 +24,9 @@ import * as addUsersEmailVerifiedAt from './202612031201_add_users_email_verifie
 import * as addInvitationsExpiresAt from './202612031202_add_invitations_expires_at.ts';
 import * as addBuildingModels from './202612031300_add_building_models.ts';
 import * as addStackGridPosition from './202612031301_add_stack_grid_position.ts';
+import * as addRevisionSteps from './202612031430_add_revision_steps.ts';
+import * as addRevisionStepTriggers from './202612031431_add_revision_step_triggers.ts';
+import * as addRevisionComments from './202612031432_add_revision_comments.ts';
 
 const migrations: Record<string, Knex.Migration> = {
   '202512010900_add_users': addUsers,
@@ -50,6 +53,9 @@ const migrations: Record<string, Knex.Migration> = {
   '202612031202_add_invitations_expires_at': addInvitationsExpiresAt,
   '202612031300_add_building_models': addBuildingModels,
   '202612031301_add_stack_grid_position': addStackGridPosition,
+  '202612031430_add_revision_steps': addRevisionSteps,
+  '202612031431_add_revision_step_triggers': addRevisionStepTriggers,
+  '202612031432_add_revision_comments': addRevisionComments,
 };
 
 export const migrationSource: Knex.MigrationSource<string> = {

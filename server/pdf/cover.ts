@@ -1,4 +1,5 @@
 // Cover sheet: what was issued, when, by whom, on what basis, and the hash that identifies it.
+import type { Signature, SignOff } from '../../shared/schema/reviews.ts';
 import type { RevisionSnapshot } from '../../shared/schema/revisions.ts';
 import { robustnessSummary } from '../../shared/engine/connections/robustnessSummary.ts';
 import { frozenDate, metres } from './format.ts';
@@ -58,7 +59,25 @@ function boxed(doc: Pdf, title: string, body: string, y: number, colour: string)
   return y + h + 12;
 }
 
-export function drawCover(doc: Pdf, s: RevisionSnapshot, hash: string): void {
+const signed = (x: Signature) => `${x.name}, ${frozenDate(x.at)}`;
+
+/** Prepared / checked / approved with names and dates (docs/issue-workflow.md). */
+function drawSignOff(doc: Pdf, o: SignOff, y: number): number {
+  y = field(doc, 'Prepared by', signed(o.prepared), y, { bold: true });
+  const checked = o.checked
+    ? { text: signed(o.checked), colour: undefined }
+    : o.unchecked
+      ? { text: 'Preliminary — not checked', colour: COLOUR.fail }
+      : { text: 'awaiting check', colour: COLOUR.muted };
+  y = field(doc, 'Checked by', checked.text, y, { bold: true, colour: checked.colour });
+  y = field(doc, 'Approved by', o.approved ? signed(o.approved) : 'awaiting approval', y, {
+    bold: true,
+    colour: o.approved ? undefined : COLOUR.muted,
+  });
+  return y;
+}
+
+export function drawCover(doc: Pdf, s: RevisionSnapshot, hash: string, signOff: SignOff | null = null): void {
   doc.addPage();
   let y = MARGIN.top + 30;
   doc
@@ -101,11 +120,17 @@ export function drawCover(doc: Pdf, s: RevisionSnapshot, hash: string): void {
     .font(FONT.regular)
     .fontSize(SIZE.body + 1)
     .fillColor(COLOUR.muted)
-    .text(`Frozen ${frozenDate(s.frozenAt)}`, MARGIN.left + 168, y + 32, { lineBreak: false });
+    .text(
+      signOff?.approved ? `Issued ${frozenDate(signOff.approved.at)}` : `Frozen ${frozenDate(s.frozenAt)}`,
+      MARGIN.left + 168,
+      y + 32,
+      { lineBreak: false },
+    );
   y += 78;
 
   const liftCount = s.stacks.reduce((n, st) => n + st.results.lifts.length, 0);
-  y = field(doc, 'Frozen by', `${s.frozenBy.name} <${s.frozenBy.email}>`, y);
+  // Revisions frozen before checking existed name only who froze them.
+  y = signOff ? drawSignOff(doc, signOff, y) : field(doc, 'Frozen by', `${s.frozenBy.name} <${s.frozenBy.email}>`, y);
   y = field(
     doc,
     'Content',
@@ -157,6 +182,11 @@ export function drawCover(doc: Pdf, s: RevisionSnapshot, hash: string): void {
   y += 8;
   if (s.note) y = boxed(doc, 'NOTE', s.note, y, COLOUR.accent);
   if (s.acknowledgement) y = boxed(doc, 'FAILING LIFTS ACKNOWLEDGED', s.acknowledgement, y, COLOUR.fail);
+  if (signOff?.openCommentsReason) {
+    const open = signOff.openComments.map((c) => `${c.stack}${c.lift ? ` ${c.lift}` : ''} (${c.by}): ${c.text}`);
+    const body = `${signOff.approved?.name ?? 'The lead'}: ${signOff.openCommentsReason}\nOpen: ${open.join('; ')}`;
+    y = boxed(doc, 'APPROVED WITH CHECK COMMENTS OPEN', body, y, COLOUR.fail);
+  }
 
   doc
     .font(FONT.bold)
@@ -185,8 +215,9 @@ export function drawCover(doc: Pdf, s: RevisionSnapshot, hash: string): void {
     .fontSize(SIZE.body + 0.5)
     .fillColor(COLOUR.ink);
   doc.text('1  Summary of stacks and levels', MARGIN.left + 8, doc.y + 4);
+  doc.text('2  Column schedule and tonnage', MARGIN.left + 8, doc.y + 2);
   doc.text(
-    '2  Each stack: elevation, load take-down by level, member checks of every lift, then its splices and base, with their working',
+    '3  Each stack: elevation, load take-down by level, member checks of every lift, then its splices and base, with their working',
     MARGIN.left + 8,
     doc.y + 2,
     { width: FULL_WIDTH - 8 },
