@@ -27,12 +27,12 @@ export async function renderCalcPackage(
   drawCover(doc, snapshot, hash, signOff);
   sections.set('Summary');
   drawSummary(doc, snapshot);
-  sections.set('Column schedule');
-  drawScheduleSection(doc, snapshot);
   snapshot.stacks.forEach((stack, i) => {
     sections.set(`Stack ${stack.name}`);
     drawStackSection(doc, stack, snapshot.levels, i, momentsOn(snapshot));
   });
+  sections.set('Column schedule');
+  drawScheduleSection(doc, snapshot);
   drawPageFurniture(doc, snapshot, hash, sections.titles, mark);
   return toBuffer(doc);
 }

@@ -215,13 +215,13 @@ export function drawCover(doc: Pdf, s: RevisionSnapshot, hash: string, signOff: 
     .fontSize(SIZE.body + 0.5)
     .fillColor(COLOUR.ink);
   doc.text('1  Summary of stacks and levels', MARGIN.left + 8, doc.y + 4);
-  doc.text('2  Column schedule and tonnage', MARGIN.left + 8, doc.y + 2);
   doc.text(
-    '3  Each stack: elevation, load take-down by level, member checks of every lift, then its splices and base, with their working',
+    '2  Each stack: elevation, load take-down by level, member checks of every lift, then its splices and base, with their working',
     MARGIN.left + 8,
     doc.y + 2,
     { width: FULL_WIDTH - 8 },
   );
+  doc.text('3  Column schedule and tonnage', MARGIN.left + 8, doc.y + 2);
   doc.text(
     'Units: m and kN for the stack; mm, N/mm², kN, kN·m, cm³ and cm⁴ in the member working. References to clauses and equations are in the right-hand margin.',
     MARGIN.left + 8,

@@ -1,9 +1,8 @@
 // The column schedule and tonnage as their own section of the package (docs/column-schedule.md): built from the
 // frozen stacks by the same shared module the screen and the downloads use, so every figure agrees with them.
 import { buildColumnSchedule, type ColumnSchedule } from '../../shared/schedule/columnSchedule.ts';
-import type { GoverningMode } from '../../shared/schema/results.ts';
 import type { RevisionSnapshot } from '../../shared/schema/revisions.ts';
-import { governingShort, metres, ratio } from './format.ts';
+import { metres, ratio } from './format.ts';
 import { BODY, COLOUR, FONT, MARGIN, SIZE, utilisationColour } from './layout.ts';
 import type { Pdf } from './pdf.ts';
 import { heading, reference } from './summary.ts';
@@ -14,7 +13,6 @@ export function scheduleOf(s: RevisionSnapshot): ColumnSchedule {
 }
 
 const tonnes = (kg: number) => (kg / 1000).toFixed(2);
-const shortMode = (g: string) => governingShort[g as GoverningMode] ?? g;
 
 function note(doc: Pdf, text: string): void {
   doc
@@ -29,19 +27,18 @@ export function drawScheduleSection(doc: Pdf, s: RevisionSnapshot): void {
   const schedule = scheduleOf(s);
   doc.addPage();
   doc.y = MARGIN.top;
-  heading(doc, '2  Column schedule');
+  heading(doc, '3  Column schedule');
   const columns: Column[] = [
-    { header: 'Stack', width: 34 },
-    { header: 'Type', width: 24 },
-    { header: 'Lift', width: 22 },
-    { header: 'From', width: 70 },
-    { header: 'To', width: 70 },
-    { header: 'Length', unit: 'm', width: 34, align: 'right' },
-    { header: 'Section', width: 84 },
-    { header: 'Grade', width: 30 },
-    { header: 'Bottom', width: 56 },
-    { header: 'Util.', width: 30, align: 'right' },
-    { header: 'Mode', width: 28 },
+    { header: 'Stack', width: 34, wrap: true },
+    { header: 'Type', width: 28 },
+    { header: 'Lift', width: 24 },
+    { header: 'From', width: 72, wrap: true },
+    { header: 'To', width: 72, wrap: true },
+    { header: 'Length', unit: 'm', width: 36, align: 'right' },
+    { header: 'Section', width: 84, wrap: true },
+    { header: 'Grade', width: 32 },
+    { header: 'Bottom', width: 50, wrap: true },
+    { header: 'Util.', width: 32, align: 'right' },
     { header: 'Mass', unit: 'kg', width: 40, align: 'right' },
   ];
   const rows = schedule.rows.map((r) => [
@@ -55,14 +52,13 @@ export function drawScheduleSection(doc: Pdf, s: RevisionSnapshot): void {
     r.grade,
     r.bottomJoint === 'base' ? `base, ${r.baseFixity}` : 'splice',
     { text: ratio(r.utilisation), colour: utilisationColour(r.utilisation), bold: true },
-    shortMode(r.governing),
     r.mass.toFixed(0),
   ]);
   drawTable(doc, MARGIN.left, columns, rows);
   const noteY = doc.y;
   note(
     doc,
-    'One row per lift of every stack, named by the levels. Mass = mass per metre (A × 7850 kg/m³) × length. Stacks with the same lifts (ends, sections, grades) and base share a type, drawn and fabricated once.',
+    'One row per lift of every stack, named by the levels; Util.: the governing utilisation of the lift (section 2). Mass = mass per metre (A × 7850 kg/m³) × length. Stacks with the same lifts (ends, sections, grades) and base share a type, drawn and fabricated once.',
   );
   reference(doc, 'EN 1991-1-1 Table A.4', noteY);
 

@@ -43,7 +43,7 @@ export function drawStackSection(
 ): void {
   doc.addPage();
   doc.y = MARGIN.top;
-  heading(doc, `3.${index + 1}  Stack ${stack.name}`);
+  heading(doc, `2.${index + 1}  Stack ${stack.name}`);
   const sum = summariseResult(stack.doc, stack.results);
   const line = `${stack.results.lifts.length} lifts · governing lift ${sum.governingLiftLabel ?? '–'} (${sum.governingSection ?? '–'}) · utilisation ${ratio(sum.utilisation)} · document version ${stack.version}`;
   doc

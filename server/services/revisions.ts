@@ -368,6 +368,7 @@ export async function getRevision(db: Knex, id: number): Promise<RevisionDetail>
         governingSection: sum.governingSection,
         utilisation: sum.utilisation,
         status: sum.status,
+        lifts: s.results.lifts.map((l) => ({ liftId: l.liftId, label: l.label ?? 'lift' })),
       };
     }),
     recipients,

@@ -60,6 +60,9 @@ export const reviewSummarySchema = z.object({
 });
 export type ReviewSummary = z.infer<typeof reviewSummarySchema>;
 
+/** The parts of a prepared revision's reply the client relies on (the rest is the RevisionDetail of revisions.ts). */
+export const preparedRevisionSchema = z.looseObject({ id, code: z.string(), review: reviewSummarySchema });
+
 const text = (max: number) => z.string().trim().max(max);
 
 export const checkBodySchema = z.object({ note: text(2000).default('') }).strict();

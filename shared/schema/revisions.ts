@@ -108,6 +108,8 @@ export interface RevisionStackSummary {
   governingSection: string | null;
   utilisation: number | null;
   status: StackStatus;
+  /** Every lift as frozen (its node id for linking, its label L1, L2, … for people): what a check comment names. */
+  lifts: { liftId: string; label: string }[];
 }
 
 export interface RevisionDetail extends RevisionSummary {

@@ -247,7 +247,7 @@ describe('checking and approving a revision', () => {
     const section = pages.filter((p) => p.includes('Column schedule'));
     expect(section.length).toBeGreaterThan(0);
     const text = section.join(' ');
-    expect(text).toContain('2 Column schedule');
+    expect(text).toContain('3 Column schedule');
     expect(text).toContain('Tonnage');
     for (const stack of ['A/1', 'B/2']) expect(text).toContain(stack);
     expect(text).toContain('UKC 254x254x73');
