@@ -29,17 +29,17 @@ export function drawScheduleSection(doc: Pdf, s: RevisionSnapshot): void {
   doc.y = MARGIN.top;
   heading(doc, '3  Column schedule');
   const columns: Column[] = [
-    { header: 'Stack', width: 34, wrap: true },
+    { header: 'Stack', width: 30, wrap: true },
     { header: 'Type', width: 28 },
     { header: 'Lift', width: 24 },
-    { header: 'From', width: 72, wrap: true },
-    { header: 'To', width: 72, wrap: true },
+    { header: 'From', width: 82, wrap: true },
+    { header: 'To', width: 82, wrap: true },
     { header: 'Length', unit: 'm', width: 36, align: 'right' },
-    { header: 'Section', width: 84, wrap: true },
+    { header: 'Section', width: 78, wrap: true },
     { header: 'Grade', width: 32 },
-    { header: 'Bottom', width: 50, wrap: true },
-    { header: 'Util.', width: 32, align: 'right' },
-    { header: 'Mass', unit: 'kg', width: 40, align: 'right' },
+    { header: 'Bottom', width: 48, wrap: true },
+    { header: 'Util.', width: 30, align: 'right' },
+    { header: 'Mass', unit: 'kg', width: 36, align: 'right' },
   ];
   const rows = schedule.rows.map((r) => [
     { text: r.stack, bold: true },
