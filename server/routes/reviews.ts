@@ -17,7 +17,8 @@ import { idParam, parseBody } from '../middleware/validate.ts';
 import { reanalyseOutdated } from '../services/outdatedResults.ts';
 import { approveRevision } from '../services/revisionIssue.ts';
 import { buildingOfRevisionId, freezeRevision, getRevision } from '../services/revisions.ts';
-import { addComment, checkRevision, getReview, resolveComment } from '../services/reviews.ts';
+import { addComment, resolveComment } from '../services/reviewComments.ts';
+import { checkRevision, getReview } from '../services/reviews.ts';
 import { arrivalOf, drawAfterIssue, revisionsLink, stampArrival } from './revisions.ts';
 
 export function registerReviewRoutes(router: Router, ctx: ServerContext): void {
