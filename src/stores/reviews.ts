@@ -34,20 +34,24 @@ export const useReviewsStore = defineStore('reviews', () => {
     return created;
   }
 
-  /** One step; the review, the open revision and the list are read again after it. */
+  /**
+   * One step. Busy only while the server answers: the revisions list and the open revision are read again after
+   * (their own errors are reported by their store), so the next step's button never waits on that refresh.
+   */
   async function step(what: string, work: () => Promise<RevisionReview>): Promise<boolean> {
     busy.value = true;
     try {
       review.value = await work();
-      if (revisions.buildingId !== null) await revisions.load(revisions.buildingId);
-      await revisions.open(review.value.revisionId);
-      return true;
     } catch (e) {
       notify.error(e, `Could not ${what}`);
       return false;
     } finally {
       busy.value = false;
     }
+    const refreshed = review.value.revisionId;
+    if (revisions.buildingId !== null) void revisions.load(revisions.buildingId);
+    void revisions.open(refreshed);
+    return true;
   }
 
   const check = (id: number) => step('record the check', () => reviewsApi.check(id));
