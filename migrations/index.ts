@@ -25,6 +25,9 @@ import * as addInvitationsExpiresAt from './202612031202_add_invitations_expires
 import * as addBuildingModels from './202612031300_add_building_models.ts';
 import * as addStackGridPosition from './202612031301_add_stack_grid_position.ts';
 import * as addStackPositions from './202612031410_add_stack_positions.ts';
+import * as addRevisionSteps from './202612031430_add_revision_steps.ts';
+import * as addRevisionStepTriggers from './202612031431_add_revision_step_triggers.ts';
+import * as addRevisionComments from './202612031432_add_revision_comments.ts';
 
 const migrations: Record<string, Knex.Migration> = {
   '202512010900_add_users': addUsers,
@@ -52,6 +55,9 @@ const migrations: Record<string, Knex.Migration> = {
   '202612031300_add_building_models': addBuildingModels,
   '202612031301_add_stack_grid_position': addStackGridPosition,
   '202612031410_add_stack_positions': addStackPositions,
+  '202612031430_add_revision_steps': addRevisionSteps,
+  '202612031431_add_revision_step_triggers': addRevisionStepTriggers,
+  '202612031432_add_revision_comments': addRevisionComments,
 };
 
 export const migrationSource: Knex.MigrationSource<string> = {

@@ -18,10 +18,11 @@ import type {
   EditTask,
   PackageTask,
 } from './tasks.ts';
+import type { PackageExtras } from '../pdf/calcPackage.ts';
 
 export interface OffThread {
-  /** `mark`, when given, is printed on every page (a re-drawn copy says so). */
-  renderPackage(snapshot: RevisionSnapshot, hash: string, mark?: string): Promise<Buffer>;
+  /** `extras.mark`, when given, is printed on every page (a re-drawn or check copy says so). */
+  renderPackage(snapshot: RevisionSnapshot, hash: string, extras?: PackageExtras): Promise<Buffer>;
   /** `key`: the building, so that one building's work cannot hold up another's. */
   sizeBuilding(task: BuildingSizingTask, key?: string): Promise<BuildingSizingOutcome>;
   analyseBuilding(task: BuildingAnalysisTask, key?: string): Promise<AnalysedStack[]>;
@@ -61,8 +62,8 @@ export function createOffThread(limits: FairQueueLimits = OFF_THREAD_LIMITS): Of
     workerData: { nice: 10 },
   });
   return {
-    async renderPackage(snapshot, hash, mark) {
-      const task: PackageTask = { snapshot, hash, ...(mark ? { mark } : {}) };
+    async renderPackage(snapshot, hash, extras = {}) {
+      const task: PackageTask = { snapshot, hash, ...extras };
       // A Buffer crosses the thread boundary as a plain Uint8Array.
       const bytes = (await enqueue(`building:${snapshot.building.id}`, () =>
         pool.run(task, { name: 'renderPackage' }),

@@ -12,16 +12,15 @@ import type { StackResult } from '../../shared/schema/results.ts';
 import { stackDocumentSchema } from '../../shared/schema/stack.ts';
 import { analyseStack } from '../../shared/engine/index.ts';
 import { applyOps, OpError, touchedIds } from '../../shared/ops/applyOps.ts';
-import { renderCalcPackage } from '../pdf/calcPackage.ts';
+import { renderCalcPackage, type PackageExtras } from '../pdf/calcPackage.ts';
 
-export interface PackageTask {
+export interface PackageTask extends PackageExtras {
   snapshot: RevisionSnapshot;
   hash: string;
-  mark?: string;
 }
 
-export function renderPackage({ snapshot, hash, mark }: PackageTask): Promise<Buffer> {
-  return renderCalcPackage(snapshot, hash, mark);
+export function renderPackage({ snapshot, hash, ...extras }: PackageTask): Promise<Buffer> {
+  return renderCalcPackage(snapshot, hash, extras);
 }
 
 export interface SizingStack {

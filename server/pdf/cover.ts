@@ -1,8 +1,9 @@
 // Cover sheet: what was issued, when, by whom, on what basis, and the hash that identifies it.
+import type { SignOff } from '../../shared/schema/reviews.ts';
 import type { RevisionSnapshot } from '../../shared/schema/revisions.ts';
 import { robustnessSummary } from '../../shared/engine/connections/robustnessSummary.ts';
 import { frozenDate, metres } from './format.ts';
-import { COLOUR, FONT, FULL_WIDTH, MARGIN, SIZE } from './layout.ts';
+import { COLOUR, CONTENT_BOTTOM, FONT, FULL_WIDTH, MARGIN, SIZE } from './layout.ts';
 import type { Pdf } from './pdf.ts';
 import { hasCombined } from './utilisations.ts';
 
@@ -41,9 +42,21 @@ function field(
   return Math.max(doc.y, y + 14) + 4;
 }
 
+/** Where a block of `height` starting at y goes: here, or at the top of a new page when it would not fit. */
+function keepTogether(doc: Pdf, y: number, height: number): number {
+  if (y + height <= CONTENT_BOTTOM) return y;
+  doc.addPage();
+  return MARGIN.top;
+}
+
 function boxed(doc: Pdf, title: string, body: string, y: number, colour: string): number {
   doc.font(FONT.regular).fontSize(SIZE.body + 0.5);
   const h = doc.heightOfString(body, { width: FULL_WIDTH - 20 }) + 28;
+  // A box is never split across pages: a long note or reason takes the cover onto a second page whole.
+  if (y + h > CONTENT_BOTTOM) {
+    doc.addPage();
+    y = MARGIN.top;
+  }
   doc.rect(MARGIN.left, y, FULL_WIDTH, h).lineWidth(0.8).stroke(colour);
   doc
     .font(FONT.bold)
@@ -58,7 +71,49 @@ function boxed(doc: Pdf, title: string, body: string, y: number, colour: string)
   return y + h + 12;
 }
 
-export function drawCover(doc: Pdf, s: RevisionSnapshot, hash: string): void {
+/** Prepared / checked / approved with names and dates, side by side under the revision (docs/issue-workflow.md). */
+function drawSignOff(doc: Pdf, o: SignOff, y: number): number {
+  const checked = o.checked
+    ? { name: o.checked.name, at: o.checked.at, colour: COLOUR.ink }
+    : o.unchecked
+      ? { name: 'Preliminary — not checked', at: null, colour: COLOUR.fail }
+      : { name: 'awaiting check', at: null, colour: COLOUR.muted };
+  const cells = [
+    { label: 'Prepared by', name: o.prepared.name, at: o.prepared.at, colour: COLOUR.ink },
+    { label: 'Checked by', ...checked },
+    o.approved
+      ? { label: 'Approved by', name: o.approved.name, at: o.approved.at, colour: COLOUR.ink }
+      : { label: 'Approved by', name: 'awaiting approval', at: null, colour: COLOUR.muted },
+  ];
+  const width = FULL_WIDTH / cells.length;
+  let bottom = y;
+  cells.forEach((c, i) => {
+    const x = MARGIN.left + i * width;
+    doc
+      .font(FONT.regular)
+      .fontSize(SIZE.body + 1)
+      .fillColor(COLOUR.muted)
+      .text(`${c.label} `, x, y, { width: width - 10, continued: true })
+      .font(FONT.bold)
+      .fillColor(c.colour)
+      .text(c.name);
+    if (c.at)
+      doc
+        .font(FONT.regular)
+        .fontSize(SIZE.body)
+        .fillColor(COLOUR.muted)
+        .text(frozenDate(c.at), x, doc.y + 1);
+    bottom = Math.max(bottom, doc.y);
+  });
+  doc
+    .moveTo(MARGIN.left, bottom + 6)
+    .lineTo(MARGIN.left + FULL_WIDTH, bottom + 6)
+    .lineWidth(0.5)
+    .stroke(COLOUR.rule);
+  return bottom + 14;
+}
+
+export function drawCover(doc: Pdf, s: RevisionSnapshot, hash: string, signOff: SignOff | null = null): void {
   doc.addPage();
   let y = MARGIN.top + 30;
   doc
@@ -101,11 +156,17 @@ export function drawCover(doc: Pdf, s: RevisionSnapshot, hash: string): void {
     .font(FONT.regular)
     .fontSize(SIZE.body + 1)
     .fillColor(COLOUR.muted)
-    .text(`Frozen ${frozenDate(s.frozenAt)}`, MARGIN.left + 168, y + 32, { lineBreak: false });
+    .text(
+      signOff?.approved ? `Issued ${frozenDate(signOff.approved.at)}` : `Frozen ${frozenDate(s.frozenAt)}`,
+      MARGIN.left + 168,
+      y + 32,
+      { lineBreak: false },
+    );
   y += 78;
 
   const liftCount = s.stacks.reduce((n, st) => n + st.results.lifts.length, 0);
-  y = field(doc, 'Frozen by', `${s.frozenBy.name} <${s.frozenBy.email}>`, y);
+  // Revisions frozen before checking existed name only who froze them.
+  y = signOff ? drawSignOff(doc, signOff, y) : field(doc, 'Frozen by', `${s.frozenBy.name} <${s.frozenBy.email}>`, y);
   y = field(
     doc,
     'Content',
@@ -157,7 +218,13 @@ export function drawCover(doc: Pdf, s: RevisionSnapshot, hash: string): void {
   y += 8;
   if (s.note) y = boxed(doc, 'NOTE', s.note, y, COLOUR.accent);
   if (s.acknowledgement) y = boxed(doc, 'FAILING LIFTS ACKNOWLEDGED', s.acknowledgement, y, COLOUR.fail);
+  if (signOff?.openCommentsReason) {
+    const open = signOff.openComments.map((c) => `${c.stack}${c.lift ? ` ${c.lift}` : ''} (${c.by}): ${c.text}`);
+    const body = `${signOff.approved?.name ?? 'The lead'}: ${signOff.openCommentsReason}\nOpen: ${open.join('; ')}`;
+    y = boxed(doc, 'APPROVED WITH CHECK COMMENTS OPEN', body, y, COLOUR.fail);
+  }
 
+  y = keepTogether(doc, y, 50);
   doc
     .font(FONT.bold)
     .fontSize(SIZE.body)
@@ -175,11 +242,8 @@ export function drawCover(doc: Pdf, s: RevisionSnapshot, hash: string): void {
     { width: FULL_WIDTH },
   );
 
-  doc
-    .font(FONT.bold)
-    .fontSize(SIZE.h2)
-    .fillColor(COLOUR.ink)
-    .text('Contents', MARGIN.left, doc.y + 22);
+  const contentsY = keepTogether(doc, doc.y + 22, 110);
+  doc.font(FONT.bold).fontSize(SIZE.h2).fillColor(COLOUR.ink).text('Contents', MARGIN.left, contentsY);
   doc
     .font(FONT.regular)
     .fontSize(SIZE.body + 0.5)
@@ -191,6 +255,7 @@ export function drawCover(doc: Pdf, s: RevisionSnapshot, hash: string): void {
     doc.y + 2,
     { width: FULL_WIDTH - 8 },
   );
+  doc.text('3  Column schedule and tonnage', MARGIN.left + 8, doc.y + 2);
   doc.text(
     'Units: m and kN for the stack; mm, N/mm², kN, kN·m, cm³ and cm⁴ in the member working. References to clauses and equations are in the right-hand margin.',
     MARGIN.left + 8,

@@ -11,6 +11,7 @@ import { registerHealthRoutes } from './health.ts';
 import { registerImportRoutes } from './imports.ts';
 import { registerLevelRoutes } from './levels.ts';
 import { registerRevisionRoutes } from './revisions.ts';
+import { registerReviewRoutes } from './reviews.ts';
 import { registerRobustnessRoutes } from './robustness.ts';
 import { registerScheduleRoutes } from './schedule.ts';
 import { registerStackHistoryRoutes } from './stackHistory.ts';
@@ -28,6 +29,7 @@ export function createApiRouter(ctx: ServerContext): Router {
   registerBuildingModelRoutes(router, ctx);
   registerStackRoutes(router, ctx);
   registerRevisionRoutes(router, ctx);
+  registerReviewRoutes(router, ctx);
   registerSectionRoutes(router, ctx);
   registerSizingRoutes(router, ctx);
   registerImportRoutes(router, ctx);

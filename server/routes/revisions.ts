@@ -16,22 +16,41 @@ import {
 } from '../services/revisions.ts';
 import { compareRevisions } from '../services/revisionsCompare.ts';
 import { packageFilename, resendRevisionMail } from '../services/revisionsMail.ts';
-import { issuedPackage, packageCopy, redrawCopy } from '../services/revisionPackages.ts';
+import {
+  CHECK_COPY_REASON,
+  issuedPackage,
+  packageCopy,
+  redrawCopy,
+  type StoredPackage,
+} from '../services/revisionPackages.ts';
 import { ENGINE_VERSION } from '../../shared/engine/version.ts';
 import { reanalyseOutdated } from '../services/outdatedResults.ts';
 import { now } from '../db.ts';
 
 /** Where the e-mail's link points: the configured public URL, never a request header (docs/access.md). */
-function revisionsLink(ctx: ServerContext, buildingId: number): string {
+export function revisionsLink(ctx: ServerContext, buildingId: number): string {
   return `${ctx.config.publicUrl}/buildings/${buildingId}/revisions`;
 }
 
 /** When each freeze request reached this process, before it waited for the database (see freezeRevision). */
 const arrivals = new WeakMap<Request, string>();
-const stampArrival: RequestHandler = (req, _res, next) => {
+export const arrivalOf = (req: Request): string => arrivals.get(req) ?? now();
+export const stampArrival: RequestHandler = (req, _res, next) => {
   arrivals.set(req, now());
   next();
 };
+
+/**
+ * Committed, with the package due and the e-mails queued: the route has answered. The package is drawn once
+ * in the background (or by the mail sender, or the first download, whichever comes first).
+ */
+export function drawAfterIssue(ctx: ServerContext, req: Request, revisionId: number): void {
+  void issuedPackage(ctx, revisionId)
+    .catch((err: unknown) =>
+      req.log.warn({ err, revisionId }, 'package not drawn yet; the mail sender or the first download draws it'),
+    )
+    .finally(() => ctx.outbox.kick());
+}
 
 export function registerRevisionRoutes(router: Router, ctx: ServerContext): void {
   const auth = requireAuth(ctx);
@@ -52,21 +71,22 @@ export function registerRevisionRoutes(router: Router, ctx: ServerContext): void
     const { buildingId } = currentAccess(req);
     // Results of older rules are brought up to date first: the revision names the current engine version.
     await reanalyseOutdated(ctx, buildingId, currentUser(req));
-    const { id } = await freezeRevision(
+    // A lead's freeze: a preliminary revision is prepared and issued at once without a check (the cover says
+    // so); a construction revision is prepared and waits for its check and approval (docs/issue-workflow.md).
+    const { id, issued } = await freezeRevision(
       ctx.db,
       buildingId,
-      { ...body, link: revisionsLink(ctx, buildingId), engineVersion: ENGINE_VERSION },
+      {
+        ...body,
+        link: revisionsLink(ctx, buildingId),
+        engineVersion: ENGINE_VERSION,
+        issueUnchecked: body.purpose === 'preliminary',
+      },
       currentUser(req),
-      arrivals.get(req) ?? now(),
+      arrivalOf(req),
     );
-    // Committed, with the package due and the e-mails queued: answer now. The package is drawn once in
-    // the background (or by the mail sender, or the first download, whichever comes first).
     res.status(201).json(await getRevision(ctx.db, id));
-    void issuedPackage(ctx, id)
-      .catch((err: unknown) =>
-        req.log.warn({ err, revisionId: id }, 'package not drawn yet; the mail sender or the first download draws it'),
-      )
-      .finally(() => ctx.outbox.kick());
+    if (issued) drawAfterIssue(ctx, req, id);
   });
   router.get('/buildings/:id/revisions', auth, requireRole(ctx, 'viewer'), async (req, res) => {
     res.json(await listRevisions(ctx.db, currentAccess(req).buildingId));
@@ -86,7 +106,7 @@ export function registerRevisionRoutes(router: Router, ctx: ServerContext): void
     const { snapshot } = await loadSnapshot(ctx.db, id);
     res.setHeader('X-Package-SHA256', pkg.sha256);
     res
-      .attachment(packageFilename(snapshot).replace(/\.pdf$/, copy ? `-redrawn-copy-${copy}.pdf` : '.pdf'))
+      .attachment(packageFilename(snapshot).replace(/\.pdf$/, `${copySuffix(pkg)}.pdf`))
       .type('application/pdf')
       .send(pkg.bytes);
   });
@@ -102,5 +122,8 @@ export function registerRevisionRoutes(router: Router, ctx: ServerContext): void
     res.status(201).json({ copy: pkg.copy, sha256: pkg.sha256, size: pkg.bytes.length, reason: pkg.reason });
   });
 }
+
+const copySuffix = (pkg: StoredPackage) =>
+  pkg.copy > 0 ? `-redrawn-copy-${pkg.copy}` : pkg.reason === CHECK_COPY_REASON ? '-check-copy' : '';
 
 const copyQuerySchema = z.object({ copy: z.coerce.number().int().min(0).max(10_000).default(0) });

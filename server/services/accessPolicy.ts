@@ -5,7 +5,9 @@
 // - a member with too low a role gets 403.
 import type { Knex } from 'knex';
 import { ROLE_RANK, type Role, type User } from '../../shared/schema/api.ts';
-import { forbidden, notFound } from '../errors.ts';
+import type { ReviewActions, ReviewState } from '../../shared/schema/reviews.ts';
+import type { RevisionPurpose } from '../../shared/schema/revisions.ts';
+import { conflict, forbidden, notFound, type HttpError } from '../errors.ts';
 
 export async function roleIn(db: Knex, buildingId: number, userId: number): Promise<Role | null> {
   const row = await db('memberships')
@@ -40,4 +42,45 @@ export async function checkAccess(
 /** Whether the user may still read the building at all (a member, or a site admin). */
 export async function canRead(db: Knex, user: Pick<User, 'id' | 'isAdmin'>, buildingId: number): Promise<boolean> {
   return user.isAdmin || (await roleIn(db, buildingId, user.id)) !== null;
+}
+
+/** What a review step needs to know of the revision (docs/issue-workflow.md). */
+export interface ReviewFacts {
+  state: ReviewState;
+  purpose: RevisionPurpose;
+  code: string;
+  preparedBy: number;
+}
+
+export type ReviewAction = keyof ReviewActions;
+
+/**
+ * Why the caller may not take a step of a revision's review, or null when they may. The role is the
+ * caller's on the building (null: a site admin reading, who signs nothing). Rules: engineers and leads
+ * comment and resolve while the revision is open; a member who did not prepare it checks it; a lead
+ * approves and issues a checked revision, or a preliminary one without a check.
+ */
+export function reviewRefusal(
+  action: ReviewAction,
+  role: Role | null,
+  userId: number,
+  r: ReviewFacts,
+): HttpError | null {
+  const need: Role = action === 'approve' ? 'lead' : 'engineer';
+  if (role === null || ROLE_RANK[role] < ROLE_RANK[need])
+    return forbidden(`This needs the ${need} role on this building`);
+  if (r.state === 'issued') return conflict(`Revision ${r.code} is issued: its review is closed`);
+  if (r.state === 'superseded') return conflict(`Revision ${r.code} was superseded by a newer revision`);
+  if (action === 'check') {
+    if (r.preparedBy === userId) return forbidden(`You prepared revision ${r.code}: another member must check it`);
+    if (r.state !== 'prepared') return conflict(`Revision ${r.code} is checked already`);
+  }
+  if (action === 'approve' && r.state === 'prepared' && r.purpose !== 'preliminary')
+    return conflict(`Revision ${r.code} is for construction: it must be checked before it is approved`);
+  return null;
+}
+
+export function reviewActions(role: Role | null, userId: number, r: ReviewFacts): ReviewActions {
+  const may = (a: ReviewAction) => reviewRefusal(a, role, userId, r) === null;
+  return { check: may('check'), approve: may('approve'), comment: may('comment'), resolve: may('resolve') };
 }

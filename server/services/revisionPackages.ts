@@ -13,6 +13,7 @@ import { isUniqueViolation, onUniqueViolation } from '../dbErrors.ts';
 import { conflict, HttpError, notFound } from '../errors.ts';
 import { recordAudit } from './audit.ts';
 import { loadSnapshot } from './revisions.ts';
+import { isIssued, loadSignOff } from './reviews.ts';
 
 interface PackageRow {
   id: number;
@@ -77,8 +78,10 @@ async function readOrDraw(ctx: ServerContext, revisionId: number): Promise<Store
   const row = await packageRow(ctx.db, revisionId, 0);
   const stored = row ? verified(row) : null;
   if (stored) return stored;
+  // A revision awaiting its check or approval has no issued package (only check copies, never stored).
+  if (!row && !(await isIssued(ctx.db, revisionId))) throw conflict('This revision is not issued yet');
   const { snapshot, hash } = await loadSnapshot(ctx.db, revisionId);
-  const bytes = await ctx.offThread.renderPackage(snapshot, hash);
+  const bytes = await ctx.offThread.renderPackage(snapshot, hash, { signOff: await loadSignOff(ctx.db, revisionId) });
   const fields = { bytes, sha256: sha256(bytes), size: bytes.length, drawn_at: now() };
   if (row) {
     // Only the first drawing is kept: another process may have stored its own meanwhile.
@@ -100,8 +103,28 @@ async function readOrDraw(ctx: ServerContext, revisionId: number): Promise<Store
   return result;
 }
 
+export const CHECK_COPY_REASON = 'check copy: not issued';
+
+export const checkCopyMark = (code: string, at: string) =>
+  `CHECK COPY of revision ${code}, drawn ${at.slice(0, 10)}: not issued, awaiting its check and approval`;
+
+/**
+ * The package of a revision that is not issued yet, for its checker: drawn on each request with the
+ * sign-offs so far, marked on every page, never stored or mailed (docs/issue-workflow.md).
+ */
+async function checkCopy(ctx: ServerContext, revisionId: number): Promise<StoredPackage> {
+  const { snapshot, hash } = await loadSnapshot(ctx.db, revisionId);
+  const bytes = await ctx.offThread.renderPackage(snapshot, hash, {
+    mark: checkCopyMark(snapshot.code, now()),
+    signOff: await loadSignOff(ctx.db, revisionId),
+  });
+  return { copy: 0, bytes, sha256: sha256(bytes), reason: CHECK_COPY_REASON };
+}
+
+/** Copy 0: the issued package, or a check copy while the revision is not issued; n > 0: a re-drawn copy. */
 export async function packageCopy(ctx: ServerContext, revisionId: number, copy: number): Promise<StoredPackage> {
-  if (copy === 0) return issuedPackage(ctx, revisionId);
+  if (copy === 0)
+    return (await isIssued(ctx.db, revisionId)) ? issuedPackage(ctx, revisionId) : checkCopy(ctx, revisionId);
   const row = await packageRow(ctx.db, revisionId, copy);
   const stored = row ? verified(row) : null;
   if (!stored) throw notFound('Package copy');
@@ -134,7 +157,10 @@ export async function redrawCopy(ctx: ServerContext, revisionId: number, user: U
     .where({ revision_id: revisionId })
     .max<{ m: number | null }[]>({ m: 'copy' });
   const copy = Number(copies[0]?.m ?? 0) + 1;
-  const bytes = await ctx.offThread.renderPackage(snapshot, hash, redrawnMark(snapshot.code, copy, at));
+  const bytes = await ctx.offThread.renderPackage(snapshot, hash, {
+    mark: redrawnMark(snapshot.code, copy, at),
+    signOff: await loadSignOff(ctx.db, revisionId),
+  });
   const reason = `re-drawn by ${user.name}: ${fault.code}`;
   await onUniqueViolation(
     () =>

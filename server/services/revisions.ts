@@ -1,7 +1,9 @@
-// Freezing and reading revisions (docs/contracts.md §Revisions). One transaction snapshots the building; the rows are
-// never changed afterwards (database triggers refuse it). Mail goes out after commit (revisionsMail.ts).
+// Freezing (preparing) and reading revisions (docs/contracts.md §Revisions, docs/issue-workflow.md). One transaction
+// snapshots the building; the rows are never changed afterwards (database triggers refuse it). A revision is
+// issued (package due, mail queued) when approved (revisionIssue.ts), or at once by a lead's preliminary freeze.
 import type { Knex } from 'knex';
 import type { User } from '../../shared/schema/api.ts';
+import type { ReviewSummary } from '../../shared/schema/reviews.ts';
 import {
   REVISION_PREFIX,
   type FreezeRefusal,
@@ -18,8 +20,8 @@ import { onUniqueViolation } from '../dbErrors.ts';
 import { summariseResult } from './analysis.ts';
 import { recordAudit } from './audit.ts';
 import { listRecipients } from './revisionsRecipients.ts';
-import { revisionMessage } from './revisionsMail.ts';
-import { enqueueMail } from '../mail/mailQueue.ts';
+import { queueIssue } from './revisionIssue.ts';
+import { loadSignOff, recordStep, reviewSummaries } from './reviews.ts';
 import { sha256Hex, snapshotStacks, takeSnapshot } from './snapshot.ts';
 
 export interface RevisionRow {
@@ -64,6 +66,11 @@ export interface FreezeInput {
   purpose: RevisionPurpose;
   acknowledgeFailingLifts: boolean;
   engineVersion: string;
+  /**
+   * Issue at once as a preliminary issue without a check (the lead's freeze of a preliminary revision);
+   * otherwise the revision is prepared and waits for its check and approval (docs/issue-workflow.md).
+   */
+  issueUnchecked: boolean;
 }
 
 interface FailingLift {
@@ -149,7 +156,7 @@ export async function freezeRevision(
   input: FreezeInput,
   user: User,
   arrivedAt: string,
-): Promise<{ id: number; snapshot: RevisionSnapshot; hash: string }> {
+): Promise<{ id: number; snapshot: RevisionSnapshot; hash: string; issued: boolean }> {
   return onUniqueViolation(
     () => freezeIn(db, buildingId, input, user, arrivedAt),
     () =>
@@ -163,7 +170,9 @@ async function freezeIn(
   input: FreezeInput,
   user: User,
   arrivedAt: string,
-): Promise<{ id: number; snapshot: RevisionSnapshot; hash: string }> {
+): Promise<{ id: number; snapshot: RevisionSnapshot; hash: string; issued: boolean }> {
+  if (input.issueUnchecked && input.purpose !== 'preliminary')
+    throw conflict('Only a preliminary revision may be issued without a check');
   return db.transaction(async (trx) => {
     const buildingQuery = trx('buildings').where({ id: buildingId });
     if (isPostgres(trx)) buildingQuery.forUpdate();
@@ -253,42 +262,28 @@ async function freezeIn(
         failing_lifts: failing.length,
       })
       .returning<{ id: number }[]>('id');
-    const members = await trx('memberships as m')
-      .join('users as u', 'u.id', 'm.user_id')
-      .where('m.building_id', buildingId)
-      .select<{ id: number; email: string; name: string }[]>('u.id', 'u.email', 'u.name');
-    // The issued package is due (drawn once after commit, revisionPackages.ts), and each member's
-    // e-mail is queued in this transaction, so a crash after commit still sends it (mailSender.ts).
-    await trx('revision_packages').insert({ revision_id: row.id, copy: 0, created_at: frozenAt });
-    for (const m of members) {
-      const [recipient] = await trx('revision_recipients')
-        .insert({
-          revision_id: row.id,
-          user_id: m.id,
-          email: m.email,
-          name: m.name,
-          status: 'pending',
-          attempts: 0,
-          updated_at: frozenAt,
-        })
-        .returning<{ id: number }[]>('id');
-      await enqueueMail(trx, [
-        {
-          kind: 'revision',
-          message: revisionMessage(snapshot, hash, m.email, input.link),
-          attachRevisionId: row.id,
-          recipientId: recipient.id,
-          buildingId,
-        },
-      ]);
+    // The preparer signs first; a preliminary freeze by a lead is approved and issued in the same breath.
+    await recordStep(trx, row.id, 'prepared', user, frozenAt);
+    if (input.issueUnchecked) {
+      await recordStep(trx, row.id, 'approved', user, frozenAt, { unchecked: true });
+      // The package is due (drawn once after commit, revisionPackages.ts) and each member's e-mail is
+      // queued in this transaction, so a crash after commit still sends it (mailSender.ts).
+      await queueIssue(trx, {
+        revisionId: row.id,
+        snapshot,
+        hash,
+        link: input.link,
+        at: frozenAt,
+        signOff: await loadSignOff(trx, row.id),
+      });
     }
     await recordAudit(trx, {
       userId: user.id,
       buildingId,
-      action: 'revision.freeze',
+      action: input.issueUnchecked ? 'revision.freeze' : 'revision.prepare',
       detail: { revisionId: row.id, code, hash, failingLifts: failing.length },
     });
-    return { id: row.id, snapshot, hash };
+    return { id: row.id, snapshot, hash, issued: input.issueUnchecked };
   });
 }
 
@@ -312,7 +307,7 @@ async function mailCounts(db: Knex, revisionIds: number[]): Promise<Map<number, 
   return counts;
 }
 
-function toSummary(row: RevisionRow, mail: Record<MailStatus, number>): RevisionSummary {
+function toSummary(row: RevisionRow, mail: Record<MailStatus, number>, review: ReviewSummary): RevisionSummary {
   return {
     id: row.id,
     buildingId: row.building_id,
@@ -326,6 +321,7 @@ function toSummary(row: RevisionRow, mail: Record<MailStatus, number>): Revision
     worstUtilisation: row.worst_utilisation === null ? null : Number(row.worst_utilisation),
     failingLifts: row.failing_lifts,
     mail,
+    review,
   };
 }
 
@@ -334,11 +330,20 @@ export async function listRevisions(db: Knex, buildingId: number): Promise<Revis
     .where({ building_id: buildingId })
     .orderBy('id', 'desc')
     .select<RevisionRow[]>(SUMMARY_COLUMNS);
-  const counts = await mailCounts(
-    db,
-    rows.map((r) => r.id),
-  );
-  return rows.map((r) => toSummary(r, counts.get(r.id) ?? { pending: 0, sent: 0, failed: 0 }));
+  const [counts, reviews] = await Promise.all([
+    mailCounts(
+      db,
+      rows.map((r) => r.id),
+    ),
+    reviewSummaries(db, rows),
+  ]);
+  return rows.map((r) => toSummary(r, counts.get(r.id) ?? { pending: 0, sent: 0, failed: 0 }, reviewOf(reviews, r)));
+}
+
+function reviewOf(reviews: Map<number, ReviewSummary>, row: RevisionRow): ReviewSummary {
+  const review = reviews.get(row.id);
+  if (!review) throw new Error(`Revision ${row.id}: no review record`);
+  return review;
 }
 
 async function loadRevisionRow(db: Knex, id: number): Promise<RevisionRow> {
@@ -363,13 +368,14 @@ export async function loadSnapshot(db: Knex, id: number): Promise<{ snapshot: Re
 
 export async function getRevision(db: Knex, id: number): Promise<RevisionDetail> {
   const row = await loadRevisionRow(db, id);
-  const [{ snapshot }, counts, recipients] = await Promise.all([
+  const [{ snapshot }, counts, recipients, reviews] = await Promise.all([
     loadSnapshot(db, id),
     mailCounts(db, [id]),
     listRecipients(db, id),
+    reviewSummaries(db, [row]),
   ]);
   return {
-    ...toSummary(row, counts.get(id) ?? { pending: 0, sent: 0, failed: 0 }),
+    ...toSummary(row, counts.get(id) ?? { pending: 0, sent: 0, failed: 0 }, reviewOf(reviews, row)),
     engineVersion: row.engine_version,
     acknowledgement: row.acknowledgement,
     options: snapshot.options,
@@ -385,6 +391,7 @@ export async function getRevision(db: Knex, id: number): Promise<RevisionDetail>
         governingSection: sum.governingSection,
         utilisation: sum.utilisation,
         status: sum.status,
+        lifts: s.results.lifts.map((l) => ({ liftId: l.liftId, label: l.label ?? 'lift' })),
       };
     }),
     recipients,

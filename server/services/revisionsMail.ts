@@ -4,15 +4,29 @@
 // after commit loses no mail. Each recipient's outcome is kept; a lead can send again to the failed.
 import escapeHtml from 'escape-html';
 import type { Knex } from 'knex';
+import type { SignOff } from '../../shared/schema/reviews.ts';
 import type { RevisionSnapshot } from '../../shared/schema/revisions.ts';
 import type { ServerContext } from '../context.ts';
 import { now } from '../db.ts';
 import { enqueueMail, requeueFailed } from '../mail/mailQueue.ts';
 import type { MailMessage } from '../mail/mailer.ts';
 import { recipientRows } from './revisionsRecipients.ts';
+import { loadSignOff } from './reviews.ts';
 
 export const packageFilename = (s: Pick<RevisionSnapshot, 'building' | 'code'>) =>
   `${(s.building.reference || s.building.name).replace(/[^A-Za-z0-9._-]+/g, '-')}-${s.code}-calculations.pdf`;
+
+/** "Prepared by A on 2026-12-03; checked by B on …; approved by C on …", as the cover prints it. */
+export function signOffWords(o: SignOff): string {
+  const on = (at: string) => at.slice(0, 10);
+  const checked = o.checked
+    ? `checked by ${o.checked.name} on ${on(o.checked.at)}`
+    : o.unchecked
+      ? 'not checked (preliminary issue)'
+      : 'not checked yet';
+  const approved = o.approved ? `approved by ${o.approved.name} on ${on(o.approved.at)}` : 'not approved yet';
+  return `Prepared by ${o.prepared.name} on ${on(o.prepared.at)}; ${checked}; ${approved}.`;
+}
 
 /** The message without its attachment: the sender attaches the stored package when it sends. */
 export function revisionMessage(
@@ -20,6 +34,7 @@ export function revisionMessage(
   hash: string,
   to: string,
   link: string,
+  signOff: SignOff | null = null,
 ): Omit<MailMessage, 'attachments'> {
   const purpose = s.purpose === 'construction' ? 'for construction' : 'preliminary';
   const issue = s.purpose === 'construction' ? 'for construction' : 'as a preliminary issue';
@@ -27,14 +42,23 @@ export function revisionMessage(
   const subject = `${s.building.name}: revision ${s.code} issued (${purpose})`;
   const note = s.note ? `\nNote: ${s.note}\n` : '';
   const ack = s.acknowledgement ? `\n${s.acknowledgement}\n` : '';
+  const reason = signOff?.openCommentsReason
+    ? `Approved with ${signOff.openComments.length} comment${signOff.openComments.length === 1 ? '' : 's'} open: ${signOff.openCommentsReason}`
+    : '';
+  // Revisions frozen before checking existed were issued by whoever froze them.
+  const opening = signOff
+    ? `Revision ${s.code} of "${s.building.name}" (${stacks}) is issued ${issue}. ${signOffWords(signOff)}`
+    : `${s.frozenBy.name} has frozen revision ${s.code} of "${s.building.name}" (${stacks}) ${issue}.`;
   const text =
-    `${s.frozenBy.name} has frozen revision ${s.code} of "${s.building.name}" (${stacks}) ${issue}.\n` +
+    `${opening}\n` +
+    (reason ? `\n${reason}\n` : '') +
     note +
     ack +
     `\nThe calculation package is attached. Revisions of the building: ${link}\n` +
     `Snapshot SHA-256: ${hash}\n`;
   const html =
-    `<p>${escapeHtml(s.frozenBy.name)} has frozen revision <b>${escapeHtml(s.code)}</b> of <b>${escapeHtml(s.building.name)}</b> (${stacks}) ${issue}.</p>` +
+    `<p>${escapeHtml(opening)}</p>` +
+    (reason ? `<p><b>${escapeHtml(reason)}</b></p>` : '') +
     (s.note ? `<p>Note: ${escapeHtml(s.note)}</p>` : '') +
     (s.acknowledgement ? `<p><b>${escapeHtml(s.acknowledgement)}</b></p>` : '') +
     `<p>The calculation package is attached. <a href="${escapeHtml(link)}">Open the revisions of the building</a>.</p>`;
@@ -52,6 +76,7 @@ export async function resendRevisionMail(
   hash: string,
   link: string,
 ): Promise<number> {
+  const signOff = await loadSignOff(ctx.db, revisionId);
   const n = await ctx.db.transaction(async (trx: Knex) => {
     let queued = await requeueFailed(trx, revisionId);
     const open = await trx('mail_queue')
@@ -66,7 +91,7 @@ export async function resendRevisionMail(
       await enqueueMail(trx, [
         {
           kind: 'revision',
-          message: revisionMessage(snapshot, hash, row.email, link),
+          message: revisionMessage(snapshot, hash, row.email, link, signOff),
           attachRevisionId: revisionId,
           recipientId: row.id,
           buildingId: snapshot.building.id,

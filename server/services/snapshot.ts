@@ -6,7 +6,9 @@ import { placeOnLevels } from '../../shared/engine/stack/placeOnLevels.ts';
 import type { RevisionSnapshot, SnapshotStack } from '../../shared/schema/revisions.ts';
 import { getBuildingOptions } from './buildings.ts';
 import { listLevels } from './levels.ts';
+import type { SectionDims } from '../../shared/schema/stack.ts';
 import { readModel } from './buildingModelStore.ts';
+import { companySectionMap } from './companySections.ts';
 import { parseDoc, parseResults, placeOf, type StackRow } from './stackRows.ts';
 
 /** JSON with object keys in code-point order at every depth, so equal content gives equal text. */
@@ -52,21 +54,36 @@ export async function snapshotStacks(db: Knex, buildingId: number): Promise<Snap
     .sort(byStackName);
 }
 
-export type SnapshotMeta = Omit<RevisionSnapshot, 'format' | 'options' | 'levels' | 'stacks'>;
+function usedOwnSections(stacks: SnapshotStack[], own: Map<string, SectionDims>): Record<string, SectionDims> {
+  const used: Record<string, SectionDims> = {};
+  for (const s of stacks)
+    for (const n of s.doc.nodes)
+      if (n.kind === 'lift' && typeof n.data.section === 'string') {
+        const dims = own.get(n.data.section);
+        if (dims) used[n.data.section] = dims;
+      }
+  return used;
+}
+
+export type SnapshotMeta = Omit<RevisionSnapshot, 'format' | 'options' | 'levels' | 'stacks' | 'sections'>;
 
 export async function takeSnapshot(
   db: Knex,
   meta: SnapshotMeta,
   stacks: SnapshotStack[],
 ): Promise<{ snapshot: RevisionSnapshot; text: string; hash: string }> {
-  const [options, levels, stored] = await Promise.all([
+  const [options, levels, stored, own] = await Promise.all([
     getBuildingOptions(db, meta.building.id),
     listLevels(db, meta.building.id),
     readModel(db, meta.building.id),
+    companySectionMap(db, meta.building.id),
   ]);
   const snapshot: RevisionSnapshot = { format: 1, ...meta, options, levels, stacks };
   // What the derived loads came from; a building without a model freezes exactly as before.
   if (stored.version > 0) snapshot.buildingModel = stored.model;
+  // The building's own sections its lifts use, so the package's column schedule can weigh them.
+  const used = usedOwnSections(stacks, own);
+  if (Object.keys(used).length > 0) snapshot.sections = used;
   const text = canonicalJson(snapshot);
   return { snapshot, text, hash: sha256Hex(text) };
 }

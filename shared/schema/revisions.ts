@@ -4,7 +4,8 @@ import { z } from 'zod';
 import type { BuildingModel, StackPlacement } from './building.ts';
 import type { Level } from './api.ts';
 import type { AnalysisOptions, StackResult, StackStatus } from './results.ts';
-import type { NodeKind, StackDocument } from './stack.ts';
+import type { NodeKind, SectionDims, StackDocument } from './stack.ts';
+import type { ReviewSummary } from './reviews.ts';
 
 export const revisionPurposeSchema = z.enum(['preliminary', 'construction']);
 export type RevisionPurpose = z.infer<typeof revisionPurposeSchema>;
@@ -65,6 +66,8 @@ export interface RevisionSnapshot {
   stacks: SnapshotStack[];
   /** The grid, build-ups, floor loads and areas set by hand the derived loads came from; absent when the building has none. */
   buildingModel?: BuildingModel;
+  /** The building's own sections the lifts use (by name), for the column schedule; absent when none. */
+  sections?: Record<string, SectionDims>;
 }
 
 export type MailStatus = 'pending' | 'sent' | 'failed';
@@ -92,6 +95,8 @@ export interface RevisionSummary {
   worstUtilisation: number | null;
   failingLifts: number;
   mail: Record<MailStatus, number>;
+  /** Prepared, checked, approved (docs/issue-workflow.md). */
+  review: ReviewSummary;
 }
 
 export interface RevisionStackSummary {
@@ -103,6 +108,8 @@ export interface RevisionStackSummary {
   governingSection: string | null;
   utilisation: number | null;
   status: StackStatus;
+  /** Every lift as frozen (its node id for linking, its label L1, L2, … for people): what a check comment names. */
+  lifts: { liftId: string; label: string }[];
 }
 
 export interface RevisionDetail extends RevisionSummary {

@@ -59,8 +59,11 @@ export const useRevisionsStore = defineStore('revisions', () => {
     });
     detail.value = created;
     list.value = [created, ...list.value.filter((r) => r.id !== created.id)];
+    // A lead's freeze of a construction revision waits for its check and approval (docs/issue-workflow.md).
     notify.success(
-      `Revision ${created.code} frozen; e-mail to ${created.recipients.length} member${created.recipients.length === 1 ? '' : 's'} is on its way`,
+      created.review.state === 'issued'
+        ? `Revision ${created.code} frozen; e-mail to ${created.recipients.length} member${created.recipients.length === 1 ? '' : 's'} is on its way`
+        : `Revision ${created.code} frozen: it is issued once it is checked and approved`,
     );
     return created;
   }

@@ -21,6 +21,14 @@ const summary: RevisionSummary = {
   worstUtilisation: 0.81,
   failingLifts: 0,
   mail: { pending: 0, sent: 3, failed: 0 },
+  review: {
+    state: 'issued',
+    prepared: { name: 'Lead Engineer', at: '2026-03-14T09:05:00.000Z' },
+    checked: null,
+    approved: { name: 'Lead Engineer', at: '2026-03-14T09:05:00.000Z' },
+    unchecked: true,
+    openComments: 0,
+  },
 };
 const detail: RevisionDetail = {
   ...summary,

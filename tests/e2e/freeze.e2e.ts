@@ -44,10 +44,18 @@ describeInBrowser('freezing a revision', () => {
         body: JSON.stringify({ email: DEMO.admin, password: DEMO_PASSWORD }),
       })
     ).json()) as AuthResponse;
-    const outbox = (await (
-      await fetch(`${session.app.url}/api/dev/outbox`, { headers: { Authorization: `Bearer ${admin.token}` } })
-    ).json()) as OutboxMessage[];
-    const issued = outbox.filter((m) => m.subject.includes('P01'));
+    // The e-mails leave the durable outbox after the freeze has answered: wait for the three (up to 20 s).
+    const sent = async () =>
+      (
+        (await (
+          await fetch(`${session.app.url}/api/dev/outbox`, { headers: { Authorization: `Bearer ${admin.token}` } })
+        ).json()) as OutboxMessage[]
+      ).filter((m) => m.subject.includes('P01'));
+    let issued = await sent();
+    for (let i = 0; i < 100 && issued.length < 3; i++) {
+      await new Promise((resolve) => setTimeout(resolve, 200));
+      issued = await sent();
+    }
     expect(issued.map((m) => m.to).sort()).toEqual([DEMO.engineer, DEMO.lead, DEMO.viewer].sort());
     for (const m of issued)
       expect(m.attachments.some((a) => a.contentType === 'application/pdf' && a.size > 10_000)).toBe(true);

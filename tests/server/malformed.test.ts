@@ -28,6 +28,9 @@ const TABLES = [
   'revision_packages',
   'building_models',
   'stack_positions',
+  'revisions',
+  'revision_steps',
+  'revision_comments',
 ];
 const HUGE = JSON.stringify({ name: 'x'.repeat(1_200_000) });
 
@@ -42,7 +45,7 @@ interface Req {
 describe('malformed input on every writing route', () => {
   let s: TestServer;
   let token: string;
-  let ids: { building: number; level: string; stack: number; member: number };
+  let ids: { building: number; level: string; stack: number; member: number; revision: number; comment: number };
   let doc: StackDetail['doc'];
 
   beforeAll(async () => {
@@ -60,7 +63,18 @@ describe('malformed input on every writing route', () => {
       })
     ).body as StackSummary;
     doc = ((await s.api('GET', `/stacks/${stack.id}`, { token })).body as StackDetail).doc;
-    ids = { building: b.id, level: level.id, stack: stack.id, member: other.user.id };
+    // Prepared by the other member, with a comment, so the lead may check, comment, resolve and approve it.
+    const prepared = await s.api('POST', `/buildings/${b.id}/revisions/prepare`, {
+      token: other.token,
+      body: { note: '', purpose: 'construction' },
+    });
+    const revision = (prepared.body as { id: number }).id;
+    const commented = await s.api('POST', `/revisions/${revision}/comments`, {
+      token: other.token,
+      body: { stackId: stack.id, text: 'check this' },
+    });
+    const comment = (commented.body as { comments: { id: number }[] }).comments[0].id;
+    ids = { building: b.id, level: level.id, stack: stack.id, member: other.user.id, revision, comment };
   });
   afterAll(async () => {
     await s?.close();
@@ -495,6 +509,66 @@ describe('malformed input on every writing route', () => {
         ['a note that is a number', { body: { purpose: 'preliminary', note: 1e308 } }],
         ['acknowledgement as a string', { body: { purpose: 'preliminary', acknowledgeFailingLifts: 'NaN' } }],
         ['an unknown field', { body: { purpose: 'preliminary', code: 'P99' } }],
+      ],
+    },
+    {
+      name: 'POST /api/buildings/:id/revisions/prepare',
+      method: 'POST',
+      path: () => `/buildings/${ids.building}/revisions/prepare`,
+      cases: () => [
+        ['an unknown purpose', { body: { purpose: 'final', note: 'x' } }],
+        ['a note of 100 000 characters', { body: { purpose: 'construction', note: 'n'.repeat(100_000) } }],
+        ['an unknown field', { body: { purpose: 'construction', code: 'C99' } }],
+      ],
+    },
+    // Their bodies are all optional: {} is a valid check or approval, so only wrong ones are sent.
+    {
+      name: 'POST /api/revisions/:id/check',
+      method: 'POST',
+      path: () => `/revisions/${ids.revision}/check`,
+      bodyless: true,
+      cases: () => [
+        ['a note that is a number', { body: { note: 1e308 } }],
+        ['an unknown field', { body: { note: '', approve: true } }],
+        ['a JSON array', { body: [] }],
+        ['NaN as the revision id', { path: '/revisions/NaN/check', body: {} }],
+      ],
+    },
+    {
+      name: 'POST /api/revisions/:id/approve',
+      method: 'POST',
+      path: () => `/revisions/${ids.revision}/approve`,
+      bodyless: true,
+      cases: () => [
+        ['a reason that is a number', { body: { openCommentsReason: 5 } }],
+        ['a reason of 100 000 characters', { body: { openCommentsReason: 'r'.repeat(100_000) } }],
+        ['an unknown field', { body: { unchecked: true } }],
+        ['a revision id of 1e308', { path: '/revisions/1e308/approve', body: {} }],
+      ],
+    },
+    {
+      name: 'POST /api/revisions/:id/comments',
+      method: 'POST',
+      path: () => `/revisions/${ids.revision}/comments`,
+      cases: () => [
+        ['no text', { body: { stackId: ids.stack, text: '' } }],
+        ['a stack id that is a string', { body: { stackId: 'A/1', text: 'x' } }],
+        ['a lift id that is a number', { body: { stackId: ids.stack, liftId: 3, text: 'x' } }],
+        ['a stack not in the revision', { body: { stackId: 999_999, text: 'x' } }],
+        ['a lift not in the stack', { body: { stackId: ids.stack, liftId: 'nowhere', text: 'x' } }],
+        ['an unknown field', { body: { stackId: ids.stack, text: 'x', resolved: true } }],
+      ],
+    },
+    {
+      name: 'POST /api/revisions/:id/comments/:commentId/resolve',
+      method: 'POST',
+      path: () => `/revisions/${ids.revision}/comments/${ids.comment}/resolve`,
+      bodyless: true,
+      cases: () => [
+        ['a note that is an object', { body: { note: { x: 1 } } }],
+        ['an unknown field', { body: { note: '', reopen: true } }],
+        ['a comment id of -1', { path: `/revisions/${ids.revision}/comments/-1/resolve`, body: {} }],
+        ['a comment of no revision', { path: `/revisions/${ids.revision}/comments/999999/resolve`, body: {} }],
       ],
     },
     {

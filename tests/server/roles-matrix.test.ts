@@ -41,6 +41,10 @@ interface Fixture {
   verifyToken: string;
   /** A further position of the stack, where a case's `prepare` made one (typical columns). */
   positionId?: number;
+  /** A revision of this building prepared by a member who is none of the actors (for cases with `review`). */
+  reviewRevisionId: number;
+  /** A comment on it by that member (review 'commented'). */
+  commentId: number;
 }
 interface Case {
   path: (f: Fixture) => string;
@@ -50,6 +54,8 @@ interface Case {
   endsSession?: boolean;
   /** Sets up what the route needs beyond the fixture, as the lead. */
   prepare?: (s: TestServer, lead: string, f: Fixture) => Promise<Partial<Fixture>>;
+  /** The fixture's building gets a revision prepared by another engineer: checked, or with a comment. */
+  review?: 'prepared' | 'checked' | 'commented';
 }
 
 const LEAD_EMAIL = 'matrix-lead@example.test';
@@ -324,6 +330,37 @@ const MATRIX: Record<string, Case> = {
     path: (f) => `/revisions/${f.revisionId}/package/redraw`,
     expect: leadOnly(409),
   },
+  'POST /api/buildings/:id/revisions/prepare': {
+    path: (f) => `/buildings/${f.buildingId}/revisions/prepare`,
+    body: () => ({ note: 'matrix', purpose: 'construction' }),
+    expect: edit(201),
+  },
+  'GET /api/revisions/:id/review': { path: (f) => `/revisions/${f.revisionId}/review`, expect: read },
+  // Prepared by another member, so the engineer and the lead may check it.
+  'POST /api/revisions/:id/check': {
+    path: (f) => `/revisions/${f.reviewRevisionId}/check`,
+    body: () => ({}),
+    review: 'prepared',
+    expect: edit(200),
+  },
+  'POST /api/revisions/:id/comments': {
+    path: (f) => `/revisions/${f.reviewRevisionId}/comments`,
+    body: (f) => ({ stackId: f.stackId, liftId: null, text: 'matrix' }),
+    review: 'prepared',
+    expect: edit(201),
+  },
+  'POST /api/revisions/:id/comments/:commentId/resolve': {
+    path: (f) => `/revisions/${f.reviewRevisionId}/comments/${f.commentId}/resolve`,
+    body: () => ({}),
+    review: 'commented',
+    expect: edit(200),
+  },
+  'POST /api/revisions/:id/approve': {
+    path: (f) => `/revisions/${f.reviewRevisionId}/approve`,
+    body: () => ({}),
+    review: 'checked',
+    expect: leadOnly(200),
+  },
   'GET /api/dev/outbox': { path: () => '/dev/outbox', expect: adminOnly },
   // Only for a building with no lead: the fixture's building has one, so even the admin is refused (409).
   'POST /api/admin/buildings/:id/lead': {
@@ -359,6 +396,9 @@ describe('the role matrix', () => {
   let s: TestServer;
   const tokens = {} as Record<Exclude<Actor, 'anonymous'>, AuthResponse>;
   let verifyToken = '';
+  /** Two engineers who are none of the actors: one prepares the revisions of the review cases, one checks. */
+  let preparer: AuthResponse;
+  let checker: AuthResponse;
 
   beforeAll(async () => {
     s = await startTestServer({ config: { loginRateLimit: { windowMs: 60_000, max: 10_000 } } });
@@ -367,6 +407,8 @@ describe('the role matrix', () => {
     tokens.lead = await registerAndVerify(s, LEAD_EMAIL, 'Lead', LEAD_PASSWORD);
     verifyToken = await verificationToken(s, LEAD_EMAIL);
     await makeAdmin(s, tokens.admin.user.id);
+    preparer = await registerUser(s, 'preparer');
+    checker = await registerUser(s, 'checker');
     await s.ctx.mailer.sendMail({
       to: 'x@example.test',
       subject: 'Attachment',
@@ -396,8 +438,34 @@ describe('the role matrix', () => {
     return revision;
   }
 
+  /** A revision of building b prepared by `preparer`, then commented on or checked by the second engineer. */
+  async function reviewFixture(
+    b: number,
+    stackId: number,
+    review: NonNullable<Case['review']>,
+  ): Promise<{ reviewRevisionId: number; commentId: number }> {
+    const lead = tokens.lead.token;
+    for (const m of [preparer, checker]) await addMember(s, lead, b, m.user.email, 'engineer');
+    const r = await s.api('POST', `/buildings/${b}/revisions/prepare`, {
+      token: preparer.token,
+      body: { note: '', purpose: 'construction' },
+    });
+    const reviewRevisionId = (r.body as { id: number }).id;
+    let commentId = 0;
+    if (review === 'commented') {
+      const c = await s.api('POST', `/revisions/${reviewRevisionId}/comments`, {
+        token: checker.token,
+        body: { stackId, liftId: null, text: 'matrix' },
+      });
+      commentId = (c.body as { comments: { id: number }[] }).comments[0].id;
+    }
+    if (review === 'checked')
+      await s.api('POST', `/revisions/${reviewRevisionId}/check`, { token: checker.token, body: {} });
+    return { reviewRevisionId, commentId };
+  }
+
   /** A fresh building per request, so a delete or a role change never affects the next case. */
-  async function fixture(): Promise<Fixture> {
+  async function fixture(review?: Case['review']): Promise<Fixture> {
     const lead = tokens.lead.token;
     const b = await createBuilding(s, lead, 'Matrix');
     await addMember(s, lead, b.id, tokens.viewer.user.email, 'viewer');
@@ -418,6 +486,7 @@ describe('the role matrix', () => {
       outboxId: outbox.id,
       verifyToken,
       ...(await sharedRevision()),
+      ...(review ? await reviewFixture(b.id, stack.id, review) : { reviewRevisionId: 0, commentId: 0 }),
     };
   }
 
@@ -429,7 +498,7 @@ describe('the role matrix', () => {
     it(`${route}: ${ACTORS.map((a) => `${a} ${c.expect[a]}`).join(', ')}`, async () => {
       const got: Record<string, number> = {};
       for (const actor of ACTORS) {
-        const base = await fixture();
+        const base = await fixture(c.review);
         const f = { ...base, ...(await c.prepare?.(s, tokens.lead.token, base)) };
         const [method] = route.split(' ');
         const token = actor === 'anonymous' ? null : tokens[actor].token;

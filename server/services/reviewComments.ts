@@ -1,0 +1,110 @@
+// A checker's comments on the stacks and lifts of a revision (docs/issue-workflow.md): open until resolved, once;
+// who wrote each and when, who resolved it and when. Written only while the review is open.
+import type { Knex } from 'knex';
+import type { Role, User } from '../../shared/schema/api.ts';
+import type { ResolveBody, ReviewComment } from '../../shared/schema/reviews.ts';
+import { now } from '../db.ts';
+import { conflict, notFound, unprocessable } from '../errors.ts';
+import { recordAudit } from './audit.ts';
+import { allow, recordOf } from './reviewState.ts';
+import { loadSnapshot } from './revisions.ts';
+
+export interface CommentRow {
+  id: number;
+  revision_id: number;
+  stack_id: number;
+  stack_name: string;
+  lift_id: string | null;
+  lift_label: string | null;
+  text: string;
+  author_name: string;
+  created_at: string;
+  resolved_by_name: string | null;
+  resolved_at: string | null;
+  resolution: string | null;
+}
+
+export const toComment = (c: CommentRow): ReviewComment => ({
+  id: c.id,
+  stackId: c.stack_id,
+  stack: c.stack_name,
+  liftId: c.lift_id,
+  lift: c.lift_label,
+  text: c.text,
+  by: { name: c.author_name, at: c.created_at },
+  resolved:
+    c.resolved_at !== null ? { name: c.resolved_by_name ?? '', at: c.resolved_at, note: c.resolution ?? '' } : null,
+});
+
+export const commentRows = (db: Knex, revisionId: number) =>
+  db<CommentRow>('revision_comments').where({ revision_id: revisionId }).orderBy('id');
+
+export async function addComment(
+  db: Knex,
+  revisionId: number,
+  body: { stackId: number; liftId: string | null; text: string },
+  user: User,
+  role: Role | null,
+): Promise<ReviewComment> {
+  const { snapshot } = await loadSnapshot(db, revisionId);
+  const stack = snapshot.stacks.find((s) => s.id === body.stackId);
+  if (!stack) throw unprocessable(`Stack ${body.stackId} is not in revision ${snapshot.code}`);
+  let liftLabel: string | null = null;
+  if (body.liftId !== null) {
+    const lift = stack.results.lifts.find((l) => l.liftId === body.liftId);
+    if (!lift) throw unprocessable(`Stack ${stack.name} has no lift ${body.liftId} in revision ${snapshot.code}`);
+    liftLabel = lift.label ?? lift.liftId;
+  }
+  return db.transaction(async (trx) => {
+    const r = await recordOf(trx, revisionId);
+    allow('comment', role, user, r);
+    const [row] = await trx('revision_comments')
+      .insert({
+        revision_id: revisionId,
+        stack_id: stack.id,
+        stack_name: stack.name,
+        lift_id: body.liftId,
+        lift_label: liftLabel,
+        text: body.text,
+        author_id: user.id,
+        author_name: user.name,
+        created_at: now(),
+      })
+      .returning<{ id: number }[]>('id');
+    await recordAudit(trx, {
+      userId: user.id,
+      buildingId: r.head.building_id,
+      action: 'revision.comment',
+      detail: { revisionId, commentId: row.id },
+    });
+    return toComment((await trx<CommentRow>('revision_comments').where({ id: row.id }).first()) as CommentRow);
+  });
+}
+
+export async function resolveComment(
+  db: Knex,
+  revisionId: number,
+  commentId: number,
+  body: Required<ResolveBody>,
+  user: User,
+  role: Role | null,
+): Promise<ReviewComment> {
+  return db.transaction(async (trx) => {
+    const r = await recordOf(trx, revisionId);
+    allow('resolve', role, user, r);
+    const found = await trx<CommentRow>('revision_comments').where({ id: commentId, revision_id: revisionId }).first();
+    if (!found) throw notFound('Comment');
+    const n = await trx('revision_comments')
+      .where({ id: commentId })
+      .whereNull('resolved_at')
+      .update({ resolved_by: user.id, resolved_by_name: user.name, resolved_at: now(), resolution: body.note });
+    if (n === 0) throw conflict('This comment is resolved already');
+    await recordAudit(trx, {
+      userId: user.id,
+      buildingId: r.head.building_id,
+      action: 'revision.resolve',
+      detail: { revisionId, commentId },
+    });
+    return toComment((await trx<CommentRow>('revision_comments').where({ id: commentId }).first()) as CommentRow);
+  });
+}
