@@ -172,7 +172,12 @@ export async function replaceDoc(
   });
 }
 
-export function broadcastChange(ctx: ServerContext, c: CommittedChange, by: { userId: number; name: string }): void {
+export function broadcastChange(
+  ctx: ServerContext,
+  c: CommittedChange,
+  by: { userId: number; name: string },
+  editId?: string,
+): void {
   try {
     ctx.broadcaster.stackChanged({
       buildingId: c.buildingId,
@@ -181,6 +186,7 @@ export function broadcastChange(ctx: ServerContext, c: CommittedChange, by: { us
       ops: c.ops,
       results: c.results,
       by,
+      ...(editId ? { editId } : {}),
     });
     ctx.broadcaster.buildingStackChanged({
       buildingId: c.buildingId,
@@ -198,15 +204,17 @@ export function broadcastChange(ctx: ServerContext, c: CommittedChange, by: { us
   }
 }
 
-/** applyOps then broadcast: what the REST ops route and the live channel call. */
+/** applyOps then broadcast: what the REST ops route and the live channel call. The client's edit id, when it
+ *  gave one, goes out with the broadcast so the client knows its own edit (docs/live-protocol.md). */
 export async function editStack(
   ctx: ServerContext,
   input: Omit<OpsInput, 'userId'>,
   user: User,
+  editId?: string,
 ): Promise<CommittedChange> {
   const change = await applyOps(ctx.db, { ...input, userId: user.id, offThread: ctx.offThread });
   // Storing a large stack and encoding its broadcast are each tens of milliseconds: not in one turn.
   if (change.results.lifts.length > LARGE_STACK_LIFTS) await yieldToLoop();
-  broadcastChange(ctx, change, { userId: user.id, name: user.name });
+  broadcastChange(ctx, change, { userId: user.id, name: user.name }, editId);
   return change;
 }

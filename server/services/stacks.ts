@@ -1,7 +1,8 @@
 // Stacks of a building: list, read, create (empty, from a document or from a template), rename,
 // delete. Edits to the document go through stackOps.ts.
 import type { Knex } from 'knex';
-import type { StackDetail, StackSummary, StackTemplate, User } from '../../shared/schema/api.ts';
+import type { Role, StackDetail, StackSummary, StackTemplate, User } from '../../shared/schema/api.ts';
+import type { StackJoinAck } from '../../shared/schema/socket.ts';
 import type { StackDocument } from '../../shared/schema/stack.ts';
 import { stackFromTemplate } from '../../shared/ops/stackFromTemplate.ts';
 import { now } from '../db.ts';
@@ -19,6 +20,27 @@ export async function listStacks(db: Knex, buildingId: number): Promise<StackSum
 
 export async function getStack(db: Knex, id: number): Promise<StackDetail> {
   return toDetail(await loadStackRow(db, id));
+}
+
+/** Everything the stack page needs on opening, for the live channel's join (docs/live-protocol.md): the
+ *  document, its results, and the building's name and levels with the caller's role (null: a site admin
+ *  reading as a viewer). */
+export async function openStack(db: Knex, id: number, role: Role | null): Promise<StackJoinAck> {
+  const stack = await getStack(db, id);
+  const [building, levels] = await Promise.all([
+    db('buildings').where({ id: stack.buildingId }).first<{ name: string }>('name'),
+    listLevels(db, stack.buildingId),
+  ]);
+  return {
+    doc: stack.doc,
+    version: stack.version,
+    results: stack.results,
+    name: stack.name,
+    buildingId: stack.buildingId,
+    buildingName: building.name,
+    role: role ?? 'viewer',
+    levels,
+  };
 }
 
 export interface NewStack {

@@ -54,16 +54,22 @@ async function register(label: string): Promise<AuthResponse> {
   const email = `${label}-${Date.now()}@example.test`;
   const password = 'correct horse battery';
   await api('POST', '/auth/register', null, { email, password, name: `${label} person` });
-  const db = new Database(join(dataDir, 'stanchion.sqlite'), { readonly: true });
-  try {
-    const mail = db.prepare('SELECT text FROM outbox WHERE "to" = ? ORDER BY id DESC').get(email) as
-      { text: string } | undefined;
-    const token = /verify-email\?token=(\S+)/.exec(mail?.text ?? '')?.[1];
-    if (!token) throw new Error(`no verification link for ${email}`);
-    await api('POST', '/auth/verify', null, { token: decodeURIComponent(token) });
-  } finally {
-    db.close();
-  }
+  // Mail goes out through the server's durable queue, a moment after registration answers (docs/faults.md).
+  let token: string | undefined;
+  await until(() => {
+    const db = new Database(join(dataDir, 'stanchion.sqlite'), { readonly: true });
+    try {
+      const mail = db.prepare('SELECT text FROM outbox WHERE "to" = ? ORDER BY id DESC').get(email) as
+        { text: string } | undefined;
+      token = /verify-email\?token=(\S+)/.exec(mail?.text ?? '')?.[1];
+    } finally {
+      db.close();
+    }
+    return token !== undefined;
+  }, 10_000).catch(() => {
+    throw new Error(`no verification link for ${email}`);
+  });
+  await api('POST', '/auth/verify', null, { token: decodeURIComponent(token as string) });
   return api<AuthResponse>('POST', '/auth/login', null, { email, password });
 }
 
@@ -129,6 +135,47 @@ describe('stack store on the live channel', () => {
     expect(store.canEdit).toBe(true);
     expect(store.doc?.nodes.some((n) => n.kind === 'lift')).toBe(true);
     expect(store.results?.lifts.length).toBeGreaterThan(0);
+    store.close();
+  });
+
+  it('opens with one join on the live channel and no REST request: name, building and levels come with it', async () => {
+    const fetchSpy = vi.spyOn(globalThis, 'fetch');
+    try {
+      const store = await openAs(engineer);
+      expect(fetchSpy).not.toHaveBeenCalled();
+      expect(store.name).toBe('B/2');
+      expect(store.buildingId).toBe(building.id);
+      expect(store.buildingName).toBe(building.name);
+      const levels = await api<{ id: string; elevation: number }[]>(
+        'GET',
+        `/buildings/${building.id}/levels`,
+        engineer.token,
+      );
+      expect(store.levels.map((l) => l.id)).toEqual(levels.map((l) => l.id));
+      store.close();
+    } finally {
+      fetchSpy.mockRestore();
+    }
+  });
+
+  it('names each edit; the server echoes the name to everyone and the store takes its edit back once', async () => {
+    const store = await openAs(engineer);
+    const watcher = connectLive(colleague.token, baseUrl);
+    await joinStack(watcher, stackId);
+    const heard: { version: number; editId?: string }[] = [];
+    watcher.on('stack:changed', (c) => heard.push(c));
+    const cap = store.doc?.nodes.find((n) => n.kind === 'cap');
+    if (!cap) throw new Error('template has a cap');
+    const before = store.version;
+    store.edit([{ op: 'updateNode', id: cap.id, data: { Gk: 61 } }], 'Change Gk');
+    store.edit([{ op: 'updateNode', id: cap.id, data: { Gk: 61 } }], 'Change Gk');
+    await until(() => !store.saving && heard.length === 2);
+    expect(store.version).toBe(before + 2);
+    // Two edits with the same ops still carry two names.
+    expect(heard.map((c) => c.version)).toEqual([before + 1, before + 2]);
+    expect(new Set(heard.map((c) => c.editId)).size).toBe(2);
+    heard.forEach((c) => expect(c.editId).toMatch(/^[A-Za-z0-9_-]+$/));
+    watcher.disconnect();
     store.close();
   });
 
