@@ -128,145 +128,139 @@ export async function freezeRevision(
   arrivedAt: string,
 ): Promise<{ id: number; snapshot: RevisionSnapshot; hash: string }> {
   return onUniqueViolation(
-    () => freezeIn(db, buildingId, input, user, arrivedAt),
+    () =>
+      db.transaction(async (trx) => {
+        const buildingQuery = trx('buildings').where({ id: buildingId });
+        if (isPostgres(trx)) buildingQuery.forUpdate();
+        const building = await buildingQuery.first<{ id: number; name: string; reference: string } | undefined>(
+          'id',
+          'name',
+          'reference',
+        );
+        if (!building) throw notFound('Building');
+        const unseen = await trx('revisions')
+          .where({ building_id: buildingId })
+          .andWhere('frozen_at', '>=', arrivedAt)
+          .orderBy('id', 'desc')
+          .first<{ id: number; code: string } | undefined>('id', 'code');
+        const newest = await trx('revisions')
+          .where({ building_id: buildingId })
+          .orderBy('id', 'desc')
+          .first<{ id: number; code: string } | undefined>('id', 'code');
+        if (input.afterRevisionId !== undefined && (newest?.id ?? null) !== input.afterRevisionId) {
+          if (!newest) throw conflict('The revision this freeze was based on does not exist; reload the revisions');
+          throw conflict(
+            `Revision ${newest.code} is newer than the one this freeze was based on; check it, and freeze again only if another revision is needed`,
+            { revisionId: newest.id },
+          );
+        }
+        if (unseen) {
+          throw conflict(
+            `Revision ${unseen.code} was frozen while this freeze was on its way; check it, and freeze again only if another revision is needed`,
+            { revisionId: unseen.id },
+          );
+        }
+        const stacks = await snapshotStacks(trx, buildingId);
+        if (stacks.length === 0)
+          throw unprocessable('The building has no stacks to freeze', { reasons: [] } satisfies FreezeRefusal);
+        const reasons = validationReasons(stacks);
+        if (reasons.length > 0)
+          throw unprocessable(
+            `${reasons.length} problem${reasons.length === 1 ? '' : 's'} must be fixed before freezing`,
+            {
+              reasons,
+            } satisfies FreezeRefusal,
+          );
+        const failing = failingLifts(stacks);
+        if (failing.length > 0 && (!input.acknowledgeFailingLifts || input.note.trim() === '')) {
+          const message = `${failing.length} lift${failing.length === 1 ? '' : 's'} exceed utilisation 1.0: acknowledge this and say why in the note to freeze anyway`;
+          throw unprocessable(message, {
+            reasons: failing.map((f) => ({
+              stackId: stacks.find((s) => s.name === f.stack)?.id ?? 0,
+              stack: f.stack,
+              nodeId: f.liftId,
+              message: `Lift ${f.label} (${f.section}) has utilisation ${f.utilisation.toFixed(3)}`,
+            })),
+          } satisfies FreezeRefusal);
+        }
+        const code = await nextCode(trx, buildingId, input.purpose);
+        const frozenAt = now();
+        const acknowledgement = failing.length > 0 ? acknowledgementText(failing, user) : null;
+        const { snapshot, text, hash } = await takeSnapshot(
+          trx,
+          {
+            building,
+            code,
+            purpose: input.purpose,
+            note: input.note,
+            acknowledgement,
+            frozenAt,
+            frozenBy: { id: user.id, name: user.name, email: user.email },
+            engineVersion: input.engineVersion,
+          },
+          stacks,
+        );
+        const utilisations = stacks
+          .map((s) => summariseResult(s.doc, s.results).utilisation)
+          .filter((u): u is number => u !== null);
+        const [row] = await trx('revisions')
+          .insert({
+            building_id: buildingId,
+            code,
+            purpose: input.purpose,
+            note: input.note,
+            acknowledgement,
+            snapshot: text,
+            hash,
+            engine_version: input.engineVersion,
+            frozen_by: user.id,
+            frozen_by_name: user.name,
+            frozen_at: frozenAt,
+            stack_count: stacks.length,
+            worst_utilisation: utilisations.length > 0 ? Math.max(...utilisations) : null,
+            failing_lifts: failing.length,
+          })
+          .returning<{ id: number }[]>('id');
+        const members = await trx('memberships as m')
+          .join('users as u', 'u.id', 'm.user_id')
+          .where('m.building_id', buildingId)
+          .select<{ id: number; email: string; name: string }[]>('u.id', 'u.email', 'u.name');
+        // The issued package is due (drawn once after commit, revisionPackages.ts), and each member's
+        // e-mail is queued in this transaction, so a crash after commit still sends it (mailSender.ts).
+        await trx('revision_packages').insert({ revision_id: row.id, copy: 0, created_at: frozenAt });
+        for (const m of members) {
+          const [recipient] = await trx('revision_recipients')
+            .insert({
+              revision_id: row.id,
+              user_id: m.id,
+              email: m.email,
+              name: m.name,
+              status: 'pending',
+              attempts: 0,
+              updated_at: frozenAt,
+            })
+            .returning<{ id: number }[]>('id');
+          await enqueueMail(trx, [
+            {
+              kind: 'revision',
+              message: revisionMessage(snapshot, hash, m.email, input.link),
+              attachRevisionId: row.id,
+              recipientId: recipient.id,
+              buildingId,
+            },
+          ]);
+        }
+        await recordAudit(trx, {
+          userId: user.id,
+          buildingId,
+          action: 'revision.freeze',
+          detail: { revisionId: row.id, code, hash, failingLifts: failing.length },
+        });
+        return { id: row.id, snapshot, hash };
+      }),
     () =>
       conflict('Another freeze of this building took the same revision code at the same moment; reload the revisions'),
   );
-}
-
-async function freezeIn(
-  db: Knex,
-  buildingId: number,
-  input: FreezeInput,
-  user: User,
-  arrivedAt: string,
-): Promise<{ id: number; snapshot: RevisionSnapshot; hash: string }> {
-  return db.transaction(async (trx) => {
-    const buildingQuery = trx('buildings').where({ id: buildingId });
-    if (isPostgres(trx)) buildingQuery.forUpdate();
-    const building = await buildingQuery.first<{ id: number; name: string; reference: string } | undefined>(
-      'id',
-      'name',
-      'reference',
-    );
-    if (!building) throw notFound('Building');
-    const unseen = await trx('revisions')
-      .where({ building_id: buildingId })
-      .andWhere('frozen_at', '>=', arrivedAt)
-      .orderBy('id', 'desc')
-      .first<{ id: number; code: string } | undefined>('id', 'code');
-    const newest = await trx('revisions')
-      .where({ building_id: buildingId })
-      .orderBy('id', 'desc')
-      .first<{ id: number; code: string } | undefined>('id', 'code');
-    if (input.afterRevisionId !== undefined && (newest?.id ?? null) !== input.afterRevisionId) {
-      if (!newest) throw conflict('The revision this freeze was based on does not exist; reload the revisions');
-      throw conflict(
-        `Revision ${newest.code} is newer than the one this freeze was based on; check it, and freeze again only if another revision is needed`,
-        { revisionId: newest.id },
-      );
-    }
-    if (unseen) {
-      throw conflict(
-        `Revision ${unseen.code} was frozen while this freeze was on its way; check it, and freeze again only if another revision is needed`,
-        { revisionId: unseen.id },
-      );
-    }
-    const stacks = await snapshotStacks(trx, buildingId);
-    if (stacks.length === 0)
-      throw unprocessable('The building has no stacks to freeze', { reasons: [] } satisfies FreezeRefusal);
-    const reasons = validationReasons(stacks);
-    if (reasons.length > 0)
-      throw unprocessable(`${reasons.length} problem${reasons.length === 1 ? '' : 's'} must be fixed before freezing`, {
-        reasons,
-      } satisfies FreezeRefusal);
-    const failing = failingLifts(stacks);
-    if (failing.length > 0 && (!input.acknowledgeFailingLifts || input.note.trim() === '')) {
-      const message = `${failing.length} lift${failing.length === 1 ? '' : 's'} exceed utilisation 1.0: acknowledge this and say why in the note to freeze anyway`;
-      throw unprocessable(message, {
-        reasons: failing.map((f) => ({
-          stackId: stacks.find((s) => s.name === f.stack)?.id ?? 0,
-          stack: f.stack,
-          nodeId: f.liftId,
-          message: `Lift ${f.label} (${f.section}) has utilisation ${f.utilisation.toFixed(3)}`,
-        })),
-      } satisfies FreezeRefusal);
-    }
-    const code = await nextCode(trx, buildingId, input.purpose);
-    const frozenAt = now();
-    const acknowledgement = failing.length > 0 ? acknowledgementText(failing, user) : null;
-    const { snapshot, text, hash } = await takeSnapshot(
-      trx,
-      {
-        building,
-        code,
-        purpose: input.purpose,
-        note: input.note,
-        acknowledgement,
-        frozenAt,
-        frozenBy: { id: user.id, name: user.name, email: user.email },
-        engineVersion: input.engineVersion,
-      },
-      stacks,
-    );
-    const utilisations = stacks
-      .map((s) => summariseResult(s.doc, s.results).utilisation)
-      .filter((u): u is number => u !== null);
-    const [row] = await trx('revisions')
-      .insert({
-        building_id: buildingId,
-        code,
-        purpose: input.purpose,
-        note: input.note,
-        acknowledgement,
-        snapshot: text,
-        hash,
-        engine_version: input.engineVersion,
-        frozen_by: user.id,
-        frozen_by_name: user.name,
-        frozen_at: frozenAt,
-        stack_count: stacks.length,
-        worst_utilisation: utilisations.length > 0 ? Math.max(...utilisations) : null,
-        failing_lifts: failing.length,
-      })
-      .returning<{ id: number }[]>('id');
-    const members = await trx('memberships as m')
-      .join('users as u', 'u.id', 'm.user_id')
-      .where('m.building_id', buildingId)
-      .select<{ id: number; email: string; name: string }[]>('u.id', 'u.email', 'u.name');
-    // The issued package is due (drawn once after commit, revisionPackages.ts), and each member's
-    // e-mail is queued in this transaction, so a crash after commit still sends it (mailSender.ts).
-    await trx('revision_packages').insert({ revision_id: row.id, copy: 0, created_at: frozenAt });
-    for (const m of members) {
-      const [recipient] = await trx('revision_recipients')
-        .insert({
-          revision_id: row.id,
-          user_id: m.id,
-          email: m.email,
-          name: m.name,
-          status: 'pending',
-          attempts: 0,
-          updated_at: frozenAt,
-        })
-        .returning<{ id: number }[]>('id');
-      await enqueueMail(trx, [
-        {
-          kind: 'revision',
-          message: revisionMessage(snapshot, hash, m.email, input.link),
-          attachRevisionId: row.id,
-          recipientId: recipient.id,
-          buildingId,
-        },
-      ]);
-    }
-    await recordAudit(trx, {
-      userId: user.id,
-      buildingId,
-      action: 'revision.freeze',
-      detail: { revisionId: row.id, code, hash, failingLifts: failing.length },
-    });
-    return { id: row.id, snapshot, hash };
-  });
 }
 
 async function mailCounts(db: Knex, revisionIds: number[]): Promise<Map<number, Record<MailStatus, number>>> {
