@@ -20,8 +20,8 @@ import {
 } from './api.ts';
 import { analysisOptionsSchema, type StackResult } from './results.ts';
 import { stackDocumentSchema } from './stack.ts';
-import type { StackChanged, StackJoinAck } from './socket.ts';
-import { buildingModelSchema, type BuildingModelReply, type Placement } from './building.ts';
+import type { BuildingStackChanged, StackChanged, StackJoinAck } from './socket.ts';
+import { buildingModelSchema, type BuildingModelChanged, type BuildingModelReply, type Placement } from './building.ts';
 import type { BuildingSizingPreview, StackSizingPreview } from './sizing.ts';
 import type { RevisionComparison, RevisionDetail, RevisionSummary } from './revisions.ts';
 import type { FloorLoadsPreview, GridPreview } from './imports.ts';
@@ -151,6 +151,23 @@ export const stackChangedSchema = outlineOf<StackChanged>({
   results: stackResultSchema,
   by,
   editId: z.string().optional(),
+});
+
+export const buildingStackChangedSchema: z.ZodType<BuildingStackChanged> = z.object({
+  buildingId: id,
+  stackId: id,
+  version: id,
+  utilisation: nullableNumber,
+  governingLiftId: z.string().nullable(),
+  governingLiftLabel: z.string().nullable(),
+  governingSection: z.string().nullable(),
+  status: stackStatus,
+});
+export const buildingModelChangedSchema = outlineOf<BuildingModelChanged>({
+  buildingId: id,
+  version: id,
+  model: z.looseObject({ grid: z.unknown(), buildups: z.array(z.unknown()), floors: z.array(z.unknown()) }),
+  by,
 });
 
 // The building model
