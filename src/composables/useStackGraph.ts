@@ -24,7 +24,7 @@ import {
   type LevelView,
   type NodeProblem,
   type NodeView,
-} from '@/components/graph/nodeView.ts';
+} from '@/utils/nodeView.ts';
 import { snapElevation } from '@/utils/snapElevation.ts';
 import { drawingElevations, liftNumbers, liftSpans, nodeTitle, nodesById } from '@/utils/stackChain.ts';
 import { newId } from '@/utils/clipboardOps.ts';

@@ -2,7 +2,7 @@
 // kN). Lifts have their own form (section picker, buckling-length overrides).
 import type { NodeKind } from '@shared/schema/stack.ts';
 import type { FieldInfo } from '@/utils/formErrors.ts';
-import { AXES_WORD, CATEGORY_WORD, FIXITY_WORD } from '@/components/graph/nodes/words.ts';
+import { AXES_WORD, CATEGORY_WORD, FIXITY_WORD } from '@/utils/nodeWords.ts';
 
 export interface FieldOption {
   label: string;
