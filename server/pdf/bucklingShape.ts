@@ -4,6 +4,7 @@ import type { CriticalAxis, StackResult } from '../../shared/schema/results.ts';
 import type { Box } from './elevation.ts';
 import { COLOUR, FONT, SIZE } from './layout.ts';
 import type { Pdf } from './pdf.ts';
+import { note } from './summary.ts';
 
 /** Total height of the two plots with their captions (pt). */
 export const SHAPE_MIN_HEIGHT = 140;
@@ -47,12 +48,12 @@ function drawAxis(doc: Pdf, axis: CriticalAxis, title: string, box: Box): void {
 
 /** Both axes side by side in `box`. */
 export function drawBucklingShapes(doc: Pdf, critical: NonNullable<StackResult['criticalBuckling']>, box: Box): void {
-  doc.font(FONT.regular).fontSize(SIZE.small).fillColor(COLOUR.muted);
-  doc.text(
+  note(
+    doc,
     'Buckled shapes from the critical buckling analysis of the stack (EN 1993-1-1 5.2.1(3)); αcr on the design forces.',
     box.x,
     box.y,
-    { width: box.width },
+    box.width,
   );
   const y = doc.y + 4;
   const half = (box.width - 10) / 2;

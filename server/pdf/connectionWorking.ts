@@ -1,10 +1,10 @@
 // Splices and base of one stack: a table of the checks, then each check's notes and working with its clauses.
 import { connectionRows } from '../../shared/connectionRows.ts';
 import type { SnapshotStack } from '../../shared/schema/revisions.ts';
-import { COLOUR, FONT, MARGIN, BODY, SIZE } from './layout.ts';
+import { COLOUR, MARGIN } from './layout.ts';
 import { drawWorking } from './memberWorking.ts';
 import type { Pdf } from './pdf.ts';
-import { heading } from './summary.ts';
+import { heading, note } from './summary.ts';
 import { drawTable, ensureSpace, type Column } from './table.ts';
 
 const COLUMNS: Column[] = [
@@ -22,12 +22,9 @@ export function drawConnectionChecks(doc: Pdf, stack: SnapshotStack): void {
   if (rows.length === 0) return;
   ensureSpace(doc, 120);
   heading(doc, 'Splices and base', 11);
-  doc.font(FONT.regular).fontSize(SIZE.small).fillColor(COLOUR.muted);
-  doc.text(
+  note(
+    doc,
     'Tension per splice: the vertical tie force of EN 1991-1-7 A.6 (consequence class 2b and 3) or net tension under permanent load alone. Base plate by the effective-area method of EN 1993-1-8 6.2.5. "not given": no detail (or building class) given yet.',
-    MARGIN.left,
-    doc.y,
-    { width: BODY.width },
   );
   doc.y += 6;
   drawTable(

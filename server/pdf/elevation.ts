@@ -81,11 +81,7 @@ export function drawElevation(doc: Pdf, stack: SnapshotStack, levels: Level[], b
 
   for (const splice of ofKind(nodes, 'splice')) {
     const y = yOf(splice.data.elevation);
-    doc
-      .moveTo(colX - 9, y)
-      .lineTo(colX + 9, y)
-      .lineWidth(1.2)
-      .stroke(COLOUR.ink);
+    crossLine(doc, colX, y, 1.2);
     // The splice's tension check beside it (docs/splices-and-bases.md): a failing splice is printed in the failing colour
     const check = stack.results.splices?.find((c) => c.nodeId === splice.id);
     const words = !check
@@ -144,15 +140,20 @@ export function drawElevation(doc: Pdf, stack: SnapshotStack, levels: Level[], b
   }
   if (cap) {
     const y = yOf(cap.data.elevation);
-    doc
-      .moveTo(colX - 9, y)
-      .lineTo(colX + 9, y)
-      .lineWidth(2)
-      .stroke(COLOUR.ink);
+    crossLine(doc, colX, y, 2);
     doc
       .font(FONT.regular)
       .fontSize(SIZE.small)
       .fillColor(COLOUR.ink)
       .text(`${metres(cap.data.elevation)} cap, ${cap.data.fixity}`, box.x, y - 16, { width: 150, lineBreak: false });
   }
+}
+
+/** A short line across the column at y: a splice (thin) or the cap (thick). */
+function crossLine(doc: Pdf, colX: number, y: number, width: number): void {
+  doc
+    .moveTo(colX - 9, y)
+    .lineTo(colX + 9, y)
+    .lineWidth(width)
+    .stroke(COLOUR.ink);
 }

@@ -12,6 +12,18 @@ export function heading(doc: Pdf, text: string, size: number = SIZE.h1): void {
   doc.y += 4;
 }
 
+/** A note in the small muted type: what a table or drawing shows and by which clauses. */
+export function note(
+  doc: Pdf,
+  text: string,
+  x: number = MARGIN.left,
+  y: number = doc.y,
+  width: number = BODY.width,
+): void {
+  doc.font(FONT.regular).fontSize(SIZE.small).fillColor(COLOUR.muted);
+  doc.text(text, x, y, { width });
+}
+
 export function reference(doc: Pdf, text: string, y: number): void {
   doc
     .font(FONT.regular)

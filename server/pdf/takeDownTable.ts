@@ -3,9 +3,9 @@
 import type { Level } from '../../shared/schema/api.ts';
 import type { SnapshotStack } from '../../shared/schema/revisions.ts';
 import { kN, metres } from './format.ts';
-import { BODY, COLOUR, FONT, MARGIN, SIZE } from './layout.ts';
+import { MARGIN } from './layout.ts';
 import type { Pdf } from './pdf.ts';
-import { heading } from './summary.ts';
+import { heading, note } from './summary.ts';
 import { drawTable, type Column } from './table.ts';
 
 // Widths add up to the body width (388 pt) and suit the widest figures at the table size; the two
@@ -36,12 +36,9 @@ function placeNames(stack: SnapshotStack, levels: Level[]): Map<string, string> 
 
 export function drawTakeDown(doc: Pdf, stack: SnapshotStack, levels: Level[]): void {
   heading(doc, 'Load take-down', 11);
-  doc.font(FONT.regular).fontSize(SIZE.small).fillColor(COLOUR.muted);
-  doc.text(
+  note(
+    doc,
     'Loads entering at each point; totals (ΣQk by category) and NEd just below it. n: storeys above carrying imposed load of the leading category; αn: the reduction applied to it (EN 1991-1-1 6.3.1.2(11)), – where no imposed load leads (eq. 6.10a).',
-    MARGIN.left,
-    doc.y,
-    { width: BODY.width },
   );
   doc.moveDown(0.3);
   const names = placeNames(stack, levels);

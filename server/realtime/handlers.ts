@@ -15,7 +15,7 @@ import type { ServerContext } from '../context.ts';
 import { forbidden } from '../errors.ts';
 import { checkAccess } from '../services/accessPolicy.ts';
 import { editStack } from '../services/stackOps.ts';
-import { getStackWithLevels } from '../services/stacks.ts';
+import { openStack } from '../services/stacks.ts';
 import { toErrorBody } from './errors.ts';
 import { broadcastPresence, buildingRoom, stackRoom } from './presence.ts';
 import { assertSessionLive } from './session.ts';
@@ -71,12 +71,13 @@ export function registerHandlers(ctx: ServerContext, io: LiveServer, socket: Liv
   socket.on(
     'stack:join',
     handle(live, log, stackJoinSchema, async ({ stackId }) => {
-      await accessTo(ctx, socket, await buildingOfStack(ctx, stackId), 'Stack', 'viewer');
-      const { stack, levels } = await getStackWithLevels(ctx.db, stackId);
+      const buildingId = await buildingOfStack(ctx, stackId);
+      const role = await checkAccess(ctx.db, user, buildingId, 'Stack', 'viewer');
+      const opened = await openStack(ctx.db, stackId, role);
       await socket.join(stackRoom(stackId));
       socket.data.selections = { ...socket.data.selections, [stackId]: socket.data.selections[stackId] ?? [] };
       void broadcastPresence(io, stackId).catch((err: unknown) => log.warn({ err }, 'presence update failed'));
-      return { doc: stack.doc, version: stack.version, results: stack.results, levels };
+      return opened;
     }),
   );
 
@@ -93,11 +94,11 @@ export function registerHandlers(ctx: ServerContext, io: LiveServer, socket: Liv
 
   socket.on(
     'stack:edit',
-    handle(live, log, stackEditSchema, async ({ stackId, baseVersion, ops }) => {
+    handle(live, log, stackEditSchema, async ({ stackId, baseVersion, ops, editId }) => {
       // Checked on every edit, not only at join: a role can be lowered while the socket is open.
       await accessTo(ctx, socket, await buildingOfStack(ctx, stackId), 'Stack', 'engineer');
-      const change = await editStack(ctx, { stackId, baseVersion, ops }, user);
-      return { version: change.version };
+      const change = await editStack(ctx, { stackId, baseVersion, ops }, user, editId);
+      return editId ? { version: change.version, editId } : { version: change.version };
     }),
   );
 

@@ -3,7 +3,9 @@
 import type { NextFunction, Request, RequestHandler, Response, Router } from 'express';
 import multer from 'multer';
 import { z } from 'zod';
-import { applyFieldsSchema, MAX_IMPORT_BYTES } from '../../shared/schema/imports.ts';
+import type { Knex } from 'knex';
+import type { User } from '../../shared/schema/api.ts';
+import { applyFieldsSchema, MAX_IMPORT_BYTES, type ImportProblem } from '../../shared/schema/imports.ts';
 import type { ServerContext } from '../context.ts';
 import { badRequest, HttpError, unprocessable } from '../errors.ts';
 import { currentAccess, currentUser, requireAuth } from '../middleware/auth.ts';
@@ -11,7 +13,8 @@ import { requireRole } from '../middleware/access.ts';
 import { parseBody, parseQuery } from '../middleware/validate.ts';
 import { listCompanySections } from '../services/companySections.ts';
 import { problemCount } from '../services/importsCsv.ts';
-import { applyLoads, previewLoads, problemsMessage } from '../services/importsLoads.ts';
+import { applyLoads, previewLoads, type ApplyFields } from '../services/importsLoads.ts';
+import { problemsMessage } from '../services/importsApply.ts';
 import { applySections, previewSections } from '../services/importsSections.ts';
 import { applyFloorLoads, applyGrid, previewFloorLoads, previewGrid } from '../services/importsModel.ts';
 
@@ -61,49 +64,34 @@ export function registerImportRoutes(router: Router, ctx: ServerContext): void {
   const viewer = requireRole(ctx, 'viewer');
   const engineer = requireRole(ctx, 'engineer');
 
-  router.post('/buildings/:id/imports/loads', auth, engineer, receiveFile, async (req, res) => {
-    const preview = await previewLoads(ctx.db, currentAccess(req).buildingId, uploadedFile(req));
-    if (preview.problems.length > 0) throw unprocessable(problemsMessage(problemCount(preview)), preview);
-    res.json(preview);
-  });
-  router.post('/buildings/:id/imports/loads/apply', auth, engineer, receiveFile, async (req, res) => {
-    const file = uploadedFile(req);
-    const fields = parseBody(applyFieldsSchema, req);
-    res.json(await applyLoads(ctx, currentAccess(req).buildingId, file, fields, currentUser(req)));
-  });
+  /** Each kind: POST …/imports/<kind> previews a file (422 with the preview when it has problems), POST
+   *  …/imports/<kind>/apply applies the same file. */
+  function importRoutes<P extends { problems: ImportProblem[]; problemsOmitted?: number }>(
+    kind: string,
+    preview: (db: Knex, buildingId: number, file: Buffer) => Promise<P>,
+    apply: (buildingId: number, file: Buffer, fields: ApplyFields, user: User) => Promise<unknown>,
+  ): void {
+    router.post(`/buildings/:id/imports/${kind}`, auth, engineer, receiveFile, async (req, res) => {
+      const checked = await preview(ctx.db, currentAccess(req).buildingId, uploadedFile(req));
+      if (checked.problems.length > 0) throw unprocessable(problemsMessage(problemCount(checked)), checked);
+      res.json(checked);
+    });
+    router.post(`/buildings/:id/imports/${kind}/apply`, auth, engineer, receiveFile, async (req, res) => {
+      const file = uploadedFile(req);
+      const fields = parseBody(applyFieldsSchema, req);
+      res.json(await apply(currentAccess(req).buildingId, file, fields, currentUser(req)));
+    });
+  }
 
-  router.post('/buildings/:id/imports/sections', auth, engineer, receiveFile, async (req, res) => {
-    const preview = await previewSections(ctx.db, currentAccess(req).buildingId, uploadedFile(req));
-    if (preview.problems.length > 0) throw unprocessable(problemsMessage(problemCount(preview)), preview);
-    res.json(preview);
-  });
-  router.post('/buildings/:id/imports/sections/apply', auth, engineer, receiveFile, async (req, res) => {
-    const file = uploadedFile(req);
-    const { fileHash } = parseBody(applyFieldsSchema, req);
-    res.json(await applySections(ctx, currentAccess(req).buildingId, file, { fileHash }, currentUser(req)));
-  });
-
+  importRoutes('loads', previewLoads, (id, file, fields, user) => applyLoads(ctx, id, file, fields, user));
+  importRoutes('sections', previewSections, (id, file, { fileHash }, user) =>
+    applySections(ctx, id, file, { fileHash }, user),
+  );
   // The grid and the levels' floor loads (docs/building-model.md)
-  router.post('/buildings/:id/imports/grid', auth, engineer, receiveFile, async (req, res) => {
-    const preview = await previewGrid(ctx.db, currentAccess(req).buildingId, uploadedFile(req));
-    if (preview.problems.length > 0) throw unprocessable(problemsMessage(preview.problems.length), preview);
-    res.json(preview);
-  });
-  router.post('/buildings/:id/imports/grid/apply', auth, engineer, receiveFile, async (req, res) => {
-    const file = uploadedFile(req);
-    const { fileHash } = parseBody(applyFieldsSchema, req);
-    res.json(await applyGrid(ctx, currentAccess(req).buildingId, file, fileHash, currentUser(req)));
-  });
-  router.post('/buildings/:id/imports/floor-loads', auth, engineer, receiveFile, async (req, res) => {
-    const preview = await previewFloorLoads(ctx.db, currentAccess(req).buildingId, uploadedFile(req));
-    if (preview.problems.length > 0) throw unprocessable(problemsMessage(preview.problems.length), preview);
-    res.json(preview);
-  });
-  router.post('/buildings/:id/imports/floor-loads/apply', auth, engineer, receiveFile, async (req, res) => {
-    const file = uploadedFile(req);
-    const { fileHash } = parseBody(applyFieldsSchema, req);
-    res.json(await applyFloorLoads(ctx, currentAccess(req).buildingId, file, fileHash, currentUser(req)));
-  });
+  importRoutes('grid', previewGrid, (id, file, { fileHash }, user) => applyGrid(ctx, id, file, fileHash, user));
+  importRoutes('floor-loads', previewFloorLoads, (id, file, { fileHash }, user) =>
+    applyFloorLoads(ctx, id, file, fileHash, user),
+  );
 
   router.get('/buildings/:id/sections', auth, viewer, async (req, res) => {
     const { q } = parseQuery(sectionsQuerySchema, req);

@@ -12,11 +12,10 @@ import {
 } from '../../shared/schema/imports.ts';
 import type { Op } from '../../shared/schema/ops.ts';
 import { categorySchema, MAX_LOAD_KN, type Category } from '../../shared/schema/stack.ts';
-import { applyOps as applyOpsToDoc, touchedIds } from '../../shared/ops/applyOps.ts';
 import type { ServerContext } from '../context.ts';
-import { conflict, unprocessable } from '../errors.ts';
-import { analysisInputs } from './analysis.ts';
-import { byRow, fileHash, listProblems, numberCell, problemCount, readCsv, type CsvRow } from './importsCsv.ts';
+import { conflict } from '../errors.ts';
+import { announceApplied, assertPreviewed, commitEachStack, nothingRead } from './importsApply.ts';
+import { byRow, listProblems, numberCell, readCsv, type CsvRow } from './importsCsv.ts';
 import {
   buildingLevels,
   buildingStacks,
@@ -26,7 +25,6 @@ import {
   type LevelRef,
   type StackRef,
 } from './importsLoadTargets.ts';
-import { broadcastChange, commitDoc, type CommittedChange } from './stackOps.ts';
 
 const CATEGORIES = categorySchema.options.join(', ');
 
@@ -69,15 +67,7 @@ function categoryCell(row: CsvRow, problems: ImportProblem[]): Category | null {
 
 /** Checks every row of the file against the building as it is in `db` now. */
 export async function previewLoads(db: Knex, buildingId: number, file: Buffer): Promise<LoadsPreview> {
-  const empty: LoadsPreview = {
-    kind: 'loads',
-    fileHash: fileHash(file),
-    rows: 0,
-    unchanged: 0,
-    changes: [],
-    problems: [],
-    basis: [],
-  };
+  const empty: LoadsPreview = { kind: 'loads', ...nothingRead(file), basis: [] };
   const read = await readCsv(file, LOAD_COLUMNS);
   if (!read.ok && read.rows.length === 0) return listProblems({ ...empty, problems: read.problems });
 
@@ -138,8 +128,7 @@ export async function previewLoads(db: Knex, buildingId: number, file: Buffer): 
   return listProblems({ ...empty, rows: read.rows.length, unchanged, changes, problems: byRow(problems), basis });
 }
 
-export const problemsMessage = (n: number): string =>
-  `The file has ${n} problem${n === 1 ? '' : 's'}; nothing was changed`;
+export { problemsMessage } from './importsApply.ts';
 
 /** 409 when a stack of the preview has moved on since, or the preview did not cover it. */
 function assertBasis(basis: PreviewBasis, current: PreviewBasis): void {
@@ -165,9 +154,7 @@ export async function applyLoads(
 ): Promise<ApplyResult> {
   const committed = await ctx.db.transaction(async (trx) => {
     const preview = await previewLoads(trx, buildingId, file);
-    if (fields.fileHash && fields.fileHash !== preview.fileHash)
-      throw conflict('This is not the file that was previewed; preview it again');
-    if (preview.problems.length > 0) throw unprocessable(problemsMessage(problemCount(preview)), preview);
+    assertPreviewed(preview, fields.fileHash);
     if (fields.basis) assertBasis(fields.basis, preview.basis);
 
     const opsByStack = new Map<number, Op[]>();
@@ -176,26 +163,8 @@ export async function applyLoads(
       ops.push({ op: 'updateNode', id: c.restraintId, data: { ...c.after } });
       opsByStack.set(c.stackId, ops);
     }
-    const inputs = await analysisInputs(trx, buildingId);
-    const done: CommittedChange[] = [];
-    for (const stack of await buildingStacks(trx, buildingId)) {
-      const ops = opsByStack.get(stack.row.id);
-      if (!ops) continue;
-      const doc = applyOpsToDoc(stack.doc, ops);
-      done.push(
-        await commitDoc(
-          trx,
-          stack.row,
-          { doc, ops, touched: touchedIds(stack.doc, ops), userId: user.id, action: 'import.loads' },
-          inputs,
-        ),
-      );
-    }
+    const done = await commitEachStack(trx, buildingId, user, 'import.loads', (stack) => opsByStack.get(stack.row.id));
     return { done, applied: preview.changes.length };
   });
-  for (const c of committed.done) broadcastChange(ctx, c, { userId: user.id, name: user.name });
-  return {
-    applied: committed.applied,
-    stacks: committed.done.map((c) => ({ stackId: c.stackId, version: c.version })),
-  };
+  return announceApplied(ctx, user, committed.done, committed.applied);
 }

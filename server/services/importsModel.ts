@@ -17,7 +17,7 @@ import { putFloorLoad, putGrid } from './buildingModel.ts';
 import { readModel } from './buildingModelStore.ts';
 import { toCsv } from './exportsFormats.ts';
 import { fileHash, numberCell, readCsv } from './importsCsv.ts';
-import { problemsMessage } from './importsLoads.ts';
+import { problemsMessage } from './importsApply.ts';
 import { listLevels } from './levels.ts';
 
 const lower = (s: string) => s.trim().toLowerCase();

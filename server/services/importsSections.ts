@@ -14,15 +14,10 @@ import {
 } from '../../shared/schema/imports.ts';
 import type { Op } from '../../shared/schema/ops.ts';
 import { MAX_DIMENSION_MM, sectionDimsSchema, type SectionDims } from '../../shared/schema/stack.ts';
-import { applyOps as applyOpsToDoc, touchedIds } from '../../shared/ops/applyOps.ts';
 import type { ServerContext } from '../context.ts';
-import { conflict, unprocessable } from '../errors.ts';
-import { analysisInputs } from './analysis.ts';
 import { companySectionMap, upsertCompanySections } from './companySections.ts';
-import { byRow, fileHash, listProblems, numberCell, problemCount, readCsv, type CsvRow } from './importsCsv.ts';
-import { problemsMessage } from './importsLoads.ts';
-import { buildingStacks } from './importsLoadTargets.ts';
-import { broadcastChange, commitDoc, type CommittedChange } from './stackOps.ts';
+import { byRow, listProblems, numberCell, readCsv, type CsvRow } from './importsCsv.ts';
+import { announceApplied, assertPreviewed, commitEachStack, nothingRead } from './importsApply.ts';
 
 const DIMS_BY_SHAPE = { I: ['h', 'b', 'tw', 'tf', 'r'], RHS: ['h', 'b', 't'], CHS: ['d', 't'] } as const;
 const MAKES = {
@@ -110,14 +105,7 @@ function dimsOf(row: CsvRow, problems: ImportProblem[]): SectionDims | null {
 }
 
 export async function previewSections(db: Knex, buildingId: number, file: Buffer): Promise<SectionsPreview> {
-  const empty: SectionsPreview = {
-    kind: 'sections',
-    fileHash: fileHash(file),
-    rows: 0,
-    unchanged: 0,
-    changes: [],
-    problems: [],
-  };
+  const empty: SectionsPreview = { kind: 'sections', ...nothingRead(file) };
   const read = await readCsv(file, SECTION_COLUMNS, ['designation', 'shape', 'make']);
   if (!read.ok && read.rows.length === 0) return listProblems({ ...empty, problems: read.problems });
 
@@ -177,9 +165,7 @@ export async function applySections(
 ): Promise<ApplyResult> {
   const committed = await ctx.db.transaction(async (trx) => {
     const preview = await previewSections(trx, buildingId, file);
-    if (fields.fileHash && fields.fileHash !== preview.fileHash)
-      throw conflict('This is not the file that was previewed; preview it again');
-    if (preview.problems.length > 0) throw unprocessable(problemsMessage(problemCount(preview)), preview);
+    assertPreviewed(preview, fields.fileHash);
     await upsertCompanySections(
       trx,
       buildingId,
@@ -187,30 +173,14 @@ export async function applySections(
     );
 
     const changedKeys = new Set(preview.changes.map((c) => designationKey(c.designation)));
-    const inputs = await analysisInputs(trx, buildingId);
-    const done: CommittedChange[] = [];
-    for (const stack of await buildingStacks(trx, buildingId)) {
-      const ops: Op[] = stack.doc.nodes.flatMap((n): Op[] =>
+    const done = await commitEachStack(trx, buildingId, user, 'import.sections', (stack) =>
+      stack.doc.nodes.flatMap((n): Op[] =>
         n.kind === 'lift' && typeof n.data.section === 'string' && changedKeys.has(designationKey(n.data.section))
           ? [{ op: 'updateNode', id: n.id, data: { section: n.data.section } }]
           : [],
-      );
-      if (ops.length === 0) continue;
-      const doc = applyOpsToDoc(stack.doc, ops);
-      done.push(
-        await commitDoc(
-          trx,
-          stack.row,
-          { doc, ops, touched: touchedIds(stack.doc, ops), userId: user.id, action: 'import.sections' },
-          inputs,
-        ),
-      );
-    }
+      ),
+    );
     return { done, applied: preview.changes.length };
   });
-  for (const c of committed.done) broadcastChange(ctx, c, { userId: user.id, name: user.name });
-  return {
-    applied: committed.applied,
-    stacks: committed.done.map((c) => ({ stackId: c.stackId, version: c.version })),
-  };
+  return announceApplied(ctx, user, committed.done, committed.applied);
 }

@@ -129,7 +129,7 @@ export async function updateLevel(
     }),
   );
   // The stacks' open pages place their tied nodes on the levels they hold: they hear the levels with the change.
-  for (const c of changes) broadcastChange(ctx, c, { userId: user.id, name: user.name }, levels);
+  for (const c of changes) broadcastChange(ctx, c, { userId: user.id, name: user.name }, { levels });
   return level;
 }
 

@@ -180,8 +180,8 @@ export function broadcastChange(
   ctx: ServerContext,
   c: CommittedChange,
   by: { userId: number; name: string },
-  /** The building's levels, when the change moved one (docs/live-protocol.md). */
-  levels?: Level[],
+  /** The building's levels when the change moved one (docs/live-protocol.md); the edit's own id when it gave one. */
+  extra: { levels?: Level[]; editId?: string } = {},
 ): void {
   try {
     ctx.broadcaster.stackChanged({
@@ -191,7 +191,8 @@ export function broadcastChange(
       ops: c.ops,
       results: c.results,
       by,
-      ...(levels ? { levels } : {}),
+      ...(extra.levels ? { levels: extra.levels } : {}),
+      ...(extra.editId ? { editId: extra.editId } : {}),
     });
     ctx.broadcaster.buildingStackChanged({
       buildingId: c.buildingId,
@@ -212,15 +213,17 @@ export function broadcastChange(
   }
 }
 
-/** applyOps then broadcast: what the REST ops route and the live channel call. */
+/** applyOps then broadcast: what the REST ops route and the live channel call. The client's edit id, when it
+ *  gave one, goes out with the broadcast so the client knows its own edit (docs/live-protocol.md). */
 export async function editStack(
   ctx: ServerContext,
   input: Omit<OpsInput, 'userId'>,
   user: User,
+  editId?: string,
 ): Promise<CommittedChange> {
   const change = await applyOps(ctx.db, { ...input, userId: user.id, offThread: ctx.offThread });
   // Storing a large stack and encoding its broadcast are each tens of milliseconds: not in one turn.
   if (change.results.lifts.length > LARGE_STACK_LIFTS) await yieldToLoop();
-  broadcastChange(ctx, change, { userId: user.id, name: user.name });
+  broadcastChange(ctx, change, { userId: user.id, name: user.name }, { editId });
   return change;
 }

@@ -1,7 +1,8 @@
 // Stacks of a building: list, read, create (empty, from a document or from a template), rename,
 // delete. Edits to the document go through stackOps.ts.
 import type { Knex } from 'knex';
-import type { Level, StackDetail, StackSummary, StackTemplate, User } from '../../shared/schema/api.ts';
+import type { Level, Role, StackDetail, StackSummary, StackTemplate, User } from '../../shared/schema/api.ts';
+import type { StackJoinAck } from '../../shared/schema/socket.ts';
 import type { StackDocument } from '../../shared/schema/stack.ts';
 import { stackFromTemplate } from '../../shared/ops/stackFromTemplate.ts';
 import { placeOnLevels } from '../../shared/engine/stack/placeOnLevels.ts';
@@ -31,6 +32,26 @@ export async function getStackWithLevels(db: Knex, id: number): Promise<{ stack:
 
 export async function getStack(db: Knex, id: number): Promise<StackDetail> {
   return (await getStackWithLevels(db, id)).stack;
+}
+
+/** Everything the stack page needs on opening, for the live channel's join (docs/live-protocol.md): the
+ *  document, its results, and the building's name and levels with the caller's role (null: a site admin
+ *  reading as a viewer). */
+export async function openStack(db: Knex, id: number, role: Role | null): Promise<StackJoinAck> {
+  // The document with its tied nodes placed on the levels sent beside it (docs/stack-editing.md).
+  const { stack, levels } = await getStackWithLevels(db, id);
+  const building = await db('buildings').where({ id: stack.buildingId }).first<{ name: string }>('name');
+  return {
+    doc: stack.doc,
+    version: stack.version,
+    results: stack.results,
+    name: stack.name,
+    buildingId: stack.buildingId,
+    buildingName: building.name,
+    role: role ?? 'viewer',
+    gridX: stack.gridX ?? null,
+    levels,
+  };
 }
 
 export interface NewStack {

@@ -1,6 +1,6 @@
-import { STEEL_DENSITY } from './constants.ts';
 import type { ChsDims, RhsDims, SectionProperties } from './sectionTypes.ts';
 import { spandrel } from './spandrel.ts';
+import { symmetricProperties } from './symmetricProperties.ts';
 
 /** Outer and inner corner radii of a rectangular hollow section. */
 export function cornerRadii({ make, t }: Pick<RhsDims, 'make' | 't'>): { outer: number; inner: number } {
@@ -40,19 +40,10 @@ export function rhsProperties(dims: RhsDims): SectionProperties {
   const enclosed = (b - t) * (h - t) - Rc * Rc * (4 - Math.PI);
   const K = (2 * t * enclosed) / perimeter;
   return {
-    A,
-    Iy,
-    Iz,
-    iy: Math.sqrt(Iy / A),
-    iz: Math.sqrt(Iz / A),
-    WelY: Iy / (h / 2),
-    WelZ: Iz / (b / 2),
+    ...symmetricProperties(A, Iy, Iz, h, b),
     WplY: o.Sy - i.Sy,
     WplZ: o.Sz - i.Sz,
     It: (t ** 3 * perimeter) / 3 + 2 * K * enclosed,
-    massPerMetre: A * 1e-6 * STEEL_DENSITY,
-    h,
-    b,
     tMax: t,
   };
 }
@@ -63,21 +54,5 @@ export function chsProperties({ d, t }: ChsDims): SectionProperties {
   const A = (Math.PI * (d * d - di * di)) / 4;
   const I = (Math.PI * (d ** 4 - di ** 4)) / 64;
   const Wpl = (d ** 3 - di ** 3) / 6;
-  const i = Math.sqrt(I / A);
-  return {
-    A,
-    Iy: I,
-    Iz: I,
-    iy: i,
-    iz: i,
-    WelY: (2 * I) / d,
-    WelZ: (2 * I) / d,
-    WplY: Wpl,
-    WplZ: Wpl,
-    It: 2 * I,
-    massPerMetre: A * 1e-6 * STEEL_DENSITY,
-    h: d,
-    b: d,
-    tMax: t,
-  };
+  return { ...symmetricProperties(A, I, I, d, d), WplY: Wpl, WplZ: Wpl, It: 2 * I, tMax: t };
 }

@@ -1,6 +1,6 @@
-import { STEEL_DENSITY } from './constants.ts';
 import type { IDims, SectionProperties } from './sectionTypes.ts';
 import { spandrel } from './spandrel.ts';
+import { symmetricProperties } from './symmetricProperties.ts';
 
 /**
  * Doubly symmetric I section: two flanges, a web and four root fillets of radius r (r = 0 for
@@ -22,21 +22,12 @@ export function iSectionProperties({ make, h, b, tw, tf, r: rootRadius }: IDims)
   const WplZ = (tf * b * b) / 2 + (hw * tw * tw) / 4 + 4 * f.area * filletZ;
 
   return {
-    A,
-    Iy,
-    Iz,
-    iy: Math.sqrt(Iy / A),
-    iz: Math.sqrt(Iz / A),
-    WelY: Iy / (h / 2),
-    WelZ: Iz / (b / 2),
+    ...symmetricProperties(A, Iy, Iz, h, b),
     WplY,
     WplZ,
     It: r > 0 ? rolledTorsionConstant(h, b, tw, tf, r) : (2 * b * tf ** 3 + hw * tw ** 3) / 3,
     // Warping constant of a doubly symmetric I: Iz (h − tf)² / 4 (thin-walled theory)
     Iw: (Iz * (h - tf) ** 2) / 4,
-    massPerMetre: A * 1e-6 * STEEL_DENSITY,
-    h,
-    b,
     tMax: Math.max(tf, tw),
   };
 }

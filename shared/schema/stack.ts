@@ -117,31 +117,20 @@ export const restraintFacesSchema = z
  * cap on it (docs/building-model.md); true keeps the Gk, Qk, category and faces written here instead.
  */
 const loadsByHand = z.boolean().optional();
+/** What a restraint and the cap both carry: the floor's loads at their point and the beams on their faces. */
+const carried = {
+  Gk: load,
+  Qk: load,
+  category: categorySchema,
+  faces: restraintFacesSchema.optional(),
+  loadsByHand,
+};
 export const restraintDataSchema = z
-  .object({
-    elevation,
-    levelId,
-    axes: axesSchema,
-    fixity: fixitySchema,
-    Gk: load,
-    Qk: load,
-    category: categorySchema,
-    faces: restraintFacesSchema.optional(),
-    loadsByHand,
-  })
+  .object({ elevation, levelId, axes: axesSchema, fixity: fixitySchema, ...carried })
   .strict();
 /** `faces`: roof beams on the cap's faces, as on a restraint; optional, so older documents stay valid. */
 export const capDataSchema = z
-  .object({
-    elevation,
-    levelId,
-    fixity: z.union([fixitySchema, z.literal('free')]),
-    Gk: load,
-    Qk: load,
-    category: categorySchema,
-    faces: restraintFacesSchema.optional(),
-    loadsByHand,
-  })
+  .object({ elevation, levelId, fixity: z.union([fixitySchema, z.literal('free')]), ...carried })
   .strict();
 export const loadDataSchema = z
   .object({ label: z.string().max(120), Gk: load, Qk: load, category: categorySchema })

@@ -1,28 +1,49 @@
 // Sign-in, registration, verification of the address, sign-out and the current user (docs/contracts.md §REST routes,
 // docs/access.md).
 import type { z } from 'zod';
-import type {
-  AuthResponse,
-  PasswordStrength,
-  RegisterResponse,
-  User,
-  loginBodySchema,
-  registerBodySchema,
-} from '@shared/schema/api.ts';
-import { apiFetch } from './http.ts';
+import type { AuthResponse, PasswordStrength, RegisterResponse, User } from '@shared/schema/api.ts';
+import type { loginBodySchema, registerBodySchema } from '@shared/schema/api.ts';
+import {
+  authResponseSchema,
+  passwordStrengthSchema,
+  registerResponseSchema,
+  userSchema,
+} from '@shared/schema/replies.ts';
+import { http } from './http.ts';
 
 export type LoginBody = z.output<typeof loginBodySchema>;
 export type RegisterBody = z.output<typeof registerBodySchema>;
 
-export const authApi = {
-  login: (body: LoginBody) => apiFetch<AuthResponse>('POST', '/auth/login', body),
-  /** No session: the answer only says a link is on its way (the same for a known address). */
-  register: (body: RegisterBody) => apiFetch<RegisterResponse>('POST', '/auth/register', body),
-  verify: (token: string) => apiFetch<User>('POST', '/auth/verify', { token }),
-  resendVerification: () => apiFetch<RegisterResponse>('POST', '/auth/verify/resend'),
-  /** Ends every session of the account, on every device. */
-  logout: () => apiFetch<void>('POST', '/auth/logout'),
-  passwordStrength: (body: { password: string; email?: string; name?: string }) =>
-    apiFetch<PasswordStrength>('POST', '/auth/password-strength', body),
-  me: () => apiFetch<User>('GET', '/me'),
-};
+export async function login(body: LoginBody): Promise<AuthResponse> {
+  return authResponseSchema.parse(await http.post('/auth/login', body));
+}
+
+/** No session: the answer only says a link is on its way (the same for a known address). */
+export async function register(body: RegisterBody): Promise<RegisterResponse> {
+  return registerResponseSchema.parse(await http.post('/auth/register', body));
+}
+
+export async function verifyEmail(token: string): Promise<User> {
+  return userSchema.parse(await http.post('/auth/verify', { token }));
+}
+
+export async function resendVerification(): Promise<RegisterResponse> {
+  return registerResponseSchema.parse(await http.post('/auth/verify/resend'));
+}
+
+/** Ends every session of the account, on every device. */
+export async function logout(): Promise<void> {
+  await http.post('/auth/logout');
+}
+
+export async function passwordStrength(body: {
+  password: string;
+  email?: string;
+  name?: string;
+}): Promise<PasswordStrength> {
+  return passwordStrengthSchema.parse(await http.post('/auth/password-strength', body));
+}
+
+export async function getMe(): Promise<User> {
+  return userSchema.parse(await http.get('/me'));
+}

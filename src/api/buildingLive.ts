@@ -1,6 +1,7 @@
 // A building's live channel: stack results that change while the building page is open.
 import type { BuildingModelChanged } from '@shared/schema/building.ts';
 import type { BuildingStackChanged } from '@shared/schema/socket.ts';
+import { buildingModelChangedSchema, buildingStackChangedSchema } from '@shared/schema/replies.ts';
 import { connectLive, type LiveSocket } from './live.ts';
 
 export interface BuildingWatch {
@@ -21,11 +22,17 @@ export function watchBuilding(
       if (!res.ok) onError(`Live updates are off: ${res.error.message}`);
     });
   socket.on('connect', join);
-  socket.on('building:stack-changed', (change) => {
-    if (change.buildingId === buildingId) onChange(change);
+  // Each event is checked against its shared schema; one that fails is reported, not applied.
+  const unreadable = () => onError('A live update could not be read; reload the page to see the latest figures');
+  socket.on('building:stack-changed', (raw) => {
+    const change = buildingStackChangedSchema.safeParse(raw);
+    if (!change.success) return unreadable();
+    if (change.data.buildingId === buildingId) onChange(change.data);
   });
-  socket.on('building:model-changed', (change) => {
-    if (change.buildingId === buildingId) onModelChange?.(change);
+  socket.on('building:model-changed', (raw) => {
+    const change = buildingModelChangedSchema.safeParse(raw);
+    if (!change.success) return unreadable();
+    if (change.data.buildingId === buildingId) onModelChange?.(change.data);
   });
   return {
     stop: () => {

@@ -10,9 +10,11 @@ import type {
   StackPlacement,
 } from '@shared/schema/building.ts';
 import type { FloorLoadsPreview, GridPreview } from '@shared/schema/imports.ts';
-import { apiFetch } from './http.ts';
+import { buildingModelReplySchema, modelCsvPreviewSchema, placementSchema } from '@shared/schema/replies.ts';
+import { http, seg } from './http.ts';
 
 export type ModelCsvKind = 'grid' | 'floor-loads';
+export type FloorLoadBody = z.input<typeof putFloorLoadBodySchema>;
 
 function form(file: File, fileHash?: string): FormData {
   const body = new FormData();
@@ -21,23 +23,51 @@ function form(file: File, fileHash?: string): FormData {
   return body;
 }
 
-export type FloorLoadBody = z.input<typeof putFloorLoadBodySchema>;
-
 const b = (id: number) => `/buildings/${id}`;
+const model = (reply: unknown): BuildingModelReply => buildingModelReplySchema.parse(reply);
 
-export const buildingModelApi = {
-  get: (buildingId: number) => apiFetch<BuildingModelReply>('GET', `${b(buildingId)}/model`),
-  putGrid: (buildingId: number, grid: Grid) => apiFetch<BuildingModelReply>('PUT', `${b(buildingId)}/grid`, { grid }),
-  putBuildups: (buildingId: number, buildups: Buildup[]) =>
-    apiFetch<BuildingModelReply>('PUT', `${b(buildingId)}/buildups`, { buildups }),
-  putFloorLoad: (buildingId: number, levelId: string, body: FloorLoadBody) =>
-    apiFetch<BuildingModelReply>('PUT', `${b(buildingId)}/levels/${encodeURIComponent(levelId)}/floor-load`, body),
-  place: (stackId: number, placement: StackPlacement) =>
-    apiFetch<Placement>('PUT', `/stacks/${stackId}/placement`, placement),
-  previewCsv: (buildingId: number, kind: ModelCsvKind, file: File) =>
-    apiFetch<GridPreview | FloorLoadsPreview>('POST', `${b(buildingId)}/imports/${kind}`, form(file)),
-  applyCsv: (buildingId: number, kind: ModelCsvKind, file: File, fileHash: string) =>
-    apiFetch<unknown>('POST', `${b(buildingId)}/imports/${kind}/apply`, form(file, fileHash)),
-  putAreaOverrides: (stackId: number, overrides: AreaOverride[]) =>
-    apiFetch<BuildingModelReply>('PUT', `/stacks/${stackId}/area-overrides`, { overrides }),
-};
+export async function getModel(buildingId: number): Promise<BuildingModelReply> {
+  return model(await http.get(`${b(buildingId)}/model`));
+}
+
+export async function putGrid(buildingId: number, grid: Grid): Promise<BuildingModelReply> {
+  return model(await http.put(`${b(buildingId)}/grid`, { grid }));
+}
+
+export async function putBuildups(buildingId: number, buildups: Buildup[]): Promise<BuildingModelReply> {
+  return model(await http.put(`${b(buildingId)}/buildups`, { buildups }));
+}
+
+export async function putFloorLoad(
+  buildingId: number,
+  levelId: string,
+  body: FloorLoadBody,
+): Promise<BuildingModelReply> {
+  return model(await http.put(`${b(buildingId)}/levels/${seg(levelId)}/floor-load`, body));
+}
+
+export async function placeStack(stackId: number, placement: StackPlacement): Promise<Placement> {
+  return placementSchema.parse(await http.put(`/stacks/${stackId}/placement`, placement));
+}
+
+export async function putAreaOverrides(stackId: number, overrides: AreaOverride[]): Promise<BuildingModelReply> {
+  return model(await http.put(`/stacks/${stackId}/area-overrides`, { overrides }));
+}
+
+export async function previewModelCsv(
+  buildingId: number,
+  kind: ModelCsvKind,
+  file: File,
+): Promise<GridPreview | FloorLoadsPreview> {
+  return modelCsvPreviewSchema.parse(await http.post(`${b(buildingId)}/imports/${kind}`, form(file)));
+}
+
+/** Applies a checked file; the model that results arrives on the building's live channel. */
+export async function applyModelCsv(
+  buildingId: number,
+  kind: ModelCsvKind,
+  file: File,
+  fileHash: string,
+): Promise<void> {
+  await http.post(`${b(buildingId)}/imports/${kind}/apply`, form(file, fileHash));
+}

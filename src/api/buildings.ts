@@ -1,60 +1,25 @@
-// Buildings, their members and their levels (docs/contracts.md §REST routes).
-import type { z } from 'zod';
-import type {
-  Building,
-  BuildingSummary,
-  Level,
-  LevelMovePreview,
-  Member,
-  addMemberBodySchema,
-  createBuildingBodySchema,
-  createLevelBodySchema,
-  updateBuildingBodySchema,
-  updateLevelBodySchema,
-  updateMemberBodySchema,
-} from '@shared/schema/api.ts';
-import type { ColumnSchedule } from '@shared/schedule/columnSchedule.ts';
-import { apiFetch } from './http.ts';
+// Buildings (docs/contracts.md §REST routes): the list, one building with its analysis options.
+import { z } from 'zod';
+import type { Building, BuildingSummary } from '@shared/schema/api.ts';
+import type { createBuildingBodySchema, updateBuildingBodySchema } from '@shared/schema/api.ts';
+import { buildingSchema, buildingSummarySchema } from '@shared/schema/replies.ts';
+import { http } from './http.ts';
 
 export type CreateBuildingBody = z.output<typeof createBuildingBodySchema>;
 export type UpdateBuildingBody = z.output<typeof updateBuildingBodySchema>;
-export type AddMemberBody = z.output<typeof addMemberBodySchema>;
-export type UpdateMemberBody = z.output<typeof updateMemberBodySchema>;
-export type CreateLevelBody = z.output<typeof createLevelBodySchema>;
-export type UpdateLevelBody = z.output<typeof updateLevelBodySchema>;
 
-const b = (id: number) => `/buildings/${id}`;
+export async function listBuildings(): Promise<BuildingSummary[]> {
+  return z.array(buildingSummarySchema).parse(await http.get('/buildings'));
+}
 
-export const buildingsApi = {
-  list: () => apiFetch<BuildingSummary[]>('GET', '/buildings'),
-  create: (body: CreateBuildingBody) => apiFetch<Building>('POST', '/buildings', body),
-  get: (id: number) => apiFetch<Building>('GET', b(id)),
-  update: (id: number, body: UpdateBuildingBody) => apiFetch<Building>('PATCH', b(id), body),
-};
+export async function createBuilding(body: CreateBuildingBody): Promise<Building> {
+  return buildingSchema.parse(await http.post('/buildings', body));
+}
 
-export const membersApi = {
-  list: (buildingId: number) => apiFetch<Member[]>('GET', `${b(buildingId)}/members`),
-  add: (buildingId: number, body: AddMemberBody) => apiFetch<Member>('POST', `${b(buildingId)}/members`, body),
-  update: (buildingId: number, memberId: string | number, body: UpdateMemberBody) =>
-    apiFetch<Member>('PATCH', `${b(buildingId)}/members/${encodeURIComponent(memberId)}`, body),
-  remove: (buildingId: number, memberId: string | number) =>
-    apiFetch<void>('DELETE', `${b(buildingId)}/members/${encodeURIComponent(memberId)}`),
-};
+export async function getBuilding(id: number): Promise<Building> {
+  return buildingSchema.parse(await http.get(`/buildings/${id}`));
+}
 
-export const levelsApi = {
-  list: (buildingId: number) => apiFetch<Level[]>('GET', `${b(buildingId)}/levels`),
-  create: (buildingId: number, body: CreateLevelBody) => apiFetch<Level>('POST', `${b(buildingId)}/levels`, body),
-  update: (buildingId: number, levelId: string, body: UpdateLevelBody) =>
-    apiFetch<Level>('PATCH', `${b(buildingId)}/levels/${encodeURIComponent(levelId)}`, body),
-  remove: (buildingId: number, levelId: string) =>
-    apiFetch<void>('DELETE', `${b(buildingId)}/levels/${encodeURIComponent(levelId)}`),
-  /** What moving the level would do to the stacks; stores nothing. */
-  previewMove: (buildingId: number, levelId: string, elevation: number) =>
-    apiFetch<LevelMovePreview>('POST', `${b(buildingId)}/levels/${encodeURIComponent(levelId)}/preview`, { elevation }),
-};
-
-export const scheduleApi = {
-  get: (buildingId: number) => apiFetch<ColumnSchedule>('GET', `${b(buildingId)}/schedule`),
-  /** Path of a download, for downloadFile. */
-  file: (buildingId: number, format: 'csv' | 'xlsx' | 'dxf') => `${b(buildingId)}/schedule.${format}`,
-};
+export async function updateBuilding(id: number, body: UpdateBuildingBody): Promise<Building> {
+  return buildingSchema.parse(await http.patch(`/buildings/${id}`, body));
+}

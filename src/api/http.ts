@@ -72,6 +72,20 @@ export async function apiFetch<T>(
   return json as T;
 }
 
+/** The verbs the resource modules use; each answers the parsed JSON as unknown, for a shared schema to check. */
+export const http = {
+  get: (path: string): Promise<unknown> => apiFetch<unknown>('GET', path),
+  post: (path: string, body?: unknown): Promise<unknown> => apiFetch<unknown>('POST', path, body),
+  put: (path: string, body?: unknown): Promise<unknown> => apiFetch<unknown>('PUT', path, body),
+  patch: (path: string, body?: unknown): Promise<unknown> => apiFetch<unknown>('PATCH', path, body),
+  delete: async (path: string): Promise<void> => {
+    await apiFetch<unknown>('DELETE', path);
+  },
+};
+
+/** A path segment from an id or a key typed by a person. */
+export const seg = (part: string | number): string => encodeURIComponent(part);
+
 function safeParse(text: string): unknown {
   try {
     return JSON.parse(text);

@@ -1,7 +1,14 @@
 // The live channel (docs/contracts.md §Live events): a typed Socket.IO client and promise wrappers
 // around the acknowledged events, so the store never handles raw ack shapes.
 import { io, type Socket } from 'socket.io-client';
-import type { ClientToServerEvents, ServerToClientEvents, StackJoinAck } from '@shared/schema/socket.ts';
+import type {
+  ClientToServerEvents,
+  ServerToClientEvents,
+  StackChanged,
+  StackEditAck,
+  StackJoinAck,
+} from '@shared/schema/socket.ts';
+import { stackChangedSchema, stackEditAckSchema, stackJoinAckSchema } from '@shared/schema/replies.ts';
 import type { ErrorCode } from '@shared/schema/errors.ts';
 import type { Op } from '@shared/schema/ops.ts';
 import { notifyUnauthorised } from './http.ts';
@@ -45,17 +52,48 @@ async function answer<T>(acknowledged: Promise<AckResult<T>>): Promise<T> {
   throw new LiveError(res.error.code, res.error.message);
 }
 
-export function joinStack(socket: LiveSocket, stackId: number): Promise<StackJoinAck> {
-  return answer(socket.timeout(ACK_TIMEOUT_MS).emitWithAck('stack:join', { stackId }));
+/** Joins the stack's room; the answer is everything the stack page needs (docs/live-protocol.md). */
+export async function joinStack(socket: LiveSocket, stackId: number): Promise<StackJoinAck> {
+  return stackJoinAckSchema.parse(await answer(socket.timeout(ACK_TIMEOUT_MS).emitWithAck('stack:join', { stackId })));
 }
 
-export function sendEdit(
+/** Sends one edit; `editId` comes back in the ack and in the edit's `stack:changed`. */
+export async function sendEdit(
   socket: LiveSocket,
   stackId: number,
   baseVersion: number,
   ops: Op[],
-): Promise<{ version: number }> {
-  return answer(socket.timeout(ACK_TIMEOUT_MS).emitWithAck('stack:edit', { stackId, baseVersion, ops }));
+  editId?: string,
+): Promise<StackEditAck> {
+  const payload = editId ? { stackId, baseVersion, ops, editId } : { stackId, baseVersion, ops };
+  return stackEditAckSchema.parse(await answer(socket.timeout(ACK_TIMEOUT_MS).emitWithAck('stack:edit', payload)));
+}
+
+/** Calls `listener` with each change to a stack, checked against the shared schema; a malformed one is
+ *  passed to `onMalformed` (the store re-joins to take the server's state instead). */
+export function onStackChanged(
+  socket: LiveSocket,
+  listener: (change: StackChanged) => void,
+  onMalformed: () => void,
+): void {
+  socket.on('stack:changed', (raw) => {
+    const parsed = stackChangedSchema.safeParse(raw);
+    if (parsed.success) listener(parsed.data);
+    else onMalformed();
+  });
+}
+
+let editCount = 0;
+/** A fresh edit id: unique within this page (a counter) and across pages and people (time and randomness). */
+export function newEditId(): string {
+  editCount++;
+  return `${Date.now().toString(36)}-${editCount.toString(36)}-${Math.random().toString(36).slice(2, 10)}`;
+}
+
+/** Whether the live channel refused because the session ended (handshake or event): sign in again. */
+export function isSessionRefusal(e: unknown): boolean {
+  const data = (e as { data?: { code?: unknown } } | null)?.data;
+  return data?.code === 'unauthenticated';
 }
 
 export function selectNodes(socket: LiveSocket, stackId: number, nodeIds: string[]): void {

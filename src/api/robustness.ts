@@ -1,7 +1,8 @@
 // A building's robustness summary: which splices meet the tie force of its consequence class.
 import type { RobustnessSummary } from '@shared/engine/connections/robustnessSummary.ts';
-import { apiFetch } from './http.ts';
+import { robustnessSummarySchema } from '@shared/schema/replies.ts';
+import { http } from './http.ts';
 
-export const robustnessApi = {
-  get: (buildingId: number) => apiFetch<RobustnessSummary>('GET', `/buildings/${buildingId}/robustness`),
-};
+export async function getRobustness(buildingId: number): Promise<RobustnessSummary> {
+  return robustnessSummarySchema.parse(await http.get(`/buildings/${buildingId}/robustness`));
+}

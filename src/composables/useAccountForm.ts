@@ -4,7 +4,7 @@ import { computed, ref } from 'vue';
 import { useRoute, useRouter } from 'vue-router';
 import type { ZodType } from 'zod';
 import { describeError } from '@/stores/notify.ts';
-import { fieldErrors, type FieldInfo } from '@/components/common/formErrors.ts';
+import { fieldErrors, type FieldInfo } from '@/utils/formErrors.ts';
 import { redirectTarget } from '@/router/redirect.ts';
 
 /** after: 'redirect' goes on to the page asked for; 'stay' leaves the page to show what happened. */

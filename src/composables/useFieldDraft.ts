@@ -2,8 +2,8 @@
 // when the field is left, with a plain message when refused. Only valid, changed values are passed on.
 import { reactive, toValue, watch, type MaybeRefOrGetter } from 'vue';
 import type { z } from 'zod';
-import { fieldErrors, readNumber } from '@/components/common/formErrors.ts';
-import type { FieldSpec } from '@/components/stack/nodeFields.ts';
+import { fieldErrors, readNumber } from '@/utils/formErrors.ts';
+import type { FieldSpec } from '@/utils/nodeFields.ts';
 
 export interface FieldDraftOptions {
   value: MaybeRefOrGetter<Record<string, unknown>>;

@@ -15,7 +15,7 @@ import {
   layoutByElevation,
   type GraphScale,
   type XY,
-} from '@/components/graph/layoutByElevation.ts';
+} from '@/utils/layoutByElevation.ts';
 import {
   HANDLE,
   LEVEL_LINE_X,
@@ -24,10 +24,10 @@ import {
   type LevelView,
   type NodeProblem,
   type NodeView,
-} from '@/components/graph/nodeView.ts';
-import { snapElevation } from '@/components/graph/snapElevation.ts';
-import { drawingElevations, liftNumbers, liftSpans, nodeTitle, nodesById } from './stackChain.ts';
-import { newId } from './clipboardOps.ts';
+} from '@/utils/nodeView.ts';
+import { snapElevation } from '@/utils/snapElevation.ts';
+import { drawingElevations, liftNumbers, liftSpans, nodeTitle, nodesById } from '@/utils/stackChain.ts';
+import { newId } from '@/utils/clipboardOps.ts';
 
 export interface StackGraphInput {
   doc: MaybeRefOrGetter<StackDocument | null>;

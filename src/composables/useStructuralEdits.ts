@@ -14,8 +14,8 @@ import {
 import type { Op } from '@shared/schema/ops.ts';
 import type { StackDocument } from '@shared/schema/stack.ts';
 import { formatElevation, levelWord } from '@shared/wording.ts';
-import { newId } from '@/composables/clipboardOps.ts';
-import { liftNumbers, liftSpans } from '@/composables/stackChain.ts';
+import { newId } from '@/utils/clipboardOps.ts';
+import { liftNumbers, liftSpans } from '@/utils/stackChain.ts';
 import { useNotifyStore } from '@/stores/notify.ts';
 import { useStackStore } from '@/stores/stack.ts';
 

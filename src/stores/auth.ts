@@ -2,7 +2,8 @@
 import { computed, ref } from 'vue';
 import { defineStore } from 'pinia';
 import type { AuthResponse, RegisterResponse, User } from '@shared/schema/api.ts';
-import { authApi, type LoginBody, type RegisterBody } from '@/api/auth.ts';
+import * as authApi from '@/api/auth.ts';
+import type { LoginBody, RegisterBody } from '@/api/auth.ts';
 import { getToken, onUnauthorised, setToken } from '@/api/http.ts';
 
 export const useAuthStore = defineStore('auth', () => {
@@ -27,7 +28,7 @@ export const useAuthStore = defineStore('auth', () => {
 
   /** Follows a verification link; a signed-in user's account shows as verified at once. */
   async function verify(linkToken: string): Promise<User> {
-    const verified = await authApi.verify(linkToken);
+    const verified = await authApi.verifyEmail(linkToken);
     if (user.value && user.value.id === verified.id) user.value = { ...user.value, emailVerified: true };
     return verified;
   }
@@ -35,7 +36,7 @@ export const useAuthStore = defineStore('auth', () => {
   /** Loads the user behind a stored token once; a 401 signs out through onUnauthorised. */
   async function loadUser(): Promise<void> {
     if (!token.value || user.value) return;
-    user.value = await authApi.me();
+    user.value = await authApi.getMe();
   }
 
   /** Forgets the session here only (the server has ended it already, or refused it). */

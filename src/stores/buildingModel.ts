@@ -12,7 +12,8 @@ import {
   type Grid,
   type StackPlacement,
 } from '@shared/schema/building.ts';
-import { buildingModelApi, type FloorLoadBody } from '@/api/buildingModel.ts';
+import * as buildingModelApi from '@/api/buildingModel.ts';
+import type { FloorLoadBody } from '@/api/buildingModel.ts';
 import { useBuildingsStore } from './buildings.ts';
 import { useNotifyStore } from './notify.ts';
 
@@ -39,7 +40,7 @@ export const useBuildingModelStore = defineStore('buildingModel', () => {
     }
     buildingId.value = id;
     try {
-      take(await buildingModelApi.get(id));
+      take(await buildingModelApi.getModel(id));
     } catch (e) {
       notify.error(e, 'Could not load the grid and floor loads');
     }
@@ -81,7 +82,7 @@ export const useBuildingModelStore = defineStore('buildingModel', () => {
 
   async function place(stackId: number, placement: StackPlacement): Promise<boolean> {
     try {
-      const placed = await buildingModelApi.place(stackId, placement);
+      const placed = await buildingModelApi.placeStack(stackId, placement);
       buildings.applyPlacements([placed]);
       return true;
     } catch (e) {

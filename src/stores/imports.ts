@@ -4,28 +4,26 @@
 import { computed, ref } from 'vue';
 import { defineStore, getActivePinia } from 'pinia';
 import { z } from 'zod';
-import {
-  applyResultSchema,
-  companySectionHitSchema,
-  importProblemSchema,
-  loadsPreviewSchema,
-  sectionsPreviewSchema,
-  type ImportProblem,
-  type LoadsPreview,
-  type SectionsPreview,
-} from '@shared/schema/imports.ts';
-import { ApiError, apiFetch } from '@/api/http.ts';
+import { importProblemSchema, type ImportProblem } from '@shared/schema/imports.ts';
+import { ApiError } from '@/api/http.ts';
 import { fetchFile, saveBlob } from '@/api/download.ts';
+import {
+  applyImport,
+  checkImport,
+  importPreviewSchema,
+  searchCompanySections,
+  type ImportKind,
+  type ImportPreview,
+} from '@/api/imports.ts';
 import { searchSections as searchCatalogue, type SectionHit } from '@/api/sections.ts';
 import { useBuildingsStore } from './buildings.ts';
 import { describeError, useNotifyStore } from './notify.ts';
 import { useStackStore } from './stack.ts';
 
-export type ImportKind = 'loads' | 'sections';
+export type { ImportKind };
 export type ImportState = 'idle' | 'checking' | 'checked' | 'applying' | 'applied';
-type Preview = LoadsPreview | SectionsPreview;
+type Preview = ImportPreview;
 
-const previewSchema = z.discriminatedUnion('kind', [loadsPreviewSchema, sectionsPreviewSchema]);
 const tooLargeSchema = z.object({ problems: z.array(importProblemSchema) });
 
 export const useImportsStore = defineStore('imports', () => {
@@ -54,8 +52,6 @@ export const useImportsStore = defineStore('imports', () => {
     state.value = 'idle';
   }
 
-  const path = (suffix = '') => `/buildings/${buildingId.value}/imports/${kind.value}${suffix}`;
-
   function form(extra: Record<string, string> = {}): FormData {
     const body = new FormData();
     for (const [k, v] of Object.entries(extra)) body.append(k, v);
@@ -66,7 +62,7 @@ export const useImportsStore = defineStore('imports', () => {
   /** A 422 carries the preview with its problems; a 413 carries one problem; anything else is a failure. */
   function takeError(e: unknown): void {
     if (e instanceof ApiError && e.status === 422) {
-      const parsed = previewSchema.safeParse(e.details);
+      const parsed = importPreviewSchema.safeParse(e.details);
       if (parsed.success) {
         preview.value = parsed.data;
         problems.value = parsed.data.problems;
@@ -87,10 +83,11 @@ export const useImportsStore = defineStore('imports', () => {
     preview.value = null;
     problems.value = [];
     failure.value = '';
-    if (!picked || buildingId.value === null) return void (state.value = 'idle');
+    const building = buildingId.value;
+    if (!picked || building === null) return void (state.value = 'idle');
     state.value = 'checking';
     try {
-      const checked = previewSchema.parse(await apiFetch<unknown>('POST', path(), form()));
+      const checked = await checkImport(building, kind.value, form());
       preview.value = checked;
       problems.value = checked.problems;
       state.value = 'checked';
@@ -102,12 +99,13 @@ export const useImportsStore = defineStore('imports', () => {
   /** Applies the checked file; the server refuses (409) when a stack moved on since the check. */
   async function apply(): Promise<boolean> {
     const checked = preview.value;
-    if (!canApply.value || !checked) return false;
+    const building = buildingId.value;
+    if (!canApply.value || !checked || building === null) return false;
     state.value = 'applying';
     const fields: Record<string, string> = { fileHash: checked.fileHash };
     if (checked.kind === 'loads') fields.basis = JSON.stringify(checked.basis);
     try {
-      const result = applyResultSchema.parse(await apiFetch<unknown>('POST', path('/apply'), form(fields)));
+      const result = await applyImport(building, kind.value, form(fields));
       state.value = 'applied';
       const what = kind.value === 'loads' ? 'level load' : 'section';
       notify.success(
@@ -137,15 +135,15 @@ export const useImportsStore = defineStore('imports', () => {
   /** The building's own sections matching q, then the catalogue's, for the section pickers. */
   async function searchSections(q: string, series?: string, forBuilding?: number | null): Promise<SectionHit[]> {
     if (!forBuilding || (series && series !== 'Company')) return searchCatalogue(q, series);
-    const ownQuery = apiFetch<unknown>(
-      'GET',
-      `/buildings/${forBuilding}/sections?${new URLSearchParams({ q }).toString()}`,
-    );
-    const [own, catalogue] = await Promise.all([ownQuery, series === 'Company' ? [] : searchCatalogue(q)]);
-    const hits: SectionHit[] = z
-      .array(companySectionHitSchema)
-      .parse(own)
-      .map((h) => ({ designation: h.designation, series: h.series, massPerMetre: h.massPerMetre }));
+    const [own, catalogue] = await Promise.all([
+      searchCompanySections(forBuilding, q),
+      series === 'Company' ? [] : searchCatalogue(q),
+    ]);
+    const hits: SectionHit[] = own.map((h) => ({
+      designation: h.designation,
+      series: h.series,
+      massPerMetre: h.massPerMetre,
+    }));
     return [...hits, ...catalogue];
   }
 

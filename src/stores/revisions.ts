@@ -9,8 +9,8 @@ import type {
   RevisionDetail,
   RevisionSummary,
 } from '@shared/schema/revisions.ts';
-import { ApiError, apiFetch } from '@/api/http.ts';
-import { downloadFile } from '@/api/download.ts';
+import { ApiError } from '@/api/http.ts';
+import * as revisionsApi from '@/api/revisions.ts';
 import { describeError, useNotifyStore } from './notify.ts';
 import type { LoadState } from './buildings.ts';
 
@@ -40,7 +40,7 @@ export const useRevisionsStore = defineStore('revisions', () => {
     buildingId.value = id;
     state.value = 'loading';
     try {
-      list.value = await apiFetch<RevisionSummary[]>('GET', `/buildings/${id}/revisions`);
+      list.value = await revisionsApi.listRevisions(id);
       state.value = 'ready';
     } catch (e) {
       error.value = describeError(e);
@@ -53,10 +53,7 @@ export const useRevisionsStore = defineStore('revisions', () => {
     if (buildingId.value === null) throw new Error('No building is open');
     // The newest revision this page shows: a doubled or retried request then cannot freeze twice.
     const afterRevisionId = list.value.reduce<number | null>((m, r) => (m === null || r.id > m ? r.id : m), null);
-    const created = await apiFetch<RevisionDetail>('POST', `/buildings/${buildingId.value}/revisions`, {
-      afterRevisionId,
-      ...body,
-    });
+    const created = await revisionsApi.freezeRevision(buildingId.value, { afterRevisionId, ...body });
     detail.value = created;
     list.value = [created, ...list.value.filter((r) => r.id !== created.id)];
     // A lead's freeze of a construction revision waits for its check and approval (docs/issue-workflow.md).
@@ -70,7 +67,7 @@ export const useRevisionsStore = defineStore('revisions', () => {
 
   async function open(id: number): Promise<void> {
     try {
-      detail.value = await apiFetch<RevisionDetail>('GET', `/revisions/${id}`);
+      detail.value = await revisionsApi.getRevision(id);
     } catch (e) {
       notify.error(e, 'Could not open the revision');
     }
@@ -78,7 +75,7 @@ export const useRevisionsStore = defineStore('revisions', () => {
 
   async function resend(id: number): Promise<void> {
     try {
-      const updated = await apiFetch<RevisionDetail>('POST', `/revisions/${id}/resend`);
+      const updated = await revisionsApi.resendRevision(id);
       detail.value = updated;
       list.value = list.value.map((r) => (r.id === id ? updated : r));
       if (updated.mail.failed > 0)
@@ -96,7 +93,7 @@ export const useRevisionsStore = defineStore('revisions', () => {
   async function download(rev: Pick<RevisionSummary, 'id' | 'code'>): Promise<void> {
     downloading.value = rev.id;
     try {
-      await downloadFile(`/revisions/${rev.id}/calc.pdf`, `revision-${rev.code}.pdf`);
+      await revisionsApi.downloadPackage(rev);
     } catch (e) {
       notify.error(e, `Could not download revision ${rev.code}`);
     } finally {
@@ -108,10 +105,7 @@ export const useRevisionsStore = defineStore('revisions', () => {
     if (buildingId.value === null) return;
     comparing.value = true;
     try {
-      comparison.value = await apiFetch<RevisionComparison>(
-        'GET',
-        `/buildings/${buildingId.value}/revisions/compare?from=${from}&to=${to}`,
-      );
+      comparison.value = await revisionsApi.compareRevisions(buildingId.value, from, to);
     } catch (e) {
       notify.error(e, 'Could not compare');
     } finally {

@@ -3,9 +3,10 @@
 // the open stack's serial edit queue (live and undoable), or per stack over REST for a building.
 import { computed, ref, shallowRef } from 'vue';
 import { defineStore } from 'pinia';
-import type { BuildingSizingPreview, SizingRequest, StackSizingPreview } from '@shared/schema/sizing.ts';
-import { apiFetch } from '@/api/http.ts';
-import { acceptOps, allSelectable, massTotals, previewRows } from '@/components/sizing/sizingRows.ts';
+import type { SizingRequest, StackSizingPreview } from '@shared/schema/sizing.ts';
+import { proposeForBuilding, proposeForStack } from '@/api/sizing.ts';
+import { applyStackOps } from '@/api/stacks.ts';
+import { acceptOps, allSelectable, massTotals, previewRows } from '@/utils/sizingRows.ts';
 import type { LoadState } from './buildings.ts';
 import { describeError, useNotifyStore } from './notify.ts';
 import { useStackStore } from './stack.ts';
@@ -43,11 +44,9 @@ export const useSizingStore = defineStore('sizing', () => {
     error.value = '';
     try {
       if (target.kind === 'stack') {
-        previews.value = [await apiFetch<StackSizingPreview>('POST', `/stacks/${target.id}/sizing`, request)];
+        previews.value = [await proposeForStack(target.id, request)];
       } else {
-        previews.value = (
-          await apiFetch<BuildingSizingPreview>('POST', `/buildings/${target.id}/sizing`, request)
-        ).stacks;
+        previews.value = (await proposeForBuilding(target.id, request)).stacks;
       }
       chosen.value = allSelectable(previews.value);
       state.value = 'ready';
@@ -86,7 +85,7 @@ export const useSizingStore = defineStore('sizing', () => {
       const ops = acceptOps(preview, chosen.value);
       if (ops.length === 0) continue;
       try {
-        await apiFetch('POST', `/stacks/${preview.stackId}/ops`, { ops, baseVersion: preview.version });
+        await applyStackOps(preview.stackId, preview.version, ops);
         applied++;
       } catch (e) {
         notify.error(e, `Stack ${preview.name} was not changed`);

@@ -8,7 +8,7 @@ import { apiFetch, getToken, setToken } from '@/api/http.ts';
 import { useAuthStore } from '@/stores/auth.ts';
 import { mockFetch } from './fetchMock.ts';
 
-const user = { id: 3, email: 'ana@example.test', name: 'Ana Example', isAdmin: false };
+const user = { id: 3, email: 'ana@example.test', name: 'Ana Example', isAdmin: false, emailVerified: true };
 
 function makeRouter(): Router {
   setActivePinia(createPinia());

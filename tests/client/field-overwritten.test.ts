@@ -3,7 +3,7 @@
 import { describe, expect, it } from 'vitest';
 import { effectScope, nextTick, ref } from 'vue';
 import { nodeDataSchemas } from '@shared/schema/stack.ts';
-import { NODE_FIELDS } from '@/components/stack/nodeFields.ts';
+import { NODE_FIELDS } from '@/utils/nodeFields.ts';
 import { useFieldDraft } from '@/composables/useFieldDraft.ts';
 
 const base = { elevation: 4, axes: 'both', fixity: 'pinned', Gk: 100, Qk: 40, category: 'B' };

@@ -3,9 +3,9 @@ import { describe, expect, it } from 'vitest';
 import type { StackDocument } from '@shared/schema/stack.ts';
 import { applyOps } from '@shared/ops/applyOps.ts';
 import { connectionRefusal } from '@/components/graph/connectionRules.ts';
-import { PX_PER_METRE, layoutByElevation } from '@/components/graph/layoutByElevation.ts';
-import { inverseOps } from '@/composables/inverseOps.ts';
-import { copySelection, pasteOps } from '@/composables/clipboardOps.ts';
+import { PX_PER_METRE, layoutByElevation } from '@/utils/layoutByElevation.ts';
+import { inverseOps } from '@/utils/inverseOps.ts';
+import { copySelection, pasteOps } from '@/utils/clipboardOps.ts';
 
 // Invented stack: pinned base at ±0, lift L1 to a splice at +8, lift L2 to the cap at +12.
 const doc: StackDocument = {

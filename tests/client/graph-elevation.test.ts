@@ -5,8 +5,8 @@ import { describe, expect, it } from 'vitest';
 import { applyOps } from '@shared/ops/applyOps.ts';
 import { StructuralEditError } from '@shared/ops/structuralEdits.ts';
 import type { Level } from '@shared/schema/api.ts';
-import { PX_PER_METRE } from '@/components/graph/layoutByElevation.ts';
-import { snapElevation } from '@/components/graph/snapElevation.ts';
+import { PX_PER_METRE } from '@/utils/layoutByElevation.ts';
+import { snapElevation } from '@/utils/snapElevation.ts';
 import { useStackGraph } from '@/composables/useStackGraph.ts';
 import { buildStack } from '../engine/stack-builder.ts';
 

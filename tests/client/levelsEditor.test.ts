@@ -7,6 +7,7 @@ import type { Building, Level } from '@shared/schema/api.ts';
 import { DEFAULT_ANALYSIS_OPTIONS } from '@shared/schema/results.ts';
 import LevelsEditor from '@/components/building/LevelsEditor.vue';
 import { useBuildingsStore } from '@/stores/buildings.ts';
+import { useLevelsStore } from '@/stores/levels.ts';
 import { mockFetch } from './fetchMock.ts';
 
 // Invented demo building with two levels.
@@ -31,9 +32,11 @@ function mountEditor(canEdit = true) {
   setActivePinia(pinia);
   const store = useBuildingsStore();
   store.current = { ...building, role: canEdit ? 'engineer' : 'viewer' };
-  store.levels = [...levels];
+  const levelsStore = useLevelsStore();
+  levelsStore.replace(building.id, levels);
   const Host = defineComponent(() => {
-    const { levels: current, canEdit: editable } = storeToRefs(store);
+    const { canEdit: editable } = storeToRefs(store);
+    const { levels: current } = storeToRefs(levelsStore);
     return () => h(LevelsEditor, { levels: current.value, canEdit: editable.value });
   });
   return mount(Host, { global: { plugins: [pinia] } });

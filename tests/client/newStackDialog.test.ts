@@ -11,6 +11,7 @@ import NewStackDialog from '@/components/building/NewStackDialog.vue';
 import SectionSelect from '@/components/building/SectionSelect.vue';
 import RestraintFacesForm from '@/components/stack/RestraintFacesForm.vue';
 import { useBuildingsStore } from '@/stores/buildings.ts';
+import { useLevelsStore } from '@/stores/levels.ts';
 import { mockFetch } from './fetchMock.ts';
 
 // Invented demo building with one stack.
@@ -53,7 +54,7 @@ function openStore(levels: Level[] = []) {
   const store = useBuildingsStore();
   store.current = building;
   store.stacks = [c4];
-  store.levels = levels;
+  useLevelsStore().replace(building.id, levels);
   return { pinia, store };
 }
 

@@ -9,8 +9,8 @@ import { setToken } from '@/api/http.ts';
 import { mockFetch } from './fetchMock.ts';
 
 // Invented accounts.
-const admin = { id: 1, email: 'admin@example.test', name: 'Site Admin', isAdmin: true };
-const engineer = { id: 3, email: 'ana@example.test', name: 'Ana Example', isAdmin: false };
+const admin = { id: 1, email: 'admin@example.test', name: 'Site Admin', isAdmin: true, emailVerified: true };
+const engineer = { id: 3, email: 'ana@example.test', name: 'Ana Example', isAdmin: false, emailVerified: true };
 
 let pinia: Pinia;
 function makeRouter(): Router {

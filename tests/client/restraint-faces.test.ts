@@ -5,7 +5,7 @@ import RestraintFacesForm from '@/components/stack/RestraintFacesForm.vue';
 import PropertiesPanel from '@/components/stack/PropertiesPanel.vue';
 import ResultsPanel from '@/components/stack/ResultsPanel.vue';
 import ResultsTable from '@/components/stack/ResultsTable.vue';
-import { facesText } from '@/components/graph/nodes/words.ts';
+import { facesText } from '@/utils/nodeWords.ts';
 import { liftRows } from '@/components/stack/liftRows.ts';
 import { analyseStack } from '@shared/engine/stack/analyseStack.ts';
 import type { StackDocument } from '@shared/schema/stack.ts';

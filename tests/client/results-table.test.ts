@@ -8,7 +8,7 @@ import { analyseStack } from '@shared/engine/index.ts';
 import { BRACED_FRAME_WARNING } from '@shared/engine/stack/inspectStack.ts';
 import ResultsPanel from '@/components/stack/ResultsPanel.vue';
 import BucklingCurvePlot from '@/components/stack/BucklingCurvePlot.vue';
-import { bucklingCurvePoints } from '@/composables/bucklingCurvePoints.ts';
+import { bucklingCurvePoints } from '@/components/stack/bucklingCurvePoints.ts';
 import { liftRows } from '@/components/stack/liftRows.ts';
 
 // Invented four-storey stack: base to +8 in a heavier section, splice, +8 to +14 lighter, roof cap.

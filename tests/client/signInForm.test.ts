@@ -34,7 +34,7 @@ async function fillAndSubmit(wrapper: ReturnType<typeof mount>, email: string, p
   await flushPromises();
 }
 
-const user = { id: 3, email: 'ana@example.test', name: 'Ana Example', isAdmin: false };
+const user = { id: 3, email: 'ana@example.test', name: 'Ana Example', isAdmin: false, emailVerified: true };
 
 describe('sign-in form', () => {
   beforeEach(() => localStorage.clear());

@@ -6,14 +6,7 @@ import { createPinia, setActivePinia } from 'pinia';
 import type { LiftSizing, StackSizingPreview } from '@shared/schema/sizing.ts';
 import SizingForm from '@/components/sizing/SizingForm.vue';
 import SizingPreviewTable from '@/components/sizing/SizingPreviewTable.vue';
-import {
-  acceptOps,
-  allSelectable,
-  formatMass,
-  massTotals,
-  previewRows,
-  rowKey,
-} from '@/components/sizing/sizingRows.ts';
+import { acceptOps, allSelectable, formatMass, massTotals, previewRows, rowKey } from '@/utils/sizingRows.ts';
 import { useSizingStore } from '@/stores/sizing.ts';
 import { useStackStore } from '@/stores/stack.ts';
 import { mockFetch } from './fetchMock.ts';

@@ -137,6 +137,47 @@ describe('stack store on the live channel', () => {
     store.close();
   });
 
+  it('opens with one join on the live channel and no REST request: name, building and levels come with it', async () => {
+    const fetchSpy = vi.spyOn(globalThis, 'fetch');
+    try {
+      const store = await openAs(engineer);
+      expect(fetchSpy).not.toHaveBeenCalled();
+      expect(store.name).toBe('B/2');
+      expect(store.buildingId).toBe(building.id);
+      expect(store.buildingName).toBe(building.name);
+      const levels = await api<{ id: string; elevation: number }[]>(
+        'GET',
+        `/buildings/${building.id}/levels`,
+        engineer.token,
+      );
+      expect(store.levels.map((l) => l.id)).toEqual(levels.map((l) => l.id));
+      store.close();
+    } finally {
+      fetchSpy.mockRestore();
+    }
+  });
+
+  it('names each edit; the server echoes the name to everyone and the store takes its edit back once', async () => {
+    const store = await openAs(engineer);
+    const watcher = connectLive(colleague.token, baseUrl);
+    await joinStack(watcher, stackId);
+    const heard: { version: number; editId?: string }[] = [];
+    watcher.on('stack:changed', (c) => heard.push(c));
+    const cap = store.doc?.nodes.find((n) => n.kind === 'cap');
+    if (!cap) throw new Error('template has a cap');
+    const before = store.version;
+    store.edit([{ op: 'updateNode', id: cap.id, data: { Gk: 61 } }], 'Change Gk');
+    store.edit([{ op: 'updateNode', id: cap.id, data: { Gk: 61 } }], 'Change Gk');
+    await until(() => !store.saving && heard.length === 2);
+    expect(store.version).toBe(before + 2);
+    // Two edits with the same ops still carry two names.
+    expect(heard.map((c) => c.version)).toEqual([before + 1, before + 2]);
+    expect(new Set(heard.map((c) => c.editId)).size).toBe(2);
+    heard.forEach((c) => expect(c.editId).toMatch(/^[A-Za-z0-9_-]+$/));
+    watcher.disconnect();
+    store.close();
+  });
+
   it("applies an edit at once, has it acknowledged, and takes the server's new results", async () => {
     const store = await openAs(engineer);
     const lift = store.doc?.nodes.find((n) => n.kind === 'lift');

@@ -4,8 +4,8 @@
 import { describe, expect, it } from 'vitest';
 import { applyOps } from '@shared/ops/applyOps.ts';
 import { addNodeOps } from '@/components/graph/newNode.ts';
-import { layoutByElevation } from '@/components/graph/layoutByElevation.ts';
-import { drawnWhereLaidOut, inverseOps } from '@/composables/inverseOps.ts';
+import { layoutByElevation } from '@/utils/layoutByElevation.ts';
+import { drawnWhereLaidOut, inverseOps } from '@/utils/inverseOps.ts';
 import { useUndoHistory } from '@/composables/useUndoHistory.ts';
 import { buildStack } from '../engine/stack-builder.ts';
 

@@ -1,9 +1,9 @@
 // Live co-editing over real socket.io-client connections (docs/live-protocol.md).
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import type { AuthResponse, StackSummary } from '../../shared/schema/api.ts';
+import type { AuthResponse, Level, StackDetail, StackSummary } from '../../shared/schema/api.ts';
 import type { Op } from '../../shared/schema/ops.ts';
 import type { StackResult } from '../../shared/schema/results.ts';
-import type { StackJoinAck } from '../../shared/schema/socket.ts';
+import type { StackEditAck, StackJoinAck } from '../../shared/schema/socket.ts';
 import type { StackDocument } from '../../shared/schema/stack.ts';
 import { applyOps } from '../../shared/ops/applyOps.ts';
 import { addMember, createBuilding, registerUser, startTestServer, type TestServer } from './helpers.ts';
@@ -121,6 +121,68 @@ describe('live channel: edits', () => {
     const newUtil = changed.results.lifts.find((l) => l.liftId === lift.id)!.utilisation;
     // A much lighter section must carry a higher utilisation.
     expect(newUtil).toBeGreaterThan(oldUtil);
+  });
+
+  it('the join answers all the stack page needs: document, results, name, building, role and levels', async () => {
+    const stackId = await newStack('J/1');
+    const levels = [
+      { name: 'Level 1', elevation: 3.6 },
+      { name: 'Ground', elevation: 0 },
+    ];
+    for (const body of levels) {
+      const r = await s.api('POST', `/buildings/${buildingId}/levels`, { token: lead.token, body });
+      expect(r.status).toBe(201);
+    }
+    const stored = (await s.api('GET', `/stacks/${stackId}`, { token: lead.token })).body as StackDetail;
+    const byViewer = await request<StackJoinAck>(await client(viewer.token), 'stack:join', { stackId });
+    const byEngineer = await request<StackJoinAck>(await client(engineers[9].token), 'stack:join', { stackId });
+    if (!byViewer.ok || !byEngineer.ok) throw new Error('join failed');
+    expect(byViewer.data.doc).toEqual(stored.doc);
+    expect(byViewer.data.version).toBe(stored.version);
+    expect(byViewer.data.results).toEqual(stored.results);
+    expect(byViewer.data.name).toBe('J/1');
+    expect(byViewer.data.buildingId).toBe(buildingId);
+    expect(byViewer.data.buildingName).toBe('Live test block');
+    expect(byViewer.data.role).toBe('viewer');
+    expect(byEngineer.data.role).toBe('engineer');
+    // Lowest first, as GET /buildings/:id/levels lists them.
+    const listed = (await s.api('GET', `/buildings/${buildingId}/levels`, { token: lead.token })).body as Level[];
+    expect(byViewer.data.levels).toEqual(listed);
+    expect(byViewer.data.levels.map((l) => l.name).slice(0, 2)).toEqual(['Ground', 'Level 1']);
+  });
+
+  it("echoes an edit's id in its ack and its stack:changed, and refuses a malformed one", async () => {
+    const stackId = await newStack('E/1');
+    const [a, b] = [await client(engineers[4].token), await client(engineers[5].token)];
+    const ja = await request<StackJoinAck>(a, 'stack:join', { stackId });
+    await request<StackJoinAck>(b, 'stack:join', { stackId });
+    if (!ja.ok) throw new Error('join failed');
+    const node = ja.data.doc.nodes[0];
+    const move = (x: number) => [{ op: 'moveNode', id: node.id, position: { x, y: 0 } }];
+    for (const editId of ['', 'has space', 'x'.repeat(65), 42]) {
+      const r = await request(a, 'stack:edit', { stackId, baseVersion: ja.data.version, ops: move(1), editId });
+      expect(r.ok).toBe(false);
+      if (!r.ok) expect(r.error.code).toBe('validation_failed');
+    }
+    expect((await dbStack(stackId)).version).toBe(ja.data.version);
+    const seenByA = next(a, 'stack:changed', (p) => p.stackId === stackId);
+    const seenByB = next(b, 'stack:changed', (p) => p.stackId === stackId);
+    const r = await request<StackEditAck>(a, 'stack:edit', {
+      stackId,
+      baseVersion: ja.data.version,
+      ops: move(2),
+      editId: 'mr1a2b-7-q9z8y7x6',
+    });
+    if (!r.ok) throw new Error(r.error.message);
+    expect(r.data).toEqual({ version: ja.data.version + 1, editId: 'mr1a2b-7-q9z8y7x6' });
+    expect((await seenByA).editId).toBe('mr1a2b-7-q9z8y7x6');
+    expect((await seenByB).editId).toBe('mr1a2b-7-q9z8y7x6');
+    // An edit without an id (an older client) is answered as before, with no id in the broadcast.
+    const plain = next(b, 'stack:changed', (p) => p.stackId === stackId && p.version === ja.data.version + 2);
+    const r2 = await request<StackEditAck>(a, 'stack:edit', { stackId, baseVersion: r.data.version, ops: move(3) });
+    if (!r2.ok) throw new Error(r2.error.message);
+    expect(r2.data).toEqual({ version: ja.data.version + 2 });
+    expect('editId' in (await plain)).toBe(false);
   });
 
   it('refuses malformed payloads with the error shape and leaves the room undisturbed', async () => {

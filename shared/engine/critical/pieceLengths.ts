@@ -33,24 +33,28 @@ export function pieceLengths(
   NEdZ: number,
   critical: LiftCritical,
 ): PieceLengths {
-  const lengthY = span.segmentY.top - span.segmentY.bottom;
-  const lengthZ = span.segmentZ.top - span.segmentZ.bottom;
-  const out: PieceLengths = { LcrY: 0, LcrZ: 0, kY: 0, kZ: 0 };
-  if (lift.data.kY !== undefined || !(NEdY > 0)) {
-    out.kY = lift.data.kY ?? span.segmentY.k;
-    out.LcrY = out.kY * lengthY;
-  } else {
-    out.LcrY = equivalentLength(critical.EI.y, critical.alphaCr.y, NEdY);
-    out.kY = out.LcrY / lengthY;
-    out.tableKY = span.segmentY.k;
-  }
-  if (lift.data.kZ !== undefined || !(NEdZ > 0)) {
-    out.kZ = lift.data.kZ ?? span.segmentZ.k;
-    out.LcrZ = out.kZ * lengthZ;
-  } else {
-    out.LcrZ = equivalentLength(critical.EI.z, critical.alphaCr.z, NEdZ);
-    out.kZ = out.LcrZ / lengthZ;
-    out.tableKZ = span.segmentZ.k;
-  }
+  const y = axisLength(lift.data.kY, span.segmentY, NEdY, critical.EI.y, critical.alphaCr.y);
+  const z = axisLength(lift.data.kZ, span.segmentZ, NEdZ, critical.EI.z, critical.alphaCr.z);
+  const out: PieceLengths = { LcrY: y.Lcr, LcrZ: z.Lcr, kY: y.k, kZ: z.k };
+  if (y.tableK !== undefined) out.tableKY = y.tableK;
+  if (z.tableK !== undefined) out.tableKZ = z.tableK;
   return out;
+}
+
+/** One axis: the lift's own k or the table's k times the segment's length, or the equivalent length of the
+ *  critical force αcr·NEd (then `tableK` keeps the table's factor for the working). */
+function axisLength(
+  ownK: number | undefined,
+  segment: { top: number; bottom: number; k: number },
+  NEd: number,
+  EI: number,
+  alphaCr: number,
+): { Lcr: number; k: number; tableK?: number } {
+  const length = segment.top - segment.bottom;
+  if (ownK !== undefined || !(NEd > 0)) {
+    const k = ownK ?? segment.k;
+    return { Lcr: k * length, k };
+  }
+  const Lcr = equivalentLength(EI, alphaCr, NEd);
+  return { Lcr, k: Lcr / length, tableK: segment.k };
 }

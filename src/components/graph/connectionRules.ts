@@ -1,8 +1,8 @@
 // Which connections the stack document allows (docs/contracts.md §Stack document), with the reason when one is refused.
 // Edges point upward along the chain; restraints point at the lift they brace; loads at their carrier.
 import type { NodeKind, StackDocument, StackNode } from '@shared/schema/stack.ts';
-import { formatElevation } from '@/components/common/format.ts';
-import { liftSpans, nodesById, ownElevation } from '@/composables/stackChain.ts';
+import { formatElevation } from '@/utils/format.ts';
+import { liftSpans, nodesById, ownElevation } from '@/utils/stackChain.ts';
 
 const ALLOWED: Record<NodeKind, NodeKind[]> = {
   support: ['lift'],

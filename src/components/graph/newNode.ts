@@ -2,8 +2,8 @@
 // node when the document allows that connection, so building a stack upward takes one click per part.
 import type { Op } from '@shared/schema/ops.ts';
 import type { NodeKind, StackDocument, StackNode } from '@shared/schema/stack.ts';
-import { newId } from '@/composables/clipboardOps.ts';
-import { ownElevation } from '@/composables/stackChain.ts';
+import { newId } from '@/utils/clipboardOps.ts';
+import { ownElevation } from '@/utils/stackChain.ts';
 import { applyOps } from '@shared/ops/applyOps.ts';
 import { connectionRefusal } from './connectionRules.ts';
 

@@ -2,7 +2,7 @@
 // analysis options in the words of the options dialog rather than their stored keys.
 import type { Change, FieldChange, LiftUtilisationChange } from '@shared/schema/revisions.ts';
 import { levelWord } from '@shared/wording.ts';
-import { formatElevation } from '@/components/common/format.ts';
+import { formatElevation } from '@/utils/format.ts';
 
 export const CHANGE_COLOUR: Record<Change, string> = { added: 'positive', removed: 'negative', changed: 'warning' };
 

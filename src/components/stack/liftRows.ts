@@ -3,7 +3,7 @@
 import type { GoverningMode, LiftResult, PieceCheck, StackResult } from '@shared/schema/results.ts';
 import type { StackDocument } from '@shared/schema/stack.ts';
 import { CHECK_NAMES } from '@shared/wording.ts';
-import { liftNumbers } from '@/composables/stackChain.ts';
+import { liftNumbers } from '@/utils/stackChain.ts';
 
 export interface LiftRow {
   liftId: string;

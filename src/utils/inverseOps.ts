@@ -2,7 +2,7 @@
 // computed from that earlier document. Pure; the store sends the result through the live channel.
 import type { Op } from '@shared/schema/ops.ts';
 import type { StackDocument, StackEdge, StackNode } from '@shared/schema/stack.ts';
-import { layoutByElevation, type XY } from '@/components/graph/layoutByElevation.ts';
+import { layoutByElevation, type XY } from '@/utils/layoutByElevation.ts';
 
 /** Re-creates a node exactly as it was, with the edges that touched it. */
 function restoreNode(node: StackNode, edges: StackEdge[]): Op[] {

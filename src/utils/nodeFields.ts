@@ -1,8 +1,8 @@
 // The fields of each node kind's properties form, with the unit in every label (docs/contracts.md §Stack document: m,
 // kN). Lifts have their own form (section picker, buckling-length overrides).
 import type { NodeKind } from '@shared/schema/stack.ts';
-import type { FieldInfo } from '@/components/common/formErrors.ts';
-import { AXES_WORD, CATEGORY_WORD, FIXITY_WORD } from '@/components/graph/nodes/words.ts';
+import type { FieldInfo } from '@/utils/formErrors.ts';
+import { AXES_WORD, CATEGORY_WORD, FIXITY_WORD } from '@/utils/nodeWords.ts';
 
 export interface FieldOption {
   label: string;

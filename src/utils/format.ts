@@ -1,5 +1,6 @@
 // How figures read on screen: elevations to the millimetre with a sign, utilisation to two places,
 // dates in ISO 8601.
+import type { QTableColumn } from 'quasar';
 
 /** "+3.500" (m): the one formatter shared with the package and the e-mail. */
 export { formatElevation } from '@shared/wording.ts';
@@ -14,4 +15,16 @@ export function formatIsoDate(value: string): string {
   const d = new Date(value);
   if (Number.isNaN(d.getTime())) return value;
   return `${d.toISOString().slice(0, 10)} ${d.toISOString().slice(11, 16)}`;
+}
+
+/** The "Updated (UTC)" column of a table of things with an ISO `updatedAt` (buildings, stacks). */
+export function updatedAtColumn<Row extends { updatedAt: string }>(): QTableColumn<Row> {
+  return {
+    name: 'updatedAt',
+    label: 'Updated (UTC)',
+    field: 'updatedAt',
+    align: 'left',
+    sortable: true,
+    format: (v: string) => formatIsoDate(v),
+  };
 }

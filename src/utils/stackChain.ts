@@ -1,7 +1,7 @@
 // Reading a stack document as the vertical chain of docs/contracts.md §Stack document: where each node sits and how
 // it is named on screen. Pure functions of the document, shared by the graph, the forms and the results pane.
 import type { LiftData, NodeKind, StackDocument, StackNode } from '@shared/schema/stack.ts';
-import { formatElevation } from '@/components/common/format.ts';
+import { formatElevation } from '@/utils/format.ts';
 
 export interface Span {
   bottom: number;

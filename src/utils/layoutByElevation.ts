@@ -2,7 +2,7 @@
 // the chain in one column with height following elevation (y = −elevation × scale, screen y grows
 // downward), restraints beside it, loads beside their carriers. Drawing only; the analysis never reads it.
 import type { StackDocument } from '@shared/schema/stack.ts';
-import { drawingElevations } from '@/composables/stackChain.ts';
+import { drawingElevations } from '@/utils/stackChain.ts';
 
 export interface XY {
   x: number;

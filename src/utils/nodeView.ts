@@ -1,7 +1,7 @@
 // What a node component is given to draw: the node's own data plus what the page knows about it
 // (problems, result, who else has it selected). Lives only on screen; never stored.
 import type { NodeKind, NodeOf } from '@shared/schema/stack.ts';
-import type { Span } from '@/composables/stackChain.ts';
+import type { Span } from '@/utils/stackChain.ts';
 
 export interface NodeProblem {
   severity: 'error' | 'warning';

@@ -2,7 +2,7 @@
 // ids beside the originals. Pure; the result is a list of ops for one edit.
 import type { Op } from '@shared/schema/ops.ts';
 import type { NodeKind, StackDocument, StackEdge, StackNode } from '@shared/schema/stack.ts';
-import type { XY } from '@/components/graph/layoutByElevation.ts';
+import type { XY } from '@/utils/layoutByElevation.ts';
 
 export interface Clip {
   nodes: StackNode[];
