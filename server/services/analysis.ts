@@ -48,12 +48,16 @@ export function floorLoadsOf(inputs: AnalysisInputs, place?: StackPlace) {
 
 /** The results as stored: marked with the rules that produced them, so results of older rules can be found. */
 export function analyse(doc: StackDocument, inputs: AnalysisInputs, place?: StackPlace): StackResult {
-  const options = {
-    levels: inputs.levels,
-    sections: inputs.sections,
-    shapeChecked: true,
-    floorLoads: floorLoadsOf(inputs, place),
-  };
+  return analyseWithLoads(doc, inputs, floorLoadsOf(inputs, place));
+}
+
+/** `analyse` with the floors' loads already derived (`floorLoadsOf`). */
+export function analyseWithLoads(
+  doc: StackDocument,
+  inputs: AnalysisInputs,
+  floorLoads: ReturnType<typeof floorLoadsOf>,
+): StackResult {
+  const options = { levels: inputs.levels, sections: inputs.sections, shapeChecked: true, floorLoads };
   return { ...analyseStack(doc, inputs.options, options), engineVersion: ENGINE_VERSION };
 }
 

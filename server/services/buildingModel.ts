@@ -21,6 +21,7 @@ import { recordAudit } from './audit.ts';
 import { readModel, writeModel } from './buildingModelStore.ts';
 import { broadcastChange, commitDoc, type CommittedChange } from './stackOps.ts';
 import { loadStackRow, type StackRow } from './stackRows.ts';
+import { storeReanalyses } from './storeReanalyses.ts';
 
 export async function getModel(db: Knex, buildingId: number): Promise<BuildingModelReply> {
   const { model, version } = await readModel(db, buildingId);
@@ -57,13 +58,7 @@ async function reanalyse(
   action: string,
 ): Promise<CommittedChange[]> {
   if (rows.length === 0) return [];
-  const inputs = await analysisInputs(trx, buildingId);
-  const changes: CommittedChange[] = [];
-  for (const row of rows)
-    changes.push(
-      await commitDoc(trx, row, { doc: storedDoc(row), ops: [], touched: new Set(), userId, action }, inputs),
-    );
-  return changes;
+  return storeReanalyses(trx, rows, await analysisInputs(trx, buildingId), { userId, action });
 }
 
 function broadcast(ctx: ServerContext, buildingId: number, change: ModelChange, user: User): void {
