@@ -24,6 +24,7 @@ import * as addUsersEmailVerifiedAt from './202612031201_add_users_email_verifie
 import * as addInvitationsExpiresAt from './202612031202_add_invitations_expires_at.ts';
 import * as addBuildingModels from './202612031300_add_building_models.ts';
 import * as addStackGridPosition from './202612031301_add_stack_grid_position.ts';
+import * as addStackPlaceIndex from './202612031420_add_stack_place_index.ts';
 
 const migrations: Record<string, Knex.Migration> = {
   '202512010900_add_users': addUsers,
@@ -50,6 +51,7 @@ const migrations: Record<string, Knex.Migration> = {
   '202612031202_add_invitations_expires_at': addInvitationsExpiresAt,
   '202612031300_add_building_models': addBuildingModels,
   '202612031301_add_stack_grid_position': addStackGridPosition,
+  '202612031420_add_stack_place_index': addStackPlaceIndex,
 };
 
 export const migrationSource: Knex.MigrationSource<string> = {

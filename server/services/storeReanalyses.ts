@@ -11,12 +11,16 @@ import { analyseWithLoads, floorLoadsOf, resultColumns, summariseResult, type An
 import { INSERT_CHUNK, recordAudits } from './audit.ts';
 import { touchBuilding } from './buildings.ts';
 import type { CommittedChange } from './stackOps.ts';
+import { yieldToLoop } from './stackEditOffThread.ts';
 import { placeOf, type StackRow } from './stackRows.ts';
 
 export type ReanalysedRow = Pick<
   StackRow,
   'id' | 'building_id' | 'doc' | 'version' | 'grid_x' | 'grid_y' | 'web_along'
 >;
+
+/** Longest stretch of analysis without a turn of the event loop, ms (common practice, no source). */
+const SLICE_MS = 20;
 
 type Analysed = Pick<CommittedChange, 'doc' | 'results' | 'summary'> & { columns: ReturnType<typeof resultColumns> };
 
@@ -32,7 +36,9 @@ export async function storeReanalyses(
 ): Promise<CommittedChange[]> {
   if (rows.length === 0) return [];
   const same = new Map<string, Analysed>();
-  const analysed = rows.map((row) => {
+  const analysed: Analysed[] = [];
+  let slice = performance.now();
+  for (const row of rows) {
     const floorLoads = floorLoadsOf(inputs, placeOf(row));
     const key = `${row.doc}\n${JSON.stringify(floorLoads ? [...floorLoads] : null)}`;
     let found = same.get(key);
@@ -42,8 +48,13 @@ export async function storeReanalyses(
       found = { doc, results, summary: summariseResult(doc, results), columns: resultColumns(doc, results) };
       same.set(key, found);
     }
-    return found;
-  });
+    analysed.push(found);
+    // Hundreds of different stacks are seconds of work: other requests and live events are served meanwhile.
+    if (performance.now() - slice > SLICE_MS) {
+      await yieldToLoop();
+      slice = performance.now();
+    }
+  }
   const at = now();
   for (const [i, row] of rows.entries()) {
     const updated = await trx('stacks')
