@@ -12,9 +12,6 @@ export function databaseKind(config: Pick<Config, 'databaseUrl'>): DatabaseKind 
   return config.databaseUrl ? 'postgres' : 'sqlite';
 }
 
-/** The SQLite database file of a configuration without DATABASE_URL. */
-export const sqliteFile = (config: Pick<Config, 'dataDir'>): string => resolve(config.dataDir, 'stanchion.sqlite');
-
 export function createDb(
   config: Pick<Config, 'databaseUrl' | 'dataDir'> & Partial<Pick<Config, 'databaseSchema'>>,
 ): Knex {
@@ -29,7 +26,7 @@ export function createDb(
   mkdirSync(config.dataDir, { recursive: true });
   return knex({
     client: 'better-sqlite3',
-    connection: { filename: sqliteFile(config) },
+    connection: { filename: resolve(config.dataDir, 'stanchion.sqlite') },
     useNullAsDefault: true,
     // One connection: SQLite serialises writers anyway, and transactions then never interleave.
     pool: {

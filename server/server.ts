@@ -7,8 +7,7 @@ import { pino, type Logger } from 'pino';
 import { createApp } from './app.ts';
 import { loadConfig, type ConfigOverrides } from './config.ts';
 import type { RedisClient, ServerContext } from './context.ts';
-import { createDb, isPostgres, migrate, sqliteFile } from './db.ts';
-import { startWalCheckpointer } from './walCheckpointer.ts';
+import { createDb, migrate } from './db.ts';
 import { createMailer } from './mail/mailer.ts';
 import { startMailSender } from './mail/mailSender.ts';
 import { createOffThread } from './offThread/pool.ts';
@@ -57,9 +56,6 @@ export async function startServer(opts: StartOptions = {}): Promise<RunningServe
   }
   await reanalyseOutdatedOnStart(db);
   const log = pino({ level: config.logLevel, redact: ['req.headers.authorization'] });
-  const checkpointer = isPostgres(db)
-    ? null
-    : await startWalCheckpointer(db, sqliteFile(config), log.child({ name: 'db' }));
   const mailer = await createMailer(config, db, log.child({ name: 'mail' }));
   const redis = config.redisUrl ? await connectRedis(config.redisUrl, log.child({ name: 'redis' })) : null;
   const offThread = createOffThread();
@@ -96,7 +92,6 @@ export async function startServer(opts: StartOptions = {}): Promise<RunningServe
       await closeRedis(redis);
       await offThread.close();
       await mailer.close();
-      await checkpointer?.close();
       await db.destroy();
     })();
     return closing;
