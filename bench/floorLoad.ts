@@ -22,13 +22,34 @@ const SAMPLES = 5;
 /** A change whose updates have not all arrived by now has lost some: reported, not waited for. */
 const TIMEOUT_MS = 120_000;
 
-async function startBenchServer(): Promise<{ url: string; stop(): void }> {
+interface BenchServer {
+  url: string;
+  /** CPU time the server process has used so far, ms. */
+  cpuMs(): Promise<number>;
+  /** With BENCH_PROFILE=<folder>: a CPU profile of the server between start and stop. */
+  profile(what: 'start' | 'stop'): void;
+  stop(): void;
+}
+
+async function startBenchServer(): Promise<BenchServer> {
   const child = spawn(process.execPath, ['--import', 'tsx', 'bench/serve.ts'], { stdio: ['pipe', 'pipe', 'inherit'] });
+  const lines = createInterface({ input: child.stdout });
+  const next = () => new Promise<string>((resolve) => lines.once('line', resolve));
   const line = await new Promise<string>((resolve, reject) => {
-    createInterface({ input: child.stdout }).once('line', resolve);
+    void next().then(resolve);
     child.once('exit', (code) => reject(new Error(`bench server exited with ${code}`)));
   });
-  return { url: (JSON.parse(line) as { url: string }).url, stop: () => child.stdin.end() };
+  return {
+    url: (JSON.parse(line) as { url: string }).url,
+    async cpuMs() {
+      const reply = next();
+      child.stdin.write('cpu\n');
+      const { cpu } = JSON.parse(await reply) as { cpu: { user: number; system: number } };
+      return (cpu.user + cpu.system) / 1000;
+    },
+    profile: (what) => child.stdin.write(what === 'start' ? 'profile start\n' : 'profile stop floor-load\n'),
+    stop: () => child.stdin.end(),
+  };
 }
 
 async function api<T>(url: string, method: string, path: string, token: string | null, body?: unknown): Promise<T> {
@@ -187,7 +208,10 @@ export async function benchFloorLoad(): Promise<void> {
     sockets.push(...buildingClients, ...stackClients);
     const level = levels[20];
     const samples: number[] = [];
+    const cpu: number[] = [];
+    server.profile('start');
     for (let i = 0; i < SAMPLES; i++) {
+      const cpuBefore = await server.cpuMs();
       const ms = await timeChange(
         server.url,
         token,
@@ -198,8 +222,11 @@ export async function benchFloorLoad(): Promise<void> {
         { building: buildingClients, stacks: stackClients },
       );
       samples.push(ms);
+      cpu.push((await server.cpuMs()) - cpuBefore);
     }
+    server.profile('stop');
     samples.sort((a, b) => a - b);
+    cpu.sort((a, b) => a - b);
     const median = samples[Math.floor(samples.length / 2)];
 
     // Baseline: analyseBuilding of the same 400 stacks with their floor loads, in this process.
@@ -227,7 +254,8 @@ export async function benchFloorLoad(): Promise<void> {
     const analysed = runs[2];
     console.log(
       `floor-load change on one level → ${stacks.length} stacks re-analysed → last of ${BUILDING_CLIENTS} building and ${STACK_CLIENTS} stack clients updated: ` +
-        `median ${median.toFixed(0)} ms (min ${samples[0].toFixed(0)}, max ${samples.at(-1)!.toFixed(0)}) ` +
+        `median ${median.toFixed(0)} ms (min ${samples[0].toFixed(0)}, max ${samples.at(-1)!.toFixed(0)}; ` +
+        `server CPU median ${cpu[Math.floor(cpu.length / 2)].toFixed(0)} ms) ` +
         `(analyseBuilding of the same stacks ${analysed.toFixed(0)} ms; ratio ×${(median / analysed).toFixed(1)})  target < 300 ms`,
     );
   } finally {

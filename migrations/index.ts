@@ -25,6 +25,7 @@ import * as addInvitationsExpiresAt from './202612031202_add_invitations_expires
 import * as addBuildingModels from './202612031300_add_building_models.ts';
 import * as addStackGridPosition from './202612031301_add_stack_grid_position.ts';
 import * as addStackPositions from './202612031410_add_stack_positions.ts';
+import * as addStackPlaceIndex from './202612031420_add_stack_place_index.ts';
 import * as addRevisionSteps from './202612031430_add_revision_steps.ts';
 import * as addRevisionStepTriggers from './202612031431_add_revision_step_triggers.ts';
 import * as addRevisionComments from './202612031432_add_revision_comments.ts';
@@ -55,6 +56,7 @@ const migrations: Record<string, Knex.Migration> = {
   '202612031300_add_building_models': addBuildingModels,
   '202612031301_add_stack_grid_position': addStackGridPosition,
   '202612031410_add_stack_positions': addStackPositions,
+  '202612031420_add_stack_place_index': addStackPlaceIndex,
   '202612031430_add_revision_steps': addRevisionSteps,
   '202612031431_add_revision_step_triggers': addRevisionStepTriggers,
   '202612031432_add_revision_comments': addRevisionComments,

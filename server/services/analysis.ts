@@ -53,18 +53,7 @@ export function floorLoadsOf(inputs: AnalysisInputs, place?: StackPlace) {
 
 /** The results as stored: marked with the rules that produced them, so results of older rules can be found. */
 export function analyse(doc: StackDocument, inputs: AnalysisInputs, place?: StackPlace): StackResult {
-  const options = {
-    levels: inputs.levels,
-    sections: inputs.sections,
-    shapeChecked: true,
-    floorLoads: floorLoadsOf(inputs, place),
-  };
-  return withPositions(
-    { ...analyseStack(doc, inputs.options, options), engineVersion: ENGINE_VERSION },
-    doc,
-    inputs,
-    place,
-  );
+  return withPositions(analyseWithLoads(doc, inputs, floorLoadsOf(inputs, place)), doc, inputs, place);
 }
 
 /**
@@ -110,6 +99,16 @@ export function withPositions(
       ),
     ),
   ]);
+}
+
+/** `analyse` with the floors' loads already derived (`floorLoadsOf`). */
+export function analyseWithLoads(
+  doc: StackDocument,
+  inputs: AnalysisInputs,
+  floorLoads: ReturnType<typeof floorLoadsOf>,
+): StackResult {
+  const options = { levels: inputs.levels, sections: inputs.sections, shapeChecked: true, floorLoads };
+  return { ...analyseStack(doc, inputs.options, options), engineVersion: ENGINE_VERSION };
 }
 
 /**

@@ -22,3 +22,21 @@ export async function recordAudit(db: Knex, entry: AuditEntry): Promise<void> {
     created_at: now(),
   });
 }
+
+/** Rows a multi-row insert carries at most: well inside SQLite's limit on bound values. */
+export const INSERT_CHUNK = 100;
+
+/** Many audit rows of one write, in as few statements as the database allows. */
+export async function recordAudits(db: Knex, entries: readonly AuditEntry[]): Promise<void> {
+  const at = now();
+  const rows = entries.map((entry) => ({
+    user_id: entry.userId,
+    building_id: entry.buildingId ?? null,
+    stack_id: entry.stackId ?? null,
+    action: entry.action,
+    detail: JSON.stringify(entry.detail ?? {}),
+    version: entry.version ?? null,
+    created_at: at,
+  }));
+  for (let i = 0; i < rows.length; i += INSERT_CHUNK) await db('audit_log').insert(rows.slice(i, i + INSERT_CHUNK));
+}

@@ -21,6 +21,7 @@ import { recordAudit } from './audit.ts';
 import { readModel, writeModel } from './buildingModelStore.ts';
 import { broadcastChange, commitDoc, type CommittedChange } from './stackOps.ts';
 import { loadStackRow, type StackRow } from './stackRows.ts';
+import { storeReanalyses } from './storeReanalyses.ts';
 
 export async function getModel(db: Knex, buildingId: number): Promise<BuildingModelReply> {
   const { model, version } = await readModel(db, buildingId);
@@ -31,8 +32,9 @@ export async function getModel(db: Knex, buildingId: number): Promise<BuildingMo
 const storedDoc = (row: Pick<StackRow, 'doc'>): StackDocument => JSON.parse(row.doc) as StackDocument;
 
 /** What re-analysing and placing need of a stack row: never its stored results, which are large. */
-const ROW_COLUMNS = ['id', 'building_id', 'name', 'doc', 'version', 'grid_x', 'grid_y', 'web_along'] as const;
-type ModelRow = Pick<StackRow, (typeof ROW_COLUMNS)[number]>;
+const ROW_COLUMNS = ['id', 'building_id', 'name', 'doc', 'version'] as const;
+const GRID_COLUMNS = ['grid_x', 'grid_y', 'web_along'] as const;
+type ModelRow = Pick<StackRow, (typeof ROW_COLUMNS)[number] | (typeof GRID_COLUMNS)[number]>;
 const PLACE_COLUMNS = ['id', 'name', 'grid_x', 'grid_y', 'web_along'] as const;
 type PlaceRow = Pick<StackRow, (typeof PLACE_COLUMNS)[number]>;
 
@@ -57,13 +59,7 @@ async function reanalyse(
   action: string,
 ): Promise<CommittedChange[]> {
   if (rows.length === 0) return [];
-  const inputs = await analysisInputs(trx, buildingId);
-  const changes: CommittedChange[] = [];
-  for (const row of rows)
-    changes.push(
-      await commitDoc(trx, row, { doc: storedDoc(row), ops: [], touched: new Set(), userId, action }, inputs),
-    );
-  return changes;
+  return storeReanalyses(trx, rows, await analysisInputs(trx, buildingId), { userId, action });
 }
 
 function broadcast(ctx: ServerContext, buildingId: number, change: ModelChange, user: User): void {
@@ -96,13 +92,29 @@ async function storeAndReanalyse(
 ): Promise<ModelChange> {
   const stored = await writeModel(trx, buildingId, next, version);
   await recordAudit(trx, { userId: user.id, buildingId, action, version: stored, detail });
-  const rows = (
-    await trx<StackRow>('stacks')
-      .where({ building_id: buildingId })
-      .orderBy('id')
-      .select<ModelRow[]>(...ROW_COLUMNS)
-  ).filter(affected);
-  return { version: stored, model: next, changes: await reanalyse(trx, buildingId, rows, user.id, action) };
+  return {
+    version: stored,
+    model: next,
+    changes: await reanalyse(trx, buildingId, await modelRows(trx, buildingId, affected), user.id, action),
+  };
+}
+
+/**
+ * The building's stacks that `affected` picks, with their place on the grid read from its own index
+ * (migrations/202612031420_add_stack_place_index.ts): on SQLite the row's place lies after its large results.
+ */
+async function modelRows(trx: Knex, buildingId: number, affected: (row: ModelRow) => boolean): Promise<ModelRow[]> {
+  const stacks = trx<StackRow>('stacks').where({ building_id: buildingId });
+  const rows = await stacks
+    .clone()
+    .orderBy('id')
+    .select<Omit<ModelRow, (typeof GRID_COLUMNS)[number]>[]>(...ROW_COLUMNS);
+  const places = new Map(
+    (await stacks.clone().select<Pick<StackRow, 'id' | (typeof GRID_COLUMNS)[number]>[]>('id', ...GRID_COLUMNS)).map(
+      ({ id, ...place }) => [id, place],
+    ),
+  );
+  return rows.map((r) => ({ ...r, grid_x: null, grid_y: null, web_along: null, ...places.get(r.id) })).filter(affected);
 }
 
 const gridRef = (grid: Grid, gridX: string, gridY: string): string | null => {

@@ -132,13 +132,12 @@ export function stackFloorLoads(
   const { gridX, gridY } = placement;
   if (gridX === null || gridY === null) return out;
   const overrides = model.overrides[String(stackId)] ?? [];
+  // The grid's share is the same on every floor; only a level with an area set by hand needs its own.
+  const fromGrid = tributaryArea(model.grid, gridX, gridY);
+  if (!fromGrid) return out;
   for (const floor of model.floors) {
-    const trib = tributaryArea(
-      model.grid,
-      gridX,
-      gridY,
-      overrides.find((o) => o.levelId === floor.levelId),
-    );
+    const override = overrides.find((o) => o.levelId === floor.levelId);
+    const trib = override ? tributaryArea(model.grid, gridX, gridY, override) : fromGrid;
     if (!trib) return out;
     const load = levelLoad(model, { gridX, gridY, webAlong: placement.webAlong }, trib, floor);
     if (load) out.set(floor.levelId, load);
