@@ -12,14 +12,13 @@ import { freezeBodySchema } from '../../shared/schema/revisions.ts';
 import type { ServerContext } from '../context.ts';
 import { requireRole } from '../middleware/access.ts';
 import { currentAccess, currentUser, requireAuth } from '../middleware/auth.ts';
-import { byUser, limiter } from '../middleware/rateLimits.ts';
 import { idParam, parseBody } from '../middleware/validate.ts';
 import { reanalyseOutdated } from '../services/outdatedResults.ts';
 import { approveRevision } from '../services/revisionIssue.ts';
 import { buildingOfRevisionId, freezeRevision, getRevision } from '../services/revisions.ts';
 import { addComment, resolveComment } from '../services/reviewComments.ts';
 import { checkRevision, getReview } from '../services/reviews.ts';
-import { arrivalOf, drawAfterIssue, revisionsLink, stampArrival } from './revisions.ts';
+import { arrivalOf, drawAfterIssue, mailPerUserLimit, revisionsLink, stampArrival } from './revisions.ts';
 
 export function registerReviewRoutes(router: Router, ctx: ServerContext): void {
   const auth = requireAuth(ctx);
@@ -28,13 +27,7 @@ export function registerReviewRoutes(router: Router, ctx: ServerContext): void {
   const engineer = requireRole(ctx, 'engineer', ofRevision);
   const lead = requireRole(ctx, 'lead', ofRevision);
   // Approving issues the revision: an e-mail to every member, counted with the freeze's.
-  const mailLimit = limiter(
-    ctx,
-    'mail-user',
-    ctx.config.limits.mailPerUser,
-    byUser,
-    'Too many e-mails sent from this account',
-  );
+  const mailLimit = mailPerUserLimit(ctx);
   const review = (req: Request) => getReview(ctx.db, idParam(req), currentUser(req), currentAccess(req).role);
 
   // Prepared for checking: the snapshot is frozen as the lead's freeze does, but nothing is issued or mailed.

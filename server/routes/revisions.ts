@@ -52,19 +52,18 @@ export function drawAfterIssue(ctx: ServerContext, req: Request, revisionId: num
     .finally(() => ctx.outbox.kick());
 }
 
+/** The per-account limit on routes that send e-mail (a freeze or an approval mails every member). */
+export function mailPerUserLimit(ctx: ServerContext) {
+  return limiter(ctx, 'mail-user', ctx.config.limits.mailPerUser, byUser, 'Too many e-mails sent from this account');
+}
+
 export function registerRevisionRoutes(router: Router, ctx: ServerContext): void {
   const auth = requireAuth(ctx);
   const ofRevision = (db: ServerContext['db'], req: Request) => buildingOfRevisionId(db, idParam(req));
   const revisionViewer = requireRole(ctx, 'viewer', ofRevision);
   const revisionLead = requireRole(ctx, 'lead', ofRevision);
   // Both send an e-mail to every member.
-  const mailLimit = limiter(
-    ctx,
-    'mail-user',
-    ctx.config.limits.mailPerUser,
-    byUser,
-    'Too many e-mails sent from this account',
-  );
+  const mailLimit = mailPerUserLimit(ctx);
 
   router.post('/buildings/:id/revisions', stampArrival, auth, requireRole(ctx, 'lead'), mailLimit, async (req, res) => {
     const body = parseBody(freezeBodySchema, req);

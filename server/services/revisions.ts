@@ -143,22 +143,25 @@ async function nextCode(trx: Knex, buildingId: number, purpose: RevisionPurpose)
   return `${prefix}${String(highest + 1).padStart(2, '0')}`;
 }
 
+/** What a freeze gives back: the new revision, its snapshot and whether it was issued at once. */
+export interface FrozenRevision {
+  id: number;
+  snapshot: RevisionSnapshot;
+  hash: string;
+  issued: boolean;
+}
+
 /**
  * Freezes are serialised per building by locking the building's row (PostgreSQL; SQLite has one
  * writer). A freeze that finds a revision frozen after its request arrived is refused (409) rather
  * than issuing a second revision its sender never saw. `afterRevisionId` (sent by the app) makes this
  * exact: parallel or retried freezes give one revision. Without it, `arrivedAt` (when the request
  * reached this process) catches the requests that arrived before another freeze committed.
+ * Takes freezeIn's arguments: the database, the building, the freeze's input, its sender and the arrival time.
  */
-export async function freezeRevision(
-  db: Knex,
-  buildingId: number,
-  input: FreezeInput,
-  user: User,
-  arrivedAt: string,
-): Promise<{ id: number; snapshot: RevisionSnapshot; hash: string; issued: boolean }> {
+export async function freezeRevision(...args: Parameters<typeof freezeIn>): Promise<FrozenRevision> {
   return onUniqueViolation(
-    () => freezeIn(db, buildingId, input, user, arrivedAt),
+    () => freezeIn(...args),
     () =>
       conflict('Another freeze of this building took the same revision code at the same moment; reload the revisions'),
   );
@@ -170,7 +173,7 @@ async function freezeIn(
   input: FreezeInput,
   user: User,
   arrivedAt: string,
-): Promise<{ id: number; snapshot: RevisionSnapshot; hash: string; issued: boolean }> {
+): Promise<FrozenRevision> {
   if (input.issueUnchecked && input.purpose !== 'preliminary')
     throw conflict('Only a preliminary revision may be issued without a check');
   return db.transaction(async (trx) => {
