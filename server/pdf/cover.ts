@@ -248,18 +248,15 @@ export function drawCover(doc: Pdf, s: RevisionSnapshot, hash: string, signOff: 
     .font(FONT.regular)
     .fontSize(SIZE.body + 0.5)
     .fillColor(COLOUR.ink);
-  doc.text('1  Summary of stacks and levels', MARGIN.left + 8, doc.y + 4);
-  doc.text(
+  const entry = (text: string, gap: number) => doc.text(text, MARGIN.left + 8, doc.y + gap, { width: FULL_WIDTH - 8 });
+  entry('1  Summary of stacks and levels', 4);
+  entry(
     '2  Each stack: elevation, load take-down by level, member checks of every lift, then its splices and base, with their working',
-    MARGIN.left + 8,
-    doc.y + 2,
-    { width: FULL_WIDTH - 8 },
+    2,
   );
-  doc.text('3  Column schedule and tonnage', MARGIN.left + 8, doc.y + 2);
-  doc.text(
+  entry('3  Column schedule and tonnage', 2);
+  entry(
     'Units: m and kN for the stack; mm, N/mm², kN, kN·m, cm³ and cm⁴ in the member working. References to clauses and equations are in the right-hand margin.',
-    MARGIN.left + 8,
-    doc.y + 8,
-    { width: FULL_WIDTH - 8 },
+    8,
   );
 }

@@ -7,7 +7,7 @@ import { governingWords, kN, metres, ratio, stepValue, liftName } from './format
 import { BODY, COLOUR, FONT, MARGIN, SIZE, utilisationColour } from './layout.ts';
 import type { Pdf } from './pdf.ts';
 import { COMBINED_LEGEND, drawPieceTable } from './pieceTable.ts';
-import { reference } from './summary.ts';
+import { noteHere, reference } from './summary.ts';
 import { drawTable, ensureSpace, textIn, wrapLines, type Column } from './table.ts';
 import { hasCombined, liftUtilisations } from './utilisations.ts';
 
@@ -118,14 +118,7 @@ export function drawLiftCheck(doc: Pdf, lift: LiftResult, governing: boolean, wi
 
 export function drawMemberChecks(doc: Pdf, stack: SnapshotStack): void {
   const withCombined = hasCombined(stack.results);
-  if (withCombined) {
-    doc
-      .font(FONT.regular)
-      .fontSize(SIZE.small)
-      .fillColor(COLOUR.muted)
-      .text(COMBINED_LEGEND, MARGIN.left, doc.y, { width: BODY.width });
-    doc.y += 8;
-  }
+  if (withCombined) noteHere(doc, COMBINED_LEGEND);
   for (const lift of stack.results.lifts)
     drawLiftCheck(doc, lift, lift.liftId === stack.results.governingLiftId, withCombined);
 }

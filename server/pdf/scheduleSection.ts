@@ -3,9 +3,9 @@
 import { buildColumnSchedule, type ColumnSchedule } from '../../shared/schedule/columnSchedule.ts';
 import type { RevisionSnapshot } from '../../shared/schema/revisions.ts';
 import { metres, ratio } from './format.ts';
-import { BODY, COLOUR, FONT, MARGIN, SIZE, utilisationColour } from './layout.ts';
+import { BODY, MARGIN, SIZE, utilisationColour } from './layout.ts';
 import type { Pdf } from './pdf.ts';
-import { heading, reference } from './summary.ts';
+import { heading, noteHere, reference } from './summary.ts';
 import { drawTable, ensureSpace, type Column } from './table.ts';
 
 export function scheduleOf(s: RevisionSnapshot): ColumnSchedule {
@@ -14,14 +14,19 @@ export function scheduleOf(s: RevisionSnapshot): ColumnSchedule {
 
 const tonnes = (kg: number) => (kg / 1000).toFixed(2);
 
-function note(doc: Pdf, text: string): void {
-  doc
-    .font(FONT.regular)
-    .fontSize(SIZE.small)
-    .fillColor(COLOUR.muted)
-    .text(text, MARGIN.left, doc.y, { width: BODY.width });
-  doc.y += 8;
-}
+const TYPE_COLUMNS: Column[] = [
+  { header: 'Type', width: 40 },
+  { header: 'Stacks', width: BODY.width - 40, wrap: true },
+];
+const LEVEL_TONNAGE_COLUMNS: Column[] = [
+  { header: 'Level', width: 160 },
+  { header: 'Column steel', unit: 't', width: 70, align: 'right' },
+];
+const SERIES_TONNAGE_COLUMNS: Column[] = [
+  { header: 'Series', width: 100 },
+  { header: 'Grade', width: 60 },
+  { header: 'Column steel', unit: 't', width: 70, align: 'right' },
+];
 
 export function drawScheduleSection(doc: Pdf, s: RevisionSnapshot): void {
   const schedule = scheduleOf(s);
@@ -56,7 +61,7 @@ export function drawScheduleSection(doc: Pdf, s: RevisionSnapshot): void {
   ]);
   drawTable(doc, MARGIN.left, columns, rows);
   const noteY = doc.y;
-  note(
+  noteHere(
     doc,
     'One row per lift of every stack, named by the levels; Util.: the governing utilisation of the lift (section 2). Mass = mass per metre (A × 7850 kg/m³) × length. Stacks with the same lifts (ends, sections, grades) and base share a type, drawn and fabricated once.',
   );
@@ -65,44 +70,21 @@ export function drawScheduleSection(doc: Pdf, s: RevisionSnapshot): void {
   if (schedule.types.some((t) => t.stacks.length > 1)) {
     ensureSpace(doc, 60);
     heading(doc, 'Column types', SIZE.h2);
-    drawTable(
-      doc,
-      MARGIN.left,
-      [
-        { header: 'Type', width: 40 },
-        { header: 'Stacks', width: BODY.width - 40, wrap: true },
-      ],
-      schedule.types.map((t) => [t.type, t.stacks.join(', ')]),
-    );
+    const types = schedule.types.map((t) => [t.type, t.stacks.join(', ')]);
+    drawTable(doc, MARGIN.left, TYPE_COLUMNS, types);
     doc.y += 6;
   }
 
   ensureSpace(doc, 80);
   heading(doc, 'Tonnage', SIZE.h2);
-  drawTable(
-    doc,
-    MARGIN.left,
-    [
-      { header: 'Level', width: 160 },
-      { header: 'Column steel', unit: 't', width: 70, align: 'right' },
-    ],
-    [...schedule.tonnage.byLevel].reverse().map((l) => [l.level, tonnes(l.mass)]),
-  );
-  note(doc, 'By level: the column steel between a level and the next one up.');
+  const byLevel = [...schedule.tonnage.byLevel].reverse().map((l) => [l.level, tonnes(l.mass)]);
+  drawTable(doc, MARGIN.left, LEVEL_TONNAGE_COLUMNS, byLevel);
+  noteHere(doc, 'By level: the column steel between a level and the next one up.');
   ensureSpace(doc, 60);
-  drawTable(
-    doc,
-    MARGIN.left,
-    [
-      { header: 'Series', width: 100 },
-      { header: 'Grade', width: 60 },
-      { header: 'Column steel', unit: 't', width: 70, align: 'right' },
-    ],
-    [
-      ...schedule.tonnage.bySeriesGrade.map((g) => [g.series, g.grade, tonnes(g.mass)]),
-      [{ text: 'Total', bold: true }, '', { text: tonnes(schedule.tonnage.total), bold: true }],
-    ],
-  );
+  drawTable(doc, MARGIN.left, SERIES_TONNAGE_COLUMNS, [
+    ...schedule.tonnage.bySeriesGrade.map((g) => [g.series, g.grade, tonnes(g.mass)]),
+    [{ text: 'Total', bold: true }, '', { text: tonnes(schedule.tonnage.total), bold: true }],
+  ]);
   doc.y += 6;
-  for (const gap of schedule.gaps) note(doc, `Not scheduled: ${gap.stack}: ${gap.reason}`);
+  for (const gap of schedule.gaps) noteHere(doc, `Not scheduled: ${gap.stack}: ${gap.reason}`);
 }

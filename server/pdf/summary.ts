@@ -24,6 +24,12 @@ export function note(
   doc.text(text, x, y, { width });
 }
 
+/** A note where the page has reached, full body width, with a gap below it. */
+export function noteHere(doc: Pdf, text: string): void {
+  note(doc, text);
+  doc.y += 8;
+}
+
 export function reference(doc: Pdf, text: string, y: number): void {
   doc
     .font(FONT.regular)
