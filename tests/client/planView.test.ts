@@ -4,30 +4,12 @@ import { afterEach, describe, expect, it } from 'vitest';
 import { mount } from '@vue/test-utils';
 import { createPinia, setActivePinia } from 'pinia';
 import type { StackSummary } from '@shared/schema/api.ts';
-import type { Grid } from '@shared/schema/building.ts';
 import PlanView from '@/components/plan/PlanView.vue';
 import { freeCrossings, planStacks, tributaryRect } from '@/components/plan/planGeometry.ts';
+import { smallGrid } from '../engine/building-model-fixtures.ts';
 
 // Invented grid: A 0, B 6, C 13.5 m by 1 0, 2 7.5 m; 0.5 m of slab beyond A.
-const GRID: Grid = {
-  x: {
-    lines: [
-      { id: 'A', name: 'A', position: 0 },
-      { id: 'B', name: 'B', position: 6 },
-      { id: 'C', name: 'C', position: 13.5 },
-    ],
-    edgeBefore: 0.5,
-    edgeAfter: 0,
-  },
-  y: {
-    lines: [
-      { id: 'y1', name: '1', position: 0 },
-      { id: 'y2', name: '2', position: 7.5 },
-    ],
-    edgeBefore: 0,
-    edgeAfter: 0,
-  },
-};
+const GRID = smallGrid(0.5);
 
 const stack = (
   id: number,

@@ -64,3 +64,29 @@ export function officeModel(
     overrides: {},
   };
 }
+
+/**
+ * A smaller invented grid for the API and plan-view tests: x lines A 0, B 6, C 13.5 m; y lines 1 0, 2 7.5 m;
+ * `edgeBeforeX` m of slab beyond A, none beyond the other lines.
+ */
+export function smallGrid(edgeBeforeX = 0): Grid {
+  return {
+    x: {
+      lines: [
+        { id: 'A', name: 'A', position: 0 },
+        { id: 'B', name: 'B', position: 6 },
+        { id: 'C', name: 'C', position: 13.5 },
+      ],
+      edgeBefore: edgeBeforeX,
+      edgeAfter: 0,
+    },
+    y: {
+      lines: [
+        { id: 'y1', name: '1', position: 0 },
+        { id: 'y2', name: '2', position: 7.5 },
+      ],
+      edgeBefore: 0,
+      edgeAfter: 0,
+    },
+  };
+}

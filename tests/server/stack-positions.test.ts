@@ -15,27 +15,10 @@ import { analyse, analysisInputs } from '../../server/services/analysis.ts';
 import { loadStackRow, placeOf } from '../../server/services/stackRows.ts';
 import { errorCode, startWithLeadAndBuilding, type TestServer } from './helpers.ts';
 import { connect, next, request } from './liveHelpers.ts';
+import { smallGrid } from '../engine/building-model-fixtures.ts';
 
 // Invented grid: x lines A 0, B 6, C 13.5 m; y lines 1 0, 2 7.5 m; no slab beyond the lines.
-const GRID: Grid = {
-  x: {
-    lines: [
-      { id: 'A', name: 'A', position: 0 },
-      { id: 'B', name: 'B', position: 6 },
-      { id: 'C', name: 'C', position: 13.5 },
-    ],
-    edgeBefore: 0,
-    edgeAfter: 0,
-  },
-  y: {
-    lines: [
-      { id: 'y1', name: '1', position: 0 },
-      { id: 'y2', name: '2', position: 7.5 },
-    ],
-    edgeBefore: 0,
-    edgeAfter: 0,
-  },
-};
+const GRID = smallGrid();
 const OFFICE = {
   id: 'office',
   name: 'Office',
