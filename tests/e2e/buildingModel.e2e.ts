@@ -22,9 +22,21 @@ describeInBrowser('grid, floor loads and the plan view', () => {
     await page.locator('.q-expansion-item .q-item').filter({ hasText: label }).first().click();
   }
 
+  /** Opens the select and picks the option. On a page just navigated back to, the building and its model are
+   *  read again and the select drawn anew, which can close a menu opened a moment before: open it again. */
   async function pickOption(page: Page, field: string, option: string): Promise<void> {
-    await page.locator(`[data-test="${field}"]`).click();
-    await page.locator('.q-menu .q-item').filter({ hasText: option }).first().click();
+    const item = page.locator('.q-menu .q-item').filter({ hasText: option }).first();
+    for (let attempt = 1; ; attempt += 1) {
+      await page.locator(`[data-test="${field}"]`).click();
+      try {
+        await item.waitFor({ timeout: 5000 });
+        await item.click({ timeout: 5000 });
+        return;
+      } catch (e) {
+        if (attempt === 4) throw e;
+        await page.keyboard.press('Escape');
+      }
+    }
   }
 
   it("derives a placed stack's loads from the floor and recolours it live in a second browser", async () => {
