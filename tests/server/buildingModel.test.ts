@@ -4,7 +4,7 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type { Level, StackDetail, StackSummary } from '../../shared/schema/api.ts';
 import type { BuildingModelChanged, BuildingModelReply, Grid, Placement } from '../../shared/schema/building.ts';
 import type { RevisionSnapshot } from '../../shared/schema/revisions.ts';
-import { errorCode, startWithLeadAndBuilding, type TestServer } from './helpers.ts';
+import { createLevels, errorCode, startWithLeadAndBuilding, type TestServer } from './helpers.ts';
 import { connect, next, request, type LiveClient } from './liveHelpers.ts';
 import { smallGrid } from '../engine/building-model-fixtures.ts';
 
@@ -31,17 +31,12 @@ describe('the building model over the API', () => {
 
   beforeAll(async () => {
     ({ s, token, buildingId } = await startWithLeadAndBuilding('Model'));
-    levels = [];
-    for (const [name, elevation] of [
+    levels = await createLevels(s, token, buildingId, [
       ['Ground', 0],
       ['First', 4],
       ['Second', 8],
       ['Roof', 12],
-    ] as const) {
-      levels.push(
-        (await s.api('POST', `/buildings/${buildingId}/levels`, { token, body: { name, elevation } })).body as Level,
-      );
-    }
+    ]);
     const template = { elevations: [0, 4, 8, 12], sections: ['UKC 254x254x73'], Gk: 100, Qk: 50 };
     stack = (await s.api('POST', `/buildings/${buildingId}/stacks`, { token, body: { name: 'S1', template } }))
       .body as StackSummary;

@@ -5,7 +5,7 @@ import { join } from 'node:path';
 import { randomBytes } from 'node:crypto';
 import knex from 'knex';
 import type { Express } from 'express';
-import type { AuthResponse, Building, Role } from '../../shared/schema/api.ts';
+import type { AuthResponse, Building, Level, Role } from '../../shared/schema/api.ts';
 import { startServer, type RunningServer, type StartOptions } from '../../server/server.ts';
 import type { Limits } from '../../server/config.ts';
 import { verifyEmail } from '../../server/services/users.ts';
@@ -199,6 +199,22 @@ export async function startWithLeadAndBuilding(
   const s = await startTestServer();
   const token = (await registerUser(s, 'lead')).token;
   return { s, token, buildingId: (await createBuilding(s, token, buildingName)).id };
+}
+
+/** Adds levels to a building over the API, in the order given; returns them as the server answered. */
+export async function createLevels(
+  s: TestServer,
+  token: string,
+  buildingId: number,
+  list: readonly (readonly [name: string, elevation: number])[],
+): Promise<Level[]> {
+  const levels: Level[] = [];
+  for (const [name, elevation] of list) {
+    const r = await s.api('POST', `/buildings/${buildingId}/levels`, { token, body: { name, elevation } });
+    if (r.status !== 201) throw new Error(`create level failed: ${r.status} ${JSON.stringify(r.body)}`);
+    levels.push(r.body as Level);
+  }
+  return levels;
 }
 
 export async function addMember(

@@ -13,7 +13,7 @@ import {
 } from '../../shared/schema/stackPositions.ts';
 import { analyse, analysisInputs } from '../../server/services/analysis.ts';
 import { loadStackRow, placeOf } from '../../server/services/stackRows.ts';
-import { errorCode, startWithLeadAndBuilding, type TestServer } from './helpers.ts';
+import { createLevels, errorCode, startWithLeadAndBuilding, type TestServer } from './helpers.ts';
 import { connect, next, request } from './liveHelpers.ts';
 import { smallGrid } from '../engine/building-model-fixtures.ts';
 
@@ -44,16 +44,12 @@ describe('typical columns over the API', () => {
 
   beforeAll(async () => {
     ({ s, token, buildingId } = await startWithLeadAndBuilding('Typical'));
-    levels = [];
-    for (const [name, elevation] of [
+    levels = await createLevels(s, token, buildingId, [
       ['Ground', 0],
       ['First', 4],
       ['Second', 8],
       ['Roof', 12],
-    ] as const)
-      levels.push(
-        (await s.api('POST', `/buildings/${buildingId}/levels`, { token, body: { name, elevation } })).body as Level,
-      );
+    ]);
     const template = { elevations: [0, 4, 8, 12], sections: ['UKC 203x203x46'], Gk: 100, Qk: 50 };
     const create = async (name: string) =>
       (await s.api('POST', `/buildings/${buildingId}/stacks`, { token, body: { name, template } }))
