@@ -152,15 +152,20 @@ async function timeChange(
   for (const c of clients.building) {
     arrivals.push(
       new Promise((resolve) => {
+        // Every stack's summary, whether it comes alone or with the others in one message.
         let left = stackIds.length;
-        const on = () => {
-          heard += 1;
-          left -= 1;
+        const on = (count: number) => {
+          heard += count;
+          left -= count;
           if (left > 0) return;
-          c.off('building:stack-changed', on);
+          c.off('building:stack-changed', one);
+          c.off('building:stacks-changed', many);
           resolve(performance.now() - t0);
         };
-        c.on('building:stack-changed', on);
+        const one = () => on(1);
+        const many = (p: { stacks: unknown[] }) => on(p.stacks.length);
+        c.on('building:stack-changed', one);
+        c.on('building:stacks-changed', many);
       }),
     );
   }

@@ -15,6 +15,7 @@ import { closeRedis, connectBounded, createRedisClient, REDIS_START_WAIT_MS } fr
 import { nullBroadcaster } from './services/broadcast.ts';
 import { attachRealtime, type Realtime } from './realtime/index.ts';
 import { reanalyseOutdatedOnStart } from './services/outdatedResults.ts';
+import { sweepResults } from './services/stackRows.ts';
 
 export interface StartOptions {
   port?: number;
@@ -39,6 +40,9 @@ export interface RunningServer {
   close(): Promise<void>;
 }
 
+/** How often stored results no stack names are looked for (common practice, no source). */
+const SWEEP_EVERY_MS = 60 * 60 * 1000;
+
 export async function startServer(opts: StartOptions = {}): Promise<RunningServer> {
   const overrides: ConfigOverrides = { ...opts.config };
   if (opts.port !== undefined) overrides.port = opts.port;
@@ -56,6 +60,11 @@ export async function startServer(opts: StartOptions = {}): Promise<RunningServe
   }
   await reanalyseOutdatedOnStart(db);
   const log = pino({ level: config.logLevel, redact: ['req.headers.authorization'] });
+  // Stored results that no stack names any more go at start and then hourly (docs/contracts.md §Stored results).
+  const sweep = () =>
+    sweepResults(db).catch((err: unknown) => log.error({ err }, 'removing unused stored results failed'));
+  await sweep();
+  const sweeper = setInterval(() => void sweep(), SWEEP_EVERY_MS).unref();
   const mailer = await createMailer(config, db, log.child({ name: 'mail' }));
   const redis = config.redisUrl ? await connectRedis(config.redisUrl, log.child({ name: 'redis' })) : null;
   const offThread = createOffThread();
@@ -85,6 +94,7 @@ export async function startServer(opts: StartOptions = {}): Promise<RunningServe
   let closing: Promise<void> | null = null;
   const close = () => {
     closing ??= (async () => {
+      clearInterval(sweeper);
       httpServer.closeAllConnections();
       // Closes the live channel's sockets and the HTTP listener.
       await realtime.close();

@@ -21,6 +21,10 @@ export function socketBroadcaster(io: LiveServer, opts: { sharedRooms?: boolean 
       if (isShuttingDown(io)) return;
       io.to(buildingRoom(payload.buildingId)).emit('building:stack-changed', payload);
     },
+    buildingStacksChanged(payload) {
+      if (isShuttingDown(io)) return;
+      io.to(buildingRoom(payload.buildingId)).emit('building:stacks-changed', payload);
+    },
     async accessRevoked({ userId, buildingId, stackIds }) {
       if (isShuttingDown(io)) return;
       const mine = io.in(userRoom(userId));

@@ -2,7 +2,7 @@
 // result for lists (so listing never recomputes).
 import type { Knex } from 'knex';
 import { applyFloorLoads } from '../../shared/engine/building/applyFloorLoads.ts';
-import { stackFloorLoads } from '../../shared/engine/building/stackFloorLoads.ts';
+import { floorLoadsKey, stackFloorLoads } from '../../shared/engine/building/stackFloorLoads.ts';
 import { positionResult, withPositionResults } from '../../shared/engine/building/typicalColumn.ts';
 import { analyseStack } from '../../shared/engine/index.ts';
 import { ENGINE_VERSION } from '../../shared/engine/version.ts';
@@ -13,6 +13,7 @@ import { readModel } from './buildingModelStore.ts';
 import { getBuildingOptions } from './buildings.ts';
 import { companySectionMap } from './companySections.ts';
 import { gridRef, positionsByStack, type PositionRow } from './stackPositionRows.ts';
+import { packResults, resultsRef, storeResults, type PackedResults } from './stackRows.ts';
 
 export interface AnalysisInputs {
   options: AnalysisOptions;
@@ -49,6 +50,11 @@ export async function analysisInputs(db: Knex, buildingId: number): Promise<Anal
 /** What each level's floor brings into a stack on the grid; undefined for a stack off the grid. */
 export function floorLoadsOf(inputs: AnalysisInputs, place?: StackPlace) {
   return place && place.gridX !== null ? stackFloorLoads(inputs.model, place, place.stackId) : undefined;
+}
+
+/** Places with the same key get the same floor loads from `floorLoadsOf` (`floorLoadsKey`). */
+export function floorLoadsKeyOf(inputs: AnalysisInputs, place: StackPlace): string {
+  return floorLoadsKey(inputs.model, place, place.stackId);
 }
 
 /** The results as stored: marked with the rules that produced them, so results of older rules can be found. */
@@ -159,11 +165,11 @@ export function summariseResult(doc: StackDocument, results: StackResult): Resul
   };
 }
 
-/** Columns of the stacks table that hold the results of a version. */
-export function resultColumns(doc: StackDocument, results: StackResult) {
+/** Columns of the stacks table that name and summarise the results of a version (docs/contracts.md §Stored results). */
+export function resultColumns(doc: StackDocument, results: StackResult, packed: PackedResults) {
   const s = summariseResult(doc, results);
   return {
-    results: JSON.stringify(results),
+    ...resultsRef(packed),
     utilisation: s.utilisation,
     status: s.status,
     governing_lift_id: s.governingLiftId,
@@ -171,4 +177,11 @@ export function resultColumns(doc: StackDocument, results: StackResult) {
     governing_section: s.governingSection,
     lift_count: s.liftCount,
   };
+}
+
+/** Stores one version's results and returns the columns of its stack row that name and summarise them. */
+export async function storedResultColumns(trx: Knex, doc: StackDocument, results: StackResult) {
+  const packed = packResults(results);
+  await storeResults(trx, [packed]);
+  return resultColumns(doc, results, packed);
 }

@@ -1,11 +1,13 @@
 // How committed stack changes reach live rooms. The realtime module replaces ctx.broadcaster with a
 // Socket.IO implementation; REST writes call it after commit, so they reach live rooms too.
 import type { BuildingModelChanged } from '../../shared/schema/building.ts';
-import type { BuildingStackChanged, StackChanged } from '../../shared/schema/socket.ts';
+import type { BuildingStackChanged, BuildingStacksChanged, StackChanged } from '../../shared/schema/socket.ts';
 
 export interface Broadcaster {
   stackChanged(p: StackChanged & { buildingId: number }): void;
   buildingStackChanged(p: BuildingStackChanged): void;
+  /** Several stacks of one building changed by one write: one message for all of them. */
+  buildingStacksChanged(p: BuildingStacksChanged): void;
   /**
    * The user may no longer read the building: their open sockets, on every process, leave the rooms of
    * the building and of its stacks at once (docs/access.md).
@@ -19,6 +21,7 @@ export interface Broadcaster {
 export const nullBroadcaster: Broadcaster = {
   stackChanged: () => undefined,
   buildingStackChanged: () => undefined,
+  buildingStacksChanged: () => undefined,
   accessRevoked: async () => undefined,
   sessionsEnded: async () => undefined,
   buildingModelChanged: () => undefined,

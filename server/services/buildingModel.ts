@@ -19,7 +19,7 @@ import { conflict, notFound, unprocessable } from '../errors.ts';
 import { analysisInputs } from './analysis.ts';
 import { recordAudit } from './audit.ts';
 import { readModel, writeModel } from './buildingModelStore.ts';
-import { broadcastChange, commitDoc, type CommittedChange } from './stackOps.ts';
+import { broadcastChanges, commitDoc, type CommittedChange } from './stackOps.ts';
 import { loadStackRow, type StackRow } from './stackRows.ts';
 import { storeReanalyses } from './storeReanalyses.ts';
 
@@ -76,7 +76,7 @@ function broadcast(ctx: ServerContext, buildingId: number, change: ModelChange, 
     // The change is committed; a failed notification must not turn it into an error reply.
     console.error(`broadcast of building ${buildingId} model v${change.version} failed`, e);
   }
-  for (const c of change.changes) broadcastChange(ctx, c, by);
+  broadcastChanges(ctx, change.changes, by);
 }
 
 /** Stores `next` over the model read at `version`, with an audit row, and re-analyses the stacks `affected` picks. */

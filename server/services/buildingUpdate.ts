@@ -7,7 +7,7 @@ import { now } from '../db.ts';
 import { analysisInputs } from './analysis.ts';
 import { recordAudit } from './audit.ts';
 import { getBuilding, parseOptions, type BuildingInput } from './buildings.ts';
-import { broadcastChange, commitDoc, type CommittedChange } from './stackOps.ts';
+import { broadcastChanges, commitDoc, type CommittedChange } from './stackOps.ts';
 import { precomputedFor, precomputeReanalysis } from './reanalysis.ts';
 import { parseDoc, type StackRow } from './stackRows.ts';
 
@@ -45,6 +45,6 @@ export async function updateBuilding(
     }
     return changes;
   });
-  for (const c of changes) broadcastChange(ctx, c, { userId: user.id, name: user.name });
+  broadcastChanges(ctx, changes, { userId: user.id, name: user.name });
   return getBuilding(ctx.db, id, 'lead');
 }

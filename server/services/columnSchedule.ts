@@ -6,7 +6,7 @@ import { DxfWriter, point3d } from '@tarikjabiri/dxf';
 import { buildColumnSchedule, type ColumnSchedule, type ScheduleRow } from '../../shared/schedule/columnSchedule.ts';
 import { companySectionMap } from './companySections.ts';
 import { listLevels } from './levels.ts';
-import { parseDoc, parseResults, type StackRow } from './stackRows.ts';
+import { parseDoc, parseResults, stackRowsWithResults } from './stackRows.ts';
 import { spreadsheetSafe, toCsv, type Cell } from './exportsFormats.ts';
 
 export async function buildingSchedule(
@@ -14,13 +14,13 @@ export async function buildingSchedule(
   buildingId: number,
 ): Promise<{ name: string; schedule: ColumnSchedule }> {
   const building = await db('buildings').where({ id: buildingId }).first<{ name: string }>('name');
-  const rows = await db<StackRow>('stacks').where({ building_id: buildingId });
+  const rows = await stackRowsWithResults(db).where({ building_id: buildingId });
   const stacks = rows.map((r) => ({
     id: r.id,
     name: r.name,
     version: r.version,
     doc: parseDoc(r.doc),
-    results: parseResults(r.results),
+    results: parseResults(r),
   }));
   const levels = await listLevels(db, buildingId);
   return {

@@ -3,7 +3,7 @@
 import type { Knex } from 'knex';
 import { connectionRows } from '../../shared/connectionRows.ts';
 import type { LiftResult, PieceCheck, StackResult } from '../../shared/schema/results.ts';
-import { loadStackRow, parseResults, type StackRow } from './stackRows.ts';
+import { loadStackRow, parseResults, stackRowsWithResults, type StackRow } from './stackRows.ts';
 
 /** README §Safety: every copy of the results carries this. */
 export { SAFETY_NOTE as RESULTS_NOTE } from '../../shared/safety.ts';
@@ -47,7 +47,7 @@ const governingPiece = (lift: LiftResult): PieceCheck | undefined =>
   );
 
 export function stackResultRows(row: StackRow): ResultRow[] {
-  const results = parseResults(row.results);
+  const results = parseResults(row);
   const base = { stack: row.name, version: row.version };
   if (results.errors.length > 0) {
     return [{ ...base, status: 'errors', note: results.errors.map((e) => e.message).join('; ') }];
@@ -123,6 +123,6 @@ export async function stackResults(db: Knex, stackId: number): Promise<{ name: s
 
 export async function buildingResults(db: Knex, buildingId: number): Promise<{ name: string; rows: ResultRow[] }> {
   const building = await db('buildings').where({ id: buildingId }).first<{ name: string }>('name');
-  const stacks = await db<StackRow>('stacks').where({ building_id: buildingId });
+  const stacks = await stackRowsWithResults(db).where({ building_id: buildingId });
   return { name: building.name, rows: stacks.sort(byName).flatMap(stackResultRows) };
 }

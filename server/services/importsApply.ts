@@ -11,7 +11,7 @@ import { conflict, unprocessable } from '../errors.ts';
 import { analysisInputs } from './analysis.ts';
 import { fileHash, problemCount } from './importsCsv.ts';
 import { buildingStacks, type StackRef } from './importsLoadTargets.ts';
-import { broadcastChange, commitDoc, type CommittedChange } from './stackOps.ts';
+import { broadcastChanges, commitDoc, type CommittedChange } from './stackOps.ts';
 
 /** A preview before any row is read: what a file that cannot be read at all answers, with its problems. */
 export const nothingRead = (file: Buffer) => ({
@@ -63,6 +63,6 @@ export async function commitEachStack(
 
 /** After commit: every changed stack goes to its live rooms; the answer lists their new versions. */
 export function announceApplied(ctx: ServerContext, user: User, done: CommittedChange[], applied: number): ApplyResult {
-  for (const c of done) broadcastChange(ctx, c, { userId: user.id, name: user.name });
+  broadcastChanges(ctx, done, { userId: user.id, name: user.name });
   return { applied, stacks: done.map((c) => ({ stackId: c.stackId, version: c.version })) };
 }

@@ -12,7 +12,7 @@ import { conflict, notFound, unprocessable } from '../errors.ts';
 import { formatElevation, levelWord } from '../../shared/wording.ts';
 import { planLevelMove } from './levelMove.ts';
 import { recordAudit } from './audit.ts';
-import { broadcastChange, commitDoc, type CommittedChange } from './stackOps.ts';
+import { broadcastChanges, commitDoc, type CommittedChange } from './stackOps.ts';
 import { parseDoc, type StackRow } from './stackRows.ts';
 import { assertNameFree, withNameGuard } from './uniqueNames.ts';
 
@@ -129,7 +129,7 @@ export async function updateLevel(
     }),
   );
   // The stacks' open pages place their tied nodes on the levels they hold: they hear the levels with the change.
-  for (const c of changes) broadcastChange(ctx, c, { userId: user.id, name: user.name }, { levels });
+  broadcastChanges(ctx, changes, { userId: user.id, name: user.name }, { levels });
   return level;
 }
 

@@ -8,14 +8,14 @@ import { ENGINE_VERSION } from '../../shared/engine/version.ts';
 import type { ServerContext } from '../context.ts';
 import { HttpError } from '../errors.ts';
 import { analysisInputs } from './analysis.ts';
-import { broadcastChange, commitDoc, type CommittedChange } from './stackOps.ts';
-import { parseDoc, parseResults, type StackRow } from './stackRows.ts';
+import { broadcastChanges, commitDoc, type CommittedChange } from './stackOps.ts';
+import { parseDoc, parseResults, stackRowsWithResults, type StackRow } from './stackRows.ts';
 
 /** Returns how many stacks were analysed again. */
 export async function reanalyseOutdated(ctx: ServerContext, buildingId: number, user: User): Promise<number> {
   const changes = await ctx.db.transaction(async (trx) => {
-    const rows = await trx<StackRow>('stacks').where({ building_id: buildingId });
-    const outdated = rows.filter((r) => parseResults(r.results).engineVersion !== ENGINE_VERSION);
+    const rows = await stackRowsWithResults(trx).where({ building_id: buildingId });
+    const outdated = rows.filter((r) => parseResults(r).engineVersion !== ENGINE_VERSION);
     const done: CommittedChange[] = [];
     if (outdated.length === 0) return done;
     const inputs = await analysisInputs(trx, buildingId);
@@ -37,7 +37,7 @@ export async function reanalyseOutdated(ctx: ServerContext, buildingId: number, 
     }
     return done;
   });
-  for (const c of changes) broadcastChange(ctx, c, { userId: user.id, name: user.name });
+  broadcastChanges(ctx, changes, { userId: user.id, name: user.name });
   return changes.length;
 }
 
@@ -47,17 +47,19 @@ export async function reanalyseOutdated(ctx: ServerContext, buildingId: number, 
  * several processes starting together a stack another one got to first (409 on its version) is left to it.
  */
 export async function reanalyseOutdatedOnStart(db: Knex): Promise<number> {
-  // Stored results are compact JSON with engineVersion as their last key (analysis.ts)
+  // Packed results name their engine version in a column; rows stored before as JSON text end with it as
+  // their last key (analysis.ts; docs/contracts.md §Stored results).
   const marked = `%"engineVersion":"${ENGINE_VERSION}"}`;
   const rows = await db<StackRow>('stacks')
-    .whereNot('results', 'like', marked)
+    .where((q) => q.whereNull('engine_version').whereNot('results', 'like', marked))
+    .orWhereNot('engine_version', ENGINE_VERSION)
     .select<{ id: number; building_id: number }[]>('id', 'building_id');
   let done = 0;
   for (const { id, building_id: buildingId } of rows) {
     try {
       await db.transaction(async (trx) => {
-        const row = await trx<StackRow>('stacks').where({ id }).first();
-        if (!row || parseResults(row.results).engineVersion === ENGINE_VERSION) return;
+        const row = await stackRowsWithResults(trx).where('stacks.id', id).first();
+        if (!row || parseResults(row).engineVersion === ENGINE_VERSION) return;
         const change = {
           doc: parseDoc(row.doc),
           ops: [],

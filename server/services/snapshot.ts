@@ -9,7 +9,7 @@ import { listLevels } from './levels.ts';
 import type { SectionDims } from '../../shared/schema/stack.ts';
 import { readModel } from './buildingModelStore.ts';
 import { companySectionMap } from './companySections.ts';
-import { parseDoc, parseResults, placeOf, type StackRow } from './stackRows.ts';
+import { joinResults, parseDoc, parseResults, placeOf, STORED_RESULTS, type StackRow } from './stackRows.ts';
 
 /** JSON with object keys in code-point order at every depth, so equal content gives equal text. */
 export function canonicalJson(value: unknown): string {
@@ -33,9 +33,9 @@ export const byStackName = (a: { name: string; id: number }, b: { name: string; 
  */
 export async function snapshotStacks(db: Knex, buildingId: number): Promise<SnapshotStack[]> {
   const [rows, levels] = await Promise.all([
-    db<StackRow>('stacks')
+    joinResults(db<StackRow>('stacks'))
       .where({ building_id: buildingId })
-      .select('id', 'name', 'version', 'doc', 'results', 'grid_x', 'grid_y', 'web_along'),
+      .select('id', 'name', 'version', 'doc', ...STORED_RESULTS, 'grid_x', 'grid_y', 'web_along'),
     listLevels(db, buildingId),
   ]);
   return rows
@@ -45,7 +45,7 @@ export async function snapshotStacks(db: Knex, buildingId: number): Promise<Snap
         name: r.name,
         version: r.version,
         doc: placeOnLevels(parseDoc(r.doc), levels),
-        results: parseResults(r.results),
+        results: parseResults(r),
       };
       const { gridX, gridY, webAlong } = placeOf(r);
       if (gridX !== null) stack.placement = { gridX, gridY, webAlong };

@@ -3,6 +3,7 @@
 // store the new version with its results, its ops and an audit row; broadcast after commit.
 import type { Knex } from 'knex';
 import type { Level, User } from '../../shared/schema/api.ts';
+import type { BuildingStackChanged } from '../../shared/schema/socket.ts';
 import type { Op } from '../../shared/schema/ops.ts';
 import type { StackResult } from '../../shared/schema/results.ts';
 import type { StackDocument } from '../../shared/schema/stack.ts';
@@ -13,7 +14,7 @@ import { conflict, unprocessable } from '../errors.ts';
 import {
   analyse,
   analysisInputs,
-  resultColumns,
+  storedResultColumns,
   summariseResult,
   withPositions,
   type AnalysisInputs,
@@ -54,7 +55,7 @@ export async function commitDoc(
   const columns = {
     doc: JSON.stringify(change.doc),
     version,
-    ...resultColumns(change.doc, results),
+    ...(await storedResultColumns(trx, change.doc, results)),
     updated_at: now(),
   };
   // A large stack (results computed off the main thread) is encoded and written in separate turns of the loop.
@@ -183,33 +184,56 @@ export function broadcastChange(
   /** The building's levels when the change moved one (docs/live-protocol.md); the edit's own id when it gave one. */
   extra: { levels?: Level[]; editId?: string } = {},
 ): void {
+  broadcastChanges(ctx, [c], by, extra);
+}
+
+/** A building room's summary of one stack's new version. */
+function stackSummary(c: CommittedChange): BuildingStackChanged {
+  return {
+    buildingId: c.buildingId,
+    stackId: c.stackId,
+    version: c.version,
+    utilisation: c.summary.utilisation,
+    governingLiftId: c.summary.governingLiftId,
+    governingLiftLabel: c.summary.governingLiftLabel,
+    governingSection: c.summary.governingSection,
+    status: c.summary.status,
+    ...(c.results.positions ? { positions: c.results.positions, governingPosition: c.results.governingPosition } : {}),
+  };
+}
+
+/**
+ * The changes of one write, after commit: each to its stack's room, and to the building's room as one summary
+ * (`building:stack-changed`) or, when the write changed several stacks of the building, one message with all
+ * of their summaries (`building:stacks-changed`; docs/live-protocol.md).
+ */
+export function broadcastChanges(
+  ctx: ServerContext,
+  changes: readonly CommittedChange[],
+  by: { userId: number; name: string },
+  extra: { levels?: Level[]; editId?: string } = {},
+): void {
   try {
-    ctx.broadcaster.stackChanged({
-      buildingId: c.buildingId,
-      stackId: c.stackId,
-      version: c.version,
-      ops: c.ops,
-      results: c.results,
-      by,
-      ...(extra.levels ? { levels: extra.levels } : {}),
-      ...(extra.editId ? { editId: extra.editId } : {}),
-    });
-    ctx.broadcaster.buildingStackChanged({
-      buildingId: c.buildingId,
-      stackId: c.stackId,
-      version: c.version,
-      utilisation: c.summary.utilisation,
-      governingLiftId: c.summary.governingLiftId,
-      governingLiftLabel: c.summary.governingLiftLabel,
-      governingSection: c.summary.governingSection,
-      status: c.summary.status,
-      ...(c.results.positions
-        ? { positions: c.results.positions, governingPosition: c.results.governingPosition }
-        : {}),
-    });
+    for (const c of changes)
+      ctx.broadcaster.stackChanged({
+        buildingId: c.buildingId,
+        stackId: c.stackId,
+        version: c.version,
+        ops: c.ops,
+        results: c.results,
+        by,
+        ...(extra.levels ? { levels: extra.levels } : {}),
+        ...(extra.editId ? { editId: extra.editId } : {}),
+      });
+    const byBuilding = new Map<number, CommittedChange[]>();
+    for (const c of changes) byBuilding.set(c.buildingId, [...(byBuilding.get(c.buildingId) ?? []), c]);
+    for (const [buildingId, some] of byBuilding) {
+      if (some.length === 1) ctx.broadcaster.buildingStackChanged(stackSummary(some[0]));
+      else ctx.broadcaster.buildingStacksChanged({ buildingId, stacks: some.map(stackSummary) });
+    }
   } catch (e) {
-    // The change is committed; a failed notification must not turn it into an error reply.
-    ctx.log.error({ err: e, stackId: c.stackId, version: c.version }, 'broadcast failed');
+    // The changes are committed; a failed notification must not turn them into an error reply.
+    ctx.log.error({ err: e, stackIds: changes.map((c) => c.stackId) }, 'broadcast failed');
   }
 }
 

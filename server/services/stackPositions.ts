@@ -16,14 +16,14 @@ import { analysisInputs } from './analysis.ts';
 import { readModel } from './buildingModelStore.ts';
 import { broadcastChange, commitDoc, type CommittedChange } from './stackOps.ts';
 import { positionsOf, toStackPosition } from './stackPositionRows.ts';
-import { loadStackRow, parseDoc, parseResults, type StackRow } from './stackRows.ts';
+import { joinResults, loadStackRow, parseDoc, parseResults, STORED_RESULTS, type StackRow } from './stackRows.ts';
 
 /** A guard against absurd input, not a design limit: a type rarely stands at more than a few dozen places. */
 export const MAX_POSITIONS = 400;
 
-async function reply(db: Knex, row: Pick<StackRow, 'id' | 'building_id' | 'version' | 'results'>) {
+async function reply(db: Knex, row: Pick<StackRow, 'id' | 'building_id' | 'version' | 'results' | 'results_packed'>) {
   const { model } = await readModel(db, row.building_id);
-  const results = parseResults(row.results);
+  const results = parseResults(row);
   const out: StackPositionsReply = {
     stackId: row.id,
     version: row.version,
@@ -100,15 +100,15 @@ export async function removeStackPosition(
 
 /** Every typical column of a building with each position's check, for the plan view. */
 export async function buildingPositions(db: Knex, buildingId: number): Promise<BuildingPositionsReply> {
-  const rows = await db<StackRow>('stacks')
+  const rows = await joinResults(db<StackRow>('stacks'))
     .where({ building_id: buildingId })
     .whereIn('id', db('stack_positions').where({ building_id: buildingId }).select('stack_id'))
     .orderBy('id')
-    .select<Pick<StackRow, 'id' | 'results'>[]>('id', 'results');
+    .select<Pick<StackRow, 'id' | 'results' | 'results_packed'>[]>('id', ...STORED_RESULTS);
   return {
     buildingId,
     stacks: rows.map((r) => {
-      const results = parseResults(r.results);
+      const results = parseResults(r);
       return {
         stackId: r.id,
         results: results.positions ?? [],

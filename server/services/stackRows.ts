@@ -1,9 +1,11 @@
 // Reading stack rows and turning them into API shapes.
+import { createHash } from 'node:crypto';
+import { deflateRawSync, inflateRawSync } from 'node:zlib';
 import type { Knex } from 'knex';
 import type { StackDetail, StackSummary } from '../../shared/schema/api.ts';
 import type { StackResult } from '../../shared/schema/results.ts';
 import { stackDocumentSchema, type StackDocument } from '../../shared/schema/stack.ts';
-import { isoTime, isPostgres } from '../db.ts';
+import { isoTime, isPostgres, now } from '../db.ts';
 import { notFound, unprocessable } from '../errors.ts';
 import type { StackPlace, StackStatus } from './analysis.ts';
 
@@ -13,7 +15,14 @@ export interface StackRow {
   name: string;
   doc: string;
   version: number;
+  /** The results as JSON text for rows stored before results were packed; empty since (`results_hash`). */
   results: string;
+  /** The key of the row's results in `stack_results`; null for rows stored before results were packed. */
+  results_hash: string | null;
+  /** Joined from `stack_results` where a query reads results (`joinResults`); not a column of `stacks`. */
+  results_packed?: Buffer | Uint8Array | null;
+  /** ENGINE_VERSION of the rules that produced the results; null for rows stored before it was kept here. */
+  engine_version: string | null;
   utilisation: number | null;
   status: StackStatus;
   governing_lift_id: string | null;
@@ -43,17 +52,93 @@ export function placeOf(row: Pick<StackRow, 'id' | 'grid_x' | 'grid_y' | 'web_al
  * several processes queue instead of racing; SQLite has a single writer already.
  */
 export async function loadStackRow(db: Knex, id: number, opts: { lock?: boolean } = {}): Promise<StackRow> {
-  const query = db<StackRow>('stacks').where({ id });
-  if (opts.lock && isPostgres(db)) query.forUpdate();
-  const row = await query.first();
+  const query = stackRowsWithResults(db).where('stacks.id', id);
+  if (opts.lock && isPostgres(db)) query.forUpdate('stacks');
+  const row = await query.first<StackRow | undefined>();
   if (!row) throw notFound('Stack');
   return row;
 }
 
 /** Stored documents were validated on the way in; parsing again guards against a hand-edited database. */
 export const parseDoc = (text: string): StackDocument => stackDocumentSchema.parse(JSON.parse(text));
-// Results are written only by our engine; they are carried as they were stored.
-export const parseResults = (text: string): StackResult => JSON.parse(text) as StackResult;
+/**
+ * What a stack row is selected with wherever its results are read: its own text (rows stored before results
+ * were packed) and the packed results it names, joined with `joinResults` (docs/contracts.md §Stored results).
+ */
+export const STORED_RESULTS = ['stacks.results', 'stack_results.packed as results_packed'] as const;
+export type StoredResults = Pick<StackRow, 'results' | 'results_packed'>;
+
+/** Joins stack rows to the packed results they name; select `STORED_RESULTS` (or `stacks.*` with the second). */
+export function joinResults<Q extends Knex.QueryBuilder>(query: Q): Q {
+  return query.leftJoin('stack_results', 'stack_results.hash', 'stacks.results_hash') as Q;
+}
+
+/** Whole stack rows with the packed results they name, ready for `parseResults`; add the where. */
+export function stackRowsWithResults(db: Knex): Knex.QueryBuilder<StackRow, StackRow[]> {
+  return joinResults(db<StackRow>('stacks')).select('stacks.*', STORED_RESULTS[1]) as Knex.QueryBuilder<
+    StackRow,
+    StackRow[]
+  >;
+}
+
+/**
+ * Results as stored: deflated JSON from `stack_results` (deflate level 1: a 40-storey stack's 340 kB of JSON
+ * packs to about 25 kB in under a millisecond; the working's repeated shape is what it removes), or JSON text
+ * in `results` for rows stored before. Written only by our engine; carried as they were stored.
+ */
+export function parseResults(row: StoredResults): StackResult {
+  const text = row.results_packed ? inflateRawSync(row.results_packed).toString('utf8') : row.results;
+  return JSON.parse(text) as StackResult;
+}
+
+/** One version's results ready to store: packed, and named by the SHA-256 of their JSON. */
+export interface PackedResults {
+  hash: string;
+  packed: Buffer;
+  engineVersion: string | null;
+}
+
+export function packResults(results: StackResult): PackedResults {
+  const json = Buffer.from(JSON.stringify(results), 'utf8');
+  return {
+    hash: createHash('sha256').update(json).digest('hex'),
+    packed: deflateRawSync(json, { level: 1 }),
+    engineVersion: results.engineVersion ?? null,
+  };
+}
+
+/** The stack row's columns that name its stored results. */
+export function resultsRef(p: PackedResults): Pick<StackRow, 'results' | 'results_hash' | 'engine_version'> {
+  return { results: '', results_hash: p.hash, engine_version: p.engineVersion };
+}
+
+/**
+ * Stores packed results, each key once. Results already stored under a key are the same results (the key is
+ * their digest): only their `used_at` is renewed, which also locks the row on PostgreSQL, so a sweep running
+ * beside this transaction cannot remove what it is about to name (`sweepResults`).
+ */
+export async function storeResults(db: Knex, packs: readonly PackedResults[]): Promise<void> {
+  const at = now();
+  const rows = [...new Map(packs.map((p) => [p.hash, { hash: p.hash, packed: p.packed, used_at: at }])).values()];
+  for (let i = 0; i < rows.length; i += RESULTS_CHUNK)
+    await db('stack_results')
+      .insert(rows.slice(i, i + RESULTS_CHUNK))
+      .onConflict('hash')
+      .merge(['used_at']);
+}
+/** Rows per insert: a few hundred bound values per statement (SQLite allows 32766). */
+const RESULTS_CHUNK = 100;
+
+/** How long results no stack names are kept: longer than any transaction that could be about to name them. */
+const SWEEP_AFTER_MS = 60 * 60 * 1000;
+
+/** Removes stored results that no stack names and none has taken for an hour; returns how many went. */
+export async function sweepResults(db: Knex, at = Date.now()): Promise<number> {
+  return db('stack_results')
+    .where('used_at', '<', new Date(at - SWEEP_AFTER_MS).toISOString())
+    .whereNotExists(db('stacks').whereRaw('stacks.results_hash = stack_results.hash').select(db.raw('1')))
+    .delete();
+}
 
 export function toSummary(row: StackRow): StackSummary {
   return {
@@ -85,7 +170,7 @@ export function toDetail(row: StackRow): StackDetail {
     name: row.name,
     doc: parseDoc(row.doc),
     version: row.version,
-    results: parseResults(row.results),
+    results: parseResults(row),
     ...placementFields(row),
   };
 }

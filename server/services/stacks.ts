@@ -7,7 +7,7 @@ import type { StackDocument } from '../../shared/schema/stack.ts';
 import { stackFromTemplate } from '../../shared/ops/stackFromTemplate.ts';
 import { placeOnLevels } from '../../shared/engine/stack/placeOnLevels.ts';
 import { now } from '../db.ts';
-import { analyse, analysisInputs, resultColumns } from './analysis.ts';
+import { analyse, analysisInputs, storedResultColumns } from './analysis.ts';
 import { recordAudit } from './audit.ts';
 import { touchBuilding } from './buildings.ts';
 import { listLevels } from './levels.ts';
@@ -75,7 +75,7 @@ export async function createStack(db: Knex, buildingId: number, input: NewStack,
           name: input.name,
           doc: JSON.stringify(doc),
           version: 0,
-          ...resultColumns(doc, results),
+          ...(await storedResultColumns(trx, doc, results)),
           created_at: now(),
           updated_at: now(),
         })

@@ -1,8 +1,8 @@
 // Stacks re-analysed because something they read changed (the building model, docs/building-model.md), not
 // their document: each is stored as its next version with an empty ops list, in the caller's transaction.
 // Hundreds of stacks at a time, so the work is shared where it is the same: columns with the same document
-// and the same floors' loads are analysed and encoded once (the engine is a pure function of them), the
-// unchanged document is not written again, and the ops and audit rows go in a few multi-row inserts.
+// and the same floors' loads are analysed, encoded and stored once (the engine is a pure function of them),
+// the unchanged document is not written again, and the ops and audit rows go in a few multi-row inserts.
 import type { Knex } from 'knex';
 import type { StackDocument } from '../../shared/schema/stack.ts';
 import { now } from '../db.ts';
@@ -10,6 +10,7 @@ import { conflict } from '../errors.ts';
 import {
   analyse,
   analyseWithLoads,
+  floorLoadsKeyOf,
   floorLoadsOf,
   positionPlaces,
   resultColumns,
@@ -20,7 +21,7 @@ import { INSERT_CHUNK, recordAudits } from './audit.ts';
 import { touchBuilding } from './buildings.ts';
 import type { CommittedChange } from './stackOps.ts';
 import { yieldToLoop } from './stackEditOffThread.ts';
-import { placeOf, type StackRow } from './stackRows.ts';
+import { packResults, placeOf, storeResults, type PackedResults, type StackRow } from './stackRows.ts';
 
 export type ReanalysedRow = Pick<
   StackRow,
@@ -30,7 +31,10 @@ export type ReanalysedRow = Pick<
 /** Longest stretch of analysis without a turn of the event loop, ms (common practice, no source). */
 const SLICE_MS = 20;
 
-type Analysed = Pick<CommittedChange, 'doc' | 'results' | 'summary'> & { columns: ReturnType<typeof resultColumns> };
+type Analysed = Pick<CommittedChange, 'doc' | 'results' | 'summary'> & {
+  packed: PackedResults;
+  columns: ReturnType<typeof resultColumns>;
+};
 
 /** Stored documents were validated on the way in; they are read as they are. */
 const storedDoc = (text: string): StackDocument => JSON.parse(text) as StackDocument;
@@ -43,21 +47,32 @@ export async function storeReanalyses(
   by: { userId: number | null; action: string },
 ): Promise<CommittedChange[]> {
   if (rows.length === 0) return [];
-  const same = new Map<string, Analysed>();
+  // By document text, then by the key of the place's floor loads (the same key, the same loads): a column like
+  // one already analysed is found without deriving its loads again.
+  const same = new Map<string, Map<string, Analysed>>();
   const analysed: Analysed[] = [];
   let slice = performance.now();
   for (const row of rows) {
     const place = placeOf(row);
-    const floorLoads = floorLoadsOf(inputs, place);
     // A typical column's results hold every position's check (docs/typical-columns.md): analysed on its own.
     const typical = positionPlaces(inputs, place).length > 0;
-    const key = typical ? null : `${row.doc}\n${JSON.stringify(floorLoads ? [...floorLoads] : null)}`;
-    let found = key === null ? undefined : same.get(key);
+    const loadsKey = floorLoadsKeyOf(inputs, place);
+    const sameDoc = typical ? undefined : (same.get(row.doc) ?? new Map<string, Analysed>());
+    let found = sameDoc?.get(loadsKey);
     if (!found) {
       const doc = storedDoc(row.doc);
-      const results = typical ? analyse(doc, inputs, place) : analyseWithLoads(doc, inputs, floorLoads);
-      found = { doc, results, summary: summariseResult(doc, results), columns: resultColumns(doc, results) };
-      if (key !== null) same.set(key, found);
+      const results = typical
+        ? analyse(doc, inputs, place)
+        : analyseWithLoads(doc, inputs, floorLoadsOf(inputs, place));
+      const packed = packResults(results);
+      found = {
+        doc,
+        results,
+        packed,
+        summary: summariseResult(doc, results),
+        columns: resultColumns(doc, results, packed),
+      };
+      if (sameDoc) same.set(row.doc, sameDoc.set(loadsKey, found));
     }
     analysed.push(found);
     // Hundreds of different stacks are seconds of work: other requests and live events are served meanwhile.
@@ -66,6 +81,11 @@ export async function storeReanalyses(
       slice = performance.now();
     }
   }
+  // Columns that came out the same share one stored copy of their results (docs/contracts.md §Stored results).
+  await storeResults(
+    trx,
+    analysed.map((a) => a.packed),
+  );
   const at = now();
   for (const [i, row] of rows.entries()) {
     const updated = await trx('stacks')

@@ -21,7 +21,7 @@ import {
 } from './api.ts';
 import { analysisOptionsSchema, type StackResult } from './results.ts';
 import { stackDocumentSchema } from './stack.ts';
-import type { BuildingStackChanged, StackChanged, StackJoinAck } from './socket.ts';
+import type { BuildingStackChanged, BuildingStacksChanged, StackChanged, StackJoinAck } from './socket.ts';
 import { buildingModelSchema, type BuildingModelChanged, type BuildingModelReply, type Placement } from './building.ts';
 import type { BuildingSizingPreview, StackSizingPreview } from './sizing.ts';
 import type { RevisionComparison, RevisionDetail, RevisionSummary } from './revisions.ts';
@@ -166,6 +166,10 @@ export const buildingStackChangedSchema: z.ZodType<BuildingStackChanged> = z.obj
   status: stackStatus,
   positions: z.array(positionResultSchema).optional(),
   governingPosition: z.string().optional(),
+});
+export const buildingStacksChangedSchema: z.ZodType<BuildingStacksChanged> = z.object({
+  buildingId: id,
+  stacks: z.array(buildingStackChangedSchema),
 });
 export const buildingModelChangedSchema = outlineOf<BuildingModelChanged>({
   buildingId: id,

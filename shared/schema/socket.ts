@@ -76,6 +76,15 @@ export interface BuildingStackChanged {
   governingPosition?: string;
 }
 
+/**
+ * Several stacks of one building re-analysed by one change (a floor load, the grid, the building's options, an
+ * import): their summaries in one message, in the order they were stored (docs/live-protocol.md).
+ */
+export interface BuildingStacksChanged {
+  buildingId: number;
+  stacks: BuildingStackChanged[];
+}
+
 export interface SessionEnded {
   reason: 'expired' | 'signed-out';
   message: string;
@@ -94,6 +103,7 @@ export interface ServerToClientEvents {
   'stack:changed': (payload: StackChanged) => void;
   presence: (payload: { stackId: number; users: PresenceUser[] }) => void;
   'building:stack-changed': (payload: BuildingStackChanged) => void;
+  'building:stacks-changed': (payload: BuildingStacksChanged) => void;
   /** The user lost access to a building: the server has taken this socket out of its rooms. */
   'access:revoked': (payload: { buildingId: number }) => void;
   /** The session behind this socket ended; the server closes the socket next (sign in again). */

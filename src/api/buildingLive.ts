@@ -1,7 +1,11 @@
 // A building's live channel: stack results that change while the building page is open.
 import type { BuildingModelChanged } from '@shared/schema/building.ts';
 import type { BuildingStackChanged } from '@shared/schema/socket.ts';
-import { buildingModelChangedSchema, buildingStackChangedSchema } from '@shared/schema/replies.ts';
+import {
+  buildingModelChangedSchema,
+  buildingStackChangedSchema,
+  buildingStacksChangedSchema,
+} from '@shared/schema/replies.ts';
 import { connectLive, type LiveSocket } from './live.ts';
 
 export interface BuildingWatch {
@@ -28,6 +32,12 @@ export function watchBuilding(
     const change = buildingStackChangedSchema.safeParse(raw);
     if (!change.success) return unreadable();
     if (change.data.buildingId === buildingId) onChange(change.data);
+  });
+  // One write that re-analysed several stacks (a floor load, the grid, the options) sends them together.
+  socket.on('building:stacks-changed', (raw) => {
+    const changes = buildingStacksChangedSchema.safeParse(raw);
+    if (!changes.success) return unreadable();
+    if (changes.data.buildingId === buildingId) for (const change of changes.data.stacks) onChange(change);
   });
   socket.on('building:model-changed', (raw) => {
     const change = buildingModelChangedSchema.safeParse(raw);

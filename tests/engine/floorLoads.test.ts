@@ -3,8 +3,9 @@
 import { describe, expect, it } from 'vitest';
 import { alphaA } from '../../shared/engine/building/alphaA.ts';
 import { areaLoads } from '../../shared/engine/building/floorLoad.ts';
-import { stackFloorLoads } from '../../shared/engine/building/stackFloorLoads.ts';
+import { floorLoadsKey, stackFloorLoads } from '../../shared/engine/building/stackFloorLoads.ts';
 import { designAxialForce } from '../../shared/engine/stack/combination.ts';
+import type { BuildingModel } from '../../shared/schema/building.ts';
 import { OFFICE, ROOF, officeModel } from './building-model-fixtures.ts';
 
 describe('area loads of a build-up', () => {
@@ -118,5 +119,59 @@ describe('αA, the reduction for the area carried (EN 1991-1-1 6.3.1.2(10))', ()
       { ...UK, annex: 'EN' },
     );
     expect(h.NEd).toBeCloseTo(264.75, 9);
+  });
+});
+
+describe("the key of a place's floor loads", () => {
+  // Invented: a regular 6 × 5 grid at 7.5 m (0.25 m of slab beyond every edge line), cladding on x line x0 on
+  // the lower floor, an area set by hand for stack 7 on the upper floor. A building-wide re-analysis takes two
+  // places with one key as one column (docs/building-model.md), so the key must never join different loads.
+  const line = (p: string, i: number) => ({ id: `${p}${i}`, name: `${p}${i}`, position: i * 7.5 });
+  const model: BuildingModel = {
+    grid: {
+      x: { lines: Array.from({ length: 6 }, (_, i) => line('x', i)), edgeBefore: 0.25, edgeAfter: 0.25 },
+      y: { lines: Array.from({ length: 5 }, (_, i) => line('y', i)), edgeBefore: 0.25, edgeAfter: 0.25 },
+    },
+    buildups: [OFFICE, ROOF],
+    floors: [
+      {
+        levelId: 'f1',
+        buildupId: 'office',
+        span: 'two-way',
+        lines: [{ gridLineId: 'x0', label: 'Cladding', gk: 8, qk: 0 }],
+      },
+      { levelId: 'f2', buildupId: 'roof', span: 'x', lines: [] },
+    ],
+    overrides: { '7': [{ levelId: 'f2', factor: 0.5, reason: 'Void' }] },
+  };
+  const places = Array.from({ length: 6 * 5 * 2 }, (_, i) => ({
+    stackId: i,
+    placement: {
+      gridX: `x${i % 6}`,
+      gridY: `y${Math.floor(i / 6) % 5}`,
+      webAlong: i < 30 ? ('x' as const) : ('y' as const),
+    },
+  }));
+
+  it('is the same only where the loads are the same, and joins the interior columns', () => {
+    const loads = places.map((p) => [...stackFloorLoads(model, p.placement, p.stackId)]);
+    const keys = places.map((p) => floorLoadsKey(model, p.placement, p.stackId));
+    for (let a = 0; a < places.length; a++)
+      for (let b = a + 1; b < places.length; b++) if (keys[a] === keys[b]) expect(loads[a]).toEqual(loads[b]);
+    // Not vacuous: the 12 interior places of each web direction share one key, the void's column has its own.
+    const interior = (p: (typeof places)[number]) => !/x0|x5|y0|y4/.test(`${p.placement.gridX}${p.placement.gridY}`);
+    expect(
+      new Set(
+        places
+          .filter((p) => interior(p) && p.stackId !== 7 && p.placement.webAlong === 'x')
+          .map((p) => keys[p.stackId]),
+      ).size,
+    ).toBe(1);
+    expect(keys[7]).not.toBe(keys[8]);
+    expect(loads[7]).not.toEqual(loads[8]);
+    // The cladding line: a column on x0 differs from its mirror on x5, which carries none.
+    expect(keys[6]).not.toBe(keys[11]);
+    expect(loads[6]).not.toEqual(loads[11]);
+    expect(floorLoadsKey(model, { gridX: null, gridY: null, webAlong: 'x' }, 1)).toBe('off the grid');
   });
 });

@@ -5,7 +5,7 @@ import type { Level, StackDetail, StackSummary } from '../../shared/schema/api.t
 import type { BuildingModelChanged, BuildingModelReply, Grid, Placement } from '../../shared/schema/building.ts';
 import type { RevisionSnapshot } from '../../shared/schema/revisions.ts';
 import { createLevels, errorCode, startWithLeadAndBuilding, type TestServer } from './helpers.ts';
-import { connect, next, request, type LiveClient } from './liveHelpers.ts';
+import { connect, next, nextStackSummary, request, type LiveClient } from './liveHelpers.ts';
 import { smallGrid } from '../engine/building-model-fixtures.ts';
 
 // Invented grid: x lines A 0, B 6, C 13.5 m; y lines 1 0, 2 7.5 m; no slab beyond the lines.
@@ -83,7 +83,7 @@ describe('the building model over the API', () => {
     try {
       expect((await request(live, 'building:join', { buildingId })).ok).toBe(true);
       const heard = next(live, 'building:model-changed');
-      const stackHeard = next(live, 'building:stack-changed', (p) => p.stackId === stack.id);
+      const stackHeard = nextStackSummary(live, (p) => p.stackId === stack.id);
       const first = levels[1];
       const r = await s.api('PUT', `/buildings/${buildingId}/levels/${first.id}/floor-load`, {
         token,
@@ -217,11 +217,24 @@ describe('the building model over the API', () => {
     });
     const ids = [stack.id, other.id, mirrored, corner, reduced];
     const before = new Map(await Promise.all(ids.map(async (id) => [id, (await detail(id)).version] as const)));
+    // The building room hears the write once, with every stack it changed (docs/live-protocol.md).
+    const live: LiveClient = await connect(s.url, token);
+    const singles: number[] = [];
+    live.on('building:stack-changed', (p) => singles.push(p.stackId));
+    expect((await request(live, 'building:join', { buildingId })).ok).toBe(true);
+    const together = next(live, 'building:stacks-changed');
     const r = await s.api('PUT', `/buildings/${buildingId}/levels/${levels[1].id}/floor-load`, {
       token,
       body: { buildupId: 'office' },
     });
     expect(r.status).toBe(200);
+    const heard = await together;
+    live.close();
+    expect(heard.buildingId).toBe(buildingId);
+    expect(heard.stacks.map((p) => [p.stackId, p.version]).sort((a, b) => a[0] - b[0])).toEqual(
+      ids.map((id) => [id, before.get(id)! + 1]).sort((a, b) => a[0] - b[0]),
+    );
+    expect(singles).toEqual([]);
     const bulk = new Map(await Promise.all(ids.map(async (id) => [id, await detail(id)] as const)));
     for (const id of ids) {
       expect(bulk.get(id)!.version).toBe(before.get(id)! + 1);

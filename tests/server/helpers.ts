@@ -3,12 +3,14 @@ import { mkdtempSync, rmSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { randomBytes } from 'node:crypto';
-import knex from 'knex';
+import knex, { type Knex } from 'knex';
 import type { Express } from 'express';
 import type { AuthResponse, Building, Level, Role } from '../../shared/schema/api.ts';
 import { startServer, type RunningServer, type StartOptions } from '../../server/server.ts';
 import type { Limits } from '../../server/config.ts';
 import { verifyEmail } from '../../server/services/users.ts';
+import { loadStackRow, packResults, parseResults, resultsRef, storeResults } from '../../server/services/stackRows.ts';
+import type { StackResult } from '../../shared/schema/results.ts';
 
 /**
  * The scale-out run (docs/live-protocol.md §Several processes) repeats every server test on PostgreSQL and Redis:
@@ -265,3 +267,29 @@ export async function eventually(check: () => Promise<boolean>, timeoutMs = 25_0
 
 /** Mail settings that retry quickly, for tests of the outbox. */
 export const FAST_MAIL = { timeoutMs: 2000, retryBaseMs: 20, maxAttempts: 3, pollMs: 20, leaseMs: 10_000 };
+
+/** A stack's results as stored (docs/contracts.md §Stored results). */
+export async function storedResults(db: Knex, stackId: number): Promise<StackResult> {
+  return parseResults(await loadStackRow(db, stackId));
+}
+
+/**
+ * Replaces a stack's stored results by hand: packed, as the server stores them, or as JSON text, as rows stored
+ * before results were packed (docs/contracts.md §Stored results).
+ */
+export async function replaceStoredResults(
+  db: Knex,
+  stackId: number,
+  results: StackResult,
+  form: 'packed' | 'text' = 'packed',
+): Promise<void> {
+  if (form === 'text') {
+    await db('stacks')
+      .where({ id: stackId })
+      .update({ results: JSON.stringify(results), results_hash: null, engine_version: null });
+    return;
+  }
+  const packed = packResults(results);
+  await storeResults(db, [packed]);
+  await db('stacks').where({ id: stackId }).update(resultsRef(packed));
+}

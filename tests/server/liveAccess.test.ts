@@ -80,6 +80,7 @@ describe('membership changes reach open sockets at once', () => {
     const heard = collect(goneSocket);
     const heardBuilding: number[] = [];
     goneSocket.on('building:stack-changed', (p) => heardBuilding.push(p.version));
+    goneSocket.on('building:stacks-changed', (p) => heardBuilding.push(...p.stacks.map((x) => x.version)));
     const revoked = next(goneSocket, 'access:revoked');
 
     // One edit while still a member: received.

@@ -1,6 +1,8 @@
 // Real socket.io-client connections to a test server, with promise-returning emits.
 import { io, type Socket } from 'socket.io-client';
 import type {
+  BuildingStackChanged,
+  BuildingStacksChanged,
   ClientToServerEvents,
   ServerToClientEvents,
   StackChanged,
@@ -66,6 +68,39 @@ export function next<E extends keyof ServerToClientEvents>(
       resolve(p);
     };
     socket.on(event, listener as never);
+  });
+}
+
+/**
+ * The building room's summary of one stack: from `building:stack-changed`, or from `building:stacks-changed`
+ * when the write changed several stacks of the building (docs/live-protocol.md).
+ */
+export function nextStackSummary(
+  socket: LiveClient,
+  match: (p: BuildingStackChanged) => boolean,
+  timeoutMs = 5000,
+): Promise<BuildingStackChanged> {
+  return new Promise((resolve, reject) => {
+    const stop = () => {
+      clearTimeout(timer);
+      socket.off('building:stack-changed', one);
+      socket.off('building:stacks-changed', many);
+    };
+    const timer = setTimeout(() => {
+      stop();
+      reject(new Error(`no building summary of the stack within ${timeoutMs} ms`));
+    }, timeoutMs);
+    const one = (p: BuildingStackChanged) => {
+      if (!match(p)) return;
+      stop();
+      resolve(p);
+    };
+    const many = (p: BuildingStacksChanged) => {
+      const found = p.stacks.find(match);
+      if (found) one(found);
+    };
+    socket.on('building:stack-changed', one);
+    socket.on('building:stacks-changed', many);
   });
 }
 

@@ -5,7 +5,7 @@ import { ENGINE_VERSION } from '../../shared/engine/version.ts';
 import type { StackDetail, StackSummary } from '../../shared/schema/api.ts';
 import type { RevisionDetail } from '../../shared/schema/revisions.ts';
 import { reanalyseOutdatedOnStart } from '../../server/services/outdatedResults.ts';
-import { startWithLeadAndBuilding, type TestServer } from './helpers.ts';
+import { replaceStoredResults, startWithLeadAndBuilding, type TestServer } from './helpers.ts';
 
 const template = {
   storeys: 2,
@@ -43,10 +43,7 @@ describe('results of older rules at freezing', () => {
     // As an engine before 1.1.0 left them: no version mark, and (here) a lower utilisation.
     const old = { ...fresh.results, lifts: fresh.results.lifts.map((l) => ({ ...l, utilisation: l.utilisation / 2 })) };
     delete old.engineVersion;
-    await s.ctx
-      .db('stacks')
-      .where({ id: sum.id })
-      .update({ results: JSON.stringify(old) });
+    await replaceStoredResults(s.ctx.db, sum.id, old, 'text');
 
     const r = await s.api('POST', `/buildings/${buildingId}/revisions`, {
       token,
@@ -66,20 +63,24 @@ describe('results of older rules at freezing', () => {
     expect(other.version).toBe(0);
   });
 
-  it('at start-up analyses again the stacks an older engine left, once', async () => {
-    const sum = (await s.api('POST', `/buildings/${buildingId}/stacks`, { token, body: { name: 'V/3', template } }))
-      .body as StackSummary;
-    const fresh = await get(sum.id);
-    const old = { ...fresh.results };
+  it('at start-up analyses again the stacks an older engine left, once: stored as text before, or packed', async () => {
+    const create = async (name: string) =>
+      (await s.api('POST', `/buildings/${buildingId}/stacks`, { token, body: { name, template } }))
+        .body as StackSummary;
+    const [text, packed] = [await create('V/3'), await create('V/4')];
+    const fresh = [await get(text.id), await get(packed.id)];
+    // V/3 as rows were stored before results were packed: JSON text, no version mark.
+    const old = { ...fresh[0].results };
     delete old.engineVersion;
-    await s.ctx
-      .db('stacks')
-      .where({ id: sum.id })
-      .update({ results: JSON.stringify(old) });
-    expect(await reanalyseOutdatedOnStart(s.ctx.db)).toBe(1);
-    const now = await get(sum.id);
-    expect(now.version).toBe(fresh.version + 1);
-    expect(now.results).toEqual(fresh.results);
+    await replaceStoredResults(s.ctx.db, text.id, old, 'text');
+    // V/4 packed (docs/contracts.md §Stored results) by an engine of an earlier version.
+    await replaceStoredResults(s.ctx.db, packed.id, { ...fresh[1].results, engineVersion: '1.0.0' });
+    expect(await reanalyseOutdatedOnStart(s.ctx.db)).toBe(2);
+    for (const [i, id] of [text.id, packed.id].entries()) {
+      const now = await get(id);
+      expect(now.version).toBe(fresh[i].version + 1);
+      expect(now.results).toEqual(fresh[i].results);
+    }
     expect(await reanalyseOutdatedOnStart(s.ctx.db)).toBe(0);
   });
 });

@@ -2,11 +2,10 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type { AuthResponse, Level, StackDetail, StackSummary } from '../../shared/schema/api.ts';
 import type { Op } from '../../shared/schema/ops.ts';
-import type { StackResult } from '../../shared/schema/results.ts';
 import type { StackEditAck, StackJoinAck } from '../../shared/schema/socket.ts';
 import type { StackDocument } from '../../shared/schema/stack.ts';
 import { applyOps } from '../../shared/ops/applyOps.ts';
-import { addMember, createBuilding, registerUser, startTestServer, type TestServer } from './helpers.ts';
+import { addMember, createBuilding, registerUser, startTestServer, storedResults, type TestServer } from './helpers.ts';
 import { connect, Editor, next, prng, request, type LiveClient } from './liveHelpers.ts';
 
 let s: TestServer;
@@ -387,8 +386,7 @@ describe('live channel: presence and reconnection', () => {
     expect(p.version).toBe(version + 1);
     expect(p.utilisation).toBeGreaterThan(0);
     // The building's table names the governing lift as engineers do, with its section, from the same results.
-    const row = await s.ctx.db('stacks').where({ id: stackId }).first<{ results: string }>('results');
-    const stored = JSON.parse(row.results) as StackResult;
+    const stored = await storedResults(s.ctx.db, stackId);
     const governing = stored.lifts.find((l) => l.liftId === stored.governingLiftId)!;
     expect(p.governingLiftId).toBe(governing.liftId);
     expect(p.governingLiftLabel).toMatch(/^L\d+$/);

@@ -14,7 +14,7 @@ import {
 import { analyse, analysisInputs } from '../../server/services/analysis.ts';
 import { loadStackRow, placeOf } from '../../server/services/stackRows.ts';
 import { createLevels, errorCode, startWithLeadAndBuilding, type TestServer } from './helpers.ts';
-import { connect, next, request } from './liveHelpers.ts';
+import { connect, nextStackSummary, request } from './liveHelpers.ts';
 import { smallGrid } from '../engine/building-model-fixtures.ts';
 
 // Invented grid: x lines A 0, B 6, C 13.5 m; y lines 1 0, 2 7.5 m; no slab beyond the lines.
@@ -159,7 +159,7 @@ describe('typical columns over the API', () => {
     const live = await connect(s.url, token);
     try {
       expect((await request(live, 'building:join', { buildingId })).ok).toBe(true);
-      const heard = next(live, 'building:stack-changed', (p) => p.stackId === typical.id);
+      const heard = nextStackSummary(live, (p) => p.stackId === typical.id);
       const r = await s.api('PUT', `/buildings/${buildingId}/levels/${levels[1]!.id}/floor-load`, {
         token,
         body: { buildupId: null },

@@ -2,7 +2,16 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type { StackDetail, StackSummary } from '../../shared/schema/api.ts';
 import type { StackDocument } from '../../shared/schema/stack.ts';
 import { migrationSource } from '../../migrations/index.ts';
-import { addMember, errorCode, registerUser, startWithLeadAndBuilding, type TestServer } from './helpers.ts';
+import { sweepResults } from '../../server/services/stackRows.ts';
+import {
+  addMember,
+  errorCode,
+  registerUser,
+  replaceStoredResults,
+  startWithLeadAndBuilding,
+  storedResults,
+  type TestServer,
+} from './helpers.ts';
 
 const template = {
   storeys: 4,
@@ -63,6 +72,9 @@ describe('stacks', () => {
 
   it('fills the governing lift label of stacks stored before the column existed when migrating up', async () => {
     const sum = await create({ name: 'M/1', template });
+    // Stacks stored then held their results as JSON text (results are packed since 202612040750).
+    for (const { id } of await s.ctx.db('stacks').select<{ id: number }[]>('id'))
+      await replaceStoredResults(s.ctx.db, id, await storedResults(s.ctx.db, id), 'text');
     // By name: later migrations must stay in place.
     const migrationConfig = { migrationSource, name: '202612020900_add_stack_governing_label' };
     await s.ctx.db.migrate.down(migrationConfig);
@@ -95,18 +107,58 @@ describe('stacks', () => {
     expect(r.status).toBe(422);
   });
 
-  it('serves stored results on read without recomputing them', async () => {
+  it('serves stored results on read without recomputing them, packed or as text stored before', async () => {
     const sum = await create({ name: 'R/1', template });
-    const stored = JSON.parse(
-      (await s.ctx.db('stacks').where({ id: sum.id }).first<{ results: string }>('results')).results,
-    ) as StackDetail['results'];
+    const row = await s.ctx.db('stacks').where({ id: sum.id }).first<{ results: string; results_hash: string }>();
+    // New versions are stored packed, by the digest of their JSON (docs/contracts.md §Stored results).
+    expect(row.results).toBe('');
+    expect(row.results_hash).toMatch(/^[0-9a-f]{64}$/);
+    const stored = await storedResults(s.ctx.db, sum.id);
     // A marker only the stored copy can carry: were the read to recompute, it would vanish.
     stored.warnings.push({ message: 'stored-marker' });
-    await s.ctx
-      .db('stacks')
-      .where({ id: sum.id })
-      .update({ results: JSON.stringify(stored) });
+    await replaceStoredResults(s.ctx.db, sum.id, stored);
     expect((await get(sum.id)).results.warnings.map((w) => w.message)).toContain('stored-marker');
+    // A row stored before results were packed holds JSON text and names no packed results: read as it is.
+    stored.warnings.push({ message: 'text-marker' });
+    await replaceStoredResults(s.ctx.db, sum.id, stored, 'text');
+    expect((await get(sum.id)).results.warnings.map((w) => w.message)).toContain('text-marker');
+  });
+
+  it('stores the same results once, and removes results no stack names an hour after they were last taken', async () => {
+    // Two stacks from one template with the same loads: the engine gives the same results, stored once.
+    const [a, b] = [await create({ name: 'D/1', template }), await create({ name: 'D/2', template })];
+    const refs = await s.ctx
+      .db('stacks')
+      .whereIn('id', [a.id, b.id])
+      .orderBy('id')
+      .select<{ results_hash: string }[]>('results_hash');
+    expect(refs[0].results_hash).toBe(refs[1].results_hash);
+    const held = () => s.ctx.db('stack_results').where({ hash: refs[0].results_hash }).first();
+    expect(await held()).toBeDefined();
+    // Once D/1 changes and D/2 is deleted, no stack names them; the sweep keeps them an hour (docs/contracts.md).
+    const lift = (await get(a.id)).doc.nodes.find((n) => n.kind === 'lift')!;
+    const edited = await s.api('POST', `/stacks/${a.id}/ops`, {
+      token,
+      body: { baseVersion: 0, ops: [{ op: 'updateNode', id: lift.id, data: { section: 'UKC 254x254x73' } }] },
+    });
+    expect(edited.status).toBe(200);
+    expect((await s.api('DELETE', `/stacks/${b.id}`, { token })).status).toBe(204);
+    expect(await sweepResults(s.ctx.db)).toBe(0);
+    expect(await held()).toBeDefined();
+    const later = Date.now() + 61 * 60 * 1000;
+    expect(await sweepResults(s.ctx.db, later)).toBeGreaterThanOrEqual(1);
+    expect(await held()).toBeUndefined();
+    // Every stack still reads its results: the sweep took only what nobody names.
+    expect((await get(a.id)).results.lifts[0].section).toBe('UKC 254x254x73');
+    const named = await s.ctx.db('stacks').whereNotNull('results_hash').select<{ id: number }[]>('id');
+    for (const { id } of named) expect((await get(id)).results.lifts.length).toBeGreaterThanOrEqual(0);
+    const dangling = await s.ctx
+      .db('stacks')
+      .leftJoin('stack_results', 'stack_results.hash', 'stacks.results_hash')
+      .whereNotNull('stacks.results_hash')
+      .whereNull('stack_results.hash')
+      .count<{ n: number }[]>({ n: '*' });
+    expect(Number(dangling[0].n)).toBe(0);
   });
 
   it('writes a whole document with PUT on the current version, and refuses a stale one with 409', async () => {

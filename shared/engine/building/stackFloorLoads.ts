@@ -144,3 +144,23 @@ export function stackFloorLoads(
   }
   return out;
 }
+
+/**
+ * A key for the floor loads of a column at `placement`: two places with the same key get the same loads from
+ * `stackFloorLoads` (tests/engine/building-model.test.ts checks this over whole grids). It names all that function
+ * reads of the place: the tributary area from the grid, the areas set by hand under `overridesKey`, the way the
+ * web runs, and which of the place's two lines carry a line load. A building-wide re-analysis uses it to find
+ * the columns that come out the same without deriving and comparing every column's loads (docs/building-model.md).
+ */
+export function floorLoadsKey(model: BuildingModel, placement: StackPlacement, overridesKey: string | number): string {
+  const { gridX, gridY } = placement;
+  if (gridX === null || gridY === null) return 'off the grid';
+  const loaded = new Set(model.floors.flatMap((f) => f.lines.map((l) => l.gridLineId)));
+  return JSON.stringify([
+    tributaryArea(model.grid, gridX, gridY),
+    model.overrides[String(overridesKey)] ?? [],
+    placement.webAlong,
+    loaded.has(gridX) ? gridX : null,
+    loaded.has(gridY) ? gridY : null,
+  ]);
+}
