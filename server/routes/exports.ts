@@ -6,13 +6,7 @@ import { currentAccess, requireAuth } from '../middleware/auth.ts';
 import { buildingOfStack, requireRole } from '../middleware/access.ts';
 import { idParam } from '../middleware/validate.ts';
 import { safeFileName, toCsv, toXlsx } from '../services/exportsFormats.ts';
-import {
-  buildingResults,
-  RESULT_COLUMNS,
-  RESULTS_NOTE,
-  stackResults,
-  type ResultRow,
-} from '../services/exportsResults.ts';
+import { buildingResults, columnsOf, RESULTS_NOTE, stackResults, type ResultRow } from '../services/exportsResults.ts';
 import { loadsTemplateCsv } from '../services/exportsTemplate.ts';
 import { floorLoadsCsv, gridCsv } from '../services/importsModel.ts';
 
@@ -28,11 +22,12 @@ async function sendResults(
   table: { name: string; rows: ResultRow[] },
 ): Promise<void> {
   const fileName = `${safeFileName(table.name)}-results.${format}`;
-  if (format === 'csv') return sendCsv(res, fileName, toCsv(RESULT_COLUMNS, table.rows));
+  const columns = columnsOf(table.rows);
+  if (format === 'csv') return sendCsv(res, fileName, toCsv(columns, table.rows));
   res
     .attachment(fileName)
     .type(XLSX_TYPE)
-    .send(await toXlsx(table.name, RESULT_COLUMNS, table.rows, RESULTS_NOTE));
+    .send(await toXlsx(table.name, columns, table.rows, RESULTS_NOTE));
 }
 
 export function registerExportRoutes(router: Router, ctx: ServerContext): void {

@@ -1,6 +1,7 @@
 // Typical columns (docs/typical-columns.md): every member reads where a stack also stands; engineers and leads
-// add and remove its further positions.
+// add and remove its further positions and set their areas by hand.
 import type { Router } from 'express';
+import { putAreaOverridesBodySchema } from '../../shared/schema/building.ts';
 import { addStackPositionBodySchema } from '../../shared/schema/stackPositions.ts';
 import type { ServerContext } from '../context.ts';
 import { currentAccess, currentUser, requireAuth } from '../middleware/auth.ts';
@@ -10,6 +11,7 @@ import {
   addStackPosition,
   buildingPositions,
   listStackPositions,
+  putPositionAreaOverrides,
   removeStackPosition,
 } from '../services/stackPositions.ts';
 
@@ -31,5 +33,10 @@ export function registerStackPositionRoutes(router: Router, ctx: ServerContext):
   });
   router.delete('/stacks/:id/positions/:positionId', auth, stackEngineer, async (req, res) => {
     res.json(await removeStackPosition(ctx, idParam(req), idParam(req, 'positionId'), currentUser(req)));
+  });
+  router.put('/stacks/:id/positions/:positionId/area-overrides', auth, stackEngineer, async (req, res) => {
+    const { overrides } = parseBody(putAreaOverridesBodySchema, req);
+    const positionId = idParam(req, 'positionId');
+    res.json(await putPositionAreaOverrides(ctx, idParam(req), positionId, overrides, currentUser(req)));
   });
 }

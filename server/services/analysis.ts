@@ -6,7 +6,7 @@ import { floorLoadsKey, stackFloorLoads } from '../../shared/engine/building/sta
 import { positionResult, withPositionResults } from '../../shared/engine/building/typicalColumn.ts';
 import { analyseStack } from '../../shared/engine/index.ts';
 import { ENGINE_VERSION } from '../../shared/engine/version.ts';
-import type { BuildingModel, StackPlacement } from '../../shared/schema/building.ts';
+import { positionOverridesKey, type BuildingModel, type StackPlacement } from '../../shared/schema/building.ts';
 import type { AnalysisOptions, StackResult } from '../../shared/schema/results.ts';
 import type { SectionDims, StackDocument } from '../../shared/schema/stack.ts';
 import { readModel } from './buildingModelStore.ts';
@@ -30,6 +30,8 @@ export interface AnalysisInputs {
 /** A stored stack's place on the grid, for deriving its loads. */
 export interface StackPlace extends StackPlacement {
   stackId: number;
+  /** Whose areas set by hand apply here, when not the stack's own: a further position's (`positionOverridesKey`). */
+  overridesKey?: string;
 }
 
 export async function analysisInputs(db: Knex, buildingId: number): Promise<AnalysisInputs> {
@@ -49,12 +51,14 @@ export async function analysisInputs(db: Knex, buildingId: number): Promise<Anal
 
 /** What each level's floor brings into a stack on the grid; undefined for a stack off the grid. */
 export function floorLoadsOf(inputs: AnalysisInputs, place?: StackPlace) {
-  return place && place.gridX !== null ? stackFloorLoads(inputs.model, place, place.stackId) : undefined;
+  return place && place.gridX !== null
+    ? stackFloorLoads(inputs.model, place, place.overridesKey ?? place.stackId)
+    : undefined;
 }
 
 /** Places with the same key get the same floor loads from `floorLoadsOf` (`floorLoadsKey`). */
 export function floorLoadsKeyOf(inputs: AnalysisInputs, place: StackPlace): string {
-  return floorLoadsKey(inputs.model, place, place.stackId);
+  return floorLoadsKey(inputs.model, place, place.overridesKey ?? place.stackId);
 }
 
 /** The results as stored: marked with the rules that produced them, so results of older rules can be found. */
@@ -63,8 +67,8 @@ export function analyse(doc: StackDocument, inputs: AnalysisInputs, place?: Stac
 }
 
 /**
- * The further positions of a typical column on the grid, each as a place to derive floor loads for. A position
- * takes no area override (those are by stack): its key in the overrides is never a stack id.
+ * The further positions of a typical column on the grid, each as a place to derive floor loads for, with the
+ * areas set by hand for that position (under `p<position id>`, never a stack id: docs/typical-columns.md).
  */
 export function positionPlaces(inputs: AnalysisInputs, place?: StackPlace) {
   if (!place || place.gridX === null || place.gridY === null) return [];
@@ -76,6 +80,7 @@ export function positionPlaces(inputs: AnalysisInputs, place?: StackPlace) {
       gridX: p.grid_x,
       gridY: p.grid_y,
       webAlong: p.web_along === 'y' ? 'y' : 'x',
+      overridesKey: positionOverridesKey(p.id),
     } as StackPlace,
   }));
 }

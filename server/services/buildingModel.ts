@@ -1,16 +1,17 @@
-// Editing the building model (docs/building-model.md): the grid, build-ups, a level's floor load, a stack's
-// area overrides and its place on the grid. Each write is one transaction that stores the model and
+// Editing the building model (docs/building-model.md): the grid, build-ups, a level's floor load, the area
+// overrides of a stack or of one of its further positions (docs/typical-columns.md) and its place on the grid. Each write is one transaction that stores the model and
 // re-analyses every stack whose derived loads it can change; the live rooms hear after commit.
 import type { Knex } from 'knex';
 import type { User } from '../../shared/schema/api.ts';
-import type {
-  AreaOverride,
-  Buildup,
-  BuildingModel,
-  BuildingModelReply,
-  Grid,
-  Placement,
-  StackPlacement,
+import {
+  positionOverridesKey,
+  type AreaOverride,
+  type Buildup,
+  type BuildingModel,
+  type BuildingModelReply,
+  type Grid,
+  type Placement,
+  type StackPlacement,
 } from '../../shared/schema/building.ts';
 import type { StackDocument } from '../../shared/schema/stack.ts';
 import type { ServerContext } from '../context.ts';
@@ -44,7 +45,7 @@ const onGrid = (row: Pick<StackRow, 'grid_x' | 'grid_y'>) => row.grid_x !== null
 const usesLevel = (row: Pick<StackRow, 'doc'>, levelId: string) =>
   row.doc.includes(`"levelId":${JSON.stringify(levelId)}`);
 
-interface ModelChange {
+export interface ModelChange {
   version: number;
   model: BuildingModel;
   changes: CommittedChange[];
@@ -62,7 +63,8 @@ async function reanalyse(
   return storeReanalyses(trx, rows, await analysisInputs(trx, buildingId), { userId, action });
 }
 
-function broadcast(ctx: ServerContext, buildingId: number, change: ModelChange, user: User): void {
+/** After commit: the model to the building room, then each re-analysed stack as for any edit. */
+export function broadcastModelChange(ctx: ServerContext, buildingId: number, change: ModelChange, user: User): void {
   const by = { userId: user.id, name: user.name };
   try {
     ctx.broadcaster.buildingModelChanged({
@@ -188,7 +190,7 @@ export async function putGrid(
     });
     return { ...result, placements: stacks.map(toPlacement) };
   });
-  broadcast(ctx, buildingId, change, user);
+  broadcastModelChange(ctx, buildingId, change, user);
   return { ...change.model, version: change.version };
 }
 
@@ -218,7 +220,7 @@ export async function putBuildups(
       buildups: buildups.length,
     });
   });
-  broadcast(ctx, buildingId, change, user);
+  broadcastModelChange(ctx, buildingId, change, user);
   return { ...change.model, version: change.version };
 }
 
@@ -278,15 +280,21 @@ export async function putFloorLoad(
       ...input,
     });
   });
-  broadcast(ctx, buildingId, change, user);
+  broadcastModelChange(ctx, buildingId, change, user);
   return { ...change.model, version: change.version };
 }
 
+/**
+ * Areas set by hand for a stack's own place or, given `positionId`, for that further position of the stack
+ * (stored under `positionOverridesKey`, docs/typical-columns.md); an empty list takes them away. One transaction
+ * stores the model and re-analyses the stack, whose results hold every position's check.
+ */
 export async function putAreaOverrides(
   ctx: ServerContext,
   stackId: number,
   overrides: AreaOverride[],
   user: User,
+  positionId?: number,
 ): Promise<BuildingModelReply> {
   const row = await loadStackRow(ctx.db, stackId);
   const buildingId = row.building_id;
@@ -302,22 +310,49 @@ export async function putAreaOverrides(
   }
   const change = await ctx.db.transaction(async (trx) => {
     const { model, version } = await readModel(trx, buildingId, { lock: true });
-    const byStack = { ...model.overrides };
-    if (overrides.length) byStack[String(stackId)] = overrides;
-    else delete byStack[String(stackId)];
+    if (
+      positionId !== undefined &&
+      !(await trx('stack_positions').where({ id: positionId, stack_id: stackId }).first('id'))
+    )
+      throw notFound('Position');
+    const key = positionId === undefined ? String(stackId) : positionOverridesKey(positionId);
+    const byKey = { ...model.overrides };
+    if (overrides.length) byKey[key] = overrides;
+    else delete byKey[key];
     return storeAndReanalyse(
       trx,
       buildingId,
-      { ...model, overrides: byStack },
+      { ...model, overrides: byKey },
       version,
       user,
       'stack.area-overrides',
       (r) => r.id === stackId,
-      { stackId, overrides: overrides.length },
+      { stackId, ...(positionId === undefined ? {} : { positionId }), overrides: overrides.length },
     );
   });
-  broadcast(ctx, buildingId, change, user);
+  broadcastModelChange(ctx, buildingId, change, user);
   return { ...change.model, version: change.version };
+}
+
+/**
+ * Takes a removed position's areas set by hand out of the model read (locked) in the caller's transaction, with
+ * an audit row; the change to broadcast after commit, or null when the position had none.
+ */
+export async function dropPositionOverrides(
+  trx: Knex,
+  buildingId: number,
+  read: { model: BuildingModel; version: number },
+  positionId: number,
+  user: User,
+): Promise<ModelChange | null> {
+  const key = positionOverridesKey(positionId);
+  if (!(key in read.model.overrides)) return null;
+  const overrides = Object.fromEntries(Object.entries(read.model.overrides).filter(([k]) => k !== key));
+  const next: BuildingModel = { ...read.model, overrides };
+  const version = await writeModel(trx, buildingId, next, read.version);
+  const detail = { positionId, overrides: 0 };
+  await recordAudit(trx, { userId: user.id, buildingId, action: 'stack.area-overrides', version, detail });
+  return { version, model: next, changes: [] };
 }
 
 /** Puts a stack on a crossing of the grid (named after its lines) or takes it off (it keeps its name). */
@@ -379,6 +414,6 @@ export async function placeStack(
     ).map(toPlacement);
     return { version, model, changes: [committed], placements, placement: toPlacement(placed), buildingId };
   });
-  broadcast(ctx, change.buildingId, change, user);
+  broadcastModelChange(ctx, change.buildingId, change, user);
   return change.placement;
 }

@@ -1,8 +1,10 @@
 // Results as rows for download (docs/contracts.md §Imports): one row per lift, its governing piece's figures in kN
-// and m, read from the stored results of each stack's current version (never recomputed here).
+// and m, read from the stored results of each stack's current version (never recomputed here). A typical column
+// (docs/typical-columns.md) lists one set of rows per position, named in the `position` column, own place first.
 import type { Knex } from 'knex';
 import { connectionRows } from '../../shared/connectionRows.ts';
 import type { LiftResult, PieceCheck, StackResult } from '../../shared/schema/results.ts';
+import type { PositionResult } from '../../shared/schema/stackPositions.ts';
 import { loadStackRow, parseResults, stackRowsWithResults, type StackRow } from './stackRows.ts';
 
 /** README §Safety: every copy of the results carries this. */
@@ -33,8 +35,14 @@ export const RESULT_COLUMNS = [
   'tension_kN',
   'resistance_kN',
 ] as const;
-export type ResultColumn = (typeof RESULT_COLUMNS)[number];
+/** The columns of a table with typical columns in it: which position each row is of, after the stack. */
+export const POSITION_RESULT_COLUMNS = ['stack', 'position', ...RESULT_COLUMNS.slice(1)] as const;
+export type ResultColumn = (typeof POSITION_RESULT_COLUMNS)[number];
 export type ResultRow = Partial<Record<ResultColumn, string | number>>;
+
+/** A table of stacks at one place each keeps the columns it always had; one with a typical column names positions. */
+export const columnsOf = (rows: readonly ResultRow[]): readonly ResultColumn[] =>
+  rows.some((r) => r.position !== undefined) ? POSITION_RESULT_COLUMNS : RESULT_COLUMNS;
 
 const round = (n: number, places: number): number => Number(n.toFixed(places));
 const kN = (newtons: number): number => round(newtons / 1000, 2);
@@ -49,6 +57,56 @@ const governingPiece = (lift: LiftResult): PieceCheck | undefined =>
 export function stackResultRows(row: StackRow): ResultRow[] {
   const results = parseResults(row);
   const base = { stack: row.name, version: row.version };
+  const own = ownPlaceRows(results, base);
+  const [ownCheck, ...further] = results.positions ?? [];
+  if (!ownCheck) return own;
+  const governs = (p: PositionResult) => p.name === results.governingPosition;
+  return [
+    ...own.map((r) => ({
+      ...r,
+      position: `${ownCheck.name} (own place)`,
+      ...(governs(ownCheck) && r.governing_lift === 'yes' ? { note: withNote(r.note, GOVERNS) } : {}),
+    })),
+    ...further.flatMap((p) => positionRows(results, p, base, governs(p))),
+  ];
+}
+
+const GOVERNS = 'governs the type';
+const withNote = (...notes: (string | number | undefined)[]) => notes.filter(Boolean).join('; ');
+
+/**
+ * A further position's rows, from its check as the results hold it (docs/typical-columns.md): per lift the
+ * utilisation, governing check and the largest NEd in the lift at that position. Geometry, section and grade are
+ * the design's, the same at every position; splices and the base are checked at the own place only.
+ */
+function positionRows(results: StackResult, p: PositionResult, base: ResultRow, governs: boolean): ResultRow[] {
+  const at = { ...base, position: p.name };
+  if (p.errors.length > 0 || p.lifts.length === 0)
+    return [{ ...at, status: 'errors', note: p.errors.join('; ') || 'The stack has no lifts' }];
+  const design = new Map(results.lifts.map((l) => [l.liftId, l]));
+  return p.lifts.map((l) => {
+    const lift = design.get(l.liftId);
+    const governing = l.liftId === p.governingLiftId;
+    return {
+      ...at,
+      lift: l.label,
+      bottom_m: lift ? round(lift.bottom, 3) : undefined,
+      top_m: lift ? round(lift.top, 3) : undefined,
+      section: lift?.section,
+      grade: lift?.grade,
+      NEd_kN: round(l.NEd, 2),
+      utilisation: round(l.utilisation, 3),
+      governing_check: l.governing,
+      // EN 1993-1-1 6.3.1.1(1): NEd / Nb,Rd ≤ 1.0
+      status: l.utilisation <= 1 ? 'passes' : 'fails',
+      governing_lift: governing ? 'yes' : 'no',
+      note: withNote('NEd the largest in the lift', governs && governing ? GOVERNS : ''),
+    };
+  });
+}
+
+/** The rows of the stack's own place: every lift's governing piece, then its splices and base. */
+function ownPlaceRows(results: StackResult, base: ResultRow): ResultRow[] {
   if (results.errors.length > 0) {
     return [{ ...base, status: 'errors', note: results.errors.map((e) => e.message).join('; ') }];
   }

@@ -1,6 +1,6 @@
 // Reading the further positions of typical columns (docs/typical-columns.md).
 import type { Knex } from 'knex';
-import type { Grid } from '../../shared/schema/building.ts';
+import { positionOverridesKey, type BuildingModel, type Grid } from '../../shared/schema/building.ts';
 import type { StackPosition } from '../../shared/schema/stackPositions.ts';
 
 export interface PositionRow {
@@ -39,7 +39,8 @@ export async function positionsOf(db: Knex, stackId: number): Promise<PositionRo
     .select<PositionRow[]>(...COLUMNS);
 }
 
-export function toStackPosition(grid: Grid, row: PositionRow): StackPosition {
+export function toStackPosition(model: BuildingModel, row: PositionRow): StackPosition {
+  const { grid } = model;
   return {
     id: row.id,
     stackId: row.stack_id,
@@ -47,5 +48,6 @@ export function toStackPosition(grid: Grid, row: PositionRow): StackPosition {
     gridY: row.grid_y,
     webAlong: row.web_along === 'y' ? 'y' : 'x',
     name: gridRef(grid, row.grid_x, row.grid_y) ?? `${row.grid_x}/${row.grid_y}`,
+    overrides: model.overrides[positionOverridesKey(row.id)] ?? [],
   };
 }

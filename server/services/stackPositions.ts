@@ -1,8 +1,10 @@
-// Typical columns (docs/typical-columns.md): the further crossings a stack stands at. Adding or removing one is
-// one transaction that stores it and re-analyses the stack at every position as a new version; the live
-// rooms hear after commit as for any edit.
+// Typical columns (docs/typical-columns.md): the further crossings a stack stands at and their areas set by hand.
+// Adding or removing one is one transaction that stores it and re-analyses the stack at every position as a new
+// version; the live rooms hear after commit as for any edit. A position's areas set by hand are written as a
+// stack's are (`putAreaOverrides`).
 import type { Knex } from 'knex';
 import type { User } from '../../shared/schema/api.ts';
+import type { AreaOverride } from '../../shared/schema/building.ts';
 import type {
   AddStackPositionBody,
   BuildingPositionsReply,
@@ -13,6 +15,7 @@ import { onUniqueViolation } from '../dbErrors.ts';
 import { now } from '../db.ts';
 import { conflict, notFound, unprocessable } from '../errors.ts';
 import { analysisInputs } from './analysis.ts';
+import { broadcastModelChange, dropPositionOverrides, putAreaOverrides } from './buildingModel.ts';
 import { readModel } from './buildingModelStore.ts';
 import { broadcastChange, commitDoc, type CommittedChange } from './stackOps.ts';
 import { positionsOf, toStackPosition } from './stackPositionRows.ts';
@@ -27,7 +30,7 @@ async function reply(db: Knex, row: Pick<StackRow, 'id' | 'building_id' | 'versi
   const out: StackPositionsReply = {
     stackId: row.id,
     version: row.version,
-    positions: (await positionsOf(db, row.id)).map((p) => toStackPosition(model.grid, p)),
+    positions: (await positionsOf(db, row.id)).map((p) => toStackPosition(model, p)),
     results: results.positions ?? [],
     governingPosition: results.governingPosition ?? null,
   };
@@ -89,13 +92,34 @@ export async function removeStackPosition(
   positionId: number,
   user: User,
 ): Promise<StackPositionsReply> {
-  const committed = await ctx.db.transaction(async (trx) => {
+  const { committed, dropped, buildingId } = await ctx.db.transaction(async (trx) => {
+    const stack = await trx('stacks').where({ id: stackId }).first<{ building_id: number } | undefined>('building_id');
+    if (!stack) throw notFound('Stack');
+    // The model before the stack row, in the order every write of the model locks them (docs/typical-columns.md).
+    const read = await readModel(trx, stack.building_id, { lock: true });
     const row = await loadStackRow(trx, stackId, { lock: true });
     const removed = await trx('stack_positions').where({ id: positionId, stack_id: stackId }).delete();
     if (removed === 0) throw notFound('Position');
-    return reanalyse(trx, row, user, 'stack.position-remove');
+    return {
+      dropped: await dropPositionOverrides(trx, row.building_id, read, positionId, user),
+      committed: await reanalyse(trx, row, user, 'stack.position-remove'),
+      buildingId: row.building_id,
+    };
   });
+  if (dropped) broadcastModelChange(ctx, buildingId, dropped, user);
   return afterCommit(ctx, committed, user);
+}
+
+/** A further position's areas set by hand (voids, openings, cores); an empty list gives it the grid's areas again. */
+export async function putPositionAreaOverrides(
+  ctx: ServerContext,
+  stackId: number,
+  positionId: number,
+  overrides: AreaOverride[],
+  user: User,
+): Promise<StackPositionsReply> {
+  await putAreaOverrides(ctx, stackId, overrides, user, positionId);
+  return listStackPositions(ctx.db, stackId);
 }
 
 /** Every typical column of a building with each position's check, for the plan view. */

@@ -139,12 +139,21 @@ export const stackPlacementSchema = z
   );
 export type StackPlacement = z.infer<typeof stackPlacementSchema>;
 
+/**
+ * The key of a further position's areas set by hand in `BuildingModel.overrides` (docs/typical-columns.md):
+ * `p` and the position id, which no stack id (digits alone) can ever be.
+ */
+export const positionOverridesKey = (positionId: number): string => `p${positionId}`;
+
+/** A key of `BuildingModel.overrides`: a stack id, or `p` and a position id. */
+export const overridesKeySchema = z.string().regex(/^p?[1-9][0-9]{0,15}$/, 'must be a stack id or p and a position id');
+
 /** The whole model of a building, as the analysis and a frozen revision hold it. */
 export interface BuildingModel {
   grid: Grid;
   buildups: Buildup[];
   floors: FloorLoad[];
-  /** By stack id (as a string). */
+  /** By stack id (as a string), and by `p<position id>` for a further position of a typical column. */
   overrides: Record<string, AreaOverride[]>;
 }
 export const EMPTY_MODEL: BuildingModel = { grid: EMPTY_GRID, buildups: [], floors: [], overrides: {} };
@@ -154,7 +163,7 @@ export const buildingModelSchema = z
     grid: gridSchema,
     buildups: z.array(buildupSchema).max(100),
     floors: z.array(floorLoadSchema).max(500),
-    overrides: z.record(z.string(), z.array(areaOverrideSchema).max(500)),
+    overrides: z.record(overridesKeySchema, z.array(areaOverrideSchema).max(500)),
   })
   .strict();
 

@@ -1,6 +1,7 @@
 // Typical columns (docs/typical-columns.md): one stack's design standing at further crossings of the grid,
 // each with its own floor loads. What the routes take and give, and what the results carry per position.
 import { z } from 'zod';
+import { areaOverrideSchema } from './building.ts';
 
 const gridLineId = z
   .string()
@@ -54,10 +55,12 @@ export const stackPositionSchema = z.object({
   gridY: z.string(),
   webAlong: z.enum(['x', 'y']),
   name: z.string(),
+  /** The position's areas set by hand (voids, openings, cores), by level; none for the grid's areas everywhere. */
+  overrides: z.array(areaOverrideSchema),
 });
 export type StackPosition = z.infer<typeof stackPositionSchema>;
 
-/** GET/POST/DELETE /api/stacks/:id/positions: the further positions and, when analysed, every position's result. */
+/** GET/POST/DELETE /api/stacks/:id/positions and PUT …/:positionId/area-overrides: the further positions and, when analysed, every position's result. */
 export const stackPositionsReplySchema = z.object({
   stackId: z.number().int(),
   version: z.number().int(),

@@ -6,6 +6,9 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type { AuthResponse, StackSummary } from '../../shared/schema/api.ts';
 import { download, getStack, seedBuilding } from '../fixtures/uploads.ts';
 import { addMember, createBuilding, registerUser, startTestServer, type TestServer } from './helpers.ts';
+import { typicalColumnBuilding } from './typicalColumnFixture.ts';
+import { stackResultRows } from '../../server/services/exportsResults.ts';
+import { loadStackRow, parseResults } from '../../server/services/stackRows.ts';
 
 let s: TestServer;
 let lead: AuthResponse;
@@ -115,6 +118,96 @@ describe('results as CSV', () => {
     expect(broken).toHaveLength(1);
     expect(broken[0]).toMatchObject({ status: 'errors', lift: '' });
     expect(broken[0]!.note).not.toBe('');
+  });
+});
+
+describe('a typical column (docs/typical-columns.md)', () => {
+  let typicalId: number;
+  let singleId: number;
+  let typicalBuildingId: number;
+
+  beforeAll(async () => {
+    typicalBuildingId = (await createBuilding(s, lead.token, 'Typical block')).id;
+    await addMember(s, lead.token, typicalBuildingId, viewer.user.email, 'viewer');
+    const { stacks: made } = await typicalColumnBuilding(s, lead.token, typicalBuildingId, ['S1', 'S2']);
+    [typicalId, singleId] = made.map((x) => x.id) as [number, number];
+    const place = (id: number, gridX: string, gridY: string) =>
+      s.api('PUT', `/stacks/${id}/placement`, { token: lead.token, body: { gridX, gridY } });
+    expect((await place(typicalId, 'A', 'y1')).status).toBe(200);
+    expect((await place(singleId, 'C', 'y1')).status).toBe(200);
+    const added = await s.api('POST', `/stacks/${typicalId}/positions`, {
+      token: lead.token,
+      body: { gridX: 'B', gridY: 'y2' },
+    });
+    expect(added.status).toBe(201);
+  });
+
+  it('lists one set of rows per position, own place first, each named in the position column', async () => {
+    const r = await download(s, `/stacks/${typicalId}/results.csv`, viewer.token);
+    expect(r.status).toBe(200);
+    expect(r.bytes.toString('utf8').split('\r\n')[0]).toBe(HEADER.replace('stack,', 'stack,position,'));
+    const rows = readCsv(r.bytes);
+    expect([...new Set(rows.map((x) => x.position))]).toEqual(['A/1 (own place)', 'B/2']);
+    const stored = await getStack(s, viewer.token, typicalId);
+    const [own, b2] = stored.results.positions!;
+
+    // The own place: its full rows as a stack at one place has them, splices and base included.
+    const ownRows = rows.filter((x) => x.position === 'A/1 (own place)');
+    expect(ownRows.filter((x) => !isConnection(x)).map((x) => [x.lift, Number(x.utilisation)])).toEqual(
+      own!.lifts.map((l) => [l.label, Number(l.utilisation.toFixed(3))]),
+    );
+    expect(ownRows.filter(isConnection).length).toBeGreaterThan(0);
+    expect(ownRows.every((x) => x.Nc_Rd_kN !== '' || isConnection(x))).toBe(true);
+
+    // B/2: per lift the utilisation, governing check and NEd its check holds, the design's section and grade.
+    const atB2 = rows.filter((x) => x.position === 'B/2');
+    expect(atB2.map((x) => [x.lift, Number(x.utilisation), Number(x.NEd_kN), x.governing_check])).toEqual(
+      b2!.lifts.map((l) => [l.label, Number(l.utilisation.toFixed(3)), Number(l.NEd.toFixed(2)), l.governing]),
+    );
+    expect(atB2.map((x) => x.section)).toEqual(stored.results.lifts.map((l) => l.section));
+    expect(atB2.filter((x) => x.governing_lift === 'yes').map((x) => x.lift)).toEqual([b2!.governingLiftLabel]);
+    // B/2 carries the larger tributary area (25.3125 m² a level against 11.25 m² at A/1) and governs the type.
+    expect(stored.results.governingPosition).toBe('B/2');
+    expect(rows.filter((x) => x.note.includes('governs the type')).map((x) => [x.position, x.lift])).toEqual([
+      ['B/2', b2!.governingLiftLabel],
+    ]);
+    expect(Number(atB2.find((x) => x.governing_lift === 'yes')!.utilisation)).toBe(Number(b2!.utilisation!.toFixed(3)));
+  });
+
+  it('lists a position the design cannot be checked at as one row with its errors', async () => {
+    const row = await loadStackRow(s.ctx.db, typicalId);
+    const results = parseResults(row);
+    const [own, b2] = results.positions!;
+    const broken = { ...b2!, utilisation: null, status: 'errors' as const, errors: ['No lift above the position'] };
+    const rows = stackResultRows({
+      ...row,
+      results: JSON.stringify({ ...results, positions: [own, broken] }),
+      results_packed: null,
+    });
+    expect(rows.filter((x) => x.position === 'B/2')).toEqual([
+      { stack: 'A/1', version: row.version, position: 'B/2', status: 'errors', note: 'No lift above the position' },
+    ]);
+  });
+
+  it('keeps the columns of a stack at one place, and names positions in the building download and workbook', async () => {
+    const single = await download(s, `/stacks/${singleId}/results.csv`, viewer.token);
+    expect(single.bytes.toString('utf8').split('\r\n')[0]).toBe(HEADER);
+    const [x, c] = await Promise.all([
+      download(s, `/buildings/${typicalBuildingId}/results.xlsx`, viewer.token),
+      download(s, `/buildings/${typicalBuildingId}/results.csv`, viewer.token),
+    ]);
+    const rows = readCsv(c.bytes);
+    // A stack on the grid is named after its own place.
+    expect([...new Set(rows.map((r) => `${r.stack} ${r.position}`))]).toEqual([
+      'A/1 A/1 (own place)',
+      'A/1 B/2',
+      'C/1 ',
+    ]);
+    const book = new ExcelJS.Workbook();
+    await book.xlsx.load(x.bytes as unknown as ArrayBuffer);
+    const header = (book.worksheets[0]!.getRow(1).values as unknown[]).slice(1);
+    expect(header.slice(0, 3)).toEqual(['stack', 'position', 'version']);
+    expect(book.worksheets[0]!.rowCount).toBe(1 + rows.length);
   });
 });
 

@@ -454,6 +454,20 @@ describe('malformed input on every writing route', () => {
       ],
     },
     {
+      name: 'PUT /api/stacks/:id/positions/:positionId/area-overrides',
+      method: 'PUT',
+      path: () => `/stacks/${ids.stack}/positions/1/area-overrides`,
+      cases: () => [
+        ['a position id that is not a number', { path: `/stacks/${ids.stack}/positions/one/area-overrides` }],
+        ['a position the stack does not have', { body: { overrides: [] } }],
+        [
+          'an area and a factor',
+          { body: { overrides: [{ levelId: ids.level, area: 10, factor: 0.5, reason: 'Void' }] } },
+        ],
+        ['no reason', { body: { overrides: [{ levelId: ids.level, factor: 0.5, reason: ' ' }] } }],
+      ],
+    },
+    {
       name: 'PUT /api/stacks/:id/area-overrides',
       method: 'PUT',
       path: () => `/stacks/${ids.stack}/area-overrides`,

@@ -116,6 +116,12 @@ const MATRIX: Record<string, Case> = {
     prepare: (s, lead, f) => typicalColumn(s, lead, f, true),
     expect: edit(200),
   },
+  'PUT /api/stacks/:id/positions/:positionId/area-overrides': {
+    path: (f) => `/stacks/${f.stackId}/positions/${f.positionId}/area-overrides`,
+    body: () => ({ overrides: [] }),
+    prepare: (s, lead, f) => typicalColumn(s, lead, f, true),
+    expect: edit(200),
+  },
   'GET /api/health': { path: () => '/health', expect: all(200) },
   'POST /api/auth/register': {
     path: () => '/auth/register',

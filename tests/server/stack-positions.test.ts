@@ -13,25 +13,9 @@ import {
 } from '../../shared/schema/stackPositions.ts';
 import { analyse, analysisInputs } from '../../server/services/analysis.ts';
 import { loadStackRow, placeOf } from '../../server/services/stackRows.ts';
-import { createLevels, errorCode, startWithLeadAndBuilding, type TestServer } from './helpers.ts';
+import { errorCode, startWithLeadAndBuilding, type TestServer } from './helpers.ts';
 import { connect, nextStackSummary, request } from './liveHelpers.ts';
-import { smallGrid } from '../engine/building-model-fixtures.ts';
-
-// Invented grid: x lines A 0, B 6, C 13.5 m; y lines 1 0, 2 7.5 m; no slab beyond the lines.
-const GRID = smallGrid();
-const OFFICE = {
-  id: 'office',
-  name: 'Office',
-  permanent: [{ label: 'Slab', gk: 5 }],
-  imposed: { qk: 2.5, category: 'B' },
-};
-const ROOF = { id: 'roof', name: 'Roof', permanent: [{ label: 'Roof', gk: 4 }], imposed: { qk: 0.6, category: 'H' } };
-
-// Hand figures (half the bay each side, no slab beyond the lines):
-// A/1 carries (0 + 6/2)(0 + 7.5/2) = 3 × 3.75 = 11.25 m² per level;
-// B/2 carries (6/2 + 7.5/2)(7.5/2 + 0) = 6.75 × 3.75 = 25.3125 m² per level.
-const A1 = 11.25;
-const B2 = 25.3125;
+import { A1, B2, GRID, OFFICE, ROOF, typicalColumnBuilding } from './typicalColumnFixture.ts';
 
 describe('typical columns over the API', () => {
   let s: TestServer;
@@ -44,26 +28,9 @@ describe('typical columns over the API', () => {
 
   beforeAll(async () => {
     ({ s, token, buildingId } = await startWithLeadAndBuilding('Typical'));
-    levels = await createLevels(s, token, buildingId, [
-      ['Ground', 0],
-      ['First', 4],
-      ['Second', 8],
-      ['Roof', 12],
-    ]);
-    const template = { elevations: [0, 4, 8, 12], sections: ['UKC 203x203x46'], Gk: 100, Qk: 50 };
-    const create = async (name: string) =>
-      (await s.api('POST', `/buildings/${buildingId}/stacks`, { token, body: { name, template } }))
-        .body as StackSummary;
-    typical = await create('S1');
-    other = await create('S2');
-    loose = await create('S3');
-    await s.api('PUT', `/buildings/${buildingId}/grid`, { token, body: { grid: GRID } });
-    await s.api('PUT', `/buildings/${buildingId}/buildups`, { token, body: { buildups: [OFFICE, ROOF] } });
-    for (const level of levels.slice(1))
-      await s.api('PUT', `/buildings/${buildingId}/levels/${level.id}/floor-load`, {
-        token,
-        body: { buildupId: level.name === 'Roof' ? 'roof' : 'office' },
-      });
+    let stacks: StackSummary[];
+    ({ levels, stacks } = await typicalColumnBuilding(s, token, buildingId, ['S1', 'S2', 'S3']));
+    [typical, other, loose] = stacks as [StackSummary, StackSummary, StackSummary];
     await s.api('PUT', `/stacks/${typical.id}/placement`, { token, body: { gridX: 'A', gridY: 'y1' } });
     await s.api('PUT', `/stacks/${other.id}/placement`, { token, body: { gridX: 'C', gridY: 'y1' } });
   });
@@ -83,7 +50,15 @@ describe('typical columns over the API', () => {
     expect(r.status).toBe(201);
     const reply = stackPositionsReplySchema.parse(r.body);
     expect(reply.positions).toEqual([
-      { id: expect.any(Number), stackId: typical.id, gridX: 'B', gridY: 'y2', webAlong: 'x', name: 'B/2' },
+      {
+        id: expect.any(Number),
+        stackId: typical.id,
+        gridX: 'B',
+        gridY: 'y2',
+        webAlong: 'x',
+        name: 'B/2',
+        overrides: [],
+      },
     ]);
     expect(reply.results.map((p) => [p.name, p.positionId])).toEqual([
       ['A/1', null],
