@@ -1,13 +1,14 @@
 // The sign-in and registration forms: check the fields with the API's own schema, send, and on
 // success go on to the page that was asked for. One concern: the life of an account form.
-import { computed, ref } from 'vue';
+import { computed, reactive, ref } from 'vue';
 import { useRoute, useRouter } from 'vue-router';
 import type { ZodType } from 'zod';
 import { describeError } from '@/stores/notify.ts';
 import { fieldErrors, type FieldInfo } from '@/utils/formErrors.ts';
 import { redirectTarget } from '@/router/redirect.ts';
 
-/** after: 'redirect' goes on to the page asked for; 'stay' leaves the page to show what happened. */
+/** labels: the form's fields (each starts empty in `values`) and how an error names them.
+ *  after: 'redirect' goes on to the page asked for; 'stay' leaves the page to show what happened. */
 export function useAccountForm<T>(
   schema: ZodType<T>,
   labels: Record<string, FieldInfo>,
@@ -19,8 +20,9 @@ export function useAccountForm<T>(
   const errors = ref<Record<string, string>>({});
   const failure = ref('');
   const busy = ref(false);
+  const values = reactive<Record<string, string>>(Object.fromEntries(Object.keys(labels).map((k) => [k, ''])));
 
-  async function submit(values: Record<string, string>): Promise<void> {
+  async function submit(): Promise<void> {
     failure.value = '';
     const parsed = schema.safeParse(values);
     if (!parsed.success) {
@@ -41,5 +43,5 @@ export function useAccountForm<T>(
 
   /** The page's query (the redirect), carried over to the other account form's link. */
   const query = computed(() => route.query);
-  return { errors, failure, busy, submit, query };
+  return { values, errors, failure, busy, submit, query };
 }
