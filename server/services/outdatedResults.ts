@@ -9,13 +9,14 @@ import type { ServerContext } from '../context.ts';
 import { HttpError } from '../errors.ts';
 import { analysisInputs } from './analysis.ts';
 import { broadcastChanges, commitDoc, type CommittedChange } from './stackOps.ts';
-import { parseDoc, parseResults, stackRowsWithResults, type StackRow } from './stackRows.ts';
+import { parseDoc, storedEngineVersion, type StackRow } from './stackRows.ts';
 
 /** Returns how many stacks were analysed again. */
 export async function reanalyseOutdated(ctx: ServerContext, buildingId: number, user: User): Promise<number> {
   const changes = await ctx.db.transaction(async (trx) => {
-    const rows = await stackRowsWithResults(trx).where({ building_id: buildingId });
-    const outdated = rows.filter((r) => parseResults(r).engineVersion !== ENGINE_VERSION);
+    // Packed results name their engine version in the row: only rows stored before are opened.
+    const rows = await trx<StackRow>('stacks').where({ building_id: buildingId });
+    const outdated = rows.filter((r) => storedEngineVersion(r) !== ENGINE_VERSION);
     const done: CommittedChange[] = [];
     if (outdated.length === 0) return done;
     const inputs = await analysisInputs(trx, buildingId);
@@ -58,8 +59,8 @@ export async function reanalyseOutdatedOnStart(db: Knex): Promise<number> {
   for (const { id, building_id: buildingId } of rows) {
     try {
       await db.transaction(async (trx) => {
-        const row = await stackRowsWithResults(trx).where('stacks.id', id).first();
-        if (!row || parseResults(row).engineVersion === ENGINE_VERSION) return;
+        const row = await trx<StackRow>('stacks').where({ id }).first();
+        if (!row || storedEngineVersion(row) === ENGINE_VERSION) return;
         const change = {
           doc: parseDoc(row.doc),
           ops: [],

@@ -91,6 +91,14 @@ export function parseResults(row: StoredResults): StackResult {
   return JSON.parse(text) as StackResult;
 }
 
+/** The rules a row's results came from: named in the row where they are packed; read from the text before. */
+export function storedEngineVersion(
+  row: Pick<StackRow, 'results' | 'results_hash' | 'engine_version'>,
+): string | undefined {
+  if (row.results_hash !== null) return row.engine_version ?? undefined;
+  return parseResults({ results: row.results, results_packed: null }).engineVersion;
+}
+
 /** One version's results ready to store: packed, and named by the SHA-256 of their JSON. */
 export interface PackedResults {
   hash: string;
