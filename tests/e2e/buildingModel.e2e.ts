@@ -128,5 +128,20 @@ describeInBrowser('grid, floor loads and the plan view', () => {
     expect(await second.getAttribute('data-band')).toBe('over');
     expect(await lead.locator('[data-test^="plan-stack-"][data-governs="yes"]').count()).toBe(1);
     await screenshot(lead, 'plan-view-typical-column');
+
+    // A stair void at A/1 on Level 1: half the grid's area there (9 m² → 4.5 m², hand figure), B/2 keeps its own
+    const ownRow = engineer.locator('[data-test="position-row-A/1"]');
+    await expect.poll(() => ownRow.textContent(), { timeout: 10_000, interval: 100 }).toContain('9.00');
+    await engineer.locator('[data-test="position-areas-A/1"]').click();
+    await engineer.locator('[data-test="area-override-add"]').click();
+    await pickOption(engineer, 'area-override-level', 'Level 1');
+    await engineer.locator('input[data-test="area-override-value"]').fill('0.5');
+    await engineer.locator('input[data-test="area-override-reason"]').fill('Stair void');
+    await engineer.locator('[data-test="area-override-save"]').click();
+    await engineer.getByText('Areas saved; the stack is checked with them').waitFor();
+    await expect.poll(() => ownRow.textContent(), { timeout: 10_000, interval: 100 }).toContain('4.50');
+    expect(await engineer.locator('[data-test="position-overrides-A/1"]').textContent()).toContain('1 level');
+    expect(await engineer.locator('[data-test="position-row-B/2"]').textContent()).toContain('9.00');
+    await screenshot(engineer, 'stack-own-place-void');
   });
 });
