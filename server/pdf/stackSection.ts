@@ -11,7 +11,7 @@ import { governingShort, metres, ratio, liftName } from './format.ts';
 import { COLOUR, CONTENT_BOTTOM, FONT, FULL_WIDTH, MARGIN, SIZE, utilisationColour } from './layout.ts';
 import { drawMemberChecks } from './memberWorking.ts';
 import type { Pdf } from './pdf.ts';
-import { heading } from './summary.ts';
+import { heading, note } from './summary.ts';
 import { drawTable, type Column } from './table.ts';
 import { drawTakeDown } from './takeDownTable.ts';
 import { hasCombined } from './utilisations.ts';
@@ -42,7 +42,11 @@ function typicalLine(stack: SnapshotStack): string | null {
   const each = positions
     .map((p) => `${p.name} ${ratio(p.utilisation)}${p.name === stack.results.governingPosition ? ' (governs)' : ''}`)
     .join(' · ');
-  return `Typical column at ${positions.length} positions, each checked with its own floor loads: ${each}. The summary above is that of the governing position; the lifts, take-down and working below are those of ${own?.name ?? 'its own place'}.`;
+  const ownName = own?.name ?? 'its own place';
+  const then = stack.governingWorking
+    ? `; the take-down and working at ${stack.governingWorking.position}, which governs, follow them`
+    : '';
+  return `Typical column at ${positions.length} positions, each checked with its own floor loads: ${each}. The summary above is that of the governing position; the lifts, take-down and working below are those of ${ownName}${then}.`;
 }
 
 export function drawStackSection(
@@ -104,4 +108,28 @@ export function drawStackSection(
   heading(doc, 'Member checks', 11);
   drawMemberChecks(doc, stack);
   drawConnectionChecks(doc, stack);
+  if (stack.governingWorking) drawGoverningPosition(doc, stack, stack.governingWorking, levels);
+}
+
+/** A typical column governed by a further position: that position's take-down and working (docs/typical-columns.md). */
+function drawGoverningPosition(
+  doc: Pdf,
+  stack: SnapshotStack,
+  governing: NonNullable<SnapshotStack['governingWorking']>,
+  levels: Level[],
+): void {
+  const there: SnapshotStack = { ...stack, results: governing.results };
+  doc.addPage();
+  doc.y = MARGIN.top;
+  heading(doc, `Stack ${stack.name} at ${governing.position}, the position that governs the type`, 11);
+  note(
+    doc,
+    `The same lifts, splices, sections and fixities, checked with the floor loads of the tributary area at ${governing.position}.`,
+  );
+  doc.y += 8;
+  drawTakeDown(doc, there, levels);
+  doc.y += 10;
+  heading(doc, `Member checks at ${governing.position}`, 11);
+  drawMemberChecks(doc, there);
+  drawConnectionChecks(doc, there);
 }

@@ -22,7 +22,7 @@ import { recordAudit } from './audit.ts';
 import { listRecipients } from './revisionsRecipients.ts';
 import { queueIssue } from './revisionIssue.ts';
 import { loadSignOff, recordStep, reviewSummaries } from './reviews.ts';
-import { sha256Hex, snapshotStacks, takeSnapshot } from './snapshot.ts';
+import { addGoverningWorking, sha256Hex, snapshotStacks, takeSnapshot } from './snapshot.ts';
 
 export interface RevisionRow {
   id: number;
@@ -227,6 +227,7 @@ async function freezeIn(
         })),
       } satisfies FreezeRefusal);
     }
+    await addGoverningWorking(trx, buildingId, stacks);
     const code = await nextCode(trx, buildingId, input.purpose);
     const frozenAt = now();
     const acknowledgement = failing.length > 0 ? acknowledgementText(failing, user) : null;

@@ -7,6 +7,7 @@ import type { RevisionSnapshot, SnapshotStack } from '../../shared/schema/revisi
 import { getBuildingOptions } from './buildings.ts';
 import { listLevels } from './levels.ts';
 import type { SectionDims } from '../../shared/schema/stack.ts';
+import { analyseWithLoads, analysisInputs, floorLoadsOf, positionPlaces } from './analysis.ts';
 import { readModel } from './buildingModelStore.ts';
 import { companySectionMap } from './companySections.ts';
 import { joinResults, parseDoc, parseResults, placeOf, STORED_RESULTS, type StackRow } from './stackRows.ts';
@@ -52,6 +53,28 @@ export async function snapshotStacks(db: Knex, buildingId: number): Promise<Snap
       return stack;
     })
     .sort(byStackName);
+}
+
+/**
+ * Adds to each typical column whose check a further position governs the full results at that position, analysed
+ * with the same inputs as its stored results (the engine is a pure function of them), so the package can print
+ * the working that governs the type, not only the own place's (docs/typical-columns.md).
+ */
+export async function addGoverningWorking(db: Knex, buildingId: number, stacks: SnapshotStack[]): Promise<void> {
+  const governedElsewhere = stacks.filter((s) =>
+    s.results.positions?.some((p) => p.positionId !== null && p.name === s.results.governingPosition),
+  );
+  if (governedElsewhere.length === 0) return;
+  const inputs = await analysisInputs(db, buildingId);
+  for (const stack of governedElsewhere) {
+    const place = { stackId: stack.id, gridX: null, gridY: null, webAlong: 'x' as const, ...stack.placement };
+    const at = positionPlaces(inputs, place).find((p) => p.name === stack.results.governingPosition);
+    if (!at) continue;
+    stack.governingWorking = {
+      position: at.name,
+      results: analyseWithLoads(stack.doc, inputs, floorLoadsOf(inputs, at.place)),
+    };
+  }
 }
 
 function usedOwnSections(stacks: SnapshotStack[], own: Map<string, SectionDims>): Record<string, SectionDims> {

@@ -47,6 +47,11 @@ export interface SnapshotStack {
   results: StackResult;
   /** Where the stack stood on the grid, for a stack whose loads came from the floors (docs/building-model.md). */
   placement?: StackPlacement;
+  /**
+   * A typical column whose check a further position governs: the full results at that position (its take-down
+   * and the working of every lift), which the package prints after the own place's (docs/typical-columns.md).
+   */
+  governingWorking?: { position: string; results: StackResult };
 }
 
 /** Everything a revision freezes. Its canonical JSON (sorted keys) is what the hash covers. */

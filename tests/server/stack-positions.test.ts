@@ -2,6 +2,7 @@
 // there with that position's own floor loads; the governing position is named, refused writes change nothing,
 // and a floor-load change reaches the building room with every position's check.
 import { PDFParse } from 'pdf-parse';
+import type { RevisionSnapshot } from '../../shared/schema/revisions.ts';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type { Level, StackDetail, StackSummary } from '../../shared/schema/api.ts';
 import type { Grid } from '../../shared/schema/building.ts';
@@ -244,6 +245,21 @@ describe('typical columns over the API', () => {
     // The summary of stacks names the position that governs the type.
     // (its row: name, 2 lifts, no base force of the own place, the governing lift at its position)
     expect(text).toMatch(/A\/1 2 – L\d at B\/2 UKC 203x203x46/);
+    // B/2 governs, so its take-down and working are printed too, after the own place's (docs/typical-columns.md).
+    const there = text.slice(text.indexOf('Stack A/1 at B/2, the position that governs the type'));
+    expect(there.length).toBeLessThan(text.length);
+    expect(there).toContain('Member checks at B/2');
+    expect(there).toContain(b2);
+    // Frozen with the revision: the same engine and inputs give the utilisation the position's check reported.
+    const stored = await s.ctx
+      .db('revisions')
+      .where({ id: (frozen.body as { id: number }).id })
+      .first<{ snapshot: string }>('snapshot');
+    const snap = (JSON.parse(stored.snapshot) as RevisionSnapshot).stacks.find((x) => x.id === typical.id)!;
+    expect(snap.governingWorking?.position).toBe('B/2');
+    const working = snap.governingWorking!.results;
+    const governingLift = working.lifts.find((l) => l.liftId === working.governingLiftId)!;
+    expect(governingLift.utilisation).toBeCloseTo(checks[1]!.utilisation!, 12);
     await s.api('PUT', `/buildings/${buildingId}/buildups`, { token, body: { buildups: [OFFICE, ROOF] } });
   });
 
