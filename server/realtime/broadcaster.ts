@@ -43,6 +43,10 @@ export function socketBroadcaster(io: LiveServer, opts: { sharedRooms?: boolean 
       });
       io.in(userRoom(userId)).disconnectSockets(true);
     },
+    revisionChanged(payload) {
+      if (isShuttingDown(io)) return;
+      io.to(buildingRoom(payload.buildingId)).emit('building:revision-changed', payload);
+    },
     buildingModelChanged(payload) {
       if (isShuttingDown(io)) return;
       io.to(buildingRoom(payload.buildingId)).emit('building:model-changed', payload);

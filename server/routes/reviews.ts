@@ -18,7 +18,14 @@ import { approveRevision } from '../services/revisionIssue.ts';
 import { buildingOfRevisionId, freezeRevision, getRevision } from '../services/revisions.ts';
 import { addComment, resolveComment } from '../services/reviewComments.ts';
 import { checkRevision, getReview } from '../services/reviews.ts';
-import { arrivalOf, drawAfterIssue, mailPerUserLimit, revisionsLink, stampArrival } from './revisions.ts';
+import {
+  arrivalOf,
+  drawAfterIssue,
+  mailPerUserLimit,
+  revisionsLink,
+  stampArrival,
+  tellRevisionChanged,
+} from './revisions.ts';
 
 export function registerReviewRoutes(router: Router, ctx: ServerContext): void {
   const auth = requireAuth(ctx);
@@ -48,6 +55,7 @@ export function registerReviewRoutes(router: Router, ctx: ServerContext): void {
         arrivalOf(req),
       );
       res.status(201).json(await getRevision(ctx.db, id));
+      tellRevisionChanged(ctx, req, id);
     },
   );
   router.get('/revisions/:id/review', auth, viewer, async (req, res) => {
@@ -57,17 +65,20 @@ export function registerReviewRoutes(router: Router, ctx: ServerContext): void {
     const body = parseBody(checkBodySchema, req);
     await checkRevision(ctx.db, idParam(req), body, currentUser(req), currentAccess(req).role);
     res.json(await review(req));
+    tellRevisionChanged(ctx, req, idParam(req));
   });
   router.post('/revisions/:id/comments', auth, engineer, async (req, res) => {
     const body = parseBody(commentBodySchema, req);
     await addComment(ctx.db, idParam(req), body, currentUser(req), currentAccess(req).role);
     res.status(201).json(await review(req));
+    tellRevisionChanged(ctx, req, idParam(req));
   });
   router.post('/revisions/:id/comments/:commentId/resolve', auth, engineer, async (req, res) => {
     const body = parseBody(resolveBodySchema, req);
     const commentId = idParam(req, 'commentId');
     await resolveComment(ctx.db, idParam(req), commentId, body, currentUser(req), currentAccess(req).role);
     res.json(await review(req));
+    tellRevisionChanged(ctx, req, idParam(req));
   });
   router.post('/revisions/:id/approve', auth, lead, mailLimit, async (req, res) => {
     const body = parseBody(approveBodySchema, req);
@@ -75,6 +86,7 @@ export function registerReviewRoutes(router: Router, ctx: ServerContext): void {
     const { buildingId, role } = currentAccess(req);
     await approveRevision(ctx.db, id, body, currentUser(req), role, revisionsLink(ctx, buildingId));
     res.json(await review(req));
+    tellRevisionChanged(ctx, req, id);
     drawAfterIssue(ctx, req, id);
   });
 }

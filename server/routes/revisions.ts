@@ -53,6 +53,23 @@ export function drawAfterIssue(ctx: ServerContext, req: Request, revisionId: num
 }
 
 /** The per-account limit on routes that send e-mail (a freeze or an approval mails every member). */
+/**
+ * After a revision's state or comments changed (committed): the building's room hears it, so members with the
+ * revisions open refresh them (docs/issue-workflow.md). A failed notification is logged, never an error reply.
+ */
+export function tellRevisionChanged(ctx: ServerContext, req: Request, revisionId: number): void {
+  const user = currentUser(req);
+  try {
+    ctx.broadcaster.revisionChanged({
+      buildingId: currentAccess(req).buildingId,
+      revisionId,
+      by: { userId: user.id, name: user.name },
+    });
+  } catch (err) {
+    ctx.log.error({ err, revisionId }, 'revision broadcast failed');
+  }
+}
+
 export function mailPerUserLimit(ctx: ServerContext) {
   return limiter(ctx, 'mail-user', ctx.config.limits.mailPerUser, byUser, 'Too many e-mails sent from this account');
 }
@@ -85,6 +102,7 @@ export function registerRevisionRoutes(router: Router, ctx: ServerContext): void
       arrivalOf(req),
     );
     res.status(201).json(await getRevision(ctx.db, id));
+    tellRevisionChanged(ctx, req, id);
     if (issued) drawAfterIssue(ctx, req, id);
   });
   router.get('/buildings/:id/revisions', auth, requireRole(ctx, 'viewer'), async (req, res) => {

@@ -1,7 +1,12 @@
 // How committed stack changes reach live rooms. The realtime module replaces ctx.broadcaster with a
 // Socket.IO implementation; REST writes call it after commit, so they reach live rooms too.
 import type { BuildingModelChanged } from '../../shared/schema/building.ts';
-import type { BuildingStackChanged, BuildingStacksChanged, StackChanged } from '../../shared/schema/socket.ts';
+import type {
+  BuildingRevisionChanged,
+  BuildingStackChanged,
+  BuildingStacksChanged,
+  StackChanged,
+} from '../../shared/schema/socket.ts';
 
 export interface Broadcaster {
   stackChanged(p: StackChanged & { buildingId: number }): void;
@@ -16,6 +21,8 @@ export interface Broadcaster {
   /** Every session of the user ended (sign-out, password change): their open sockets are closed. */
   sessionsEnded(p: { userId: number }): Promise<void>;
   buildingModelChanged(p: BuildingModelChanged): void;
+  /** A revision's state or comments changed: the building's members refresh what they show of it. */
+  revisionChanged(p: BuildingRevisionChanged): void;
 }
 
 export const nullBroadcaster: Broadcaster = {
@@ -25,4 +32,5 @@ export const nullBroadcaster: Broadcaster = {
   accessRevoked: async () => undefined,
   sessionsEnded: async () => undefined,
   buildingModelChanged: () => undefined,
+  revisionChanged: () => undefined,
 };

@@ -21,7 +21,13 @@ import {
 } from './api.ts';
 import { analysisOptionsSchema, type StackResult } from './results.ts';
 import { stackDocumentSchema } from './stack.ts';
-import type { BuildingStackChanged, BuildingStacksChanged, StackChanged, StackJoinAck } from './socket.ts';
+import type {
+  BuildingRevisionChanged,
+  BuildingStackChanged,
+  BuildingStacksChanged,
+  StackChanged,
+  StackJoinAck,
+} from './socket.ts';
 import { buildingModelSchema, type BuildingModelChanged, type BuildingModelReply, type Placement } from './building.ts';
 import type { BuildingSizingPreview, StackSizingPreview } from './sizing.ts';
 import type { RevisionComparison, RevisionDetail, RevisionSummary } from './revisions.ts';
@@ -170,6 +176,11 @@ export const buildingStackChangedSchema: z.ZodType<BuildingStackChanged> = z.obj
 export const buildingStacksChangedSchema: z.ZodType<BuildingStacksChanged> = z.object({
   buildingId: id,
   stacks: z.array(buildingStackChangedSchema),
+});
+export const buildingRevisionChangedSchema: z.ZodType<BuildingRevisionChanged> = z.object({
+  buildingId: id,
+  revisionId: id,
+  by,
 });
 export const buildingModelChangedSchema = outlineOf<BuildingModelChanged>({
   buildingId: id,

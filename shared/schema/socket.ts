@@ -85,6 +85,13 @@ export interface BuildingStacksChanged {
   stacks: BuildingStackChanged[];
 }
 
+/** A revision of the building was frozen, prepared, checked, commented on or approved (docs/issue-workflow.md). */
+export interface BuildingRevisionChanged {
+  buildingId: number;
+  revisionId: number;
+  by: { userId: number; name: string };
+}
+
 export interface SessionEnded {
   reason: 'expired' | 'signed-out';
   message: string;
@@ -104,6 +111,7 @@ export interface ServerToClientEvents {
   presence: (payload: { stackId: number; users: PresenceUser[] }) => void;
   'building:stack-changed': (payload: BuildingStackChanged) => void;
   'building:stacks-changed': (payload: BuildingStacksChanged) => void;
+  'building:revision-changed': (payload: BuildingRevisionChanged) => void;
   /** The user lost access to a building: the server has taken this socket out of its rooms. */
   'access:revoked': (payload: { buildingId: number }) => void;
   /** The session behind this socket ended; the server closes the socket next (sign in again). */

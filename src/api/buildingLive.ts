@@ -1,8 +1,9 @@
 // A building's live channel: stack results that change while the building page is open.
 import type { BuildingModelChanged } from '@shared/schema/building.ts';
-import type { BuildingStackChanged } from '@shared/schema/socket.ts';
+import type { BuildingRevisionChanged, BuildingStackChanged } from '@shared/schema/socket.ts';
 import {
   buildingModelChangedSchema,
+  buildingRevisionChangedSchema,
   buildingStackChangedSchema,
   buildingStacksChangedSchema,
 } from '@shared/schema/replies.ts';
@@ -19,6 +20,7 @@ export function watchBuilding(
   onChange: (change: BuildingStackChanged) => void,
   onError: (message: string) => void,
   onModelChange?: (change: BuildingModelChanged) => void,
+  onRevisionChange?: (change: BuildingRevisionChanged) => void,
 ): BuildingWatch {
   const socket: LiveSocket = connectLive(token);
   const join = () =>
@@ -43,6 +45,11 @@ export function watchBuilding(
     const change = buildingModelChangedSchema.safeParse(raw);
     if (!change.success) return unreadable();
     if (change.data.buildingId === buildingId) onModelChange?.(change.data);
+  });
+  socket.on('building:revision-changed', (raw) => {
+    const change = buildingRevisionChangedSchema.safeParse(raw);
+    if (!change.success) return unreadable();
+    if (change.data.buildingId === buildingId) onRevisionChange?.(change.data);
   });
   return {
     stop: () => {

@@ -73,6 +73,20 @@ export const useRevisionsStore = defineStore('revisions', () => {
     }
   }
 
+  /**
+   * A colleague froze, checked, commented on or approved a revision (heard on the building's channel): the list
+   * and, when it is the one open, the revision are read again, without the page going back to loading.
+   */
+  async function refresh(revisionId: number): Promise<void> {
+    if (buildingId.value === null) return;
+    try {
+      list.value = await revisionsApi.listRevisions(buildingId.value);
+      if (detail.value?.id === revisionId) detail.value = await revisionsApi.getRevision(revisionId);
+    } catch (e) {
+      notify.error(e, 'Could not bring the revisions up to date');
+    }
+  }
+
   async function resend(id: number): Promise<void> {
     try {
       const updated = await revisionsApi.resendRevision(id);
@@ -125,6 +139,7 @@ export const useRevisionsStore = defineStore('revisions', () => {
     load,
     freeze,
     open,
+    refresh,
     resend,
     download,
     compare,

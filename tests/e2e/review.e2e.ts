@@ -80,8 +80,10 @@ describeInBrowser('checking and approving a revision', () => {
     await review(engineer).getByRole('button', { name: 'Resolve' }).click();
     await review(engineer).locator('[data-test="resolved"]').filter({ hasText: PREPARER }).waitFor();
 
-    await openRevision(leadPage, building.id, 'C01');
-    await review(leadPage).getByRole('button', { name: 'Approve and issue' }).click();
+    // The lead's page, left open, follows the resolution live: the approval needs no reason now, without a reload.
+    const approve = review(leadPage).getByRole('button', { name: 'Approve and issue' });
+    await expect.poll(() => approve.isDisabled(), { timeout: 10_000, interval: 100 }).toBe(false);
+    await approve.click();
     await review(leadPage).locator('[data-test="review-state"]').filter({ hasText: 'issued' }).waitFor();
     await review(leadPage).locator('[data-test="sign-off-approved"]').filter({ hasText: APPROVER }).waitFor();
     await screenshot(leadPage, 'review-issued');

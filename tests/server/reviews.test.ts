@@ -8,6 +8,8 @@ import { reviewSchema, type RevisionReview } from '../../shared/schema/reviews.t
 import type { RevisionDetail, RevisionSummary } from '../../shared/schema/revisions.ts';
 import { addMember, errorCode, eventually, registerUser, startTestServer, type TestServer } from './helpers.ts';
 import { revisionFixture, type RevisionFixture } from './revisionsFixture.ts';
+import { connect, request, type LiveClient } from './liveHelpers.ts';
+import type { BuildingRevisionChanged } from '../../shared/schema/socket.ts';
 
 const squash = (t: string) => t.replace(/\s+/g, ' ');
 
@@ -251,5 +253,38 @@ describe('checking and approving a revision', () => {
     expect(text).toContain('Tonnage');
     for (const stack of ['A/1', 'B/2']) expect(text).toContain(stack);
     expect(text).toContain('UKC 254x254x73');
+  });
+  it("tells the building's live room of every step, so members with the revisions open see them without reloading", async () => {
+    const live: LiveClient = await connect(s.url, f.viewer.token);
+    try {
+      expect((await request(live, 'building:join', { buildingId: f.buildingId })).ok).toBe(true);
+      const heard: BuildingRevisionChanged[] = [];
+      live.on('building:revision-changed', (p) => heard.push(p));
+      const told = (n: number) => eventually(async () => heard.length >= n, 5000);
+      const rev = await prepare(f.engineer.token, 'construction', 'Live steps');
+      await told(1);
+      const c = await comment(checker.token, rev.id, f.stackIds[0], null, 'Base plate: show the weld');
+      await told(2);
+      const commentId = (c.body as RevisionReview).comments[0].id;
+      expect((await step(checker.token, rev.id, `comments/${commentId}/resolve`, { note: 'Shown' })).status).toBe(200);
+      await told(3);
+      expect((await step(checker.token, rev.id, 'check')).status).toBe(200);
+      await told(4);
+      expect((await step(f.lead.token, rev.id, 'approve')).status).toBe(200);
+      await told(5);
+      expect(heard.map((p) => [p.revisionId, p.by.name])).toEqual([
+        [rev.id, f.engineer.user.name],
+        [rev.id, checker.user.name],
+        [rev.id, checker.user.name],
+        [rev.id, checker.user.name],
+        [rev.id, f.lead.user.name],
+      ]);
+      // A refused step changes nothing and tells no one.
+      expect((await step(f.viewer.token, rev.id, 'check')).status).toBe(403);
+      await new Promise((r) => setTimeout(r, 100));
+      expect(heard).toHaveLength(5);
+    } finally {
+      live.close();
+    }
   });
 });
