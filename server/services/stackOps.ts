@@ -226,7 +226,11 @@ export function broadcastChanges(
         ...(extra.editId ? { editId: extra.editId } : {}),
       });
     const byBuilding = new Map<number, CommittedChange[]>();
-    for (const c of changes) byBuilding.set(c.buildingId, [...(byBuilding.get(c.buildingId) ?? []), c]);
+    for (const c of changes) {
+      const some = byBuilding.get(c.buildingId);
+      if (some) some.push(c);
+      else byBuilding.set(c.buildingId, [c]);
+    }
     for (const [buildingId, some] of byBuilding) {
       if (some.length === 1) ctx.broadcaster.buildingStackChanged(stackSummary(some[0]));
       else ctx.broadcaster.buildingStacksChanged({ buildingId, stacks: some.map(stackSummary) });

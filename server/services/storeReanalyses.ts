@@ -56,7 +56,7 @@ export async function storeReanalyses(
     const place = placeOf(row);
     // A typical column's results hold every position's check (docs/typical-columns.md): analysed on its own.
     const typical = positionPlaces(inputs, place).length > 0;
-    const loadsKey = floorLoadsKeyOf(inputs, place);
+    const loadsKey = typical ? '' : floorLoadsKeyOf(inputs, place);
     const sameDoc = typical ? undefined : (same.get(row.doc) ?? new Map<string, Analysed>());
     let found = sameDoc?.get(loadsKey);
     if (!found) {

@@ -2,7 +2,7 @@
 // results and model changes arrive on the building's channel (src/api/buildingLive.ts).
 import { computed, onBeforeUnmount, watch } from 'vue';
 import { useRoute } from 'vue-router';
-import type { BuildingStackChanged } from '@shared/schema/socket.ts';
+import type { BuildingRevisionChanged, BuildingStackChanged } from '@shared/schema/socket.ts';
 import { watchBuilding, type BuildingWatch } from '@/api/buildingLive.ts';
 import { useAuthStore } from '@/stores/auth.ts';
 import { useBuildingModelStore } from '@/stores/buildingModel.ts';
@@ -14,6 +14,8 @@ export interface LiveBuildingExtras {
   load?: (buildingId: number) => Promise<void>;
   /** More to do with each stack change heard on the building's channel. */
   onStackChange?: (change: BuildingStackChanged) => void;
+  /** A revision of the building was frozen, checked, commented on or approved (docs/issue-workflow.md). */
+  onRevisionChange?: (change: BuildingRevisionChanged) => void;
 }
 
 export function useLiveBuilding(extras: LiveBuildingExtras = {}) {
@@ -49,6 +51,7 @@ export function useLiveBuilding(extras: LiveBuildingExtras = {}) {
               },
               (m) => notify.info(m),
               model.applyModelChange,
+              extras.onRevisionChange,
             )
           : null;
     },
