@@ -1,6 +1,7 @@
 // Editing the building model (docs/building-model.md): the grid, build-ups, a level's floor load, the area
-// overrides of a stack or of one of its further positions (docs/typical-columns.md) and its place on the grid. Each write is one transaction that stores the model and
-// re-analyses every stack whose derived loads it can change; the live rooms hear after commit.
+// overrides of a stack or of one of its further positions (docs/typical-columns.md) and its place on the grid.
+// Each write is one transaction that stores the model and re-analyses every stack whose derived loads it can
+// change; the live rooms hear after commit.
 import type { Knex } from 'knex';
 import type { User } from '../../shared/schema/api.ts';
 import {
