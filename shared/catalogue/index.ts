@@ -3,11 +3,9 @@ import { EngineError } from '../engine/errors.ts';
 import { validateDims } from '../engine/validateDims.ts';
 import type { SectionDims } from '../schema/stack.ts';
 import { designationKey, dimsDesignation } from './designation.ts';
-import { HE_A, HE_B, HE_M, IPE } from './euroSections.ts';
 import { CHS, RHS, SHS } from './hollow.ts';
+import { HE_A, HE_B, HE_M, IPE, UKB, UKC } from './rolled.ts';
 import { SERIES, type CatalogueEntry, type Series } from './types.ts';
-import { UKB } from './ukb.ts';
-import { UKC } from './ukc.ts';
 
 export { SERIES, type CatalogueEntry, type Series };
 export { designationKey, dimsDesignation, formatMm } from './designation.ts';
