@@ -56,7 +56,7 @@ export function registerStackRoutes(router: Router, ctx: ServerContext): void {
     res.json(await renameStack(ctx.db, idParam(req), name, currentUser(req)));
   });
   router.delete('/stacks/:id', auth, stackLead, async (req, res) => {
-    await deleteStack(ctx.db, idParam(req), currentUser(req));
+    await deleteStack(ctx, idParam(req), currentUser(req));
     res.status(204).end();
   });
 }

@@ -336,22 +336,22 @@ export async function putAreaOverrides(
 }
 
 /**
- * Takes a removed position's areas set by hand out of the model read (locked) in the caller's transaction, with
- * an audit row; the change to broadcast after commit, or null when the position had none.
+ * Takes the areas set by hand under `keys` (a removed stack's own and its positions', or one removed position's)
+ * out of the model read (locked) in the caller's transaction, with an audit row; the change to broadcast after
+ * commit, or null when none of the keys had areas. No stack is re-analysed: no remaining place reads these keys.
  */
-export async function dropPositionOverrides(
+export async function dropOverrides(
   trx: Knex,
   buildingId: number,
   read: { model: BuildingModel; version: number },
-  positionId: number,
+  keys: readonly string[],
   user: User,
+  detail: Record<string, unknown>,
 ): Promise<ModelChange | null> {
-  const key = positionOverridesKey(positionId);
-  if (!(key in read.model.overrides)) return null;
-  const overrides = Object.fromEntries(Object.entries(read.model.overrides).filter(([k]) => k !== key));
+  if (!keys.some((k) => k in read.model.overrides)) return null;
+  const overrides = Object.fromEntries(Object.entries(read.model.overrides).filter(([k]) => !keys.includes(k)));
   const next: BuildingModel = { ...read.model, overrides };
   const version = await writeModel(trx, buildingId, next, read.version);
-  const detail = { positionId, overrides: 0 };
   await recordAudit(trx, { userId: user.id, buildingId, action: 'stack.area-overrides', version, detail });
   return { version, model: next, changes: [] };
 }

@@ -4,7 +4,7 @@
 // stack's are (`putAreaOverrides`).
 import type { Knex } from 'knex';
 import type { User } from '../../shared/schema/api.ts';
-import type { AreaOverride } from '../../shared/schema/building.ts';
+import { positionOverridesKey, type AreaOverride } from '../../shared/schema/building.ts';
 import type {
   AddStackPositionBody,
   BuildingPositionsReply,
@@ -15,7 +15,7 @@ import { onUniqueViolation } from '../dbErrors.ts';
 import { now } from '../db.ts';
 import { conflict, notFound, unprocessable } from '../errors.ts';
 import { analysisInputs } from './analysis.ts';
-import { broadcastModelChange, dropPositionOverrides, putAreaOverrides } from './buildingModel.ts';
+import { broadcastModelChange, dropOverrides, putAreaOverrides } from './buildingModel.ts';
 import { readModel } from './buildingModelStore.ts';
 import { broadcastChange, commitDoc, type CommittedChange } from './stackOps.ts';
 import { positionsOf, toStackPosition } from './stackPositionRows.ts';
@@ -101,7 +101,10 @@ export async function removeStackPosition(
     const removed = await trx('stack_positions').where({ id: positionId, stack_id: stackId }).delete();
     if (removed === 0) throw notFound('Position');
     return {
-      dropped: await dropPositionOverrides(trx, row.building_id, read, positionId, user),
+      dropped: await dropOverrides(trx, row.building_id, read, [positionOverridesKey(positionId)], user, {
+        positionId,
+        overrides: 0,
+      }),
       committed: await reanalyse(trx, row, user, 'stack.position-remove'),
       buildingId: row.building_id,
     };

@@ -6,9 +6,14 @@ import type { StackJoinAck } from '../../shared/schema/socket.ts';
 import type { StackDocument } from '../../shared/schema/stack.ts';
 import { stackFromTemplate } from '../../shared/ops/stackFromTemplate.ts';
 import { placeOnLevels } from '../../shared/engine/stack/placeOnLevels.ts';
+import { positionOverridesKey } from '../../shared/schema/building.ts';
+import type { ServerContext } from '../context.ts';
 import { now } from '../db.ts';
+import { notFound } from '../errors.ts';
 import { analyse, analysisInputs, storedResultColumns } from './analysis.ts';
 import { recordAudit } from './audit.ts';
+import { broadcastModelChange, dropOverrides } from './buildingModel.ts';
+import { readModel } from './buildingModelStore.ts';
 import { touchBuilding } from './buildings.ts';
 import { listLevels } from './levels.ts';
 import { assertUniqueIds, loadStackRow, toDetail, toSummary, type StackRow } from './stackRows.ts';
@@ -114,9 +119,20 @@ export async function renameStack(db: Knex, id: number, name: string, user: User
   return toSummary(await loadStackRow(db, id));
 }
 
-export async function deleteStack(db: Knex, id: number, user: User): Promise<void> {
-  await db.transaction(async (trx) => {
-    const row = await loadStackRow(trx, id);
+/**
+ * Deletes a stack with its further positions, and takes their areas set by hand out of the building model in
+ * the same transaction, so a later stack can never inherit them (docs/typical-columns.md).
+ */
+export async function deleteStack(ctx: ServerContext, id: number, user: User): Promise<void> {
+  const { buildingId, dropped } = await ctx.db.transaction(async (trx) => {
+    const stack = await trx('stacks').where({ id }).first<{ building_id: number } | undefined>('building_id');
+    if (!stack) throw notFound('Stack');
+    // The model before the stack row, in the order every write of the model locks them.
+    const read = await readModel(trx, stack.building_id, { lock: true });
+    const row = await loadStackRow(trx, id, { lock: true });
+    const positions = await trx('stack_positions').where({ stack_id: id }).pluck<number[]>('id');
+    const keys = [String(id), ...positions.map(positionOverridesKey)];
+    await trx('stack_positions').where({ stack_id: id }).delete();
     await trx('stacks').where({ id }).delete();
     await recordAudit(trx, {
       userId: user.id,
@@ -127,5 +143,11 @@ export async function deleteStack(db: Knex, id: number, user: User): Promise<voi
       detail: { name: row.name },
     });
     await touchBuilding(trx, row.building_id);
+    const detail = { stackId: id, overrides: 0 };
+    return {
+      buildingId: row.building_id,
+      dropped: await dropOverrides(trx, row.building_id, read, keys, user, detail),
+    };
   });
+  if (dropped) broadcastModelChange(ctx, buildingId, dropped, user);
 }

@@ -266,4 +266,56 @@ describe('areas set by hand at a position of a typical column', () => {
       before,
     );
   });
+
+  it("deleting a stack takes its own and its positions' areas out of the model, and leaves other stacks' alone", async () => {
+    const own = [{ levelId: first().id, factor: 0.25, reason: 'Lift shaft' }];
+    const atPosition = [{ levelId: first().id, area: 2, reason: 'Riser' }];
+    const kept = [{ levelId: first().id, factor: 0.5, reason: 'Stair void' }];
+    const puts = [
+      [`/stacks/${other.id}/area-overrides`, own],
+      [`/stacks/${other.id}/positions/${otherPositionId}/area-overrides`, atPosition],
+      [`/stacks/${typical.id}/area-overrides`, kept],
+    ] as const;
+    for (const [path, overrides] of puts) {
+      expect((await s.api('PUT', path, { token: engineer, body: { overrides } })).status).toBe(200);
+    }
+    expect(Object.keys((await model()).overrides).sort()).toEqual(
+      [String(other.id), `p${otherPositionId}`, String(typical.id)].sort(),
+    );
+    const live = await connect(s.url, lead);
+    try {
+      expect((await request(live, 'building:join', { buildingId })).ok).toBe(true);
+      const version = (await model()).version;
+      const heardModel = next(live, 'building:model-changed', (p) => p.buildingId === buildingId);
+      expect((await s.api('DELETE', `/stacks/${other.id}`, { token: engineer })).status).toBe(403);
+      expect(Object.keys((await model()).overrides)).toHaveLength(3);
+      expect((await s.api('DELETE', `/stacks/${other.id}`, { token: lead })).status).toBe(204);
+      const after = await model();
+      expect(after.overrides).toEqual({ [String(typical.id)]: kept });
+      expect(after.version).toBe(version + 1);
+      expect((await heardModel).model.overrides).toEqual({ [String(typical.id)]: kept });
+    } finally {
+      live.close();
+    }
+    expect(await s.ctx.db('stack_positions').where({ stack_id: other.id }).count('* as n')).toEqual([{ n: 0 }]);
+    // The remaining stack keeps its own void: A/1 carries 0.5 × 11.25 = 5.625 m² at First.
+    const inputs = await analysisInputs(s.ctx.db, buildingId);
+    const place = placeOf(await loadStackRow(s.ctx.db, typical.id));
+    expect(floorLoadsOf(inputs, place)!.get(first().id)).toMatchObject({ area: A1 / 2, gridArea: A1 });
+    await s.api('PUT', `/stacks/${typical.id}/area-overrides`, { token: lead, body: { overrides: [] } });
+  });
+
+  it('deleting a stack with no areas set by hand leaves the model as it was', async () => {
+    const template = { elevations: [0, 4, 8, 12], sections: ['UKC 203x203x46'], Gk: 100, Qk: 50 };
+    const created = await s.api('POST', `/buildings/${buildingId}/stacks`, {
+      token: lead,
+      body: { name: 'S3', template },
+    });
+    const spare = created.body as StackSummary;
+    const before = await s.ctx.db('building_models').where({ building_id: buildingId }).first('model', 'version');
+    expect((await s.api('DELETE', `/stacks/${spare.id}`, { token: lead })).status).toBe(204);
+    expect(await s.ctx.db('building_models').where({ building_id: buildingId }).first('model', 'version')).toEqual(
+      before,
+    );
+  });
 });
