@@ -136,13 +136,9 @@ async function setUp(url: string, token: string) {
   return { building, levels, stacks, template };
 }
 
-/** ms from the PUT to the last update of the last client. */
+/** ms from the write to the last update of the last client. */
 async function timeChange(
-  url: string,
-  token: string,
-  buildingId: number,
-  levelId: string,
-  buildupId: string,
+  write: () => Promise<unknown>,
   stackIds: number[],
   clients: { building: Client[]; stacks: Client[] },
 ): Promise<number> {
@@ -173,7 +169,7 @@ async function timeChange(
     arrivals.push(new Promise((resolve) => c.once('stack:changed', () => resolve(performance.now() - t0))));
   const lost = clients.building.concat(clients.stacks).filter((c) => !c.connected).length;
   if (lost) throw new Error(`${lost} bench clients lost their connection`);
-  await api(url, 'PUT', `/buildings/${buildingId}/levels/${levelId}/floor-load`, token, { buildupId });
+  await write();
   const timeout = new Promise<never>((_, reject) =>
     setTimeout(
       () =>
@@ -213,14 +209,17 @@ export async function benchFloorLoad(): Promise<void> {
     sockets.push(...buildingClients, ...stackClients);
     const level = levels[20];
     const clients = { building: buildingClients, stacks: stackClients };
-    const measure = async (count: number) => {
+    const ids = stacks.map((s) => s.id);
+    const floorLoad = (i: number) => () =>
+      api(server.url, 'PUT', `/buildings/${building.id}/levels/${level.id}/floor-load`, token, {
+        buildupId: i % 2 === 0 ? 'heavy' : 'office',
+      });
+    const measure = async (count: number, write = floorLoad) => {
       const samples: number[] = [];
       const cpu: number[] = [];
       for (let i = 0; i < count; i++) {
         const cpuBefore = await server.cpuMs();
-        const buildupId = i % 2 === 0 ? 'heavy' : 'office';
-        const ids = stacks.map((s) => s.id);
-        samples.push(await timeChange(server.url, token, building.id, level.id, buildupId, ids, clients));
+        samples.push(await timeChange(write(i), ids, clients));
         cpu.push((await server.cpuMs()) - cpuBefore);
       }
       samples.sort((a, b) => a - b);
@@ -231,6 +230,12 @@ export async function benchFloorLoad(): Promise<void> {
     server.profile('start');
     const alike = await measure(SAMPLES);
     server.profile('stop');
+    // A change of the building's analysis options on the same grid: every stack re-analysed under the new rules.
+    const options = await measure(
+      3,
+      (i) => () =>
+        api(server.url, 'PATCH', `/buildings/${building.id}`, token, { options: { imposedReduction: i % 2 === 1 } }),
+    );
     const median = alike.median;
     const samples = [alike.min, alike.max];
     const cpu = [alike.cpu];
@@ -277,6 +282,11 @@ export async function benchFloorLoad(): Promise<void> {
         `(analyseBuilding of the same stacks ${analysed.toFixed(0)} ms; ratio ×${(median / analysed).toFixed(1)})  target < 300 ms`,
     );
 
+    console.log(
+      `analysis options changed (imposed-load reduction) → ${stacks.length} stacks re-analysed, clients updated: ` +
+        `median ${options.median.toFixed(0)} ms (min ${options.min.toFixed(0)}, max ${options.max.toFixed(0)}; ` +
+        `server CPU median ${options.cpu.toFixed(0)} ms) (ratio to analyseBuilding ×${(options.median / analysed).toFixed(1)}; no target)`,
+    );
     console.log(
       `the same change with all ${stacks.length} columns different: median ${distinct.median.toFixed(0)} ms ` +
         `(min ${distinct.min.toFixed(0)}, max ${distinct.max.toFixed(0)}; server CPU median ${distinct.cpu.toFixed(0)} ms) ` +

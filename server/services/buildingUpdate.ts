@@ -1,6 +1,7 @@
 // Renaming a building or changing its analysis options. New options re-analyse every stack in the
 // same transaction, so no stack shows results computed with the old options; each re-analysed stack
-// gets a new version with an empty ops list, which live rooms apply like any other change.
+// gets a new version with an empty ops list, which live rooms apply like any other change. Alike columns are
+// analysed once (storeReanalyses) unless the critical buckling analysis has run on the worker beforehand.
 import type { Building, User } from '../../shared/schema/api.ts';
 import type { ServerContext } from '../context.ts';
 import { now } from '../db.ts';
@@ -10,6 +11,7 @@ import { getBuilding, parseOptions, type BuildingInput } from './buildings.ts';
 import { broadcastChanges, commitDoc, type CommittedChange } from './stackOps.ts';
 import { precomputedFor, precomputeReanalysis } from './reanalysis.ts';
 import { parseDoc, type StackRow } from './stackRows.ts';
+import { storeReanalyses } from './storeReanalyses.ts';
 
 export async function updateBuilding(
   ctx: ServerContext,
@@ -33,13 +35,16 @@ export async function updateBuilding(
     const changes: CommittedChange[] = [];
     if (!optionsChanged) return changes;
     const inputs = await analysisInputs(trx, id);
-    for (const stack of await trx<StackRow>('stacks').where({ building_id: id })) {
+    const stacks = await trx<StackRow>('stacks').where({ building_id: id });
+    const by = { userId: user.id, action: 'building.reanalyse' };
+    // Without worker results, alike columns are analysed and stored once, as for a change of the building model.
+    if (!precomputed) return storeReanalyses(trx, stacks, inputs, by);
+    for (const stack of stacks) {
       const change = {
         doc: parseDoc(stack.doc),
         ops: [],
         touched: new Set<string>(),
-        userId: user.id,
-        action: 'building.reanalyse',
+        ...by,
       };
       changes.push(await commitDoc(trx, stack, change, inputs, precomputedFor(precomputed, inputs, stack)));
     }
