@@ -2,7 +2,7 @@
 // docs/access.md).
 import type { z } from 'zod';
 import type { AuthResponse, PasswordStrength, RegisterResponse, User } from '@shared/schema/api.ts';
-import type { loginBodySchema, registerBodySchema } from '@shared/schema/api.ts';
+import type { loginBodySchema, passwordStrengthBodySchema, registerBodySchema } from '@shared/schema/api.ts';
 import {
   authResponseSchema,
   passwordStrengthSchema,
@@ -13,6 +13,7 @@ import { http } from './http.ts';
 
 export type LoginBody = z.output<typeof loginBodySchema>;
 export type RegisterBody = z.output<typeof registerBodySchema>;
+export type PasswordStrengthBody = z.output<typeof passwordStrengthBodySchema>;
 
 export async function login(body: LoginBody): Promise<AuthResponse> {
   return authResponseSchema.parse(await http.post('/auth/login', body));
@@ -36,11 +37,7 @@ export async function logout(): Promise<void> {
   await http.post('/auth/logout');
 }
 
-export async function passwordStrength(body: {
-  password: string;
-  email?: string;
-  name?: string;
-}): Promise<PasswordStrength> {
+export async function passwordStrength(body: PasswordStrengthBody): Promise<PasswordStrength> {
   return passwordStrengthSchema.parse(await http.post('/auth/password-strength', body));
 }
 
