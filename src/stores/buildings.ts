@@ -12,12 +12,14 @@ import type { CreateBuildingBody } from '@/api/buildings.ts';
 import { listLevels } from '@/api/levels.ts';
 import * as stacksApi from '@/api/stacks.ts';
 import type { CreateStackBody } from '@/api/stacks.ts';
+import { useLoad } from '@/composables/useLoad.ts';
 import { attempt as attemptWith } from './attempt.ts';
 import { useLevelsStore } from './levels.ts';
 import { useMembersStore } from './members.ts';
-import { describeError, isNotFound, useNotifyStore } from './notify.ts';
+import { describeError, useNotifyStore } from './notify.ts';
+import type { LoadState } from '@/composables/useLoad.ts';
 
-export type LoadState = 'idle' | 'loading' | 'ready' | 'error';
+export type { LoadState } from '@/composables/useLoad.ts';
 
 export const useBuildingsStore = defineStore('buildings', () => {
   const notify = useNotifyStore();
@@ -30,10 +32,8 @@ export const useBuildingsStore = defineStore('buildings', () => {
 
   const current = ref<Building | null>(null);
   const stacks = ref<StackSummary[]>([]);
-  const pageState = ref<LoadState>('idle');
-  const pageError = ref('');
-  /** The open building does not exist or is not shared with this person. */
-  const pageMissing = ref(false);
+  /** How opening the building went; `missing`: it does not exist or is not shared with this person. */
+  const opening = useLoad({ canBeMissing: true });
 
   const role = computed<Role>(() => current.value?.role ?? 'viewer');
   const canEdit = computed(() => ROLE_RANK[role.value] >= ROLE_RANK.engineer);
@@ -69,8 +69,7 @@ export const useBuildingsStore = defineStore('buildings', () => {
       stacks.value = [];
     }
     membersStore.reset(id);
-    pageState.value = 'loading';
-    try {
+    await opening.run(async () => {
       const [building, buildingLevels, buildingStacks] = await Promise.all([
         buildingsApi.getBuilding(id),
         listLevels(id),
@@ -79,12 +78,7 @@ export const useBuildingsStore = defineStore('buildings', () => {
       current.value = building;
       levelsStore.replace(id, buildingLevels);
       stacks.value = buildingStacks;
-      pageState.value = 'ready';
-    } catch (e) {
-      pageError.value = describeError(e);
-      pageMissing.value = isNotFound(e);
-      pageState.value = 'error';
-    }
+    });
   }
 
   const buildingId = (): number => {
@@ -190,9 +184,7 @@ export const useBuildingsStore = defineStore('buildings', () => {
     createBuilding,
     current,
     stacks,
-    pageState,
-    pageError,
-    pageMissing,
+    opened: opening.outcome,
     role,
     canEdit,
     isLead,

@@ -5,8 +5,8 @@ import { defineStore } from 'pinia';
 import type { OutboxMessage } from '@shared/schema/outbox.ts';
 import { fetchOutboxAttachment, listOutbox } from '@/api/outbox.ts';
 import { saveBlob } from '@/api/download.ts';
-import { describeError, useNotifyStore } from './notify.ts';
-import type { LoadState } from './buildings.ts';
+import { useLoad } from '@/composables/useLoad.ts';
+import { useNotifyStore } from './notify.ts';
 
 /** Newest first by capture time; the id breaks ties between messages of the same instant. */
 export function newestFirst(messages: OutboxMessage[]): OutboxMessage[] {
@@ -16,20 +16,14 @@ export function newestFirst(messages: OutboxMessage[]): OutboxMessage[] {
 export const useOutboxStore = defineStore('outbox', () => {
   const notify = useNotifyStore();
   const messages = ref<OutboxMessage[]>([]);
-  const state = ref<LoadState>('idle');
-  const error = ref('');
+  const loading = useLoad();
   const selectedId = ref<number | null>(null);
   const selected = computed(() => messages.value.find((m) => m.id === selectedId.value) ?? null);
 
   async function load(): Promise<void> {
-    state.value = 'loading';
-    try {
+    await loading.run(async () => {
       messages.value = newestFirst(await listOutbox());
-      state.value = 'ready';
-    } catch (e) {
-      error.value = describeError(e);
-      state.value = 'error';
-    }
+    });
   }
 
   function select(id: number | null): void {
@@ -46,5 +40,5 @@ export const useOutboxStore = defineStore('outbox', () => {
     }
   }
 
-  return { messages, state, error, selectedId, selected, load, select, downloadAttachment };
+  return { messages, loaded: loading.outcome, selectedId, selected, load, select, downloadAttachment };
 });

@@ -11,8 +11,8 @@ import type {
 } from '@shared/schema/revisions.ts';
 import { ApiError } from '@/api/http.ts';
 import * as revisionsApi from '@/api/revisions.ts';
-import { describeError, useNotifyStore } from './notify.ts';
-import type { LoadState } from './buildings.ts';
+import { useLoad } from '@/composables/useLoad.ts';
+import { useNotifyStore } from './notify.ts';
 
 /** The 422 of a refused freeze carries its reasons; anything else has none. */
 export function refusalReasons(e: unknown): FreezeRefusal['reasons'] {
@@ -25,8 +25,7 @@ export const useRevisionsStore = defineStore('revisions', () => {
   const notify = useNotifyStore();
   const buildingId = ref<number | null>(null);
   const list = ref<RevisionSummary[]>([]);
-  const state = ref<LoadState>('idle');
-  const error = ref('');
+  const loading = useLoad();
   const detail = ref<RevisionDetail | null>(null);
   const comparison = ref<RevisionComparison | null>(null);
   const comparing = ref(false);
@@ -38,14 +37,9 @@ export const useRevisionsStore = defineStore('revisions', () => {
       comparison.value = null;
     }
     buildingId.value = id;
-    state.value = 'loading';
-    try {
+    await loading.run(async () => {
       list.value = await revisionsApi.listRevisions(id);
-      state.value = 'ready';
-    } catch (e) {
-      error.value = describeError(e);
-      state.value = 'error';
-    }
+    });
   }
 
   /** Freezes; a refusal is thrown back so the dialog can list its reasons. */
@@ -130,8 +124,7 @@ export const useRevisionsStore = defineStore('revisions', () => {
   return {
     buildingId,
     list,
-    state,
-    error,
+    loaded: loading.outcome,
     detail,
     comparison,
     comparing,

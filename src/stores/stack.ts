@@ -14,8 +14,8 @@ import { drawnWhereLaidOut, inverseOps } from '@/utils/inverseOps.ts';
 import { useStackPresence } from '@/composables/useStackPresence.ts';
 import { useStackSync } from '@/composables/useStackSync.ts';
 import { useUndoHistory, type HistoryEntry } from '@/composables/useUndoHistory.ts';
-import { describeError, isNotFound, useNotifyStore } from './notify.ts';
-import type { LoadState } from './buildings.ts';
+import { useLoad } from '@/composables/useLoad.ts';
+import { isNotFound, useNotifyStore } from './notify.ts';
 
 export type { LinkState } from '@/composables/useStackSync.ts';
 
@@ -38,12 +38,12 @@ export const useStackStore = defineStore('stack', () => {
       role.value = ack.role;
       gridX.value = ack.gridX ?? null;
       takeLevels(ack.levels);
-      if (first) state.value = 'ready';
+      if (first) opening.outcome.state = 'ready';
       presence.joinedStack();
       settleOpening();
     },
     joinFailed(e, first) {
-      if (first && state.value !== 'ready') return failOpening(e);
+      if (first && opening.outcome.state !== 'ready') return failOpening(e);
       notify.error(e, 'Could not open the live connection');
     },
     refused(edit, reason) {
@@ -59,10 +59,8 @@ export const useStackStore = defineStore('stack', () => {
   const name = ref('');
   const buildingId = ref<number | null>(null);
   const role = ref<Role>('viewer');
-  const state = ref<LoadState>('idle');
-  const loadError = ref('');
-  /** The stack does not exist or is not shared with this person. */
-  const loadMissing = ref(false);
+  /** How opening the stack went; `missing`: it does not exist or is not shared with this person. */
+  const opening = useLoad();
   const buildingName = ref('');
   /** The building's levels: they place the tied nodes and name take-down rows (from every join, and with a
    *  change that moved a level). */
@@ -84,27 +82,26 @@ export const useStackStore = defineStore('stack', () => {
 
   /** A stack that cannot be opened: gone, not shared, or the server out of reach (the page offers a retry). */
   function failOpening(e: unknown): void {
-    loadError.value = describeError(e);
-    loadMissing.value = isNotFound(e) || (e instanceof LiveError && e.code === 'not_found');
-    state.value = 'error';
+    const missing = isNotFound(e) || (e instanceof LiveError && e.code === 'not_found');
+    opening.failed(e, missing);
     settleOpening();
     // Refused for good: stop trying. Out of reach: Socket.IO keeps trying and a later join opens the page.
-    if (loadMissing.value || (e instanceof LiveError && e.code === 'forbidden')) disconnect();
+    if (missing || (e instanceof LiveError && e.code === 'forbidden')) disconnect();
   }
 
-  /** Opens the stack; resolves once it is open or could not be (state says which). */
+  /** Opens the stack; resolves once it is open or could not be (`opened` says which). */
   function open(id: number, opts: OpenOptions): Promise<void> {
     close();
     const opened = new Promise<void>((resolve) => (settleOpening = resolve));
     stackId.value = id;
-    state.value = 'loading';
+    opening.outcome.state = 'loading';
     const s = connectLive(opts.token, opts.url);
     socket = s;
     sync.attach(s, id);
     presence.attach(s, id, opts.userId);
     s.on('connect_error', (e) => {
       if (isSessionRefusal(e)) return notifyUnauthorised();
-      if (state.value === 'loading') failOpening(new Error(`Cannot reach the server (${e.message})`));
+      if (opening.outcome.state === 'loading') failOpening(new Error(`Cannot reach the server (${e.message})`));
     });
     return opened;
   }
@@ -152,9 +149,7 @@ export const useStackStore = defineStore('stack', () => {
     presence.reset();
     history.clear();
     stackId.value = null;
-    state.value = 'idle';
-    loadError.value = '';
-    loadMissing.value = false;
+    opening.reset();
     buildingName.value = '';
     levels.value = [];
     gridX.value = null;
@@ -169,9 +164,7 @@ export const useStackStore = defineStore('stack', () => {
     levels,
     lastChange: sync.lastChange,
     role,
-    state,
-    loadError,
-    loadMissing,
+    opened: opening.outcome,
     link: sync.link,
     doc: sync.doc,
     version: sync.version,

@@ -43,8 +43,8 @@ describe('opening a building', () => {
     const store = useBuildingsStore();
     mockFetch({});
     await store.open(999);
-    expect(store.pageState).toBe('error');
-    expect(store.pageMissing).toBe(true);
+    expect(store.opened.state).toBe('error');
+    expect(store.opened.missing).toBe(true);
 
     vi.stubGlobal(
       'fetch',
@@ -52,7 +52,7 @@ describe('opening a building', () => {
     );
     await store.open(998);
     await flushPromises();
-    expect(store.pageState).toBe('error');
-    expect(store.pageMissing).toBe(false);
+    expect(store.opened.state).toBe('error');
+    expect(store.opened.missing).toBe(false);
   });
 });
