@@ -40,7 +40,9 @@ export const idParamSchema = z.coerce.number().int().positive().max(Number.MAX_S
 export const registerBodySchema = z
   .object({ email: emailSchema, password: passwordSchema, name: z.string().trim().min(1).max(100) })
   .strict();
+export type RegisterBody = z.output<typeof registerBodySchema>;
 export const loginBodySchema = z.object({ email: emailSchema, password: z.string().min(1).max(200) }).strict();
+export type LoginBody = z.output<typeof loginBodySchema>;
 export const verifyEmailBodySchema = z.object({ token: z.string().min(1).max(2000) }).strict();
 export const changePasswordBodySchema = z
   .object({ currentPassword: z.string().min(1).max(200), newPassword: passwordSchema })
@@ -52,6 +54,7 @@ export const passwordStrengthBodySchema = z
     name: z.string().max(100).optional(),
   })
   .strict();
+export type PasswordStrengthBody = z.output<typeof passwordStrengthBodySchema>;
 
 /** How guessable a password is: score 0 (very) to 4 (very unlikely), as the estimator rates it. */
 export interface PasswordStrength {
@@ -91,6 +94,7 @@ export const createBuildingBodySchema = z
     options: analysisOptionsSchema.partial().optional(),
   })
   .strict();
+export type CreateBuildingBody = z.output<typeof createBuildingBodySchema>;
 export const updateBuildingBodySchema = z
   .object({
     name: name.optional(),
@@ -98,6 +102,7 @@ export const updateBuildingBodySchema = z
     options: analysisOptionsSchema.partial().optional(),
   })
   .strict();
+export type UpdateBuildingBody = z.output<typeof updateBuildingBodySchema>;
 
 export interface BuildingSummary {
   id: number;
@@ -114,7 +119,9 @@ export interface Building extends BuildingSummary {
 }
 
 export const addMemberBodySchema = z.object({ email: emailSchema, role: roleSchema }).strict();
+export type AddMemberBody = z.output<typeof addMemberBodySchema>;
 export const updateMemberBodySchema = z.object({ role: roleSchema }).strict();
+export type UpdateMemberBody = z.output<typeof updateMemberBodySchema>;
 /** A site admin gives a building with no lead a lead again (docs/faults.md). */
 export const restoreLeadBodySchema = z.object({ email: emailSchema }).strict();
 export interface Member {
@@ -135,7 +142,9 @@ const levelElevationSchema = elevationSchema;
 export const createLevelBodySchema = z
   .object({ name: z.string().trim().min(1).max(60), elevation: levelElevationSchema })
   .strict();
+export type CreateLevelBody = z.output<typeof createLevelBodySchema>;
 export const updateLevelBodySchema = createLevelBodySchema.partial().strict();
+export type UpdateLevelBody = z.output<typeof updateLevelBodySchema>;
 export interface Level {
   id: string;
   name: string;
@@ -221,8 +230,10 @@ export const createStackBodySchema = z
   })
   .strict()
   .refine((b) => !(b.doc && b.template), 'give either doc or template, not both');
+export type CreateStackBody = z.output<typeof createStackBodySchema>;
 export const putStackBodySchema = z.object({ doc: stackDocumentSchema, baseVersion: z.number().int().min(0) }).strict();
 export const patchStackBodySchema = z.object({ name: z.string().trim().min(1).max(40) }).strict();
+export type PatchStackBody = z.output<typeof patchStackBodySchema>;
 export const applyOpsBodySchema = z.object({ ops: opsSchema, baseVersion: z.number().int().min(0) }).strict();
 
 export interface StackSummary {

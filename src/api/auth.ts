@@ -1,8 +1,14 @@
 // Sign-in, registration, verification of the address, sign-out and the current user (docs/contracts.md §REST routes,
 // docs/access.md).
-import type { z } from 'zod';
-import type { AuthResponse, PasswordStrength, RegisterResponse, User } from '@shared/schema/api.ts';
-import type { loginBodySchema, passwordStrengthBodySchema, registerBodySchema } from '@shared/schema/api.ts';
+import type {
+  AuthResponse,
+  LoginBody,
+  PasswordStrength,
+  PasswordStrengthBody,
+  RegisterBody,
+  RegisterResponse,
+  User,
+} from '@shared/schema/api.ts';
 import {
   authResponseSchema,
   passwordStrengthSchema,
@@ -10,10 +16,6 @@ import {
   userSchema,
 } from '@shared/schema/replies.ts';
 import { http } from './http.ts';
-
-export type LoginBody = z.output<typeof loginBodySchema>;
-export type RegisterBody = z.output<typeof registerBodySchema>;
-export type PasswordStrengthBody = z.output<typeof passwordStrengthBodySchema>;
 
 export async function login(body: LoginBody): Promise<AuthResponse> {
   return authResponseSchema.parse(await http.post('/auth/login', body));

@@ -1,12 +1,8 @@
 // Buildings (docs/contracts.md §REST routes): the list, one building with its analysis options.
 import { z } from 'zod';
-import type { Building, BuildingSummary } from '@shared/schema/api.ts';
-import type { createBuildingBodySchema, updateBuildingBodySchema } from '@shared/schema/api.ts';
+import type { Building, BuildingSummary, CreateBuildingBody, UpdateBuildingBody } from '@shared/schema/api.ts';
 import { buildingSchema, buildingSummarySchema } from '@shared/schema/replies.ts';
 import { http } from './http.ts';
-
-export type CreateBuildingBody = z.output<typeof createBuildingBodySchema>;
-export type UpdateBuildingBody = z.output<typeof updateBuildingBodySchema>;
 
 export async function listBuildings(): Promise<BuildingSummary[]> {
   return z.array(buildingSummarySchema).parse(await http.get('/buildings'));

@@ -1,12 +1,8 @@
 // A building's levels (docs/contracts.md §REST routes); lists come lowest first.
 import { z } from 'zod';
-import type { Level, LevelMovePreview } from '@shared/schema/api.ts';
-import type { createLevelBodySchema, updateLevelBodySchema } from '@shared/schema/api.ts';
+import type { CreateLevelBody, Level, LevelMovePreview, UpdateLevelBody } from '@shared/schema/api.ts';
 import { levelMovePreviewSchema, levelSchema } from '@shared/schema/replies.ts';
 import { http, seg } from './http.ts';
-
-export type CreateLevelBody = z.output<typeof createLevelBodySchema>;
-export type UpdateLevelBody = z.output<typeof updateLevelBodySchema>;
 
 const levels = (buildingId: number) => `/buildings/${buildingId}/levels`;
 

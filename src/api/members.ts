@@ -1,13 +1,9 @@
 // A building's members and invitations (docs/rights.md). A member is addressed by user id, or by e-mail
 // address while the invitation is pending.
 import { z } from 'zod';
-import type { Member } from '@shared/schema/api.ts';
-import type { addMemberBodySchema, updateMemberBodySchema } from '@shared/schema/api.ts';
+import type { AddMemberBody, Member, UpdateMemberBody } from '@shared/schema/api.ts';
 import { memberSchema } from '@shared/schema/replies.ts';
 import { http, seg } from './http.ts';
-
-export type AddMemberBody = z.output<typeof addMemberBodySchema>;
-export type UpdateMemberBody = z.output<typeof updateMemberBodySchema>;
 
 const members = (buildingId: number) => `/buildings/${buildingId}/members`;
 

@@ -2,8 +2,7 @@
 // edits over REST, and its history. The open stack page reads the document through the live channel's
 // join instead (live.ts), in one reply.
 import { z } from 'zod';
-import type { StackDetail, StackSummary } from '@shared/schema/api.ts';
-import type { createStackBodySchema, patchStackBodySchema } from '@shared/schema/api.ts';
+import type { CreateStackBody, PatchStackBody, StackDetail, StackSummary } from '@shared/schema/api.ts';
 import type { Op } from '@shared/schema/ops.ts';
 import type { StackAsOf, StackHistory } from '@shared/history/historyTypes.ts';
 import {
@@ -15,9 +14,6 @@ import {
   stackSummarySchema,
 } from '@shared/schema/replies.ts';
 import { http } from './http.ts';
-
-export type CreateStackBody = z.output<typeof createStackBodySchema>;
-export type PatchStackBody = z.output<typeof patchStackBodySchema>;
 
 export async function listStacks(buildingId: number): Promise<StackSummary[]> {
   return z.array(stackSummarySchema).parse(await http.get(`/buildings/${buildingId}/stacks`));

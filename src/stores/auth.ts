@@ -1,9 +1,8 @@
 // Who is signed in. The token lives in localStorage (http.ts); any 401 from the API signs out.
 import { computed, ref } from 'vue';
 import { defineStore } from 'pinia';
-import type { AuthResponse, RegisterResponse, User } from '@shared/schema/api.ts';
+import type { AuthResponse, LoginBody, RegisterBody, RegisterResponse, User } from '@shared/schema/api.ts';
 import * as authApi from '@/api/auth.ts';
-import type { LoginBody, RegisterBody } from '@/api/auth.ts';
 import { getToken, onUnauthorised, setToken } from '@/api/http.ts';
 
 export const useAuthStore = defineStore('auth', () => {

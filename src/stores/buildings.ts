@@ -3,15 +3,21 @@
 // Actions report failures through the notifier and answer whether they succeeded, so forms can stay open.
 import { computed, ref } from 'vue';
 import { defineStore } from 'pinia';
-import { ROLE_RANK, type Building, type BuildingSummary, type Role, type StackSummary } from '@shared/schema/api.ts';
+import {
+  ROLE_RANK,
+  type Building,
+  type BuildingSummary,
+  type CreateBuildingBody,
+  type CreateStackBody,
+  type Role,
+  type StackSummary,
+} from '@shared/schema/api.ts';
 import type { AnalysisOptions } from '@shared/schema/results.ts';
 import type { Placement } from '@shared/schema/building.ts';
 import type { BuildingStackChanged } from '@shared/schema/socket.ts';
 import * as buildingsApi from '@/api/buildings.ts';
-import type { CreateBuildingBody } from '@/api/buildings.ts';
 import { listLevels } from '@/api/levels.ts';
 import * as stacksApi from '@/api/stacks.ts';
-import type { CreateStackBody } from '@/api/stacks.ts';
 import { useLoad } from '@/composables/useLoad.ts';
 import { attempt as attemptWith } from './attempt.ts';
 import { useLevelsStore } from './levels.ts';

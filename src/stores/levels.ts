@@ -3,9 +3,8 @@
 // opening a building.
 import { ref } from 'vue';
 import { defineStore } from 'pinia';
-import type { Level, LevelMovePreview } from '@shared/schema/api.ts';
+import type { CreateLevelBody, Level, LevelMovePreview, UpdateLevelBody } from '@shared/schema/api.ts';
 import * as levelsApi from '@/api/levels.ts';
-import type { CreateLevelBody, UpdateLevelBody } from '@/api/levels.ts';
 import { useNotifyStore } from './notify.ts';
 import { attempt } from './attempt.ts';
 
