@@ -41,7 +41,7 @@ export function useAccountForm<T>(
     }
   }
 
-  /** The page's query (the redirect), carried over to the other account form's link. */
+  /** The page's query (the redirect), carried over where the page links to the other account form. */
   const query = computed(() => route.query);
   return { values, errors, failure, busy, submit, query };
 }
