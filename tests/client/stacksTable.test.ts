@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { mount } from '@vue/test-utils';
+import { flushPromises, mount } from '@vue/test-utils';
 import { createPinia, setActivePinia } from 'pinia';
 import type { Building, StackSummary } from '@shared/schema/api.ts';
 import { DEFAULT_ANALYSIS_OPTIONS } from '@shared/schema/results.ts';
@@ -143,5 +143,13 @@ describe('stacks table', () => {
     const mixed = [10, 2, 1].map((n, i) => ({ ...stacks[0], id: 10 + i, name: `C/${n}` }));
     const wrapper = mountTable('viewer', mixed);
     expect(wrapper.findAll('[data-test="name"]').map((c) => c.text())).toEqual(['C/1', 'C/2', 'C/10']);
+  });
+
+  it('asks before deleting a stack, naming it', async () => {
+    const lead = mountTable('lead');
+    await rowOf(lead, 'C/3').find('[data-test="delete"]').trigger('click');
+    await flushPromises();
+    expect(document.body.textContent).toContain('Delete stack C/3 and its results? Frozen revisions keep their copy.');
+    lead.unmount();
   });
 });
