@@ -1,7 +1,10 @@
 import { describe, expect, it } from 'vitest';
-import { mount } from '@vue/test-utils';
-import type { StackSummary } from '@shared/schema/api.ts';
+import { flushPromises, mount } from '@vue/test-utils';
+import { createPinia, setActivePinia } from 'pinia';
+import type { Building, StackSummary } from '@shared/schema/api.ts';
+import { DEFAULT_ANALYSIS_OPTIONS } from '@shared/schema/results.ts';
 import StacksTable from '@/components/building/StacksTable.vue';
+import { useBuildingsStore } from '@/stores/buildings.ts';
 
 // Invented demo stacks. The colour bands (≤ 0.85 comfortable, ≤ 1.00 close, > 1.00 over) are our own
 // scale: common practice, no source.
@@ -53,6 +56,28 @@ const stacks: StackSummary[] = [
   },
 ];
 
+// Invented demo building holding them.
+const building: Building = {
+  id: 7,
+  name: 'Demo office block',
+  reference: 'D-001',
+  role: 'viewer',
+  stackCount: stacks.length,
+  worstUtilisation: 1.14,
+  updatedAt: '2026-03-14T09:05:00.000Z',
+  options: DEFAULT_ANALYSIS_OPTIONS,
+};
+
+/** The table as the building page shows it: the open building's stacks and this person's role, from the store. */
+function mountTable(role: Building['role'] = 'viewer', shown: StackSummary[] = stacks) {
+  const pinia = createPinia();
+  setActivePinia(pinia);
+  const store = useBuildingsStore();
+  store.current = { ...building, role };
+  store.stacks = shown;
+  return mount(StacksTable, { global: { plugins: [pinia] } });
+}
+
 function rowOf(wrapper: ReturnType<typeof mount>, name: string) {
   const row = wrapper.findAll('tbody tr').find((r) => r.find('[data-test="name"]').text() === name);
   if (!row) throw new Error(`No row for ${name}`);
@@ -67,7 +92,7 @@ function barFill(row: ReturnType<typeof rowOf>): string {
 
 describe('stacks table', () => {
   it('shows utilisation as a number to two places and a bar in its colour band', () => {
-    const wrapper = mount(StacksTable, { props: { stacks, canEdit: false, canDelete: false } });
+    const wrapper = mountTable('viewer');
     const comfortable = rowOf(wrapper, 'A/1').find('[data-test="utilisation"]');
     expect(comfortable.text()).toBe('0.62');
     expect(comfortable.find('[data-band]').attributes('data-band')).toBe('ok');
@@ -78,7 +103,7 @@ describe('stacks table', () => {
   });
 
   it('caps the bar at full length for a failing stack but prints the real utilisation', () => {
-    const wrapper = mount(StacksTable, { props: { stacks, canEdit: false, canDelete: false } });
+    const wrapper = mountTable('viewer');
     const row = rowOf(wrapper, 'C/3');
     expect(row.find('[data-test="utilisation"]').text()).toBe('1.14');
     expect(row.find('[data-band]').attributes('data-band')).toBe('over');
@@ -87,7 +112,7 @@ describe('stacks table', () => {
   });
 
   it("names the governing lift by its label and section (never the graph's internal node id), and the status of each stack", () => {
-    const wrapper = mount(StacksTable, { props: { stacks, canEdit: false, canDelete: false } });
+    const wrapper = mountTable('viewer');
     const governing = rowOf(wrapper, 'B/2').find('[data-test="governing"]');
     expect(governing.text().replace(/\s+/g, ' ')).toBe('L2 · UKC 203x203x46');
     expect(governing.text()).not.toContain('n-b2');
@@ -95,7 +120,7 @@ describe('stacks table', () => {
   });
 
   it('shows a stack with errors as such, with no utilisation and no bar', () => {
-    const wrapper = mount(StacksTable, { props: { stacks, canEdit: false, canDelete: false } });
+    const wrapper = mountTable('viewer');
     const row = rowOf(wrapper, 'D/4');
     expect(row.find('[data-test="status"]').text()).toContain('Has errors');
     expect(row.find('[data-test="utilisation"]').text()).toBe('—');
@@ -104,19 +129,27 @@ describe('stacks table', () => {
   });
 
   it('offers rename to engineers and delete to the lead only, and neither to a viewer', () => {
-    const viewer = mount(StacksTable, { props: { stacks, canEdit: false, canDelete: false } });
+    const viewer = mountTable('viewer');
     expect(viewer.find('[data-test="rename"]').exists()).toBe(false);
     expect(viewer.find('[data-test="delete"]').exists()).toBe(false);
-    const engineer = mount(StacksTable, { props: { stacks, canEdit: true, canDelete: false } });
+    const engineer = mountTable('engineer');
     expect(engineer.findAll('[data-test="rename"]')).toHaveLength(stacks.length);
     expect(engineer.find('[data-test="delete"]').exists()).toBe(false);
-    const lead = mount(StacksTable, { props: { stacks, canEdit: true, canDelete: true } });
+    const lead = mountTable('lead');
     expect(lead.findAll('[data-test="delete"]')).toHaveLength(stacks.length);
   });
 
   it('lists grid references in natural order', () => {
     const mixed = [10, 2, 1].map((n, i) => ({ ...stacks[0], id: 10 + i, name: `C/${n}` }));
-    const wrapper = mount(StacksTable, { props: { stacks: mixed, canEdit: false, canDelete: false } });
+    const wrapper = mountTable('viewer', mixed);
     expect(wrapper.findAll('[data-test="name"]').map((c) => c.text())).toEqual(['C/1', 'C/2', 'C/10']);
+  });
+
+  it('asks before deleting a stack, naming it', async () => {
+    const lead = mountTable('lead');
+    await rowOf(lead, 'C/3').find('[data-test="delete"]').trigger('click');
+    await flushPromises();
+    expect(document.body.textContent).toContain('Delete stack C/3 and its results? Frozen revisions keep their copy.');
+    lead.unmount();
   });
 });
