@@ -57,8 +57,9 @@ export function useFieldDraft(opts: FieldDraftOptions) {
     { immediate: true, deep: true },
   );
 
-  /** Checks one field; passes it on when valid and different, else shows why it was refused. */
-  function commit(key: string, typed: unknown): boolean {
+  /** Checks one field, as typed or chosen into its draft unless given; passes it on when valid and different, else
+   *  shows why it was refused. */
+  function commit(key: string, typed: unknown = draft[key]): boolean {
     const field = toValue(opts.fields).find((f) => f.key === key);
     if (!field) return false;
     const value = field.type === 'number' ? readNumber(typed as string) : typed;

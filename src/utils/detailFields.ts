@@ -1,12 +1,13 @@
 // The fields of a splice detail and a base plate as the properties forms show them.
 import { boltClassSchema, boltDiameterSchema, concreteClassSchema, gradeSchema } from '@shared/schema/stack.ts';
+import type { FieldOption } from '@/utils/nodeFields.ts';
 
 export interface DetailField {
   path: readonly string[];
   label: string;
   unit?: string;
-  /** A select's options (values as stored); numeric selects store numbers. */
-  options?: { label: string; value: string | number }[];
+  /** A select's options, their values as typed: a numeric field stores its choice as a number. */
+  options?: FieldOption[];
   numeric: boolean;
 }
 
@@ -21,7 +22,7 @@ export const SPLICE_FIELDS: readonly DetailField[] = [
   {
     path: ['bolts', 'diameter'],
     label: 'Bolt size',
-    options: boltDiameterSchema.options.map((d) => ({ label: `M${d.value}`, value: d.value })),
+    options: boltDiameterSchema.options.map((d) => ({ label: `M${d.value}`, value: String(d.value) })),
     numeric: true,
   },
   {

@@ -13,6 +13,10 @@ import RobustnessSummary from '@/components/building/RobustnessSummary.vue';
 import { optionsSummary } from '@/components/building/optionsSummary.ts';
 import ConnectionChecks from '@/components/connections/ConnectionChecks.vue';
 import { mockFetch } from './fetchMock.ts';
+import { QSelect } from 'quasar';
+import { spliceDetailSchema, type SpliceDetail } from '@shared/schema/stack.ts';
+import DetailForm from '@/components/connections/DetailForm.vue';
+import { SPLICE_FIELDS } from '@/utils/detailFields.ts';
 import PropertiesPanel from '@/components/stack/PropertiesPanel.vue';
 import ResultsPanel from '@/components/stack/ResultsPanel.vue';
 
@@ -122,6 +126,51 @@ describe('splice and base details in the properties pane', () => {
     ]);
     const viewer = mount(PropertiesPanel, { props: { doc, selection: ['s'], results: null, readOnly: true } });
     expect(viewer.find('[data-test="propose-detail"]').exists()).toBe(false);
+  });
+});
+
+describe('a detail form', () => {
+  // Invented splice detail.
+  const detail: SpliceDetail = {
+    plate: { width: 250, thickness: 10, grade: 'S275' },
+    bolts: { number: 4, diameter: 20, class: '8.8' },
+  };
+  const mountForm = () =>
+    mount(DetailForm<SpliceDetail>, {
+      props: {
+        title: 'Splice',
+        caption: '',
+        proposeLabel: 'Propose',
+        testId: 'splice-detail',
+        fields: SPLICE_FIELDS,
+        schema: spliceDetailSchema,
+        value: detail,
+        proposal: detail,
+        readOnly: false,
+      },
+    });
+
+  it('shows the stored bolt size by its name and sends a size chosen as a number', async () => {
+    const w = mountForm();
+    const size = w.findAllComponents(QSelect).find((s) => s.text().includes('Bolt size'))!;
+    expect(size.text()).toContain('M20');
+    size.vm.$emit('update:modelValue', '24');
+    await flushPromises();
+    expect(w.emitted('change')).toEqual([[{ ...detail, bolts: { ...detail.bolts, diameter: 24 } }]]);
+  });
+
+  it('sends a typed value when the field is left, and refuses one the schema does not take', async () => {
+    const w = mountForm();
+    const width = w.find('input[data-field="plate.width"]');
+    await width.setValue('300');
+    await width.trigger('change');
+    expect(w.emitted('change')?.at(-1)).toEqual([{ ...detail, plate: { ...detail.plate, width: 300 } }]);
+    const sent = w.emitted('change')?.length;
+    await width.setValue('-5');
+    await width.trigger('change');
+    await flushPromises();
+    expect(w.find('.q-field--error').exists()).toBe(true);
+    expect(w.emitted('change')).toHaveLength(sent!);
   });
 });
 

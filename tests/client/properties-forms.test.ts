@@ -64,6 +64,15 @@ describe('node properties form', () => {
     await typeInto(w, 'elevation', '4.000');
     expect(w.emitted('change')).toBeUndefined();
   });
+
+  it('sends a choice at once, as a change of that key only', async () => {
+    const w = mount(NodeForm, { props: { kind: 'restraint', value: restraint, readOnly: false } });
+    const fixity = w.findAllComponents({ name: 'QSelect' }).find((s) => s.text().includes('Rotational fixity'))!;
+    expect(fixity.text()).toContain('pinned');
+    fixity.vm.$emit('update:modelValue', 'fixed');
+    await flushPromises();
+    expect(w.emitted('change')).toEqual([[{ fixity: 'fixed' }]]);
+  });
 });
 
 describe('lift form', () => {
