@@ -6,6 +6,7 @@ import {
   approveBodySchema,
   checkBodySchema,
   commentBodySchema,
+  reopenBodySchema,
   resolveBodySchema,
 } from '../../shared/schema/reviews.ts';
 import { freezeBodySchema } from '../../shared/schema/revisions.ts';
@@ -16,7 +17,7 @@ import { idParam, parseBody } from '../middleware/validate.ts';
 import { reanalyseOutdated } from '../services/outdatedResults.ts';
 import { approveRevision } from '../services/revisionIssue.ts';
 import { buildingOfRevisionId, freezeRevision, getRevision } from '../services/revisions.ts';
-import { addComment, resolveComment } from '../services/reviewComments.ts';
+import { addComment, reopenComment, resolveComment } from '../services/reviewComments.ts';
 import { checkRevision, getReview } from '../services/reviews.ts';
 import {
   arrivalOf,
@@ -77,6 +78,13 @@ export function registerReviewRoutes(router: Router, ctx: ServerContext): void {
     const body = parseBody(resolveBodySchema, req);
     const commentId = idParam(req, 'commentId');
     await resolveComment(ctx.db, idParam(req), commentId, body, currentUser(req), currentAccess(req).role);
+    res.json(await review(req));
+    tellRevisionChanged(ctx, req, idParam(req));
+  });
+  router.post('/revisions/:id/comments/:commentId/reopen', auth, engineer, async (req, res) => {
+    const body = parseBody(reopenBodySchema, req);
+    const commentId = idParam(req, 'commentId');
+    await reopenComment(ctx.db, idParam(req), commentId, body, currentUser(req), currentAccess(req).role);
     res.json(await review(req));
     tellRevisionChanged(ctx, req, idParam(req));
   });

@@ -1,8 +1,9 @@
-// A checker's comments on the stacks and lifts of a revision (docs/issue-workflow.md): open until resolved, once;
-// who wrote each and when, who resolved it and when. Written only while the review is open.
+// A checker's comments on the stacks and lifts of a revision (docs/issue-workflow.md): open until resolved; a
+// resolved one may be reopened (the resolution it undoes stays in the audit log); who wrote each and when, who
+// resolved it and when. Written only while the review is open.
 import type { Knex } from 'knex';
 import type { Role, User } from '../../shared/schema/api.ts';
-import type { ResolveBody, ReviewComment } from '../../shared/schema/reviews.ts';
+import type { ReopenBody, ResolveBody, ReviewComment } from '../../shared/schema/reviews.ts';
 import { now } from '../db.ts';
 import { conflict, notFound, unprocessable } from '../errors.ts';
 import { recordAudit } from './audit.ts';
@@ -104,6 +105,36 @@ export async function resolveComment(
       buildingId: r.head.building_id,
       action: 'revision.resolve',
       detail: { revisionId, commentId },
+    });
+    return toComment((await trx<CommentRow>('revision_comments').where({ id: commentId }).first()) as CommentRow);
+  });
+}
+
+/** Opens a resolved comment again, under the rule that resolves it; 409 when it is open. */
+export async function reopenComment(
+  db: Knex,
+  revisionId: number,
+  commentId: number,
+  body: Required<ReopenBody>,
+  user: User,
+  role: Role | null,
+): Promise<ReviewComment> {
+  return db.transaction(async (trx) => {
+    const r = await recordOf(trx, revisionId);
+    allow('resolve', role, user, r);
+    const found = await trx<CommentRow>('revision_comments').where({ id: commentId, revision_id: revisionId }).first();
+    if (!found) throw notFound('Comment');
+    const n = await trx('revision_comments')
+      .where({ id: commentId })
+      .whereNotNull('resolved_at')
+      .update({ resolved_by: null, resolved_by_name: null, resolved_at: null, resolution: null });
+    if (n === 0) throw conflict('This comment is open already');
+    const resolved = { by: found.resolved_by_name, at: found.resolved_at, note: found.resolution };
+    await recordAudit(trx, {
+      userId: user.id,
+      buildingId: r.head.building_id,
+      action: 'revision.reopen',
+      detail: { revisionId, commentId, note: body.note, resolved },
     });
     return toComment((await trx<CommentRow>('revision_comments').where({ id: commentId }).first()) as CommentRow);
   });

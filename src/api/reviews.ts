@@ -1,11 +1,12 @@
 // Checking and approving revisions (docs/issue-workflow.md): preparing one, its review record, the check,
-// comments and their resolution, and the approval that issues it. Replies are checked against the shared schemas.
+// comments, their resolution and reopening, and the approval that issues it. Replies are checked against the shared schemas.
 import {
   preparedRevisionSchema,
   reviewSchema,
   type ApproveBody,
   type CheckBody,
   type CommentBody,
+  type ReopenBody,
   type ResolveBody,
   type RevisionReview,
 } from '@shared/schema/reviews.ts';
@@ -29,6 +30,8 @@ export const reviewsApi = {
     review(apiFetch<unknown>('POST', `/revisions/${revisionId}/comments`, body)),
   resolve: (revisionId: number, commentId: number, body: ResolveBody = {}) =>
     review(apiFetch<unknown>('POST', `/revisions/${revisionId}/comments/${commentId}/resolve`, body)),
+  reopen: (revisionId: number, commentId: number, body: ReopenBody = {}) =>
+    review(apiFetch<unknown>('POST', `/revisions/${revisionId}/comments/${commentId}/reopen`, body)),
   approve: (revisionId: number, body: ApproveBody = {}) =>
     review(apiFetch<unknown>('POST', `/revisions/${revisionId}/approve`, body)),
 };

@@ -58,11 +58,12 @@ export const useReviewsStore = defineStore('reviews', () => {
   const comment = (id: number, body: CommentBody) => step('add the comment', () => reviewsApi.comment(id, body));
   const resolve = (id: number, commentId: number) =>
     step('resolve the comment', () => reviewsApi.resolve(id, commentId));
+  const reopen = (id: number, commentId: number) => step('reopen the comment', () => reviewsApi.reopen(id, commentId));
   async function approve(id: number, body: ApproveBody): Promise<boolean> {
     const ok = await step('approve the revision', () => reviewsApi.approve(id, body));
     if (ok && review.value) notify.success(`Revision ${review.value.code} approved and issued; the team is e-mailed`);
     return ok;
   }
 
-  return { review, busy, load, prepare, check, comment, resolve, approve };
+  return { review, busy, load, prepare, check, comment, resolve, reopen, approve };
 });

@@ -75,6 +75,12 @@ const review = (actions: RevisionReview['actions']): RevisionReview => ({
   actions,
 });
 
+/** The same review with its comment resolved. */
+const withResolved = (actions: RevisionReview['actions']): RevisionReview => {
+  const r = review(actions);
+  return { ...r, comments: [{ ...r.comments[0], resolved: { name: 'Checking Engineer', at, note: 'On sheet 4' } }] };
+};
+
 let pinia: Pinia;
 beforeEach(() => {
   pinia = createPinia();
@@ -135,6 +141,48 @@ describe('the review card', () => {
     const approve = requests.find((r) => r.method === 'POST');
     expect(approve?.body).toEqual({ openCommentsReason: 'Bolts follow on the connection sheet' });
     expect(byTest('review-state')?.textContent).toContain('issued');
+    wrapper.unmount();
+  });
+
+  it('offers to reopen a resolved comment, sends it, and shows it open again', async () => {
+    const requests = mockFetch({
+      'GET /api/revisions/12/review': () => ({
+        status: 200,
+        body: withResolved({ check: false, approve: true, comment: true, resolve: true }),
+      }),
+      'POST /api/revisions/12/comments/5/reopen': () => ({
+        status: 200,
+        body: review({ check: false, approve: true, comment: true, resolve: true }),
+      }),
+      'GET /api/buildings/7/revisions': () => ({ status: 200, body: [] }),
+      'GET /api/revisions/12': () => ({ status: 200, body: revision }),
+    });
+    const wrapper = mount(ReviewCard, { props: { revision }, attachTo: document.body, global: { plugins: [pinia] } });
+    await flushPromises();
+    expect(byTest('resolved')?.textContent).toContain('On sheet 4');
+    expect(byTest('resolve')).toBeNull();
+    byTest('reopen')?.click();
+    await flushPromises();
+    expect(requests.filter((r) => r.method === 'POST').map((r) => [r.url, r.body])).toEqual([
+      ['/api/revisions/12/comments/5/reopen', {}],
+    ]);
+    expect(byTest('resolved')).toBeNull();
+    expect(byTest('reopen')).toBeNull();
+    expect(byTest('resolve')).not.toBeNull();
+    wrapper.unmount();
+  });
+
+  it('shows a resolved comment without a reopen button to a member who may not resolve', async () => {
+    mockFetch({
+      'GET /api/revisions/12/review': () => ({
+        status: 200,
+        body: withResolved({ check: false, approve: false, comment: false, resolve: false }),
+      }),
+    });
+    const wrapper = mount(ReviewCard, { props: { revision }, attachTo: document.body, global: { plugins: [pinia] } });
+    await flushPromises();
+    expect(byTest('resolved')).not.toBeNull();
+    expect(byTest('reopen')).toBeNull();
     wrapper.unmount();
   });
 });

@@ -586,6 +586,18 @@ describe('malformed input on every writing route', () => {
       ],
     },
     {
+      name: 'POST /api/revisions/:id/comments/:commentId/reopen',
+      method: 'POST',
+      path: () => `/revisions/${ids.revision}/comments/${ids.comment}/reopen`,
+      bodyless: true,
+      cases: () => [
+        ['a note that is a number', { body: { note: 4 } }],
+        ['an unknown field', { body: { note: '', resolved: false } }],
+        ['a comment id of 0', { path: `/revisions/${ids.revision}/comments/0/reopen`, body: {} }],
+        ['a comment of no revision', { path: `/revisions/${ids.revision}/comments/999999/reopen`, body: {} }],
+      ],
+    },
+    {
       name: 'POST /api/revisions/:id/resend',
       method: 'POST',
       path: () => '/revisions/1/resend',

@@ -199,6 +199,46 @@ describe('checking and approving a revision', () => {
     await expect(s.ctx.db('revision_steps').where({ revision_id: rev.id }).delete()).rejects.toThrow(/final/);
   });
 
+  it('reopens a resolved comment, which holds the approval again; the resolution it undoes stays in the audit log', async () => {
+    const rev = await prepare(f.lead.token, 'construction');
+    const c = (await comment(checker.token, rev.id, f.stackIds[0], null, 'Splice bolts?')).body as RevisionReview;
+    const commentId = c.comments[0].id;
+    const reopen = (token: string, body: unknown = {}) => step(token, rev.id, `comments/${commentId}/reopen`, body);
+    // Open: nothing to reopen, and nothing stored.
+    expect((await reopen(f.lead.token)).status).toBe(409);
+    expect((await step(checker.token, rev.id, `comments/${commentId}/resolve`, { note: 'On sheet 4' })).status).toBe(
+      200,
+    );
+    expect((await step(checker.token, rev.id, 'check')).status).toBe(200);
+    expect((await reopen(f.viewer.token)).status).toBe(403);
+    expect((await step(f.lead.token, rev.id, `comments/999999/reopen`, {})).status).toBe(404);
+    expect((await review(f.lead.token, rev.id)).comments[0].resolved).not.toBeNull();
+
+    const reopened = await reopen(f.lead.token, { note: 'Sheet 4 shows the old bolts' });
+    expect(reopened.status).toBe(200);
+    const after = reviewSchema.parse(reopened.body);
+    expect(after.comments[0].resolved).toBeNull();
+    expect(after.state).toBe('checked');
+    const audit = await s.ctx.db('audit_log').where({ action: 'revision.reopen' }).orderBy('id', 'desc').first();
+    expect(JSON.parse(audit.detail)).toMatchObject({
+      revisionId: rev.id,
+      commentId,
+      note: 'Sheet 4 shows the old bolts',
+      resolved: { by: checker.user.name, note: 'On sheet 4' },
+    });
+    expect((await reopen(f.lead.token)).status).toBe(409);
+    // Open again, so the approval is held until it is resolved or the lead says why.
+    const refused = await step(f.lead.token, rev.id, 'approve');
+    expect(refused.status).toBe(422);
+    expect((refused.body as { error: { message: string } }).error.message).toMatch(/1 comment is still open/);
+    expect((await step(checker.token, rev.id, `comments/${commentId}/resolve`, { note: 'New bolts' })).status).toBe(
+      200,
+    );
+    expect((await step(f.lead.token, rev.id, 'approve')).status).toBe(200);
+    // Issued: the review is closed, so a comment can no longer be reopened.
+    expect((await reopen(f.lead.token)).status).toBe(409);
+  });
+
   it('approves a checked revision whose comments are all resolved without a reason', async () => {
     const rev = await prepare(f.lead.token, 'construction');
     const c = (await comment(checker.token, rev.id, f.stackIds[1], 'lift-2', 'Grade?')).body as RevisionReview;

@@ -43,7 +43,7 @@ interface Fixture {
   positionId?: number;
   /** A revision of this building prepared by a member who is none of the actors (for cases with `review`). */
   reviewRevisionId: number;
-  /** A comment on it by that member (review 'commented'). */
+  /** A comment on it by that member (review 'commented'), resolved by them (review 'resolved'). */
   commentId: number;
 }
 interface Case {
@@ -55,7 +55,7 @@ interface Case {
   /** Sets up what the route needs beyond the fixture, as the lead. */
   prepare?: (s: TestServer, lead: string, f: Fixture) => Promise<Partial<Fixture>>;
   /** The fixture's building gets a revision prepared by another engineer: checked, or with a comment. */
-  review?: 'prepared' | 'checked' | 'commented';
+  review?: 'prepared' | 'checked' | 'commented' | 'resolved';
 }
 
 const LEAD_EMAIL = 'matrix-lead@example.test';
@@ -361,6 +361,12 @@ const MATRIX: Record<string, Case> = {
     review: 'commented',
     expect: edit(200),
   },
+  'POST /api/revisions/:id/comments/:commentId/reopen': {
+    path: (f) => `/revisions/${f.reviewRevisionId}/comments/${f.commentId}/reopen`,
+    body: () => ({}),
+    review: 'resolved',
+    expect: edit(200),
+  },
   'POST /api/revisions/:id/approve': {
     path: (f) => `/revisions/${f.reviewRevisionId}/approve`,
     body: () => ({}),
@@ -458,13 +464,18 @@ describe('the role matrix', () => {
     });
     const reviewRevisionId = (r.body as { id: number }).id;
     let commentId = 0;
-    if (review === 'commented') {
+    if (review === 'commented' || review === 'resolved') {
       const c = await s.api('POST', `/revisions/${reviewRevisionId}/comments`, {
         token: checker.token,
         body: { stackId, liftId: null, text: 'matrix' },
       });
       commentId = (c.body as { comments: { id: number }[] }).comments[0].id;
     }
+    if (review === 'resolved')
+      await s.api('POST', `/revisions/${reviewRevisionId}/comments/${commentId}/resolve`, {
+        token: checker.token,
+        body: {},
+      });
     if (review === 'checked')
       await s.api('POST', `/revisions/${reviewRevisionId}/check`, { token: checker.token, body: {} });
     return { reviewRevisionId, commentId };
