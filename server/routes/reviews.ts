@@ -6,7 +6,6 @@ import {
   approveBodySchema,
   checkBodySchema,
   commentBodySchema,
-  reopenBodySchema,
   resolveBodySchema,
 } from '../../shared/schema/reviews.ts';
 import { freezeBodySchema } from '../../shared/schema/revisions.ts';
@@ -17,7 +16,7 @@ import { idParam, parseBody } from '../middleware/validate.ts';
 import { reanalyseOutdated } from '../services/outdatedResults.ts';
 import { approveRevision } from '../services/revisionIssue.ts';
 import { buildingOfRevisionId, freezeRevision, getRevision } from '../services/revisions.ts';
-import { addComment, reopenComment, resolveComment } from '../services/reviewComments.ts';
+import { addComment, markComment } from '../services/reviewComments.ts';
 import { checkRevision, getReview } from '../services/reviews.ts';
 import {
   arrivalOf,
@@ -74,20 +73,18 @@ export function registerReviewRoutes(router: Router, ctx: ServerContext): void {
     res.status(201).json(await review(req));
     tellRevisionChanged(ctx, req, idParam(req));
   });
-  router.post('/revisions/:id/comments/:commentId/resolve', auth, engineer, async (req, res) => {
-    const body = parseBody(resolveBodySchema, req);
-    const commentId = idParam(req, 'commentId');
-    await resolveComment(ctx.db, idParam(req), commentId, body, currentUser(req), currentAccess(req).role);
-    res.json(await review(req));
-    tellRevisionChanged(ctx, req, idParam(req));
-  });
-  router.post('/revisions/:id/comments/:commentId/reopen', auth, engineer, async (req, res) => {
-    const body = parseBody(reopenBodySchema, req);
-    const commentId = idParam(req, 'commentId');
-    await reopenComment(ctx.db, idParam(req), commentId, body, currentUser(req), currentAccess(req).role);
-    res.json(await review(req));
-    tellRevisionChanged(ctx, req, idParam(req));
-  });
+  // Resolving a comment and reopening it: one rule, one body (docs/issue-workflow.md §Open comments).
+  for (const [step, to] of [
+    ['resolve', 'resolved'],
+    ['reopen', 'open'],
+  ] as const)
+    router.post(`/revisions/:id/comments/:commentId/${step}`, auth, engineer, async (req, res) => {
+      const body = parseBody(resolveBodySchema, req);
+      const commentId = idParam(req, 'commentId');
+      await markComment(ctx.db, idParam(req), commentId, to, body, currentUser(req), currentAccess(req).role);
+      res.json(await review(req));
+      tellRevisionChanged(ctx, req, idParam(req));
+    });
   router.post('/revisions/:id/approve', auth, lead, mailLimit, async (req, res) => {
     const body = parseBody(approveBodySchema, req);
     const id = idParam(req);

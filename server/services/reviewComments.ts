@@ -3,7 +3,7 @@
 // resolved it and when. Written only while the review is open.
 import type { Knex } from 'knex';
 import type { Role, User } from '../../shared/schema/api.ts';
-import type { ReopenBody, ResolveBody, ReviewComment } from '../../shared/schema/reviews.ts';
+import type { ResolveBody, ReviewComment } from '../../shared/schema/reviews.ts';
 import { now } from '../db.ts';
 import { conflict, notFound, unprocessable } from '../errors.ts';
 import { recordAudit } from './audit.ts';
@@ -82,10 +82,15 @@ export async function addComment(
   });
 }
 
-export async function resolveComment(
+/**
+ * Resolves an open comment (`resolved`), or opens a resolved one again (`open`), under the one rule for both;
+ * 409 when it is so already. Reopening leaves the resolution it undoes in the audit log.
+ */
+export async function markComment(
   db: Knex,
   revisionId: number,
   commentId: number,
+  to: 'resolved' | 'open',
   body: Required<ResolveBody>,
   user: User,
   role: Role | null,
@@ -95,46 +100,23 @@ export async function resolveComment(
     allow('resolve', role, user, r);
     const found = await trx<CommentRow>('revision_comments').where({ id: commentId, revision_id: revisionId }).first();
     if (!found) throw notFound('Comment');
-    const n = await trx('revision_comments')
-      .where({ id: commentId })
-      .whereNull('resolved_at')
-      .update({ resolved_by: user.id, resolved_by_name: user.name, resolved_at: now(), resolution: body.note });
-    if (n === 0) throw conflict('This comment is resolved already');
+    const row = trx('revision_comments').where({ id: commentId });
+    const n =
+      to === 'resolved'
+        ? await row
+            .whereNull('resolved_at')
+            .update({ resolved_by: user.id, resolved_by_name: user.name, resolved_at: now(), resolution: body.note })
+        : await row
+            .whereNotNull('resolved_at')
+            .update({ resolved_by: null, resolved_by_name: null, resolved_at: null, resolution: null });
+    if (n === 0) throw conflict(`This comment is ${to} already`);
+    const undone = { by: found.resolved_by_name, at: found.resolved_at, note: found.resolution };
     await recordAudit(trx, {
       userId: user.id,
       buildingId: r.head.building_id,
-      action: 'revision.resolve',
-      detail: { revisionId, commentId },
-    });
-    return toComment((await trx<CommentRow>('revision_comments').where({ id: commentId }).first()) as CommentRow);
-  });
-}
-
-/** Opens a resolved comment again, under the rule that resolves it; 409 when it is open. */
-export async function reopenComment(
-  db: Knex,
-  revisionId: number,
-  commentId: number,
-  body: Required<ReopenBody>,
-  user: User,
-  role: Role | null,
-): Promise<ReviewComment> {
-  return db.transaction(async (trx) => {
-    const r = await recordOf(trx, revisionId);
-    allow('resolve', role, user, r);
-    const found = await trx<CommentRow>('revision_comments').where({ id: commentId, revision_id: revisionId }).first();
-    if (!found) throw notFound('Comment');
-    const n = await trx('revision_comments')
-      .where({ id: commentId })
-      .whereNotNull('resolved_at')
-      .update({ resolved_by: null, resolved_by_name: null, resolved_at: null, resolution: null });
-    if (n === 0) throw conflict('This comment is open already');
-    const resolved = { by: found.resolved_by_name, at: found.resolved_at, note: found.resolution };
-    await recordAudit(trx, {
-      userId: user.id,
-      buildingId: r.head.building_id,
-      action: 'revision.reopen',
-      detail: { revisionId, commentId, note: body.note, resolved },
+      action: to === 'resolved' ? 'revision.resolve' : 'revision.reopen',
+      detail:
+        to === 'resolved' ? { revisionId, commentId } : { revisionId, commentId, note: body.note, resolved: undone },
     });
     return toComment((await trx<CommentRow>('revision_comments').where({ id: commentId }).first()) as CommentRow);
   });

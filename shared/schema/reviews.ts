@@ -85,11 +85,10 @@ export const commentBodySchema = z
   .strict();
 export type CommentBody = z.input<typeof commentBodySchema>;
 
+/** Resolving a comment, or reopening a resolved one: the note shown with the resolution, or why it is reopened
+ *  (kept in the audit log with the resolution it undoes). */
 export const resolveBodySchema = z.object({ note: text(2000).default('') }).strict();
 export type ResolveBody = z.input<typeof resolveBodySchema>;
-/** Reopening a resolved comment: why, kept in the audit log with the resolution it undoes. */
-export const reopenBodySchema = z.object({ note: text(2000).default('') }).strict();
-export type ReopenBody = z.input<typeof reopenBodySchema>;
 
 /** What the package prints of the review: the sign-offs and, when approved with comments open, why and which. */
 export interface SignOff {

@@ -6,7 +6,6 @@ import {
   type ApproveBody,
   type CheckBody,
   type CommentBody,
-  type ReopenBody,
   type ResolveBody,
   type RevisionReview,
 } from '@shared/schema/reviews.ts';
@@ -30,7 +29,7 @@ export const reviewsApi = {
     review(apiFetch<unknown>('POST', `/revisions/${revisionId}/comments`, body)),
   resolve: (revisionId: number, commentId: number, body: ResolveBody = {}) =>
     review(apiFetch<unknown>('POST', `/revisions/${revisionId}/comments/${commentId}/resolve`, body)),
-  reopen: (revisionId: number, commentId: number, body: ReopenBody = {}) =>
+  reopen: (revisionId: number, commentId: number, body: ResolveBody = {}) =>
     review(apiFetch<unknown>('POST', `/revisions/${revisionId}/comments/${commentId}/reopen`, body)),
   approve: (revisionId: number, body: ApproveBody = {}) =>
     review(apiFetch<unknown>('POST', `/revisions/${revisionId}/approve`, body)),
