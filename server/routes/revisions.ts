@@ -89,7 +89,7 @@ export function registerRevisionRoutes(router: Router, ctx: ServerContext): void
     await reanalyseOutdated(ctx, buildingId, currentUser(req));
     // A lead's freeze: a preliminary revision is prepared and issued at once without a check (the cover says
     // so); a construction revision is prepared and waits for its check and approval (docs/issue-workflow.md).
-    const { id, issued } = await freezeRevision(
+    const { id, issued, snapshot } = await freezeRevision(
       ctx.db,
       buildingId,
       {
@@ -101,7 +101,7 @@ export function registerRevisionRoutes(router: Router, ctx: ServerContext): void
       currentUser(req),
       arrivalOf(req),
     );
-    res.status(201).json(await getRevision(ctx.db, id));
+    res.status(201).json(await getRevision(ctx.db, id, snapshot));
     tellRevisionChanged(ctx, req, id);
     if (issued) drawAfterIssue(ctx, req, id);
   });

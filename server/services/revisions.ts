@@ -22,7 +22,7 @@ import { recordAudit } from './audit.ts';
 import { listRecipients } from './revisionsRecipients.ts';
 import { queueIssue } from './revisionIssue.ts';
 import { loadSignOff, recordStep, reviewSummaries } from './reviews.ts';
-import { addGoverningWorking, sha256Hex, snapshotStacks, takeSnapshot } from './snapshot.ts';
+import { addGoverningWorking, sha256HexInTurns, snapshotStacks, takeSnapshot } from './snapshot.ts';
 
 export interface RevisionRow {
   id: number;
@@ -364,16 +364,17 @@ export async function loadSnapshot(db: Knex, id: number): Promise<{ snapshot: Re
     .where({ id })
     .first<{ snapshot: string; hash: string } | undefined>('snapshot', 'hash');
   if (!row) throw notFound('Revision');
-  if (sha256Hex(row.snapshot) !== row.hash)
+  if ((await sha256HexInTurns(row.snapshot)) !== row.hash)
     throw new Error(`Revision ${id}: the stored snapshot does not match its hash`);
   // Written by freezeRevision from validated documents and our engine's results.
   return { snapshot: JSON.parse(row.snapshot) as RevisionSnapshot, hash: row.hash };
 }
 
-export async function getRevision(db: Knex, id: number): Promise<RevisionDetail> {
+/** `frozen`: the snapshot just frozen, when the caller has it, so it is not read and parsed again. */
+export async function getRevision(db: Knex, id: number, frozen?: RevisionSnapshot): Promise<RevisionDetail> {
   const row = await loadRevisionRow(db, id);
   const [{ snapshot }, counts, recipients, reviews] = await Promise.all([
-    loadSnapshot(db, id),
+    frozen ? { snapshot: frozen } : loadSnapshot(db, id),
     mailCounts(db, [id]),
     listRecipients(db, id),
     reviewSummaries(db, [row]),

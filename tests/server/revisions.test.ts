@@ -9,6 +9,7 @@ import type {
 import type { StackSummary } from '../../shared/schema/api.ts';
 import { errorCode, registerUser, startTestServer, type TestServer } from './helpers.ts';
 import { revisionFixture, setLiftSection, type RevisionFixture } from './revisionsFixture.ts';
+import { canonicalJson } from '../../server/services/snapshot.ts';
 
 const sha256 = (text: string) => createHash('sha256').update(text, 'utf8').digest('hex');
 
@@ -59,6 +60,14 @@ describe('freezing revisions', () => {
     expect(first.hash).toMatch(/^[0-9a-f]{64}$/);
     const row = await s.ctx.db('revisions').where({ id: first.id }).first<{ snapshot: string }>('snapshot');
     expect(sha256(row.snapshot)).toBe(first.hash);
+    // Written and digested a stack at a time (server/services/snapshot.ts), the text is still the canonical form:
+    // keys sorted at every depth, as canonicalJson writes the whole at once.
+    expect(row.snapshot).toBe(canonicalJson(JSON.parse(row.snapshot)));
+    // The freeze's reply is made from the snapshot in hand; reading the stored text gives the same detail (but for
+    // the e-mail, which may be sent meanwhile).
+    const withoutMail = ({ mail: _mail, ...rest }: RevisionDetail) => rest;
+    const read = (await s.api('GET', `/revisions/${first.id}`, { token: f.lead.token })).body as RevisionDetail;
+    expect(withoutMail(read)).toEqual(withoutMail(first));
   });
 
   it('keeps the revision content, hash and package when the stacks are edited afterwards', async () => {
