@@ -10,7 +10,7 @@ import type { ServerContext } from '../context.ts';
 import { now } from '../db.ts';
 import { packageFilename } from '../services/revisionsMail.ts';
 import { issuedPackage } from '../services/revisionPackages.ts';
-import { loadSnapshot } from '../services/revisions.ts';
+import { loadSnapshotHead } from '../services/revisions.ts';
 import { claimDue, dueAttachments, recordAttempt, renewClaim, type QueuedMail, type QueueStatus } from './mailQueue.ts';
 import type { MailMessage } from './mailer.ts';
 
@@ -37,10 +37,10 @@ async function messageOf(ctx: ServerContext, mail: QueuedMail): Promise<MailMess
   };
   if (mail.attach_revision_id === null) return message;
   const pkg = await issuedPackage(ctx, mail.attach_revision_id);
-  const { snapshot } = await loadSnapshot(ctx.db, mail.attach_revision_id);
+  const head = await loadSnapshotHead(ctx.db, mail.attach_revision_id);
   return {
     ...message,
-    attachments: [{ filename: packageFilename(snapshot), content: pkg.bytes, contentType: 'application/pdf' }],
+    attachments: [{ filename: packageFilename(head), content: pkg.bytes, contentType: 'application/pdf' }],
   };
 }
 

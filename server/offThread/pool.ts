@@ -5,7 +5,7 @@
 // Work waits in a bounded queue that takes buildings in turn (fairQueue.ts); a full queue is refused
 // with 503 and Retry-After.
 import { Piscina } from 'piscina';
-import type { RevisionSnapshot } from '../../shared/schema/revisions.ts';
+import type { SnapshotText } from '../services/revisions.ts';
 import { busy } from '../errors.ts';
 import { FairQueue, QueueFullError, type FairQueueLimits } from './fairQueue.ts';
 import { workerExecArgv } from './passwords.ts';
@@ -22,7 +22,7 @@ import type { PackageExtras } from '../pdf/calcPackage.ts';
 
 export interface OffThread {
   /** `extras.mark`, when given, is printed on every page (a re-drawn or check copy says so). */
-  renderPackage(snapshot: RevisionSnapshot, hash: string, extras?: PackageExtras): Promise<Buffer>;
+  renderPackage(snapshot: SnapshotText, extras?: PackageExtras): Promise<Buffer>;
   /** `key`: the building, so that one building's work cannot hold up another's. */
   sizeBuilding(task: BuildingSizingTask, key?: string): Promise<BuildingSizingOutcome>;
   analyseBuilding(task: BuildingAnalysisTask, key?: string): Promise<AnalysedStack[]>;
@@ -62,10 +62,10 @@ export function createOffThread(limits: FairQueueLimits = OFF_THREAD_LIMITS): Of
     workerData: { nice: 10 },
   });
   return {
-    async renderPackage(snapshot, hash, extras = {}) {
-      const task: PackageTask = { snapshot, hash, ...extras };
+    async renderPackage(snapshot, extras = {}) {
+      const task: PackageTask = { snapshotText: snapshot.text, hash: snapshot.hash, ...extras };
       // A Buffer crosses the thread boundary as a plain Uint8Array.
-      const bytes = (await enqueue(`building:${snapshot.building.id}`, () =>
+      const bytes = (await enqueue(`building:${snapshot.buildingId}`, () =>
         pool.run(task, { name: 'renderPackage' }),
       )) as Uint8Array;
       return Buffer.from(bytes.buffer, bytes.byteOffset, bytes.byteLength);

@@ -14,13 +14,16 @@ import { analyseStack } from '../../shared/engine/index.ts';
 import { applyOps, OpError, touchedIds } from '../../shared/ops/applyOps.ts';
 import { renderCalcPackage, type PackageExtras } from '../pdf/calcPackage.ts';
 
+/** The snapshot goes as its stored text, parsed here: a string crosses the thread boundary in one copy, where the
+ *  object would be cloned, and a parse of megabytes would hold the main thread. */
 export interface PackageTask extends PackageExtras {
-  snapshot: RevisionSnapshot;
+  snapshotText: string;
   hash: string;
 }
 
-export function renderPackage({ snapshot, hash, ...extras }: PackageTask): Promise<Buffer> {
-  return renderCalcPackage(snapshot, hash, extras);
+export function renderPackage({ snapshotText, hash, ...extras }: PackageTask): Promise<Buffer> {
+  // Written by freezeRevision from validated documents and our engine's results, and its hash checked on reading.
+  return renderCalcPackage(JSON.parse(snapshotText) as RevisionSnapshot, hash, extras);
 }
 
 export interface SizingStack {

@@ -13,6 +13,7 @@ import {
   getRevision,
   listRevisions,
   loadSnapshot,
+  loadSnapshotHead,
 } from '../services/revisions.ts';
 import { compareRevisions } from '../services/revisionsCompare.ts';
 import { packageFilename, resendRevisionMail } from '../services/revisionsMail.ts';
@@ -120,10 +121,10 @@ export function registerRevisionRoutes(router: Router, ctx: ServerContext): void
     const { copy } = parseQuery(copyQuerySchema, req);
     const id = idParam(req);
     const pkg = await packageCopy(ctx, id, copy);
-    const { snapshot } = await loadSnapshot(ctx.db, id);
+    const head = await loadSnapshotHead(ctx.db, id);
     res.setHeader('X-Package-SHA256', pkg.sha256);
     res
-      .attachment(packageFilename(snapshot).replace(/\.pdf$/, `${copySuffix(pkg)}.pdf`))
+      .attachment(packageFilename(head).replace(/\.pdf$/, `${copySuffix(pkg)}.pdf`))
       .type('application/pdf')
       .send(pkg.bytes);
   });

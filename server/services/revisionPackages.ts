@@ -12,7 +12,7 @@ import { now } from '../db.ts';
 import { isUniqueViolation, onUniqueViolation } from '../dbErrors.ts';
 import { conflict, HttpError, notFound } from '../errors.ts';
 import { recordAudit } from './audit.ts';
-import { loadSnapshot } from './revisions.ts';
+import { loadSnapshotText } from './revisions.ts';
 import { isIssued, loadSignOff } from './reviews.ts';
 
 interface PackageRow {
@@ -80,8 +80,8 @@ async function readOrDraw(ctx: ServerContext, revisionId: number): Promise<Store
   if (stored) return stored;
   // A revision awaiting its check or approval has no issued package (only check copies, never stored).
   if (!row && !(await isIssued(ctx.db, revisionId))) throw conflict('This revision is not issued yet');
-  const { snapshot, hash } = await loadSnapshot(ctx.db, revisionId);
-  const bytes = await ctx.offThread.renderPackage(snapshot, hash, { signOff: await loadSignOff(ctx.db, revisionId) });
+  const snapshot = await loadSnapshotText(ctx.db, revisionId);
+  const bytes = await ctx.offThread.renderPackage(snapshot, { signOff: await loadSignOff(ctx.db, revisionId) });
   const fields = { bytes, sha256: sha256(bytes), size: bytes.length, drawn_at: now() };
   if (row) {
     // Only the first drawing is kept: another process may have stored its own meanwhile.
@@ -113,8 +113,8 @@ export const checkCopyMark = (code: string, at: string) =>
  * sign-offs so far, marked on every page, never stored or mailed (docs/issue-workflow.md).
  */
 async function checkCopy(ctx: ServerContext, revisionId: number): Promise<StoredPackage> {
-  const { snapshot, hash } = await loadSnapshot(ctx.db, revisionId);
-  const bytes = await ctx.offThread.renderPackage(snapshot, hash, {
+  const snapshot = await loadSnapshotText(ctx.db, revisionId);
+  const bytes = await ctx.offThread.renderPackage(snapshot, {
     mark: checkCopyMark(snapshot.code, now()),
     signOff: await loadSignOff(ctx.db, revisionId),
   });
@@ -150,14 +150,14 @@ export const redrawnMark = (code: string, copy: number, at: string) =>
 export async function redrawCopy(ctx: ServerContext, revisionId: number, user: User): Promise<StoredPackage> {
   const fault = await issuedPackageFault(ctx.db, revisionId);
   if (!fault) throw conflict('The issued package is intact; only a tampered or lost package may be re-drawn');
-  const { snapshot, hash } = await loadSnapshot(ctx.db, revisionId);
+  const snapshot = await loadSnapshotText(ctx.db, revisionId);
   const at = now();
   const copies = await ctx
     .db('revision_packages')
     .where({ revision_id: revisionId })
     .max<{ m: number | null }[]>({ m: 'copy' });
   const copy = Number(copies[0]?.m ?? 0) + 1;
-  const bytes = await ctx.offThread.renderPackage(snapshot, hash, {
+  const bytes = await ctx.offThread.renderPackage(snapshot, {
     mark: redrawnMark(snapshot.code, copy, at),
     signOff: await loadSignOff(ctx.db, revisionId),
   });
@@ -179,7 +179,7 @@ export async function redrawCopy(ctx: ServerContext, revisionId: number, user: U
   );
   await recordAudit(ctx.db, {
     userId: user.id,
-    buildingId: snapshot.building.id,
+    buildingId: snapshot.buildingId,
     action: 'revision.redraw',
     detail: { revisionId, copy, reason },
   });

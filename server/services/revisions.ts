@@ -358,16 +358,51 @@ async function loadRevisionRow(db: Knex, id: number): Promise<RevisionRow> {
   return row;
 }
 
-/** The snapshot as frozen; a text whose hash no longer matches is refused rather than printed. */
-export async function loadSnapshot(db: Knex, id: number): Promise<{ snapshot: RevisionSnapshot; hash: string }> {
+/** A frozen snapshot's text as stored, with what names it; a text whose hash no longer matches is refused. */
+export interface SnapshotText {
+  text: string;
+  hash: string;
+  code: string;
+  buildingId: number;
+}
+
+export async function loadSnapshotText(db: Knex, id: number): Promise<SnapshotText> {
   const row = await db('revisions')
     .where({ id })
-    .first<{ snapshot: string; hash: string } | undefined>('snapshot', 'hash');
+    .first<{ snapshot: string; hash: string; code: string; building_id: number } | undefined>(
+      'snapshot',
+      'hash',
+      'code',
+      'building_id',
+    );
   if (!row) throw notFound('Revision');
   if ((await sha256HexInTurns(row.snapshot)) !== row.hash)
     throw new Error(`Revision ${id}: the stored snapshot does not match its hash`);
+  return { text: row.snapshot, hash: row.hash, code: row.code, buildingId: row.building_id };
+}
+
+/**
+ * The frozen building and code of a revision, for names (a package's file name), without parsing its stacks: the
+ * snapshot is canonical JSON, keys sorted, so every top-level field but `stacks` stands before it.
+ */
+export async function loadSnapshotHead(db: Knex, id: number): Promise<Pick<RevisionSnapshot, 'building' | 'code'>> {
+  const row = await db('revisions').where({ id }).first<{ snapshot: string } | undefined>('snapshot');
+  if (!row) throw notFound('Revision');
+  const cut = row.snapshot.indexOf(',"stacks":[');
+  let head: RevisionSnapshot;
+  try {
+    head = JSON.parse(cut >= 0 ? `${row.snapshot.slice(0, cut)}}` : row.snapshot) as RevisionSnapshot;
+  } catch {
+    head = JSON.parse(row.snapshot) as RevisionSnapshot;
+  }
+  return { building: head.building, code: head.code };
+}
+
+/** The snapshot as frozen, parsed; a text whose hash no longer matches is refused rather than printed. */
+export async function loadSnapshot(db: Knex, id: number): Promise<{ snapshot: RevisionSnapshot; hash: string }> {
+  const { text, hash } = await loadSnapshotText(db, id);
   // Written by freezeRevision from validated documents and our engine's results.
-  return { snapshot: JSON.parse(row.snapshot) as RevisionSnapshot, hash: row.hash };
+  return { snapshot: JSON.parse(text) as RevisionSnapshot, hash };
 }
 
 /** `frozen`: the snapshot just frozen, when the caller has it, so it is not read and parsed again. */
