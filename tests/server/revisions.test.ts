@@ -10,6 +10,7 @@ import type { StackSummary } from '../../shared/schema/api.ts';
 import { errorCode, registerUser, startTestServer, type TestServer } from './helpers.ts';
 import { revisionFixture, setLiftSection, type RevisionFixture } from './revisionsFixture.ts';
 import { canonicalJson } from '../../server/services/snapshot.ts';
+import { loadSnapshotHead } from '../../server/services/revisions.ts';
 
 const sha256 = (text: string) => createHash('sha256').update(text, 'utf8').digest('hex');
 
@@ -63,6 +64,9 @@ describe('freezing revisions', () => {
     // Written and digested a stack at a time (server/services/snapshot.ts), the text is still the canonical form:
     // keys sorted at every depth, as canonicalJson writes the whole at once.
     expect(row.snapshot).toBe(canonicalJson(JSON.parse(row.snapshot)));
+    // A file name needs only the head of the snapshot, read without parsing the stacks.
+    const whole = JSON.parse(row.snapshot) as { building: unknown; code: string };
+    expect(await loadSnapshotHead(s.ctx.db, first.id)).toEqual({ building: whole.building, code: 'P01' });
     // The freeze's reply is made from the snapshot in hand; reading the stored text gives the same detail (but for
     // the e-mail, which may be sent meanwhile).
     const withoutMail = ({ mail: _mail, ...rest }: RevisionDetail) => rest;
