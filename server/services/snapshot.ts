@@ -10,7 +10,7 @@ import type { SectionDims } from '../../shared/schema/stack.ts';
 import { analyseWithLoads, analysisInputs, floorLoadsOf, positionPlaces } from './analysis.ts';
 import { readModel } from './buildingModelStore.ts';
 import { companySectionMap } from './companySections.ts';
-import { yieldToLoop } from './stackEditOffThread.ts';
+import { inTurns, yieldToLoop } from './stackEditOffThread.ts';
 import { joinResults, parseDoc, parseResults, placeOf, STORED_RESULTS, type StackRow } from './stackRows.ts';
 
 /** JSON with object keys in code-point order at every depth, so equal content gives equal text. */
@@ -23,32 +23,11 @@ export function canonicalJson(value: unknown): string {
   });
 }
 
-export const sha256Hex = (text: string): string => createHash('sha256').update(text, 'utf8').digest('hex');
-
-/**
- * Longest piece of a large building's snapshot work done without a turn of the event loop, ms (common practice,
- * no source): freezing 40 stacks × 30 storeys parses, writes and digests 5–10 MB, which in one piece held every
- * request and live edit of the process for 0.5–0.7 s.
- */
-const SLICE_MS = 20;
-/** Bytes digested at a time between turns. */
+/** Bytes digested at a time between turns of the event loop: freezing 40 stacks × 30 storeys writes and digests
+ *  5–10 MB, which in one piece held every request and live edit of the process for 0.5–0.7 s. */
 const DIGEST_CHUNK = 1 << 20;
 
-/** Runs `step` over `items` in order, letting the event loop turn whenever SLICE_MS have passed. */
-async function inTurns<T, R>(items: readonly T[], step: (item: T) => R): Promise<R[]> {
-  const out: R[] = [];
-  let slice = performance.now();
-  for (const item of items) {
-    out.push(step(item));
-    if (performance.now() - slice > SLICE_MS) {
-      await yieldToLoop();
-      slice = performance.now();
-    }
-  }
-  return out;
-}
-
-/** `sha256Hex`, digested a megabyte at a time with the event loop turning between. */
+/** The SHA-256 of a text (UTF-8) in hex, digested a megabyte at a time with the event loop turning between. */
 export async function sha256HexInTurns(text: string): Promise<string> {
   const bytes = Buffer.from(text, 'utf8');
   const hash = createHash('sha256');

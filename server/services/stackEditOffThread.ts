@@ -16,6 +16,23 @@ export const LARGE_DOC_CHARS = 20_000;
 /** One turn of the event loop: long synchronous stretches are split so timers and I/O run between them. */
 export const yieldToLoop = (): Promise<void> => new Promise((resolve) => setImmediate(resolve));
 
+/** Longest stretch of work over many items without a turn of the event loop, ms (common practice, no source). */
+const SLICE_MS = 20;
+
+/** Runs `step` over `items` in order, letting the event loop turn whenever SLICE_MS have passed. */
+export async function inTurns<T, R>(items: readonly T[], step: (item: T) => R): Promise<R[]> {
+  const out: R[] = [];
+  let slice = performance.now();
+  for (const item of items) {
+    out.push(step(item));
+    if (performance.now() - slice > SLICE_MS) {
+      await yieldToLoop();
+      slice = performance.now();
+    }
+  }
+  return out;
+}
+
 /** Stacks with more lifts than this have results large enough to be worth a turn of the loop before broadcasting. */
 export const LARGE_STACK_LIFTS = 10;
 

@@ -20,16 +20,13 @@ import {
 import { INSERT_CHUNK, recordAudits } from './audit.ts';
 import { touchBuilding } from './buildings.ts';
 import type { CommittedChange } from './stackOps.ts';
-import { yieldToLoop } from './stackEditOffThread.ts';
+import { inTurns } from './stackEditOffThread.ts';
 import { packResults, placeOf, storeResults, type PackedResults, type StackRow } from './stackRows.ts';
 
 export type ReanalysedRow = Pick<
   StackRow,
   'id' | 'building_id' | 'doc' | 'version' | 'grid_x' | 'grid_y' | 'web_along'
 >;
-
-/** Longest stretch of analysis without a turn of the event loop, ms (common practice, no source). */
-const SLICE_MS = 20;
 
 type Analysed = Pick<CommittedChange, 'doc' | 'results' | 'summary'> & {
   packed: PackedResults;
@@ -50,9 +47,8 @@ export async function storeReanalyses(
   // By document text, then by the key of the place's floor loads (the same key, the same loads): a column like
   // one already analysed is found without deriving its loads again.
   const same = new Map<string, Map<string, Analysed>>();
-  const analysed: Analysed[] = [];
-  let slice = performance.now();
-  for (const row of rows) {
+  // Hundreds of different stacks are seconds of work: other requests and live events are served meanwhile.
+  const analysed = await inTurns(rows, (row): Analysed => {
     const place = placeOf(row);
     // A typical column's results hold every position's check (docs/typical-columns.md): analysed on its own.
     const typical = positionPlaces(inputs, place).length > 0;
@@ -74,13 +70,8 @@ export async function storeReanalyses(
       };
       if (sameDoc) same.set(row.doc, sameDoc.set(loadsKey, found));
     }
-    analysed.push(found);
-    // Hundreds of different stacks are seconds of work: other requests and live events are served meanwhile.
-    if (performance.now() - slice > SLICE_MS) {
-      await yieldToLoop();
-      slice = performance.now();
-    }
-  }
+    return found;
+  });
   // Columns that came out the same share one stored copy of their results (docs/contracts.md §Stored results).
   await storeResults(
     trx,
