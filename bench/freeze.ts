@@ -117,6 +117,25 @@ async function freezeScenario(label: string, faces: RestraintFaces | null): Prom
     // Page objects are written uncompressed by pdfkit.
     const pages = (file.toString('latin1').match(/\/Type \/Page\b/g) ?? []).length;
 
+    // Reading the revision (its page, and the reply to every review step) takes the outline kept at the freeze; the
+    // baseline is the same read with the outline gone, drawn again from the whole snapshot as before outlines.
+    const readRevision = async () => {
+      const readLoop = monitorEventLoopDelay({ resolution: 5 });
+      readLoop.enable();
+      const r0 = performance.now();
+      const got = await fetch(`${server.url}/api/revisions/${rev.id}`, {
+        headers: { Authorization: `Bearer ${token}` },
+      });
+      if (got.status !== 200) throw new Error(`revision read: ${got.status}`);
+      await got.arrayBuffer();
+      const ms = performance.now() - r0;
+      readLoop.disable();
+      return { ms, stall: readLoop.max / 1e6 };
+    };
+    const withOutline = await readRevision();
+    await db('revision_outlines').where({ revision_id: rev.id }).delete();
+    const fromSnapshot = await readRevision();
+
     console.log(
       `building: ${STACKS} stacks × ${STOREYS} storeys (${levels.length} levels), ${rev.stacks.length} stacks frozen as ${rev.code}`,
     );
@@ -132,6 +151,9 @@ async function freezeScenario(label: string, faces: RestraintFaces | null): Prom
     );
     console.log(
       `baseline (engine, same 40 stacks once): ${baseline.toFixed(0)} ms → freeze is ${(wall / baseline).toFixed(0)}× the baseline`,
+    );
+    console.log(
+      `revision read (GET /api/revisions/:id): ${withOutline.ms.toFixed(0)} ms, longest stall ${withOutline.stall.toFixed(0)} ms, from the outline kept at the freeze; baseline, outline gone and drawn from the snapshot: ${fromSnapshot.ms.toFixed(0)} ms, stall ${fromSnapshot.stall.toFixed(0)} ms (${(fromSnapshot.ms / withOutline.ms).toFixed(1)}× the outline's time)`,
     );
     console.log(`mail: ${rev.mail.sent} sent, ${rev.mail.failed} failed`);
   } finally {

@@ -30,6 +30,7 @@ import * as addRevisionSteps from './202612031430_add_revision_steps.ts';
 import * as addRevisionStepTriggers from './202612031431_add_revision_step_triggers.ts';
 import * as addRevisionComments from './202612031432_add_revision_comments.ts';
 import * as addStackResults from './202612040750_add_stack_results.ts';
+import * as addRevisionOutlines from './202612041000_add_revision_outlines.ts';
 
 const migrations: Record<string, Knex.Migration> = {
   '202512010900_add_users': addUsers,
@@ -62,6 +63,7 @@ const migrations: Record<string, Knex.Migration> = {
   '202612031431_add_revision_step_triggers': addRevisionStepTriggers,
   '202612031432_add_revision_comments': addRevisionComments,
   '202612040750_add_stack_results': addStackResults,
+  '202612041000_add_revision_outlines': addRevisionOutlines,
 };
 
 export const migrationSource: Knex.MigrationSource<string> = {

@@ -266,6 +266,7 @@ async function freezeIn(
         failing_lifts: failing.length,
       })
       .returning<{ id: number }[]>('id');
+    await storeOutline(trx, row.id, hash, outlineOf(snapshot));
     // The preparer signs first; a preliminary freeze by a lead is approved and issued in the same breath.
     await recordStep(trx, row.id, 'prepared', user, frozenAt);
     if (input.issueUnchecked) {
@@ -405,19 +406,11 @@ export async function loadSnapshot(db: Knex, id: number): Promise<{ snapshot: Re
   return { snapshot: JSON.parse(text) as RevisionSnapshot, hash };
 }
 
-/** `frozen`: the snapshot just frozen, when the caller has it, so it is not read and parsed again. */
-export async function getRevision(db: Knex, id: number, frozen?: RevisionSnapshot): Promise<RevisionDetail> {
-  const row = await loadRevisionRow(db, id);
-  const [{ snapshot }, counts, recipients, reviews] = await Promise.all([
-    frozen ? { snapshot: frozen } : loadSnapshot(db, id),
-    mailCounts(db, [id]),
-    listRecipients(db, id),
-    reviewSummaries(db, [row]),
-  ]);
+/** What a revision's page shows of its snapshot: the options, levels, and each stack's outcome and lifts. */
+type RevisionOutline = Pick<RevisionDetail, 'options' | 'levels' | 'stacks'>;
+
+function outlineOf(snapshot: Pick<RevisionSnapshot, 'options' | 'levels' | 'stacks'>): RevisionOutline {
   return {
-    ...toSummary(row, counts.get(id) ?? { pending: 0, sent: 0, failed: 0 }, reviewOf(reviews, row)),
-    engineVersion: row.engine_version,
-    acknowledgement: row.acknowledgement,
     options: snapshot.options,
     levels: snapshot.levels,
     stacks: snapshot.stacks.map((s) => {
@@ -434,6 +427,51 @@ export async function getRevision(db: Knex, id: number, frozen?: RevisionSnapsho
         lifts: s.results.lifts.map((l) => ({ liftId: l.liftId, label: l.label ?? 'lift' })),
       };
     }),
+  };
+}
+
+/**
+ * A revision's outline as stored beside it (written at the freeze, docs/contracts.md §Revisions), so a read does not
+ * parse a snapshot of several megabytes. One missing (a revision frozen before outlines were kept) or drawn from
+ * another snapshot than the revision's (`hash`) is drawn again from the snapshot, whose hash is checked, and kept.
+ */
+async function loadOutline(db: Knex, id: number, hash: string): Promise<RevisionOutline> {
+  const row = await db('revision_outlines')
+    .where({ revision_id: id })
+    .first<{ hash: string; outline: string } | undefined>('hash', 'outline');
+  // Written by storeOutline from our own snapshot.
+  if (row?.hash === hash) return JSON.parse(row.outline) as RevisionOutline;
+  const { snapshot } = await loadSnapshot(db, id);
+  const outline = outlineOf(snapshot);
+  if (row)
+    await db('revision_outlines')
+      .where({ revision_id: id })
+      .update({ hash, outline: JSON.stringify(outline) });
+  else await storeOutline(db, id, hash, outline);
+  return outline;
+}
+
+async function storeOutline(db: Knex, revisionId: number, hash: string, outline: RevisionOutline): Promise<void> {
+  await db('revision_outlines')
+    .insert({ revision_id: revisionId, hash, outline: JSON.stringify(outline) })
+    .onConflict('revision_id')
+    .ignore();
+}
+
+/** `frozen`: the snapshot just frozen, when the caller has it, so its outline is not read back. */
+export async function getRevision(db: Knex, id: number, frozen?: RevisionSnapshot): Promise<RevisionDetail> {
+  const row = await loadRevisionRow(db, id);
+  const [outline, counts, recipients, reviews] = await Promise.all([
+    frozen ? outlineOf(frozen) : loadOutline(db, id, row.hash),
+    mailCounts(db, [id]),
+    listRecipients(db, id),
+    reviewSummaries(db, [row]),
+  ]);
+  return {
+    ...toSummary(row, counts.get(id) ?? { pending: 0, sent: 0, failed: 0 }, reviewOf(reviews, row)),
+    engineVersion: row.engine_version,
+    acknowledgement: row.acknowledgement,
+    ...outline,
     recipients,
   };
 }

@@ -31,7 +31,10 @@ const TABLES = [
   'revisions',
   'revision_steps',
   'revision_comments',
+  'revision_outlines',
 ];
+/** The tables whose rows are one per building or revision, keyed by it rather than an id of their own. */
+const KEYED_BY: Record<string, string> = { building_models: 'building_id', revision_outlines: 'revision_id' };
 const HUGE = JSON.stringify({ name: 'x'.repeat(1_200_000) });
 
 interface Req {
@@ -87,7 +90,7 @@ describe('malformed input on every writing route', () => {
         await s.ctx
           .db(t)
           .select('*')
-          .orderBy(t === 'building_models' ? 'building_id' : 'id'),
+          .orderBy(KEYED_BY[t] ?? 'id'),
       );
     return JSON.stringify(parts);
   }

@@ -74,6 +74,37 @@ describe('freezing revisions', () => {
     expect(withoutMail(read)).toEqual(withoutMail(first));
   });
 
+  it('reads a revision from the outline kept at the freeze, and draws a missing or stale outline again', async () => {
+    const withoutMail = ({ mail: _mail, ...rest }: RevisionDetail) => rest;
+    const outline = () =>
+      s.ctx.db('revision_outlines').where({ revision_id: first.id }).first<{ hash: string; outline: string }>();
+    const read = async () =>
+      withoutMail((await s.api('GET', `/revisions/${first.id}`, { token: f.viewer.token })).body as RevisionDetail);
+    const kept = await outline();
+    expect(kept?.hash).toBe(first.hash);
+    expect(JSON.parse(kept!.outline).stacks).toEqual(first.stacks);
+    // The read takes the outline as kept: a changed outline under the right hash is what the page shows.
+    const marked = JSON.parse(kept!.outline) as RevisionDetail;
+    marked.stacks[0].name = 'as kept';
+    await s.ctx
+      .db('revision_outlines')
+      .where({ revision_id: first.id })
+      .update({ outline: JSON.stringify(marked) });
+    expect((await read()).stacks[0].name).toBe('as kept');
+    // An outline drawn from another snapshot (its hash differs) is drawn again from the revision's own, and kept.
+    await s.ctx
+      .db('revision_outlines')
+      .where({ revision_id: first.id })
+      .update({ hash: 'f'.repeat(64) });
+    expect(await read()).toEqual(withoutMail(first));
+    expect((await outline())?.hash).toBe(first.hash);
+    expect(JSON.parse((await outline())!.outline).stacks).toEqual(first.stacks);
+    // A revision frozen before outlines were kept has none until it is first read.
+    await s.ctx.db('revision_outlines').where({ revision_id: first.id }).delete();
+    expect(await read()).toEqual(withoutMail(first));
+    expect(JSON.parse((await outline())!.outline)).toEqual(JSON.parse(kept!.outline));
+  });
+
   it('keeps the revision content, hash and package when the stacks are edited afterwards', async () => {
     const pdfBefore = await pdfBytes(s, f.viewer.token, first.id);
     const rowBefore = await s.ctx.db('revisions').where({ id: first.id }).first<{ snapshot: string }>('snapshot');
