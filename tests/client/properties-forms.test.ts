@@ -26,7 +26,7 @@ afterEach(() => {
 
 describe('node properties form', () => {
   it('labels every quantity with its unit', () => {
-    const w = mount(NodeForm, { props: { kind: 'restraint', value: restraint, readOnly: false } });
+    const w = mount(NodeForm, { props: { kind: 'restraint', value: restraint } });
     const labels = w.findAll('.q-field__label').map((l) => l.text());
     expect(labels).toContain('Elevation (m)');
     expect(labels).toContain('Permanent load Gk (kN)');
@@ -34,39 +34,39 @@ describe('node properties form', () => {
   });
 
   it('shows an elevation to the millimetre, as the node title does', () => {
-    const w = mount(NodeForm, { props: { kind: 'splice', value: { elevation: 8 }, readOnly: false } });
+    const w = mount(NodeForm, { props: { kind: 'splice', value: { elevation: 8 } } });
     expect((w.find('input[data-field="elevation"]').element as HTMLInputElement).value).toBe('8.000');
   });
 
   it('refuses a negative load with a message and sends nothing', async () => {
-    const w = mount(NodeForm, { props: { kind: 'restraint', value: restraint, readOnly: false } });
+    const w = mount(NodeForm, { props: { kind: 'restraint', value: restraint } });
     await typeInto(w, 'Gk', '-5');
     expect(w.text()).toContain('Permanent load Gk must be at least 0 kN');
     expect(w.emitted('change')).toBeUndefined();
   });
 
   it('refuses text that is not a number', async () => {
-    const w = mount(NodeForm, { props: { kind: 'splice', value: { elevation: 8 }, readOnly: false } });
+    const w = mount(NodeForm, { props: { kind: 'splice', value: { elevation: 8 } } });
     await typeInto(w, 'elevation', 'eight');
     expect(w.text()).toContain('Elevation must be a number');
     expect(w.emitted('change')).toBeUndefined();
   });
 
   it('sends a valid value as a change of that key only, reading a decimal comma', async () => {
-    const w = mount(NodeForm, { props: { kind: 'restraint', value: restraint, readOnly: false } });
+    const w = mount(NodeForm, { props: { kind: 'restraint', value: restraint } });
     await typeInto(w, 'Qk', '42,5');
     expect(w.emitted('change')).toEqual([[{ Qk: 42.5 }]]);
     expect(w.find('.q-field--error').exists()).toBe(false);
   });
 
   it('sends nothing when the value did not change', async () => {
-    const w = mount(NodeForm, { props: { kind: 'restraint', value: restraint, readOnly: false } });
+    const w = mount(NodeForm, { props: { kind: 'restraint', value: restraint } });
     await typeInto(w, 'elevation', '4.000');
     expect(w.emitted('change')).toBeUndefined();
   });
 
   it('sends a choice at once, as a change of that key only', async () => {
-    const w = mount(NodeForm, { props: { kind: 'restraint', value: restraint, readOnly: false } });
+    const w = mount(NodeForm, { props: { kind: 'restraint', value: restraint } });
     const fixity = w.findAllComponents({ name: 'QSelect' }).find((s) => s.text().includes('Rotational fixity'))!;
     expect(fixity.text()).toContain('pinned');
     fixity.vm.$emit('update:modelValue', 'fixed');
