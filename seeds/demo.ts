@@ -1,10 +1,12 @@
-// The invented demo scenario, seeded on an empty database: four accounts, one building, its levels
-// and a few stacks with real documents so the first screen shows real results.
+// The invented demo scenario, seeded on an empty database: four accounts and two buildings. The first has its
+// levels and a few stacks with loads typed on each restraint, so the first screen shows real results; the
+// second (seeds/demoGrid.ts) is built on a grid, its loads coming from the floors.
 import type { Knex } from 'knex';
 import type { StackTemplate, User } from '../shared/schema/api.ts';
 import { now } from '../server/db.ts';
 import { createStack } from '../server/services/stacks.ts';
 import { registerUser } from '../server/services/users.ts';
+import { seedGridBuilding } from './demoGrid.ts';
 
 export const DEMO_PASSWORD = 'stanchion-demo';
 export const DEMO_USERS = {
@@ -67,7 +69,10 @@ export async function seedDemoIfEmpty(db: Knex, bcryptRounds: number): Promise<b
   return true;
 }
 
-export async function seedDemo(db: Knex, bcryptRounds: number): Promise<{ buildingId: number }> {
+export async function seedDemo(
+  db: Knex,
+  bcryptRounds: number,
+): Promise<{ buildingId: number; gridBuildingId: number }> {
   const accounts: Partial<Record<keyof typeof DEMO_USERS, User>> = {};
   for (const key of Object.keys(DEMO_USERS) as (keyof typeof DEMO_USERS)[]) {
     accounts[key] = await registerUser(db, { ...DEMO_USERS[key], password: DEMO_PASSWORD }, bcryptRounds, {
@@ -92,5 +97,10 @@ export async function seedDemo(db: Knex, bcryptRounds: number): Promise<{ buildi
     await db('levels').insert({ building_id: building.id, ...level, created_at: now() });
   }
   for (const stack of DEMO_STACKS) await createStack(db, building.id, stack, lead);
-  return { buildingId: building.id };
+  const grid = await seedGridBuilding(db, {
+    lead,
+    engineer: accounts.engineer as User,
+    viewer: accounts.viewer as User,
+  });
+  return { buildingId: building.id, gridBuildingId: grid.buildingId };
 }
