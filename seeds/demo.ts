@@ -7,6 +7,7 @@ import { now } from '../server/db.ts';
 import { createStack } from '../server/services/stacks.ts';
 import { registerUser } from '../server/services/users.ts';
 import { seedGridBuilding } from './demoGrid.ts';
+import { storeyLevels } from './storeyLevels.ts';
 
 export const DEMO_PASSWORD = 'stanchion-demo';
 export const DEMO_USERS = {
@@ -19,16 +20,7 @@ export const DEMO_USERS = {
 export const DEMO_BUILDING = { name: 'Demo office block', reference: 'DEMO-001' };
 /** Ground, six suspended floors and a roof, 3.8 m apart (invented). */
 export const DEMO_STOREY_HEIGHT = 3.8;
-export const DEMO_LEVELS: { name: string; elevation: number }[] = [
-  'Ground',
-  'Level 1',
-  'Level 2',
-  'Level 3',
-  'Level 4',
-  'Level 5',
-  'Level 6',
-  'Roof',
-].map((name, i) => ({ name, elevation: Math.round(i * DEMO_STOREY_HEIGHT * 1000) / 1000 }));
+export const DEMO_LEVELS = storeyLevels(6, DEMO_STOREY_HEIGHT);
 
 /** Invented stacks: an internal, an edge and a corner column, with floor loads per level in kN. */
 export const DEMO_STACKS: { name: string; template: StackTemplate }[] = [

@@ -5,7 +5,7 @@
 // is invented. Built through the server's own services, so validation, results and the audit trail are real.
 import type { Knex } from 'knex';
 import { pino } from 'pino';
-import type { StackTemplate, User } from '../shared/schema/api.ts';
+import type { Level, StackTemplate, User } from '../shared/schema/api.ts';
 import type { Buildup, Grid } from '../shared/schema/building.ts';
 import type { ServerContext } from '../server/context.ts';
 import { createBuilding } from '../server/services/buildings.ts';
@@ -15,20 +15,13 @@ import { createLevel } from '../server/services/levels.ts';
 import { addMember } from '../server/services/members.ts';
 import { addStackPosition } from '../server/services/stackPositions.ts';
 import { createStack } from '../server/services/stacks.ts';
+import { storeyLevels } from './storeyLevels.ts';
 
 export const DEMO_GRID_BUILDING = { name: 'Demo steel frame on a grid', reference: 'DEMO-002' };
 
 /** Ground, five office floors and a roof, 4.0 m apart (invented). */
 export const DEMO_GRID_STOREY_HEIGHT = 4;
-export const DEMO_GRID_LEVELS: { name: string; elevation: number }[] = [
-  'Ground',
-  'Level 1',
-  'Level 2',
-  'Level 3',
-  'Level 4',
-  'Level 5',
-  'Roof',
-].map((name, i) => ({ name, elevation: i * DEMO_GRID_STOREY_HEIGHT }));
+export const DEMO_GRID_LEVELS = storeyLevels(5, DEMO_GRID_STOREY_HEIGHT);
 
 /** The slab runs this far beyond the outermost grid lines on every side (m). */
 export const DEMO_SLAB_EDGE = 0.3;
@@ -42,15 +35,15 @@ export const DEMO_GRID: Grid = {
   y: { lines: lines(['1', '2', '3', '4'], 6), edgeBefore: DEMO_SLAB_EDGE, edgeAfter: DEMO_SLAB_EDGE },
 };
 
+/** The same slab and ceiling under the offices and the roof. */
+const SLAB = { label: 'Composite slab, 150 mm', gk: 2.8 };
+const CEILING = { label: 'Ceiling and services', gk: 0.5 };
+
 export const DEMO_BUILDUPS: Buildup[] = [
   {
     id: 'office',
     name: 'Office floor',
-    permanent: [
-      { label: 'Composite slab, 150 mm', gk: 2.8 },
-      { label: 'Screed, 50 mm', gk: 1.2 },
-      { label: 'Ceiling and services', gk: 0.5 },
-    ],
+    permanent: [SLAB, { label: 'Screed, 50 mm', gk: 1.2 }, CEILING],
     imposed: { qk: 2.5, category: 'B' },
     // Movable partitions, taken as imposed load (EN 1991-1-1 6.3.1.2(8)).
     partitions: { load: 1, as: 'imposed' },
@@ -58,72 +51,31 @@ export const DEMO_BUILDUPS: Buildup[] = [
   {
     id: 'roof',
     name: 'Roof',
-    permanent: [
-      { label: 'Composite slab, 150 mm', gk: 2.8 },
-      { label: 'Insulation, membrane and ballast', gk: 0.7 },
-      { label: 'Ceiling and services', gk: 0.5 },
-    ],
+    permanent: [SLAB, { label: 'Insulation, membrane and ballast', gk: 0.7 }, CEILING],
     imposed: { qk: 0.6, category: 'H' },
   },
 ];
 
-/** The build-up of each level's floor by level name; the ground slab bears on the ground, not on the columns. */
-export const DEMO_FLOORS: Record<string, string> = {
-  'Level 1': 'office',
-  'Level 2': 'office',
-  'Level 3': 'office',
-  'Level 4': 'office',
-  'Level 5': 'office',
-  Roof: 'roof',
-};
-
-interface Crossing {
-  gridX: string;
-  gridY: string;
-}
+/** Every floor above the ground is an office floor but the roof; the ground slab bears on the ground. */
+const buildupOf = (level: string): string | null => (level === 'Ground' ? null : level === 'Roof' ? 'roof' : 'office');
 
 /**
- * The four designs, each at its own place and the crossings alike to it. The typed loads are nil: every level
- * has a floor load, so the restraints and the cap take theirs from the floors.
+ * The four designs, each at its own crossing (`x line/y line`) and at the crossings alike to it, with a section per
+ * lift. The typed loads are nil: every level has a floor load, so the restraints and the cap take theirs from the
+ * floors.
  */
-export const DEMO_GRID_STACKS: { at: Crossing; alsoAt: Crossing[]; sections: string[] }[] = [
-  {
-    at: { gridX: 'A', gridY: '1' },
-    alsoAt: [
-      { gridX: 'D', gridY: '1' },
-      { gridX: 'A', gridY: '4' },
-      { gridX: 'D', gridY: '4' },
-    ],
-    sections: ['UKC 203x203x46', 'UKC 152x152x44', 'UKC 152x152x37'],
-  },
-  {
-    at: { gridX: 'B', gridY: '1' },
-    alsoAt: [
-      { gridX: 'C', gridY: '1' },
-      { gridX: 'B', gridY: '4' },
-      { gridX: 'C', gridY: '4' },
-    ],
-    sections: ['UKC 203x203x71', 'UKC 203x203x52', 'UKC 203x203x46'],
-  },
-  {
-    at: { gridX: 'A', gridY: '2' },
-    alsoAt: [
-      { gridX: 'A', gridY: '3' },
-      { gridX: 'D', gridY: '2' },
-      { gridX: 'D', gridY: '3' },
-    ],
-    sections: ['UKC 203x203x71', 'UKC 203x203x52', 'UKC 203x203x46'],
-  },
-  {
-    at: { gridX: 'B', gridY: '2' },
-    alsoAt: [
-      { gridX: 'C', gridY: '2' },
-      { gridX: 'B', gridY: '3' },
-      { gridX: 'C', gridY: '3' },
-    ],
-    sections: ['UKC 254x254x107', 'UKC 254x254x73', 'UKC 203x203x46'],
-  },
+export const DEMO_GRID_STACKS: { at: string; alsoAt: string[]; sections: string[] }[] = [
+  { at: 'A/1', alsoAt: ['D/1', 'A/4', 'D/4'], sections: ['UKC 203x203x46', 'UKC 152x152x44', 'UKC 152x152x37'] },
+  { at: 'B/1', alsoAt: ['C/1', 'B/4', 'C/4'], sections: ['UKC 203x203x71', 'UKC 203x203x52', 'UKC 203x203x46'] },
+  { at: 'A/2', alsoAt: ['A/3', 'D/2', 'D/3'], sections: ['UKC 203x203x71', 'UKC 203x203x52', 'UKC 203x203x46'] },
+  { at: 'B/2', alsoAt: ['C/2', 'B/3', 'C/3'], sections: ['UKC 254x254x107', 'UKC 254x254x73', 'UKC 203x203x46'] },
 ];
+
+/** The grid lines of a crossing named `x line/y line`: each line's id is its name. */
+function crossing(name: string): { gridX: string; gridY: string; webAlong: 'x' } {
+  const [gridX, gridY] = name.split('/');
+  return { gridX, gridY, webAlong: 'x' };
+}
 
 const gridTemplate = (sections: string[]): StackTemplate => ({
   storeys: DEMO_GRID_LEVELS.length - 1,
@@ -176,23 +128,19 @@ export async function seedGridBuilding(
   const building = await createBuilding(db, lead, DEMO_GRID_BUILDING);
   for (const role of ['engineer', 'viewer'] as const)
     await addMember(db, ctx.outbox, building.id, accounts[role].email, role, lead, NO_INVITATION);
-  const levels = new Map<string, string>();
-  for (const level of DEMO_GRID_LEVELS) levels.set(level.name, (await createLevel(db, building.id, level, lead)).id);
+  const levels: Level[] = [];
+  for (const level of DEMO_GRID_LEVELS) levels.push(await createLevel(db, building.id, level, lead));
   await putGrid(ctx, building.id, DEMO_GRID, lead);
   await putBuildups(ctx, building.id, DEMO_BUILDUPS, lead);
-  for (const [level, buildupId] of Object.entries(DEMO_FLOORS)) {
-    const input = { buildupId, span: 'two-way' as const, lines: [] };
-    await putFloorLoad(ctx, building.id, Number(levels.get(level)), input, lead);
+  for (const level of levels) {
+    const buildupId = buildupOf(level.name);
+    if (buildupId)
+      await putFloorLoad(ctx, building.id, Number(level.id), { buildupId, span: 'two-way', lines: [] }, lead);
   }
   for (const { at, alsoAt, sections } of DEMO_GRID_STACKS) {
-    const stack = await createStack(
-      db,
-      building.id,
-      { name: `${at.gridX}/${at.gridY}`, template: gridTemplate(sections) },
-      lead,
-    );
-    await placeStack(ctx, stack.id, { ...at, webAlong: 'x' }, lead);
-    for (const crossing of alsoAt) await addStackPosition(ctx, stack.id, { ...crossing, webAlong: 'x' }, lead);
+    const stack = await createStack(db, building.id, { name: at, template: gridTemplate(sections) }, lead);
+    await placeStack(ctx, stack.id, crossing(at), lead);
+    for (const further of alsoAt) await addStackPosition(ctx, stack.id, crossing(further), lead);
   }
   return { buildingId: building.id };
 }
