@@ -4,7 +4,8 @@
 import { spawn } from 'node:child_process';
 import { createInterface } from 'node:readline';
 import { io, type Socket } from 'socket.io-client';
-import type { AuthResponse, StackSummary } from '../shared/schema/api.ts';
+import { DEMO_BUILDING } from '../seeds/demo.ts';
+import type { AuthResponse, BuildingSummary, StackSummary } from '../shared/schema/api.ts';
 import type { ClientToServerEvents, ServerToClientEvents, StackJoinAck } from '../shared/schema/socket.ts';
 
 type Client = Socket<ServerToClientEvents, ClientToServerEvents>;
@@ -119,8 +120,10 @@ export async function benchRealtime(): Promise<void> {
       email: 'engineer@stanchion.test',
       password: 'stanchion-demo',
     });
-    const buildings = await api<{ id: number }[]>(server.url, 'GET', '/buildings', token);
-    const stacks = await api<StackSummary[]>(server.url, 'GET', `/buildings/${buildings[0]!.id}/stacks`, token);
+    // The office block's first stack, the one every earlier run measured, so the figures stay comparable.
+    const buildings = await api<BuildingSummary[]>(server.url, 'GET', '/buildings', token);
+    const building = buildings.find((b) => b.name === DEMO_BUILDING.name)!;
+    const stacks = await api<StackSummary[]>(server.url, 'GET', `/buildings/${building.id}/stacks`, token);
     const stackId = stacks[0]!.id;
     for (const clients of [20, 100]) {
       const r = await roomLatency(server.url, token, stackId, clients, clients === 20 ? 100 : 40);

@@ -1,10 +1,13 @@
-// The invented demo scenario, seeded on an empty database: four accounts, one building, its levels
-// and a few stacks with real documents so the first screen shows real results.
+// The invented demo scenario, seeded on an empty database: four accounts and two buildings. The first has its
+// levels and a few stacks with loads typed on each restraint, so the first screen shows real results; the
+// second (seeds/demoGrid.ts) is built on a grid, its loads coming from the floors.
 import type { Knex } from 'knex';
 import type { StackTemplate, User } from '../shared/schema/api.ts';
 import { now } from '../server/db.ts';
 import { createStack } from '../server/services/stacks.ts';
 import { registerUser } from '../server/services/users.ts';
+import { seedGridBuilding } from './demoGrid.ts';
+import { storeyLevels } from './storeyLevels.ts';
 
 export const DEMO_PASSWORD = 'stanchion-demo';
 export const DEMO_USERS = {
@@ -17,16 +20,7 @@ export const DEMO_USERS = {
 export const DEMO_BUILDING = { name: 'Demo office block', reference: 'DEMO-001' };
 /** Ground, six suspended floors and a roof, 3.8 m apart (invented). */
 export const DEMO_STOREY_HEIGHT = 3.8;
-export const DEMO_LEVELS: { name: string; elevation: number }[] = [
-  'Ground',
-  'Level 1',
-  'Level 2',
-  'Level 3',
-  'Level 4',
-  'Level 5',
-  'Level 6',
-  'Roof',
-].map((name, i) => ({ name, elevation: Math.round(i * DEMO_STOREY_HEIGHT * 1000) / 1000 }));
+export const DEMO_LEVELS = storeyLevels(6, DEMO_STOREY_HEIGHT);
 
 /** Invented stacks: an internal, an edge and a corner column, with floor loads per level in kN. */
 export const DEMO_STACKS: { name: string; template: StackTemplate }[] = [
@@ -67,7 +61,10 @@ export async function seedDemoIfEmpty(db: Knex, bcryptRounds: number): Promise<b
   return true;
 }
 
-export async function seedDemo(db: Knex, bcryptRounds: number): Promise<{ buildingId: number }> {
+export async function seedDemo(
+  db: Knex,
+  bcryptRounds: number,
+): Promise<{ buildingId: number; gridBuildingId: number }> {
   const accounts: Partial<Record<keyof typeof DEMO_USERS, User>> = {};
   for (const key of Object.keys(DEMO_USERS) as (keyof typeof DEMO_USERS)[]) {
     accounts[key] = await registerUser(db, { ...DEMO_USERS[key], password: DEMO_PASSWORD }, bcryptRounds, {
@@ -92,5 +89,10 @@ export async function seedDemo(db: Knex, bcryptRounds: number): Promise<{ buildi
     await db('levels').insert({ building_id: building.id, ...level, created_at: now() });
   }
   for (const stack of DEMO_STACKS) await createStack(db, building.id, stack, lead);
-  return { buildingId: building.id };
+  const grid = await seedGridBuilding(db, {
+    lead,
+    engineer: accounts.engineer as User,
+    viewer: accounts.viewer as User,
+  });
+  return { buildingId: building.id, gridBuildingId: grid.buildingId };
 }

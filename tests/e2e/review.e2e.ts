@@ -4,6 +4,7 @@ import { readFileSync } from 'node:fs';
 import { expect, it } from 'vitest';
 import { PDFParse } from 'pdf-parse';
 import type { Page } from 'playwright-core';
+import { DEMO_BUILDING } from '../../seeds/demo.ts';
 import type { AuthResponse, Building, Member } from '../../shared/schema/api.ts';
 import { DEMO, DEMO_PASSWORD, describeInBrowser, openDemoBuilding, screenshot, useAppAndBrowser } from './harness.ts';
 
@@ -43,7 +44,10 @@ describeInBrowser('checking and approving a revision', () => {
         body: JSON.stringify({ email: DEMO.lead, password: DEMO_PASSWORD }),
       })
     ).json()) as AuthResponse;
-    const [building] = await api<Building[]>(lead.token, 'GET', '/buildings');
+    // The building openDemoBuilding opens; the demo has a second one.
+    const building = (await api<Building[]>(lead.token, 'GET', '/buildings')).find(
+      (b) => b.name === DEMO_BUILDING.name,
+    )!;
     const members = await api<Member[]>(lead.token, 'GET', `/buildings/${building.id}/members`);
     const viewer = members.find((m) => m.email === DEMO.viewer);
     await api(lead.token, 'PATCH', `/buildings/${building.id}/members/${viewer?.userId}`, { role: 'engineer' });

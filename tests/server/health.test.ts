@@ -5,8 +5,11 @@ import { dirname, join } from 'node:path';
 import { fileURLToPath } from 'node:url';
 import { clientBuildNeeded, clientStep, viteScript } from '../../scripts/start.ts';
 import { DEMO_BUILDING, DEMO_PASSWORD, DEMO_STACKS, seedDemoIfEmpty } from '../../seeds/demo.ts';
-import type { AuthResponse, BuildingSummary, StackSummary } from '../../shared/schema/api.ts';
-import { errorCode, onPostgres, startTestServer, type TestServer } from './helpers.ts';
+import { DEMO_GRID_BUILDING } from '../../seeds/demoGrid.ts';
+import type { AuthResponse, BuildingSummary, Level, StackDetail, StackSummary } from '../../shared/schema/api.ts';
+import type { BuildingModelReply } from '../../shared/schema/building.ts';
+import type { BuildingPositionsReply, StackPositionsReply } from '../../shared/schema/stackPositions.ts';
+import { errorCode, onPostgres, signIn, startTestServer, type TestServer } from './helpers.ts';
 
 describe('health and the app shell', () => {
   let s: TestServer;
@@ -134,7 +137,11 @@ describe('first start with the demo seed', () => {
     await s?.close();
   });
 
-  it('lets each demo account sign in with the demo password and see the demo building with its role', async () => {
+  const leadToken = async () => (await signIn(s, 'lead@stanchion.test', DEMO_PASSWORD)).token;
+  const demoBuilding = async (token: string, name: string) =>
+    ((await s.api('GET', '/buildings', { token })).body as BuildingSummary[]).find((b) => b.name === name)!;
+
+  it('lets each demo account sign in with the demo password and see both demo buildings with its role', async () => {
     for (const [email, role] of [
       ['lead@stanchion.test', 'lead'],
       ['engineer@stanchion.test', 'engineer'],
@@ -146,15 +153,16 @@ describe('first start with the demo seed', () => {
       const { token, user } = login.body as AuthResponse;
       expect(user.isAdmin).toBe(email.startsWith('admin'));
       const list = (await s.api('GET', '/buildings', { token })).body as BuildingSummary[];
-      expect(list.map((b) => [b.name, b.role])).toEqual([[DEMO_BUILDING.name, role]]);
+      expect(list.map((b) => [b.name, b.role])).toEqual([
+        [DEMO_BUILDING.name, role],
+        [DEMO_GRID_BUILDING.name, role],
+      ]);
     }
   });
 
   it('seeds 6–10 levels and stacks whose documents analyse without errors and pass', async () => {
-    const { token } = (
-      await s.api('POST', '/auth/login', { body: { email: 'lead@stanchion.test', password: DEMO_PASSWORD } })
-    ).body as AuthResponse;
-    const [building] = (await s.api('GET', '/buildings', { token })).body as BuildingSummary[];
+    const token = await leadToken();
+    const building = await demoBuilding(token, DEMO_BUILDING.name);
     const levels = (await s.api('GET', `/buildings/${building.id}/levels`, { token })).body as unknown[];
     expect(levels.length).toBeGreaterThanOrEqual(6);
     expect(levels.length).toBeLessThanOrEqual(10);
@@ -164,6 +172,136 @@ describe('first start with the demo seed', () => {
       expect(st.status).toBe('passes');
       expect(st.utilisation).toBeGreaterThan(0.2);
     }
+  });
+
+  // The second demo building (seeds/demoGrid.ts). Its figures are invented demo data: grid lines A–D at 0, 7.5, 15
+  // and 22.5 m along x, 1–4 at 0, 6, 12 and 18 m along y, the slab 0.3 m beyond the outer lines; the office floor
+  // gk 2.8 + 1.2 + 0.5 = 4.5 kN/m², qk 2.5 + 1.0 partitions = 3.5 kN/m² (B); the roof gk 2.8 + 0.7 + 0.5 = 4.0 kN/m²,
+  // qk 0.6 kN/m² (H).
+  const OFFICE = { gk: 4.5, qk: 3.5 };
+  const ROOF = { gk: 4, qk: 0.6 };
+  /**
+   * Tributary areas by hand (m²): half the bay each side, the slab edge beyond an outer line.
+   * Corner A/1 (0.3 + 3.75)(0.3 + 3) = 4.05 × 3.3 = 13.365; edge B/1 (3.75 + 3.75)(0.3 + 3) = 7.5 × 3.3 = 24.75;
+   * edge A/2 (0.3 + 3.75)(3 + 3) = 4.05 × 6 = 24.3; internal B/2 (3.75 + 3.75)(3 + 3) = 7.5 × 6 = 45.
+   */
+  const AREA: Record<string, number> = { 'A/1': 13.365, 'B/1': 24.75, 'A/2': 24.3, 'B/2': 45 };
+  /** Each stack at its own crossing first, then at the three alike to it (typical columns). */
+  const ALIKE: Record<string, string[]> = {
+    'A/1': ['A/1', 'D/1', 'A/4', 'D/4'],
+    'B/1': ['B/1', 'C/1', 'B/4', 'C/4'],
+    'A/2': ['A/2', 'A/3', 'D/2', 'D/3'],
+    'B/2': ['B/2', 'C/2', 'B/3', 'C/3'],
+  };
+  const gridBuilding = async (token: string) => {
+    const building = await demoBuilding(token, DEMO_GRID_BUILDING.name);
+    const get = async <T>(path: string) => (await s.api('GET', path, { token })).body as T;
+    const stacks = await get<StackSummary[]>(`/buildings/${building.id}/stacks`);
+    return { building, get, stacks, byName: (name: string) => stacks.find((st) => st.name === name)! };
+  };
+
+  it('seeds a second building with a grid, two build-ups and a floor load on every level above the ground', async () => {
+    const token = await leadToken();
+    const { building, get } = await gridBuilding(token);
+    const model = await get<BuildingModelReply>(`/buildings/${building.id}/model`);
+    expect(model.grid.x.lines.map((l) => [l.name, l.position])).toEqual([
+      ['A', 0],
+      ['B', 7.5],
+      ['C', 15],
+      ['D', 22.5],
+    ]);
+    expect(model.grid.y.lines.map((l) => [l.name, l.position])).toEqual([
+      ['1', 0],
+      ['2', 6],
+      ['3', 12],
+      ['4', 18],
+    ]);
+    expect([model.grid.x.edgeBefore, model.grid.x.edgeAfter, model.grid.y.edgeBefore, model.grid.y.edgeAfter]).toEqual([
+      0.3, 0.3, 0.3, 0.3,
+    ]);
+    const buildup = (name: string) => model.buildups.find((b) => b.name === name)!;
+    expect(buildup('Office floor').imposed).toEqual({ qk: 2.5, category: 'B' });
+    expect(buildup('Office floor').partitions).toEqual({ load: 1, as: 'imposed' });
+    expect(buildup('Roof').imposed).toEqual({ qk: 0.6, category: 'H' });
+    const levels = await get<Level[]>(`/buildings/${building.id}/levels`);
+    const floorOf = (level: Level) => {
+      const floor = model.floors.find((f) => f.levelId === level.id);
+      return floor ? model.buildups.find((b) => b.id === floor.buildupId)?.name : 'none';
+    };
+    expect(levels.map((l) => [l.name, l.elevation, floorOf(l)])).toEqual([
+      ['Ground', 0, 'none'],
+      ['Level 1', 4, 'Office floor'],
+      ['Level 2', 8, 'Office floor'],
+      ['Level 3', 12, 'Office floor'],
+      ['Level 4', 16, 'Office floor'],
+      ['Level 5', 20, 'Office floor'],
+      ['Roof', 24, 'Roof'],
+    ]);
+  });
+
+  it("places the second building's stacks on the grid, their restraints and cap loaded from their tributary areas", async () => {
+    const token = await leadToken();
+    const { get, stacks, byName } = await gridBuilding(token);
+    expect(stacks.map((st) => [st.name, st.gridX, st.gridY])).toEqual([
+      ['A/1', 'A', '1'],
+      ['A/2', 'A', '2'],
+      ['B/1', 'B', '1'],
+      ['B/2', 'B', '2'],
+    ]);
+    for (const st of stacks) {
+      const { doc, results } = await get<StackDetail>(`/stacks/${st.id}`);
+      const area = AREA[st.name];
+      const uses = results.floorLoads ?? [];
+      // Five office floors on restraints, the roof on the cap.
+      expect(uses.map((u) => u.nodeId).sort()).toEqual([
+        'cap',
+        'restraint-1',
+        'restraint-2',
+        'restraint-3',
+        'restraint-4',
+        'restraint-5',
+      ]);
+      for (const use of uses) {
+        const load = use.nodeId === 'cap' ? ROOF : OFFICE;
+        expect(use.area, `${st.name} ${use.nodeId}`).toBeCloseTo(area, 9);
+        expect(use.Gk, `${st.name} ${use.nodeId}`).toBeCloseTo(load.gk * area, 9);
+        expect(use.Qk, `${st.name} ${use.nodeId}`).toBeCloseTo(load.qk * area, 9);
+        expect(use.byHand).toBe(false);
+      }
+      // The documents type no loads: what the take-down carries came from the floors.
+      for (const node of doc.nodes)
+        if (node.kind === 'restraint' || node.kind === 'cap') expect([node.data.Gk, node.data.Qk]).toEqual([0, 0]);
+    }
+    // Corner A/1 at Level 1: Gk = 4.5 × 13.365 = 60.1425 kN, Qk = 3.5 × 13.365 = 46.7775 kN.
+    const corner = await get<StackDetail>(`/stacks/${byName('A/1').id}`);
+    const level1 = corner.results.takeDown.find((t) => t.elevation === 4)!;
+    expect(level1.Gk).toBeCloseTo(60.1425, 9);
+    expect(level1.Qk).toBeCloseTo(46.7775, 9);
+  });
+
+  it('lists the typical positions of the second building, and every lift passes at every position', async () => {
+    const token = await leadToken();
+    const { building, get, stacks, byName } = await gridBuilding(token);
+    const plan = await get<BuildingPositionsReply>(`/buildings/${building.id}/stack-positions`);
+    expect(plan.stacks.map((p) => p.stackId).sort()).toEqual(stacks.map((st) => st.id).sort());
+    for (const st of stacks) {
+      const { results } = plan.stacks.find((p) => p.stackId === st.id)!;
+      expect(results.map((r) => r.name)).toEqual(ALIKE[st.name]);
+      for (const position of results) {
+        // Six loaded levels (five floors and the roof), each over the same tributary area.
+        expect(position.area, position.name).toBeCloseTo(6 * AREA[st.name], 9);
+        expect(position.status, position.name).toBe('passes');
+        for (const lift of position.lifts) expect(lift.utilisation, `${position.name} ${lift.label}`).toBeLessThan(1);
+      }
+      expect(st.status).toBe('passes');
+      expect(st.utilisation).toBeLessThan(1);
+    }
+    expect(new Set(plan.stacks.flatMap((p) => p.results.map((r) => r.name))).size).toBe(16);
+    // The internal column is well worked, yet clear of its limit.
+    expect(byName('B/2').utilisation).toBeGreaterThan(0.6);
+    expect(byName('B/2').utilisation).toBeLessThan(0.95);
+    const internal = await get<StackPositionsReply>(`/stacks/${byName('B/2').id}/positions`);
+    expect(internal.positions.map((p) => p.name)).toEqual(['C/2', 'B/3', 'C/3']);
   });
 
   it('does not seed again on a second start', async () => {
