@@ -89,6 +89,21 @@ describe('the outbox page', () => {
     wrapper.unmount();
   });
 
+  it('opens a message from the keyboard with Enter or Space, and marks its row as the selected one', async () => {
+    mockFetch({ 'GET /api/dev/outbox': () => ({ status: 200, body: [invitation, revisionNotice] }) });
+    const wrapper = await mountPage();
+    const row = (n: number) => wrapper.findAll('[data-test="outbox-row"]')[n];
+    expect(row(1).attributes('tabindex')).toBe('0');
+    await row(1).trigger('keydown', { key: ' ' });
+    expect(wrapper.find('[data-test="message-subject"]').text()).toBe(invitation.subject);
+    expect(row(1).attributes('aria-selected')).toBe('true');
+    expect(row(0).attributes('aria-selected')).toBe('false');
+    await row(0).trigger('keydown', { key: 'Enter' });
+    expect(wrapper.find('[data-test="message-subject"]').text()).toBe(revisionNotice.subject);
+    expect(row(0).attributes('aria-selected')).toBe('true');
+    wrapper.unmount();
+  });
+
   it('downloads an attachment with the bearer token and saves it under its own name', async () => {
     setToken('tok-admin');
     const requests = mockFetch({

@@ -168,6 +168,6 @@ describe('the note when nominal moments are on but no face reactions are given',
     const w = mountPanel(analyseStack(faced));
     expect(w.find('[data-test="moments-note"]').exists()).toBe(false);
     // The combined column names the combination that governs
-    expect(w.find('tbody tr[data-lift="l1"]').text()).toMatch(/\d\.\d\d \(6\.10[ab]\)/);
+    expect(w.find('tbody tr[data-row-key="l1"]').text()).toMatch(/\d\.\d\d \(6\.10[ab]\)/);
   });
 });

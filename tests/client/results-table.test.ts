@@ -63,13 +63,13 @@ describe('results table', () => {
       'Governed by',
     ])
       expect(heads).toContain(h);
-    expect(w.findAll('tbody tr[data-lift]')).toHaveLength(2);
+    expect(w.findAll('tbody tr[data-row-key]')).toHaveLength(2);
   });
 
   it('highlights the governing lift and names it above the table', () => {
     const w = mountPanel();
     const governing = w.find('tr.results-table__governing');
-    expect(governing.attributes('data-lift')).toBe(results.governingLiftId);
+    expect(governing.attributes('data-row-key')).toBe(results.governingLiftId);
     expect(w.findAll('tr.results-table__governing')).toHaveLength(1);
     expect(w.find('[data-governing-summary]').text()).toContain(
       results.lifts.find((l) => l.liftId === results.governingLiftId)?.section,
@@ -86,7 +86,7 @@ describe('results table', () => {
     expect(row.chiZ).toBeCloseTo(Math.min(1, 1 / (phi + Math.sqrt(phi ** 2 - row.lambdaBarZ ** 2))), 4);
     const w = mountPanel();
     const cells = w
-      .find(`tr[data-lift="${row.liftId}"]`)
+      .find(`tr[data-row-key="${row.liftId}"]`)
       .findAll('td')
       .map((c) => c.text());
     expect(cells).toContain(row.NbRd.toFixed(0));
@@ -103,13 +103,13 @@ describe('results table', () => {
   it('asks for a lift to be selected, and emits the lift clicked in the table', async () => {
     const w = mountPanel();
     expect(w.text()).toContain('Select a lift');
-    await w.find('tr[data-lift="l2"]').trigger('click');
+    await w.find('tr[data-row-key="l2"]').trigger('click');
     expect(w.emitted('select-lift')).toEqual([['l2']]);
   });
 
   it('lets a lift be chosen from the keyboard: each row takes the focus and answers Enter', async () => {
     const w = mountPanel();
-    const row = w.find('tr[data-lift="l1"]');
+    const row = w.find('tr[data-row-key="l1"]');
     expect(row.attributes('tabindex')).toBe('0');
     await row.trigger('keydown', { key: 'Enter' });
     expect(w.emitted('select-lift')).toEqual([['l1']]);

@@ -145,6 +145,13 @@ describe('stacks table', () => {
     expect(wrapper.findAll('[data-test="name"]').map((c) => c.text())).toEqual(['C/1', 'C/2', 'C/10']);
   });
 
+  it('opens a stack when its row is clicked, and draws its rows as clickable', async () => {
+    const wrapper = mountTable('viewer');
+    expect(rowOf(wrapper, 'B/2').classes()).toContain('cursor-pointer');
+    await rowOf(wrapper, 'B/2').find('[data-test="governing"]').trigger('click');
+    expect(wrapper.emitted('open')).toEqual([[2]]);
+  });
+
   it('asks before deleting a stack, naming it', async () => {
     const lead = mountTable('lead');
     await rowOf(lead, 'C/3').find('[data-test="delete"]').trigger('click');
