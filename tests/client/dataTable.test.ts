@@ -35,6 +35,15 @@ describe('data table', () => {
     expect(w.findComponent(QTable).props('hidePagination')).toBe(true);
   });
 
+  it('is flat and bordered, unless told the card around it draws the edge', () => {
+    const plain = mount(ItemTable, { props: { rows, columns, rowKey: 'id' } }).findComponent(QTable);
+    expect([plain.props('flat'), plain.props('bordered')]).toEqual([true, true]);
+    expect(plain.classes()).toContain('q-table--bordered');
+    const inCard = mount(ItemTable, { props: { rows, columns, rowKey: 'id', bordered: false } }).findComponent(QTable);
+    expect(inCard.props('bordered')).toBe(false);
+    expect(inCard.classes()).not.toContain('q-table--bordered');
+  });
+
   it('pages and sorts as told, with the house choice of page sizes', () => {
     const w = mount(ItemTable, {
       props: { rows, columns, rowKey: 'id', pageSize: 2, sortBy: 'name', descending: true },
