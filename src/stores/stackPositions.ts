@@ -69,5 +69,8 @@ export const useStackPositionsStore = defineStore('stackPositions', () => {
     }
   }
 
-  return { buildingId, byStack, loadBuilding, applyStackChange, add, remove };
+  /** What a page that shows typical columns adds to its live building: their positions, kept up to date. */
+  const live = { load: loadBuilding, onStackChange: applyStackChange };
+
+  return { buildingId, byStack, loadBuilding, applyStackChange, live, add, remove };
 });

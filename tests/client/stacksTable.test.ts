@@ -4,7 +4,9 @@ import { createPinia, setActivePinia } from 'pinia';
 import type { Building, StackSummary } from '@shared/schema/api.ts';
 import { DEFAULT_ANALYSIS_OPTIONS } from '@shared/schema/results.ts';
 import StacksTable from '@/components/building/StacksTable.vue';
+import { useBuildingModelStore } from '@/stores/buildingModel.ts';
 import { useBuildingsStore } from '@/stores/buildings.ts';
+import { useStackPositionsStore } from '@/stores/stackPositions.ts';
 
 // Invented demo stacks. The colour bands (≤ 0.85 comfortable, ≤ 1.00 close, > 1.00 over) are our own
 // scale: common practice, no source.
@@ -150,6 +152,59 @@ describe('stacks table', () => {
     expect(rowOf(wrapper, 'B/2').classes()).toContain('cursor-pointer');
     await rowOf(wrapper, 'B/2').find('[data-test="governing"]').trigger('click');
     expect(wrapper.emitted('open')).toEqual([[2]]);
+  });
+
+  it('says where each stack stands: off the grid, at its crossing, or at every position of a typical column', async () => {
+    // Invented grid: lines with ids unlike their names, so a crossing must be named from the grid.
+    const placed = [
+      // Named A/1 but standing at A/2: the cell names the crossing, not the stack.
+      { ...stacks[0], gridX: 'gx-a', gridY: 'gy-2', webAlong: 'x' as const },
+      { ...stacks[1], gridX: 'gx-b', gridY: 'gy-2', webAlong: 'x' as const },
+      stacks[2],
+    ];
+    const wrapper = mountTable('viewer', placed);
+    useBuildingModelStore().model.grid = {
+      x: {
+        lines: [
+          { id: 'gx-a', name: 'A', position: 0 },
+          { id: 'gx-b', name: 'B', position: 7.5 },
+        ],
+        edgeBefore: 0,
+        edgeAfter: 0,
+      },
+      y: {
+        lines: [
+          { id: 'gy-1', name: '1', position: 0 },
+          { id: 'gy-2', name: '2', position: 6 },
+        ],
+        edgeBefore: 0,
+        edgeAfter: 0,
+      },
+    };
+    // B/2 is a typical column also standing at B/1, which governs it.
+    const at = (name: string, gridX: string, gridY: string, positionId: number | null) => ({
+      positionId,
+      gridX,
+      gridY,
+      name,
+      area: 20,
+      utilisation: 0.9,
+      status: 'passes' as const,
+      governingLiftId: null,
+      governingLiftLabel: null,
+      governingSection: null,
+      lifts: [],
+      errors: [],
+    });
+    useStackPositionsStore().byStack = new Map([
+      [2, { results: [at('B/2', 'gx-b', 'gy-2', null), at('B/1', 'gx-b', 'gy-1', 5)], governingPosition: 'B/1' }],
+    ]);
+    await wrapper.vm.$nextTick();
+    const cell = (name: string) => rowOf(wrapper, name).find('[data-test="stands-at"]');
+    expect(cell('A/1').text()).toBe('A/2');
+    expect(cell('B/2').text().replace(/\s+/g, ' ')).toBe('B/2, B/1');
+    expect(cell('B/2').find('.text-weight-bold').text()).toBe('B/1');
+    expect(cell('C/3').text()).toBe('off the grid');
   });
 
   it('asks before deleting a stack, naming it', async () => {
