@@ -8,7 +8,7 @@ import { now } from '../db.ts';
 import { conflict, notFound, unprocessable } from '../errors.ts';
 import { recordAudit } from './audit.ts';
 import { allow, recordOf } from './reviewState.ts';
-import { loadSnapshot } from './revisions.ts';
+import { revisionOutline } from './revisions.ts';
 
 export interface CommentRow {
   id: number;
@@ -47,14 +47,15 @@ export async function addComment(
   user: User,
   role: Role | null,
 ): Promise<ReviewComment> {
-  const { snapshot } = await loadSnapshot(db, revisionId);
-  const stack = snapshot.stacks.find((s) => s.id === body.stackId);
-  if (!stack) throw unprocessable(`Stack ${body.stackId} is not in revision ${snapshot.code}`);
+  // The stack and lift as frozen, from the revision's outline (its snapshot is not parsed for a comment).
+  const frozen = await revisionOutline(db, revisionId);
+  const stack = frozen.stacks.find((s) => s.id === body.stackId);
+  if (!stack) throw unprocessable(`Stack ${body.stackId} is not in revision ${frozen.code}`);
   let liftLabel: string | null = null;
   if (body.liftId !== null) {
-    const lift = stack.results.lifts.find((l) => l.liftId === body.liftId);
-    if (!lift) throw unprocessable(`Stack ${stack.name} has no lift ${body.liftId} in revision ${snapshot.code}`);
-    liftLabel = lift.label ?? lift.liftId;
+    const lift = stack.lifts.find((l) => l.liftId === body.liftId);
+    if (!lift) throw unprocessable(`Stack ${stack.name} has no lift ${body.liftId} in revision ${frozen.code}`);
+    liftLabel = lift.label;
   }
   return db.transaction(async (trx) => {
     const r = await recordOf(trx, revisionId);

@@ -451,6 +451,12 @@ async function loadOutline(db: Knex, id: number, hash: string): Promise<Revision
   return outline;
 }
 
+/** A revision's outline (what its page shows of the snapshot) and its code, for a check comment's names. */
+export async function revisionOutline(db: Knex, id: number): Promise<RevisionOutline & { code: string }> {
+  const row = await loadRevisionRow(db, id);
+  return { ...(await loadOutline(db, id, row.hash)), code: row.code };
+}
+
 async function storeOutline(db: Knex, revisionId: number, hash: string, outline: RevisionOutline): Promise<void> {
   await db('revision_outlines')
     .insert({ revision_id: revisionId, hash, outline: JSON.stringify(outline) })
