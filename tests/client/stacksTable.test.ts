@@ -163,24 +163,13 @@ describe('stacks table', () => {
       stacks[2],
     ];
     const wrapper = mountTable('viewer', placed);
-    useBuildingModelStore().model.grid = {
-      x: {
-        lines: [
-          { id: 'gx-a', name: 'A', position: 0 },
-          { id: 'gx-b', name: 'B', position: 7.5 },
-        ],
-        edgeBefore: 0,
-        edgeAfter: 0,
-      },
-      y: {
-        lines: [
-          { id: 'gy-1', name: '1', position: 0 },
-          { id: 'gy-2', name: '2', position: 6 },
-        ],
-        edgeBefore: 0,
-        edgeAfter: 0,
-      },
-    };
+    // Lines `prefix-name` at even spacing: ids unlike the names people read.
+    const family = (prefix: string, names: string[], spacing: number) => ({
+      lines: names.map((name, n) => ({ id: `${prefix}-${name.toLowerCase()}`, name, position: n * spacing })),
+      edgeBefore: 0,
+      edgeAfter: 0,
+    });
+    useBuildingModelStore().model.grid = { x: family('gx', ['A', 'B'], 7.5), y: family('gy', ['1', '2'], 6) };
     // B/2 is a typical column also standing at B/1, which governs it.
     const at = (name: string, gridX: string, gridY: string, positionId: number | null) => ({
       positionId,
