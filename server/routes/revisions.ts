@@ -12,7 +12,7 @@ import {
   freezeRevision,
   getRevision,
   listRevisions,
-  loadSnapshot,
+  loadIssueHead,
   loadSnapshotHead,
 } from '../services/revisions.ts';
 import { compareRevisions } from '../services/revisionsCompare.ts';
@@ -130,8 +130,8 @@ export function registerRevisionRoutes(router: Router, ctx: ServerContext): void
   });
   router.post('/revisions/:id/resend', auth, revisionLead, mailLimit, async (req, res) => {
     const id = idParam(req);
-    const { snapshot, hash } = await loadSnapshot(ctx.db, id);
-    await resendRevisionMail(ctx, id, snapshot, hash, revisionsLink(ctx, snapshot.building.id));
+    const { head, hash } = await loadIssueHead(ctx.db, id);
+    await resendRevisionMail(ctx, id, head, hash, revisionsLink(ctx, head.building.id));
     res.json(await getRevision(ctx.db, id));
   });
   // Only when the issued package is tampered or lost: a new copy, marked as re-drawn on every page.

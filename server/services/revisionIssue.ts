@@ -4,17 +4,16 @@
 import type { Knex } from 'knex';
 import type { User, Role } from '../../shared/schema/api.ts';
 import type { ApproveBody, SignOff } from '../../shared/schema/reviews.ts';
-import type { RevisionSnapshot } from '../../shared/schema/revisions.ts';
 import { isPostgres, now } from '../db.ts';
 import { enqueueMail } from '../mail/mailQueue.ts';
 import { recordAudit } from './audit.ts';
-import { loadSnapshot } from './revisions.ts';
-import { revisionMessage } from './revisionsMail.ts';
+import { loadIssueHead } from './revisions.ts';
+import { revisionMessage, type IssueHead } from './revisionsMail.ts';
 import { loadSignOff, recordApproval } from './reviews.ts';
 
 export interface IssueInput {
   revisionId: number;
-  snapshot: RevisionSnapshot;
+  head: IssueHead;
   hash: string;
   /** Where the e-mail's link points (the revisions page of the building). */
   link: string;
@@ -23,7 +22,7 @@ export interface IssueInput {
 }
 
 export async function queueIssue(trx: Knex, i: IssueInput): Promise<void> {
-  const buildingId = i.snapshot.building.id;
+  const buildingId = i.head.building.id;
   await trx('revision_packages').insert({ revision_id: i.revisionId, copy: 0, created_at: i.at });
   const members = await trx('memberships as m')
     .join('users as u', 'u.id', 'm.user_id')
@@ -44,7 +43,7 @@ export async function queueIssue(trx: Knex, i: IssueInput): Promise<void> {
     await enqueueMail(trx, [
       {
         kind: 'revision',
-        message: revisionMessage(i.snapshot, i.hash, m.email, i.link, i.signOff),
+        message: revisionMessage(i.head, i.hash, m.email, i.link, i.signOff),
         attachRevisionId: i.revisionId,
         recipientId: recipient.id,
         buildingId,
@@ -62,16 +61,16 @@ export async function approveRevision(
   role: Role | null,
   link: string,
 ): Promise<void> {
-  const { snapshot, hash } = await loadSnapshot(db, revisionId);
+  const { head, hash } = await loadIssueHead(db, revisionId);
   await db.transaction(async (trx) => {
     // Approvals and freezes of one building wait for each other (PostgreSQL; SQLite has one writer).
-    if (isPostgres(trx)) await trx('buildings').where({ id: snapshot.building.id }).forUpdate().first('id');
+    if (isPostgres(trx)) await trx('buildings').where({ id: head.building.id }).forUpdate().first('id');
     const at = now();
     const { code, unchecked } = await recordApproval(trx, revisionId, body, user, role, at);
-    await queueIssue(trx, { revisionId, snapshot, hash, link, at, signOff: await loadSignOff(trx, revisionId) });
+    await queueIssue(trx, { revisionId, head, hash, link, at, signOff: await loadSignOff(trx, revisionId) });
     await recordAudit(trx, {
       userId: user.id,
-      buildingId: snapshot.building.id,
+      buildingId: head.building.id,
       action: 'revision.approve',
       detail: { revisionId, code, unchecked, openCommentsReason: body.openCommentsReason || null },
     });

@@ -14,6 +14,7 @@ import {
   type RevisionSummary,
   type SnapshotStack,
 } from '../../shared/schema/revisions.ts';
+import type { IssueHead } from './revisionsMail.ts';
 import { conflict, notFound, unprocessable } from '../errors.ts';
 import { isPostgres, now } from '../db.ts';
 import { onUniqueViolation } from '../dbErrors.ts';
@@ -275,7 +276,7 @@ async function freezeIn(
       // queued in this transaction, so a crash after commit still sends it (mailSender.ts).
       await queueIssue(trx, {
         revisionId: row.id,
-        snapshot,
+        head: { ...snapshot, stackCount: snapshot.stacks.length },
         hash,
         link: input.link,
         at: frozenAt,
@@ -383,20 +384,35 @@ export async function loadSnapshotText(db: Knex, id: number): Promise<SnapshotTe
 }
 
 /**
- * The frozen building and code of a revision, for names (a package's file name), without parsing its stacks: the
- * snapshot is canonical JSON, keys sorted, so every top-level field but `stacks` stands before it.
+ * A snapshot's fields but its stacks, read from its text without parsing the stacks: the text is canonical JSON,
+ * keys sorted, so every top-level field but `stacks` stands before it (and `,"stacks":[` cannot stand inside a
+ * string, where a quote is escaped).
  */
+function headOf(text: string): Omit<RevisionSnapshot, 'stacks'> {
+  const cut = text.indexOf(',"stacks":[');
+  try {
+    return JSON.parse(cut >= 0 ? `${text.slice(0, cut)}}` : text) as RevisionSnapshot;
+  } catch {
+    return JSON.parse(text) as RevisionSnapshot;
+  }
+}
+
+/** The frozen building and code of a revision, for names (a package's file name). */
 export async function loadSnapshotHead(db: Knex, id: number): Promise<Pick<RevisionSnapshot, 'building' | 'code'>> {
   const row = await db('revisions').where({ id }).first<{ snapshot: string } | undefined>('snapshot');
   if (!row) throw notFound('Revision');
-  const cut = row.snapshot.indexOf(',"stacks":[');
-  let head: RevisionSnapshot;
-  try {
-    head = JSON.parse(cut >= 0 ? `${row.snapshot.slice(0, cut)}}` : row.snapshot) as RevisionSnapshot;
-  } catch {
-    head = JSON.parse(row.snapshot) as RevisionSnapshot;
-  }
+  const head = headOf(row.snapshot);
   return { building: head.building, code: head.code };
+}
+
+/**
+ * What a revision's issue e-mail says of it (revisionMessage): its snapshot's head, the text checked against its
+ * hash a megabyte at a time, and how many stacks were frozen, from the revision's row. The stacks are not parsed.
+ */
+export async function loadIssueHead(db: Knex, id: number): Promise<{ head: IssueHead; hash: string }> {
+  const { text, hash } = await loadSnapshotText(db, id);
+  const row = await db('revisions').where({ id }).first<{ stack_count: number }>('stack_count');
+  return { head: { ...headOf(text), stackCount: Number(row.stack_count) }, hash };
 }
 
 /** The snapshot as frozen, parsed; a text whose hash no longer matches is refused rather than printed. */

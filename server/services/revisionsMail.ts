@@ -28,9 +28,12 @@ export function signOffWords(o: SignOff): string {
   return `Prepared by ${o.prepared.name} on ${on(o.prepared.at)}; ${checked}; ${approved}.`;
 }
 
+/** What an issue's e-mail says of a revision: its snapshot but the stacks, and how many stacks were frozen. */
+export type IssueHead = Omit<RevisionSnapshot, 'stacks'> & { stackCount: number };
+
 /** The message without its attachment: the sender attaches the stored package when it sends. */
 export function revisionMessage(
-  s: RevisionSnapshot,
+  s: IssueHead,
   hash: string,
   to: string,
   link: string,
@@ -38,7 +41,7 @@ export function revisionMessage(
 ): Omit<MailMessage, 'attachments'> {
   const purpose = s.purpose === 'construction' ? 'for construction' : 'preliminary';
   const issue = s.purpose === 'construction' ? 'for construction' : 'as a preliminary issue';
-  const stacks = `${s.stacks.length} stack${s.stacks.length === 1 ? '' : 's'}`;
+  const stacks = `${s.stackCount} stack${s.stackCount === 1 ? '' : 's'}`;
   const subject = `${s.building.name}: revision ${s.code} issued (${purpose})`;
   const note = s.note ? `\nNote: ${s.note}\n` : '';
   const ack = s.acknowledgement ? `\n${s.acknowledgement}\n` : '';
@@ -72,7 +75,7 @@ export function revisionMessage(
 export async function resendRevisionMail(
   ctx: ServerContext,
   revisionId: number,
-  snapshot: RevisionSnapshot,
+  head: IssueHead,
   hash: string,
   link: string,
 ): Promise<number> {
@@ -91,10 +94,10 @@ export async function resendRevisionMail(
       await enqueueMail(trx, [
         {
           kind: 'revision',
-          message: revisionMessage(snapshot, hash, row.email, link, signOff),
+          message: revisionMessage(head, hash, row.email, link, signOff),
           attachRevisionId: revisionId,
           recipientId: row.id,
-          buildingId: snapshot.building.id,
+          buildingId: head.building.id,
         },
       ]);
       queued += 1;

@@ -6,7 +6,7 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type { AuthResponse } from '../../shared/schema/api.ts';
 import { reviewSchema, type RevisionReview } from '../../shared/schema/reviews.ts';
 import type { RevisionDetail, RevisionSummary } from '../../shared/schema/revisions.ts';
-import { addMember, errorCode, eventually, registerUser, startTestServer, type TestServer } from './helpers.ts';
+import { addMember, errorCode, eventually, mailTo, registerUser, startTestServer, type TestServer } from './helpers.ts';
 import { revisionFixture, type RevisionFixture } from './revisionsFixture.ts';
 import { connect, request, type LiveClient } from './liveHelpers.ts';
 import type { BuildingRevisionChanged } from '../../shared/schema/socket.ts';
@@ -190,6 +190,16 @@ describe('checking and approving a revision', () => {
       async () =>
         ((await s.api('GET', `/revisions/${rev.id}`, { token: f.lead.token })).body as RevisionDetail).mail.sent === 4,
     );
+    // The issue e-mail, written from the snapshot's head and the revision's stack count (the stacks are not parsed):
+    // the revision, both stacks, the sign-offs, the reason and the snapshot's hash.
+    const { hash } = (await s.api('GET', `/revisions/${rev.id}`, { token: f.lead.token })).body as RevisionDetail;
+    const [mail] = await mailTo(s, f.viewer.user.email, 1, 15_000, new RegExp(`Revision ${rev.code} `));
+    expect(mail.subject).toMatch(new RegExp(`: revision ${rev.code} issued \\(for construction\\)$`));
+    expect(mail.text).toContain(`Revision ${rev.code} of "`);
+    expect(mail.text).toContain('(2 stacks) is issued for construction.');
+    expect(mail.text).toContain(`checked by ${checker.user.name}`);
+    expect(mail.text).toContain(reason);
+    expect(mail.text).toContain(`Snapshot SHA-256: ${hash}`);
     // Closed: no more comments, and the sign-offs themselves cannot be changed, even in the database.
     expect((await comment(checker.token, rev.id, f.stackIds[0], null, 'late')).status).toBe(409);
     expect((await step(f.lead.token, rev.id, 'approve', { openCommentsReason: 'again' })).status).toBe(409);
