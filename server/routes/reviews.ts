@@ -47,14 +47,14 @@ export function registerReviewRoutes(router: Router, ctx: ServerContext): void {
       const body = parseBody(freezeBodySchema, req);
       const { buildingId } = currentAccess(req);
       await reanalyseOutdated(ctx, buildingId, currentUser(req));
-      const { id, snapshot } = await freezeRevision(
+      const { id, outline } = await freezeRevision(
         ctx.db,
         buildingId,
         { ...body, link: revisionsLink(ctx, buildingId), engineVersion: ENGINE_VERSION, issueUnchecked: false },
         currentUser(req),
         arrivalOf(req),
       );
-      res.status(201).json(await getRevision(ctx.db, id, snapshot));
+      res.status(201).json(await getRevision(ctx.db, id, outline));
       tellRevisionChanged(ctx, req, id);
     },
   );

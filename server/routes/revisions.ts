@@ -90,7 +90,7 @@ export function registerRevisionRoutes(router: Router, ctx: ServerContext): void
     await reanalyseOutdated(ctx, buildingId, currentUser(req));
     // A lead's freeze: a preliminary revision is prepared and issued at once without a check (the cover says
     // so); a construction revision is prepared and waits for its check and approval (docs/issue-workflow.md).
-    const { id, issued, snapshot } = await freezeRevision(
+    const { id, issued, outline } = await freezeRevision(
       ctx.db,
       buildingId,
       {
@@ -102,7 +102,7 @@ export function registerRevisionRoutes(router: Router, ctx: ServerContext): void
       currentUser(req),
       arrivalOf(req),
     );
-    res.status(201).json(await getRevision(ctx.db, id, snapshot));
+    res.status(201).json(await getRevision(ctx.db, id, outline));
     tellRevisionChanged(ctx, req, id);
     if (issued) drawAfterIssue(ctx, req, id);
   });

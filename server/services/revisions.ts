@@ -144,10 +144,10 @@ async function nextCode(trx: Knex, buildingId: number, purpose: RevisionPurpose)
   return `${prefix}${String(highest + 1).padStart(2, '0')}`;
 }
 
-/** What a freeze gives back: the new revision, its snapshot and whether it was issued at once. */
+/** What a freeze gives back: the new revision, its outline and whether it was issued at once. */
 export interface FrozenRevision {
   id: number;
-  snapshot: RevisionSnapshot;
+  outline: RevisionOutline;
   hash: string;
   issued: boolean;
 }
@@ -246,9 +246,8 @@ async function freezeIn(
       },
       stacks,
     );
-    const utilisations = stacks
-      .map((s) => summariseResult(s.doc, s.results).utilisation)
-      .filter((u): u is number => u !== null);
+    const outline = outlineOf(snapshot);
+    const utilisations = outline.stacks.map((s) => s.utilisation).filter((u): u is number => u !== null);
     const [row] = await trx('revisions')
       .insert({
         building_id: buildingId,
@@ -267,7 +266,7 @@ async function freezeIn(
         failing_lifts: failing.length,
       })
       .returning<{ id: number }[]>('id');
-    await storeOutline(trx, row.id, hash, outlineOf(snapshot));
+    await storeOutline(trx, row.id, hash, outline);
     // The preparer signs first; a preliminary freeze by a lead is approved and issued in the same breath.
     await recordStep(trx, row.id, 'prepared', user, frozenAt);
     if (input.issueUnchecked) {
@@ -289,7 +288,7 @@ async function freezeIn(
       action: input.issueUnchecked ? 'revision.freeze' : 'revision.prepare',
       detail: { revisionId: row.id, code, hash, failingLifts: failing.length },
     });
-    return { id: row.id, snapshot, hash, issued: input.issueUnchecked };
+    return { id: row.id, outline, hash, issued: input.issueUnchecked };
   });
 }
 
@@ -366,21 +365,29 @@ export interface SnapshotText {
   hash: string;
   code: string;
   buildingId: number;
+  stackCount: number;
 }
 
 export async function loadSnapshotText(db: Knex, id: number): Promise<SnapshotText> {
   const row = await db('revisions')
     .where({ id })
-    .first<{ snapshot: string; hash: string; code: string; building_id: number } | undefined>(
+    .first<{ snapshot: string; hash: string; code: string; building_id: number; stack_count: number } | undefined>(
       'snapshot',
       'hash',
       'code',
       'building_id',
+      'stack_count',
     );
   if (!row) throw notFound('Revision');
   if ((await sha256HexInTurns(row.snapshot)) !== row.hash)
     throw new Error(`Revision ${id}: the stored snapshot does not match its hash`);
-  return { text: row.snapshot, hash: row.hash, code: row.code, buildingId: row.building_id };
+  return {
+    text: row.snapshot,
+    hash: row.hash,
+    code: row.code,
+    buildingId: row.building_id,
+    stackCount: Number(row.stack_count),
+  };
 }
 
 /**
@@ -410,9 +417,8 @@ export async function loadSnapshotHead(db: Knex, id: number): Promise<Pick<Revis
  * hash a megabyte at a time, and how many stacks were frozen, from the revision's row. The stacks are not parsed.
  */
 export async function loadIssueHead(db: Knex, id: number): Promise<{ head: IssueHead; hash: string }> {
-  const { text, hash } = await loadSnapshotText(db, id);
-  const row = await db('revisions').where({ id }).first<{ stack_count: number }>('stack_count');
-  return { head: { ...headOf(text), stackCount: Number(row.stack_count) }, hash };
+  const { text, hash, stackCount } = await loadSnapshotText(db, id);
+  return { head: { ...headOf(text), stackCount }, hash };
 }
 
 /** The snapshot as frozen, parsed; a text whose hash no longer matches is refused rather than printed. */
@@ -423,7 +429,7 @@ export async function loadSnapshot(db: Knex, id: number): Promise<{ snapshot: Re
 }
 
 /** What a revision's page shows of its snapshot: the options, levels, and each stack's outcome and lifts. */
-type RevisionOutline = Pick<RevisionDetail, 'options' | 'levels' | 'stacks'>;
+export type RevisionOutline = Pick<RevisionDetail, 'options' | 'levels' | 'stacks'>;
 
 function outlineOf(snapshot: Pick<RevisionSnapshot, 'options' | 'levels' | 'stacks'>): RevisionOutline {
   return {
@@ -480,11 +486,11 @@ async function storeOutline(db: Knex, revisionId: number, hash: string, outline:
     .ignore();
 }
 
-/** `frozen`: the snapshot just frozen, when the caller has it, so its outline is not read back. */
-export async function getRevision(db: Knex, id: number, frozen?: RevisionSnapshot): Promise<RevisionDetail> {
+/** `frozen`: the outline of the revision just frozen, when the caller has it, so it is not read back. */
+export async function getRevision(db: Knex, id: number, frozen?: RevisionOutline): Promise<RevisionDetail> {
   const row = await loadRevisionRow(db, id);
   const [outline, counts, recipients, reviews] = await Promise.all([
-    frozen ? outlineOf(frozen) : loadOutline(db, id, row.hash),
+    frozen ?? loadOutline(db, id, row.hash),
     mailCounts(db, [id]),
     listRecipients(db, id),
     reviewSummaries(db, [row]),
