@@ -6,13 +6,18 @@ import { floorLoadsKey, stackFloorLoads } from '../../shared/engine/building/sta
 import { positionResult, withPositionResults } from '../../shared/engine/building/typicalColumn.ts';
 import { analyseStack } from '../../shared/engine/index.ts';
 import { ENGINE_VERSION } from '../../shared/engine/version.ts';
-import { positionOverridesKey, type BuildingModel, type StackPlacement } from '../../shared/schema/building.ts';
+import {
+  gridRef,
+  positionOverridesKey,
+  type BuildingModel,
+  type StackPlacement,
+} from '../../shared/schema/building.ts';
 import type { AnalysisOptions, StackResult } from '../../shared/schema/results.ts';
 import type { SectionDims, StackDocument } from '../../shared/schema/stack.ts';
 import { readModel } from './buildingModelStore.ts';
 import { getBuildingOptions } from './buildings.ts';
 import { companySectionMap } from './companySections.ts';
-import { gridRef, positionsByStack, type PositionRow } from './stackPositionRows.ts';
+import { positionsByStack, type PositionRow } from './stackPositionRows.ts';
 import { packResults, resultsRef, storeResults, type PackedResults } from './stackRows.ts';
 
 export interface AnalysisInputs {

@@ -5,6 +5,7 @@
 import type { Knex } from 'knex';
 import type { User } from '../../shared/schema/api.ts';
 import {
+  gridRef,
   positionOverridesKey,
   type AreaOverride,
   type Buildup,
@@ -119,12 +120,6 @@ async function modelRows(trx: Knex, buildingId: number, affected: (row: ModelRow
   );
   return rows.map((r) => ({ ...r, grid_x: null, grid_y: null, web_along: null, ...places.get(r.id) })).filter(affected);
 }
-
-const gridRef = (grid: Grid, gridX: string, gridY: string): string | null => {
-  const x = grid.x.lines.find((l) => l.id === gridX);
-  const y = grid.y.lines.find((l) => l.id === gridY);
-  return x && y ? `${x.name}/${y.name}` : null;
-};
 
 const toPlacement = (r: PlaceRow): Placement => ({
   id: r.id,

@@ -1,6 +1,6 @@
 // Reading the further positions of typical columns (docs/typical-columns.md).
 import type { Knex } from 'knex';
-import { positionOverridesKey, type BuildingModel, type Grid } from '../../shared/schema/building.ts';
+import { gridRef, positionOverridesKey, type BuildingModel } from '../../shared/schema/building.ts';
 import type { StackPosition } from '../../shared/schema/stackPositions.ts';
 
 export interface PositionRow {
@@ -13,13 +13,6 @@ export interface PositionRow {
 }
 
 const COLUMNS = ['id', 'stack_id', 'building_id', 'grid_x', 'grid_y', 'web_along'] as const;
-
-/** `x name/y name` of a crossing; null when the grid has no such lines. */
-export function gridRef(grid: Grid, gridX: string, gridY: string): string | null {
-  const x = grid.x.lines.find((l) => l.id === gridX);
-  const y = grid.y.lines.find((l) => l.id === gridY);
-  return x && y ? `${x.name}/${y.name}` : null;
-}
 
 /** Every further position of the building's stacks, by stack id, in the order they were added. */
 export async function positionsByStack(db: Knex, buildingId: number): Promise<Map<number, PositionRow[]>> {

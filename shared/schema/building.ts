@@ -145,6 +145,13 @@ export type StackPlacement = z.infer<typeof stackPlacementSchema>;
  */
 export const positionOverridesKey = (positionId: number): string => `p${positionId}`;
 
+/** A crossing's name as people read it, `x name/y name`; null when the grid has no such lines. */
+export function gridRef(grid: Grid, gridX: string, gridY: string): string | null {
+  const x = grid.x.lines.find((l) => l.id === gridX);
+  const y = grid.y.lines.find((l) => l.id === gridY);
+  return x && y ? `${x.name}/${y.name}` : null;
+}
+
 /** A key of `BuildingModel.overrides`: a stack id, or `p` and a position id. */
 export const overridesKeySchema = z.string().regex(/^p?[1-9][0-9]{0,15}$/, 'must be a stack id or p and a position id');
 
